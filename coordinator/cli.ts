@@ -1,0 +1,60 @@
+#!/usr/bin/env node
+/**
+ * The `tendril` command line. Each subcommand lives in coordinator/commands/
+ * and exports `register(program)`; add new ones to COMMANDS below.
+ *
+ * Errors are reported as one line on stderr with a non-zero exit code.
+ */
+import { realpathSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { Command, CommanderError } from 'commander';
+import { UsageError } from './usage-error.js';
+import { ENGINE_VERSION } from '../worker/engine-version.js';
+
+type Register = (program: Command) => void;
+
+const COMMANDS: Array<() => Promise<{ register: Register }>> = [
+  // e.g. () => import('./commands/grow.js'),
+];
+
+export async function main(argv: string[]): Promise<number> {
+  const program = new Command();
+  program
+    .name('tendril')
+    .description('Batch simulation farm for Laplacian-growth aggregates (DLA and relatives).')
+    .version(ENGINE_VERSION, '--version', 'print the engine version')
+    .exitOverride()
+    .configureOutput({ writeErr: (s) => process.stderr.write(s) })
+    .showHelpAfterError(false);
+  for (const load of COMMANDS) (await load()).register(program);
+  try {
+    await program.parseAsync(argv, { from: 'node' });
+    return typeof process.exitCode === 'number' ? process.exitCode : 0;
+  } catch (err) {
+    if (err instanceof CommanderError) {
+      // commander already printed its message (help, version or a usage error)
+      return err.exitCode === 0 ? 0 : 2;
+    }
+    if (err instanceof UsageError) {
+      process.stderr.write(`tendril: ${err.message}\n`);
+      return 2;
+    }
+    const msg = err instanceof Error ? err.message : String(err);
+    process.stderr.write(`tendril: ${msg.split('\n')[0]}\n`);
+    return 1;
+  }
+}
+
+function isEntryPoint(): boolean {
+  const invoked = process.argv[1];
+  if (invoked === undefined) return false;
+  try {
+    return realpathSync(invoked) === realpathSync(fileURLToPath(import.meta.url));
+  } catch {
+    return false;
+  }
+}
+
+if (isEntryPoint()) {
+  main(process.argv).then((code) => process.exit(code));
+}
