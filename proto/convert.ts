@@ -1,0 +1,415 @@
+/**
+ * Conversions between tendril's plain objects and the protobuf messages of
+ * proto/tendril.proto. proto/ imports nothing else of ours, so the plain shapes
+ * are declared here; they are structurally identical to the kernel contract of
+ * worker/growth-kernel.ts (test/proto-contract.test.ts checks that both ways).
+ *
+ * Every decoder checks what it reads and throws a ContractError with a
+ * one-line message naming the bad field, so a malformed job fails with a
+ * reason instead of crashing a process.
+ */
+import { tendril } from './generated/tendril.js';
+
+export { tendril };
+
+/** Version of the wire contract written into every message; see the header of tendril.proto. */
+export const CONTRACT_VERSION = 1;
+
+export class ContractError extends Error {
+  override name = 'ContractError';
+}
+
+export interface PlainOffLatticeDla2d {
+  kind: 'dla-offlattice-2d';
+  minStep: number;
+  launchMargin: number;
+}
+export type PlainModel = PlainOffLatticeDla2d;
+
+export interface PlainGrowthTask {
+  model: PlainModel;
+  particles: number;
+  ensembleSeed: string;
+  runIndex: number;
+  recordsPerDecade: number;
+}
+
+/** A run task as queued: the growth task plus where it belongs and how to checkpoint it. */
+export interface RunTaskData extends PlainGrowthTask {
+  ensembleId: string;
+  /** Checkpoint at least this often (seconds of wall-clock time); 0 = only on shutdown. */
+  checkpointIntervalSeconds: number;
+  /** Also checkpoint every this many particles; 0 = off. */
+  checkpointEveryParticles: number;
+  engineVersion: string;
+}
+
+export interface PlainSeries {
+  sizes: number[];
+  radiusOfGyration: number[];
+  maxRadius: number[];
+  centerOffset: number[];
+}
+export interface PlainMassRadius {
+  radii: number[];
+  counts: number[];
+}
+export interface PlainCounters {
+  jumps: number;
+  shortSteps: number;
+  returns: number;
+}
+export interface PlainGrowthResult {
+  engineVersion: string;
+  model: PlainModel;
+  particles: number;
+  ensembleSeed: string;
+  runIndex: number;
+  series: PlainSeries;
+  massRadius: PlainMassRadius;
+  counters: PlainCounters;
+  stateHash: string;
+}
+export interface PlainGrowthCheckpoint {
+  engineVersion: string;
+  task: PlainGrowthTask;
+  count: number;
+  x: Float64Array;
+  y: Float64Array;
+  rngState: Uint32Array;
+  counters: PlainCounters;
+  series: PlainSeries;
+}
+
+export interface RunTimingsData {
+  growSeconds: number;
+  startedAtMs: number;
+  finishedAtMs: number;
+  resumes: number;
+  finishedBy: string;
+}
+
+export interface RunResultData extends PlainGrowthResult {
+  ensembleId: string;
+  timings: RunTimingsData;
+}
+
+/** A stored checkpoint: the kernel's state plus the run it belongs to and the time already spent. */
+export interface CheckpointData {
+  run: RunTaskData;
+  state: PlainGrowthCheckpoint;
+  growSeconds: number;
+  startedAtMs: number;
+  resumes: number;
+}
+
+// ---------------------------------------------------------------- helpers
+
+function fail(msg: string): never {
+  throw new ContractError(msg);
+}
+
+function checkVersion(what: string, v: number): void {
+  if (v !== CONTRACT_VERSION) fail(`${what}.contract_version is ${v}, this build reads only version ${CONTRACT_VERSION}`);
+}
+
+function decodeWith<T>(what: string, decode: (b: Uint8Array) => T, bytes: Uint8Array): T {
+  try {
+    return decode(bytes);
+  } catch (err) {
+    fail(`${what}: not a valid protobuf message (${err instanceof Error ? err.message : String(err)})`);
+  }
+}
+
+export function growthTaskOf(run: RunTaskData): PlainGrowthTask {
+  return {
+    model: { ...run.model },
+    particles: run.particles,
+    ensembleSeed: run.ensembleSeed,
+    runIndex: run.runIndex,
+    recordsPerDecade: run.recordsPerDecade,
+  };
+}
+
+function modelToProto(m: PlainModel): tendril.IModelParams {
+  switch (m.kind) {
+    case 'dla-offlattice-2d':
+      return { offlatticeDla2d: { minStep: m.minStep, launchMargin: m.launchMargin } };
+    default:
+      return fail(`model.kind "${(m as { kind: string }).kind}" has no protobuf encoding`);
+  }
+}
+
+function modelFromProto(what: string, m: tendril.IModelParams | null | undefined): PlainModel {
+  const d = m?.offlatticeDla2d;
+  if (d) return { kind: 'dla-offlattice-2d', minStep: d.minStep ?? 0, launchMargin: d.launchMargin ?? 0 };
+  return fail(`${what}.model is missing or of an unknown kind`);
+}
+
+function seriesFromProto(s: tendril.IGrowthSeries | null | undefined): PlainSeries {
+  const sizes = (s?.sizes ?? []).map(Number);
+  const rg = (s?.radiusOfGyration ?? []).slice();
+  const mr = (s?.maxRadius ?? []).slice();
+  const co = (s?.centerOffset ?? []).slice();
+  if (rg.length !== sizes.length || mr.length !== sizes.length || co.length !== sizes.length) {
+    fail(`series has ${sizes.length} sizes but ${rg.length}/${mr.length}/${co.length} values`);
+  }
+  return { sizes, radiusOfGyration: rg, maxRadius: mr, centerOffset: co };
+}
+
+function countersFromProto(c: tendril.IGrowthCounters | null | undefined): PlainCounters {
+  return { jumps: c?.jumps ?? 0, shortSteps: c?.shortSteps ?? 0, returns: c?.returns ?? 0 };
+}
+
+const LITTLE_ENDIAN = new Uint8Array(Uint16Array.of(1).buffer)[0] === 1;
+
+function floatsToBytes(a: Float64Array, count: number): Uint8Array {
+  const n = Math.min(count, a.length);
+  if (LITTLE_ENDIAN) return new Uint8Array(a.buffer, a.byteOffset, n * 8);
+  const out = new Uint8Array(n * 8);
+  const view = new DataView(out.buffer);
+  for (let i = 0; i < n; i++) view.setFloat64(i * 8, a[i], true);
+  return out;
+}
+
+function bytesToFloats(what: string, b: Uint8Array | null | undefined, count: number): Float64Array {
+  const len = b?.length ?? 0;
+  if (len !== count * 8) fail(`${what} holds ${len} bytes, expected ${count * 8} for ${count} particles`);
+  const out = new Float64Array(count);
+  if (LITTLE_ENDIAN) new Uint8Array(out.buffer).set(b!);
+  else {
+    const view = new DataView(b!.buffer, b!.byteOffset, b!.byteLength);
+    for (let i = 0; i < count; i++) out[i] = view.getFloat64(i * 8, true);
+  }
+  return out;
+}
+
+// ---------------------------------------------------------------- run task
+
+export function runTaskToProto(t: RunTaskData): tendril.RunTask {
+  return tendril.RunTask.create({
+    contractVersion: CONTRACT_VERSION,
+    ensembleId: t.ensembleId,
+    runIndex: t.runIndex,
+    ensembleSeed: t.ensembleSeed,
+    model: modelToProto(t.model),
+    particles: t.particles,
+    recordsPerDecade: t.recordsPerDecade,
+    checkpointIntervalSeconds: t.checkpointIntervalSeconds,
+    checkpointEveryParticles: t.checkpointEveryParticles,
+    engineVersion: t.engineVersion,
+  });
+}
+
+export function runTaskFromProto(m: tendril.IRunTask): RunTaskData {
+  checkVersion('RunTask', m.contractVersion ?? 0);
+  const t: RunTaskData = {
+    ensembleId: m.ensembleId ?? '',
+    runIndex: m.runIndex ?? 0,
+    ensembleSeed: m.ensembleSeed ?? '',
+    model: modelFromProto('RunTask', m.model),
+    particles: m.particles ?? 0,
+    recordsPerDecade: m.recordsPerDecade ?? 0,
+    checkpointIntervalSeconds: m.checkpointIntervalSeconds ?? 0,
+    checkpointEveryParticles: m.checkpointEveryParticles ?? 0,
+    engineVersion: m.engineVersion ?? '',
+  };
+  if (t.ensembleId === '') fail('RunTask.ensemble_id is empty');
+  if (!/^[0-9]{1,20}$/.test(t.ensembleSeed)) fail(`RunTask.ensemble_seed "${t.ensembleSeed}" is not a decimal unsigned 64-bit integer`);
+  if (t.particles < 1) fail(`RunTask.particles is ${t.particles}, must be >= 1`);
+  if (t.recordsPerDecade < 1) fail(`RunTask.records_per_decade is ${t.recordsPerDecade}, must be >= 1`);
+  if (!(t.checkpointIntervalSeconds >= 0)) fail(`RunTask.checkpoint_interval_seconds is ${t.checkpointIntervalSeconds}, must be >= 0`);
+  if (t.engineVersion === '') fail('RunTask.engine_version is empty');
+  return t;
+}
+
+export function encodeRunTask(t: RunTaskData): Uint8Array {
+  return tendril.RunTask.encode(runTaskToProto(t)).finish();
+}
+
+export function decodeRunTask(bytes: Uint8Array): RunTaskData {
+  return runTaskFromProto(decodeWith('RunTask', (b) => tendril.RunTask.decode(b), bytes));
+}
+
+// ---------------------------------------------------------------- run result
+
+export function runResultToProto(r: RunResultData): tendril.RunResult {
+  return tendril.RunResult.create({
+    contractVersion: CONTRACT_VERSION,
+    ensembleId: r.ensembleId,
+    runIndex: r.runIndex,
+    engineVersion: r.engineVersion,
+    model: modelToProto(r.model),
+    particles: r.particles,
+    ensembleSeed: r.ensembleSeed,
+    series: { ...r.series },
+    massRadius: { ...r.massRadius },
+    counters: { ...r.counters },
+    stateHash: r.stateHash,
+    timings: { ...r.timings },
+  });
+}
+
+export function runResultFromProto(m: tendril.IRunResult): RunResultData {
+  checkVersion('RunResult', m.contractVersion ?? 0);
+  const mr = m.massRadius;
+  const radii = (mr?.radii ?? []).slice();
+  const counts = (mr?.counts ?? []).slice();
+  if (radii.length !== counts.length) fail(`RunResult.mass_radius has ${radii.length} radii but ${counts.length} counts`);
+  const t = m.timings;
+  const r: RunResultData = {
+    ensembleId: m.ensembleId ?? '',
+    runIndex: m.runIndex ?? 0,
+    engineVersion: m.engineVersion ?? '',
+    model: modelFromProto('RunResult', m.model),
+    particles: m.particles ?? 0,
+    ensembleSeed: m.ensembleSeed ?? '',
+    series: seriesFromProto(m.series),
+    massRadius: { radii, counts },
+    counters: countersFromProto(m.counters),
+    stateHash: m.stateHash ?? '',
+    timings: {
+      growSeconds: t?.growSeconds ?? 0,
+      startedAtMs: t?.startedAtMs ?? 0,
+      finishedAtMs: t?.finishedAtMs ?? 0,
+      resumes: t?.resumes ?? 0,
+      finishedBy: t?.finishedBy ?? '',
+    },
+  };
+  if (r.stateHash === '') fail('RunResult.state_hash is empty');
+  return r;
+}
+
+export function encodeRunResult(r: RunResultData): Uint8Array {
+  return tendril.RunResult.encode(runResultToProto(r)).finish();
+}
+
+export function decodeRunResult(bytes: Uint8Array): RunResultData {
+  return runResultFromProto(decodeWith('RunResult', (b) => tendril.RunResult.decode(b), bytes));
+}
+
+// ---------------------------------------------------------------- checkpoint
+
+export function encodeCheckpoint(c: CheckpointData): Uint8Array {
+  const s = c.state;
+  const msg = tendril.Checkpoint.create({
+    contractVersion: CONTRACT_VERSION,
+    engineVersion: s.engineVersion,
+    task: runTaskToProto(c.run),
+    count: s.count,
+    x: floatsToBytes(s.x, s.count),
+    y: floatsToBytes(s.y, s.count),
+    rngState: Array.from(s.rngState),
+    counters: { ...s.counters },
+    series: { ...s.series },
+    growSeconds: c.growSeconds,
+    startedAtMs: c.startedAtMs,
+    resumes: c.resumes,
+  });
+  return tendril.Checkpoint.encode(msg).finish();
+}
+
+export function decodeCheckpoint(bytes: Uint8Array): CheckpointData {
+  const m = decodeWith('Checkpoint', (b) => tendril.Checkpoint.decode(b), bytes);
+  checkVersion('Checkpoint', m.contractVersion ?? 0);
+  if (!m.task) fail('Checkpoint.task is missing');
+  const run = runTaskFromProto(m.task);
+  const count = m.count ?? 0;
+  if (count < 1 || count > run.particles) fail(`Checkpoint.count is ${count}, allowed 1..${run.particles}`);
+  const rng = m.rngState ?? [];
+  if (rng.length !== 4) fail(`Checkpoint.rng_state has ${rng.length} words, expected 4`);
+  return {
+    run,
+    state: {
+      engineVersion: m.engineVersion ?? '',
+      task: growthTaskOf(run),
+      count,
+      x: bytesToFloats('Checkpoint.x', m.x, count),
+      y: bytesToFloats('Checkpoint.y', m.y, count),
+      rngState: Uint32Array.from(rng),
+      counters: countersFromProto(m.counters),
+      series: seriesFromProto(m.series),
+    },
+    growSeconds: m.growSeconds ?? 0,
+    startedAtMs: m.startedAtMs ?? 0,
+    resumes: m.resumes ?? 0,
+  };
+}
+
+// ---------------------------------------------------------------- summary
+
+export interface PowerLawFitData {
+  exponent: number;
+  prefactor: number;
+  rSquared: number;
+  points: number;
+  minX: number;
+  maxX: number;
+}
+
+export interface EnsembleSummaryData {
+  ensembleId: string;
+  name: string;
+  engineVersion: string;
+  specJson: string;
+  clustersPlanned: number;
+  clustersDone: number;
+  runs: RunResultData[];
+  radiusOfGyrationFit: PowerLawFitData | null;
+  fractalDimension: number | null;
+  createdAtMs: number;
+  meanSizes: number[];
+  meanLogRadiusOfGyration: number[];
+  /** JSON text added by the statistics library; "" when absent. */
+  statisticsJson: string;
+}
+
+export function encodeEnsembleSummary(s: EnsembleSummaryData): Uint8Array {
+  const msg = tendril.EnsembleSummary.create({
+    contractVersion: CONTRACT_VERSION,
+    ensembleId: s.ensembleId,
+    name: s.name,
+    engineVersion: s.engineVersion,
+    specJson: s.specJson,
+    clustersPlanned: s.clustersPlanned,
+    clustersDone: s.clustersDone,
+    runs: s.runs.map(runResultToProto),
+    radiusOfGyrationFit: s.radiusOfGyrationFit ? { ...s.radiusOfGyrationFit } : null,
+    fractalDimension: s.fractalDimension ?? 0,
+    createdAtMs: s.createdAtMs,
+    meanSizes: s.meanSizes,
+    meanLogRadiusOfGyration: s.meanLogRadiusOfGyration,
+    statisticsJson: s.statisticsJson,
+  });
+  return tendril.EnsembleSummary.encode(msg).finish();
+}
+
+export function decodeEnsembleSummary(bytes: Uint8Array): EnsembleSummaryData {
+  const m = decodeWith('EnsembleSummary', (b) => tendril.EnsembleSummary.decode(b), bytes);
+  checkVersion('EnsembleSummary', m.contractVersion ?? 0);
+  const f = m.radiusOfGyrationFit;
+  return {
+    ensembleId: m.ensembleId ?? '',
+    name: m.name ?? '',
+    engineVersion: m.engineVersion ?? '',
+    specJson: m.specJson ?? '',
+    clustersPlanned: m.clustersPlanned ?? 0,
+    clustersDone: m.clustersDone ?? 0,
+    runs: (m.runs ?? []).map(runResultFromProto),
+    radiusOfGyrationFit: f
+      ? {
+          exponent: f.exponent ?? 0,
+          prefactor: f.prefactor ?? 0,
+          rSquared: f.rSquared ?? 0,
+          points: f.points ?? 0,
+          minX: f.minX ?? 0,
+          maxX: f.maxX ?? 0,
+        }
+      : null,
+    fractalDimension: f ? (m.fractalDimension ?? 0) : null,
+    createdAtMs: m.createdAtMs ?? 0,
+    meanSizes: (m.meanSizes ?? []).slice(),
+    meanLogRadiusOfGyration: (m.meanLogRadiusOfGyration ?? []).slice(),
+    statisticsJson: m.statisticsJson ?? '',
+  };
+}

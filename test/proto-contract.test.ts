@@ -1,0 +1,172 @@
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import {
+  CONTRACT_VERSION,
+  ContractError,
+  decodeCheckpoint,
+  decodeEnsembleSummary,
+  decodeRunResult,
+  decodeRunTask,
+  encodeCheckpoint,
+  encodeEnsembleSummary,
+  encodeRunResult,
+  encodeRunTask,
+  tendril,
+  type PlainGrowthCheckpoint,
+  type PlainGrowthResult,
+  type PlainGrowthTask,
+  type RunResultData,
+  type RunTaskData,
+} from '../proto/convert.js';
+import type { GrowthCheckpoint, GrowthResult, GrowthTask } from '../worker/growth-kernel.js';
+
+// Compile-time check: the plain shapes of proto/convert.ts and the kernel
+// contract are assignable both ways (tsc fails the build otherwise).
+const _taskA = (t: GrowthTask): PlainGrowthTask => t;
+const _taskB = (t: PlainGrowthTask): GrowthTask => t;
+const _resA = (r: GrowthResult): PlainGrowthResult => r;
+const _resB = (r: PlainGrowthResult): GrowthResult => r;
+const _cpA = (c: GrowthCheckpoint): PlainGrowthCheckpoint => c;
+const _cpB = (c: PlainGrowthCheckpoint): GrowthCheckpoint => c;
+void [_taskA, _taskB, _resA, _resB, _cpA, _cpB];
+
+const task: RunTaskData = {
+  ensembleId: 'e-1',
+  runIndex: 7,
+  ensembleSeed: '18446744073709551615',
+  model: { kind: 'dla-offlattice-2d', minStep: 0.25, launchMargin: 2 },
+  particles: 5000,
+  recordsPerDecade: 10,
+  checkpointIntervalSeconds: 120,
+  checkpointEveryParticles: 0,
+  engineVersion: 'tendril-engine/1',
+};
+
+const result: RunResultData = {
+  ensembleId: 'e-1',
+  runIndex: 7,
+  engineVersion: 'tendril-engine/1',
+  model: task.model,
+  particles: 5000,
+  ensembleSeed: task.ensembleSeed,
+  series: { sizes: [1, 10, 100], radiusOfGyration: [0, 1.5, 6.25], maxRadius: [0, 3, 12], centerOffset: [0, 0.1, 0.2] },
+  massRadius: { radii: [1, 2, 4], counts: [1, 5, 17] },
+  counters: { jumps: 2 ** 40 + 3, shortSteps: 12, returns: 1 },
+  stateHash: 'abc123',
+  timings: { growSeconds: 1.5, startedAtMs: 1.7e12, finishedAtMs: 1.7e12 + 1500, resumes: 2, finishedBy: 'host:1' },
+};
+
+describe('protobuf contract', () => {
+  it('checked-in generated code is current', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'tendril-proto-'));
+    try {
+      execFileSync(process.execPath, ['proto/generate.mjs', dir], { cwd: join(import.meta.dirname, '..'), stdio: 'pipe' });
+      for (const f of ['tendril.js', 'tendril.d.ts']) {
+        const fresh = readFileSync(join(dir, f), 'utf8');
+        const checkedIn = readFileSync(join(import.meta.dirname, '..', 'proto', 'generated', f), 'utf8');
+        expect(checkedIn, `proto/generated/${f} is stale: run npm run proto:generate`).toBe(fresh);
+      }
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  }, 60_000);
+
+  it('round-trips a run task, including a seed above 2^53', () => {
+    const back = decodeRunTask(encodeRunTask(task));
+    expect(back).toEqual(task);
+  });
+
+  it('round-trips a run result with counters above 2^32 exactly', () => {
+    const back = decodeRunResult(encodeRunResult(result));
+    expect(back).toEqual(result);
+    expect(back.counters.jumps).toBe(2 ** 40 + 3);
+  });
+
+  it('round-trips a checkpoint bit for bit', () => {
+    const n = 1000;
+    const x = new Float64Array(n + 5);
+    const y = new Float64Array(n + 5);
+    for (let i = 0; i < n; i++) {
+      x[i] = Math.sin(i) * 1e3 + 1e-12 * i;
+      y[i] = -Math.cos(i) / 3;
+    }
+    const bytes = encodeCheckpoint({
+      run: task,
+      state: {
+        engineVersion: 'tendril-engine/1',
+        task: { model: task.model, particles: task.particles, ensembleSeed: task.ensembleSeed, runIndex: 7, recordsPerDecade: 10 },
+        count: n,
+        x,
+        y,
+        rngState: Uint32Array.of(1, 0xffffffff, 3, 4),
+        counters: { jumps: 5, shortSteps: 6, returns: 7 },
+        series: { sizes: [1], radiusOfGyration: [0], maxRadius: [0], centerOffset: [0] },
+      },
+      growSeconds: 3,
+      startedAtMs: 10,
+      resumes: 1,
+    });
+    const back = decodeCheckpoint(bytes);
+    expect(back.state.count).toBe(n);
+    expect(back.state.x.length).toBe(n);
+    expect(Array.from(back.state.x)).toEqual(Array.from(x.subarray(0, n)));
+    expect(Array.from(back.state.y)).toEqual(Array.from(y.subarray(0, n)));
+    expect(Array.from(back.state.rngState)).toEqual([1, 0xffffffff, 3, 4]);
+    expect(back.state.task.runIndex).toBe(7);
+    expect(back.run).toEqual(task);
+    expect(back.resumes).toBe(1);
+  });
+
+  it('round-trips an ensemble summary', () => {
+    const s = {
+      ensembleId: 'e-1',
+      name: 'demo',
+      engineVersion: 'tendril-engine/1',
+      specJson: '{"a":1}',
+      clustersPlanned: 2,
+      clustersDone: 1,
+      runs: [result],
+      radiusOfGyrationFit: { exponent: 0.58, prefactor: 0.5, rSquared: 0.99, points: 3, minX: 10, maxX: 100 },
+      fractalDimension: 1 / 0.58,
+      createdAtMs: 5,
+      meanSizes: [10, 100],
+      meanLogRadiusOfGyration: [0.4, 1.8],
+      statisticsJson: '',
+    };
+    expect(decodeEnsembleSummary(encodeEnsembleSummary(s))).toEqual(s);
+  });
+
+  const bad: Array<[string, () => unknown, RegExp]> = [
+    ['garbage bytes', () => decodeRunTask(Uint8Array.of(0xff, 0xff, 0xff, 0xff, 0x0f)), /^RunTask: not a valid protobuf message/],
+    ['unknown version', () => decodeRunTask(tendril.RunTask.encode({ ...encodeObj(), contractVersion: 99 }).finish()), /RunTask\.contract_version is 99, this build reads only version 1/],
+    ['missing model', () => decodeRunTask(tendril.RunTask.encode({ ...encodeObj(), model: null }).finish()), /RunTask\.model is missing/],
+    ['bad seed', () => decodeRunTask(tendril.RunTask.encode({ ...encodeObj(), ensembleSeed: '-3' }).finish()), /ensemble_seed "-3"/],
+    ['zero particles', () => decodeRunTask(tendril.RunTask.encode({ ...encodeObj(), particles: 0 }).finish()), /RunTask\.particles is 0/],
+    ['empty message', () => decodeRunTask(new Uint8Array(0)), /contract_version is 0/],
+    ['result without hash', () => decodeRunResult(tendril.RunResult.encode({ ...tendril.RunResult.decode(encodeRunResult(result)), stateHash: '' }).finish()), /state_hash is empty/],
+  ];
+  for (const [name, fn, msg] of bad) {
+    it(`refuses ${name} with a one-line ContractError`, () => {
+      let err: unknown;
+      try {
+        fn();
+      } catch (e) {
+        err = e;
+      }
+      expect(err).toBeInstanceOf(ContractError);
+      expect((err as Error).message).toMatch(msg);
+      expect((err as Error).message).not.toContain('\n');
+    });
+  }
+
+  it('writes the contract version into every message', () => {
+    expect(tendril.RunTask.decode(encodeRunTask(task)).contractVersion).toBe(CONTRACT_VERSION);
+  });
+});
+
+function encodeObj(): tendril.IRunTask {
+  return tendril.RunTask.decode(encodeRunTask(task)).toJSON() as tendril.IRunTask;
+}
