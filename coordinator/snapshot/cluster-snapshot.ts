@@ -1,0 +1,192 @@
+/**
+ * Cluster snapshot: a compact binary file holding the particle centres of one
+ * cluster (or any point set of equal balls) in arrival order.
+ *
+ * Layout, version 1. All integers and floats are little-endian.
+ *
+ *   offset  size  field
+ *   ------  ----  -----------------------------------------------------------
+ *        0     8  magic, the ASCII bytes "TNDRLSNP"
+ *        8     2  uint16  format version (= 1)
+ *       10     1  uint8   dimension D (2 or 3)
+ *       11     1  uint8   flags; bit 0 set = points are in arrival order
+ *                         (growth order); other bits are reserved and must be 0
+ *       12     4  uint32  header length in bytes (= 32); coordinates start here
+ *       16     8  uint64  particle count N (at most 2^53 - 1)
+ *       24     8  float64 particle diameter d: two particles touch when their
+ *                         centres are d apart (1 for our clusters)
+ *       32  8·N·D float64 coordinates, one array per axis ("planar" layout):
+ *                         x[0..N-1], then y[0..N-1], then (D = 3) z[0..N-1]
+ *  32+8ND     4  uint32  CRC-32 (IEEE 802.3 / zlib polynomial, reflected,
+ *                         init and final XOR 0xFFFFFFFF) of bytes [0, 32+8ND)
+ *
+ * Total length is exactly 36 + 8·N·D bytes. The planar layout lets a reader
+ * map each axis straight into an array (e.g. numpy.frombuffer(buf, '<f8',
+ * count=N, offset=32 + 8*N*k) for axis k). Because the header is 32 bytes,
+ * every coordinate is 8-byte aligned from the start of the file.
+ */
+import * as zlib from 'node:zlib';
+import { endianness } from 'node:os';
+
+export const SNAPSHOT_MAGIC = 'TNDRLSNP';
+export const SNAPSHOT_VERSION = 1;
+export const SNAPSHOT_HEADER_BYTES = 32;
+export const SNAPSHOT_TRAILER_BYTES = 4;
+/** Flag bit 0: the points are listed in the order they joined the cluster. */
+export const FLAG_ARRIVAL_ORDER = 1;
+const KNOWN_FLAGS = FLAG_ARRIVAL_ORDER;
+
+export interface PointSet {
+  dimension: 2 | 3;
+  count: number;
+  /** Centres; each array holds at least `count` entries (extra ones are ignored). */
+  x: Float64Array;
+  y: Float64Array;
+  /** Required when dimension is 3. */
+  z?: Float64Array;
+  /** Contact distance between centres (particle diameter). */
+  diameter: number;
+  /** True when the points are in arrival order; default true. */
+  arrivalOrder?: boolean;
+}
+
+export interface DecodedPointSet extends PointSet {
+  arrivalOrder: boolean;
+  version: number;
+}
+
+/** Thrown for a malformed snapshot; the message is one line. */
+export class SnapshotError extends Error {
+  override name = 'SnapshotError';
+}
+
+const LITTLE_ENDIAN_HOST = endianness() === 'LE';
+
+// zlib.crc32 exists from Node 20.15; a namespace import keeps older Nodes loading.
+const nativeCrc32 = (zlib as { crc32?: (data: Uint8Array) => number }).crc32;
+
+let crcTable: Uint32Array | undefined;
+
+/** Table-driven CRC-32 (IEEE), used when node:zlib has no crc32 (Node < 20.15). */
+export function crc32Portable(data: Uint8Array, start = 0, end = data.length): number {
+  if (crcTable === undefined) {
+    crcTable = new Uint32Array(256);
+    for (let n = 0; n < 256; n++) {
+      let c = n;
+      for (let k = 0; k < 8; k++) c = c & 1 ? 0xedb88320 ^ (c >>> 1) : c >>> 1;
+      crcTable[n] = c >>> 0;
+    }
+  }
+  const t = crcTable;
+  let c = 0xffffffff;
+  for (let i = start; i < end; i++) c = t[(c ^ data[i]) & 0xff] ^ (c >>> 8);
+  return (c ^ 0xffffffff) >>> 0;
+}
+
+/** CRC-32 (IEEE) of data[start, end). */
+export function crc32(data: Uint8Array, start = 0, end = data.length): number {
+  if (nativeCrc32 !== undefined) return nativeCrc32(data.subarray(start, end)) >>> 0;
+  return crc32Portable(data, start, end);
+}
+
+function validatePointSet(p: PointSet): void {
+  if (p.dimension !== 2 && p.dimension !== 3) throw new RangeError(`snapshot dimension must be 2 or 3, got ${String(p.dimension)}`);
+  if (!Number.isSafeInteger(p.count) || p.count < 0) throw new RangeError(`snapshot count must be a non-negative integer, got ${p.count}`);
+  if (!(Number.isFinite(p.diameter) && p.diameter > 0)) throw new RangeError(`snapshot diameter must be a finite number > 0, got ${p.diameter}`);
+  const axes: Array<[string, Float64Array | undefined]> = [['x', p.x], ['y', p.y]];
+  if (p.dimension === 3) axes.push(['z', p.z]);
+  for (const [name, a] of axes) {
+    if (!(a instanceof Float64Array)) throw new RangeError(`snapshot axis ${name} must be a Float64Array`);
+    if (a.length < p.count) throw new RangeError(`snapshot axis ${name} has ${a.length} entries, fewer than count ${p.count}`);
+  }
+}
+
+/** Encoded length in bytes of a snapshot of `count` points in `dimension` dimensions. */
+export function snapshotByteLength(dimension: 2 | 3, count: number): number {
+  return SNAPSHOT_HEADER_BYTES + 8 * count * dimension + SNAPSHOT_TRAILER_BYTES;
+}
+
+/** Encode a point set into the snapshot format described in the file header. */
+export function encodeSnapshot(p: PointSet): Buffer {
+  validatePointSet(p);
+  const n = p.count;
+  const d = p.dimension;
+  const total = snapshotByteLength(d, n);
+  const buf = Buffer.alloc(total);
+  const view = new DataView(buf.buffer, buf.byteOffset, buf.byteLength);
+  buf.write(SNAPSHOT_MAGIC, 0, 'latin1');
+  view.setUint16(8, SNAPSHOT_VERSION, true);
+  view.setUint8(10, d);
+  view.setUint8(11, p.arrivalOrder === false ? 0 : FLAG_ARRIVAL_ORDER);
+  view.setUint32(12, SNAPSHOT_HEADER_BYTES, true);
+  view.setBigUint64(16, BigInt(n), true);
+  view.setFloat64(24, p.diameter, true);
+  const axes = d === 3 ? [p.x, p.y, p.z as Float64Array] : [p.x, p.y];
+  let off = SNAPSHOT_HEADER_BYTES;
+  for (const a of axes) {
+    if (LITTLE_ENDIAN_HOST) {
+      buf.set(new Uint8Array(a.buffer, a.byteOffset, n * 8), off);
+    } else {
+      for (let i = 0; i < n; i++) view.setFloat64(off + 8 * i, a[i], true);
+    }
+    off += 8 * n;
+  }
+  view.setUint32(off, crc32(buf, 0, off), true);
+  return buf;
+}
+
+/** Decode and validate a snapshot; throws SnapshotError with a one-line message. */
+export function decodeSnapshot(bytes: Uint8Array): DecodedPointSet {
+  if (bytes.length < SNAPSHOT_HEADER_BYTES + SNAPSHOT_TRAILER_BYTES) {
+    throw new SnapshotError(`snapshot is ${bytes.length} bytes, shorter than the ${SNAPSHOT_HEADER_BYTES + SNAPSHOT_TRAILER_BYTES}-byte minimum`);
+  }
+  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  const magic = Buffer.from(bytes.buffer, bytes.byteOffset, 8).toString('latin1');
+  if (magic !== SNAPSHOT_MAGIC) throw new SnapshotError(`snapshot magic is ${JSON.stringify(magic)}, expected "${SNAPSHOT_MAGIC}"`);
+  const version = view.getUint16(8, true);
+  if (version !== SNAPSHOT_VERSION) throw new SnapshotError(`snapshot format version is ${version}, this reader knows version ${SNAPSHOT_VERSION}`);
+  const d = view.getUint8(10);
+  if (d !== 2 && d !== 3) throw new SnapshotError(`snapshot dimension is ${d}, expected 2 or 3`);
+  const flags = view.getUint8(11);
+  if ((flags & ~KNOWN_FLAGS) !== 0) throw new SnapshotError(`snapshot flags are 0x${flags.toString(16)}, only bit 0 is defined`);
+  const headerLen = view.getUint32(12, true);
+  if (headerLen !== SNAPSHOT_HEADER_BYTES) throw new SnapshotError(`snapshot header length is ${headerLen}, expected ${SNAPSHOT_HEADER_BYTES}`);
+  const countBig = view.getBigUint64(16, true);
+  if (countBig > BigInt(Number.MAX_SAFE_INTEGER)) throw new SnapshotError(`snapshot particle count ${countBig} exceeds 2^53 - 1`);
+  const n = Number(countBig);
+  const expected = snapshotByteLength(d, n);
+  if (bytes.length !== expected) {
+    throw new SnapshotError(`snapshot is ${bytes.length} bytes, expected ${expected} for ${n} particles in ${d} dimensions`);
+  }
+  const diameter = view.getFloat64(24, true);
+  if (!(Number.isFinite(diameter) && diameter > 0)) throw new SnapshotError(`snapshot diameter is ${diameter}, expected a finite number > 0`);
+  const crcAt = expected - SNAPSHOT_TRAILER_BYTES;
+  const stored = view.getUint32(crcAt, true);
+  const actual = crc32(bytes, 0, crcAt);
+  if (stored !== actual) {
+    throw new SnapshotError(`snapshot checksum mismatch: stored CRC-32 0x${stored.toString(16).padStart(8, '0')}, computed 0x${actual.toString(16).padStart(8, '0')}`);
+  }
+  const axes: Float64Array[] = [];
+  let off = SNAPSHOT_HEADER_BYTES;
+  for (let k = 0; k < d; k++) {
+    const a = new Float64Array(n);
+    if (LITTLE_ENDIAN_HOST) {
+      new Uint8Array(a.buffer).set(bytes.subarray(off, off + 8 * n));
+    } else {
+      for (let i = 0; i < n; i++) a[i] = view.getFloat64(off + 8 * i, true);
+    }
+    axes.push(a);
+    off += 8 * n;
+  }
+  const out: DecodedPointSet = {
+    dimension: d,
+    count: n,
+    x: axes[0],
+    y: axes[1],
+    diameter,
+    arrivalOrder: (flags & FLAG_ARRIVAL_ORDER) !== 0,
+    version,
+  };
+  if (d === 3) out.z = axes[2];
+  return out;
+}
