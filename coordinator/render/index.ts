@@ -1,0 +1,2 @@
+export * from './palette.js';
+export * from './cluster-picture.js';
