@@ -1,0 +1,278 @@
+/**
+ * Ensemble specs: parse TOML or JSON, validate against the shared schema
+ * (coordinator/spec/schema.ts) and the operator's limits, fill in defaults.
+ *
+ * Every problem is reported as one line naming the field, the value found and
+ * what is allowed, e.g.
+ *   particles: 0 is out of range; allowed: an integer from 2 to 100000000
+ * A SpecError carries all problems of a document at once.
+ */
+import { Ajv, type ErrorObject } from 'ajv';
+import { parse as parseToml } from 'smol-toml';
+import { defaultModelParams } from '../../worker/models.js';
+import type { ModelParams } from '../../worker/growth-kernel.js';
+import {
+  DEFAULT_MAX_TOTAL_PARTICLES,
+  MAX_RUNS_PER_JOB,
+  OBSERVABLES,
+  SPEC_SCHEMA,
+  type MODEL_KINDS,
+} from './schema.js';
+
+export { SPEC_SCHEMA } from './schema.js';
+
+export type ModelKind = (typeof MODEL_KINDS)[number];
+export type Observable = (typeof OBSERVABLES)[number];
+
+/** A validated ensemble spec with every default filled in. */
+export interface EnsembleSpec {
+  name: string;
+  model: ModelParams;
+  particles: number;
+  clusters: number;
+  /** Decimal string of an unsigned 64-bit integer. */
+  seed: string;
+  recordsPerDecade: number;
+  observables: Observable[];
+  checkpointIntervalSeconds: number;
+  checkpointEveryParticles: number;
+  runsPerJob: number;
+}
+
+export class SpecError extends Error {
+  override name = 'SpecError';
+  constructor(readonly problems: string[]) {
+    super(problems.length === 1 ? problems[0] : `${problems.length} problems: ${problems.join('; ')}`);
+  }
+}
+
+export interface SpecLimits {
+  /** Ceiling on particles × clusters. */
+  maxTotalParticles: number;
+}
+
+/** The operator's limits: TENDRIL_MAX_TOTAL_PARTICLES raises (or lowers) the total-work ceiling. */
+export function limitsFromEnv(env: NodeJS.ProcessEnv = process.env, override?: number): SpecLimits {
+  if (override !== undefined) return { maxTotalParticles: checkCeiling('--max-total-particles', String(override)) };
+  const raw = env.TENDRIL_MAX_TOTAL_PARTICLES;
+  if (raw === undefined || raw === '') return { maxTotalParticles: DEFAULT_MAX_TOTAL_PARTICLES };
+  return { maxTotalParticles: checkCeiling('TENDRIL_MAX_TOTAL_PARTICLES', raw) };
+}
+
+function checkCeiling(what: string, raw: string): number {
+  const v = Number(raw);
+  if (!Number.isSafeInteger(v) || v < 1) throw new SpecError([`${what}: "${raw}" is not allowed; allowed: an integer from 1 to ${Number.MAX_SAFE_INTEGER}`]);
+  return v;
+}
+
+const ajv = new Ajv({ allErrors: true, strict: true, strictTypes: false });
+const validateDoc = ajv.compile(SPEC_SCHEMA);
+
+/** Parse a spec file's text; `format` from the file name (.toml / .json) or given. */
+export function parseSpecText(text: string, format: 'toml' | 'json'): unknown {
+  if (format === 'json') {
+    try {
+      return JSON.parse(text);
+    } catch (err) {
+      throw new SpecError([`spec is not valid JSON: ${oneLine(err)}`]);
+    }
+  }
+  try {
+    return parseToml(text);
+  } catch (err) {
+    const e = err as { line?: number; column?: number };
+    const where = e.line !== undefined ? ` (line ${e.line}, column ${e.column ?? 0})` : '';
+    throw new SpecError([`spec is not valid TOML${where}: ${oneLine(err).replace(/^Invalid TOML document: /, '')}`]);
+  }
+}
+
+export function formatOf(fileName: string): 'toml' | 'json' {
+  if (/\.json$/i.test(fileName)) return 'json';
+  if (/\.toml$/i.test(fileName)) return 'toml';
+  throw new SpecError([`spec file "${fileName}": unknown format; allowed: a name ending in .toml or .json`]);
+}
+
+/** Validate a parsed document and fill in defaults; throws SpecError listing every problem. */
+export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv()): EnsembleSpec {
+  if (typeof doc !== 'object' || doc === null || Array.isArray(doc)) {
+    throw new SpecError([`spec: ${describe(doc)} is not allowed; allowed: a table (object) of fields`]);
+  }
+  if (!validateDoc(doc)) throw new SpecError(problemsOf(validateDoc.errors ?? [], doc));
+  const d = doc as Record<string, any>;
+  const problems: string[] = [];
+  const total = d.particles * d.clusters;
+  if (total > limits.maxTotalParticles) {
+    problems.push(
+      `particles × clusters: ${d.particles} × ${d.clusters} = ${total} is above the total-work ceiling; allowed: at most ${limits.maxTotalParticles} (the operator may raise it with TENDRIL_MAX_TOTAL_PARTICLES)`,
+    );
+  }
+  const every = d.checkpoint_every_particles ?? 0;
+  if (every > d.particles) {
+    problems.push(`checkpoint_every_particles: ${every} is out of range; allowed: 0 (off) or an integer from 1 to particles (${d.particles})`);
+  }
+  const seed = String(d.seed);
+  if (BigInt(seed) >= 1n << 64n) problems.push(`seed: "${seed}" is out of range; allowed: an integer from 0 to 18446744073709551615`);
+  if (problems.length > 0) throw new SpecError(problems);
+
+  const model = { ...defaultModelParams(d.model as ModelKind) } as ModelParams;
+  const p = (d.params ?? {}) as Record<string, number>;
+  if (p.min_step !== undefined) model.minStep = p.min_step;
+  if (p.launch_margin !== undefined) model.launchMargin = p.launch_margin;
+
+  return {
+    name: d.name ?? 'ensemble',
+    model,
+    particles: d.particles,
+    clusters: d.clusters,
+    seed: BigInt(seed).toString(),
+    recordsPerDecade: d.records_per_decade ?? 10,
+    observables: d.observables ?? [...OBSERVABLES],
+    checkpointIntervalSeconds: d.checkpoint_interval_seconds ?? 300,
+    checkpointEveryParticles: every,
+    runsPerJob: d.runs_per_job ?? defaultRunsPerJob(d.particles, d.clusters),
+  };
+}
+
+/** Parse and validate in one go. */
+export function parseSpec(text: string, format: 'toml' | 'json', limits?: SpecLimits): EnsembleSpec {
+  return validateSpec(parseSpecText(text, format), limits);
+}
+
+/**
+ * Clusters per queue job when the spec does not say: one per job unless the
+ * clusters are tiny, then enough to make a job of about 10^5 particles, so
+ * that queue overhead stays small.
+ */
+export function defaultRunsPerJob(particles: number, clusters: number): number {
+  const perJob = Math.max(1, Math.floor(100_000 / particles));
+  return Math.min(perJob, clusters, MAX_RUNS_PER_JOB);
+}
+
+/** The canonical document of a validated spec (snake_case, defaults explicit); re-validates to the same spec. */
+export function specToDocument(s: EnsembleSpec): Record<string, unknown> {
+  const params: Record<string, number> = {};
+  if (s.model.kind === 'dla-offlattice-2d') {
+    params.min_step = s.model.minStep;
+    params.launch_margin = s.model.launchMargin;
+  }
+  return {
+    name: s.name,
+    model: s.model.kind,
+    params,
+    particles: s.particles,
+    clusters: s.clusters,
+    seed: s.seed,
+    records_per_decade: s.recordsPerDecade,
+    observables: [...s.observables],
+    checkpoint_interval_seconds: s.checkpointIntervalSeconds,
+    checkpoint_every_particles: s.checkpointEveryParticles,
+    runs_per_job: s.runsPerJob,
+  };
+}
+
+// ---------------------------------------------------------------- messages
+
+function problemsOf(errors: ErrorObject[], doc: unknown): string[] {
+  const out: string[] = [];
+  const seen = new Set<string>();
+  // anyOf failures (the seed) produce one error per branch plus the anyOf itself; keep the anyOf one.
+  const anyOfPaths = new Set(errors.filter((e) => e.keyword === 'anyOf').map((e) => e.instancePath));
+  for (const e of errors) {
+    if (e.keyword !== 'anyOf' && [...anyOfPaths].some((p) => e.schemaPath.includes('/anyOf/') && e.instancePath === p)) continue;
+    const msg = messageOf(e, doc);
+    if (!seen.has(msg)) {
+      seen.add(msg);
+      out.push(msg);
+    }
+  }
+  return out;
+}
+
+function fieldOf(instancePath: string): string {
+  if (instancePath === '') return 'spec';
+  return instancePath
+    .slice(1)
+    .split('/')
+    .map((s) => s.replace(/~1/g, '/').replace(/~0/g, '~'))
+    .map((s, i) => (/^\d+$/.test(s) ? `[${s}]` : i === 0 ? s : `.${s}`))
+    .join('');
+}
+
+function valueAt(doc: unknown, instancePath: string): unknown {
+  let v: any = doc;
+  if (instancePath === '') return v;
+  for (const part of instancePath.slice(1).split('/')) v = v?.[part.replace(/~1/g, '/').replace(/~0/g, '~')];
+  return v;
+}
+
+function schemaAt(schemaPath: string): any {
+  // "#/properties/particles/maximum" -> the schema of the property
+  const parts = schemaPath.replace(/^#\/?/, '').split('/');
+  parts.pop();
+  let s: any = SPEC_SCHEMA;
+  for (const p of parts) s = s?.[p];
+  return s;
+}
+
+function allowedOf(s: any): string {
+  if (!s) return 'see the spec schema';
+  if (s.anyOf) return s.description ?? s.anyOf.map(allowedOf).join(' or ');
+  if (s.enum) return `one of ${s.enum.map((x: unknown) => JSON.stringify(x)).join(', ')}`;
+  if (s.type === 'integer' || s.type === 'number') {
+    const kind = s.type === 'integer' ? 'an integer' : 'a number';
+    const lo = s.minimum !== undefined ? `from ${s.minimum}` : s.exclusiveMinimum !== undefined ? `above ${s.exclusiveMinimum}` : '';
+    const hi = s.maximum !== undefined ? `${lo ? ' ' : ''}${lo.startsWith('from') ? 'to' : 'up to'} ${s.maximum}` : '';
+    return `${kind}${lo || hi ? ' ' : ''}${lo}${hi}`;
+  }
+  if (s.type === 'string') {
+    const len = s.maxLength !== undefined ? ` of ${s.minLength ?? 0} to ${s.maxLength} characters` : '';
+    return `a string${len}${s.pattern ? ` matching ${s.pattern}` : ''}`;
+  }
+  if (s.type === 'array') {
+    const items = s.items?.enum ? ` of distinct values from ${s.items.enum.map((x: unknown) => JSON.stringify(x)).join(', ')}` : '';
+    return `a non-empty list${items}`;
+  }
+  if (s.type === 'object') return `a table with the fields ${Object.keys(s.properties ?? {}).join(', ')}`;
+  return 'see the spec schema';
+}
+
+function messageOf(e: ErrorObject, doc: unknown): string {
+  const field = fieldOf(e.instancePath);
+  const value = describe(valueAt(doc, e.instancePath));
+  switch (e.keyword) {
+    case 'required': {
+      const name = (e.params as { missingProperty: string }).missingProperty;
+      const s = (SPEC_SCHEMA.properties as Record<string, unknown>)[name];
+      return `${e.instancePath === '' ? '' : field + '.'}${name}: missing; allowed: ${allowedOf(s)}`;
+    }
+    case 'additionalProperties': {
+      const name = (e.params as { additionalProperty: string }).additionalProperty;
+      const parent = schemaAt(e.schemaPath);
+      return `${e.instancePath === '' ? '' : field + '.'}${name}: unknown field; allowed fields: ${Object.keys(parent?.properties ?? {}).join(', ')}`;
+    }
+    case 'minimum':
+    case 'maximum':
+    case 'exclusiveMinimum':
+    case 'exclusiveMaximum':
+      return `${field}: ${value} is out of range; allowed: ${allowedOf(schemaAt(e.schemaPath))}`;
+    case 'uniqueItems':
+      return `${field}: ${value} repeats an entry; allowed: ${allowedOf(schemaAt(e.schemaPath))}`;
+    case 'minItems':
+      return `${field}: ${value} is empty; allowed: ${allowedOf(schemaAt(e.schemaPath))}`;
+    default:
+      return `${field}: ${value} is not allowed; allowed: ${allowedOf(schemaAt(e.schemaPath))}`;
+  }
+}
+
+function describe(v: unknown): string {
+  if (v === undefined) return 'nothing';
+  const s = typeof v === 'bigint' ? v.toString() : JSON.stringify(v);
+  if (s === undefined) return String(v);
+  return s.length > 60 ? s.slice(0, 57) + '...' : s;
+}
+
+function oneLine(err: unknown): string {
+  return (err instanceof Error ? err.message : String(err)).split('\n')[0];
+}
+
+export { MAX_RUNS_PER_JOB };

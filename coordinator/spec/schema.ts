@@ -1,0 +1,60 @@
+/**
+ * The JSON schema of an ensemble spec, shared by the CLI (TOML or JSON files)
+ * and the HTTP API (JSON bodies). Field names are snake_case in files and
+ * bodies; coordinator/spec/index.ts turns a valid document into an
+ * EnsembleSpec with defaults filled in.
+ *
+ * Limits that depend on the operator (the total-work ceiling) are checked in
+ * coordinator/spec/index.ts, not here.
+ */
+
+export const MAX_PARTICLES = 100_000_000;
+export const MIN_PARTICLES = 2;
+export const MAX_CLUSTERS = 100_000;
+export const MAX_RUNS_PER_JOB = 1000;
+/** Default ceiling on particles × clusters; raise it with TENDRIL_MAX_TOTAL_PARTICLES or --max-total-particles. */
+export const DEFAULT_MAX_TOTAL_PARTICLES = 10_000_000_000;
+
+export const MODEL_KINDS = ['dla-offlattice-2d'] as const;
+export const OBSERVABLES = ['radius_of_gyration', 'max_radius', 'center_offset', 'mass_radius'] as const;
+
+export const SPEC_SCHEMA = {
+  $id: 'tendril/ensemble-spec',
+  title: 'tendril ensemble spec',
+  type: 'object',
+  additionalProperties: false,
+  required: ['model', 'particles', 'clusters', 'seed'],
+  properties: {
+    name: { type: 'string', minLength: 1, maxLength: 100, pattern: '^[A-Za-z0-9][A-Za-z0-9 _.,:()+-]*$', description: 'a label for people' },
+    model: { type: 'string', enum: [...MODEL_KINDS], description: 'growth model' },
+    params: {
+      type: 'object',
+      additionalProperties: false,
+      description: 'model parameters (defaults depend on the model)',
+      properties: {
+        min_step: { type: 'number', exclusiveMinimum: 0, maximum: 1, description: 'length of the final straight steps near the cluster' },
+        launch_margin: { type: 'number', exclusiveMinimum: 0, maximum: 1000, description: 'launch circle radius minus (maximum radius + 1)' },
+      },
+    },
+    particles: { type: 'integer', minimum: MIN_PARTICLES, maximum: MAX_PARTICLES, description: 'particles per cluster, seed included' },
+    clusters: { type: 'integer', minimum: 1, maximum: MAX_CLUSTERS, description: 'number of clusters (runs)' },
+    seed: {
+      description: 'ensemble seed: an unsigned 64-bit integer (a string of decimal digits, or an integer below 2^53)',
+      anyOf: [
+        { type: 'integer', minimum: 0, maximum: Number.MAX_SAFE_INTEGER },
+        { type: 'string', pattern: '^[0-9]{1,20}$' },
+      ],
+    },
+    records_per_decade: { type: 'integer', minimum: 10, maximum: 100, description: 'observables recorded at this many sizes per decade' },
+    observables: {
+      type: 'array',
+      minItems: 1,
+      uniqueItems: true,
+      items: { type: 'string', enum: [...OBSERVABLES] },
+      description: 'observables kept in the results and tables',
+    },
+    checkpoint_interval_seconds: { type: 'number', minimum: 1, maximum: 86_400, description: 'checkpoint a running cluster at least this often' },
+    checkpoint_every_particles: { type: 'integer', minimum: 0, maximum: MAX_PARTICLES, description: 'also checkpoint every this many particles (0 = off)' },
+    runs_per_job: { type: 'integer', minimum: 1, maximum: MAX_RUNS_PER_JOB, description: 'clusters grown by one queue job (default: chosen from the cluster size)' },
+  },
+} as const;

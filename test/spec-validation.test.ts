@@ -1,0 +1,100 @@
+import { describe, expect, it } from 'vitest';
+import { parseSpec, parseSpecText, SpecError, specToDocument, validateSpec, limitsFromEnv, formatOf } from '../coordinator/spec/index.js';
+
+const good = `
+name = "demo"
+model = "dla-offlattice-2d"
+particles = 5000
+clusters = 8
+seed = 20261202
+`;
+
+function problems(fn: () => unknown): string[] {
+  try {
+    fn();
+  } catch (e) {
+    if (e instanceof SpecError) return e.problems;
+    throw e;
+  }
+  throw new Error('expected a SpecError');
+}
+
+describe('ensemble spec', () => {
+  it('parses TOML and fills defaults', () => {
+    const s = parseSpec(good, 'toml');
+    expect(s.name).toBe('demo');
+    expect(s.model.kind).toBe('dla-offlattice-2d');
+    expect(s.model.minStep).toBeGreaterThan(0);
+    expect(s.particles).toBe(5000);
+    expect(s.clusters).toBe(8);
+    expect(s.seed).toBe('20261202');
+    expect(s.recordsPerDecade).toBe(10);
+    expect(s.observables).toEqual(['radius_of_gyration', 'max_radius', 'center_offset', 'mass_radius']);
+    expect(s.checkpointIntervalSeconds).toBe(300);
+    expect(s.runsPerJob).toBe(8); // 5000-particle clusters are batched up to 10^5 particles per job
+  });
+
+  it('the canonical document re-validates to the same spec (JSON too)', () => {
+    const s = parseSpec(good, 'toml');
+    const again = parseSpec(JSON.stringify(specToDocument(s)), 'json');
+    expect(again).toEqual(s);
+  });
+
+  it('accepts a 64-bit seed as a string and model parameters', () => {
+    const s = validateSpec({ model: 'dla-offlattice-2d', particles: 100, clusters: 2, seed: '18446744073709551615', params: { min_step: 0.5 } });
+    expect(s.seed).toBe('18446744073709551615');
+    expect(s.model.minStep).toBe(0.5);
+  });
+
+  const base = { model: 'dla-offlattice-2d', particles: 1000, clusters: 4, seed: 1 };
+  const table: Array<[string, unknown, string]> = [
+    ['particles too small', { ...base, particles: 0 }, 'particles: 0 is out of range; allowed: an integer from 2 to 100000000'],
+    ['particles too large', { ...base, particles: 100000001 }, 'particles: 100000001 is out of range; allowed: an integer from 2 to 100000000'],
+    ['particles not an integer', { ...base, particles: 10.5 }, 'particles: 10.5 is not allowed; allowed: an integer from 2 to 100000000'],
+    ['particles a string', { ...base, particles: '1000' }, 'particles: "1000" is not allowed; allowed: an integer from 2 to 100000000'],
+    ['clusters too many', { ...base, clusters: 100001 }, 'clusters: 100001 is out of range; allowed: an integer from 1 to 100000'],
+    ['unknown model', { ...base, model: 'dla-3d' }, 'model: "dla-3d" is not allowed; allowed: one of "dla-offlattice-2d"'],
+    ['missing seed', { model: 'dla-offlattice-2d', particles: 10, clusters: 1 }, 'seed: missing; allowed: ensemble seed: an unsigned 64-bit integer (a string of decimal digits, or an integer below 2^53)'],
+    ['negative seed', { ...base, seed: -1 }, 'seed: -1 is not allowed; allowed: ensemble seed: an unsigned 64-bit integer (a string of decimal digits, or an integer below 2^53)'],
+    ['seed above 2^64', { ...base, seed: '18446744073709551616' }, 'seed: "18446744073709551616" is out of range; allowed: an integer from 0 to 18446744073709551615'],
+    ['unknown field', { ...base, particels: 5 }, 'particels: unknown field; allowed fields: name, model, params, particles, clusters, seed, records_per_decade, observables, checkpoint_interval_seconds, checkpoint_every_particles, runs_per_job'],
+    ['bad min_step', { ...base, params: { min_step: 0 } }, 'params.min_step: 0 is out of range; allowed: a number above 0 up to 1'],
+    ['unknown param', { ...base, params: { step: 1 } }, 'params.step: unknown field; allowed fields: min_step, launch_margin'],
+    ['records per decade', { ...base, records_per_decade: 5 }, 'records_per_decade: 5 is out of range; allowed: an integer from 10 to 100'],
+    ['bad observable', { ...base, observables: ['rg'] }, 'observables[0]: "rg" is not allowed; allowed: one of "radius_of_gyration", "max_radius", "center_offset", "mass_radius"'],
+    ['repeated observable', { ...base, observables: ['max_radius', 'max_radius'] }, 'observables: ["max_radius","max_radius"] repeats an entry; allowed: a non-empty list of distinct values from "radius_of_gyration", "max_radius", "center_offset", "mass_radius"'],
+    ['checkpoint interval', { ...base, checkpoint_interval_seconds: 0.5 }, 'checkpoint_interval_seconds: 0.5 is out of range; allowed: a number from 1 to 86400'],
+    ['checkpoint every more than particles', { ...base, checkpoint_every_particles: 2000 }, 'checkpoint_every_particles: 2000 is out of range; allowed: 0 (off) or an integer from 1 to particles (1000)'],
+    ['total work', { ...base, particles: 100000000, clusters: 101 }, 'particles × clusters: 100000000 × 101 = 10100000000 is above the total-work ceiling; allowed: at most 10000000000 (the operator may raise it with TENDRIL_MAX_TOTAL_PARTICLES)'],
+    ['not an object', [1, 2], 'spec: [1,2] is not allowed; allowed: a table (object) of fields'],
+  ];
+  for (const [name, doc, msg] of table) {
+    it(`refuses ${name} with a precise one-line message`, () => {
+      const p = problems(() => validateSpec(doc, { maxTotalParticles: 1e10 }));
+      expect(p).toEqual([msg]);
+      expect(msg).not.toContain('\n');
+    });
+  }
+
+  it('reports every bad field at once', () => {
+    const p = problems(() => validateSpec({ model: 'x', particles: 0, clusters: 0, seed: 1 }));
+    expect(p).toHaveLength(3);
+    expect(p.map((m) => m.split(':')[0]).sort()).toEqual(['clusters', 'model', 'particles']);
+  });
+
+  it('the operator can raise the total-work ceiling', () => {
+    const doc = { ...base, particles: 100000000, clusters: 101 };
+    expect(() => validateSpec(doc, limitsFromEnv({ TENDRIL_MAX_TOTAL_PARTICLES: '20000000000' }))).not.toThrow();
+    expect(() => validateSpec(doc, limitsFromEnv({}))).toThrow(SpecError);
+    expect(problems(() => limitsFromEnv({ TENDRIL_MAX_TOTAL_PARTICLES: 'lots' }))).toEqual([
+      'TENDRIL_MAX_TOTAL_PARTICLES: "lots" is not allowed; allowed: an integer from 1 to 9007199254740991',
+    ]);
+  });
+
+  it('TOML and JSON syntax errors name the place', () => {
+    expect(problems(() => parseSpecText('particles = = 3', 'toml'))[0]).toMatch(/^spec is not valid TOML \(line 1, column \d+\): invalid value$/);
+    expect(problems(() => parseSpecText('{"a":', 'json'))[0]).toMatch(/^spec is not valid JSON: /);
+    expect(problems(() => parseSpecText('seed = 9007199254740993', 'toml'))[0]).toMatch(/cannot be represented losslessly/);
+    expect(problems(() => formatOf('spec.yaml'))).toEqual(['spec file "spec.yaml": unknown format; allowed: a name ending in .toml or .json']);
+  });
+});
