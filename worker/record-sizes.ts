@@ -1,0 +1,42 @@
+/**
+ * Log-spaced grids shared by all kernels: the cluster sizes at which
+ * observables are recorded, and the radii of the final mass–radius counts.
+ */
+
+/**
+ * Sizes round(10^(j/perDecade)) for j = perDecade, perDecade + 1, ... (that
+ * is from N = 10), without repeats, below `final`, followed by `final`.
+ */
+export function recordSizes(final: number, perDecade: number): number[] {
+  const out: number[] = [];
+  for (let j = perDecade; ; j++) {
+    const n = Math.round(10 ** (j / perDecade));
+    if (n >= final) break;
+    if (out.length === 0 || n > out[out.length - 1]) out.push(n);
+  }
+  out.push(final);
+  return out;
+}
+
+/** Radii 10^(j/perDecade), j = 0, 1, ..., up to the first one at or beyond maxRadius + 1. */
+export function massRadiusRadii(maxRadius: number, perDecade: number): number[] {
+  const out: number[] = [];
+  for (let j = 0; ; j++) {
+    const r = 10 ** (j / perDecade);
+    out.push(r);
+    if (r >= maxRadius + 1) break;
+  }
+  return out;
+}
+
+/** M(r): number of the given distances that are <= r, for each r of an increasing list. */
+export function countWithin(distances: Float64Array, radii: number[]): number[] {
+  const sorted = Float64Array.from(distances).sort();
+  const counts: number[] = [];
+  let i = 0;
+  for (const r of radii) {
+    while (i < sorted.length && sorted[i] <= r) i++;
+    counts.push(i);
+  }
+  return counts;
+}
