@@ -66,7 +66,7 @@ export function decideStopping(input: StoppingInput): StoppingDecision {
   }
   let projected: number;
   if (h === null || done === 0) projected = Math.max(minClusters, done + minBatch);
-  else projected = Math.max(minClusters, Math.ceil(done * (h / target) * (h / target) * 1.1));
+  else projected = Math.max(minClusters, Math.ceil(done * (h / target) * (h / target) * 1.1 - 1e-9));
   let batch = projected - done;
   batch = Math.max(batch, minBatch);
   batch = Math.min(batch, maxBatch);
