@@ -14,7 +14,7 @@ import { ENGINE_VERSION } from '../worker/engine-version.js';
 type Register = (program: Command) => void;
 
 const COMMANDS: Array<() => Promise<{ register: Register }>> = [
-  // e.g. () => import('./commands/grow.js'),
+  () => import('./commands/grow.js'),
 ];
 
 export async function main(argv: string[]): Promise<number> {

@@ -1,0 +1,254 @@
+/**
+ * `tendril grow`: grow one cluster (model dla-offlattice-2d) in this process
+ * and write, into the output folder (created if missing):
+ *
+ *   run-result.json   the GrowthResult (deterministic: a function of the model
+ *                     parameters, seed and engine version) with one extra
+ *                     top-level field `timing` (wall-clock figures, which are
+ *                     not deterministic and must never be compared)
+ *   cluster.snapshot  the particle centres in arrival order, in the binary
+ *                     format of coordinator/snapshot/cluster-snapshot.ts
+ *   cluster.png       picture of the cluster coloured by arrival order
+ *                     (coordinator/render/cluster-picture.ts)
+ *
+ * Growth runs as run index 0 of an ensemble whose seed is --seed, so
+ * `tendril grow --seed S` grows the same cluster as run 0 of an ensemble with
+ * seed S and the same parameters. The kernel is driven by growTo() in chunks
+ * of about a quarter of a second so that the progress display stays live;
+ * the chunking does not change the result (the kernel contract).
+ */
+import { mkdirSync, statSync, writeFileSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import type { Command } from 'commander';
+import { UsageError } from '../usage-error.js';
+import { createKernel, defaultModelParams } from '../../worker/models.js';
+import type { GrowthResult, GrowthTask } from '../../worker/growth-kernel.js';
+import { encodeSnapshot } from '../snapshot/cluster-snapshot.js';
+import { renderClusterPng, DEFAULT_PICTURE_SIZE } from '../render/cluster-picture.js';
+import { createProgress, formatRate, type ProgressMode } from '../progress/progress.js';
+
+export const RUN_RESULT_FILE = 'run-result.json';
+export const SNAPSHOT_FILE = 'cluster.snapshot';
+export const PICTURE_FILE = 'cluster.png';
+export const DEFAULT_RECORDS_PER_DECADE = 20;
+
+export interface GrowOptions {
+  particles: number;
+  /** Normalised decimal string of an unsigned 64-bit integer. */
+  seed: string;
+  out: string;
+  minStep: number;
+  launchMargin: number;
+  pictureSize: number;
+  recordsPerDecade: number;
+  quiet: boolean;
+}
+
+export interface GrowTiming {
+  /** When growth started (ISO 8601, UTC). */
+  startedAt: string;
+  /** Seconds spent growing the cluster. */
+  growSeconds: number;
+  /** Seconds spent writing the snapshot and picture. */
+  writeSeconds: number;
+  /** Seconds for the whole command. */
+  wallSeconds: number;
+  /** particles / growSeconds. */
+  particlesPerSecond: number;
+}
+
+export type RunResultFile = GrowthResult & { timing: GrowTiming };
+
+export interface GrowSummary {
+  result: GrowthResult;
+  timing: GrowTiming;
+  radiusOfGyration: number;
+  maxRadius: number;
+  files: { runResult: string; snapshot: string; picture: string };
+}
+
+const MAX_SEED = (1n << 64n) - 1n;
+const NUMBER_RE = /^[+]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
+
+function describeRange(lo: number, hi: number, loOpen: boolean): string {
+  return `${loOpen ? '(' : '['}${lo}, ${hi}]`;
+}
+
+/** An integer option in [lo, hi]; accepts plain and exponent notation ("1e6"). */
+export function parseIntegerOption(name: string, raw: unknown, lo: number, hi: number): number {
+  const s = typeof raw === 'string' ? raw.trim() : String(raw);
+  const v = NUMBER_RE.test(s) ? Number(s) : NaN;
+  if (!Number.isSafeInteger(v) || v < lo || v > hi) {
+    throw new UsageError(`--${name} must be an integer in [${lo}, ${hi}], got ${JSON.stringify(String(raw))}`);
+  }
+  return v;
+}
+
+/** A real option in (lo, hi] (loOpen) or [lo, hi]. */
+export function parseNumberOption(name: string, raw: unknown, lo: number, hi: number, loOpen: boolean): number {
+  const s = typeof raw === 'string' ? raw.trim() : String(raw);
+  const v = NUMBER_RE.test(s) ? Number(s) : NaN;
+  const ok = Number.isFinite(v) && (loOpen ? v > lo : v >= lo) && v <= hi;
+  if (!ok) throw new UsageError(`--${name} must be a number in ${describeRange(lo, hi, loOpen)}, got ${JSON.stringify(String(raw))}`);
+  return v;
+}
+
+/** An unsigned 64-bit integer in decimal; returned normalised (no leading zeros). */
+export function parseSeedOption(name: string, raw: unknown): string {
+  const s = typeof raw === 'string' ? raw.trim() : String(raw);
+  if (!/^\d{1,20}$/.test(s) || BigInt(s) > MAX_SEED) {
+    throw new UsageError(`--${name} must be an unsigned 64-bit integer in [0, ${MAX_SEED}] written in decimal, got ${JSON.stringify(String(raw))}`);
+  }
+  return BigInt(s).toString();
+}
+
+/** Validate the raw commander options of `grow`; throws UsageError with one line. */
+export function parseGrowOptions(raw: Record<string, unknown>): GrowOptions {
+  const defaults = defaultModelParams('dla-offlattice-2d');
+  const need = (key: string, flag: string, what: string): unknown => {
+    const v = raw[key];
+    if (v === undefined) throw new UsageError(`--${flag} is required (${what})`);
+    return v;
+  };
+  const particles = parseIntegerOption('particles', need('particles', 'particles', 'an integer in [2, 100000000]'), 2, 100_000_000);
+  const seed = parseSeedOption('seed', need('seed', 'seed', 'an unsigned 64-bit integer in decimal'));
+  const outRaw = need('out', 'out', 'the output folder');
+  if (typeof outRaw !== 'string' || outRaw.trim() === '') throw new UsageError(`--out must name a folder, got ${JSON.stringify(String(outRaw))}`);
+  const minStep = raw.minStep === undefined ? defaults.minStep : parseNumberOption('min-step', raw.minStep, 0, 1, true);
+  const launchMargin = raw.launchMargin === undefined ? defaults.launchMargin : parseNumberOption('launch-margin', raw.launchMargin, 0, 100, true);
+  const pictureSize = raw.pictureSize === undefined ? DEFAULT_PICTURE_SIZE : parseIntegerOption('picture-size', raw.pictureSize, 64, 8192);
+  const recordsPerDecade =
+    raw.recordsPerDecade === undefined ? DEFAULT_RECORDS_PER_DECADE : parseIntegerOption('records-per-decade', raw.recordsPerDecade, 10, 100);
+  return { particles, seed, out: outRaw, minStep, launchMargin, pictureSize, recordsPerDecade, quiet: raw.quiet === true };
+}
+
+export function growTask(o: GrowOptions): GrowthTask {
+  return {
+    model: { ...defaultModelParams('dla-offlattice-2d'), minStep: o.minStep, launchMargin: o.launchMargin },
+    particles: o.particles,
+    ensembleSeed: o.seed,
+    runIndex: 0,
+    recordsPerDecade: o.recordsPerDecade,
+  };
+}
+
+/** Radius of gyration about the centre of mass, and largest distance from the seed (particle 0). */
+export function clusterRadii(x: Float64Array, y: Float64Array, n: number): { radiusOfGyration: number; maxRadius: number } {
+  let sx = 0;
+  let sy = 0;
+  for (let i = 0; i < n; i++) {
+    sx += x[i];
+    sy += y[i];
+  }
+  const cx = sx / n;
+  const cy = sy / n;
+  let s2 = 0;
+  let m2 = 0;
+  const x0 = x[0];
+  const y0 = y[0];
+  for (let i = 0; i < n; i++) {
+    const dx = x[i] - cx;
+    const dy = y[i] - cy;
+    s2 += dx * dx + dy * dy;
+    const ex = x[i] - x0;
+    const ey = y[i] - y0;
+    const d2 = ex * ex + ey * ey;
+    if (d2 > m2) m2 = d2;
+  }
+  return { radiusOfGyration: Math.sqrt(s2 / n), maxRadius: Math.sqrt(m2) };
+}
+
+function prepareOutDir(out: string): string {
+  const dir = resolve(out);
+  let isDir = false;
+  try {
+    isDir = statSync(dir).isDirectory();
+  } catch {
+    mkdirSync(dir, { recursive: true });
+    isDir = true;
+  }
+  if (!isDir) throw new UsageError(`--out must name a folder, but "${out}" is an existing file`);
+  return dir;
+}
+
+export interface GrowIo {
+  stdout: NodeJS.WritableStream;
+  stderr: NodeJS.WritableStream & { isTTY?: boolean };
+  progressMode?: ProgressMode;
+}
+
+/** Grow, write the three files, and return what was written. */
+export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, stderr: process.stderr }): GrowSummary {
+  const dir = prepareOutDir(o.out);
+  const task = growTask(o);
+  const kernel = createKernel(task);
+  const startedAt = new Date().toISOString();
+  const progress = createProgress({
+    total: task.particles,
+    unit: 'particles',
+    label: 'grow',
+    mode: o.quiet ? 'none' : io.progressMode ?? 'auto',
+    stream: io.stderr,
+  });
+  const t0 = performance.now();
+  let chunk = 256;
+  while (!kernel.done) {
+    const c0 = performance.now();
+    const before = kernel.count;
+    kernel.growTo(Math.min(task.particles, before + chunk));
+    const dt = performance.now() - c0;
+    // aim for chunks of about 250 ms, growing at most 4-fold per step
+    const perParticle = dt / Math.max(1, kernel.count - before);
+    chunk = Math.max(64, Math.min(4 * chunk, Math.round(250 / Math.max(perParticle, 1e-6))));
+    progress.update(kernel.count);
+  }
+  const growSeconds = (performance.now() - t0) / 1000;
+  progress.stop();
+  const result = kernel.result();
+  const pos = kernel.positions();
+  const radii = clusterRadii(pos.x, pos.y, pos.count);
+
+  const w0 = performance.now();
+  const points = { dimension: 2 as const, count: pos.count, x: pos.x, y: pos.y, diameter: 1, arrivalOrder: true };
+  const files = {
+    runResult: join(dir, RUN_RESULT_FILE),
+    snapshot: join(dir, SNAPSHOT_FILE),
+    picture: join(dir, PICTURE_FILE),
+  };
+  writeFileSync(files.snapshot, encodeSnapshot(points));
+  writeFileSync(files.picture, renderClusterPng(points, { size: o.pictureSize }));
+  const writeSeconds = (performance.now() - w0) / 1000;
+  const timing: GrowTiming = {
+    startedAt,
+    growSeconds,
+    writeSeconds,
+    wallSeconds: (performance.now() - t0) / 1000,
+    particlesPerSecond: growSeconds > 0 ? result.particles / growSeconds : 0,
+  };
+  const file: RunResultFile = { ...result, timing };
+  writeFileSync(files.runResult, JSON.stringify(file, null, 2) + '\n');
+
+  io.stdout.write(`${files.runResult}\n${files.snapshot}\n${files.picture}\n`);
+  io.stdout.write(
+    `grew ${result.particles} particles (seed ${o.seed}): R_g = ${radii.radiusOfGyration.toFixed(2)}, ` +
+      `R_max = ${radii.maxRadius.toFixed(2)}, ${formatRate(timing.particlesPerSecond)} particles/s over ${growSeconds.toFixed(1)} s\n`,
+  );
+  return { result, timing, ...radii, files };
+}
+
+export function register(program: Command): void {
+  program
+    .command('grow')
+    .description('grow one off-lattice DLA cluster and write its run result, snapshot and picture')
+    .option('--particles <n>', 'cluster size, seed particle included (integer in [2, 100000000])')
+    .option('--seed <s>', 'ensemble seed, unsigned 64-bit integer in decimal (the cluster is run 0)')
+    .option('--out <dir>', 'output folder, created if missing')
+    .option('--min-step <x>', 'length of the short final steps next to the cluster, in (0, 1]')
+    .option('--launch-margin <x>', 'launch circle radius minus (maximum radius + 1), in (0, 100]')
+    .option('--picture-size <px>', `side of cluster.png in pixels, in [64, 8192] (default ${DEFAULT_PICTURE_SIZE})`)
+    .option('--records-per-decade <k>', `observable records per decade of size, in [10, 100] (default ${DEFAULT_RECORDS_PER_DECADE})`)
+    .option('--quiet', 'no progress display')
+    .action((raw: Record<string, unknown>) => {
+      runGrow(parseGrowOptions(raw));
+    });
+}

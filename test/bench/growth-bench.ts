@@ -1,0 +1,189 @@
+/**
+ * Growth benchmark: for each cluster size, grow one off-lattice 2D DLA cluster
+ * (default model parameters, ensemble seed 1, run 0) in a fresh child process,
+ * so that the peak resident memory (process.resourceUsage().maxRSS) belongs
+ * to that size alone and covers the whole process.
+ *
+ * Usage (after `npx tsc`):
+ *   node dist/test/bench/growth-bench.js [--sizes 10000,100000,1000000] [--seed S]
+ * or env TENDRIL_BENCH_SIZES=10000,100000. Default sizes: 10^4, 10^5, 10^6.
+ *
+ * Prints a table, then one JSON line per size:
+ *   {"bench":"growth","particles":...,"particlesPerSecond":...,"jumpsPerParticle":...,
+ *    "shortStepsPerParticle":...,"returnsPerParticle":...,"wallSeconds":...,"peakRssMB":...,...}
+ * wallSeconds is the growth time inside the child (kernel construction
+ * included, process start-up excluded).
+ */
+import { spawn } from 'node:child_process';
+import { realpathSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { createKernel, defaultModelParams } from '../../worker/models.js';
+import type { GrowthTask } from '../../worker/growth-kernel.js';
+import { ENGINE_VERSION } from '../../worker/engine-version.js';
+import { createProgress } from '../../coordinator/progress/progress.js';
+
+export const DEFAULT_GROWTH_SIZES = [10_000, 100_000, 1_000_000];
+
+export interface GrowthBenchRow {
+  bench: 'growth';
+  engineVersion: string;
+  particles: number;
+  seed: string;
+  particlesPerSecond: number;
+  jumpsPerParticle: number;
+  shortStepsPerParticle: number;
+  returnsPerParticle: number;
+  wallSeconds: number;
+  peakRssMB: number;
+  stateHash: string;
+  nodeVersion: string;
+}
+
+const THIS_FILE = fileURLToPath(import.meta.url);
+const CHILD_FLAG = '--growth-bench-child';
+
+/** Parse "10000,1e5" into sizes; throws a one-line RangeError. */
+export function parseSizes(text: string): number[] {
+  const sizes = text.split(',').map((s) => s.trim()).filter((s) => s !== '').map(Number);
+  if (sizes.length === 0 || sizes.some((n) => !Number.isSafeInteger(n) || n < 2 || n > 1e8)) {
+    throw new RangeError(`--sizes must be a comma-separated list of integers in [2, 100000000], got "${text}"`);
+  }
+  return sizes;
+}
+
+/** Runs inside the child: grow one cluster and print one JSON row on stdout. */
+function childMain(particles: number, seed: string): void {
+  const task: GrowthTask = {
+    model: defaultModelParams('dla-offlattice-2d'),
+    particles,
+    ensembleSeed: seed,
+    runIndex: 0,
+    recordsPerDecade: 20,
+  };
+  const progress = createProgress({ total: particles, unit: 'particles', label: `growth bench ${particles}`, mode: 'lines', lineIntervalSeconds: 30 });
+  const t0 = performance.now();
+  const kernel = createKernel(task);
+  let chunk = 1000;
+  while (!kernel.done) {
+    kernel.growTo(Math.min(particles, kernel.count + chunk));
+    chunk = Math.min(chunk * 2, 50_000);
+    progress.update(kernel.count);
+  }
+  const seconds = (performance.now() - t0) / 1000;
+  const result = kernel.result();
+  const c = result.counters;
+  const row: GrowthBenchRow = {
+    bench: 'growth',
+    engineVersion: ENGINE_VERSION,
+    particles,
+    seed,
+    particlesPerSecond: particles / seconds,
+    jumpsPerParticle: c.jumps / particles,
+    shortStepsPerParticle: c.shortSteps / particles,
+    returnsPerParticle: c.returns / particles,
+    wallSeconds: seconds,
+    peakRssMB: process.resourceUsage().maxRSS / 1024, // maxRSS is in kilobytes
+    stateHash: result.stateHash,
+    nodeVersion: process.version,
+  };
+  process.stdout.write(JSON.stringify(row) + '\n');
+}
+
+function runChild(particles: number, seed: string): Promise<GrowthBenchRow> {
+  return new Promise((resolvePromise, reject) => {
+    const child = spawn(process.execPath, [THIS_FILE, CHILD_FLAG, String(particles), seed], { stdio: ['ignore', 'pipe', 'inherit'] });
+    let out = '';
+    child.stdout.setEncoding('utf8');
+    child.stdout.on('data', (s: string) => (out += s));
+    child.on('error', reject);
+    child.on('close', (code) => {
+      if (code !== 0) return reject(new Error(`growth bench child for ${particles} particles exited with code ${code}`));
+      try {
+        resolvePromise(JSON.parse(out.trim().split('\n').pop() ?? '') as GrowthBenchRow);
+      } catch {
+        reject(new Error(`growth bench child for ${particles} particles printed no result`));
+      }
+    });
+  });
+}
+
+function fixed(v: number, digits: number): string {
+  return v.toFixed(digits);
+}
+
+export function formatTable(rows: GrowthBenchRow[]): string {
+  const head = ['particles', 'particles/s', 'jumps/particle', 'short steps/particle', 'returns/particle', 'seconds', 'peak RSS MB'];
+  const body = rows.map((r) => [
+    String(r.particles),
+    fixed(r.particlesPerSecond, 0),
+    fixed(r.jumpsPerParticle, 1),
+    fixed(r.shortStepsPerParticle, 2),
+    fixed(r.returnsPerParticle, 2),
+    fixed(r.wallSeconds, 2),
+    fixed(r.peakRssMB, 1),
+  ]);
+  const widths = head.map((h, i) => Math.max(h.length, ...body.map((b) => b[i].length)));
+  const line = (cells: string[]): string => cells.map((c, i) => c.padStart(widths[i])).join('  ');
+  return [line(head), ...body.map(line)].join('\n');
+}
+
+export interface GrowthBenchOptions {
+  sizes?: number[];
+  seed?: string;
+  /** Where the table and JSON lines go; default stdout. */
+  write?: (text: string) => void;
+}
+
+/** Grow one cluster per size, each in a fresh child process, and print the figures. */
+export async function runGrowthBenchmark(opts: GrowthBenchOptions = {}): Promise<GrowthBenchRow[]> {
+  const sizes = opts.sizes ?? DEFAULT_GROWTH_SIZES;
+  const seed = opts.seed ?? '1';
+  const write = opts.write ?? ((s: string) => void process.stdout.write(s));
+  const rows: GrowthBenchRow[] = [];
+  write(`growth benchmark (dla-offlattice-2d, default parameters, seed ${seed}, one fresh process per size)\n`);
+  for (const n of sizes) rows.push(await runChild(n, seed));
+  write(formatTable(rows) + '\n');
+  for (const r of rows) write(JSON.stringify(r) + '\n');
+  return rows;
+}
+
+/** Sizes from `--sizes a,b,c` in argv, else env TENDRIL_BENCH_SIZES, else the defaults. */
+export function sizesFromArgs(argv: string[], env: NodeJS.ProcessEnv = process.env): number[] {
+  const i = argv.indexOf('--sizes');
+  if (i >= 0) return parseSizes(argv[i + 1] ?? '');
+  const eq = argv.find((a) => a.startsWith('--sizes='));
+  if (eq !== undefined) return parseSizes(eq.slice('--sizes='.length));
+  if (env.TENDRIL_BENCH_SIZES !== undefined && env.TENDRIL_BENCH_SIZES !== '') return parseSizes(env.TENDRIL_BENCH_SIZES);
+  return DEFAULT_GROWTH_SIZES;
+}
+
+function seedFromArgs(argv: string[]): string {
+  const i = argv.indexOf('--seed');
+  const s = i >= 0 ? argv[i + 1] ?? '' : '1';
+  if (!/^\d{1,20}$/.test(s) || BigInt(s) >= 1n << 64n) throw new RangeError(`--seed must be an unsigned 64-bit integer in decimal, got "${s}"`);
+  return s;
+}
+
+function isEntryPoint(): boolean {
+  const invoked = process.argv[1];
+  if (invoked === undefined) return false;
+  try {
+    return realpathSync(invoked) === realpathSync(THIS_FILE);
+  } catch {
+    return false;
+  }
+}
+
+if (isEntryPoint()) {
+  const argv = process.argv.slice(2);
+  if (argv[0] === CHILD_FLAG) {
+    childMain(Number(argv[1]), argv[2] ?? '1');
+  } else {
+    try {
+      await runGrowthBenchmark({ sizes: sizesFromArgs(argv), seed: seedFromArgs(argv) });
+    } catch (err) {
+      process.stderr.write(`growth bench: ${err instanceof Error ? err.message : String(err)}\n`);
+      process.exit(1);
+    }
+  }
+}

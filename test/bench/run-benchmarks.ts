@@ -1,0 +1,56 @@
+/**
+ * `npm run bench`: runs the benchmark parts in turn and prints, for each, a
+ * human-readable block followed by one JSON line per measurement.
+ *
+ *   node dist/test/bench/run-benchmarks.js [--only growth|aggregate[,..]] [--sizes 10000,100000]
+ *
+ * Parts:
+ *   growth     test/bench/growth-bench.ts: one cluster per size, each in a fresh
+ *              process (--sizes or env TENDRIL_BENCH_SIZES; default 10^4, 10^5, 10^6)
+ *   aggregate  test/bench/aggregate-bench.ts: runAggregateBenchmark()
+ */
+import { runGrowthBenchmark, sizesFromArgs } from './growth-bench.js';
+import { runAggregateBenchmark } from './aggregate-bench.js';
+
+const PARTS = ['growth', 'aggregate'] as const;
+type Part = (typeof PARTS)[number];
+
+export function partsFromArgs(argv: string[]): Part[] {
+  const i = argv.indexOf('--only');
+  const eq = argv.find((a) => a.startsWith('--only='));
+  const text = i >= 0 ? argv[i + 1] ?? '' : eq !== undefined ? eq.slice('--only='.length) : undefined;
+  if (text === undefined) return [...PARTS];
+  const parts = text.split(',').map((s) => s.trim()).filter((s) => s !== '');
+  const bad = parts.find((p) => !(PARTS as readonly string[]).includes(p));
+  if (parts.length === 0 || bad !== undefined) throw new RangeError(`--only must be a comma-separated list of ${PARTS.join(', ')}, got "${text}"`);
+  return parts as Part[];
+}
+
+function runAggregate(): void {
+  const r = runAggregateBenchmark();
+  process.stdout.write(`aggregate: ${r.runs} runs x ${r.sizes} sizes, ${r.resamples} resamples: ${r.seconds.toFixed(2)} s\n`);
+  process.stdout.write(JSON.stringify(r) + '\n');
+}
+
+async function main(argv: string[]): Promise<number> {
+  const parts = partsFromArgs(argv);
+  let failed = 0;
+  for (const part of parts) {
+    try {
+      if (part === 'growth') await runGrowthBenchmark({ sizes: sizesFromArgs(argv) });
+      else runAggregate();
+    } catch (err) {
+      failed++;
+      process.stderr.write(`bench ${part}: ${err instanceof Error ? err.message.split('\n')[0] : String(err)}\n`);
+    }
+  }
+  return failed === 0 ? 0 : 1;
+}
+
+main(process.argv.slice(2)).then(
+  (code) => process.exit(code),
+  (err) => {
+    process.stderr.write(`bench: ${err instanceof Error ? err.message : String(err)}\n`);
+    process.exit(2);
+  },
+);

@@ -1,0 +1,255 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { PNG } from 'pngjs';
+import { decodeSnapshot } from '../coordinator/snapshot/index.js';
+import { DARK_BACKGROUND, parseHex } from '../coordinator/render/index.js';
+import { createProgress, formatDuration, formatRate } from '../coordinator/progress/index.js';
+import { clusterRadii } from '../coordinator/commands/grow.js';
+
+// The command is tested as users run it: the compiled CLI (`npx tsc` first).
+const CLI = fileURLToPath(new URL('../dist/coordinator/cli.js', import.meta.url));
+
+interface Ran {
+  status: number | null;
+  stdout: string;
+  stderr: string;
+}
+
+function tendril(...args: string[]): Ran {
+  const r = spawnSync(process.execPath, [CLI, ...args], { encoding: 'utf8', timeout: 60_000 });
+  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
+}
+
+let work: string;
+
+beforeAll(() => {
+  if (!existsSync(CLI)) throw new Error(`${CLI} is missing; run npx tsc -p tsconfig.json first`);
+  work = mkdtempSync(join(tmpdir(), 'tendril-grow-test-'));
+});
+
+afterAll(() => {
+  if (work !== undefined) rmSync(work, { recursive: true, force: true });
+});
+
+describe('tendril grow, end to end', () => {
+  const N = 2000;
+  let first: Ran;
+  let dirA: string;
+
+  beforeAll(() => {
+    dirA = join(work, 'a', 'nested'); // parent folders do not exist yet
+    first = tendril('grow', '--particles', String(N), '--seed', '42', '--out', dirA, '--picture-size', '256');
+  });
+
+  it('succeeds and prints the three paths and a summary line', () => {
+    expect(first.stderr).toMatch(/^grow: 2000\/2000 particles \(100\.0%\), .* particles\/s, .* elapsed\n$/);
+    expect(first.status).toBe(0);
+    const lines = first.stdout.trimEnd().split('\n');
+    expect(lines.slice(0, 3)).toEqual([join(dirA, 'run-result.json'), join(dirA, 'cluster.snapshot'), join(dirA, 'cluster.png')]);
+    expect(lines[3]).toMatch(/^grew 2000 particles \(seed 42\): R_g = \d+\.\d\d, R_max = \d+\.\d\d, [\d,.]+ particles\/s over \d+\.\d s$/);
+  });
+
+  it('writes a run result with the GrowthResult and a separate timing field', () => {
+    const rr = JSON.parse(readFileSync(join(dirA, 'run-result.json'), 'utf8'));
+    expect(rr.particles).toBe(N);
+    expect(rr.ensembleSeed).toBe('42');
+    expect(rr.runIndex).toBe(0);
+    expect(rr.model).toEqual({ kind: 'dla-offlattice-2d', minStep: 0.25, launchMargin: 2 });
+    expect(rr.stateHash).toMatch(/^[0-9a-f]{8,}$/);
+    expect(rr.counters.jumps).toBeGreaterThan(N);
+    expect(rr.series.sizes.length).toBeGreaterThan(20);
+    expect(Math.max(...rr.series.sizes)).toBeLessThanOrEqual(N);
+    for (const k of ['growSeconds', 'writeSeconds', 'wallSeconds', 'particlesPerSecond']) {
+      expect(typeof rr.timing[k]).toBe('number');
+      expect(rr.timing[k]).toBeGreaterThan(0);
+    }
+    expect(rr.timing.particlesPerSecond).toBeCloseTo(N / rr.timing.growSeconds, 6);
+    expect(Number.isNaN(Date.parse(rr.timing.startedAt))).toBe(false);
+  });
+
+  it('writes a snapshot of touching, non-overlapping disks that matches the summary', () => {
+    const s = decodeSnapshot(readFileSync(join(dirA, 'cluster.snapshot')));
+    expect(s.dimension).toBe(2);
+    expect(s.count).toBe(N);
+    expect(s.diameter).toBe(1);
+    expect(s.arrivalOrder).toBe(true);
+    expect([s.x[0], s.y[0]]).toEqual([0, 0]); // the seed sits at the origin (worker/dla-offlattice-2d.ts)
+    // Model definition (DESIGN.md, kernel header): each arrival touches an earlier disk and overlaps none.
+    // Tolerance 1e-9 diameters allows for floating-point rounding of the contact point.
+    let worstOverlap = 0;
+    let worstGap = 0;
+    for (let i = 1; i < N; i++) {
+      let nearest = Infinity;
+      for (let j = 0; j < i; j++) {
+        const d = Math.hypot(s.x[i] - s.x[j], s.y[i] - s.y[j]);
+        if (d < nearest) nearest = d;
+      }
+      worstOverlap = Math.max(worstOverlap, 1 - nearest);
+      worstGap = Math.max(worstGap, nearest - 1);
+    }
+    expect(worstOverlap).toBeLessThan(1e-9);
+    expect(worstGap).toBeLessThan(1e-9);
+    const radii = clusterRadii(s.x, s.y, s.count);
+    const summary = first.stdout.trimEnd().split('\n')[3];
+    expect(summary).toContain(`R_g = ${radii.radiusOfGyration.toFixed(2)}`);
+    expect(summary).toContain(`R_max = ${radii.maxRadius.toFixed(2)}`);
+  });
+
+  it('writes a picture of the requested size that is not blank', () => {
+    const png = PNG.sync.read(readFileSync(join(dirA, 'cluster.png')));
+    expect(png.width).toBe(256);
+    expect(png.height).toBe(256);
+    const bg = parseHex(DARK_BACKGROUND);
+    let painted = 0;
+    const colours = new Set<number>();
+    for (let o = 0; o < png.data.length; o += 4) {
+      const r = png.data[o];
+      const g = png.data[o + 1];
+      const b = png.data[o + 2];
+      if (r !== bg.r || g !== bg.g || b !== bg.b) {
+        painted++;
+        colours.add((r << 16) | (g << 8) | b);
+      }
+    }
+    expect(painted).toBeGreaterThan(0.02 * 256 * 256);
+    expect(colours.size).toBeGreaterThan(50);
+    // corners are background
+    expect([png.data[0], png.data[1], png.data[2]]).toEqual([bg.r, bg.g, bg.b]);
+  });
+
+  it('is deterministic: the same seed gives the same state hash and snapshot bytes; another seed does not', () => {
+    const dirB = join(work, 'b');
+    const dirC = join(work, 'c');
+    const again = tendril('grow', '--particles', String(N), '--seed', '042', '--out', dirB, '--picture-size', '64', '--quiet');
+    expect(again.status).toBe(0);
+    expect(again.stderr).toBe(''); // --quiet: no progress at all
+    const other = tendril('grow', '--particles', String(N), '--seed', '43', '--out', dirC, '--picture-size', '64', '--quiet');
+    expect(other.status).toBe(0);
+    const a = JSON.parse(readFileSync(join(dirA, 'run-result.json'), 'utf8'));
+    const b = JSON.parse(readFileSync(join(dirB, 'run-result.json'), 'utf8'));
+    const c = JSON.parse(readFileSync(join(dirC, 'run-result.json'), 'utf8'));
+    expect(b.stateHash).toBe(a.stateHash);
+    delete a.timing;
+    delete b.timing;
+    expect(b).toEqual(a);
+    expect(Buffer.compare(readFileSync(join(dirA, 'cluster.snapshot')), readFileSync(join(dirB, 'cluster.snapshot')))).toBe(0);
+    expect(c.stateHash).not.toBe(a.stateHash);
+    expect(Buffer.compare(readFileSync(join(dirA, 'cluster.snapshot')), readFileSync(join(dirC, 'cluster.snapshot')))).not.toBe(0);
+  });
+
+  it('passes model options through to the result', () => {
+    const dir = join(work, 'opts');
+    const r = tendril('grow', '--particles', '300', '--seed', '18446744073709551615', '--out', dir, '--min-step', '0.5',
+      '--launch-margin', '7.5', '--records-per-decade', '10', '--picture-size', '64', '--quiet');
+    expect(r.stderr).toBe('');
+    expect(r.status).toBe(0);
+    const rr = JSON.parse(readFileSync(join(dir, 'run-result.json'), 'utf8'));
+    expect(rr.model).toEqual({ kind: 'dla-offlattice-2d', minStep: 0.5, launchMargin: 7.5 });
+    expect(rr.ensembleSeed).toBe('18446744073709551615');
+    expect(rr.particles).toBe(300);
+  });
+});
+
+describe('tendril grow, bad options', () => {
+  const ok = ['--seed', '1', '--out'];
+  const R = 'must be an integer in';
+  const cases: Array<[string, string[], string]> = [
+    ['particles not a number', ['--particles', 'abc'], `tendril: --particles ${R} [2, 100000000], got "abc"`],
+    ['particles too small', ['--particles', '1'], `tendril: --particles ${R} [2, 100000000], got "1"`],
+    ['particles too large', ['--particles', '100000001'], `tendril: --particles ${R} [2, 100000000], got "100000001"`],
+    ['particles fractional', ['--particles', '2.5'], `tendril: --particles ${R} [2, 100000000], got "2.5"`],
+    ['particles missing', [], 'tendril: --particles is required (an integer in [2, 100000000])'],
+    ['seed negative', ['--particles', '10', '--seed', '-1'], 'tendril: --seed must be an unsigned 64-bit integer in [0, 18446744073709551615] written in decimal, got "-1"'],
+    ['seed 2^64', ['--particles', '10', '--seed', '18446744073709551616'], 'tendril: --seed must be an unsigned 64-bit integer in [0, 18446744073709551615] written in decimal, got "18446744073709551616"'],
+    ['seed hex', ['--particles', '10', '--seed', '0x10'], 'tendril: --seed must be an unsigned 64-bit integer in [0, 18446744073709551615] written in decimal, got "0x10"'],
+    ['min-step zero', ['--particles', '10', '--min-step', '0'], 'tendril: --min-step must be a number in (0, 1], got "0"'],
+    ['min-step above 1', ['--particles', '10', '--min-step', '1.01'], 'tendril: --min-step must be a number in (0, 1], got "1.01"'],
+    ['min-step not a number', ['--particles', '10', '--min-step', 'NaN'], 'tendril: --min-step must be a number in (0, 1], got "NaN"'],
+    ['launch-margin zero', ['--particles', '10', '--launch-margin', '0'], 'tendril: --launch-margin must be a number in (0, 100], got "0"'],
+    ['launch-margin too large', ['--particles', '10', '--launch-margin', '1e3'], 'tendril: --launch-margin must be a number in (0, 100], got "1e3"'],
+    ['picture-size too small', ['--particles', '10', '--picture-size', '63'], `tendril: --picture-size ${R} [64, 8192], got "63"`],
+    ['picture-size too large', ['--particles', '10', '--picture-size', '8193'], `tendril: --picture-size ${R} [64, 8192], got "8193"`],
+    ['records-per-decade too small', ['--particles', '10', '--records-per-decade', '9'], `tendril: --records-per-decade ${R} [10, 100], got "9"`],
+    ['records-per-decade too large', ['--particles', '10', '--records-per-decade', '101'], `tendril: --records-per-decade ${R} [10, 100], got "101"`],
+    ['records-per-decade empty', ['--particles', '10', '--records-per-decade', ''], `tendril: --records-per-decade ${R} [10, 100], got ""`],
+  ];
+
+  it.each(cases)('%s', (_name, args, expected) => {
+    const out = join(work, 'never-' + _name.replace(/\W+/g, '-'));
+    const full = args.includes('--seed') ? ['grow', ...args, '--out', out] : ['grow', ...args, ...ok, out];
+    const r = tendril(...full);
+    expect(r.stderr).toBe(expected + '\n');
+    expect(r.stdout).toBe('');
+    expect(r.status).toBe(2);
+    expect(existsSync(out)).toBe(false);
+  });
+
+  it('a missing --out and an --out that is a file are one-line errors', () => {
+    const noOut = tendril('grow', '--particles', '10', '--seed', '1');
+    expect(noOut.stderr).toBe('tendril: --out is required (the output folder)\n');
+    expect(noOut.status).toBe(2);
+    const file = join(work, 'a-file');
+    writeFileSync(file, 'x');
+    const onFile = tendril('grow', '--particles', '10', '--seed', '1', '--out', file);
+    expect(onFile.stderr).toBe(`tendril: --out must name a folder, but "${file}" is an existing file\n`);
+    expect(onFile.status).toBe(2);
+  });
+
+  it('an unknown option is refused by the parser with one line', () => {
+    const r = tendril('grow', '--particles', '10', '--seed', '1', '--out', join(work, 'x'), '--sparkle');
+    expect(r.stderr.trimEnd().split('\n')).toHaveLength(1);
+    expect(r.stderr).toMatch(/unknown option '--sparkle'/);
+    expect(r.status).not.toBe(0);
+  });
+});
+
+describe('progress display without a terminal', () => {
+  function fakeStream(): { stream: NodeJS.WritableStream & { isTTY?: boolean }; text: () => string } {
+    let text = '';
+    const stream = { isTTY: false, write: (s: string) => { text += s; return true; } } as unknown as NodeJS.WritableStream;
+    return { stream, text: () => text };
+  }
+
+  it('prints plain lines at most every interval and one at the end', () => {
+    let t = 0;
+    const out = fakeStream();
+    const p = createProgress({ total: 1000, unit: 'particles', label: 'grow', stream: out.stream, lineIntervalSeconds: 10, now: () => t });
+    expect(p.mode).toBe('lines');
+    t = 5000;
+    p.update(100); // too early for a line
+    t = 10_000;
+    p.update(200);
+    t = 15_000;
+    p.update(300); // 5 s after the last line: none
+    t = 20_000;
+    p.update(400);
+    t = 25_000;
+    p.update(1000);
+    p.stop();
+    p.stop();
+    expect(out.text().split('\n')).toEqual([
+      'grow: 200/1000 particles (20.0%), 20.0 particles/s, 40 s left',
+      'grow: 400/1000 particles (40.0%), 20.0 particles/s, 30 s left',
+      'grow: 1000/1000 particles (100.0%), 40.0 particles/s, 25 s elapsed',
+      '',
+    ]);
+  });
+
+  it('prints nothing in none mode and formats durations and rates', () => {
+    const out = fakeStream();
+    const p = createProgress({ total: 10, unit: 'particles', stream: out.stream, mode: 'none' });
+    p.update(5);
+    p.stop();
+    expect(out.text()).toBe('');
+    expect(formatDuration(59.4)).toBe('59 s');
+    expect(formatDuration(125)).toBe('2 min 05 s');
+    expect(formatDuration(7260)).toBe('2 h 01 min');
+    expect(formatDuration(NaN)).toBe('?');
+    expect(formatRate(12345.6)).toBe('12,346');
+    expect(formatRate(12.345)).toBe('12.3');
+  });
+});
