@@ -167,6 +167,8 @@ describe('degenerate and awkward input', () => {
     expect(a.duplicatesDropped).toBe(1);
     const bad = { ...runs[2], stateHash: 'other' };
     expect(() => analyzeEnsemble([...runs, bad])).toThrow(/run index 2 appears twice with different state hashes/);
+    const foreign = { ...runs[0], runIndex: 99, ensembleSeed: '6' };
+    expect(() => analyzeEnsemble([...runs, foreign])).toThrow(/runs\[\]\.ensembleSeed: 2 different ensemble seeds/);
   });
 
   it('mismatched size grids are refused naming the run and the entry', () => {

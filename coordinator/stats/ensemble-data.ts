@@ -124,6 +124,8 @@ export function extractEnsembleData(input: readonly GrowthResult[]): EnsembleDat
   const kinds = new Set(runs.map((r) => r.model?.kind ?? ''));
   if (kinds.size > 1) throw new StatsInputError(`runs[].model.kind: mixed model kinds ${[...kinds].join(', ')}; an ensemble has one model`);
   const modelKind = runs[0].model?.kind ?? null;
+  const seeds = new Set(runs.map((r) => r.ensembleSeed));
+  if (seeds.size > 1) throw new StatsInputError(`runs[].ensembleSeed: ${seeds.size} different ensemble seeds (${[...seeds].slice(0, 3).join(', ')}...); analyse one ensemble at a time`);
 
   // common size grid: the shortest series, checked to be a prefix of all others
   let shortest = runs[0];
