@@ -1,0 +1,102 @@
+/**
+ * `tendril run SPEC --out DIR`: grow a whole ensemble in this process with a
+ * pool of worker threads (no Redis) and write the summary into DIR.
+ * Interrupting (Ctrl-C) keeps checkpoints in DIR; running the same command
+ * again continues from them.
+ */
+import { mkdir, readFile, writeFile } from 'node:fs/promises';
+import { join } from 'node:path';
+import type { Command } from 'commander';
+import { createProgress, type ProgressMode } from '../progress/index.js';
+import { runEmbedded, EmbeddedAborted } from '../embedded/index.js';
+import { DirectoryArtifactStore } from '../farm/artifacts.js';
+import { newEnsembleId } from '../plan.js';
+import { specToDocument } from '../spec/index.js';
+import { massRadiusToCsv, runsToCsv, summaryToCsv, summaryToJson, summaryToProtobuf } from '../summary/index.js';
+import { UsageError } from '../usage-error.js';
+import { loadSpecFile, positiveInt } from './spec-file.js';
+
+interface RunOptions {
+  out: string;
+  threads?: number;
+  maxTotalParticles?: number;
+  progress: string;
+}
+
+export function register(program: Command): void {
+  program
+    .command('run')
+    .description('grow an ensemble locally with worker threads (no Redis) and write its summary')
+    .argument('<spec>', 'ensemble spec file (.toml or .json)')
+    .requiredOption('--out <dir>', 'output folder (summary files, checkpoints of an interrupted run)')
+    .option('--threads <n>', 'worker threads (default: available cores)', positiveInt('--threads', 1024))
+    .option('--max-total-particles <n>', 'raise the ceiling on particles × clusters', positiveInt('--max-total-particles', Number.MAX_SAFE_INTEGER))
+    .option('--progress <mode>', 'progress display: auto, bar, lines or none', 'auto')
+    .action(async (specPath: string, opts: RunOptions) => {
+      if (!['auto', 'bar', 'lines', 'none'].includes(opts.progress)) {
+        throw new UsageError(`--progress: "${opts.progress}" is not allowed; allowed: auto, bar, lines, none`);
+      }
+      const spec = await loadSpecFile(specPath, opts.maxTotalParticles);
+      await mkdir(opts.out, { recursive: true });
+      const doc = specToDocument(spec);
+      const metaPath = join(opts.out, 'ensemble.json');
+      let ensembleId = newEnsembleId();
+      let createdAtMs = Date.now();
+      try {
+        const meta = JSON.parse(await readFile(metaPath, 'utf8')) as { ensemble_id: string; created_at_ms: number; spec: unknown };
+        if (JSON.stringify(meta.spec) !== JSON.stringify(doc)) {
+          throw new UsageError(`--out: "${opts.out}" holds another ensemble (${meta.ensemble_id}); allowed: an empty folder or one holding this same spec`);
+        }
+        ensembleId = meta.ensemble_id;
+        createdAtMs = meta.created_at_ms;
+      } catch (err) {
+        if (err instanceof UsageError) throw err;
+        await writeFile(metaPath, JSON.stringify({ ensemble_id: ensembleId, created_at_ms: createdAtMs, spec: doc }, null, 2) + '\n');
+      }
+      const progress = createProgress({
+        total: spec.particles * spec.clusters,
+        unit: 'particles',
+        label: spec.name,
+        mode: opts.progress as ProgressMode,
+      });
+      const abort = new AbortController();
+      const onSignal = () => abort.abort();
+      process.once('SIGINT', onSignal);
+      process.once('SIGTERM', onSignal);
+      try {
+        const outcome = await runEmbedded(spec, {
+          ensembleId,
+          createdAtMs,
+          threads: opts.threads,
+          store: new DirectoryArtifactStore(join(opts.out, 'state')),
+          signal: abort.signal,
+          onProgress: (p) => progress.update(p.particlesDone),
+        });
+        progress.stop();
+        const s = outcome.summary;
+        await writeFile(join(opts.out, 'summary.json'), summaryToJson(s));
+        await writeFile(join(opts.out, 'series.csv'), summaryToCsv(s));
+        await writeFile(join(opts.out, 'runs.csv'), runsToCsv(s));
+        await writeFile(join(opts.out, 'mass-radius.csv'), massRadiusToCsv(s));
+        await writeFile(join(opts.out, 'summary.pb'), summaryToProtobuf(s));
+        const fit = s.radiusOfGyrationFit;
+        process.stdout.write(
+          `${spec.name}: ${s.clustersDone} clusters of ${spec.particles} particles in ${outcome.wallSeconds.toFixed(1)} s` +
+            (outcome.reused > 0 ? ` (${outcome.reused} taken from an earlier run)` : '') +
+            (fit ? `; R_g ~ N^${fit.exponent.toFixed(4)} over N = ${fit.minX}..${fit.maxX}, D = ${(1 / fit.exponent).toFixed(3)}` : '') +
+            `\nwrote ${join(opts.out, 'summary.json')}, series.csv, runs.csv, mass-radius.csv, summary.pb\n`,
+        );
+      } catch (err) {
+        progress.stop();
+        if (err instanceof EmbeddedAborted) {
+          process.stderr.write(`tendril: ${err.message}; run the same command again to continue\n`);
+          process.exitCode = 130;
+          return;
+        }
+        throw err;
+      } finally {
+        process.off('SIGINT', onSignal);
+        process.off('SIGTERM', onSignal);
+      }
+    });
+}

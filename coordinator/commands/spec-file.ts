@@ -1,0 +1,28 @@
+/** Shared by the commands that read an ensemble spec file (run, launch). */
+import { readFile } from 'node:fs/promises';
+import { UsageError } from '../usage-error.js';
+import { formatOf, limitsFromEnv, parseSpec, SpecError, type EnsembleSpec } from '../spec/index.js';
+
+/** Read, parse and validate a spec file; every problem becomes one UsageError line. */
+export async function loadSpecFile(path: string, maxTotalParticles?: number): Promise<EnsembleSpec> {
+  let text: string;
+  try {
+    text = await readFile(path, 'utf8');
+  } catch (err) {
+    throw new UsageError(`spec file "${path}": ${(err as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (err as Error).message}`);
+  }
+  try {
+    return parseSpec(text, formatOf(path), limitsFromEnv(process.env, maxTotalParticles));
+  } catch (err) {
+    if (err instanceof SpecError) throw new UsageError(`spec file "${path}": ${err.message}`);
+    throw err;
+  }
+}
+
+export function positiveInt(name: string, max = 1_000_000): (v: string) => number {
+  return (v: string) => {
+    const n = Number(v);
+    if (!Number.isInteger(n) || n < 1 || n > max) throw new UsageError(`${name}: "${v}" is not allowed; allowed: an integer from 1 to ${max}`);
+    return n;
+  };
+}

@@ -1,0 +1,59 @@
+/**
+ * Planning: an ensemble spec becomes one run task per cluster, grouped into
+ * queue jobs of `runsPerJob` runs. Run i gets the stream (ensemble seed, run
+ * index i) of worker/random.ts, so a run's result depends only on the spec
+ * and the engine version, never on how the runs are grouped or who runs them.
+ */
+import { randomBytes } from 'node:crypto';
+import type { RunTaskData } from '../proto/convert.js';
+import { ENGINE_VERSION } from '../worker/engine-version.js';
+import type { EnsembleSpec } from './spec/index.js';
+
+export interface PlannedJob {
+  /** 0-based index of the job within its ensemble. */
+  jobIndex: number;
+  runs: RunTaskData[];
+}
+
+export interface EnsemblePlan {
+  ensembleId: string;
+  spec: EnsembleSpec;
+  engineVersion: string;
+  jobs: PlannedJob[];
+}
+
+/** A fresh ensemble id: "e" + base-36 time + 8 random hex digits (sortable by creation time). */
+export function newEnsembleId(now = Date.now()): string {
+  return `e${now.toString(36)}${randomBytes(4).toString('hex')}`;
+}
+
+export const ENSEMBLE_ID_PATTERN = /^[A-Za-z0-9_-]{1,64}$/;
+
+/** The run task of run `runIndex` of an ensemble. */
+export function runTaskFor(ensembleId: string, spec: EnsembleSpec, runIndex: number): RunTaskData {
+  if (!Number.isInteger(runIndex) || runIndex < 0 || runIndex >= spec.clusters) {
+    throw new RangeError(`run index ${runIndex} is outside 0..${spec.clusters - 1}`);
+  }
+  return {
+    ensembleId,
+    runIndex,
+    ensembleSeed: spec.seed,
+    model: { ...spec.model },
+    particles: spec.particles,
+    recordsPerDecade: spec.recordsPerDecade,
+    checkpointIntervalSeconds: spec.checkpointIntervalSeconds,
+    checkpointEveryParticles: spec.checkpointEveryParticles,
+    engineVersion: ENGINE_VERSION,
+  };
+}
+
+export function planEnsemble(ensembleId: string, spec: EnsembleSpec): EnsemblePlan {
+  if (!ENSEMBLE_ID_PATTERN.test(ensembleId)) throw new RangeError(`ensemble id "${ensembleId}" must match ${ENSEMBLE_ID_PATTERN}`);
+  const jobs: PlannedJob[] = [];
+  for (let start = 0, j = 0; start < spec.clusters; start += spec.runsPerJob, j++) {
+    const runs: RunTaskData[] = [];
+    for (let i = start; i < Math.min(spec.clusters, start + spec.runsPerJob); i++) runs.push(runTaskFor(ensembleId, spec, i));
+    jobs.push({ jobIndex: j, runs });
+  }
+  return { ensembleId, spec, engineVersion: ENGINE_VERSION, jobs };
+}

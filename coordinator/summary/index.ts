@@ -1,0 +1,239 @@
+/**
+ * The ensemble summary: per-run tables and a plain least-squares fit of
+ * log R_g against log N, written as JSON, CSV or protobuf
+ * (EnsembleSummary of proto/tendril.proto). The same builder serves the farm
+ * and the embedded mode.
+ *
+ * The statistics library plugs in through `SummaryOptions.enrich`: it gets the
+ * deduplicated results in run-index order and the spec, and returns any
+ * JSON-serialisable object, which lands under "statistics" in the JSON and in
+ * `statistics_json` of the protobuf summary.
+ */
+import {
+  encodeEnsembleSummary,
+  type EnsembleSummaryData,
+  type PowerLawFitData,
+  type RunResultData,
+} from '../../proto/convert.js';
+import { ENGINE_VERSION } from '../../worker/engine-version.js';
+import { specToDocument, type EnsembleSpec, type Observable } from '../spec/index.js';
+
+export interface SummaryInput {
+  ensembleId: string;
+  spec: EnsembleSpec;
+  createdAtMs: number;
+  /** Results in any order; a run index present more than once is counted once (the first wins). */
+  results: Iterable<RunResultData>;
+}
+
+export type SummaryEnricher = (runs: RunResultData[], spec: EnsembleSpec) => unknown;
+
+export interface SummaryOptions {
+  enrich?: SummaryEnricher;
+  /** Smallest cluster size used in the R_g fit (default 100: the first decades are dominated by the seed). */
+  fitMinSize?: number;
+}
+
+/** Ordinary least squares of log y on log x over the points with x >= minX and x, y > 0. */
+export function logLogFit(xs: number[], ys: number[], minX = 0): PowerLawFitData | null {
+  let n = 0;
+  let sx = 0;
+  let sy = 0;
+  let sxx = 0;
+  let sxy = 0;
+  let syy = 0;
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (let i = 0; i < xs.length; i++) {
+    const x = xs[i];
+    const y = ys[i];
+    if (!(x >= minX && x > 0 && y > 0) || !Number.isFinite(y)) continue;
+    const lx = Math.log(x);
+    const ly = Math.log(y);
+    n++;
+    sx += lx;
+    sy += ly;
+    sxx += lx * lx;
+    sxy += lx * ly;
+    syy += ly * ly;
+    lo = Math.min(lo, x);
+    hi = Math.max(hi, x);
+  }
+  if (n < 2) return null;
+  const vx = sxx - (sx * sx) / n;
+  if (!(vx > 0)) return null;
+  const cxy = sxy - (sx * sy) / n;
+  const vy = syy - (sy * sy) / n;
+  const slope = cxy / vx;
+  const intercept = (sy - slope * sx) / n;
+  return {
+    exponent: slope,
+    prefactor: Math.exp(intercept),
+    rSquared: vy > 0 ? (cxy * cxy) / (vx * vy) : 1,
+    points: n,
+    minX: lo,
+    maxX: hi,
+  };
+}
+
+/** Deduplicate by run index (first wins) and sort by run index. */
+export function uniqueRuns(results: Iterable<RunResultData>): RunResultData[] {
+  const byIndex = new Map<number, RunResultData>();
+  for (const r of results) if (!byIndex.has(r.runIndex)) byIndex.set(r.runIndex, r);
+  return [...byIndex.values()].sort((a, b) => a.runIndex - b.runIndex);
+}
+
+export function buildSummary(input: SummaryInput, opts: SummaryOptions = {}): EnsembleSummaryData {
+  const runs = uniqueRuns(input.results);
+  // mean of log R_g over runs at each recorded size (all runs share the size grid)
+  const sums = new Map<number, { s: number; n: number }>();
+  for (const r of runs) {
+    const { sizes, radiusOfGyration } = r.series;
+    for (let i = 0; i < sizes.length; i++) {
+      if (!(radiusOfGyration[i] > 0)) continue;
+      const e = sums.get(sizes[i]) ?? { s: 0, n: 0 };
+      e.s += Math.log(radiusOfGyration[i]);
+      e.n++;
+      sums.set(sizes[i], e);
+    }
+  }
+  const meanSizes = [...sums.keys()].sort((a, b) => a - b);
+  const meanLog = meanSizes.map((n) => sums.get(n)!.s / sums.get(n)!.n);
+  const wantRg = input.spec.observables.includes('radius_of_gyration');
+  const fit = wantRg
+    ? logLogFit(
+        meanSizes,
+        meanLog.map((v) => Math.exp(v)),
+        opts.fitMinSize ?? 100,
+      )
+    : null;
+  const statistics = opts.enrich ? opts.enrich(runs, input.spec) : undefined;
+  return {
+    ensembleId: input.ensembleId,
+    name: input.spec.name,
+    engineVersion: ENGINE_VERSION,
+    specJson: JSON.stringify(specToDocument(input.spec)),
+    clustersPlanned: input.spec.clusters,
+    clustersDone: runs.length,
+    runs,
+    radiusOfGyrationFit: fit,
+    fractalDimension: fit && fit.exponent > 0 ? 1 / fit.exponent : null,
+    createdAtMs: input.createdAtMs,
+    meanSizes,
+    meanLogRadiusOfGyration: meanLog,
+    statisticsJson: statistics === undefined ? '' : JSON.stringify(statistics),
+  };
+}
+
+const SERIES_COLUMNS: Array<[Observable, keyof RunResultData['series']]> = [
+  ['radius_of_gyration', 'radiusOfGyration'],
+  ['max_radius', 'maxRadius'],
+  ['center_offset', 'centerOffset'],
+];
+
+function observablesOf(s: EnsembleSummaryData): Observable[] {
+  try {
+    return (JSON.parse(s.specJson) as { observables: Observable[] }).observables;
+  } catch {
+    return SERIES_COLUMNS.map(([o]) => o);
+  }
+}
+
+/** The summary as a JSON document (snake_case keys; only the spec's observables in the per-run tables). */
+export function summaryToJsonObject(s: EnsembleSummaryData): Record<string, unknown> {
+  const obs = observablesOf(s);
+  return {
+    ensemble_id: s.ensembleId,
+    name: s.name,
+    engine_version: s.engineVersion,
+    created_at: new Date(s.createdAtMs).toISOString(),
+    spec: JSON.parse(s.specJson),
+    clusters_planned: s.clustersPlanned,
+    clusters_done: s.clustersDone,
+    radius_of_gyration_fit: s.radiusOfGyrationFit && {
+      exponent: s.radiusOfGyrationFit.exponent,
+      prefactor: s.radiusOfGyrationFit.prefactor,
+      r_squared: s.radiusOfGyrationFit.rSquared,
+      points: s.radiusOfGyrationFit.points,
+      min_size: s.radiusOfGyrationFit.minX,
+      max_size: s.radiusOfGyrationFit.maxX,
+    },
+    fractal_dimension: s.fractalDimension,
+    mean_log_radius_of_gyration: s.meanSizes.map((n, i) => ({ size: n, mean_log_radius_of_gyration: s.meanLogRadiusOfGyration[i] })),
+    runs: s.runs.map((r) => {
+      const series: Record<string, number[]> = { sizes: r.series.sizes };
+      for (const [o, k] of SERIES_COLUMNS) if (obs.includes(o)) series[o] = r.series[k];
+      return {
+        run_index: r.runIndex,
+        particles: r.particles,
+        state_hash: r.stateHash,
+        counters: { jumps: r.counters.jumps, short_steps: r.counters.shortSteps, returns: r.counters.returns },
+        timings: {
+          grow_seconds: r.timings.growSeconds,
+          started_at: new Date(r.timings.startedAtMs).toISOString(),
+          finished_at: new Date(r.timings.finishedAtMs).toISOString(),
+          resumes: r.timings.resumes,
+          finished_by: r.timings.finishedBy,
+        },
+        series,
+        ...(obs.includes('mass_radius') ? { mass_radius: { radii: r.massRadius.radii, counts: r.massRadius.counts } } : {}),
+      };
+    }),
+    statistics: s.statisticsJson === '' ? null : JSON.parse(s.statisticsJson),
+  };
+}
+
+export function summaryToJson(s: EnsembleSummaryData): string {
+  return JSON.stringify(summaryToJsonObject(s), null, 2) + '\n';
+}
+
+/** One row per (run, recorded size): the per-run observable table in long format. */
+export function summaryToCsv(s: EnsembleSummaryData): string {
+  const obs = observablesOf(s);
+  const cols = SERIES_COLUMNS.filter(([o]) => obs.includes(o));
+  const lines = [['run_index', 'state_hash', 'size', ...cols.map(([o]) => o)].join(',')];
+  for (const r of s.runs) {
+    for (let i = 0; i < r.series.sizes.length; i++) {
+      lines.push([r.runIndex, r.stateHash, r.series.sizes[i], ...cols.map(([, k]) => num(r.series[k][i]))].join(','));
+    }
+  }
+  return lines.join('\n') + '\n';
+}
+
+/** The final mass–radius counts M(r), one row per (run, radius). */
+export function massRadiusToCsv(s: EnsembleSummaryData): string {
+  const lines = ['run_index,radius,count'];
+  for (const r of s.runs) for (let i = 0; i < r.massRadius.radii.length; i++) lines.push(`${r.runIndex},${num(r.massRadius.radii[i])},${r.massRadius.counts[i]}`);
+  return lines.join('\n') + '\n';
+}
+
+/** Per-run totals: one row per run. */
+export function runsToCsv(s: EnsembleSummaryData): string {
+  const lines = ['run_index,particles,state_hash,jumps,short_steps,returns,grow_seconds,resumes,finished_by'];
+  for (const r of s.runs) {
+    lines.push(
+      [r.runIndex, r.particles, r.stateHash, r.counters.jumps, r.counters.shortSteps, r.counters.returns, num(r.timings.growSeconds), r.timings.resumes, csvText(r.timings.finishedBy)].join(','),
+    );
+  }
+  return lines.join('\n') + '\n';
+}
+
+export function summaryToProtobuf(s: EnsembleSummaryData): Uint8Array {
+  return encodeEnsembleSummary(s);
+}
+
+export type SummaryFormat = 'json' | 'csv' | 'pb';
+export const SUMMARY_FORMATS: SummaryFormat[] = ['json', 'csv', 'pb'];
+
+export function renderSummary(s: EnsembleSummaryData, format: SummaryFormat): Uint8Array {
+  if (format === 'pb') return summaryToProtobuf(s);
+  return Buffer.from(format === 'json' ? summaryToJson(s) : summaryToCsv(s), 'utf8');
+}
+
+function num(v: number): string {
+  return Number.isFinite(v) ? String(v) : '';
+}
+
+function csvText(t: string): string {
+  return /[",\n]/.test(t) ? `"${t.replace(/"/g, '""')}"` : t;
+}

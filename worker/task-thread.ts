@@ -1,0 +1,242 @@
+/**
+ * Runs growth off the main thread. The main thread of a worker process (or
+ * of `tendril run`) keeps its event loop free for queue lock renewal, Redis,
+ * metrics and signals, while each worker thread runs one task at a time with
+ * worker/task-runner.ts.
+ *
+ * Messages (all payloads are protobuf bytes of proto/tendril.proto):
+ *   main -> thread  { type: 'run', id, task, checkpoint? }   start a run
+ *                   { type: 'stop', id }                      checkpoint and stop
+ *   thread -> main  { type: 'progress', id, count, particles, jumps }
+ *                   { type: 'checkpoint', id, bytes, count }  store it (no reply needed)
+ *                   { type: 'done', id, result }
+ *                   { type: 'stopped', id, checkpoint }
+ *                   { type: 'failed', id, message, rejected }
+ *
+ * This one file is both the pool (imported on the main thread) and the
+ * thread's entry point (when loaded as a Worker).
+ */
+import { isMainThread, parentPort, Worker } from 'node:worker_threads';
+import { existsSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import {
+  decodeCheckpoint,
+  decodeRunResult,
+  decodeRunTask,
+  encodeCheckpoint,
+  encodeRunResult,
+  encodeRunTask,
+  type CheckpointData,
+  type RunResultData,
+  type RunTaskData,
+} from '../proto/convert.js';
+import { runTask, type RunProgress } from './task-runner.js';
+
+type ToThread = { type: 'run'; id: number; task: Uint8Array; checkpoint?: Uint8Array; workerId: string } | { type: 'stop'; id: number };
+type FromThread =
+  | { type: 'progress'; id: number; count: number; particles: number; jumps: number }
+  | { type: 'checkpoint'; id: number; bytes: Uint8Array; count: number }
+  | { type: 'done'; id: number; result: Uint8Array }
+  | { type: 'stopped'; id: number; checkpoint: Uint8Array }
+  | { type: 'failed'; id: number; message: string; rejected: boolean };
+
+// ------------------------------------------------------------ thread side
+
+function threadMain(): void {
+  const port = parentPort!;
+  const stops = new Set<number>();
+  port.on('message', (m: ToThread) => {
+    if (m.type === 'stop') {
+      stops.add(m.id);
+      return;
+    }
+    void (async () => {
+      try {
+        const run = decodeRunTask(m.task);
+        const checkpoint = m.checkpoint ? decodeCheckpoint(m.checkpoint) : undefined;
+        let lastProgress = 0;
+        const outcome = await runTask(run, {
+          checkpoint,
+          workerId: m.workerId,
+          shouldStop: () => stops.has(m.id),
+          onProgress: (p: RunProgress) => {
+            const t = Date.now();
+            if (t - lastProgress < 250 && p.count < p.particles) return;
+            lastProgress = t;
+            port.postMessage({ type: 'progress', id: m.id, count: p.count, particles: p.particles, jumps: p.jumps } satisfies FromThread);
+          },
+          onCheckpoint: (c: CheckpointData) => {
+            const bytes = encodeCheckpoint(c).slice();
+            port.postMessage({ type: 'checkpoint', id: m.id, bytes, count: c.state.count } satisfies FromThread, [bytes.buffer]);
+          },
+        });
+        if (outcome.status === 'done') {
+          const result = encodeRunResult(outcome.result).slice();
+          port.postMessage({ type: 'done', id: m.id, result } satisfies FromThread, [result.buffer]);
+        } else {
+          const cp = encodeCheckpoint(outcome.checkpoint).slice();
+          port.postMessage({ type: 'stopped', id: m.id, checkpoint: cp } satisfies FromThread, [cp.buffer]);
+        }
+      } catch (err) {
+        const e = err as Error;
+        const rejected = e?.name === 'TaskRejected' || e?.name === 'ContractError';
+        port.postMessage({ type: 'failed', id: m.id, message: (e?.message ?? String(err)).split('\n')[0], rejected } satisfies FromThread);
+      } finally {
+        stops.delete(m.id);
+      }
+    })();
+  });
+}
+
+if (!isMainThread && parentPort) threadMain();
+
+// ------------------------------------------------------------ main side
+
+export interface ThreadRunHandlers {
+  /** Resume from this checkpoint (decoded, or protobuf bytes as stored). */
+  checkpoint?: CheckpointData | Uint8Array;
+  onProgress?: (p: RunProgress) => void;
+  /** Receives each checkpoint as protobuf bytes (store them). */
+  onCheckpoint?: (bytes: Uint8Array, count: number) => void;
+  workerId?: string;
+}
+
+export type ThreadOutcome =
+  | { status: 'done'; result: RunResultData; resultBytes: Uint8Array }
+  | { status: 'stopped'; checkpoint: Uint8Array }
+  | { status: 'failed'; message: string; rejected: boolean };
+
+/** A handle on a run in a thread. */
+export interface ThreadRun {
+  readonly outcome: Promise<ThreadOutcome>;
+  /** Ask the run to checkpoint and stop; `outcome` then resolves with status 'stopped' (or 'done' if it just finished). */
+  stop(): void;
+}
+
+interface Slot {
+  worker: Worker;
+  busy: boolean;
+}
+
+/** The compiled thread entry; under vitest (TypeScript sources) it points into dist/. */
+function threadEntry(): URL {
+  const here = fileURLToPath(import.meta.url);
+  if (here.endsWith('.ts')) {
+    const compiled = here.replace(/([\\/])worker([\\/])task-thread\.ts$/, '$1dist$1worker$2task-thread.js');
+    if (!existsSync(compiled)) throw new Error(`compiled thread entry ${compiled} is missing: run npm run build`);
+    return new URL(`file://${compiled}`);
+  }
+  return new URL(import.meta.url);
+}
+
+export class TaskThreadPool {
+  private readonly slots: Slot[] = [];
+  private readonly waiting: Array<() => void> = [];
+  private nextId = 1;
+  private closed = false;
+
+  constructor(readonly size: number) {
+    if (!Number.isInteger(size) || size < 1) throw new RangeError(`thread pool size ${size} must be an integer >= 1`);
+  }
+
+  private spawn(): Slot {
+    const worker = new Worker(threadEntry());
+    worker.unref();
+    const slot: Slot = { worker, busy: false };
+    this.slots.push(slot);
+    return slot;
+  }
+
+  private async acquire(): Promise<Slot> {
+    for (;;) {
+      if (this.closed) throw new Error('thread pool is closed');
+      const free = this.slots.find((s) => !s.busy);
+      if (free) return free;
+      if (this.slots.length < this.size) return this.spawn();
+      await new Promise<void>((resolve) => this.waiting.push(resolve));
+    }
+  }
+
+  private release(slot: Slot, broken: boolean): void {
+    slot.busy = false;
+    if (broken) {
+      this.slots.splice(this.slots.indexOf(slot), 1);
+      void slot.worker.terminate();
+    }
+    this.waiting.shift()?.();
+  }
+
+  /** Start a run as soon as a thread is free. */
+  run(task: RunTaskData, h: ThreadRunHandlers = {}): ThreadRun {
+    const id = this.nextId++;
+    let stopRequested = false;
+    let slotRef: Slot | undefined;
+    const outcome = (async (): Promise<ThreadOutcome> => {
+      const slot = await this.acquire();
+      slot.busy = true;
+      slotRef = slot;
+      return await new Promise<ThreadOutcome>((resolve) => {
+        const w = slot.worker;
+        const finish = (o: ThreadOutcome, broken: boolean) => {
+          w.off('message', onMessage);
+          w.off('error', onError);
+          w.off('exit', onExit);
+          this.release(slot, broken);
+          resolve(o);
+        };
+        const onMessage = (m: FromThread) => {
+          if (m.id !== id) return;
+          switch (m.type) {
+            case 'progress':
+              h.onProgress?.({ runIndex: task.runIndex, count: m.count, particles: m.particles, jumps: m.jumps });
+              break;
+            case 'checkpoint':
+              h.onCheckpoint?.(m.bytes, m.count);
+              break;
+            case 'done':
+              try {
+                finish({ status: 'done', result: decodeRunResult(m.result), resultBytes: m.result }, false);
+              } catch (err) {
+                finish({ status: 'failed', message: (err as Error).message, rejected: false }, false);
+              }
+              break;
+            case 'stopped':
+              finish({ status: 'stopped', checkpoint: m.checkpoint }, false);
+              break;
+            case 'failed':
+              finish({ status: 'failed', message: m.message, rejected: m.rejected }, false);
+              break;
+          }
+        };
+        const onError = (err: Error) => finish({ status: 'failed', message: `thread crashed: ${err.message.split('\n')[0]}`, rejected: false }, true);
+        const onExit = (code: number) => finish({ status: 'failed', message: `thread exited with code ${code}`, rejected: false }, true);
+        w.on('message', onMessage);
+        w.once('error', onError);
+        w.once('exit', onExit);
+        const msg: ToThread = {
+          type: 'run',
+          id,
+          task: encodeRunTask(task),
+          checkpoint: h.checkpoint instanceof Uint8Array ? h.checkpoint : h.checkpoint ? encodeCheckpoint(h.checkpoint) : undefined,
+          workerId: h.workerId ?? 'embedded',
+        };
+        w.postMessage(msg);
+        if (stopRequested) w.postMessage({ type: 'stop', id } satisfies ToThread);
+      });
+    })();
+    return {
+      outcome,
+      stop: () => {
+        stopRequested = true;
+        slotRef?.worker.postMessage({ type: 'stop', id } satisfies ToThread);
+      },
+    };
+  }
+
+  /** Terminate all threads (running runs are lost; stop them first to keep their checkpoints). */
+  async close(): Promise<void> {
+    this.closed = true;
+    for (const resolve of this.waiting.splice(0)) resolve();
+    await Promise.all(this.slots.splice(0).map((s) => s.worker.terminate()));
+  }
+}
