@@ -15,6 +15,7 @@ type Register = (program: Command) => void;
 
 const COMMANDS: Array<() => Promise<{ register: Register }>> = [
   () => import('./commands/grow.js'),
+  () => import('./commands/run.js'),
 ];
 
 export async function main(argv: string[]): Promise<number> {
