@@ -372,7 +372,7 @@ export function analyzeEnsemble(runs: readonly GrowthResult[], options: Analysis
   if (bootstrapOn) {
     const rng = bootstrapRandom(seedText);
     const counts = new Int32Array(k), drawn = new Int32Array(k), weights = new Float64Array(k);
-    const repTol = 1e-4;
+    const repTol = 1e-3; // in ln omega: 0.1%, far below any bootstrap spread of omega
     for (let b = 0; b < resamples; b++) {
       const used = drawResample(rng, counts, drawn, weights);
       for (const e of setups) {
@@ -387,7 +387,7 @@ export function analyzeEnsemble(runs: readonly GrowthResult[], options: Analysis
           e.localRep[j * resamples + b] = e.invert ? 1 / ls : ls;
         }
         if (e.corr) {
-          const f = e.corr.fitter.fit(e.scratch.subarray(e.corr.from, e.corr.to), repTol, 6, 2);
+          const f = e.corr.fitter.fit(e.scratch.subarray(e.corr.from, e.corr.to), repTol, 5, 2);
           e.corr.repD[b] = f.dimension; e.corr.repOmega[b] = f.omega; e.corr.repA[b] = f.amplitude;
           e.corr.repB[b] = f.correctionAmplitude; e.corr.repRel[b] = f.relativeCorrection;
         }
@@ -539,7 +539,7 @@ function summarizeCorrections(
         for (let r = a; r < b; r++) sum -= e.data.y[r * cols + s];
         m[s - c.from] = sum / (k - (b - a));
       }
-      const f = c.fitter.fit(m, 1e-4, 6, 2);
+      const f = c.fitter.fit(m, 1e-3, 5, 2);
       const v = [f.dimension, f.omega, f.amplitude, f.correctionAmplitude, f.relativeCorrection];
       for (let q = 0; q < names.length; q++) jack[q][gi] = v[q];
     }

@@ -6,8 +6,12 @@
  * statistic that is a function of cluster averages is a weighted average.
  *
  * Randomness: one generator, Random.forRun(seed, 0, STREAM_BOOTSTRAP), drawn
- * in a fixed order (replicate after replicate, K draws each with nextBelow),
- * so the same seed and the same clusters give the same replicates bit for bit.
+ * in a fixed order (replicate after replicate, K draws each), so the same
+ * seed and the same clusters give the same replicates bit for bit. A draw in
+ * [0, K) uses Lemire's unbiased multiply-and-reject method on one 32-bit word
+ * (Lemire 2019, ACM Trans. Model. Comput. Simul. 29, 3): index = floor(u K / 2^32),
+ * rejecting u when (u K mod 2^32) < (2^32 mod K); exact in doubles for K <= 2^21,
+ * beyond which Random.nextBelow is used.
  */
 
 import { Random, STREAM_BOOTSTRAP } from '../../worker/random.js';
@@ -26,7 +30,20 @@ export function bootstrapRandom(seed: string | number | bigint): Random {
 export function drawResample(rng: Random, counts: Int32Array, drawn: Int32Array, weights?: Float64Array): number {
   const k = counts.length;
   counts.fill(0);
-  for (let i = 0; i < k; i++) counts[rng.nextBelow(k)]++;
+  if (k <= 2097152) {
+    const threshold = 4294967296 % k;
+    for (let i = 0; i < k; i++) {
+      let m = rng.nextUint32() * k;
+      let hi = Math.floor(m * 2.3283064365386963e-10); // m / 2^32, exact
+      while (m - hi * 4294967296 < threshold) {
+        m = rng.nextUint32() * k;
+        hi = Math.floor(m * 2.3283064365386963e-10);
+      }
+      counts[hi]++;
+    }
+  } else {
+    for (let i = 0; i < k; i++) counts[rng.nextBelow(k)]++;
+  }
   let m = 0;
   if (weights) {
     for (let i = 0; i < k; i++) if (counts[i] !== 0) { drawn[m] = i; weights[m++] = counts[i]; }
