@@ -57,7 +57,9 @@ export class CellHashTable {
 
   /** Store value for (ix, iy), replacing any previous one. */
   set(ix: number, iy: number, value: number): void {
-    this.slots[this.slotFor(ix, iy) + 2] = value;
+    // slotFor may reallocate `slots`: find the slot before reading the field
+    const o = this.slotFor(ix, iy) + 2;
+    this.slots[o] = value;
   }
 
   /** Bitwise-or `bits` into the value of (ix, iy) (absent cells count as 0); returns the old value. */

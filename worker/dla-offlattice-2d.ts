@@ -62,6 +62,7 @@ import { returnToCircle, returned } from './poisson-return-2d.js';
 import { Random, STREAM_GROWTH } from './random.js';
 import { countWithin, massRadiusRadii, recordSizes } from './record-sizes.js';
 import { StateHasher } from './state-hash.js';
+import { direction, sampleDirection } from './uniform-direction.js';
 import { canonicalJson } from './canonical-json.js';
 
 export const DEFAULT_DLA_OFFLATTICE_2D: OffLatticeDla2dParams = {
@@ -113,7 +114,7 @@ export class OffLatticeDla2d implements GrowthKernel {
     this.launchMargin = m.launchMargin;
     this.x = new Float64Array(task.particles);
     this.y = new Float64Array(task.particles);
-    this.index = new OccupancyIndex2d(this.x, this.y, task.particles);
+    this.index = new OccupancyIndex2d(task.particles);
     this.sizes = recordSizes(task.particles, task.recordsPerDecade);
     if (checkpoint === undefined) {
       this.rng = Random.forRun(task.ensembleSeed, task.runIndex, STREAM_GROWTH);
@@ -196,8 +197,6 @@ export class OffLatticeDla2d implements GrowthKernel {
   private addParticle(): void {
     const rng = this.rng;
     const index = this.index;
-    const xs = this.x;
-    const ys = this.y;
     const minStep = this.minStep;
     const rMax = this.rMax;
     const launch = rMax + 1 + this.launchMargin;
@@ -206,15 +205,10 @@ export class OffLatticeDla2d implements GrowthKernel {
     let shortSteps = 0;
     let returns = 0;
 
-    // uniform point on the launch circle (polar method: no trigonometry)
-    let u: number, v: number, s: number;
-    do {
-      u = 2 * rng.nextOpen32() - 1;
-      v = 2 * rng.nextOpen32() - 1;
-      s = u * u + v * v;
-    } while (s >= 1);
-    let wx = (launch * (u * u - v * v)) / s;
-    let wy = (launch * (2 * u * v)) / s;
+    // uniform point on the launch circle
+    sampleDirection(rng);
+    let wx = launch * direction.x;
+    let wy = launch * direction.y;
 
     for (;;) {
       let r2 = wx * wx + wy * wy;
@@ -225,17 +219,15 @@ export class OffLatticeDla2d implements GrowthKernel {
         r2 = launch2;
         returns++;
       }
-      let d = index.freeRadius(wx, wy);
-      const byRadius = Math.sqrt(r2) - rMax - 1;
-      if (byRadius > d) d = byRadius;
+      index.query(wx, wy);
+      let d = index.free;
+      // the disk of radius r − R_max − 1 around the walker is free too
+      const reach = rMax + 1 + d;
+      if (r2 > reach * reach) d = Math.sqrt(r2) - rMax - 1;
 
-      do {
-        u = 2 * rng.nextOpen32() - 1;
-        v = 2 * rng.nextOpen32() - 1;
-        s = u * u + v * v;
-      } while (s >= 1);
-      const cx = (u * u - v * v) / s;
-      const cy = (2 * u * v) / s;
+      sampleDirection(rng);
+      const cx = direction.x;
+      const cy = direction.y;
 
       if (d >= minStep) {
         // walk-on-spheres: exact exit point of the free disk of radius d
@@ -246,16 +238,16 @@ export class OffLatticeDla2d implements GrowthKernel {
       }
 
       // Final approach: straight step of length minStep, stopping at the
-      // first contact. Every centre within 1 + minStep is in index.near
+      // first contact. Every centre within 1 + minStep is in index.nearX/Y
       // (d < minStep <= 1 means the exact scan answered).
-      const near = index.near;
+      const nearX = index.nearX;
+      const nearY = index.nearY;
       const nearCount = index.nearCount;
       let tHit = minStep;
       let hit = -1;
       for (let j = 0; j < nearCount; j++) {
-        const p = near[j];
-        const qx = wx - xs[p];
-        const qy = wy - ys[p];
+        const qx = wx - nearX[j];
+        const qy = wy - nearY[j];
         const b = qx * cx + qy * cy;
         if (b >= 0) continue; // moving away from p
         const c = qx * qx + qy * qy - 1;
@@ -265,7 +257,7 @@ export class OffLatticeDla2d implements GrowthKernel {
         if (t < 0) t = 0; // already in contact up to rounding
         if (t < tHit) {
           tHit = t;
-          hit = p;
+          hit = j;
         }
       }
       shortSteps++;
@@ -305,7 +297,7 @@ export class OffLatticeDla2d implements GrowthKernel {
     const i = this.n;
     this.x[i] = px;
     this.y[i] = py;
-    this.index.insert(i);
+    this.index.insert(px, py);
     this.n = i + 1;
     const r2 = px * px + py * py;
     const r = Math.sqrt(r2);

@@ -4,33 +4,42 @@
  * can move in any direction before it touches a disk, i.e. on
  * (distance from the walker to the nearest particle centre) − 1.
  *
- * Levels (all cell sizes are powers of two, so cell coordinates
- * floor(x · 2^-k) are computed exactly in floating point):
- *  - level 0 lists: cells of side 2; each stored cell holds a linked list of
- *    the particles whose centres lie in it (newest first). When the walker's
- *    level-0 cell is marked (a centre within the 3×3 block around it), that
- *    block is scanned exactly.
- *  - marks at every level k ≥ 0: cells of side 2^(k+1) (level 0's cells are
- *    the same as the lists' cells); a cell is *marked* when a particle
- *    centre lies in it or in one of its 8 neighbours. If the walker's cell is
- *    unmarked, no centre lies within the 3×3 block, so the nearest centre is
- *    at least (side + distance from the walker to its own cell's edge) away.
- *    Marks are monotone in k (an unmarked cell's children are unmarked), so
- *    the largest unmarked level is unique and the query result does not
- *    depend on where the search starts.
- * Every level is a sparse tiled grid (worker/tiled-grid.ts): memory grows
- * with the number of particles, not with the area.
+ * All cell sides are powers of two, so cell coordinates floor(x · 2^-(k+1))
+ * are computed exactly in floating point.
+ *  - Buckets (level 0, cells of side 2): each occupied cell points to a chain
+ *    of buckets, each holding up to 4 centres' coordinates inline (one cache
+ *    line), in arrival order. When the walker's level-0 cell is marked, the
+ *    3 × 3 block of cells around it is scanned exactly.
+ *  - Marks at every level k = 0 … MAX_LEVEL, cells of side 2^(k+1): a cell is
+ *    *marked* when a particle centre lies in the (2·DILATION + 1)² block of
+ *    cells centred on it. If the walker's cell is unmarked, the nearest
+ *    centre is at least DILATION · side + (distance from the walker to its
+ *    own cell's edge) away. Marks are monotone in k (an unmarked cell's
+ *    children are unmarked), so the largest unmarked level is unique and the
+ *    query result does not depend on where the search starts — which keeps
+ *    results independent of the order of queries, and so of checkpoints.
+ * Every grid is sparse (worker/tiled-grids.ts): memory grows with the number
+ * of particles, not with the area.
  */
 
-import { TiledGrid } from './tiled-grid.js';
+import { TiledByteGrid, TiledInt32Grid } from './tiled-grids.js';
 
 /** Mark levels 0..MAX_LEVEL; the coarsest cell has side 2^(MAX_LEVEL+1) = 2^25 diameters. */
 const MAX_LEVEL = 24;
-/** Bit in a level-k cell value: the cell or a neighbour holds a centre. */
+/** Bit in a mark cell: a centre lies in the block centred on the cell. */
 const MARKED = 1;
-/** Bit in a level-k cell value: the cell itself holds a centre. */
+/** Bit in a mark cell: the cell itself holds a centre. */
 const HOLDS = 2;
-const MAX_NEAR = 512;
+/**
+ * Marks extend this many cells around a centre's cell at every level (a
+ * 5 × 5 block). Wider marks give longer jumps per query but send more
+ * queries to the exact scan; 2 was fastest when measured against 1 and 3.
+ */
+const DILATION = 2;
+/** Centres per bucket. */
+const BUCKET = 4;
+/** At most this many centres are returned by a scan (a 6 × 6 block holds far fewer unit disks). */
+const MAX_NEAR = 256;
 /** SCALES[k] = 1 / (cell side at level k) = 2^-(k+1); SIDES[k] = 2^(k+1). */
 const SCALES = new Float64Array(MAX_LEVEL + 2);
 const SIDES = new Float64Array(MAX_LEVEL + 2);
@@ -40,94 +49,124 @@ for (let k = 0; k <= MAX_LEVEL + 1; k++) {
 }
 
 export class OccupancyIndex2d {
-  /** Particles gathered by the last exact scan (valid when nearCount >= 0). */
-  readonly near = new Int32Array(MAX_NEAR);
-  /** Number of entries in `near`, or -1 when the last query did not scan exactly. */
+  /** Centres found by the last exact scan (valid when nearCount >= 0): every centre within 2 of the walker. */
+  readonly nearX = new Float64Array(MAX_NEAR);
+  readonly nearY = new Float64Array(MAX_NEAR);
+  /** Number of entries in nearX/nearY, or -1 when the last query did not scan exactly. */
   nearCount = -1;
+  /** Result of the last `query`: a lower bound on (nearest centre distance) − 1. */
+  free = 0;
 
-  private readonly fine: TiledGrid;
-  /** marks[k]: marked cells of side 2^(k+1), k = 0..MAX_LEVEL. */
-  private readonly marks: TiledGrid[] = [];
-  private next: Int32Array;
+  /** Level-0 cell → newest bucket of its chain (-1: none). */
+  private readonly heads: TiledInt32Grid;
+  /** Bucket b holds coordinates at [8b, 8b + 2·fill[b]) as x, y pairs. */
+  private coords: Float64Array;
+  private fill: Uint8Array;
+  private chain: Int32Array;
+  private buckets = 0;
+  /** marks[k]: mark cells of side 2^(k+1), k = 0..MAX_LEVEL. */
+  private readonly marks: TiledByteGrid[] = [];
   /** Level at which the next search starts (a speed hint only). */
   private guess = 1;
+  private count = 0;
 
-  constructor(
-    private x: Float64Array,
-    private y: Float64Array,
-    expectedParticles: number,
-  ) {
-    this.next = new Int32Array(Math.max(16, expectedParticles));
-    this.fine = new TiledGrid(-1, Math.max(64, expectedParticles >> 5));
-    let expect = Math.max(64, expectedParticles >> 3);
+  constructor(expectedParticles: number) {
+    const expectBuckets = Math.max(64, expectedParticles >> 1);
+    this.coords = new Float64Array(expectBuckets * 2 * BUCKET);
+    this.fill = new Uint8Array(expectBuckets);
+    this.chain = new Int32Array(expectBuckets);
+    this.heads = new TiledInt32Grid(-1, Math.max(16, expectedParticles >> 6));
+    let expect = Math.max(16, expectedParticles >> 5);
     for (let k = 0; k <= MAX_LEVEL; k++) {
-      this.marks.push(new TiledGrid(0, Math.max(4, expect)));
+      this.marks.push(new TiledByteGrid(Math.max(4, expect)));
       expect = expect >> 2;
     }
   }
 
+  /** Number of centres inserted. */
+  get size(): number {
+    return this.count;
+  }
+
   /** Bytes held by the index. */
   get bytes(): number {
-    let b = this.fine.bytes + this.next.byteLength;
+    let b = this.heads.bytes + this.coords.byteLength + this.fill.byteLength + this.chain.byteLength;
     for (const t of this.marks) b += t.bytes;
     return b;
   }
 
-  /** Point the index at (possibly reallocated) coordinate arrays holding the same particles. */
-  rebind(x: Float64Array, y: Float64Array): void {
-    this.x = x;
-    this.y = y;
-  }
-
-  /** Add particle i (centre x[i], y[i]). Particles must be inserted in arrival order. */
-  insert(i: number): void {
-    if (i >= this.next.length) {
-      const bigger = new Int32Array(Math.max(i + 1, this.next.length * 2));
-      bigger.set(this.next);
-      this.next = bigger;
-    }
-    const px = this.x[i];
-    const py = this.y[i];
+  /** Add a centre. Insert in arrival order: scans return centres in that order. */
+  insert(px: number, py: number): void {
+    this.count++;
     const cx = Math.floor(px * 0.5);
     const cy = Math.floor(py * 0.5);
-    this.next[i] = this.fine.get(cx, cy);
-    this.fine.set(cx, cy, i);
+    let b = this.heads.get(cx, cy);
+    if (b < 0 || this.fill[b] === BUCKET) {
+      const nb = this.newBucket();
+      this.chain[nb] = b;
+      this.heads.set(cx, cy, nb);
+      b = nb;
+    }
+    const slot = 8 * b + 2 * this.fill[b];
+    this.coords[slot] = px;
+    this.coords[slot + 1] = py;
+    this.fill[b]++;
+
     let scale = 0.5;
     for (let k = 0; k <= MAX_LEVEL; k++, scale *= 0.5) {
       const t = this.marks[k];
       const ix = Math.floor(px * scale);
       const iy = Math.floor(py * scale);
       const old = t.orBits(ix, iy, MARKED | HOLDS);
-      // A cell that already holds a centre has its neighbours marked, and so
-      // does every coarser cell containing it: nothing left to do.
+      // A cell that already holds a centre has its block marked, and so does
+      // every coarser cell containing it: nothing left to do.
       if ((old & HOLDS) !== 0) break;
-      t.orBits(ix - 1, iy - 1, MARKED);
-      t.orBits(ix, iy - 1, MARKED);
-      t.orBits(ix + 1, iy - 1, MARKED);
-      t.orBits(ix - 1, iy, MARKED);
-      t.orBits(ix + 1, iy, MARKED);
-      t.orBits(ix - 1, iy + 1, MARKED);
-      t.orBits(ix, iy + 1, MARKED);
-      t.orBits(ix + 1, iy + 1, MARKED);
+      for (let dy = -DILATION; dy <= DILATION; dy++)
+        for (let dx = -DILATION; dx <= DILATION; dx++) if (dx !== 0 || dy !== 0) t.orBits(ix + dx, iy + dy, MARKED);
     }
   }
 
-  /**
-   * Lower bound on (distance from (wx, wy) to the nearest particle centre) − 1,
-   * exact when that distance is below 2 + (distance to the level-0 cell edge).
-   * When the answer comes from the exact scan, the particles of the scanned
-   * 3×3 level-0 block (every centre within distance 2 of the walker) are left
-   * in `near[0 .. nearCount)`; otherwise nearCount = -1.
-   */
+  private newBucket(): number {
+    const b = this.buckets++;
+    if (b >= this.fill.length) {
+      const cap = this.fill.length * 2;
+      const coords = new Float64Array(cap * 2 * BUCKET);
+      coords.set(this.coords);
+      this.coords = coords;
+      const fill = new Uint8Array(cap);
+      fill.set(this.fill);
+      this.fill = fill;
+      const chain = new Int32Array(cap);
+      chain.set(this.chain);
+      this.chain = chain;
+    }
+    return b;
+  }
+
+  /** Lower bound on (distance from (wx, wy) to the nearest centre) − 1; see `query`. */
   freeRadius(wx: number, wy: number): number {
+    this.query(wx, wy);
+    return this.free;
+  }
+
+  /**
+   * Sets `free` to a lower bound on (distance from (wx, wy) to the nearest
+   * centre) − 1, exact when that distance is below 2 + (distance to the edge
+   * of the walker's level-0 cell). When the answer comes from the exact
+   * scan, the centres of the scanned 3 × 3 block of level-0 cells (which
+   * include every centre within distance 2 of the walker) are left in
+   * nearX/nearY[0 .. nearCount); otherwise nearCount = -1.
+   */
+  query(wx: number, wy: number): void {
     let k = this.guess;
     if (this.isMarked(k, wx, wy)) {
       while (k > 0 && this.isMarked(k - 1, wx, wy)) k--;
       if (k === 0) {
         this.guess = 0;
-        return this.exactScan(wx, wy);
+        this.exactScan(wx, wy);
+        return;
       }
-      k--; // level k-1 is the largest unmarked one
+      k--; // level k − 1 is the largest unmarked one
     } else {
       while (k < MAX_LEVEL && !this.isMarked(k + 1, wx, wy)) k++;
     }
@@ -138,7 +177,7 @@ export class OccupancyIndex2d {
     const ex = wx - Math.floor(wx * inv) * side;
     const ey = wy - Math.floor(wy * inv) * side;
     const edge = Math.min(ex, side - ex, ey, side - ey);
-    return side + edge - 1;
+    this.free = DILATION * side + edge - 1;
   }
 
   private isMarked(k: number, wx: number, wy: number): boolean {
@@ -146,38 +185,36 @@ export class OccupancyIndex2d {
     return (this.marks[k].get(Math.floor(wx * scale), Math.floor(wy * scale)) & MARKED) !== 0;
   }
 
-  private exactScan(wx: number, wy: number): number {
+  private exactScan(wx: number, wy: number): void {
     const cx = Math.floor(wx * 0.5);
     const cy = Math.floor(wy * 0.5);
-    const xs = this.x;
-    const ys = this.y;
-    const next = this.next;
-    const near = this.near;
-    const fine = this.fine;
-    const pool = fine.pool;
+    const heads = this.heads;
+    const coords = this.coords;
+    const fill = this.fill;
+    const chain = this.chain;
+    const nearX = this.nearX;
+    const nearY = this.nearY;
     let n = 0;
     let best = Infinity;
-    // three rows of three cells; a row's cells share a tile unless cx−1 and
-    // cx+1 straddle a tile edge
     for (let iy = cy - 1; iy <= cy + 1; iy++) {
-      const ty = iy >> 3;
-      const rowOffset = (iy & 7) << 3;
-      let tx = (cx - 1) >> 3;
-      let base = fine.tileBase(tx, ty);
       for (let ix = cx - 1; ix <= cx + 1; ix++) {
-        if (ix >> 3 !== tx) {
-          tx = ix >> 3;
-          base = fine.tileBase(tx, ty);
-        }
-        if (base < 0) continue;
-        let p = pool[base + rowOffset + (ix & 7)];
-        while (p >= 0) {
-          const ddx = xs[p] - wx;
-          const ddy = ys[p] - wy;
-          const d2 = ddx * ddx + ddy * ddy;
-          if (d2 < best) best = d2;
-          if (n < MAX_NEAR) near[n++] = p;
-          p = next[p];
+        let b = heads.get(ix, iy);
+        while (b >= 0) {
+          const end = 8 * b + 2 * fill[b];
+          for (let o = 8 * b; o < end; o += 2) {
+            const px = coords[o];
+            const py = coords[o + 1];
+            const ddx = px - wx;
+            const ddy = py - wy;
+            const d2 = ddx * ddx + ddy * ddy;
+            if (d2 < best) best = d2;
+            if (n < MAX_NEAR) {
+              nearX[n] = px;
+              nearY[n] = py;
+              n++;
+            }
+          }
+          b = chain[b];
         }
       }
     }
@@ -186,6 +223,6 @@ export class OccupancyIndex2d {
     const ey = wy - cy * 2;
     const reach = 2 + Math.min(ex, 2 - ex, ey, 2 - ey);
     const nearest = Math.sqrt(best);
-    return (nearest < reach ? nearest : reach) - 1;
+    this.free = (nearest < reach ? nearest : reach) - 1;
   }
 }

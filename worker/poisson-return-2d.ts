@@ -30,10 +30,10 @@ export function returnToCircle(x: number, y: number, radius: number, rng: Random
   const k = (1 - rho) / (1 + rho);
   let u: number, v: number, s: number;
   do {
-    u = 2 * rng.nextOpen32() - 1;
-    v = 2 * rng.nextOpen32() - 1;
+    u = rng.nextSigned();
+    v = rng.nextSigned();
     s = u * u + v * v;
-  } while (s >= 1);
+  } while (s >= 1 || u === 0);
   const kv = k * v;
   const den = u * u + kv * kv;
   const c = (u * u - kv * kv) / den;

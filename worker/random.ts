@@ -109,6 +109,11 @@ export class Random {
     return ((this.nextInt32() >>> 0) + 0.5) * 2.3283064365386963e-10; // 2^-32
   }
 
+  /** Uniform double in [−1, 1) on the grid of multiples of 2^-31 (one 32-bit draw). */
+  nextSigned(): number {
+    return this.nextInt32() * 4.656612873077393e-10; // 2^-31
+  }
+
   /** Uniform integer in [0, n) for 1 <= n <= 2^32, without modulo bias (Lemire-style rejection). */
   nextBelow(n: number): number {
     if (!(n >= 1 && n <= 4294967296)) throw new RangeError(`nextBelow(${n}) needs 1 <= n <= 2^32`);

@@ -1,0 +1,87 @@
+import { describe, expect, it } from 'vitest';
+import { OccupancyIndex2d } from '../worker/occupancy-index-2d.js';
+import { Random } from '../worker/random.js';
+
+// The index must give a lower bound on (nearest-centre distance) − 1
+// everywhere, be exact close to the cluster, and list every centre within 2
+// of the walker when it scans. Checked against brute force (common practice,
+// no source).
+function randomCluster(n: number, spread: number, rng: Random): { x: number[]; y: number[] } {
+  const x: number[] = [0];
+  const y: number[] = [0];
+  // a random aggregate: each new disk touches a random earlier one without overlap
+  while (x.length < n) {
+    const j = rng.nextBelow(x.length);
+    const a = 2 * Math.PI * rng.nextDouble();
+    const px = x[j] + Math.cos(a);
+    const py = y[j] + Math.sin(a);
+    if (Math.hypot(px, py) > spread) continue;
+    let ok = true;
+    for (let i = 0; i < x.length; i++) if ((x[i] - px) ** 2 + (y[i] - py) ** 2 < 1 - 1e-12) { ok = false; break; }
+    if (ok) { x.push(px); y.push(py); }
+  }
+  return { x, y };
+}
+
+describe('OccupancyIndex2d', () => {
+  it('bounds the free radius from below everywhere and is exact near the cluster', () => {
+    const rng = Random.forRun(99, 0);
+    const { x, y } = randomCluster(1500, 60, rng);
+    const index = new OccupancyIndex2d(16);
+    for (let i = 0; i < x.length; i++) index.insert(x[i], y[i]);
+    let exactChecks = 0;
+    for (let q = 0; q < 6000; q++) {
+      // half the probes uniform over a wide box, half within 3 of a random disk
+      const j = rng.nextBelow(x.length);
+      const near = q % 2 === 0;
+      const wx = near ? x[j] + (rng.nextDouble() - 0.5) * 6 : (rng.nextDouble() - 0.5) * 200;
+      const wy = near ? y[j] + (rng.nextDouble() - 0.5) * 6 : (rng.nextDouble() - 0.5) * 200;
+      let best = Infinity;
+      for (let i = 0; i < x.length; i++) best = Math.min(best, Math.hypot(x[i] - wx, y[i] - wy));
+      if (best < 1) continue; // inside a disk: not a walker position
+      index.query(wx, wy);
+      expect(index.free).toBeLessThanOrEqual(best - 1 + 1e-12);
+      if (best < 2) {
+        expect(index.nearCount).toBeGreaterThanOrEqual(0);
+        expect(index.free).toBeCloseTo(best - 1, 12);
+        // every centre within 2 is listed
+        const listed = new Set<string>();
+        for (let j = 0; j < index.nearCount; j++) listed.add(`${index.nearX[j]},${index.nearY[j]}`);
+        for (let i = 0; i < x.length; i++) if (Math.hypot(x[i] - wx, y[i] - wy) <= 2) expect(listed.has(`${x[i]},${y[i]}`)).toBe(true);
+        exactChecks++;
+      }
+    }
+    expect(exactChecks).toBeGreaterThan(100);
+  });
+
+  it('gives the same answer whatever the order of queries (no hidden state in results)', () => {
+    const rng = Random.forRun(5, 1);
+    const { x, y } = randomCluster(800, 40, rng);
+    const a = new OccupancyIndex2d(16);
+    const b = new OccupancyIndex2d(16);
+    for (let i = 0; i < x.length; i++) { a.insert(x[i], y[i]); b.insert(x[i], y[i]); }
+    const pts = Array.from({ length: 2000 }, () => [(rng.nextDouble() - 0.5) * 300, (rng.nextDouble() - 0.5) * 300]);
+    const fa = pts.map(([px, py]) => a.freeRadius(px, py));
+    const fb = [...pts].reverse().map(([px, py]) => b.freeRadius(px, py)).reverse();
+    expect(fb).toEqual(fa);
+  });
+
+  it('grows with the number of particles, not with the area spanned', () => {
+    // 2000 disks on a square lattice of spacing `gap`: the area spanned grows
+    // as gap², the index must not (it may grow with log(gap): one mark tile
+    // per disk and level until the levels merge).
+    const make = (gap: number) => {
+      const idx = new OccupancyIndex2d(16);
+      for (let i = 0; i < 2000; i++) idx.insert((i % 45) * gap, Math.floor(i / 45) * gap);
+      return idx.bytes;
+    };
+    const wide = make(10000);
+    const spannedCells = ((45 * 10000) / 2) ** 2; // level-0 cells a dense grid would need
+    expect(wide).toBeLessThan(2000 * 8192); // a few kB per disk
+    expect(wide).toBeLessThan(spannedCells / 100);
+    // doubling the particle count at the same spacing roughly doubles memory
+    const idx = new OccupancyIndex2d(16);
+    for (let i = 0; i < 4000; i++) idx.insert((i % 45) * 10000, Math.floor(i / 45) * 10000);
+    expect(idx.bytes).toBeLessThan(3 * wide);
+  });
+});

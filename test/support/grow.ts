@@ -1,0 +1,23 @@
+import type { GrowthResult, GrowthTask, OffLatticeDla2dParams } from '../../worker/growth-kernel.js';
+import { createKernel, defaultModelParams } from '../../worker/models.js';
+
+export function dlaTask(particles: number, runIndex = 0, seed = '1', model: Partial<OffLatticeDla2dParams> = {}): GrowthTask {
+  return {
+    model: { ...(defaultModelParams('dla-offlattice-2d') as OffLatticeDla2dParams), ...model },
+    particles,
+    ensembleSeed: seed,
+    runIndex,
+    recordsPerDecade: 20,
+  };
+}
+
+export function growResult(task: GrowthTask): GrowthResult {
+  const k = createKernel(task);
+  k.growTo(task.particles);
+  return k.result();
+}
+
+/** Radius of gyration at the final size. */
+export function finalRg(r: GrowthResult): number {
+  return r.series.radiusOfGyration[r.series.radiusOfGyration.length - 1];
+}

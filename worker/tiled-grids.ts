@@ -1,0 +1,79 @@
+/**
+ * Sparse 2D grids on a TileDirectory (worker/tile-directory.ts): int32 cell
+ * values (list heads) and byte cell values (occupancy marks). Each pool is
+ * one typed array with 64 cells per tile, grown by doubling.
+ */
+
+import { TILE_CELLS, TILE_SHIFT, TileDirectory, cellInTile } from './tile-directory.js';
+
+export class TiledInt32Grid {
+  readonly dir: TileDirectory;
+  /** Cell values, 64 per tile (re-read after a write: it may be reallocated). */
+  pool: Int32Array;
+
+  /** `blank` is the value of a cell never written. */
+  constructor(
+    private readonly blank: number,
+    expectedTiles: number,
+  ) {
+    this.dir = new TileDirectory(expectedTiles);
+    this.pool = new Int32Array(Math.max(4, expectedTiles) * TILE_CELLS).fill(blank);
+  }
+
+  get bytes(): number {
+    return this.pool.byteLength + this.dir.bytes;
+  }
+
+  get(ix: number, iy: number): number {
+    const t = this.dir.find(ix >> TILE_SHIFT, iy >> TILE_SHIFT);
+    return t < 0 ? this.blank : this.pool[t * TILE_CELLS + cellInTile(ix, iy)];
+  }
+
+  set(ix: number, iy: number, value: number): void {
+    const t = this.dir.findOrAdd(ix >> TILE_SHIFT, iy >> TILE_SHIFT);
+    if ((t + 1) * TILE_CELLS > this.pool.length) {
+      const bigger = new Int32Array(this.pool.length * 2).fill(this.blank);
+      bigger.set(this.pool);
+      this.pool = bigger;
+    }
+    this.pool[t * TILE_CELLS + cellInTile(ix, iy)] = value;
+  }
+}
+
+export class TiledByteGrid {
+  readonly dir: TileDirectory;
+  /** Cell values, 64 per tile (one cache line); never-written cells are 0. */
+  pool: Uint8Array;
+
+  constructor(expectedTiles: number) {
+    this.dir = new TileDirectory(expectedTiles);
+    this.pool = new Uint8Array(Math.max(4, expectedTiles) * TILE_CELLS);
+  }
+
+  get bytes(): number {
+    return this.pool.byteLength + this.dir.bytes;
+  }
+
+  get tileCount(): number {
+    return this.dir.count;
+  }
+
+  get(ix: number, iy: number): number {
+    const t = this.dir.find(ix >> TILE_SHIFT, iy >> TILE_SHIFT);
+    return t < 0 ? 0 : this.pool[t * TILE_CELLS + cellInTile(ix, iy)];
+  }
+
+  /** Or `bits` into cell (ix, iy); returns the old value. */
+  orBits(ix: number, iy: number, bits: number): number {
+    const t = this.dir.findOrAdd(ix >> TILE_SHIFT, iy >> TILE_SHIFT);
+    if ((t + 1) * TILE_CELLS > this.pool.length) {
+      const bigger = new Uint8Array(this.pool.length * 2);
+      bigger.set(this.pool);
+      this.pool = bigger;
+    }
+    const o = t * TILE_CELLS + cellInTile(ix, iy);
+    const old = this.pool[o];
+    this.pool[o] = old | bits;
+    return old;
+  }
+}
