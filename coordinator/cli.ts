@@ -16,6 +16,10 @@ type Register = (program: Command) => void;
 const COMMANDS: Array<() => Promise<{ register: Register }>> = [
   () => import('./commands/grow.js'),
   () => import('./commands/run.js'),
+  () => import('./commands/launch.js'),
+  () => import('./commands/ensembles.js'),
+  () => import('./commands/watch.js'),
+  () => import('./commands/worker.js'),
 ];
 
 export async function main(argv: string[]): Promise<number> {

@@ -1,0 +1,62 @@
+/** Options and connections shared by the commands that talk to the farm (Redis). */
+import type { Command } from 'commander';
+import type { Queue } from 'bullmq';
+import type { Redis } from 'ioredis';
+import { connectRedis, DEFAULT_PREFIX, EnsembleStore } from '../farm/store.js';
+import { runQueue } from '../farm/queue.js';
+import { UsageError } from '../usage-error.js';
+
+export interface FarmCliOptions {
+  redis?: string;
+  prefix?: string;
+}
+
+export function addFarmOptions(cmd: Command): Command {
+  return cmd
+    .option('--redis <url>', 'Redis URL, e.g. redis://:password@host:6379/0 or rediss://... (default: REDIS_URL or redis://127.0.0.1:6379)')
+    .option('--prefix <name>', 'key prefix of this farm in Redis (default: TENDRIL_PREFIX or "tendril")');
+}
+
+export interface Farm {
+  redis: Redis;
+  store: EnsembleStore;
+  queue: Queue;
+  prefix: string;
+  close(): Promise<void>;
+}
+
+export function farmSettings(o: FarmCliOptions): { url: string; prefix: string } {
+  const url = o.redis ?? process.env.REDIS_URL ?? 'redis://127.0.0.1:6379';
+  if (!/^rediss?:\/\//.test(url)) throw new UsageError(`--redis: "${url}" is not allowed; allowed: a redis:// or rediss:// URL`);
+  const prefix = o.prefix ?? process.env.TENDRIL_PREFIX ?? DEFAULT_PREFIX;
+  if (!/^[A-Za-z0-9_.-]{1,64}$/.test(prefix)) throw new UsageError(`--prefix: "${prefix}" is not allowed; allowed: 1 to 64 letters, digits, _ . -`);
+  return { url, prefix };
+}
+
+/** Connect to Redis (failing with one line after a few seconds if it does not answer). */
+export async function openFarm(o: FarmCliOptions): Promise<Farm> {
+  const { url, prefix } = farmSettings(o);
+  const redis = connectRedis(url, { lazy: true });
+  redis.on('error', () => undefined);
+  try {
+    await Promise.race([
+      redis.connect(),
+      new Promise((_, reject) => setTimeout(() => reject(new Error('no answer within 5 s')), 5000).unref()),
+    ]);
+  } catch (err) {
+    redis.disconnect();
+    throw new UsageError(`--redis: cannot reach ${url.replace(/\/\/[^@]*@/, '//***@')}: ${(err as Error).message.split('\n')[0]}`);
+  }
+  const store = new EnsembleStore(redis, prefix);
+  const queue = runQueue(redis, prefix);
+  return {
+    redis,
+    store,
+    queue,
+    prefix,
+    close: async () => {
+      await queue.close();
+      redis.disconnect();
+    },
+  };
+}

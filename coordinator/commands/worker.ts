@@ -1,0 +1,80 @@
+/**
+ * `tendril worker`: serve the farm's run queue with one job per core (worker
+ * threads), checkpointing to the artifact directory. SIGTERM/SIGINT:
+ * checkpoint active runs, hand them back to the queue, exit within 10 s.
+ */
+import { availableParallelism } from 'node:os';
+import { Option, type Command } from 'commander';
+import { DirectoryArtifactStore } from '../farm/artifacts.js';
+import { newRegistry, serveMetrics, workerMetrics } from '../metrics/index.js';
+import { RunWorker } from '../../worker/queue-processor.js';
+import { addFarmOptions, openFarm, type FarmCliOptions } from './farm-options.js';
+import { positiveInt } from './spec-file.js';
+
+interface WorkerOptions extends FarmCliOptions {
+  concurrency?: number;
+  artifacts?: string;
+  metricsPort?: number;
+  metricsHost: string;
+  lockMs?: number;
+  stalledMs?: number;
+  progressMs?: number;
+}
+
+const SHUTDOWN_LIMIT_MS = 9_000;
+
+export function register(program: Command): void {
+  addFarmOptions(
+    program
+      .command('worker')
+      .description('grow queued runs: one job per core, checkpoints to the artifact folder, /metrics on request')
+      .option('--concurrency <n>', 'jobs at once (default: available cores)', positiveInt('--concurrency', 1024))
+      .option('--artifacts <dir>', 'checkpoint folder shared by all workers (default: TENDRIL_ARTIFACTS or ./tendril-artifacts)')
+      .option('--metrics-port <port>', 'serve Prometheus /metrics on this port (default: TENDRIL_WORKER_METRICS_PORT, else off)', positiveInt('--metrics-port', 65535))
+      .option('--metrics-host <host>', 'address for /metrics', '127.0.0.1')
+      .addOption(new Option('--lock-ms <ms>', 'queue lock duration').argParser(positiveInt('--lock-ms', 3_600_000)).hideHelp())
+      .addOption(new Option('--stalled-ms <ms>', 'stalled-job check interval').argParser(positiveInt('--stalled-ms', 3_600_000)).hideHelp())
+      .addOption(new Option('--progress-ms <ms>', 'progress report interval').argParser(positiveInt('--progress-ms', 600_000)).hideHelp()),
+  ).action(async (opts: WorkerOptions) => {
+    const farm = await openFarm(opts);
+    const registry = newRegistry();
+    const metrics = workerMetrics(registry);
+    const concurrency = opts.concurrency ?? availableParallelism();
+    const log = (line: string) => process.stderr.write(`tendril worker: ${line}\n`);
+    const worker = new RunWorker({
+      connection: farm.redis,
+      prefix: farm.prefix,
+      sink: farm.store,
+      checkpoints: new DirectoryArtifactStore(opts.artifacts ?? process.env.TENDRIL_ARTIFACTS ?? 'tendril-artifacts'),
+      concurrency,
+      lockDuration: opts.lockMs,
+      stalledInterval: opts.stalledMs,
+      progressIntervalMs: opts.progressMs,
+      log,
+      ...metrics,
+    });
+    const port = opts.metricsPort ?? (process.env.TENDRIL_WORKER_METRICS_PORT ? Number(process.env.TENDRIL_WORKER_METRICS_PORT) : undefined);
+    const server = port ? await serveMetrics(registry, port, opts.metricsHost) : undefined;
+    worker.start();
+    process.stdout.write(`worker ${worker.workerId} ready: ${concurrency} thread(s), prefix ${farm.prefix}${server ? `, metrics on http://${opts.metricsHost}:${port}/metrics` : ''}\n`);
+    await new Promise<void>((resolve) => {
+      const onSignal = (sig: string) => {
+        log(`${sig}: checkpointing active runs and handing them back`);
+        const hard = setTimeout(() => {
+          log('shutdown took too long; exiting');
+          process.exit(1);
+        }, SHUTDOWN_LIMIT_MS);
+        hard.unref();
+        worker
+          .shutdown()
+          .catch((err: Error) => log(`shutdown: ${err.message}`))
+          .finally(() => {
+            server?.close();
+            void farm.close().finally(resolve);
+          });
+      };
+      process.once('SIGTERM', () => onSignal('SIGTERM'));
+      process.once('SIGINT', () => onSignal('SIGINT'));
+    });
+  });
+}

@@ -1,0 +1,210 @@
+/**
+ * The Redis-backed ensemble store. Key layout (P = prefix, default "tendril"):
+ *
+ *   P:ensembles                    sorted set: ensemble id, scored by creation time (ms)
+ *   P:ensemble:ID                  hash: spec (canonical JSON), name, created_at_ms,
+ *                                  clusters, particles, jobs, cancelled ("1" once cancelled)
+ *   P:ensemble:ID:results          hash: run index -> RunResult protobuf bytes; written with
+ *                                  HSETNX, so a run executed twice is stored (and counted) once
+ *   P:ensemble:ID:running          hash: run index -> worker id, while a worker grows it
+ *   P:ensemble:ID:progress         hash: run index -> particles placed so far (running runs)
+ *   P:ensemble:ID:failed           hash: run index -> reason, for runs that failed for good
+ *   P:ensemble:ID:rate             hash: 10-second bucket number -> particles grown in it
+ *   P:runs:*                       the BullMQ queue "runs" (BullMQ's own layout)
+ *
+ * Checkpoints are not in Redis but in the artifact store (coordinator/farm/artifacts.ts).
+ */
+import { Redis } from 'ioredis';
+import { decodeRunResult, type RunResultData } from '../../proto/convert.js';
+import { specToDocument, validateSpec, type EnsembleSpec } from '../spec/index.js';
+import type { RunSink } from '../../worker/queue-processor.js';
+
+export const DEFAULT_PREFIX = 'tendril';
+const RATE_BUCKET_MS = 10_000;
+const RATE_WINDOW_MS = 60_000;
+
+export function connectRedis(url: string, opts: { lazy?: boolean } = {}): Redis {
+  return new Redis(url, { maxRetriesPerRequest: null, lazyConnect: opts.lazy ?? false, enableReadyCheck: true });
+}
+
+export interface EnsembleRecord {
+  id: string;
+  name: string;
+  spec: EnsembleSpec;
+  createdAtMs: number;
+  jobs: number;
+  cancelled: boolean;
+}
+
+export type EnsembleState = 'running' | 'done' | 'failed' | 'cancelled';
+
+export interface EnsembleStatus {
+  id: string;
+  name: string;
+  state: EnsembleState;
+  createdAt: string;
+  runs: { planned: number; queued: number; running: number; done: number; failed: number };
+  particles: { done: number; total: number };
+  /** Particles per second over the last minute. */
+  throughput: number;
+  /** Seconds until done at the current throughput; null when unknown. */
+  etaSeconds: number | null;
+  failures: Array<{ runIndex: number; reason: string }>;
+}
+
+export class EnsembleStore implements RunSink {
+  constructor(
+    readonly redis: Redis,
+    readonly prefix: string = DEFAULT_PREFIX,
+  ) {}
+
+  private k(id: string, part?: string): string {
+    return part ? `${this.prefix}:ensemble:${id}:${part}` : `${this.prefix}:ensemble:${id}`;
+  }
+
+  async create(id: string, spec: EnsembleSpec, jobs: number, createdAtMs = Date.now()): Promise<void> {
+    const ok = await this.redis.hsetnx(this.k(id), 'spec', JSON.stringify(specToDocument(spec)));
+    if (!ok) throw new Error(`ensemble ${id} exists already`);
+    await this.redis
+      .multi()
+      .hset(this.k(id), { name: spec.name, created_at_ms: String(createdAtMs), clusters: String(spec.clusters), particles: String(spec.particles), jobs: String(jobs) })
+      .zadd(`${this.prefix}:ensembles`, createdAtMs, id)
+      .exec();
+  }
+
+  async get(id: string): Promise<EnsembleRecord | null> {
+    const h = await this.redis.hgetall(this.k(id));
+    if (!h.spec) return null;
+    return {
+      id,
+      name: h.name ?? '',
+      spec: validateSpec(JSON.parse(h.spec), { maxTotalParticles: Number.MAX_SAFE_INTEGER }),
+      createdAtMs: Number(h.created_at_ms ?? 0),
+      jobs: Number(h.jobs ?? 0),
+      cancelled: h.cancelled === '1',
+    };
+  }
+
+  /** Ensemble ids, newest first. */
+  async ids(limit = 100): Promise<string[]> {
+    return this.redis.zrevrange(`${this.prefix}:ensembles`, 0, limit - 1);
+  }
+
+  async cancel(id: string): Promise<boolean> {
+    if (!(await this.redis.hexists(this.k(id), 'spec'))) return false;
+    await this.redis.hset(this.k(id), 'cancelled', '1');
+    return true;
+  }
+
+  // ---------------------------------------------------------- RunSink (used by workers)
+
+  async isCancelled(ensembleId: string): Promise<boolean> {
+    return (await this.redis.hget(this.k(ensembleId), 'cancelled')) === '1';
+  }
+
+  async exists(ensembleId: string): Promise<boolean> {
+    return (await this.redis.hexists(this.k(ensembleId), 'spec')) === 1;
+  }
+
+  async hasResult(ensembleId: string, runIndex: number): Promise<boolean> {
+    return (await this.redis.hexists(this.k(ensembleId, 'results'), String(runIndex))) === 1;
+  }
+
+  async runStarted(ensembleId: string, runIndex: number, workerId: string): Promise<void> {
+    await this.redis.hset(this.k(ensembleId, 'running'), String(runIndex), workerId);
+  }
+
+  async runReleased(ensembleId: string, runIndex: number): Promise<void> {
+    await this.redis.multi().hdel(this.k(ensembleId, 'running'), String(runIndex)).hdel(this.k(ensembleId, 'progress'), String(runIndex)).exec();
+  }
+
+  async progress(ensembleId: string, runIndex: number, count: number, delta: number): Promise<void> {
+    const bucket = Math.floor(Date.now() / RATE_BUCKET_MS);
+    const m = this.redis.multi().hset(this.k(ensembleId, 'progress'), String(runIndex), String(count));
+    if (delta > 0) m.hincrby(this.k(ensembleId, 'rate'), String(bucket), delta);
+    await m.exec();
+  }
+
+  /** Store a finished run; false when this run index was stored before (a retry), which then changes nothing. */
+  async saveResult(result: RunResultData, bytes: Uint8Array): Promise<boolean> {
+    const id = result.ensembleId;
+    const ok = await this.redis.hsetnx(this.k(id, 'results'), String(result.runIndex), Buffer.from(bytes));
+    await this.redis
+      .multi()
+      .hdel(this.k(id, 'running'), String(result.runIndex))
+      .hdel(this.k(id, 'progress'), String(result.runIndex))
+      .hdel(this.k(id, 'failed'), String(result.runIndex))
+      .exec();
+    return ok === 1;
+  }
+
+  async runFailed(ensembleId: string, runIndex: number, reason: string): Promise<void> {
+    await this.redis
+      .multi()
+      .hset(this.k(ensembleId, 'failed'), String(runIndex), reason.slice(0, 500))
+      .hdel(this.k(ensembleId, 'running'), String(runIndex))
+      .hdel(this.k(ensembleId, 'progress'), String(runIndex))
+      .exec();
+  }
+
+  // ---------------------------------------------------------- reading
+
+  /** Stored results in run-index order (one per run index by construction). */
+  async results(id: string): Promise<RunResultData[]> {
+    const h = await this.redis.hgetallBuffer(this.k(id, 'results'));
+    return Object.values(h)
+      .map((b) => decodeRunResult(b))
+      .sort((a, b) => a.runIndex - b.runIndex);
+  }
+
+  async status(id: string, now = Date.now()): Promise<EnsembleStatus | null> {
+    const rec = await this.get(id);
+    if (!rec) return null;
+    const [doneN, running, progress, failed, rate] = await Promise.all([
+      this.redis.hlen(this.k(id, 'results')),
+      this.redis.hgetall(this.k(id, 'running')),
+      this.redis.hgetall(this.k(id, 'progress')),
+      this.redis.hgetall(this.k(id, 'failed')),
+      this.redis.hgetall(this.k(id, 'rate')),
+    ]);
+    const planned = rec.spec.clusters;
+    const runningN = Object.keys(running).length;
+    const failedN = Object.keys(failed).length;
+    let particlesDone = doneN * rec.spec.particles;
+    for (const v of Object.values(progress)) particlesDone += Number(v);
+    const fromBucket = Math.floor((now - RATE_WINDOW_MS) / RATE_BUCKET_MS);
+    let recent = 0;
+    for (const [b, v] of Object.entries(rate)) if (Number(b) >= fromBucket) recent += Number(v);
+    const windowS = Math.min(RATE_WINDOW_MS, Math.max(RATE_BUCKET_MS, now - rec.createdAtMs)) / 1000;
+    const throughput = recent / windowS;
+    const total = planned * rec.spec.particles;
+    let state: EnsembleState = 'running';
+    if (rec.cancelled && doneN < planned) state = 'cancelled';
+    else if (doneN === planned) state = 'done';
+    else if (doneN + failedN === planned) state = 'failed';
+    const remaining = total - particlesDone;
+    return {
+      id,
+      name: rec.name,
+      state,
+      createdAt: new Date(rec.createdAtMs).toISOString(),
+      runs: { planned, queued: Math.max(0, planned - doneN - runningN - failedN), running: runningN, done: doneN, failed: failedN },
+      particles: { done: particlesDone, total },
+      throughput,
+      etaSeconds: state !== 'running' ? (state === 'done' ? 0 : null) : throughput > 0 ? remaining / throughput : null,
+      failures: Object.entries(failed)
+        .map(([i, reason]) => ({ runIndex: Number(i), reason }))
+        .sort((a, b) => a.runIndex - b.runIndex)
+        .slice(0, 20),
+    };
+  }
+
+  /** Delete every key of an ensemble (tests and operators). */
+  async purge(id: string): Promise<void> {
+    await this.redis
+      .multi()
+      .del(this.k(id), this.k(id, 'results'), this.k(id, 'running'), this.k(id, 'progress'), this.k(id, 'failed'), this.k(id, 'rate'))
+      .zrem(`${this.prefix}:ensembles`, id)
+      .exec();
+  }
+}
