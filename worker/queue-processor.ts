@@ -218,8 +218,9 @@ export class RunWorker {
     });
     this.active.add(handle);
     if (this.stopping) handle.stop();
+    let tick: Promise<void> = Promise.resolve();
     const timer = setInterval(() => {
-      void (async () => {
+      tick = (async () => {
         if (lastCount >= 0 && lastCount !== reported) {
           const delta = reported >= 0 ? lastCount - reported : 0;
           reported = lastCount;
@@ -233,6 +234,8 @@ export class RunWorker {
     }, this.o.progressIntervalMs ?? 2000);
     try {
       const outcome = await handle.outcome;
+      clearInterval(timer);
+      await tick;
       await writes;
       if (outcome.status === 'done') {
         if (lastCount >= 0 && reported >= 0 && lastCount > reported) await sink.progress(run.ensembleId, run.runIndex, lastCount, lastCount - reported);

@@ -171,7 +171,8 @@ export class EnsembleStore implements RunSink {
     const runningN = Object.keys(running).length;
     const failedN = Object.keys(failed).length;
     let particlesDone = doneN * rec.spec.particles;
-    for (const v of Object.values(progress)) particlesDone += Number(v);
+    // only runs still marked running count (a late progress write may follow a stored result)
+    for (const [i, v] of Object.entries(progress)) if (running[i] !== undefined) particlesDone += Number(v);
     const fromBucket = Math.floor((now - RATE_WINDOW_MS) / RATE_BUCKET_MS);
     let recent = 0;
     for (const [b, v] of Object.entries(rate)) if (Number(b) >= fromBucket) recent += Number(v);

@@ -1,0 +1,117 @@
+import { rmSync } from 'node:fs';
+import { Redis } from 'ioredis';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { runEmbedded } from '../coordinator/embedded/index.js';
+import { DirectoryArtifactStore } from '../coordinator/farm/artifacts.js';
+import { launchEnsemble, runQueue } from '../coordinator/farm/queue.js';
+import { EnsembleStore } from '../coordinator/farm/store.js';
+import { runTaskFor } from '../coordinator/plan.js';
+import { validateSpec } from '../coordinator/spec/index.js';
+import { buildSummary } from '../coordinator/summary/index.js';
+import { growthTaskOf } from '../proto/convert.js';
+import { createKernel } from '../worker/models.js';
+import { checkpointKey } from '../worker/queue-processor.js';
+import { deleteKeys, REDIS_URL, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
+
+const prefix = uniquePrefix('e2e');
+const artifacts = tempDir('e2e-artifacts');
+const redis = new Redis(REDIS_URL, { maxRetriesPerRequest: null });
+const store = new EnsembleStore(redis, prefix);
+const queue = runQueue(redis, prefix);
+const workers: WorkerProc[] = [];
+
+afterAll(async () => {
+  for (const w of workers) await stopWorker(w);
+  await queue.close();
+  await deleteKeys(redis, prefix);
+  redis.disconnect();
+  rmSync(artifacts, { recursive: true, force: true });
+});
+
+function directHash(spec: ReturnType<typeof validateSpec>, i: number): string {
+  const k = createKernel(growthTaskOf(runTaskFor('x', spec, i)));
+  k.growTo(spec.particles);
+  return k.result().stateHash;
+}
+
+describe('farm end to end (real Redis, two worker processes)', () => {
+  beforeAll(async () => {
+    workers.push(await startWorker({ prefix, artifacts }), await startWorker({ prefix, artifacts }));
+  });
+
+  it('two workers give the same per-run hashes as the embedded run of the same spec', async () => {
+    const spec = validateSpec({ name: 'e2e', model: 'dla-offlattice-2d', particles: 2500, clusters: 6, seed: '77', runs_per_job: 1 });
+    const id = await launchEnsemble(store, queue, spec);
+    const status = await waitFor('ensemble done', async () => {
+      const s = await store.status(id);
+      return s?.state === 'done' ? s : undefined;
+    });
+    expect(status.runs).toEqual({ planned: 6, queued: 0, running: 0, done: 6, failed: 0 });
+    expect(status.particles.done).toBe(6 * 2500);
+    const farm = await store.results(id);
+    const local = await runEmbedded(spec, { ensembleId: 'local', threads: 2 });
+    expect(farm.map((r) => r.stateHash)).toEqual(local.results.map((r) => r.stateHash));
+    // both worker processes took part (6 jobs, one run each, two idle workers)
+    expect(new Set(farm.map((r) => r.timings.finishedBy)).size).toBe(2);
+    const summary = buildSummary({ ensembleId: id, spec, createdAtMs: 0, results: farm });
+    expect(summary.clustersDone).toBe(6);
+  });
+
+  it('SIGKILL mid-run: the run resumes from its checkpoint on the other worker, same hash, counted once', async () => {
+    const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 40000, clusters: 1, seed: '4242', checkpoint_every_particles: 4000 });
+    // stop the second worker so that the first one surely takes the job
+    await stopWorker(workers.pop(), 'SIGTERM');
+    const id = await launchEnsemble(store, queue, spec);
+    const cps = new DirectoryArtifactStore(artifacts);
+    await waitFor('a checkpoint', async () => (await cps.get(checkpointKey(id, 0)))?.length, 60_000);
+    const victim = workers.pop()!;
+    await stopWorker(victim, 'SIGKILL');
+    const replacement = await startWorker({ prefix, artifacts });
+    workers.push(replacement);
+    const s = await waitFor('ensemble done after the crash', async () => {
+      const st = await store.status(id);
+      return st?.state === 'done' ? st : undefined;
+    }, 120_000);
+    expect(s.runs.done).toBe(1);
+    const [r] = await store.results(id);
+    expect(r.timings.resumes).toBeGreaterThanOrEqual(1);
+    expect(r.stateHash).toBe(directHash(spec, 0));
+    expect(await cps.get(checkpointKey(id, 0))).toBeNull();
+  });
+
+  it('SIGTERM: a worker checkpoints, hands its run back and exits within 10 s; another finishes it', async () => {
+    const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 40000, clusters: 1, seed: '999', checkpoint_interval_seconds: 3600 });
+    const id = await launchEnsemble(store, queue, spec);
+    await waitFor('run in progress', async () => {
+      const st = await store.status(id);
+      return st && st.particles.done > 2000;
+    });
+    const w = workers.pop()!;
+    const t0 = Date.now();
+    w.child.kill('SIGTERM');
+    const code = await w.exited;
+    expect(Date.now() - t0).toBeLessThan(10_000);
+    expect(code).toBe(0);
+    const cps = new DirectoryArtifactStore(artifacts);
+    expect(await cps.get(checkpointKey(id, 0))).not.toBeNull();
+    workers.push(await startWorker({ prefix, artifacts }));
+    await waitFor('ensemble done after release', async () => (await store.status(id))?.state === 'done', 120_000);
+    const [r] = await store.results(id);
+    expect(r.timings.resumes).toBe(1);
+    expect(r.stateHash).toBe(directHash(spec, 0));
+  });
+
+  it('a corrupt job payload fails only that job, with a reason; the worker goes on', async () => {
+    const bad = await queue.add('grow', { v: 1, ensembleId: 'nope', tasks: ['!!!not base64'] }, { jobId: 'corrupt-1', attempts: 3 });
+    const bad2 = await queue.add('grow', { v: 1, ensembleId: 'nope', tasks: [Buffer.from([0xff, 0xff, 0xff]).toString('base64')] }, { jobId: 'corrupt-2', attempts: 3 });
+    const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 1000, clusters: 2, seed: 3 });
+    const id = await launchEnsemble(store, queue, spec);
+    await waitFor('good ensemble done', async () => (await store.status(id))?.state === 'done');
+    const f1 = await waitFor('bad job failed', async () => ((await bad.getState()) === 'failed' ? await queue.getJob('corrupt-1') : undefined));
+    const f2 = await waitFor('bad job 2 failed', async () => ((await bad2.getState()) === 'failed' ? await queue.getJob('corrupt-2') : undefined));
+    expect(f1!.failedReason).toBe('job payload tasks[0] is not base64 text');
+    expect(f2!.failedReason).toMatch(/^RunTask: not a valid protobuf message/);
+    expect(f1!.attemptsMade).toBe(1); // no retries for a payload that can never be read
+    expect(workers[0].child.exitCode).toBeNull();
+  });
+});
