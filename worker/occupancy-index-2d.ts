@@ -152,7 +152,8 @@ export class OccupancyIndex2d {
   /**
    * Sets `free` to a lower bound on (distance from (wx, wy) to the nearest
    * centre) − 1, exact when that distance is below 2 + (distance to the edge
-   * of the walker's level-0 cell). When the answer comes from the exact
+   * of the walker's level-0 cell); when no centre is that close it is exact
+   * up to 4 + that edge distance. When the answer comes from the exact
    * scan, the centres of the scanned 3 × 3 block of level-0 cells (which
    * include every centre within distance 2 of the walker) are left in
    * nearX/nearY[0 .. nearCount); otherwise nearCount = -1.
@@ -221,7 +222,31 @@ export class OccupancyIndex2d {
     this.nearCount = n;
     const ex = wx - cx * 2;
     const ey = wy - cy * 2;
-    const reach = 2 + Math.min(ex, 2 - ex, ey, 2 - ey);
+    const edge = Math.min(ex, 2 - ex, ey, 2 - ey);
+    let reach = 2 + edge;
+    if (best >= reach * reach) {
+      // Nothing within the 3 × 3 block is closer than its edge: scan the ring
+      // of 16 cells around it too (the mark that sent us here may come from
+      // there), so that the answer can reach 4 + edge. The near list is not
+      // needed then (the answer is at least 1 >= minStep).
+      reach = 4 + edge;
+      for (let iy = cy - 2; iy <= cy + 2; iy++) {
+        const step = iy === cy - 2 || iy === cy + 2 ? 1 : 4;
+        for (let ix = cx - 2; ix <= cx + 2; ix += step) {
+          let b = heads.get(ix, iy);
+          while (b >= 0) {
+            const e = 8 * b + 2 * fill[b];
+            for (let o = 8 * b; o < e; o += 2) {
+              const ddx = coords[o] - wx;
+              const ddy = coords[o + 1] - wy;
+              const d2 = ddx * ddx + ddy * ddy;
+              if (d2 < best) best = d2;
+            }
+            b = chain[b];
+          }
+        }
+      }
+    }
     const nearest = Math.sqrt(best);
     this.free = (nearest < reach ? nearest : reach) - 1;
   }
