@@ -20,6 +20,7 @@ const COMMANDS: Array<() => Promise<{ register: Register }>> = [
   () => import('./commands/ensembles.js'),
   () => import('./commands/watch.js'),
   () => import('./commands/worker.js'),
+  () => import('./commands/serve.js'),
 ];
 
 export async function main(argv: string[]): Promise<number> {

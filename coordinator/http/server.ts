@@ -1,0 +1,208 @@
+/**
+ * The coordinator's HTTP API (fastify). Routes (JSON unless said otherwise):
+ *
+ *   POST /ensembles                  create: body = spec (JSON, or TOML with content-type
+ *                                    application/toml); token required; 201 {id, status}
+ *   GET  /ensembles                  list with status, newest first
+ *   GET  /ensembles/:id              status: runs by state, particles done, throughput, ETA
+ *   POST /ensembles/:id/cancel       cancel; token required
+ *   GET  /ensembles/:id/summary?format=json|csv|pb
+ *   GET  /metrics                    Prometheus text format
+ *   GET  /health
+ *
+ * Errors: 4xx with {error: "<one line naming the field, value and what is allowed>"};
+ * a bad spec also carries {problems: [...]}, one line per bad field.
+ *
+ * The route schemas document the API (OpenAPI style); the spec body is checked
+ * by coordinator/spec/ itself so that the CLI and the API give the very same
+ * messages.
+ */
+import { timingSafeEqual, createHash } from 'node:crypto';
+import Fastify, { type FastifyInstance, type FastifyReply, type FastifyRequest } from 'fastify';
+import type { Queue } from 'bullmq';
+import type { Registry } from 'prom-client';
+import { cancelEnsemble, launchEnsemble } from '../farm/queue.js';
+import type { EnsembleStore } from '../farm/store.js';
+import { ENSEMBLE_ID_PATTERN } from '../plan.js';
+import { parseSpecText, SpecError, SPEC_SCHEMA, validateSpec, type SpecLimits } from '../spec/index.js';
+import { buildSummary, renderSummary, SUMMARY_FORMATS, type SummaryFormat, type SummaryOptions } from '../summary/index.js';
+
+export interface ApiOptions {
+  store: EnsembleStore;
+  queue: Queue;
+  /** Bearer token for creating and cancelling; when absent those routes are refused. */
+  token?: string;
+  limits: SpecLimits;
+  registry?: Registry;
+  /** Largest request body in bytes (default 64 KiB). */
+  bodyLimit?: number;
+  summary?: SummaryOptions;
+  logger?: boolean;
+}
+
+class ApiError extends Error {
+  constructor(
+    readonly status: number,
+    message: string,
+    readonly problems?: string[],
+  ) {
+    super(message);
+  }
+}
+
+const STATUS_SCHEMA = {
+  type: 'object',
+  properties: {
+    id: { type: 'string' },
+    name: { type: 'string' },
+    state: { type: 'string', enum: ['running', 'done', 'failed', 'cancelled'] },
+    createdAt: { type: 'string' },
+    runs: {
+      type: 'object',
+      properties: { planned: { type: 'integer' }, queued: { type: 'integer' }, running: { type: 'integer' }, done: { type: 'integer' }, failed: { type: 'integer' } },
+    },
+    particles: { type: 'object', properties: { done: { type: 'number' }, total: { type: 'number' } } },
+    throughput: { type: 'number', description: 'particles per second over the last minute' },
+    etaSeconds: { type: ['number', 'null'] },
+    failures: { type: 'array', items: { type: 'object', properties: { runIndex: { type: 'integer' }, reason: { type: 'string' } } } },
+  },
+} as const;
+
+const ERROR_SCHEMA = { type: 'object', properties: { error: { type: 'string' }, problems: { type: 'array', items: { type: 'string' } } } } as const;
+const ID_PARAMS = { type: 'object', required: ['id'], properties: { id: { type: 'string', pattern: ENSEMBLE_ID_PATTERN.source } } } as const;
+
+function digest(s: string): Buffer {
+  return createHash('sha256').update(s).digest();
+}
+
+export function buildApi(o: ApiOptions): FastifyInstance {
+  const app = Fastify({ logger: o.logger ?? false, bodyLimit: o.bodyLimit ?? 65536 });
+  // Schemas document the routes; checking is done below, with our own messages.
+  app.setValidatorCompiler(() => () => true);
+  app.addContentTypeParser(['application/toml', 'text/toml'], { parseAs: 'string' }, (_req, body, done) => done(null, { toml: body as string }));
+
+  app.setErrorHandler((err: Error & { statusCode?: number; code?: string }, _req, reply) => {
+    if (err instanceof ApiError) return reply.code(err.status).send(err.problems ? { error: err.message, problems: err.problems } : { error: err.message });
+    const status = err.statusCode && err.statusCode >= 400 && err.statusCode < 500 ? err.statusCode : 500;
+    let msg = err.message.split('\n')[0];
+    if (err.code === 'FST_ERR_CTP_BODY_TOO_LARGE') msg = `body: larger than ${o.bodyLimit ?? 65536} bytes; allowed: at most ${o.bodyLimit ?? 65536} bytes`;
+    if (err.code === 'FST_ERR_CTP_INVALID_MEDIA_TYPE') msg = 'content-type: not supported; allowed: application/json or application/toml';
+    if (err.code === 'FST_ERR_CTP_EMPTY_JSON_BODY') msg = 'body: empty; allowed: an ensemble spec';
+    if (err.code === 'FST_ERR_CTP_INVALID_JSON_BODY' || err instanceof SyntaxError) msg = `body: not valid JSON (${msg})`;
+    return reply.code(status).send({ error: status === 500 ? `internal error: ${msg}` : msg });
+  });
+  app.setNotFoundHandler((req, reply) => reply.code(404).send({ error: `${req.method} ${req.url.split('?')[0]}: no such route` }));
+
+  const expected = o.token ? digest(o.token) : undefined;
+  const requireToken = async (req: FastifyRequest, reply: FastifyReply) => {
+    if (!expected) throw new ApiError(403, 'authorization: this server has no API token configured, so creating and cancelling are disabled; allowed: start it with TENDRIL_API_TOKEN or --token-file');
+    const h = req.headers.authorization;
+    const m = typeof h === 'string' ? /^Bearer ([^\s]+)$/.exec(h) : null;
+    if (!m) {
+      reply.header('www-authenticate', 'Bearer');
+      throw new ApiError(401, 'authorization: missing; allowed: a header "Authorization: Bearer <token>"');
+    }
+    if (!timingSafeEqual(digest(m[1]), expected)) {
+      reply.header('www-authenticate', 'Bearer error="invalid_token"');
+      throw new ApiError(401, 'authorization: the bearer token is not valid');
+    }
+  };
+
+  const checkId = (id: string) => {
+    if (!ENSEMBLE_ID_PATTERN.test(id)) throw new ApiError(400, `id: ${JSON.stringify(id.slice(0, 80))} is not allowed; allowed: 1 to 64 letters, digits, _ or -`);
+  };
+  const status = async (id: string) => {
+    checkId(id);
+    const s = await o.store.status(id);
+    if (!s) throw new ApiError(404, `id: "${id}" is not an ensemble of this farm`);
+    return s;
+  };
+
+  app.get('/health', async () => ({ ok: true }));
+
+  app.post(
+    '/ensembles',
+    {
+      preHandler: requireToken,
+      schema: {
+       
+        body: SPEC_SCHEMA,
+        response: { 201: { type: 'object', properties: { id: { type: 'string' }, status: { type: 'string' } } }, 400: ERROR_SCHEMA, 401: ERROR_SCHEMA },
+      },
+    },
+    async (req, reply) => {
+      let doc: unknown = req.body;
+      try {
+        if (doc && typeof doc === 'object' && 'toml' in doc && typeof (doc as { toml: unknown }).toml === 'string') doc = parseSpecText((doc as { toml: string }).toml, 'toml');
+        const spec = validateSpec(doc, o.limits);
+        const id = await launchEnsemble(o.store, o.queue, spec);
+        return reply.code(201).send({ id, status: `/ensembles/${id}` });
+      } catch (err) {
+        if (err instanceof SpecError) throw new ApiError(400, err.problems.length === 1 ? err.problems[0] : `spec has ${err.problems.length} problems`, err.problems);
+        throw err;
+      }
+    },
+  );
+
+  app.get('/ensembles', { schema: { response: { 200: { type: 'object', properties: { ensembles: { type: 'array', items: STATUS_SCHEMA } } } } } }, async () => {
+    const ensembles = [];
+    for (const id of await o.store.ids(100)) {
+      const s = await o.store.status(id);
+      if (s) ensembles.push(s);
+    }
+    return { ensembles };
+  });
+
+  app.get<{ Params: { id: string } }>(
+    '/ensembles/:id',
+    { schema: { params: ID_PARAMS, response: { 200: STATUS_SCHEMA, 404: ERROR_SCHEMA } } },
+    async (req) => status(req.params.id),
+  );
+
+  app.post<{ Params: { id: string } }>(
+    '/ensembles/:id/cancel',
+    { preHandler: requireToken, schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA, 401: ERROR_SCHEMA } } },
+    async (req) => {
+      checkId(req.params.id);
+      if (!(await cancelEnsemble(o.store, o.queue, req.params.id))) throw new ApiError(404, `id: "${req.params.id}" is not an ensemble of this farm`);
+      return { id: req.params.id, cancelled: true };
+    },
+  );
+
+  app.get<{ Params: { id: string }; Querystring: { format?: string } }>(
+    '/ensembles/:id/summary',
+    {
+      schema: {
+       
+        params: ID_PARAMS,
+        querystring: { type: 'object', properties: { format: { type: 'string', enum: SUMMARY_FORMATS } } },
+      },
+    },
+    async (req, reply) => {
+      const format = req.query.format ?? 'json';
+      if (!SUMMARY_FORMATS.includes(format as SummaryFormat)) throw new ApiError(400, `format: ${JSON.stringify(format.slice(0, 40))} is not allowed; allowed: one of "json", "csv", "pb"`);
+      checkId(req.params.id);
+      const rec = await o.store.get(req.params.id);
+      if (!rec) throw new ApiError(404, `id: "${req.params.id}" is not an ensemble of this farm`);
+      const summary = buildSummary({ ensembleId: rec.id, spec: rec.spec, createdAtMs: rec.createdAtMs, results: await o.store.results(rec.id) }, o.summary);
+      const type = format === 'pb' ? 'application/x-protobuf' : format === 'csv' ? 'text/csv; charset=utf-8' : 'application/json; charset=utf-8';
+      const ext = format === 'pb' ? 'pb' : format;
+      return reply
+        .header('content-type', type)
+        .header('content-disposition', `attachment; filename="${rec.id}-summary.${ext}"`)
+        .send(Buffer.from(renderSummary(summary, format as SummaryFormat)));
+    },
+  );
+
+  app.get('/metrics', async (_req, reply) => {
+    if (!o.registry) throw new ApiError(404, 'GET /metrics: metrics are not enabled');
+    return reply.header('content-type', o.registry.contentType).send(await o.registry.metrics());
+  });
+
+  return app;
+}
+
+/** True for addresses that only this machine can reach. */
+export function isLoopback(host: string): boolean {
+  return host === 'localhost' || host === '::1' || /^127\.\d+\.\d+\.\d+$/.test(host);
+}
