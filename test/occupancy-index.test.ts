@@ -46,7 +46,12 @@ describe('OccupancyIndex2d', () => {
         expect(index.free).toBeCloseTo(best - 1, 12);
         // every centre within 2 is listed
         const listed = new Set<string>();
-        for (let j = 0; j < index.nearCount; j++) listed.add(`${index.nearX[j]},${index.nearY[j]}`);
+        for (let j = 0; j < index.nearCount; j++) {
+          listed.add(`${index.nearX[j]},${index.nearY[j]}`);
+          // ids are arrival indices
+          expect(x[index.nearId[j]]).toBe(index.nearX[j]);
+          expect(y[index.nearId[j]]).toBe(index.nearY[j]);
+        }
         for (let i = 0; i < x.length; i++) if (Math.hypot(x[i] - wx, y[i] - wy) <= 2) expect(listed.has(`${x[i]},${y[i]}`)).toBe(true);
         exactChecks++;
       }

@@ -52,6 +52,8 @@ export class OccupancyIndex2d {
   /** Centres found by the last exact scan (valid when nearCount >= 0): every centre within 2 of the walker. */
   readonly nearX = new Float64Array(MAX_NEAR);
   readonly nearY = new Float64Array(MAX_NEAR);
+  /** Arrival index (insertion order, from 0) of each centre in nearX/nearY. */
+  readonly nearId = new Int32Array(MAX_NEAR);
   /** Number of entries in nearX/nearY, or -1 when the last query did not scan exactly. */
   nearCount = -1;
   /** Result of the last `query`: a lower bound on (nearest centre distance) − 1. */
@@ -61,6 +63,8 @@ export class OccupancyIndex2d {
   private readonly heads: TiledInt32Grid;
   /** Bucket b holds coordinates at [8b, 8b + 2·fill[b]) as x, y pairs. */
   private coords: Float64Array;
+  /** ids[4b + j]: arrival index of the j-th centre of bucket b. */
+  private ids: Int32Array;
   private fill: Uint8Array;
   private chain: Int32Array;
   private buckets = 0;
@@ -73,6 +77,7 @@ export class OccupancyIndex2d {
   constructor(expectedParticles: number) {
     const expectBuckets = Math.max(64, expectedParticles >> 1);
     this.coords = new Float64Array(expectBuckets * 2 * BUCKET);
+    this.ids = new Int32Array(expectBuckets * BUCKET);
     this.fill = new Uint8Array(expectBuckets);
     this.chain = new Int32Array(expectBuckets);
     this.heads = new TiledInt32Grid(-1, Math.max(16, expectedParticles >> 6));
@@ -90,7 +95,7 @@ export class OccupancyIndex2d {
 
   /** Bytes held by the index. */
   get bytes(): number {
-    let b = this.heads.bytes + this.coords.byteLength + this.fill.byteLength + this.chain.byteLength;
+    let b = this.heads.bytes + this.coords.byteLength + this.ids.byteLength + this.fill.byteLength + this.chain.byteLength;
     for (const t of this.marks) b += t.bytes;
     return b;
   }
@@ -100,6 +105,7 @@ export class OccupancyIndex2d {
     this.count++;
     const cx = Math.floor(px * 0.5);
     const cy = Math.floor(py * 0.5);
+    const id = this.count - 1;
     let b = this.heads.get(cx, cy);
     if (b < 0 || this.fill[b] === BUCKET) {
       const nb = this.newBucket();
@@ -110,6 +116,7 @@ export class OccupancyIndex2d {
     const slot = 8 * b + 2 * this.fill[b];
     this.coords[slot] = px;
     this.coords[slot + 1] = py;
+    this.ids[BUCKET * b + this.fill[b]] = id;
     this.fill[b]++;
 
     let scale = 0.5;
@@ -133,6 +140,9 @@ export class OccupancyIndex2d {
       const coords = new Float64Array(cap * 2 * BUCKET);
       coords.set(this.coords);
       this.coords = coords;
+      const ids = new Int32Array(cap * BUCKET);
+      ids.set(this.ids);
+      this.ids = ids;
       const fill = new Uint8Array(cap);
       fill.set(this.fill);
       this.fill = fill;
@@ -195,6 +205,8 @@ export class OccupancyIndex2d {
     const chain = this.chain;
     const nearX = this.nearX;
     const nearY = this.nearY;
+    const nearId = this.nearId;
+    const ids = this.ids;
     let n = 0;
     let best = Infinity;
     for (let iy = cy - 1; iy <= cy + 1; iy++) {
@@ -212,6 +224,7 @@ export class OccupancyIndex2d {
             if (n < MAX_NEAR) {
               nearX[n] = px;
               nearY[n] = py;
+              nearId[n] = ids[o >> 1]; // coords stride 2 per centre, ids stride 1
               n++;
             }
           }
