@@ -1,0 +1,147 @@
+/**
+ * Farm overhead benchmark: the same ensemble grown (a) by two `tendril
+ * worker` processes through BullMQ on Redis and (b) by the embedded mode on
+ * two threads. Reports the throughput ratio farm / embedded and the per-job
+ * queue round trip (launch of a one-run ensemble of a tiny cluster until its
+ * result is stored), as one JSON line.
+ *
+ *   node dist/test/bench/farm-bench.js [--clusters 20] [--particles 100000]
+ *
+ * Needs the compiled tree (npm run build) and Redis at REDIS_URL.
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import { mkdtempSync, rmSync, realpathSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { Redis } from 'ioredis';
+import { runEmbedded } from '../../coordinator/embedded/index.js';
+import { launchEnsemble, runQueue } from '../../coordinator/farm/queue.js';
+import { EnsembleStore } from '../../coordinator/farm/store.js';
+import { validateSpec } from '../../coordinator/spec/index.js';
+
+export interface FarmBenchOptions {
+  clusters?: number;
+  particles?: number;
+  redisUrl?: string;
+  /** Tiny one-run ensembles timed for the queue round trip. */
+  roundTrips?: number;
+}
+
+export interface FarmBenchResult {
+  benchmark: 'farm-overhead';
+  clusters: number;
+  particles: number;
+  embeddedSeconds: number;
+  farmSeconds: number;
+  embeddedParticlesPerSecond: number;
+  farmParticlesPerSecond: number;
+  /** farm throughput / embedded throughput (1 = no overhead). */
+  throughputRatio: number;
+  /** Median seconds from launching a one-run ensemble of 10 particles until its result is stored. */
+  queueRoundTripSeconds: number;
+  sameHashes: boolean;
+}
+
+const here = fileURLToPath(import.meta.url);
+const CLI = join(here, '..', '..', '..', 'coordinator', 'cli.js');
+
+function startWorker(redisUrl: string, prefix: string, artifacts: string): Promise<ChildProcess> {
+  const child = spawn(process.execPath, [CLI, 'worker', '--redis', redisUrl, '--prefix', prefix, '--artifacts', artifacts, '--concurrency', '1', '--progress-ms', '1000'], {
+    stdio: ['ignore', 'pipe', 'inherit'],
+  });
+  return new Promise((resolve, reject) => {
+    let out = '';
+    child.stdout!.on('data', (d) => {
+      out += d;
+      if (out.includes('ready:')) resolve(child);
+    });
+    child.once('exit', (code) => reject(new Error(`worker exited with ${code}`)));
+  });
+}
+
+async function until(fn: () => Promise<boolean>, pollMs = 20): Promise<void> {
+  while (!(await fn())) await new Promise((r) => setTimeout(r, pollMs));
+}
+
+export async function runFarmBenchmark(opts: FarmBenchOptions = {}): Promise<FarmBenchResult> {
+  const clusters = opts.clusters ?? 20;
+  const particles = opts.particles ?? 100_000;
+  const redisUrl = opts.redisUrl ?? process.env.REDIS_URL ?? 'redis://127.0.0.1:6379';
+  const spec = validateSpec({ name: 'farm bench', model: 'dla-offlattice-2d', particles, clusters, seed: '1234567', runs_per_job: 1 }, { maxTotalParticles: Number.MAX_SAFE_INTEGER });
+
+  const t0 = performance.now();
+  const local = await runEmbedded(spec, { ensembleId: 'bench-local', threads: 2 });
+  const embeddedSeconds = (performance.now() - t0) / 1000;
+
+  const prefix = `tendril-bench-${process.pid}-${Date.now().toString(36)}`;
+  const artifacts = mkdtempSync(join(tmpdir(), 'tendril-bench-'));
+  const redis = new Redis(redisUrl, { maxRetriesPerRequest: null });
+  const store = new EnsembleStore(redis, prefix);
+  const queue = runQueue(redis, prefix);
+  const workers: ChildProcess[] = [];
+  try {
+    workers.push(await startWorker(redisUrl, prefix, artifacts), await startWorker(redisUrl, prefix, artifacts));
+    const t1 = performance.now();
+    const id = await launchEnsemble(store, queue, spec);
+    await until(async () => (await store.status(id))?.state === 'done', 50);
+    const farmSeconds = (performance.now() - t1) / 1000;
+    const farm = await store.results(id);
+    const sameHashes = farm.map((r) => r.stateHash).join() === local.results.map((r) => r.stateHash).join();
+
+    const tiny = validateSpec({ model: 'dla-offlattice-2d', particles: 10, clusters: 1, seed: 1 });
+    const trips: number[] = [];
+    for (let i = 0; i < (opts.roundTrips ?? 20); i++) {
+      const s = performance.now();
+      const tid = await launchEnsemble(store, queue, tiny);
+      await until(async () => store.hasResult(tid, 0), 2);
+      trips.push((performance.now() - s) / 1000);
+    }
+    trips.sort((a, b) => a - b);
+    const total = clusters * particles;
+    return {
+      benchmark: 'farm-overhead',
+      clusters,
+      particles,
+      embeddedSeconds,
+      farmSeconds,
+      embeddedParticlesPerSecond: total / embeddedSeconds,
+      farmParticlesPerSecond: total / farmSeconds,
+      throughputRatio: embeddedSeconds / farmSeconds,
+      queueRoundTripSeconds: trips[Math.floor(trips.length / 2)],
+      sameHashes,
+    };
+  } finally {
+    for (const w of workers) {
+      if (w.exitCode === null) {
+        const gone = new Promise((r) => w.once('exit', r));
+        w.kill('SIGTERM');
+        await gone;
+      }
+    }
+    await queue.close();
+    let cursor = '0';
+    do {
+      const [next, keys] = await redis.scan(cursor, 'MATCH', `${prefix}:*`, 'COUNT', 500);
+      cursor = next;
+      if (keys.length) await redis.del(...keys);
+    } while (cursor !== '0');
+    redis.disconnect();
+    rmSync(artifacts, { recursive: true, force: true });
+  }
+}
+
+function arg(name: string): number | undefined {
+  const i = process.argv.indexOf(name);
+  return i > 0 ? Number(process.argv[i + 1]) : undefined;
+}
+
+if (process.argv[1] && realpathSync(process.argv[1]) === realpathSync(here)) {
+  runFarmBenchmark({ clusters: arg('--clusters'), particles: arg('--particles') }).then(
+    (r) => process.stdout.write(JSON.stringify(r) + '\n'),
+    (err: Error) => {
+      process.stderr.write(`farm-bench: ${err.message}\n`);
+      process.exit(1);
+    },
+  );
+}
