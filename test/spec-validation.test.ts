@@ -98,3 +98,17 @@ describe('ensemble spec', () => {
     expect(problems(() => formatOf('spec.yaml'))).toEqual(['spec file "spec.yaml": unknown format; allowed: a name ending in .toml or .json']);
   });
 });
+
+describe('example specs', () => {
+  it('every spec in examples/ is valid', async () => {
+    const { readdirSync, readFileSync } = await import('node:fs');
+    const { join } = await import('node:path');
+    const dir = join(import.meta.dirname, '..', 'examples');
+    const files = readdirSync(dir).filter((f) => /\.(toml|json)$/.test(f));
+    expect(files).toContain('demo.toml');
+    for (const f of files) {
+      const s = parseSpec(readFileSync(join(dir, f), 'utf8'), formatOf(f));
+      expect(s.particles * s.clusters).toBeLessThanOrEqual(1e10);
+    }
+  });
+});
