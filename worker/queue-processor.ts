@@ -127,6 +127,13 @@ export class RunWorker {
       if (err instanceof WaitingError || err?.name === 'WaitingError') return;
       o.onJobFailed?.(err.message);
       o.log?.(`job ${job?.id ?? '?'} failed: ${err.message}`);
+      // out of attempts: record the reason on its runs so status shows them as failed
+      if (job && !(err instanceof UnrecoverableError) && job.attemptsMade >= (job.opts.attempts ?? 1)) {
+        void (async () => {
+          const { ensembleId, tasks } = readJobData(job.data);
+          for (const t of tasks) if (!(await o.sink.hasResult(ensembleId, t.runIndex))) await o.sink.runFailed(ensembleId, t.runIndex, err.message);
+        })().catch(() => undefined);
+      }
     });
     this.worker.on('error', (err) => o.log?.(`queue error: ${err.message.split('\n')[0]}`));
   }
