@@ -5,7 +5,8 @@
  * (distance from the walker to the nearest particle centre) − 1.
  *
  * All cell sides are powers of two, so cell coordinates floor(x · 2^-(k+1))
- * are computed exactly in floating point.
+ * are computed exactly in floating point (and kept as int32: `| 0`, which is
+ * exact for |x| < 2^31 and keeps V8 from boxing them).
  *  - Buckets (level 0, cells of side 2): each occupied cell points to a chain
  *    of buckets, each holding up to 4 centres' coordinates inline (one cache
  *    line), in arrival order. When the walker's level-0 cell is marked, the
@@ -22,6 +23,7 @@
  * of particles, not with the area.
  */
 
+import { TILE_CELLS, TILE_MASK, TILE_SHIFT } from './tile-directory.js';
 import { TiledByteGrid, TiledInt32Grid } from './tiled-grids.js';
 
 /** Mark levels 0..MAX_LEVEL; the coarsest cell has side 2^(MAX_LEVEL+1) = 2^25 diameters. */
@@ -103,8 +105,8 @@ export class OccupancyIndex2d {
   /** Add a centre. Insert in arrival order: scans return centres in that order. */
   insert(px: number, py: number): void {
     this.count++;
-    const cx = Math.floor(px * 0.5);
-    const cy = Math.floor(py * 0.5);
+    const cx = Math.floor(px * 0.5) | 0;
+    const cy = Math.floor(py * 0.5) | 0;
     const id = this.count - 1;
     let b = this.heads.get(cx, cy);
     if (b < 0 || this.fill[b] === BUCKET) {
@@ -122,8 +124,8 @@ export class OccupancyIndex2d {
     let scale = 0.5;
     for (let k = 0; k <= MAX_LEVEL; k++, scale *= 0.5) {
       const t = this.marks[k];
-      const ix = Math.floor(px * scale);
-      const iy = Math.floor(py * scale);
+      const ix = Math.floor(px * scale) | 0;
+      const iy = Math.floor(py * scale) | 0;
       const old = t.orBits(ix, iy, MARKED | HOLDS);
       // A cell that already holds a centre has its block marked, and so does
       // every coarser cell containing it: nothing left to do.
@@ -193,12 +195,12 @@ export class OccupancyIndex2d {
 
   private isMarked(k: number, wx: number, wy: number): boolean {
     const scale = SCALES[k];
-    return (this.marks[k].get(Math.floor(wx * scale), Math.floor(wy * scale)) & MARKED) !== 0;
+    return (this.marks[k].get(Math.floor(wx * scale) | 0, Math.floor(wy * scale) | 0) & MARKED) !== 0;
   }
 
   private exactScan(wx: number, wy: number): void {
-    const cx = Math.floor(wx * 0.5);
-    const cy = Math.floor(wy * 0.5);
+    const cx = Math.floor(wx * 0.5) | 0;
+    const cy = Math.floor(wy * 0.5) | 0;
     const heads = this.heads;
     const coords = this.coords;
     const fill = this.fill;
@@ -209,9 +211,21 @@ export class OccupancyIndex2d {
     const ids = this.ids;
     let n = 0;
     let best = Infinity;
+    const dir = heads.dir;
+    const pool = heads.pool;
     for (let iy = cy - 1; iy <= cy + 1; iy++) {
+      // the row's cells lie in one or two tiles: look each tile up once
+      const ty = iy >> TILE_SHIFT;
+      const rowOffset = (iy & TILE_MASK) << TILE_SHIFT;
+      let tx = (cx - 1) >> TILE_SHIFT;
+      let tile = dir.find(tx, ty);
       for (let ix = cx - 1; ix <= cx + 1; ix++) {
-        let b = heads.get(ix, iy);
+        if (ix >> TILE_SHIFT !== tx) {
+          tx = ix >> TILE_SHIFT;
+          tile = dir.find(tx, ty);
+        }
+        if (tile < 0) continue;
+        let b = pool[tile * TILE_CELLS + rowOffset + (ix & TILE_MASK)];
         while (b >= 0) {
           const end = 8 * b + 2 * fill[b];
           for (let o = 8 * b; o < end; o += 2) {
@@ -245,8 +259,17 @@ export class OccupancyIndex2d {
       reach = 4 + edge;
       for (let iy = cy - 2; iy <= cy + 2; iy++) {
         const step = iy === cy - 2 || iy === cy + 2 ? 1 : 4;
+        const ty = iy >> TILE_SHIFT;
+        const rowOffset = (iy & TILE_MASK) << TILE_SHIFT;
+        let tx = (cx - 2) >> TILE_SHIFT;
+        let tile = dir.find(tx, ty);
         for (let ix = cx - 2; ix <= cx + 2; ix += step) {
-          let b = heads.get(ix, iy);
+          if (ix >> TILE_SHIFT !== tx) {
+            tx = ix >> TILE_SHIFT;
+            tile = dir.find(tx, ty);
+          }
+          if (tile < 0) continue;
+          let b = pool[tile * TILE_CELLS + rowOffset + (ix & TILE_MASK)];
           while (b >= 0) {
             const e = 8 * b + 2 * fill[b];
             for (let o = 8 * b; o < e; o += 2) {
