@@ -1,0 +1,393 @@
+/**
+ * Harmonic-measure probing of a planar set of disks (pure: no I/O).
+ *
+ * The set (exact definition)
+ *  - K = union of closed disks D(p_i, r_i), i = 0 … n−1, with centres p_i and
+ *    contact radii r_i > 0. A probe walker is a *point* performing planar
+ *    Brownian motion started from infinity; it touches disk i at the first
+ *    instant |w − p_i| = r_i. The probe records which disk it touched first
+ *    (ties between overlapping disks go to the one reached first along the
+ *    path) and the contact point. The share of probes touching disk i is
+ *    the harmonic measure (from infinity) of ∂K carried by disk i.
+ *  - How our grown clusters map to this: a growth walker is a disk of
+ *    diameter d whose *centre* stops when it comes within d of a cluster
+ *    centre. That is exactly a point walker touching disks of radius d
+ *    around the centres (the capture disks). So a cluster snapshot of
+ *    diameter d is probed as the set with r_i = d for every i, and the
+ *    measure found is the growth probability of each particle. A user's CSV
+ *    of x, y, r rows is probed with r_i = r as given.
+ *
+ * How it is simulated (the growth walk of worker/dla-offlattice-2d.ts
+ * without sticking; lengths are internally divided by s = max r_i, after
+ * moving the origin to the centre of the bounding box of the centres)
+ *  1. Launch uniformly on the circle of radius R_L = R_ext + launchMargin
+ *     (default margin 0: the smallest circle about the origin enclosing K),
+ *     R_ext = max(|p_i| + r_i): exact for a walker from infinity.
+ *  2. Outside R_L the walker is returned to that circle by the exact
+ *     exterior Poisson kernel (worker/poisson-return-2d.ts).
+ *  3. Walk-on-spheres: the occupancy index (worker/occupancy-index-2d.ts,
+ *     built on the scaled centres, where every scaled radius is ≤ 1) gives
+ *     a lower bound on (nearest centre distance − 1) ≤ the distance to ∂K.
+ *     When the index scanned exactly, the distance to ∂K is computed exactly
+ *     from the listed centres (every centre within 2, and a centre farther
+ *     than 2 is more than 1 from the walker's disk edge since r ≤ 1). Also
+ *     |w| − R_ext is a free radius. If the free radius d ≥ minStep the
+ *     walker jumps to a uniform point on the circle of radius d (exact).
+ *  4. Otherwise one straight step of length minStep (scaled units) in a
+ *     uniform direction, stopping at the exact first contact with a disk.
+ * The one approximation is step 4 (straight steps instead of Brownian
+ * motion within minStep·s of ∂K), as in growth; test/probe-kernel.test.ts
+ * checks that minStep 0.02 and 0.004 give the same per-disk measure within
+ * the probe error. Everything else is exact up to floating-point rounding.
+ *
+ * Limits: the index lists at most 256 centres per 6 × 6 block of scaled
+ * cells, so a set may not hold more than 256 centres in any 3 × 3 block of
+ * cells of side 2·max r (checked when the geometry is built; disparate radii
+ * or heavily overlapping disks are refused with a one-line message).
+ *
+ * Jobs and determinism: probing is split into independent jobs; job j uses
+ * Random.forRun(seed, j, STREAM_PROBE) and is a function of (geometry, task)
+ * only. Hit counts of jobs add up; the contact sample of a job is the
+ * contact points of its first `contactSample` probes (independent draws
+ * from the harmonic measure).
+ */
+
+import { ENGINE_VERSION } from './engine-version.js';
+import { OccupancyIndex2d } from './occupancy-index-2d.js';
+import { returnToCircle, returned } from './poisson-return-2d.js';
+import { Random, STREAM_PROBE, parseSeed } from './random.js';
+import { direction, sampleDirection } from './uniform-direction.js';
+
+/** Default straight-step length near contact, in units of the largest contact radius. */
+export const DEFAULT_PROBE_MIN_STEP = 0.02;
+/** Default launch margin, in units of the largest contact radius. */
+export const DEFAULT_PROBE_LAUNCH_MARGIN = 0;
+/** At most this many centres may lie in one 3 × 3 block of index cells. */
+const MAX_BLOCK = 256;
+
+/** One probe job: plain JSON, so it can be queued. The geometry travels separately (snapshot artifact or CSV). */
+export interface ProbeTask {
+  /** Unsigned 64-bit seed as a decimal string. */
+  seed: string;
+  /** Job index j: the job draws from Random.forRun(seed, j, STREAM_PROBE). */
+  jobIndex: number;
+  /** Probe walkers in this job. */
+  walkers: number;
+  /** Contact points kept (the first ones of the job), 0 … walkers. */
+  contactSample: number;
+  /** Straight-step length near contact, in units of the largest contact radius, (0, 1]. */
+  minStep: number;
+  /** Launch and return circle margin beyond the set, in units of the largest contact radius, [0, 1000]. */
+  launchMargin: number;
+  /** Digest of the geometry (ProbeGeometry.digest); a job refuses a different set. */
+  geometryDigest: string;
+}
+
+/** Result of one probe job: plain JSON. Hits are sparse: disks with at least one hit, ascending. */
+export interface ProbeResult {
+  engineVersion: string;
+  seed: string;
+  jobIndex: number;
+  walkers: number;
+  geometryDigest: string;
+  hitIds: number[];
+  hitCounts: number[];
+  /** Contact points (original coordinates) and the disk touched, of the first contactSample probes. */
+  contactX: number[];
+  contactY: number[];
+  contactId: number[];
+  counters: { jumps: number; shortSteps: number; returns: number };
+}
+
+/** A planar set of disks, in original coordinates. */
+export interface DiskSet {
+  count: number;
+  x: ArrayLike<number>;
+  y: ArrayLike<number>;
+  /** Contact radius of every disk (a number) or per disk. */
+  r: number | ArrayLike<number>;
+}
+
+/** The prepared set: scaled coordinates and the occupancy index, reusable by many jobs. */
+export class ProbeGeometry {
+  readonly count: number;
+  /** Origin shift and scale: original = centre + s · scaled. */
+  readonly centreX: number;
+  readonly centreY: number;
+  readonly scale: number;
+  /** max(|p_i| + r_i) in scaled units. */
+  readonly extent: number;
+  /** Scaled radii (null when all equal 1 after scaling). */
+  readonly radii: Float64Array | null;
+  readonly digest: string;
+  readonly index: OccupancyIndex2d;
+
+  constructor(set: DiskSet) {
+    const n = set.count;
+    if (!Number.isSafeInteger(n) || n < 1) throw new RangeError(`point set must hold at least 1 disk, got ${n}`);
+    let minX = Infinity, maxX = -Infinity, minY = Infinity, maxY = -Infinity, rMax = 0;
+    let uniform = true;
+    const r0 = typeof set.r === 'number' ? set.r : set.r[0];
+    for (let i = 0; i < n; i++) {
+      const x = set.x[i];
+      const y = set.y[i];
+      const r = typeof set.r === 'number' ? set.r : set.r[i];
+      if (!Number.isFinite(x) || !Number.isFinite(y)) throw new RangeError(`disk ${i}: coordinates must be finite, got (${x}, ${y})`);
+      if (!(Number.isFinite(r) && r > 0)) throw new RangeError(`disk ${i}: contact radius must be a finite number > 0, got ${r}`);
+      if (r !== r0) uniform = false;
+      if (x < minX) minX = x;
+      if (x > maxX) maxX = x;
+      if (y < minY) minY = y;
+      if (y > maxY) maxY = y;
+      if (r > rMax) rMax = r;
+    }
+    this.count = n;
+    this.centreX = 0.5 * (minX + maxX);
+    this.centreY = 0.5 * (minY + maxY);
+    this.scale = rMax;
+    const inv = 1 / rMax;
+    const ux = new Float64Array(n);
+    const uy = new Float64Array(n);
+    this.radii = uniform ? null : new Float64Array(n);
+    let ext = 0;
+    let h = 0x811c9dc5;
+    const word = new Float64Array(1);
+    const words = new Uint32Array(word.buffer);
+    const mixIn = (v: number): void => {
+      word[0] = v;
+      h = Math.imul(h ^ words[0], 0x01000193);
+      h = Math.imul(h ^ words[1], 0x01000193);
+    };
+    for (let i = 0; i < n; i++) {
+      const r = typeof set.r === 'number' ? set.r : set.r[i];
+      mixIn(set.x[i]);
+      mixIn(set.y[i]);
+      mixIn(r);
+      ux[i] = (set.x[i] - this.centreX) * inv;
+      uy[i] = (set.y[i] - this.centreY) * inv;
+      const rr = uniform ? 1 : r * inv;
+      if (this.radii !== null) this.radii[i] = rr;
+      const e = Math.sqrt(ux[i] * ux[i] + uy[i] * uy[i]) + rr;
+      if (e > ext) ext = e;
+    }
+    this.extent = ext;
+    this.digest = `${n}-${(h >>> 0).toString(16).padStart(8, '0')}`;
+    checkDensity(ux, uy, n);
+    this.index = new OccupancyIndex2d(n);
+    for (let i = 0; i < n; i++) this.index.insert(ux[i], uy[i]);
+  }
+}
+
+/** Refuse sets with more than MAX_BLOCK scaled centres in a 3 × 3 block of side-2 cells. */
+function checkDensity(ux: Float64Array, uy: Float64Array, n: number): void {
+  const cells = new Map<string, number>();
+  for (let i = 0; i < n; i++) {
+    const k = `${Math.floor(ux[i] * 0.5)},${Math.floor(uy[i] * 0.5)}`;
+    cells.set(k, (cells.get(k) ?? 0) + 1);
+  }
+  let worst = 0;
+  for (const key of cells.keys()) {
+    const [cx, cy] = key.split(',').map(Number);
+    let s = 0;
+    for (let dy = -1; dy <= 1; dy++) for (let dx = -1; dx <= 1; dx++) s += cells.get(`${cx + dx},${cy + dy}`) ?? 0;
+    if (s > worst) worst = s;
+  }
+  if (worst > MAX_BLOCK)
+    throw new RangeError(
+      `point set has ${worst} disk centres within a 6 x 6 square of the largest contact radius; at most ${MAX_BLOCK} are allowed (radii too disparate or disks overlapping too much)`,
+    );
+}
+
+/** Throws a RangeError naming the first bad field of a probe task. */
+export function checkProbeTask(task: ProbeTask): void {
+  parseSeed(task.seed);
+  if (!Number.isSafeInteger(task.jobIndex) || task.jobIndex < 0) throw new RangeError(`jobIndex must be a non-negative integer, got ${task.jobIndex}`);
+  if (!Number.isSafeInteger(task.walkers) || task.walkers < 1 || task.walkers > 1e10)
+    throw new RangeError(`walkers must be an integer in [1, 10000000000], got ${task.walkers}`);
+  if (!Number.isSafeInteger(task.contactSample) || task.contactSample < 0 || task.contactSample > task.walkers)
+    throw new RangeError(`contactSample must be an integer in [0, ${task.walkers}], got ${task.contactSample}`);
+  if (!(task.minStep > 0 && task.minStep <= 1)) throw new RangeError(`minStep must be in (0, 1], got ${task.minStep}`);
+  if (!(task.launchMargin >= 0 && task.launchMargin <= 1000)) throw new RangeError(`launchMargin must be in [0, 1000], got ${task.launchMargin}`);
+}
+
+/** Run one probe job on a prepared geometry. */
+export function runProbeJob(geometry: ProbeGeometry, task: ProbeTask): ProbeResult {
+  checkProbeTask(task);
+  if (task.geometryDigest !== geometry.digest)
+    throw new RangeError(`geometryDigest must match the point set (${geometry.digest}), got "${task.geometryDigest}"`);
+  const counts = new Float64Array(geometry.count);
+  const sample = task.contactSample;
+  const cX = new Float64Array(sample);
+  const cY = new Float64Array(sample);
+  const cId = new Int32Array(sample);
+  const rng = Random.forRun(task.seed, task.jobIndex, STREAM_PROBE);
+  const counters = { jumps: 0, shortSteps: 0, returns: 0 };
+  const walk = new ProbeWalk(geometry, task.minStep, task.launchMargin, rng);
+  for (let w = 0; w < task.walkers; w++) {
+    const id = walk.run();
+    counts[id]++;
+    if (w < sample) {
+      cX[w] = geometry.centreX + geometry.scale * walk.hitX;
+      cY[w] = geometry.centreY + geometry.scale * walk.hitY;
+      cId[w] = id;
+    }
+  }
+  counters.jumps = walk.jumps;
+  counters.shortSteps = walk.shortSteps;
+  counters.returns = walk.returns;
+  const hitIds: number[] = [];
+  const hitCounts: number[] = [];
+  for (let i = 0; i < counts.length; i++) if (counts[i] > 0) { hitIds.push(i); hitCounts.push(counts[i]); }
+  return {
+    engineVersion: ENGINE_VERSION,
+    seed: task.seed,
+    jobIndex: task.jobIndex,
+    walkers: task.walkers,
+    geometryDigest: task.geometryDigest,
+    hitIds,
+    hitCounts,
+    contactX: Array.from(cX),
+    contactY: Array.from(cY),
+    contactId: Array.from(cId),
+    counters,
+  };
+}
+
+/** Add the hit counts of several jobs into one dense array of length `count`. */
+export function addProbeCounts(count: number, results: readonly ProbeResult[]): Float64Array {
+  const out = new Float64Array(count);
+  for (const r of results) {
+    for (let k = 0; k < r.hitIds.length; k++) {
+      const id = r.hitIds[k];
+      if (!(id >= 0 && id < count)) throw new RangeError(`probe result of job ${r.jobIndex}: hit id ${id} outside [0, ${count})`);
+      out[id] += r.hitCounts[k];
+    }
+  }
+  return out;
+}
+
+/** The walker state machine; one instance per job (no allocation per walker). */
+export class ProbeWalk {
+  hitX = 0;
+  hitY = 0;
+  jumps = 0;
+  shortSteps = 0;
+  returns = 0;
+  private readonly g: ProbeGeometry;
+  private readonly minStep: number;
+  private readonly launch: number;
+  private readonly rng: Random;
+
+  constructor(g: ProbeGeometry, minStep: number, launchMargin: number, rng: Random) {
+    this.g = g;
+    this.minStep = minStep;
+    this.launch = g.extent + launchMargin;
+    this.rng = rng;
+  }
+
+  /** Run one walker from infinity to its first contact; returns the disk index, contact point in hitX/hitY (scaled). */
+  run(): number {
+    const rng = this.rng;
+    const index = this.g.index;
+    const radii = this.g.radii;
+    const minStep = this.minStep;
+    const ext = this.g.extent;
+    const launch = this.launch;
+    const launch2 = launch * launch;
+    sampleDirection(rng);
+    let wx = launch * direction.x;
+    let wy = launch * direction.y;
+    for (;;) {
+      let r2 = wx * wx + wy * wy;
+      if (r2 > launch2) {
+        returnToCircle(wx, wy, launch, rng);
+        wx = returned.x;
+        wy = returned.y;
+        r2 = launch2;
+        this.returns++;
+      }
+      index.query(wx, wy);
+      let d = index.free;
+      const nearCount = index.nearCount;
+      const nearX = index.nearX;
+      const nearY = index.nearY;
+      const nearId = index.nearId;
+      if (radii !== null && nearCount >= 0) {
+        // exact distance to the union of disks of radius <= 1; centres not listed are > 2 away
+        let gap = 1;
+        for (let j = 0; j < nearCount; j++) {
+          const qx = wx - nearX[j];
+          const qy = wy - nearY[j];
+          const e = Math.sqrt(qx * qx + qy * qy) - radii[nearId[j]];
+          if (e < gap) gap = e;
+        }
+        if (gap > d) d = gap;
+      }
+      const reach = ext + d;
+      if (r2 > reach * reach) d = Math.sqrt(r2) - ext;
+
+      sampleDirection(rng);
+      const cx = direction.x;
+      const cy = direction.y;
+      if (d >= minStep) {
+        wx += d * cx;
+        wy += d * cy;
+        this.jumps++;
+        continue;
+      }
+      // straight step of length minStep with exact first contact (d < minStep <= 1: the scan was exact)
+      let tHit = minStep;
+      let hit = -1;
+      for (let j = 0; j < nearCount; j++) {
+        const qx = wx - nearX[j];
+        const qy = wy - nearY[j];
+        const b = qx * cx + qy * cy;
+        if (b >= 0) continue;
+        const rr = radii === null ? 1 : radii[nearId[j]];
+        const c = qx * qx + qy * qy - rr * rr;
+        const disc = b * b - c;
+        if (disc < 0) continue;
+        let t = -b - Math.sqrt(disc);
+        if (t < 0) t = 0;
+        if (t < tHit) {
+          tHit = t;
+          hit = j;
+        }
+      }
+      this.shortSteps++;
+      if (hit >= 0) {
+        this.hitX = wx + tHit * cx;
+        this.hitY = wy + tHit * cy;
+        return nearId[hit];
+      }
+      wx += minStep * cx;
+      wy += minStep * cy;
+    }
+  }
+}
+
+/** The tasks of a probe of `walkers` probes split into `jobs` jobs (job sizes differ by at most one). */
+export function planProbeJobs(
+  geometry: ProbeGeometry, seed: string, walkers: number, jobs: number, contactSampleTotal: number,
+  minStep = DEFAULT_PROBE_MIN_STEP, launchMargin = DEFAULT_PROBE_LAUNCH_MARGIN,
+): ProbeTask[] {
+  if (!Number.isSafeInteger(jobs) || jobs < 1 || jobs > walkers) throw new RangeError(`jobs must be an integer in [1, ${walkers}], got ${jobs}`);
+  const tasks: ProbeTask[] = [];
+  const base = Math.floor(walkers / jobs);
+  const extra = walkers - base * jobs;
+  const sBase = Math.floor(contactSampleTotal / jobs);
+  const sExtra = contactSampleTotal - sBase * jobs;
+  for (let j = 0; j < jobs; j++) {
+    const w = base + (j < extra ? 1 : 0);
+    tasks.push({
+      seed: parseSeed(seed).toString(),
+      jobIndex: j,
+      walkers: w,
+      contactSample: Math.min(w, sBase + (j < sExtra ? 1 : 0)),
+      minStep,
+      launchMargin,
+      geometryDigest: geometry.digest,
+    });
+  }
+  return tasks;
+}
