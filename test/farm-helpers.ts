@@ -36,10 +36,10 @@ export interface WorkerProc {
   exited: Promise<number | null>;
 }
 
-export async function startWorker(args: { redisUrl?: string; prefix: string; artifacts: string; concurrency?: number }): Promise<WorkerProc> {
+export async function startWorker(args: { redisUrl?: string; prefix: string; artifacts: string; concurrency?: number; extra?: string[] }): Promise<WorkerProc> {
   const child = spawn(
     process.execPath,
-    [CLI, 'worker', '--redis', args.redisUrl ?? REDIS_URL, '--prefix', args.prefix, '--artifacts', args.artifacts, '--concurrency', String(args.concurrency ?? 1), '--lock-ms', '3000', '--stalled-ms', '1000', '--progress-ms', '200'],
+    [CLI, 'worker', '--redis', args.redisUrl ?? REDIS_URL, '--prefix', args.prefix, '--artifacts', args.artifacts, '--concurrency', String(args.concurrency ?? 1), '--lock-ms', '3000', '--stalled-ms', '1000', '--progress-ms', '200', ...(args.extra ?? [])],
     { stdio: ['ignore', 'pipe', 'pipe'] },
   );
   let out = '';

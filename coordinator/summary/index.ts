@@ -83,7 +83,16 @@ export function uniqueRuns(results: Iterable<RunResultData>): RunResultData[] {
   return [...byIndex.values()].sort((a, b) => a.runIndex - b.runIndex);
 }
 
-export function buildSummary(input: SummaryInput, opts: SummaryOptions = {}): EnsembleSummaryData {
+/**
+ * The options every summary of the farm, the embedded mode, the CLI and the
+ * HTTP API is built with: the one place to plug the statistics library in,
+ * e.g. `return { enrich: (runs) => analyzeEnsemble(runs) };`.
+ */
+export function defaultSummaryOptions(): SummaryOptions {
+  return {};
+}
+
+export function buildSummary(input: SummaryInput, opts: SummaryOptions = defaultSummaryOptions()): EnsembleSummaryData {
   const runs = uniqueRuns(input.results);
   // mean of log R_g over runs at each recorded size (all runs share the size grid)
   const sums = new Map<number, { s: number; n: number }>();
