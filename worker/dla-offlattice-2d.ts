@@ -119,7 +119,7 @@ export class OffLatticeDla2d implements GrowthKernel {
     this.launchMargin = m.launchMargin;
     this.x = new Float64Array(task.particles);
     this.y = new Float64Array(task.particles);
-    this.index = new OccupancyIndex2d(task.particles);
+    this.index = new OccupancyIndex2d(task.particles, false);
     this.sizes = recordSizes(task.particles, task.recordsPerDecade);
     if (checkpoint === undefined) {
       this.rng = Random.forRun(task.ensembleSeed, task.runIndex, STREAM_GROWTH);

@@ -54,7 +54,7 @@ export class OccupancyIndex2d {
   /** Centres found by the last exact scan (valid when nearCount >= 0): every centre within 2 of the walker. */
   readonly nearX = new Float64Array(MAX_NEAR);
   readonly nearY = new Float64Array(MAX_NEAR);
-  /** Arrival index (insertion order, from 0) of each centre in nearX/nearY. */
+  /** Arrival index (insertion order, from 0) of each centre in nearX/nearY (when built with trackIds). */
   readonly nearId = new Int32Array(MAX_NEAR);
   /** Number of entries in nearX/nearY, or -1 when the last query did not scan exactly. */
   nearCount = -1;
@@ -76,7 +76,14 @@ export class OccupancyIndex2d {
   private guess = 1;
   private count = 0;
 
-  constructor(expectedParticles: number) {
+  /**
+   * `trackIds`: also record arrival indices (nearId); probing needs them,
+   * growth does not, and skipping them saves a memory access per bucket.
+   */
+  constructor(
+    expectedParticles: number,
+    private readonly trackIds = true,
+  ) {
     const expectBuckets = Math.max(64, expectedParticles >> 1);
     this.coords = new Float64Array(expectBuckets * 2 * BUCKET);
     this.ids = new Int32Array(expectBuckets * BUCKET);
@@ -209,6 +216,7 @@ export class OccupancyIndex2d {
     const nearY = this.nearY;
     const nearId = this.nearId;
     const ids = this.ids;
+    const trackIds = this.trackIds;
     let n = 0;
     let best = Infinity;
     const dir = heads.dir;
@@ -238,7 +246,7 @@ export class OccupancyIndex2d {
             if (n < MAX_NEAR) {
               nearX[n] = px;
               nearY[n] = py;
-              nearId[n] = ids[o >> 1]; // coords stride 2 per centre, ids stride 1
+              if (trackIds) nearId[n] = ids[o >> 1]; // coords stride 2 per centre, ids stride 1
               n++;
             }
           }
