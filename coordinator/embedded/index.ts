@@ -72,7 +72,7 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
       if (!bytes) continue;
       try {
         const r = decodeRunResult(bytes);
-        if (r.runIndex === run.runIndex && r.particles === run.particles && r.ensembleSeed === run.ensembleSeed) {
+        if (r.runIndex === run.runIndex && r.particles === run.particles && r.ensembleSeed === run.ensembleSeed && r.engineVersion === run.engineVersion) {
           results.set(run.runIndex, r);
           reused++;
         }
