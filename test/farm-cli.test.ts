@@ -9,7 +9,7 @@ import { parseSpec } from '../coordinator/spec/index.js';
 import { runTaskFor } from '../coordinator/plan.js';
 import { growthTaskOf } from '../proto/convert.js';
 import { createKernel } from '../worker/models.js';
-import { CLI, deleteKeys, REDIS_URL, ROOT, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
+import { privateRedis, CLI, deleteKeys, REDIS_URL, ROOT, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
 
 const run = promisify(execFile);
 const dir = tempDir('cli');
@@ -89,6 +89,23 @@ describe('tendril CLI (farm and embedded commands)', () => {
     const cancel = await cli('cancel', id, '--prefix', prefix);
     expect(cancel.stdout).toBe(`cancelled ${id}\n`);
   }, 120_000);
+
+  it('a Redis URL with a password works; a wrong password is one line', async () => {
+    const server = await privateRedis({ password: 'pa ss/word' });
+    try {
+      const spec = join(dir, 'pw.json');
+      writeFileSync(spec, JSON.stringify({ model: 'dla-offlattice-2d', particles: 100, clusters: 1, seed: 1 }));
+      const launched = await cli('launch', spec, '--redis', server.url);
+      expect(launched.code).toBe(0);
+      const list = await cli('list', '--redis', server.url);
+      expect(list.stdout).toContain(launched.stdout.trim());
+      const wrong = await cli('list', '--redis', `redis://:nope@127.0.0.1:${server.port}`);
+      expect(wrong.code).toBe(2);
+      expect(wrong.stderr).toMatch(/^tendril: --redis: cannot reach redis:\/\/\*\*\*@127\.0\.0\.1:\d+: .*\n$/);
+    } finally {
+      await server.cleanup();
+    }
+  });
 
   it('serve refuses a non-loopback address without a token', async () => {
     const r = await cli('serve', '--host', '0.0.0.0', '--prefix', prefix);

@@ -92,16 +92,16 @@ export interface PrivateRedis {
 }
 
 /** A redis-server of the test's own, with AOF persistence, on a free port in a temp folder. */
-export async function privateRedis(): Promise<PrivateRedis> {
+export async function privateRedis(opts: { password?: string } = {}): Promise<PrivateRedis> {
   const port = await freePort();
   const dir = tempDir('redis');
   let child: ChildProcess | undefined;
   const self: PrivateRedis = {
     port,
     dir,
-    url: `redis://127.0.0.1:${port}`,
+    url: opts.password ? `redis://:${encodeURIComponent(opts.password)}@127.0.0.1:${port}` : `redis://127.0.0.1:${port}`,
     async start() {
-      child = spawn('redis-server', ['--port', String(port), '--bind', '127.0.0.1', '--dir', dir, '--appendonly', 'yes', '--appendfsync', 'always', '--save', ''], { stdio: 'ignore' });
+      child = spawn('redis-server', ['--port', String(port), '--bind', '127.0.0.1', '--dir', dir, '--appendonly', 'yes', '--appendfsync', 'always', '--save', '', ...(opts.password ? ['--requirepass', opts.password] : [])], { stdio: 'ignore' });
       const r = new Redis(self.url, { lazyConnect: true, maxRetriesPerRequest: 0, retryStrategy: () => null });
       r.on('error', () => undefined);
       await waitFor('redis-server', async () => {
