@@ -21,6 +21,7 @@ const COMMANDS: Array<() => Promise<{ register: Register }>> = [
   () => import('./commands/watch.js'),
   () => import('./commands/worker.js'),
   () => import('./commands/serve.js'),
+  () => import('./commands/probe.js'),
 ];
 
 export async function main(argv: string[]): Promise<number> {
