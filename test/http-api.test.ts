@@ -40,9 +40,9 @@ describe('HTTP API', () => {
     id = res.json().id;
   });
 
-  it('creates an ensemble and queues one job per group of runs', async () => {
+  it('creates an ensemble and queues one job per run of a small ensemble', async () => {
     expect(id).toMatch(/^e[0-9a-z]+$/);
-    expect((await queue.getJobCounts('waiting')).waiting).toBe(1);
+    expect((await queue.getJobCounts('waiting')).waiting).toBe(2);
     const s = (await app.inject({ url: `/ensembles/${id}` })).json();
     expect(s.state).toBe('running');
     expect(s.runs).toEqual({ planned: 2, queued: 2, running: 0, done: 0, failed: 0 });

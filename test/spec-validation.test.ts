@@ -31,7 +31,15 @@ describe('ensemble spec', () => {
     expect(s.recordsPerDecade).toBe(10);
     expect(s.observables).toEqual(['radius_of_gyration', 'max_radius', 'center_offset', 'mass_radius']);
     expect(s.checkpointIntervalSeconds).toBe(300);
-    expect(s.runsPerJob).toBe(8); // 5000-particle clusters are batched up to 10^5 particles per job
+    expect(s.runsPerJob).toBe(1); // 8 clusters: one job each, to spread over workers
+  });
+
+  it('groups tiny clusters into jobs of at most 10^5 particles, keeping at least 64 jobs', async () => {
+    const { defaultRunsPerJob } = await import('../coordinator/spec/index.js');
+    expect(defaultRunsPerJob(100, 100000)).toBe(1000);
+    expect(defaultRunsPerJob(5000, 100000)).toBe(20);
+    expect(defaultRunsPerJob(5000, 640)).toBe(10);
+    expect(defaultRunsPerJob(1000000, 100)).toBe(1);
   });
 
   it('the canonical document re-validates to the same spec (JSON too)', () => {

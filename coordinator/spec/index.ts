@@ -140,12 +140,14 @@ export function parseSpec(text: string, format: 'toml' | 'json', limits?: SpecLi
 
 /**
  * Clusters per queue job when the spec does not say: one per job unless the
- * clusters are tiny, then enough to make a job of about 10^5 particles, so
- * that queue overhead stays small.
+ * clusters are tiny, then up to enough for a job of about 10^5 particles (so
+ * that queue overhead stays small), but never fewer than 64 jobs' worth of
+ * grouping, so that small ensembles still spread over many workers.
  */
 export function defaultRunsPerJob(particles: number, clusters: number): number {
-  const perJob = Math.max(1, Math.floor(100_000 / particles));
-  return Math.min(perJob, clusters, MAX_RUNS_PER_JOB);
+  const bySize = Math.max(1, Math.floor(100_000 / particles));
+  const bySpread = Math.max(1, Math.ceil(clusters / 64));
+  return Math.min(bySize, bySpread, MAX_RUNS_PER_JOB);
 }
 
 /** The canonical document of a validated spec (snake_case, defaults explicit); re-validates to the same spec. */
