@@ -1,0 +1,150 @@
+/**
+ * From probe hits to the harmonic measures of one set: the partition
+ * function and τ(q), D_q, f(α), the information dimension τ'(1), the
+ * maximum-concentration exponent against the Beurling bound, and the
+ * logarithmic capacity of the union of contact disks.
+ *
+ * Where the measure sits: when the set has at least 64 disks, each disk's
+ * hit count is placed at its centre (boxes much larger than a disk then see
+ * the right measure); for fewer disks the contact sample itself is used
+ * (weight 1 per contact point).
+ *
+ * Fit window (stated in the output): 10 log-spaced box sides from ε_lo to
+ * ε_hi = R/2, R = radius of the smallest circle about the bounding-box
+ * centre enclosing the disks. ε_lo = max(8 r_med, R/32) for disk centres
+ * (r_med = median contact radius; if that leaves less than a factor 8, ε_lo =
+ * ε_hi/8), and R/64 for contact points. A user window overrides both.
+ *
+ * Convergence per q: τ(q) is also fitted from the two halves of the probes
+ * (even and odd jobs; first and second half of the contact sample for the
+ * contact source); q is flagged converged when the halves agree within
+ * 0.05 + 0.05 |τ(q)| (our rule, no source).
+ *
+ * Beurling: the maximum box measure M(ε) ~ (ε/R)^a must have a ≥ 1/2 for a
+ * connected set (Garnett & Marshall 2005, Harmonic Measure); the check
+ * allows 0.05 for finite-size effects (our rule).
+ */
+import { boxStatistics, logSpaced, type WeightedPoints } from './partition-function.js';
+import { spectrumFrom, type Spectrum } from './spectrum.js';
+import { logCapacity, type CapacityEstimate } from './log-capacity.js';
+
+export const SIGN_CONVENTION =
+  'Z(q,eps) = sum over boxes of side eps of mu(box)^q ~ (eps/R)^tau(q); tau(1) = 0, D_q = tau(q)/(q-1), alpha = tau\'(q), f = q alpha - tau';
+
+export interface ProbeAnalysisInput {
+  count: number;
+  x: ArrayLike<number>;
+  y: ArrayLike<number>;
+  r: number | ArrayLike<number>;
+  /** Total hits per disk. */
+  counts: ArrayLike<number>;
+  /** Hits per disk of the two halves of the probes, or null (one job). */
+  halves: [ArrayLike<number>, ArrayLike<number>] | null;
+  contactX: ArrayLike<number>;
+  contactY: ArrayLike<number>;
+  contactCount: number;
+  q: number[];
+  /** Absolute box sides [lo, hi]; default: the rule in the file header. */
+  window?: [number, number];
+  scales?: number;
+}
+
+export interface HarmonicMeasures {
+  convention: string;
+  walkers: number;
+  disks: number;
+  measureSource: 'disk-centres' | 'contact-points';
+  radius: number;
+  window: { epsMin: number; epsMax: number; scales: number; relativeMin: number; relativeMax: number };
+  spectrum: Spectrum;
+  tauHalves: [number[], number[]] | null;
+  converged: Array<boolean | null>;
+  maxConcentration: { exponent: number; fitError: number; beurlingBound: number; consistentWithBeurling: boolean };
+  capacity: (CapacityEstimate & { set: string }) | null;
+}
+
+function radiusAt(r: number | ArrayLike<number>, i: number): number {
+  return typeof r === 'number' ? r : r[i];
+}
+
+export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
+  const n = inp.count;
+  let minX = Infinity, maxX = -Infinity, minY = Infinity, maxY = -Infinity;
+  for (let i = 0; i < n; i++) {
+    if (inp.x[i] < minX) minX = inp.x[i];
+    if (inp.x[i] > maxX) maxX = inp.x[i];
+    if (inp.y[i] < minY) minY = inp.y[i];
+    if (inp.y[i] > maxY) maxY = inp.y[i];
+  }
+  const cx = 0.5 * (minX + maxX);
+  const cy = 0.5 * (minY + maxY);
+  let radius = 0;
+  const rs: number[] = [];
+  for (let i = 0; i < n; i++) {
+    const ri = radiusAt(inp.r, i);
+    rs.push(ri);
+    const e = Math.hypot(inp.x[i] - cx, inp.y[i] - cy) + ri;
+    if (e > radius) radius = e;
+  }
+  rs.sort((a, b) => a - b);
+  const rMed = rs[rs.length >> 1];
+  const source: HarmonicMeasures['measureSource'] = n >= 64 ? 'disk-centres' : 'contact-points';
+  let walkers = 0;
+  for (let i = 0; i < n; i++) walkers += inp.counts[i];
+  const hi0 = radius / 2;
+  let lo0 = source === 'disk-centres' ? Math.max(8 * rMed, radius / 32) : radius / 64;
+  if (lo0 > hi0 / 8) lo0 = hi0 / 8;
+  const [lo, hi] = inp.window ?? [lo0, hi0];
+  const scales = inp.scales ?? 10;
+  const eps = logSpaced(lo, hi, scales);
+  const ox = cx - radius;
+  const oy = cy - radius;
+
+  const measureOf = (part: 'all' | 0 | 1): WeightedPoints => {
+    if (source === 'disk-centres') {
+      const w = part === 'all' ? inp.counts : (inp.halves as [ArrayLike<number>, ArrayLike<number>])[part];
+      return { count: n, x: inp.x, y: inp.y, w };
+    }
+    const m = inp.contactCount;
+    const h = m >> 1;
+    const from = part === 1 ? h : 0;
+    const to = part === 0 ? h : m;
+    return {
+      count: to - from,
+      x: Array.prototype.slice.call(inp.contactX, from, to) as number[],
+      y: Array.prototype.slice.call(inp.contactY, from, to) as number[],
+      w: null,
+    };
+  };
+  const spectrum = spectrumFrom(boxStatistics(measureOf('all'), eps, inp.q, ox, oy), radius);
+  const canHalve = source === 'contact-points' ? inp.contactCount >= 200 : inp.halves !== null;
+  let tauHalves: [number[], number[]] | null = null;
+  let converged: Array<boolean | null> = inp.q.map(() => null);
+  if (canHalve) {
+    const a = spectrumFrom(boxStatistics(measureOf(0), eps, inp.q, ox, oy), radius).tau;
+    const b = spectrumFrom(boxStatistics(measureOf(1), eps, inp.q, ox, oy), radius).tau;
+    tauHalves = [a, b];
+    converged = inp.q.map((_, k) => Math.abs(a[k] - b[k]) <= 0.05 + 0.05 * Math.abs(spectrum.tau[k]));
+  }
+  const capacity = inp.contactCount >= 3
+    ? { ...logCapacity(inp.contactX, inp.contactY, inp.contactCount), set: 'union of the contact disks' }
+    : null;
+  return {
+    convention: SIGN_CONVENTION,
+    walkers,
+    disks: n,
+    measureSource: source,
+    radius,
+    window: { epsMin: lo, epsMax: hi, scales, relativeMin: lo / radius, relativeMax: hi / radius },
+    spectrum,
+    tauHalves,
+    converged,
+    maxConcentration: {
+      exponent: spectrum.maxConcentrationExponent,
+      fitError: spectrum.maxConcentrationFitError,
+      beurlingBound: 0.5,
+      consistentWithBeurling: spectrum.maxConcentrationExponent >= 0.45,
+    },
+    capacity,
+  };
+}
