@@ -1,0 +1,326 @@
+/**
+ * The self-contained HTML report of an ensemble: one report.html that opens
+ * in a browser with no network (the SVG figures are inline, the font is
+ * embedded as a data: URI, no script), plus plots/<figure>.svg and
+ * plots/<figure>.png beside it.
+ *
+ * Contents: a header with the spec and the engine version, the estimates
+ * table (value, percentile and BCa intervals, method, fit window, status),
+ * the consistency panel (pair agreement, bounds, published value beside
+ * ours), the corrections-to-scaling fit, the notes of the analysis, and the
+ * figures of plots.ts. Every text is HTML-escaped. Degenerate analyses
+ * (estimator unavailable, no interval, a single cluster) give a note in place
+ * of the missing number or figure, never an exception.
+ */
+import { mkdir, writeFile } from 'node:fs/promises';
+import { join } from 'node:path';
+import type { GrowthResult } from '../../worker/growth-kernel.js';
+import { ENGINE_VERSION } from '../../worker/engine-version.js';
+import type { EnsembleAnalysis } from '../stats/analyze-ensemble.js';
+import type { IntervalSummary } from '../stats/bca.js';
+import { extractEnsembleData, type EnsembleData } from '../stats/ensemble-data.js';
+import { decodeSnapshot, type PointSet } from '../snapshot/cluster-snapshot.js';
+import { specToDocument, type EnsembleSpec } from '../spec/index.js';
+import { fmt, fmtAbscissa, fmtRange, labelOf, levelPercent, shownInterval } from './labels.js';
+import { clusterFigure, comparisonFigure, correctionsFigure, estimatorFigure, localSlopesFigure, type Figure } from './plots.js';
+import { embeddableFonts, pngRenderer } from './png-plot.js';
+import { escapeXml, FONT_FAMILY, parseRichText } from './svg-plot.js';
+
+export type SampleClusterInput = PointSet | Uint8Array | { points: PointSet | Uint8Array; runIndex?: number };
+
+export interface ReportInput {
+  analysis: EnsembleAnalysis;
+  /** The run results the analysis was made from (for the curves of the log-log plots). */
+  runs: readonly GrowthResult[];
+  spec?: EnsembleSpec;
+  /** One cluster to picture: a point set, snapshot bytes (coordinator/snapshot), or either with its run index. */
+  sampleCluster?: SampleClusterInput;
+  /** Page title; default from the spec name or the model kind. */
+  title?: string;
+  /** Ensemble id, shown in the header when given. */
+  ensembleId?: string;
+  /** Render PNG copies of the figures; default true. */
+  png?: boolean;
+  /** Scale of the PNGs relative to the SVG size; default 2. */
+  pngScale?: number;
+  /** Embed the Roboto font in the page (about 0.4 MB); default true. */
+  embedFont?: boolean;
+}
+
+export interface ReportFiles {
+  html: string;
+  svgs: string[];
+  pngs: string[];
+  /** Figure names in page order. */
+  figures: string[];
+  /** Remarks of the report itself (missing renderer, unreadable cluster, ...). */
+  notes: string[];
+}
+
+export const escapeHtml = escapeXml;
+
+/** Rich text (svg-plot syntax) as HTML with <sub>/<sup>. */
+export function richHtml(s: string): string {
+  return parseRichText(s).map((r) => (r.shift === -1 ? `<sub>${escapeHtml(r.text)}</sub>` : r.shift === 1 ? `<sup>${escapeHtml(r.text)}</sup>` : escapeHtml(r.text))).join('');
+}
+
+const STATUS_TEXT: Record<IntervalSummary['status'], string> = {
+  ok: 'ok',
+  degenerate: 'degenerate (all replicates equal)',
+  'too-few-clusters': 'too few clusters for an interval',
+  unstable: 'unstable (too many non-finite replicates)',
+  unavailable: 'unavailable',
+};
+
+function num(v: number | null | undefined, digits = 4): string {
+  return v === null || v === undefined ? '<td class="num na">–</td>' : `<td class="num" data-value="${escapeHtml(String(v))}">${escapeHtml(fmt(v, digits))}</td>`;
+}
+
+function range(r: [number, number] | null, digits = 4): string {
+  return r ? `<td class="num" data-lo="${escapeHtml(String(r[0]))}" data-hi="${escapeHtml(String(r[1]))}">${escapeHtml(fmtRange(r, digits))}</td>` : '<td class="num na">–</td>';
+}
+
+function statusCell(iv: IntervalSummary): string {
+  const cls = iv.status === 'ok' ? 'ok' : 'warn';
+  const extra = iv.status !== 'ok' && iv.notes.length ? `: ${iv.notes.join('; ')}` : '';
+  return `<td class="${cls}" data-status="${escapeHtml(iv.status)}">${escapeHtml(STATUS_TEXT[iv.status] + extra)}</td>`;
+}
+
+function estimatesTable(a: EnsembleAnalysis): string {
+  const rows: string[] = [];
+  for (const n of ['radiusOfGyration', 'maxRadius', 'massRadius'] as const) {
+    const e = a.estimators[n];
+    const w = e.fitWindow;
+    const win = w ? `${w.variable} = ${fmtAbscissa(w.firstUsed)} to ${fmtAbscissa(w.lastUsed)} (${w.points} points; ${w.source}${w.source === 'default' ? ': ' + w.rule : ''})` : '–';
+    if (!e.available) {
+      rows.push(`<tr data-estimator="${n}"><th>${richHtml(labelOf(n).rich)}</th><td colspan="3" class="warn">not available: ${escapeHtml(e.reason ?? 'unknown reason')}</td><td>${escapeHtml(e.method)}</td><td>${escapeHtml(win)}</td><td class="warn" data-status="unavailable">unavailable</td></tr>`);
+      continue;
+    }
+    rows.push(`<tr data-estimator="${n}"><th>${richHtml(labelOf(n).rich)}</th>${num(e.D)}${range(e.interval.percentile)}${range(e.interval.bca)}<td>${escapeHtml(e.method)}</td><td>${escapeHtml(win)}</td>${statusCell(e.interval)}</tr>`);
+  }
+  for (const n of ['radiusOfGyration', 'maxRadius'] as const) {
+    const c = a.corrections[n];
+    if (!c) continue;
+    const key = `${n}Corrected`;
+    const win = c.window ? `N = ${fmtAbscissa(c.window.from)} to ${fmtAbscissa(c.window.to)} (${c.window.points} points; ${c.window.source})` : '–';
+    if (!c.available) {
+      rows.push(`<tr data-estimator="${key}"><th>${richHtml(labelOf(key).rich)}</th><td colspan="3" class="warn">not available: ${escapeHtml(c.reason ?? 'unknown reason')}</td><td>${escapeHtml(c.method)}</td><td>${escapeHtml(win)}</td><td class="warn" data-status="unavailable">unavailable</td></tr>`);
+      continue;
+    }
+    rows.push(`<tr data-estimator="${key}"><th>${richHtml(labelOf(key).rich)}</th>${num(c.D.value)}${range(c.D.interval.percentile)}${range(c.D.interval.bca)}<td>${escapeHtml(c.method)}</td><td>${escapeHtml(win)}</td>${statusCell(c.D.interval)}</tr>`);
+  }
+  const lvl = `${Number((a.options.level * 100).toFixed(1))}%`;
+  return `<table id="estimates"><thead><tr><th>estimator</th><th>D</th><th>${lvl} percentile interval</th><th>${lvl} BCa interval</th><th>method</th><th>fit window</th><th>interval status</th></tr></thead><tbody>${rows.join('')}</tbody></table>`;
+}
+
+function yesNo(v: boolean | null, yes = 'yes', no = 'no'): string {
+  return v === null ? '<td class="na">–</td>' : `<td class="${v ? 'ok' : 'warn'}">${v ? yes : no}</td>`;
+}
+
+function consistencySection(a: EnsembleAnalysis): string {
+  const p = a.consistency;
+  const out: string[] = [];
+  if (p.reference) {
+    out.push(`<p class="reference">Published value for ${escapeHtml(p.modelKind ?? '')}: <b>D = ${escapeHtml(String(p.reference.D))} ± ${escapeHtml(String(p.reference.uncertainty))}</b> (${escapeHtml(p.reference.source)}); ${escapeHtml(p.reference.note)}.</p>`);
+  } else {
+    out.push(`<p class="reference">No published value is on record for model ${escapeHtml(p.modelKind ?? '(unknown)')}.</p>`);
+  }
+  const rows = p.rows.map((r) => `<tr><th>${richHtml(labelOf(r.name).rich)}</th>${num(r.D)}${range(r.interval)}<td>${escapeHtml(r.intervalKind ?? '–')}</td>${num(r.differenceFromReference)}${yesNo(r.referenceInsideInterval)}</tr>`);
+  out.push(`<h3>Estimates beside the published value</h3><table id="panel-rows"><thead><tr><th>estimator</th><th>D</th><th>interval used</th><th>kind</th><th>D − published</th><th>published value inside our interval</th></tr></thead><tbody>${rows.join('') || '<tr><td colspan="6" class="na">no estimate</td></tr>'}</tbody></table>`);
+  const pairs = p.pairs.map((q) => {
+    const sh = shownInterval(q.differenceInterval);
+    return `<tr><th>${richHtml(labelOf(q.a).rich)} − ${richHtml(labelOf(q.b).rich)}</th>${num(q.difference)}${range(sh.range)}<td>${escapeHtml(sh.kind ?? '–')}</td>${yesNo(q.intervalsOverlap)}${yesNo(q.agree, 'agree', 'disagree')}</tr>`;
+  });
+  out.push(`<h3>Agreement of pairs</h3><table id="panel-pairs"><thead><tr><th>pair</th><th>difference</th><th>interval of the paired difference</th><th>kind</th><th>individual intervals overlap</th><th>verdict (0 inside the difference interval)</th></tr></thead><tbody>${pairs.join('') || '<tr><td colspan="6" class="na">fewer than two estimators: no pairs</td></tr>'}</tbody></table>`);
+  const names = p.rows.map((r) => r.name);
+  const bounds = p.bounds.map((b) => `<tr><th>${escapeHtml(b.rule)}</th><td>${escapeHtml(b.source)}</td>${names.map((n) => { const s = b.status[n] ?? 'unknown'; return `<td class="${s === 'satisfied' ? 'ok' : s === 'unknown' ? 'na' : 'warn'}">${escapeHtml(s)}</td>`; }).join('')}</tr>`);
+  out.push(`<h3>Bounds</h3><table id="panel-bounds"><thead><tr><th>bound</th><th>source</th>${names.map((n) => `<th>${richHtml(labelOf(n).rich)}</th>`).join('')}</tr></thead><tbody>${bounds.join('') || `<tr><td colspan="${2 + names.length}" class="na">no bounds known for this model</td></tr>`}</tbody></table>`);
+  out.push(`<ul class="rules">${p.rules.map((r) => `<li>${escapeHtml(r)}</li>`).join('')}</ul>`);
+  return out.join('\n');
+}
+
+function correctionsSection(a: EnsembleAnalysis): string {
+  if (!a.options.corrections) return '<p class="na">The corrections-to-scaling fit was switched off.</p>';
+  const rows: string[] = [];
+  for (const n of ['radiusOfGyration', 'maxRadius'] as const) {
+    const c = a.corrections[n];
+    if (!c) continue;
+    if (!c.available) { rows.push(`<tr><th>${richHtml(labelOf(n).rich)}</th><td colspan="7" class="warn">not available: ${escapeHtml(c.reason ?? '')}</td></tr>`); continue; }
+    const cell = (v: { value: number | null; interval: IntervalSummary }, d = 4) => {
+      const sh = shownInterval(v.interval);
+      return v.value === null ? '<td class="na">–</td>' : `<td class="num" data-value="${escapeHtml(String(v.value))}">${escapeHtml(fmt(v.value, d))}${sh.range ? ` <span class="iv">${escapeHtml(fmtRange(sh.range, d))} ${escapeHtml(sh.kind ?? '')}</span>` : ''}</td>`;
+    };
+    const omega = c.omegaStatus === 'resolved' ? cell(c.omega, 3) : `<td class="warn">undetermined: ${escapeHtml(c.omegaReason ?? '')}</td>`;
+    rows.push(`<tr><th>${richHtml(labelOf(n).rich)}</th>${cell(c.D)}${omega}${cell(c.amplitude)}${cell(c.correctionAmplitude)}${cell(c.relativeCorrection)}<td>${escapeHtml(c.window ? `N = ${fmtAbscissa(c.window.from)} to ${fmtAbscissa(c.window.to)}, ${c.points} points (${c.window.source})` : '–')}</td><td class="num">${escapeHtml(c.rss === null ? '–' : c.rss.toExponential(3))} / ${escapeHtml(c.rssPowerLaw === null ? '–' : c.rssPowerLaw.toExponential(3))}</td></tr>`);
+  }
+  const method = a.corrections.radiusOfGyration?.method ?? a.corrections.maxRadius?.method ?? '';
+  return `<table id="corrections"><thead><tr><th>curve</th><th>D</th><th>ω</th><th>A</th><th>B</th><th>B N<sub>min</sub><sup>−ω</sup></th><th>window</th><th>residual sum of squares: with correction / pure power law</th></tr></thead><tbody>${rows.join('') || '<tr><td colspan="8" class="na">no corrections fit</td></tr>'}</tbody></table><p class="method">${escapeHtml(method)}</p>`;
+}
+
+function notesSection(a: EnsembleAnalysis, own: string[]): string {
+  const items: string[] = [];
+  for (const n of a.notes) items.push(n);
+  for (const n of ['radiusOfGyration', 'maxRadius', 'massRadius'] as const) {
+    const e = a.estimators[n];
+    for (const t of e.interval.notes) items.push(`${labelOf(n).plain}: ${t}`);
+  }
+  for (const n of own) items.push(n);
+  const uniq = [...new Set(items)];
+  return uniq.length ? `<ul id="notes">${uniq.map((t) => `<li>${escapeHtml(t)}</li>`).join('')}</ul>` : '<p id="notes" class="na">No remarks.</p>';
+}
+
+function headerSection(input: ReportInput, title: string): string {
+  const a = input.analysis;
+  const engines = [...new Set(input.runs.map((r) => r.engineVersion))];
+  const facts: [string, string][] = [];
+  if (input.ensembleId) facts.push(['ensemble', input.ensembleId]);
+  facts.push(['model', a.modelKind ?? '(unknown)']);
+  facts.push(['clusters analysed', `${a.clusters}${a.duplicatesDropped ? ` (${a.duplicatesDropped} duplicate result(s) counted once)` : ''}`]);
+  facts.push(['final cluster size N', String(a.finalSize)]);
+  facts.push(['engine version of the runs', engines.length ? engines.join(', ') : '(no runs)']);
+  facts.push(['engine version of this coordinator', ENGINE_VERSION]);
+  facts.push(['bootstrap', `${a.options.resamples} resamples of whole clusters, level ${levelPercent({ level: a.options.level } as IntervalSummary)}, seed ${a.options.seed}; ${a.options.generator}`]);
+  facts.push(['averaging', a.averaging]);
+  const factRows = facts.map(([k, v]) => `<tr><th>${escapeHtml(k)}</th><td>${escapeHtml(v)}</td></tr>`).join('');
+  let spec = '';
+  if (input.spec) {
+    const doc = specToDocument(input.spec);
+    spec = `<h3>Ensemble spec</h3><table id="spec"><tbody>${Object.entries(doc).map(([k, v]) => `<tr><th>${escapeHtml(k)}</th><td><code>${escapeHtml(typeof v === 'string' ? v : JSON.stringify(v))}</code></td></tr>`).join('')}</tbody></table>`;
+  } else spec = '<p class="na">No spec was given to the report.</p>';
+  // headline: D from R_g (the primary estimator) with its interval
+  const rg = a.estimators.radiusOfGyration;
+  const sh = shownInterval(rg.interval);
+  const headline = rg.available && rg.D !== null
+    ? `<p class="headline">D from R<sub>g</sub>(N) = <b>${escapeHtml(fmt(rg.D))}</b>${sh.range ? `, ${escapeHtml(levelPercent(rg.interval))} ${escapeHtml(sh.kind ?? '')} interval <b>${escapeHtml(fmtRange(sh.range))}</b>` : ` <span class="warn">(no interval: ${escapeHtml(STATUS_TEXT[rg.interval.status])})</span>`}${a.consistency.reference ? `; published ${escapeHtml(String(a.consistency.reference.D))}` : ''}.</p>`
+    : `<p class="headline warn">D from R<sub>g</sub>(N) is not available: ${escapeHtml(rg.reason ?? 'unknown reason')}.</p>`;
+  const mismatch = engines.length > 1 ? `<p class="warn">Runs of different engine versions are mixed: ${escapeHtml(engines.join(', '))}.</p>` : '';
+  return `<header><h1>${escapeHtml(title)}</h1>${headline}${mismatch}<table id="facts"><tbody>${factRows}</tbody></table>${spec}</header>`;
+}
+
+const CSS = `
+body { font-family: ${FONT_FAMILY}; margin: 24px auto; max-width: 1120px; padding: 0 16px; color: #111; line-height: 1.4; }
+h1 { font-size: 26px; margin-bottom: 6px; } h2 { margin-top: 34px; border-bottom: 1px solid #ccc; padding-bottom: 4px; } h3 { margin-bottom: 6px; }
+table { border-collapse: collapse; margin: 8px 0 14px; font-size: 14px; }
+th, td { border: 1px solid #d0d0d0; padding: 4px 8px; text-align: left; vertical-align: top; }
+thead th { background: #f2f2f2; } td.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
+td.ok { color: #05620f; } .warn { color: #a00000; } .na { color: #777; }
+.headline { font-size: 19px; } .iv { color: #555; font-size: 12px; } .method { color: #444; font-size: 13px; }
+figure { margin: 18px 0 28px; } figure svg { max-width: 100%; height: auto; border: 1px solid #eee; }
+figcaption { font-size: 14px; color: #333; max-width: 860px; } figcaption a { margin-right: 10px; }
+code, pre { font-family: 'DejaVu Sans Mono', Menlo, Consolas, monospace; font-size: 12.5px; } pre { background: #f7f7f7; padding: 8px; overflow-x: auto; }
+`;
+
+function fontFaces(): string {
+  return embeddableFonts().map((f) => `@font-face { font-family: 'Roboto'; font-style: ${f.style}; font-weight: ${f.weight === 'bold' ? 700 : 400}; src: url(data:font/ttf;base64,${f.base64}) format('truetype'); }`).join('\n');
+}
+
+function figureHtml(f: Figure, hasPng: boolean): string {
+  const links = `<a href="plots/${escapeHtml(f.name)}.svg">SVG</a>${hasPng ? `<a href="plots/${escapeHtml(f.name)}.png">PNG</a>` : ''}`;
+  return `<figure id="figure-${escapeHtml(f.name)}">${f.svg}<figcaption>${richHtml(f.caption)} ${links}</figcaption></figure>`;
+}
+
+function resolveSample(s: SampleClusterInput): { points: PointSet; runIndex: number | null } {
+  if (s instanceof Uint8Array) return { points: decodeSnapshot(s), runIndex: null };
+  if ('points' in s) return { points: s.points instanceof Uint8Array ? decodeSnapshot(s.points) : s.points, runIndex: s.runIndex ?? null };
+  return { points: s, runIndex: null };
+}
+
+/** Build the figures and the page (no I/O). */
+export function buildEnsembleReport(input: ReportInput): { html: string; figures: Figure[]; extraPngs: { name: string; png: Buffer }[]; notes: string[] } {
+  const a = input.analysis;
+  const notes: string[] = [];
+  let data: EnsembleData | null = null;
+  try {
+    data = extractEnsembleData(input.runs);
+    if (data.clusters !== a.clusters) notes.push(`the runs given to the report hold ${data.clusters} cluster(s), the analysis ${a.clusters}: curves are drawn from the runs`);
+  } catch (e) {
+    notes.push(`the run results could not be read for the curves: ${(e as Error).message}`);
+  }
+  if (a.clusters === 1) notes.push('a single cluster: no spread across clusters and no bootstrap intervals');
+  const figures: Figure[] = [];
+  figures.push(comparisonFigure(a));
+  for (const n of ['radiusOfGyration', 'maxRadius', 'massRadius'] as const) {
+    if (a.estimators[n].reason === 'not requested') continue;
+    figures.push(estimatorFigure(a, data, n));
+  }
+  figures.push(localSlopesFigure(a, 'N'));
+  if (a.estimators.massRadius.reason !== 'not requested') figures.push(localSlopesFigure(a, 'r'));
+  if (a.options.corrections) figures.push(correctionsFigure(a, data));
+  const extraPngs: { name: string; png: Buffer }[] = [];
+  if (input.sampleCluster !== undefined) {
+    try {
+      const s = resolveSample(input.sampleCluster);
+      if (s.points.count === 0) throw new Error('the sample cluster has no particles');
+      const pic = clusterFigure(s.points, s.runIndex);
+      figures.push(pic.figure);
+      extraPngs.push({ name: 'sample-cluster-raster', png: pic.png });
+    } catch (e) {
+      notes.push(`no sample cluster picture: ${(e as Error).message}`);
+    }
+  } else notes.push('no sample cluster was given: no cluster picture');
+  for (const f of figures) if (f.note) notes.push(`figure ${f.name}: ${f.note}`);
+
+  const title = input.title ?? `Ensemble report: ${input.spec?.name ?? a.modelKind ?? 'unnamed ensemble'}`;
+  const wantPng = input.png ?? true;
+  const hasPng = wantPng && pngRenderer().renderer !== null;
+  const html = [
+    '<!DOCTYPE html>',
+    '<html lang="en"><head><meta charset="utf-8">',
+    `<title>${escapeHtml(title)}</title>`,
+    '<meta name="viewport" content="width=device-width, initial-scale=1">',
+    `<style>${input.embedFont ?? true ? fontFaces() : ''}${CSS}</style>`,
+    '</head><body>',
+    headerSection(input, title),
+    '<h2 id="section-estimates">Estimates of the fractal dimension</h2>',
+    estimatesTable(a),
+    '<h2 id="section-consistency">Consistency</h2>',
+    consistencySection(a),
+    '<h2 id="section-corrections">Corrections to scaling</h2>',
+    correctionsSection(a),
+    '<h2 id="section-notes">Notes</h2>',
+    notesSection(a, notes),
+    '<h2 id="section-figures">Figures</h2>',
+    ...figures.map((f) => figureHtml(f, hasPng)),
+    '<h2 id="section-options">Analysis options</h2>',
+    `<pre id="options">${escapeHtml(JSON.stringify(a.options, null, 2))}</pre>`,
+    '</body></html>',
+    '',
+  ].join('\n');
+  return { html, figures, extraPngs, notes };
+}
+
+/**
+ * Write report.html, plots/*.svg and plots/*.png into `dir` (created if
+ * missing). Returns the paths written and the report's own remarks.
+ */
+export async function writeEnsembleReport(dir: string, input: ReportInput): Promise<ReportFiles> {
+  const { renderer, reason } = input.png ?? true ? pngRenderer() : { renderer: null, reason: null };
+  const built = buildEnsembleReport(input);
+  const notes = [...built.notes];
+  if (reason) notes.push(reason);
+  const plots = join(dir, 'plots');
+  await mkdir(plots, { recursive: true });
+  const svgs: string[] = [], pngs: string[] = [];
+  for (const f of built.figures) {
+    const svgPath = join(plots, `${f.name}.svg`);
+    await writeFile(svgPath, `<?xml version="1.0" encoding="UTF-8"?>\n${f.svg}\n`);
+    svgs.push(svgPath);
+    if (renderer) {
+      try {
+        const pngPath = join(plots, `${f.name}.png`);
+        await writeFile(pngPath, renderer.render(f.svg, input.pngScale ?? 2));
+        pngs.push(pngPath);
+      } catch (e) {
+        notes.push(`PNG of ${f.name} failed: ${(e as Error).message}`);
+      }
+    }
+  }
+  for (const x of built.extraPngs) {
+    const p = join(plots, `${x.name}.png`);
+    await writeFile(p, x.png);
+    pngs.push(p);
+  }
+  const html = join(dir, 'report.html');
+  await writeFile(html, built.html);
+  return { html, svgs, pngs, figures: built.figures.map((f) => f.name), notes };
+}
