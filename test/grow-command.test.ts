@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { defaultModelParams } from '../worker/models.js';
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -58,7 +59,7 @@ describe('tendril grow, end to end', () => {
     expect(rr.particles).toBe(N);
     expect(rr.ensembleSeed).toBe('42');
     expect(rr.runIndex).toBe(0);
-    expect(rr.model).toEqual({ kind: 'dla-offlattice-2d', minStep: 0.25, launchMargin: 2 });
+    expect(rr.model).toEqual(defaultModelParams('dla-offlattice-2d'));
     expect(rr.stateHash).toMatch(/^[0-9a-f]{8,}$/);
     expect(rr.counters.jumps).toBeGreaterThan(N);
     expect(rr.series.sizes.length).toBeGreaterThan(20);
