@@ -1,0 +1,85 @@
+import { describe, expect, it } from 'vitest';
+import { boxStatistics, logSpaced } from '../coordinator/harmonic/partition-function.js';
+import { spectrumFrom } from '../coordinator/harmonic/spectrum.js';
+import { logCapacity } from '../coordinator/harmonic/log-capacity.js';
+import { ensembleMeanInterval } from '../coordinator/harmonic/ensemble-intervals.js';
+import { Random } from '../worker/random.js';
+
+const Q = [-1, 0, 0.5, 1, 2, 3, 4];
+
+describe('partition function and spectrum on exact measures', () => {
+  it('uniform measure on a circle: tau(q) = q - 1, f(alpha = 1) = 1 (smooth curve; exact)', () => {
+    const K = 200000;
+    const x = new Float64Array(K);
+    const y = new Float64Array(K);
+    for (let k = 0; k < K; k++) { x[k] = Math.cos((2 * Math.PI * (k + 0.5)) / K); y[k] = Math.sin((2 * Math.PI * (k + 0.5)) / K); }
+    const st = boxStatistics({ count: K, x, y, w: null }, logSpaced(2e-3, 0.1, 10), Q, -1, -1);
+    const s = spectrumFrom(st, 1);
+    Q.forEach((q, k) => expect(Math.abs(s.tau[k] - (q - 1))).toBeLessThan(0.03));
+    const i1 = Q.indexOf(1);
+    expect(s.alpha[i1]).toBeCloseTo(1, 1);
+    expect(s.f[i1]).toBeCloseTo(1, 1);
+    expect(s.maxConcentrationExponent).toBeCloseTo(1, 1);
+  });
+
+  it('arcsine measure of a segment: tau(q) = min(q - 1, q/2), max-concentration exponent 1/2 (Beurling saturated)', () => {
+    // Harmonic measure of [-1, 1] from infinity has density 1/(pi sqrt(1 - x^2)) (exact, Joukowski
+    // map); the Chebyshev nodes cos(pi (k + 1/2)/K) with equal weights are its exact quadrature.
+    const K = 400000;
+    const x = new Float64Array(K);
+    for (let k = 0; k < K; k++) x[k] = Math.cos((Math.PI * (k + 0.5)) / K);
+    const y = new Float64Array(K);
+    const st = boxStatistics({ count: K, x, y, w: null }, logSpaced(1e-4, 1e-2, 10), Q, -1, -1);
+    const s = spectrumFrom(st, 1);
+    const want = (q: number): number => Math.min(q - 1, q / 2);
+    // q = 2 sits at the crossover and carries a logarithmic correction: looser there
+    Q.forEach((q, k) => expect(Math.abs(s.tau[k] - want(q)), `q = ${q}`).toBeLessThan(q === 2 ? 0.15 : 0.06));
+    expect(Math.abs(s.maxConcentrationExponent - 0.5)).toBeLessThan(0.03);
+    expect(Math.abs(s.informationDimension - 1)).toBeLessThan(0.03);
+  });
+});
+
+describe('logarithmic capacity from samples of the harmonic measure', () => {
+  const rng = Random.forRun('99', 0, 1);
+  const M = 3000;
+  it('disk of radius 2: capacity 2 (Ransford 1995, Table 5.1)', () => {
+    const x: number[] = [], y: number[] = [];
+    for (let i = 0; i < M; i++) { const t = 2 * Math.PI * rng.nextDouble(); x.push(2 * Math.cos(t)); y.push(2 * Math.sin(t)); }
+    const c = logCapacity(x, y, M);
+    expect(Math.abs(c.capacity - 2)).toBeLessThan(4 * c.capacityError);
+    expect(c.capacityError).toBeLessThan(0.01);
+  });
+  it('segment of length 4: capacity L/4 = 1 (same source)', () => {
+    const x: number[] = [], y: number[] = [];
+    for (let i = 0; i < M; i++) { x.push(2 * Math.cos(Math.PI * rng.nextDouble())); y.push(0); }
+    const c = logCapacity(x, y, M);
+    expect(Math.abs(c.capacity - 1)).toBeLessThan(4 * c.capacityError);
+  });
+  it('ellipse a = 3, b = 1: capacity (a + b)/2 = 2 (same source); harmonic measure = uniform theta in (a cos theta, b sin theta) (Joukowski map)', () => {
+    const x: number[] = [], y: number[] = [];
+    for (let i = 0; i < M; i++) { const t = 2 * Math.PI * rng.nextDouble(); x.push(3 * Math.cos(t)); y.push(Math.sin(t)); }
+    const c = logCapacity(x, y, M);
+    expect(Math.abs(c.capacity - 2)).toBeLessThan(4 * c.capacityError);
+    // a wrong measure is detected: uniform arc length on the same ellipse gives a different energy
+    const u: number[] = [], v: number[] = [];
+    while (u.length < M) { const t = 2 * Math.PI * rng.nextDouble(); const w = Math.hypot(3 * Math.sin(t), Math.cos(t)) / 3; if (rng.nextDouble() < w) { u.push(3 * Math.cos(t)); v.push(Math.sin(t)); } }
+    const d = logCapacity(u, v, M);
+    expect(Math.abs(d.capacity - 2)).toBeGreaterThan(4 * d.capacityError);
+  });
+});
+
+describe('ensemble intervals', () => {
+  it('cluster bootstrap of a mean: interval covers the mean with a width near 2 x 1.96 sd/sqrt(K) (common practice, no source)', () => {
+    const rng = Random.forRun('5', 0, 2);
+    const vals: number[] = [];
+    for (let i = 0; i < 40; i++) vals.push(0.5 + 0.1 * Math.sqrt(-2 * Math.log(rng.nextOpen32())) * Math.cos(2 * Math.PI * rng.nextDouble()));
+    const r = ensembleMeanInterval(vals, '7');
+    expect(r.interval.status).toBe('ok');
+    const [lo, hi] = r.interval.bca as [number, number];
+    expect(lo).toBeLessThan(r.mean);
+    expect(hi).toBeGreaterThan(r.mean);
+    expect(hi - lo).toBeGreaterThan(0.03);
+    expect(hi - lo).toBeLessThan(0.1);
+    expect(ensembleMeanInterval([1, 2], '7').interval.status).toBe('too-few-clusters');
+  });
+});
