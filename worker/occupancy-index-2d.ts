@@ -19,6 +19,8 @@
  *    children are unmarked), so the largest unmarked level is unique and the
  *    query result does not depend on where the search starts — which keeps
  *    results independent of the order of queries, and so of checkpoints.
+ *    Each level-k cell whose parent (level k + 1) is marked carries a PARENT
+ *    bit, so a walker that stays at its level is answered by one lookup.
  * Every grid is sparse (worker/tiled-grids.ts): memory grows with the number
  * of particles, not with the area.
  */
@@ -32,6 +34,8 @@ const MAX_LEVEL = 24;
 const MARKED = 1;
 /** Bit in a mark cell: the cell itself holds a centre. */
 const HOLDS = 2;
+/** Bit in a mark cell at level k: its parent cell at level k + 1 is marked. */
+const PARENT = 4;
 /**
  * Marks extend this many cells around a centre's cell at every level (a
  * 5 × 5 block). Wider marks give longer jumps per query but send more
@@ -137,8 +141,21 @@ export class OccupancyIndex2d {
       // A cell that already holds a centre has its block marked, and so does
       // every coarser cell containing it: nothing left to do.
       if ((old & HOLDS) !== 0) break;
+      const below = k > 0 ? this.marks[k - 1] : null;
       for (let dy = -DILATION; dy <= DILATION; dy++)
-        for (let dx = -DILATION; dx <= DILATION; dx++) if (dx !== 0 || dy !== 0) t.orBits(ix + dx, iy + dy, MARKED);
+        for (let dx = -DILATION; dx <= DILATION; dx++) {
+          const was = dx === 0 && dy === 0 ? old : t.orBits(ix + dx, iy + dy, MARKED);
+          if ((was & MARKED) === 0 && below !== null) {
+            // newly marked: tell its four children, so that a query can stop
+            // at the largest unmarked level with one lookup
+            const jx = 2 * (ix + dx);
+            const jy = 2 * (iy + dy);
+            below.orBits(jx, jy, PARENT);
+            below.orBits(jx + 1, jy, PARENT);
+            below.orBits(jx, jy + 1, PARENT);
+            below.orBits(jx + 1, jy + 1, PARENT);
+          }
+        }
     }
   }
 
@@ -179,16 +196,24 @@ export class OccupancyIndex2d {
    */
   query(wx: number, wy: number): void {
     let k = this.guess;
-    if (this.isMarked(k, wx, wy)) {
-      while (k > 0 && this.isMarked(k - 1, wx, wy)) k--;
-      if (k === 0) {
-        this.guess = 0;
-        this.exactScan(wx, wy);
-        return;
-      }
-      k--; // level k − 1 is the largest unmarked one
+    let v = this.cellMarks(k, wx, wy);
+    if ((v & MARKED) !== 0) {
+      // go down to the first unmarked level (its parent is marked)
+      do {
+        if (k === 0) {
+          this.guess = 0;
+          this.exactScan(wx, wy);
+          return;
+        }
+        k--;
+        v = this.cellMarks(k, wx, wy);
+      } while ((v & MARKED) !== 0);
     } else {
-      while (k < MAX_LEVEL && !this.isMarked(k + 1, wx, wy)) k++;
+      // unmarked: go up while the parent is unmarked too
+      while ((v & PARENT) === 0 && k < MAX_LEVEL) {
+        k++;
+        v = this.cellMarks(k, wx, wy);
+      }
     }
     this.guess = k;
     this.nearCount = -1;
@@ -200,9 +225,10 @@ export class OccupancyIndex2d {
     this.free = DILATION * side + edge - 1;
   }
 
-  private isMarked(k: number, wx: number, wy: number): boolean {
+  /** Mark bits of the level-k cell holding (wx, wy). */
+  private cellMarks(k: number, wx: number, wy: number): number {
     const scale = SCALES[k];
-    return (this.marks[k].get(Math.floor(wx * scale) | 0, Math.floor(wy * scale) | 0) & MARKED) !== 0;
+    return this.marks[k].get(Math.floor(wx * scale) | 0, Math.floor(wy * scale) | 0);
   }
 
   private exactScan(wx: number, wy: number): void {
