@@ -1,0 +1,78 @@
+import { describe, expect, it, beforeAll } from 'vitest';
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, writeFileSync, existsSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+
+const CLI = join(process.cwd(), 'dist/coordinator/cli.js');
+function tendril(args: string[]) {
+  return spawnSync(process.execPath, [CLI, ...args], { encoding: 'utf8', timeout: 60000 });
+}
+
+describe('tendril probe', () => {
+  let dir: string;
+  let csv: string;
+  beforeAll(() => {
+    dir = mkdtempSync(join(tmpdir(), 'tendril-probe-'));
+    csv = join(dir, 'disks.csv');
+    const rows = ['x,y,r'];
+    for (let i = 0; i < 80; i++) rows.push(`${Math.cos(i / 5) * (3 + i / 4)},${Math.sin(i / 5) * (3 + i / 4)},0.5`);
+    writeFileSync(csv, rows.join('\n') + '\n');
+  });
+
+  it('writes measures, hit counts and a picture; threads do not change the counts', () => {
+    const a = tendril(['probe', csv, '--walkers', '4000', '--seed', '3', '--out', join(dir, 'a'), '--jobs', '4']);
+    expect(a.status, a.stderr).toBe(0);
+    const b = tendril(['probe', csv, '--walkers', '4000', '--seed', '3', '--out', join(dir, 'b'), '--jobs', '4', '--threads', '2']);
+    expect(b.status, b.stderr).toBe(0);
+    const hitsA = readFileSync(join(dir, 'a', 'probe-hits.csv'), 'utf8');
+    expect(hitsA).toBe(readFileSync(join(dir, 'b', 'probe-hits.csv'), 'utf8'));
+    const lines = hitsA.trim().split('\n');
+    expect(lines[0]).toBe('index,x,y,r,hits,measure');
+    expect(lines.length).toBe(81);
+    expect(lines.slice(1).reduce((s, l) => s + Number(l.split(',')[4]), 0)).toBe(4000);
+    const m = JSON.parse(readFileSync(join(dir, 'a', 'probe-measures.json'), 'utf8'));
+    expect(m.walkers).toBe(4000);
+    expect(m.spectrum.q.length).toBe(25);
+    expect(m.spectrum.tau.length).toBe(25);
+    expect(m.capacity.capacity).toBeGreaterThan(0);
+    expect(m.converged.length).toBe(25);
+    expect(typeof m.maxConcentration.exponent).toBe('number');
+    expect(readFileSync(join(dir, 'a', 'probe-measure.png')).subarray(1, 4).toString()).toBe('PNG');
+  });
+
+  it('probes a grown snapshot', () => {
+    const g = tendril(['grow', '--particles', '300', '--seed', '2', '--out', join(dir, 'g'), '--quiet']);
+    expect(g.status, g.stderr).toBe(0);
+    const p = tendril(['probe', join(dir, 'g', 'cluster.snapshot'), '--walkers', '3000', '--seed', '1', '--out', join(dir, 'gp'), '--q-grid', '0:3:1']);
+    expect(p.status, p.stderr).toBe(0);
+    const m = JSON.parse(readFileSync(join(dir, 'gp', 'probe-measures.json'), 'utf8'));
+    expect(m.input.kind).toBe('snapshot');
+    expect(m.spectrum.q).toEqual([0, 1, 2, 3]);
+  });
+
+  it.each([
+    [['--walkers', '5'], /--walkers must be an integer in \[100, 10000000000\], got "5"/],
+    [['--walkers', '1000', '--jobs', '0'], /--jobs must be an integer in \[1, 4096\], got "0"/],
+    [['--walkers', '1000', '--q-grid', '3:1:1'], /--q-grid must be a:b:step .* got "3:1:1"/],
+    [['--walkers', '1000', '--threads', '99'], /--threads must be an integer in \[1, 64\], got "99"/],
+    [['--walkers', '1000', '--min-step', '2'], /--min-step must be a number in \(0, 1\], got "2"/],
+  ])('refuses %j with one line naming the option', (extra, re) => {
+    const r = tendril(['probe', csv, '--seed', '1', '--out', join(dir, 'bad'), ...(extra as string[])]);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(re as RegExp);
+    expect(r.stderr.trim().split('\n').length).toBe(1);
+  });
+
+  it('refuses bad inputs with one line', () => {
+    const bad = join(dir, 'bad.csv');
+    writeFileSync(bad, 'x,y,r\n1,2,0.5\n3,4,-1\n');
+    const r = tendril(['probe', bad, '--walkers', '1000', '--seed', '1', '--out', join(dir, 'bad2')]);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(/line 3: r must be a finite number > 0, got "-1"/);
+    const missing = tendril(['probe', join(dir, 'nope.csv'), '--walkers', '1000', '--seed', '1', '--out', join(dir, 'bad3')]);
+    expect(missing.status).toBe(2);
+    expect(missing.stderr).toMatch(/INPUT .*nope.csv" cannot be read: ENOENT/);
+    expect(existsSync(join(dir, 'bad3', 'probe-measures.json'))).toBe(false);
+  });
+});
