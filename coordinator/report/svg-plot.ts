@@ -531,8 +531,8 @@ export class Plot {
     parts.push(...tickLabels);
     parts.push(...labels);
     // axis labels
-    parts.push(svgText((px0 + px1) / 2, H - 14, o.x.label, { size: LABEL_FONT, anchor: 'middle' }));
-    parts.push(svgText(20, (py0 + py1) / 2, o.y.label, { size: LABEL_FONT, anchor: 'middle', rotate: -90, dyEm: 0 }));
+    if (o.x.label) parts.push(svgText((px0 + px1) / 2, H - 14, o.x.label, { size: LABEL_FONT, anchor: 'middle' }));
+    if (o.y.label) parts.push(svgText(20, (py0 + py1) / 2, o.y.label, { size: LABEL_FONT, anchor: 'middle', rotate: -90, dyEm: 0 }));
     // below the axis label: legend (if 'below') and notes; the picture grows to hold them
     let extra = 0;
     const pos = o.legend ?? 'auto';
