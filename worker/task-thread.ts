@@ -141,7 +141,6 @@ export class TaskThreadPool {
 
   private spawn(): Slot {
     const worker = new Worker(threadEntry());
-    worker.unref();
     const slot: Slot = { worker, busy: false };
     this.slots.push(slot);
     return slot;
