@@ -216,6 +216,7 @@ describe('ensemble report from degenerate inputs', () => {
     const cmp = readFileSync(join(files.html, '..', 'plots', 'estimator-comparison.svg'), 'utf8');
     expect(cmp).toContain('not available: no mass-radius counts');
     expect(cmp).toContain('no interval: unstable');
+    expect(html).not.toContain('id="file-notes"');
   });
 
   it('runs that cannot be read still give a report of the analysis', async () => {

@@ -320,7 +320,12 @@ export async function writeEnsembleReport(dir: string, input: ReportInput): Prom
     await writeFile(p, x.png);
     pngs.push(p);
   }
+  // remarks that arose while writing (renderer missing, a PNG failed) go on the page too
+  const late = notes.filter((n) => !built.notes.includes(n));
+  const page = late.length
+    ? built.html.replace('<h2 id="section-figures">', `<ul class="warn" id="file-notes">${late.map((n) => `<li>${escapeHtml(n)}</li>`).join('')}</ul>\n<h2 id="section-figures">`)
+    : built.html;
   const html = join(dir, 'report.html');
-  await writeFile(html, built.html);
+  await writeFile(html, page);
   return { html, svgs, pngs, figures: built.figures.map((f) => f.name), notes };
 }

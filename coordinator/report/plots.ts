@@ -191,12 +191,12 @@ export function comparisonFigure(analysis: EnsembleAnalysis): Figure {
   for (const n of ['radiusOfGyration', 'maxRadius', 'massRadius'] as const) {
     const e = analysis.estimators[n];
     if (e.reason === 'not requested') continue;
-    rows.push({ name: n, D: e.D, percentile: e.interval.percentile, bca: e.interval.bca, why: e.available ? (e.interval.percentile || e.interval.bca ? null : `no interval: ${e.interval.status}`) : `not available: ${e.reason}` });
+    rows.push({ name: n, D: e.D, percentile: e.interval.percentile, bca: e.interval.bca, why: e.available ? (e.interval.percentile || e.interval.bca ? null : `no interval: ${e.interval.status.replace(/-/g, ' ')}`) : `not available: ${e.reason}` });
   }
   for (const n of ['radiusOfGyration', 'maxRadius'] as const) {
     const c = analysis.corrections[n];
     if (!c) continue;
-    rows.push({ name: `${n}Corrected`, D: c.D.value, percentile: c.D.interval.percentile, bca: c.D.interval.bca, why: c.available ? (c.D.interval.percentile || c.D.interval.bca ? null : `no interval: ${c.D.interval.status}`) : `not available: ${c.reason}` });
+    rows.push({ name: `${n}Corrected`, D: c.D.value, percentile: c.D.interval.percentile, bca: c.D.interval.bca, why: c.available ? (c.D.interval.percentile || c.D.interval.bca ? null : `no interval: ${c.D.interval.status.replace(/-/g, ' ')}`) : `not available: ${c.reason}` });
   }
   if (rows.length === 0) return emptyFigure(file, title, 'no estimator was requested');
   const values: number[] = [];
