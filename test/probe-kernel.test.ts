@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { ProbeGeometry, addProbeCounts, planProbeJobs, runProbeJob } from '../worker/probe-2d.js';
 import { logCapacity } from '../coordinator/harmonic/log-capacity.js';
 import { createKernel, defaultModelParams } from '../worker/models.js';
+import { Random } from '../worker/random.js';
 
 function probe(set: ConstructorParameters<typeof ProbeGeometry>[0], walkers: number, jobs: number, sample: number, seed = '11', minStep = 0.02) {
   const g = new ProbeGeometry(set);
@@ -104,6 +105,25 @@ describe('probe kernel', () => {
       chi2 += (ga[g] - t / 2) ** 2 / (t / 2) + (gb[g] - t / 2) ** 2 / (t / 2);
     }
     expect(chi2).toBeLessThan(43.8); // 19 degrees of freedom, p = 0.001
+  });
+
+  it('the far-field grid never overstates the free distance (brute force)', () => {
+    const k = createKernel({ model: defaultModelParams('dla-offlattice-2d'), particles: 500, ensembleSeed: '9', runIndex: 0, recordsPerDecade: 10 });
+    k.growTo(500);
+    const p = k.positions();
+    const g = new ProbeGeometry({ count: 500, x: p.x.slice(0, 500), y: p.y.slice(0, 500), r: 1 });
+    const rng = Random.forRun('3', 0, 1);
+    let checked = 0;
+    for (let t = 0; t < 20000; t++) {
+      const wx = g.gridMin + g.gridCells * g.gridSide * rng.nextDouble();
+      const wy = g.gridMin + g.gridCells * g.gridSide * rng.nextDouble();
+      let best = Infinity;
+      for (let i = 0; i < 500; i++) best = Math.min(best, Math.hypot(wx - (p.x[i] - g.centreX), wy - (p.y[i] - g.centreY)));
+      const cell = Math.floor((wy - g.gridMin) / g.gridSide) * g.gridCells + Math.floor((wx - g.gridMin) / g.gridSide);
+      expect(g.gridFree[cell]).toBeLessThanOrEqual(best - 1);
+      if (g.gridFree[cell] > 0.5 * (best - 1)) checked++;
+    }
+    expect(checked).toBeGreaterThan(5000); // and it is not uselessly small (9815 of 20000 when written)
   });
 
   it('refuses sets too dense for the index', () => {

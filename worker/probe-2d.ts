@@ -31,7 +31,9 @@
  *     When the index scanned exactly, the distance to ∂K is computed exactly
  *     from the listed centres (every centre within 2, and a centre farther
  *     than 2 is more than 1 from the walker's disk edge since r ≤ 1). Also
- *     |w| − R_ext is a free radius. If the free radius d ≥ minStep the
+ *     |w| − R_ext is a free radius. Far from the set a dense grid of free
+ *     distances (a distance transform, see buildFreeGrid) answers first,
+ *     with an exact lower bound. If the free radius d ≥ minStep the
  *     walker jumps to a uniform point on the circle of radius d (exact).
  *  4. Otherwise one straight step of length minStep (scaled units) in a
  *     uniform direction, stopping at the exact first contact with a disk.
@@ -121,6 +123,11 @@ export class ProbeGeometry {
   readonly radii: Float64Array | null;
   readonly digest: string;
   readonly index: OccupancyIndex2d;
+  /** Dense free-distance grid (see buildFreeGrid): cells of side gridSide over [gridMin, gridMin + gridCells·gridSide)². */
+  readonly gridFree: Float32Array;
+  readonly gridCells: number;
+  readonly gridSide: number;
+  readonly gridMin: number;
 
   constructor(set: DiskSet) {
     const n = set.count;
@@ -175,7 +182,76 @@ export class ProbeGeometry {
     checkDensity(ux, uy, n);
     this.index = new OccupancyIndex2d(n);
     for (let i = 0; i < n; i++) this.index.insert(ux[i], uy[i]);
+    // grid: side a power of two >= 2 with at most 2^24 cells, covering the enclosing circle
+    let side = 2;
+    while (((2 * ext) / side + 2) ** 2 > 16_777_216) side *= 2;
+    const cells = Math.ceil((2 * ext) / side) + 2;
+    this.gridSide = side;
+    this.gridCells = cells;
+    this.gridMin = -0.5 * cells * side;
+    this.gridFree = buildFreeGrid(ux, uy, n, this.gridMin, side, cells);
   }
+}
+
+/**
+ * Far-field acceleration for a set that does not change while probed: a
+ * dense grid holding, per cell, a lower bound on (distance from any point of
+ * the cell to the nearest centre) − 1, which bounds the distance to ∂K since
+ * every scaled radius is ≤ 1. With e = the exact Euclidean distance between
+ * the cell's centre and the nearest centre of a cell holding a disk centre
+ * (Felzenszwalb & Huttenlocher 2012, Theory of Computing 8, 415, the
+ * separable squared-distance transform; citation from memory), any walker w
+ * in the cell and centre p satisfy |w − p| ≥ e − side·√2 (each is within
+ * side/√2 of its cell centre), so the cell stores e − side·√2 − 1.
+ */
+function buildFreeGrid(ux: Float64Array, uy: Float64Array, n: number, min: number, side: number, cells: number): Float32Array {
+  const INF = 1e20;
+  const f = new Float64Array(cells * cells).fill(INF);
+  for (let i = 0; i < n; i++) {
+    const cx = Math.floor((ux[i] - min) / side);
+    const cy = Math.floor((uy[i] - min) / side);
+    f[cy * cells + cx] = 0;
+  }
+  const line = new Float64Array(cells);
+  const out = new Float64Array(cells);
+  const v = new Int32Array(cells);
+  const z = new Float64Array(cells + 1);
+  const pass = (get: (k: number) => number, set: (k: number, val: number) => void): void => {
+    for (let k = 0; k < cells; k++) line[k] = get(k);
+    let kk = 0;
+    v[0] = 0;
+    z[0] = -Infinity;
+    z[1] = Infinity;
+    for (let q = 1; q < cells; q++) {
+      if (line[q] >= INF) continue;
+      if (line[v[kk]] >= INF) { v[kk] = q; continue; }
+      let sIntersect = (line[q] + q * q - (line[v[kk]] + v[kk] * v[kk])) / (2 * q - 2 * v[kk]);
+      while (sIntersect <= z[kk]) {
+        kk--;
+        sIntersect = (line[q] + q * q - (line[v[kk]] + v[kk] * v[kk])) / (2 * q - 2 * v[kk]);
+      }
+      kk++;
+      v[kk] = q;
+      z[kk] = sIntersect;
+      z[kk + 1] = Infinity;
+    }
+    if (line[v[0]] >= INF) { for (let q = 0; q < cells; q++) set(q, INF); return; }
+    kk = 0;
+    for (let q = 0; q < cells; q++) {
+      while (z[kk + 1] < q) kk++;
+      out[q] = (q - v[kk]) * (q - v[kk]) + line[v[kk]];
+    }
+    for (let q = 0; q < cells; q++) set(q, out[q]);
+  };
+  for (let y = 0; y < cells; y++) pass((k) => f[y * cells + k], (k, val) => { f[y * cells + k] = val; });
+  for (let x = 0; x < cells; x++) pass((k) => f[k * cells + x], (k, val) => { f[k * cells + x] = val; });
+  const g = new Float32Array(cells * cells);
+  const slack = side * Math.SQRT2 + 1;
+  for (let k = 0; k < g.length; k++) {
+    const b = Math.sqrt(f[k]) * side - slack;
+    g[k] = b - 1e-5 * (1 + Math.abs(b)); // margin for rounding to float32 (relative error < 6e-8)
+  }
+  return g;
 }
 
 /** Refuse sets with more than MAX_BLOCK scaled centres in a 3 × 3 block of side-2 cells. */
@@ -294,6 +370,10 @@ export class ProbeWalk {
     const ext = this.g.extent;
     const launch = this.launch;
     const launch2 = launch * launch;
+    const grid = this.g.gridFree;
+    const gCells = this.g.gridCells;
+    const gMin = this.g.gridMin;
+    const gInv = 1 / this.g.gridSide;
     sampleDirection(rng);
     let wx = launch * direction.x;
     let wy = launch * direction.y;
@@ -305,6 +385,22 @@ export class ProbeWalk {
         wy = returned.y;
         r2 = launch2;
         this.returns++;
+      }
+      const gx = Math.floor((wx - gMin) * gInv);
+      const gy = Math.floor((wy - gMin) * gInv);
+      if (gx >= 0 && gy >= 0 && gx < gCells && gy < gCells) {
+        const gf = grid[gy * gCells + gx];
+        if (gf >= 1) {
+          // far from the set: the grid bound (and the radial bound) suffice
+          let d = gf;
+          const rr = Math.sqrt(r2) - ext;
+          if (rr > d) d = rr;
+          sampleDirection(rng);
+          wx += d * direction.x;
+          wy += d * direction.y;
+          this.jumps++;
+          continue;
+        }
       }
       index.query(wx, wy);
       let d = index.free;

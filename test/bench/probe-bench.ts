@@ -1,0 +1,70 @@
+/**
+ * Probe benchmark: grow one DLA cluster (default 10^5 particles; --particles N,
+ * e.g. 1000000), then run probe walkers on it in this thread (one core) and
+ * report walkers per second (default 10^5 walkers; --walkers W).
+ *
+ *   node dist/test/bench/probe-bench.js [--particles N] [--walkers W]
+ *
+ * Prints a human-readable line and one JSON line.
+ */
+import { fileURLToPath } from 'node:url';
+import { realpathSync } from 'node:fs';
+import { createKernel, defaultModelParams } from '../../worker/models.js';
+import { ProbeGeometry, planProbeJobs, runProbeJob } from '../../worker/probe-2d.js';
+
+export interface ProbeBenchmarkResult {
+  benchmark: 'probe';
+  particles: number;
+  walkers: number;
+  growSeconds: number;
+  indexSeconds: number;
+  probeSeconds: number;
+  walkersPerSecond: number;
+  jumpsPerWalker: number;
+  shortStepsPerWalker: number;
+  returnsPerWalker: number;
+}
+
+function argValue(argv: string[], name: string, fallback: number): number {
+  const i = argv.indexOf(name);
+  if (i < 0) return fallback;
+  const v = Number(argv[i + 1]);
+  if (!Number.isSafeInteger(v) || v < 1) throw new RangeError(`${name} must be a positive integer, got "${argv[i + 1]}"`);
+  return v;
+}
+
+export function runProbeBenchmark(particles = 100_000, walkers = 100_000): ProbeBenchmarkResult {
+  const kernel = createKernel({ model: defaultModelParams('dla-offlattice-2d'), particles, ensembleSeed: '2026', runIndex: 0, recordsPerDecade: 10 });
+  let t = performance.now();
+  kernel.growTo(particles);
+  const growSeconds = (performance.now() - t) / 1000;
+  const p = kernel.positions();
+  t = performance.now();
+  const g = new ProbeGeometry({ count: particles, x: p.x, y: p.y, r: 1 });
+  const indexSeconds = (performance.now() - t) / 1000;
+  const [task] = planProbeJobs(g, '1', walkers, 1, 0);
+  t = performance.now();
+  const r = runProbeJob(g, task);
+  const probeSeconds = (performance.now() - t) / 1000;
+  return {
+    benchmark: 'probe', particles, walkers, growSeconds, indexSeconds, probeSeconds,
+    walkersPerSecond: walkers / probeSeconds,
+    jumpsPerWalker: r.counters.jumps / walkers,
+    shortStepsPerWalker: r.counters.shortSteps / walkers,
+    returnsPerWalker: r.counters.returns / walkers,
+  };
+}
+
+function isEntryPoint(): boolean {
+  try {
+    return process.argv[1] !== undefined && realpathSync(process.argv[1]) === realpathSync(fileURLToPath(import.meta.url));
+  } catch {
+    return false;
+  }
+}
+
+if (isEntryPoint()) {
+  const r = runProbeBenchmark(argValue(process.argv, '--particles', 100_000), argValue(process.argv, '--walkers', 100_000));
+  process.stdout.write(`probe: ${r.walkers} walkers on ${r.particles} particles: ${r.probeSeconds.toFixed(2)} s, ${Math.round(r.walkersPerSecond)} walkers/s\n`);
+  process.stdout.write(JSON.stringify(r) + '\n');
+}
