@@ -106,7 +106,15 @@ describe('ensemble report from a real small DLA ensemble', () => {
     expect((html.match(/<svg /g) ?? []).length).toBe(files.figures.length);
     expect(html).toContain('tendril-engine/1');
     expect(html).toContain('<th>seed</th>');
-    for (const f of files.svgs) checkXml(readFileSync(f, 'utf8'));
+    for (const f of files.svgs) {
+      const svg = readFileSync(f, 'utf8');
+      checkXml(svg);
+      // the file beside the page is the very figure shown inline
+      expect(html).toContain(svg.replace(/^<\?xml[^>]*>\n/, '').trimEnd());
+    }
+    // element ids (clip paths of the inline SVGs, tables, figures) are unique on the page
+    const ids = [...html.matchAll(/ id="([^"]+)"/g)].map((m) => m[1]);
+    expect(new Set(ids).size).toBe(ids.length);
   });
 
   it('labels axes with quantities and units and shows the reference as not fitted', () => {
