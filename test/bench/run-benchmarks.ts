@@ -8,11 +8,15 @@
  *   growth     test/bench/growth-bench.ts: one cluster per size, each in a fresh
  *              process (--sizes or env TENDRIL_BENCH_SIZES; default 10^4, 10^5, 10^6)
  *   aggregate  test/bench/aggregate-bench.ts: runAggregateBenchmark()
+ *   farm       test/bench/farm-bench.ts: runFarmBenchmark() — the same ensemble
+ *              (20 × 10^5 by default) on two worker processes over Redis
+ *              (REDIS_URL) against the embedded mode on two threads
  */
 import { runGrowthBenchmark, sizesFromArgs } from './growth-bench.js';
 import { runAggregateBenchmark } from './aggregate-bench.js';
+import { runFarmBenchmark } from './farm-bench.js';
 
-const PARTS = ['growth', 'aggregate'] as const;
+const PARTS = ['growth', 'aggregate', 'farm'] as const;
 type Part = (typeof PARTS)[number];
 
 export function partsFromArgs(argv: string[]): Part[] {
@@ -38,7 +42,14 @@ async function main(argv: string[]): Promise<number> {
   for (const part of parts) {
     try {
       if (part === 'growth') await runGrowthBenchmark({ sizes: sizesFromArgs(argv) });
-      else runAggregate();
+      else if (part === 'aggregate') runAggregate();
+      else {
+        const r = await runFarmBenchmark({ redisUrl: process.env.REDIS_URL });
+        process.stdout.write(
+          `farm: ${r.clusters} clusters of ${r.particles}: farm/embedded throughput ${r.throughputRatio.toFixed(3)}, queue round trip ${(1000 * r.queueRoundTripSeconds).toFixed(1)} ms\n`,
+        );
+        process.stdout.write(JSON.stringify(r) + '\n');
+      }
     } catch (err) {
       failed++;
       process.stderr.write(`bench ${part}: ${err instanceof Error ? err.message.split('\n')[0] : String(err)}\n`);
