@@ -83,3 +83,26 @@ describe('ensemble intervals', () => {
     expect(ensembleMeanInterval([1, 2], '7').interval.status).toBe('too-few-clusters');
   });
 });
+
+describe('ensemble harmonic summary', () => {
+  it('gives per-q intervals over clusters and refuses mixed q grids', async () => {
+    const { ensembleHarmonicSummary } = await import('../coordinator/harmonic/ensemble-intervals.js');
+    const { analyzeProbe } = await import('../coordinator/harmonic/probe-analysis.js');
+    const rng = Random.forRun('12', 0, 1);
+    const ms: ReturnType<typeof analyzeProbe>[] = [];
+    for (let c = 0; c < 6; c++) {
+      const M = 600;
+      const x: number[] = [], y: number[] = [];
+      for (let i = 0; i < M; i++) { const t = 2 * Math.PI * rng.nextDouble(); x.push(Math.cos(t)); y.push(Math.sin(t)); }
+      ms.push(analyzeProbe({ count: 1, x: [0], y: [0], r: 1, counts: [M], halves: null, contactX: x, contactY: y, contactCount: M, q: [0, 1, 2] }));
+    }
+    const s = ensembleHarmonicSummary(ms, '3', 500);
+    expect(s.clusters).toBe(6);
+    expect(s.tau.length).toBe(3);
+    expect(s.tau[1].mean).toBeCloseTo(0, 12);
+    expect(Math.abs(s.logCapacity.mean)).toBeLessThan(0.01); // unit disk: log cap = 0 (Ransford 1995)
+    expect(s.logCapacity.interval.status).toBe('ok');
+    const other = { ...ms[0], spectrum: { ...ms[0].spectrum, q: [0, 1, 3] } };
+    expect(() => ensembleHarmonicSummary([ms[0], other], '3')).toThrow(/q grid/);
+  });
+});

@@ -27,3 +27,32 @@ export function ensembleMeanInterval(
   const reps = bootstrapScalar(k, resamples, rng, (counts, drawn, used) => weightedMean(v, counts, drawn, used));
   return { mean, clusters: k, interval: bootstrapInterval(mean, reps, jackknifeMeans(v), level) };
 }
+
+import type { HarmonicMeasures } from './probe-analysis.js';
+
+export interface EnsembleHarmonicSummary {
+  clusters: number;
+  q: number[];
+  tau: EnsembleValue[];
+  informationDimension: EnsembleValue;
+  maxConcentrationExponent: EnsembleValue;
+  /** Mean of log capacity over clusters (clusters without a capacity are left out). */
+  logCapacity: EnsembleValue;
+}
+
+/** Bootstrap intervals over clusters for the measures of an ensemble probed on one q grid. */
+export function ensembleHarmonicSummary(perCluster: readonly HarmonicMeasures[], seed: string | number, resamples = 2000, level = 0.95): EnsembleHarmonicSummary {
+  if (perCluster.length === 0) throw new RangeError('ensemble harmonic summary needs at least one cluster');
+  const q = perCluster[0].spectrum.q;
+  for (const [i, m] of perCluster.entries())
+    if (m.spectrum.q.length !== q.length || m.spectrum.q.some((v, k) => v !== q[k]))
+      throw new RangeError(`cluster ${i}: q grid differs from cluster 0's`);
+  return {
+    clusters: perCluster.length,
+    q: [...q],
+    tau: q.map((_, k) => ensembleMeanInterval(perCluster.map((m) => m.spectrum.tau[k]), seed, resamples, level)),
+    informationDimension: ensembleMeanInterval(perCluster.map((m) => m.spectrum.informationDimension), seed, resamples, level),
+    maxConcentrationExponent: ensembleMeanInterval(perCluster.map((m) => m.maxConcentration.exponent), seed, resamples, level),
+    logCapacity: ensembleMeanInterval(perCluster.flatMap((m) => (m.capacity ? [m.capacity.logCapacity] : [])), seed, resamples, level),
+  };
+}

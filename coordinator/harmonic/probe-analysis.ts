@@ -20,6 +20,18 @@
  * contact source); q is flagged converged when the halves agree within
  * 0.05 + 0.05 |τ(q)| (our rule, no source).
  *
+ * Capacity: of K = the union of the contact disks, exactly the set the
+ * probes touch; no correction is applied. For a snapshot that is the union
+ * of capture disks of radius d (one particle diameter) about the centres —
+ * the set the growth walker's centre sees — which is larger than the union
+ * of the physical particles (radius d/2). When a union of disks stands for
+ * a continuum (a segment drawn as a row of touching disks), the continuum's
+ * capacity is bracketed by exact inclusions, tested in
+ * test/probe-kernel.test.ts: the row of n touching disks of radius ρ contains
+ * the segment of length 2nρ (capacity nρ/2) and lies in the enclosing
+ * rectangle, hence in ellipses of capacity (A + B)/2; two tangent disks of
+ * radius ρ have capacity πρ/2 exactly (inversion onto a strip).
+ *
  * Beurling: the maximum box measure M(ε) ~ (ε/R)^a must have a ≥ 1/2 for a
  * connected set (Garnett & Marshall 2005, Harmonic Measure); the check
  * allows 0.05 for finite-size effects (our rule).
