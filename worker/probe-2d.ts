@@ -256,16 +256,16 @@ function buildFreeGrid(ux: Float64Array, uy: Float64Array, n: number, min: numbe
 
 /** Refuse sets with more than MAX_BLOCK scaled centres in a 3 × 3 block of side-2 cells. */
 function checkDensity(ux: Float64Array, uy: Float64Array, n: number): void {
-  const cells = new Map<string, number>();
+  // cell keys cx * 2^22 + cy are exact integers: |cx|, |cy| < 2^21 for any set the index can hold
+  const cells = new Map<number, number>();
   for (let i = 0; i < n; i++) {
-    const k = `${Math.floor(ux[i] * 0.5)},${Math.floor(uy[i] * 0.5)}`;
+    const k = Math.floor(ux[i] * 0.5) * 4194304 + Math.floor(uy[i] * 0.5);
     cells.set(k, (cells.get(k) ?? 0) + 1);
   }
   let worst = 0;
   for (const key of cells.keys()) {
-    const [cx, cy] = key.split(',').map(Number);
     let s = 0;
-    for (let dy = -1; dy <= 1; dy++) for (let dx = -1; dx <= 1; dx++) s += cells.get(`${cx + dx},${cy + dy}`) ?? 0;
+    for (let dx = -1; dx <= 1; dx++) for (let dy = -1; dy <= 1; dy++) s += cells.get(key + dx * 4194304 + dy) ?? 0;
     if (s > worst) worst = s;
   }
   if (worst > MAX_BLOCK)
