@@ -88,9 +88,9 @@ export class OccupancyIndex2d {
     expectedParticles: number,
     private readonly trackIds = true,
   ) {
-    const expectBuckets = Math.max(64, expectedParticles >> 1);
+    const expectBuckets = 1024;
     this.coords = new Float64Array(expectBuckets * 2 * BUCKET);
-    this.ids = new Int32Array(expectBuckets * BUCKET);
+    this.ids = new Int32Array(trackIds ? expectBuckets * BUCKET : 0);
     this.fill = new Uint8Array(expectBuckets);
     this.chain = new Int32Array(expectBuckets);
     this.heads = new TiledInt32Grid(-1, Math.max(16, expectedParticles >> 6));
@@ -129,7 +129,7 @@ export class OccupancyIndex2d {
     const slot = 8 * b + 2 * this.fill[b];
     this.coords[slot] = px;
     this.coords[slot + 1] = py;
-    this.ids[BUCKET * b + this.fill[b]] = id;
+    if (this.trackIds) this.ids[BUCKET * b + this.fill[b]] = id;
     this.fill[b]++;
 
     let scale = 0.5;
@@ -160,23 +160,48 @@ export class OccupancyIndex2d {
   }
 
   private newBucket(): number {
-    const b = this.buckets++;
-    if (b >= this.fill.length) {
-      const cap = this.fill.length * 2;
-      const coords = new Float64Array(cap * 2 * BUCKET);
-      coords.set(this.coords);
-      this.coords = coords;
-      const ids = new Int32Array(cap * BUCKET);
-      ids.set(this.ids);
-      this.ids = ids;
-      const fill = new Uint8Array(cap);
-      fill.set(this.fill);
-      this.fill = fill;
-      const chain = new Int32Array(cap);
-      chain.set(this.chain);
-      this.chain = chain;
+    // the bucket arrays grow by a quarter at a time, and each growth
+    // rewrites them in spatial order
+    if (this.buckets >= this.fill.length) this.compact(Math.ceil(this.fill.length * 1.25) + 64);
+    return this.buckets++;
+  }
+
+  /**
+   * Rewrite the buckets in spatial order (tile by tile, cell by cell, each
+   * cell's chain kept in its order), so that an exact scan reads a few
+   * neighbouring cache lines instead of buckets scattered in arrival order.
+   * Scan results are unchanged: every cell lists the same centres in the
+   * same order. Done each time the bucket arrays grow (by a quarter), so
+   * the total cost stays proportional to the number of particles.
+   */
+  private compact(cap: number): void {
+    const coords = new Float64Array(cap * 2 * BUCKET);
+    const ids = new Int32Array(this.trackIds ? cap * BUCKET : 0);
+    const fill = new Uint8Array(cap);
+    const chain = new Int32Array(cap);
+    const pool = this.heads.pool;
+    const cells = this.heads.dir.count * TILE_CELLS;
+    let nb = 0;
+    for (let c = 0; c < cells; c++) {
+      let b = pool[c];
+      if (b < 0) continue;
+      pool[c] = nb;
+      let prev = -1;
+      while (b >= 0) {
+        coords.set(this.coords.subarray(8 * b, 8 * b + 8), 8 * nb);
+        if (this.trackIds) ids.set(this.ids.subarray(BUCKET * b, BUCKET * b + BUCKET), BUCKET * nb);
+        fill[nb] = this.fill[b];
+        if (prev >= 0) chain[prev] = nb;
+        prev = nb;
+        nb++;
+        b = this.chain[b];
+      }
+      chain[prev] = -1;
     }
-    return b;
+    this.coords = coords;
+    this.ids = ids;
+    this.fill = fill;
+    this.chain = chain;
   }
 
   /** Lower bound on (distance from (wx, wy) to the nearest centre) − 1; see `query`. */
