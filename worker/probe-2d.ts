@@ -30,7 +30,7 @@
  *     a lower bound on (nearest centre distance − 1) ≤ the distance to ∂K.
  *     When the index scanned exactly, the distance to ∂K is computed exactly
  *     from the listed centres (every centre within 2, and a centre farther
- *     than 2 is more than 1 from the walker's disk edge since r ≤ 1). Also
+ *     than 2 leaves a gap of more than 1 to its disk, since r ≤ 1). Also
  *     |w| − R_ext is a free radius. Far from the set a dense grid of free
  *     distances (a distance transform, see buildFreeGrid) answers first,
  *     with an exact lower bound. If the free radius d ≥ minStep the
@@ -39,13 +39,15 @@
  *     uniform direction, stopping at the exact first contact with a disk.
  * The one approximation is step 4 (straight steps instead of Brownian
  * motion within minStep·s of ∂K), as in growth; test/probe-kernel.test.ts
- * checks that minStep 0.02 and 0.004 give the same per-disk measure within
- * the probe error. Everything else is exact up to floating-point rounding.
+ * checks that minStep 0.02 and 0.004 give the same measure (on 20 groups
+ * of particles of a 300-particle cluster) within the probe error. Everything else is exact up to floating-point rounding.
  *
- * Limits: the index lists at most 256 centres per 6 × 6 block of scaled
- * cells, so a set may not hold more than 256 centres in any 3 × 3 block of
- * cells of side 2·max r (checked when the geometry is built; disparate radii
- * or heavily overlapping disks are refused with a one-line message).
+ * Limits: an exact scan of the index lists at most 256 centres, so a set may
+ * not hold more than 256 centres in any 3 × 3 block of index cells (cells
+ * of side 2·max r); this is checked when the geometry is built, and sets
+ * with very disparate radii or heavily overlapping disks are refused with a
+ * one-line message. The far-field grid holds at most 2^24 cells (its side
+ * doubles until it fits): at most 128 MB during the build, 64 MB kept.
  *
  * Jobs and determinism: probing is split into independent jobs; job j uses
  * Random.forRun(seed, j, STREAM_PROBE) and is a function of (geometry, task)
