@@ -7,7 +7,7 @@
 import { randomBytes } from 'node:crypto';
 import type { RunTaskData } from '../proto/convert.js';
 import { ENGINE_VERSION } from '../worker/engine-version.js';
-import type { EnsembleSpec } from './spec/index.js';
+import { maxRunsOf, type EnsembleSpec } from './spec/index.js';
 
 export interface PlannedJob {
   /** 0-based index of the job within its ensemble. */
@@ -31,8 +31,9 @@ export const ENSEMBLE_ID_PATTERN = /^[A-Za-z0-9_-]{1,64}$/;
 
 /** The run task of run `runIndex` of an ensemble. */
 export function runTaskFor(ensembleId: string, spec: EnsembleSpec, runIndex: number): RunTaskData {
-  if (!Number.isInteger(runIndex) || runIndex < 0 || runIndex >= spec.clusters) {
-    throw new RangeError(`run index ${runIndex} is outside 0..${spec.clusters - 1}`);
+  const max = maxRunsOf(spec);
+  if (!Number.isInteger(runIndex) || runIndex < 0 || runIndex >= max) {
+    throw new RangeError(`run index ${runIndex} is outside 0..${max - 1}`);
   }
   return {
     ensembleId,
@@ -47,12 +48,17 @@ export function runTaskFor(ensembleId: string, spec: EnsembleSpec, runIndex: num
   };
 }
 
-export function planEnsemble(ensembleId: string, spec: EnsembleSpec): EnsemblePlan {
+/**
+ * The jobs of runs [fromRun, toRun) (default: the first batch, runs 0 ..
+ * clusters-1), numbered from firstJobIndex. An adaptive ensemble plans each
+ * later batch this way; run i is the same task whichever batch holds it.
+ */
+export function planEnsemble(ensembleId: string, spec: EnsembleSpec, fromRun = 0, toRun = spec.clusters, firstJobIndex = 0): EnsemblePlan {
   if (!ENSEMBLE_ID_PATTERN.test(ensembleId)) throw new RangeError(`ensemble id "${ensembleId}" must match ${ENSEMBLE_ID_PATTERN}`);
   const jobs: PlannedJob[] = [];
-  for (let start = 0, j = 0; start < spec.clusters; start += spec.runsPerJob, j++) {
+  for (let start = fromRun, j = firstJobIndex; start < toRun; start += spec.runsPerJob, j++) {
     const runs: RunTaskData[] = [];
-    for (let i = start; i < Math.min(spec.clusters, start + spec.runsPerJob); i++) runs.push(runTaskFor(ensembleId, spec, i));
+    for (let i = start; i < Math.min(toRun, start + spec.runsPerJob); i++) runs.push(runTaskFor(ensembleId, spec, i));
     jobs.push({ jobIndex: j, runs });
   }
   return { ensembleId, spec, engineVersion: ENGINE_VERSION, jobs };

@@ -362,6 +362,10 @@ export interface EnsembleSummaryData {
   meanLogRadiusOfGyration: number[];
   /** JSON text added by the statistics library; "" when absent. */
   statisticsJson: string;
+  /** True while the ensemble is unfinished (computed from the runs stored so far). */
+  partial: boolean;
+  /** Adaptive target, outcome and batch history as JSON; "" for a fixed count. */
+  adaptiveJson: string;
 }
 
 export function encodeEnsembleSummary(s: EnsembleSummaryData): Uint8Array {
@@ -380,6 +384,8 @@ export function encodeEnsembleSummary(s: EnsembleSummaryData): Uint8Array {
     meanSizes: s.meanSizes,
     meanLogRadiusOfGyration: s.meanLogRadiusOfGyration,
     statisticsJson: s.statisticsJson,
+    partial: s.partial,
+    adaptiveJson: s.adaptiveJson,
   });
   return tendril.EnsembleSummary.encode(msg).finish();
 }
@@ -411,5 +417,7 @@ export function decodeEnsembleSummary(bytes: Uint8Array): EnsembleSummaryData {
     meanSizes: (m.meanSizes ?? []).slice(),
     meanLogRadiusOfGyration: (m.meanLogRadiusOfGyration ?? []).slice(),
     statisticsJson: m.statisticsJson ?? '',
+    partial: m.partial ?? false,
+    adaptiveJson: m.adaptiveJson ?? '',
   };
 }

@@ -134,7 +134,9 @@ describe('protobuf contract', () => {
       createdAtMs: 5,
       meanSizes: [10, 100],
       meanLogRadiusOfGyration: [0.4, 1.8],
-      statisticsJson: '',
+      statisticsJson: '{"schema":"x"}',
+      partial: true,
+      adaptiveJson: '{"outcome":"running"}',
     };
     expect(decodeEnsembleSummary(encodeEnsembleSummary(s))).toEqual(s);
   });

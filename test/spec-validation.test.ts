@@ -48,6 +48,21 @@ describe('ensemble spec', () => {
     expect(again).toEqual(s);
   });
 
+  it('reads [analysis] and [target]; the canonical document keeps them; the first batch is derived when clusters is absent', () => {
+    const s = parseSpec(
+      'model = "dla-offlattice-2d"\nparticles = 100\nseed = 3\n[analysis]\nfit_min_size = 10\nresamples = 500\ncorrections = false\n[target]\nhalf_width = 0.02\nmax_clusters = 300\n',
+      'toml',
+    );
+    expect(s.analysis).toEqual({ fitMinSize: 10, resamples: 500, corrections: false });
+    expect(s.target).toEqual({ estimator: 'radius_of_gyration', halfWidth: 0.02, level: 0.95, maxClusters: 300, minBatch: 8, minClusters: 20 });
+    expect(s.clusters).toBe(20);
+    expect(parseSpec(JSON.stringify(specToDocument(s)), 'json')).toEqual(s);
+    const fixed = validateSpec(base);
+    expect(fixed.target).toBeNull();
+    expect(specToDocument(fixed)).not.toHaveProperty('analysis');
+    expect(specToDocument(fixed)).not.toHaveProperty('target');
+  });
+
   it('accepts a 64-bit seed as a string and model parameters', () => {
     const s = validateSpec({ model: 'dla-offlattice-2d', particles: 100, clusters: 2, seed: '18446744073709551615', params: { min_step: 0.5 } });
     expect(s.seed).toBe('18446744073709551615');
@@ -65,7 +80,7 @@ describe('ensemble spec', () => {
     ['missing seed', { model: 'dla-offlattice-2d', particles: 10, clusters: 1 }, 'seed: missing; allowed: ensemble seed: an unsigned 64-bit integer (a string of decimal digits, or an integer below 2^53)'],
     ['negative seed', { ...base, seed: -1 }, 'seed: -1 is not allowed; allowed: ensemble seed: an unsigned 64-bit integer (a string of decimal digits, or an integer below 2^53)'],
     ['seed above 2^64', { ...base, seed: '18446744073709551616' }, 'seed: "18446744073709551616" is out of range; allowed: an integer from 0 to 18446744073709551615'],
-    ['unknown field', { ...base, particels: 5 }, 'particels: unknown field; allowed fields: name, model, params, particles, clusters, seed, records_per_decade, observables, checkpoint_interval_seconds, checkpoint_every_particles, runs_per_job'],
+    ['unknown field', { ...base, particels: 5 }, 'particels: unknown field; allowed fields: name, model, params, particles, clusters, seed, records_per_decade, observables, checkpoint_interval_seconds, checkpoint_every_particles, runs_per_job, analysis, target'],
     ['bad min_step', { ...base, params: { min_step: 0 } }, 'params.min_step: 0 is out of range; allowed: a number above 0 up to 1'],
     ['unknown param', { ...base, params: { step: 1 } }, 'params.step: unknown field; allowed fields: min_step, launch_margin'],
     ['records per decade', { ...base, records_per_decade: 5 }, 'records_per_decade: 5 is out of range; allowed: an integer from 10 to 100'],
@@ -74,6 +89,17 @@ describe('ensemble spec', () => {
     ['checkpoint interval', { ...base, checkpoint_interval_seconds: 0.5 }, 'checkpoint_interval_seconds: 0.5 is out of range; allowed: a number from 1 to 86400'],
     ['checkpoint every more than particles', { ...base, checkpoint_every_particles: 2000 }, 'checkpoint_every_particles: 2000 is out of range; allowed: 0 (off) or an integer from 1 to particles (1000)'],
     ['total work', { ...base, particles: 100000000, clusters: 101 }, 'particles × clusters: 100000000 × 101 = 10100000000 is above the total-work ceiling; allowed: at most 10000000000 (the operator may raise it with TENDRIL_MAX_TOTAL_PARTICLES)'],
+    ['too few resamples', { ...base, analysis: { resamples: 5 } }, 'analysis.resamples: 5 is out of range; allowed: an integer from 10 to 1000000'],
+    ['level of 1', { ...base, analysis: { level: 1 } }, 'analysis.level: 1 is out of range; allowed: a number from 0.5 to 0.999'],
+    ['empty fit window', { ...base, analysis: { fit_min_size: 1000, fit_max_size: 100 } }, 'analysis.fit_min_size: 1000 is not allowed; allowed: a number below analysis.fit_max_size (100)'],
+    ['corrections not a boolean', { ...base, analysis: { corrections: 'no' } }, 'analysis.corrections: "no" is not allowed; allowed: true or false'],
+    ['unknown analysis field', { ...base, analysis: { window: 3 } }, 'analysis.window: unknown field; allowed fields: fit_min_size, fit_max_size, mass_radius_min_radius, mass_radius_max_radius, resamples, level, corrections, local_slope_width'],
+    ['target without half-width', { ...base, target: { max_clusters: 100 } }, 'target.half_width: missing; allowed: a number above 0 up to 1'],
+    ['target half-width 0', { ...base, target: { half_width: 0, max_clusters: 100 } }, 'target.half_width: 0 is out of range; allowed: a number above 0 up to 1'],
+    ['target unknown estimator', { ...base, target: { half_width: 0.01, max_clusters: 100, estimator: 'rg' } }, 'target.estimator: "rg" is not allowed; allowed: one of "radius_of_gyration", "max_radius", "mass_radius"'],
+    ['first batch above the cap', { ...base, clusters: 50, target: { half_width: 0.01, max_clusters: 40 } }, 'clusters: 50 is out of range; allowed: an integer from 1 to target.max_clusters (40)'],
+    ['neither clusters nor target', { model: 'dla-offlattice-2d', particles: 10, seed: 1 }, 'clusters: missing; allowed: an integer from 1 to 100000 (or a [target] table with max_clusters)'],
+    ['adaptive total work', { ...base, particles: 100000000, target: { half_width: 0.01, max_clusters: 101 } }, 'particles × target.max_clusters: 100000000 × 101 = 10100000000 is above the total-work ceiling; allowed: at most 10000000000 (the operator may raise it with TENDRIL_MAX_TOTAL_PARTICLES)'],
     ['not an object', [1, 2], 'spec: [1,2] is not allowed; allowed: a table (object) of fields'],
   ];
   for (const [name, doc, msg] of table) {

@@ -12,19 +12,22 @@ import { runEmbedded, EmbeddedAborted } from '../embedded/index.js';
 import { DirectoryArtifactStore } from '../farm/artifacts.js';
 import { newEnsembleId } from '../plan.js';
 import { specToDocument } from '../spec/index.js';
-import { massRadiusToCsv, runsToCsv, summaryToCsv, summaryToJson, summaryToProtobuf } from '../summary/index.js';
+import { defaultSummaryOptions } from '../summary/index.js';
 import { UsageError } from '../usage-error.js';
+import { addAnalysisOptions, analysisSettingsFromCli, type AnalysisCliOptions } from './analysis-options.js';
+import { describeAnalysis, writeSummaryFiles } from './summary-files.js';
 import { loadSpecFile, positiveInt } from './spec-file.js';
 
-interface RunOptions {
+interface RunOptions extends AnalysisCliOptions {
   out: string;
+  report?: boolean;
   threads?: number;
   maxTotalParticles?: number;
   progress: string;
 }
 
 export function register(program: Command): void {
-  program
+  const cmd = program
     .command('run')
     .description('grow an ensemble locally with worker threads (no Redis) and write its summary')
     .argument('<spec>', 'ensemble spec file (.toml or .json)')
@@ -32,11 +35,13 @@ export function register(program: Command): void {
     .option('--threads <n>', 'worker threads (default: available cores)', positiveInt('--threads', 1024))
     .option('--max-total-particles <n>', 'raise the ceiling on particles × clusters', positiveInt('--max-total-particles', Number.MAX_SAFE_INTEGER))
     .option('--progress <mode>', 'progress display: auto, bar, lines or none', 'auto')
-    .action(async (specPath: string, opts: RunOptions) => {
+    .option('--no-report', 'skip report.html and its plots');
+  addAnalysisOptions(cmd).action(async (specPath: string, opts: RunOptions) => {
       if (!['auto', 'bar', 'lines', 'none'].includes(opts.progress)) {
         throw new UsageError(`--progress: "${opts.progress}" is not allowed; allowed: auto, bar, lines, none`);
       }
       const spec = await loadSpecFile(specPath, opts.maxTotalParticles);
+      const analysis = analysisSettingsFromCli(spec.analysis, opts);
       await mkdir(opts.out, { recursive: true });
       const doc = specToDocument(spec);
       const metaPath = join(opts.out, 'ensemble.json');
@@ -54,7 +59,7 @@ export function register(program: Command): void {
         await writeFile(metaPath, JSON.stringify({ ensemble_id: ensembleId, created_at_ms: createdAtMs, spec: doc }, null, 2) + '\n');
       }
       const progress = createProgress({
-        total: spec.particles * spec.clusters,
+        total: spec.particles * (spec.target ? spec.target.maxClusters : spec.clusters),
         unit: 'particles',
         label: spec.name,
         mode: opts.progress as ProgressMode,
@@ -71,20 +76,16 @@ export function register(program: Command): void {
           store: new DirectoryArtifactStore(join(opts.out, 'state')),
           signal: abort.signal,
           onProgress: (p) => progress.update(p.particlesDone),
+          summary: defaultSummaryOptions(analysis),
         });
         progress.stop();
         const s = outcome.summary;
-        await writeFile(join(opts.out, 'summary.json'), summaryToJson(s));
-        await writeFile(join(opts.out, 'series.csv'), summaryToCsv(s));
-        await writeFile(join(opts.out, 'runs.csv'), runsToCsv(s));
-        await writeFile(join(opts.out, 'mass-radius.csv'), massRadiusToCsv(s));
-        await writeFile(join(opts.out, 'summary.pb'), summaryToProtobuf(s));
-        const fit = s.radiusOfGyrationFit;
+        const written = await writeSummaryFiles(opts.out, s, outcome.results, spec, { report: opts.report !== false, ensembleId });
         process.stdout.write(
           `${spec.name}: ${s.clustersDone} clusters of ${spec.particles} particles in ${outcome.wallSeconds.toFixed(1)} s` +
             (outcome.reused > 0 ? ` (${outcome.reused} taken from an earlier run)` : '') +
-            (fit ? `; R_g ~ N^${fit.exponent.toFixed(4)} over N = ${fit.minX}..${fit.maxX}, D = ${(1 / fit.exponent).toFixed(3)}` : '') +
-            `\nwrote ${join(opts.out, 'summary.json')}, series.csv, runs.csv, mass-radius.csv, summary.pb\n`,
+            '\n' + describeAnalysis(s) +
+            `wrote ${written.map((f) => join(opts.out, f)).join(', ')}\n`,
         );
       } catch (err) {
         progress.stop();

@@ -16,6 +16,7 @@ import {
   MAX_RUNS_PER_JOB,
   OBSERVABLES,
   SPEC_SCHEMA,
+  type TARGET_ESTIMATORS,
   type MODEL_KINDS,
 } from './schema.js';
 
@@ -23,6 +24,50 @@ export { SPEC_SCHEMA } from './schema.js';
 
 export type ModelKind = (typeof MODEL_KINDS)[number];
 export type Observable = (typeof OBSERVABLES)[number];
+export type TargetEstimator = (typeof TARGET_ESTIMATORS)[number];
+
+/** The [analysis] table: options of the ensemble statistics; absent fields take the library's defaults. */
+export interface AnalysisSettings {
+  fitMinSize?: number;
+  fitMaxSize?: number;
+  massRadiusMinRadius?: number;
+  massRadiusMaxRadius?: number;
+  resamples?: number;
+  level?: number;
+  corrections?: boolean;
+  localSlopeWidth?: number;
+}
+
+/** The [target] table: an adaptive ensemble grows in batches until the interval of D is narrow enough or the cap is reached. */
+export interface TargetSpec {
+  estimator: TargetEstimator;
+  halfWidth: number;
+  level: number;
+  maxClusters: number;
+  minBatch: number;
+  minClusters: number;
+}
+
+/** Default fewest clusters before an adaptive target may count as reached (a bootstrap interval of fewer is too noisy to trust). */
+export const DEFAULT_TARGET_MIN_CLUSTERS = 20;
+/** Default smallest batch of an adaptive ensemble. */
+export const DEFAULT_TARGET_MIN_BATCH = 8;
+
+const ANALYSIS_FIELDS: Array<[keyof AnalysisSettings, string]> = [
+  ['fitMinSize', 'fit_min_size'],
+  ['fitMaxSize', 'fit_max_size'],
+  ['massRadiusMinRadius', 'mass_radius_min_radius'],
+  ['massRadiusMaxRadius', 'mass_radius_max_radius'],
+  ['resamples', 'resamples'],
+  ['level', 'level'],
+  ['corrections', 'corrections'],
+  ['localSlopeWidth', 'local_slope_width'],
+];
+
+/** Most runs an ensemble may ever have: clusters, or max_clusters of an adaptive one. */
+export function maxRunsOf(s: EnsembleSpec): number {
+  return s.target ? s.target.maxClusters : s.clusters;
+}
 
 /** A validated ensemble spec with every default filled in. */
 export interface EnsembleSpec {
@@ -37,6 +82,10 @@ export interface EnsembleSpec {
   checkpointIntervalSeconds: number;
   checkpointEveryParticles: number;
   runsPerJob: number;
+  /** Options of the statistics (the [analysis] table). */
+  analysis: AnalysisSettings;
+  /** Adaptive target, or null for a fixed count; then `clusters` is the first batch. */
+  target: TargetSpec | null;
 }
 
 export class SpecError extends Error {
@@ -100,10 +149,24 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
   if (!validateDoc(doc)) throw new SpecError(problemsOf(validateDoc.errors ?? [], doc));
   const d = doc as Record<string, any>;
   const problems: string[] = [];
-  const total = d.particles * d.clusters;
+  const t = d.target as Record<string, any> | undefined;
+  if (d.clusters === undefined && !t) problems.push(`clusters: missing; allowed: an integer from 1 to ${SPEC_SCHEMA.properties.clusters.maximum} (or a [target] table with max_clusters)`);
+  const minClusters = t?.min_clusters ?? DEFAULT_TARGET_MIN_CLUSTERS;
+  const minBatch = t?.min_batch ?? DEFAULT_TARGET_MIN_BATCH;
+  // the first batch of an adaptive ensemble when the spec gives none: enough clusters for a first interval
+  const clusters: number = d.clusters ?? (t ? Math.min(t.max_clusters, Math.max(minClusters, minBatch)) : 0);
+  if (t && d.clusters !== undefined && d.clusters > t.max_clusters) {
+    problems.push(`clusters: ${d.clusters} is out of range; allowed: an integer from 1 to target.max_clusters (${t.max_clusters})`);
+  }
+  const a = (d.analysis ?? {}) as Record<string, any>;
+  for (const [lo, hi] of [['fit_min_size', 'fit_max_size'], ['mass_radius_min_radius', 'mass_radius_max_radius']]) {
+    if (a[lo] !== undefined && a[hi] !== undefined && !(a[lo] < a[hi])) problems.push(`analysis.${lo}: ${a[lo]} is not allowed; allowed: a number below analysis.${hi} (${a[hi]})`);
+  }
+  const runsMax = t ? t.max_clusters : clusters;
+  const total = d.particles * runsMax;
   if (total > limits.maxTotalParticles) {
     problems.push(
-      `particles × clusters: ${d.particles} × ${d.clusters} = ${total} is above the total-work ceiling; allowed: at most ${limits.maxTotalParticles} (the operator may raise it with TENDRIL_MAX_TOTAL_PARTICLES)`,
+      `particles × ${t ? 'target.max_clusters' : 'clusters'}: ${d.particles} × ${runsMax} = ${total} is above the total-work ceiling; allowed: at most ${limits.maxTotalParticles} (the operator may raise it with TENDRIL_MAX_TOTAL_PARTICLES)`,
     );
   }
   const every = d.checkpoint_every_particles ?? 0;
@@ -119,17 +182,30 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
   if (p.min_step !== undefined) model.minStep = p.min_step;
   if (p.launch_margin !== undefined) model.launchMargin = p.launch_margin;
 
+  const analysis: AnalysisSettings = {};
+  for (const [k, f] of ANALYSIS_FIELDS) if (a[f] !== undefined) (analysis as Record<string, unknown>)[k] = a[f];
   return {
     name: d.name ?? 'ensemble',
     model,
     particles: d.particles,
-    clusters: d.clusters,
+    clusters,
     seed: BigInt(seed).toString(),
     recordsPerDecade: d.records_per_decade ?? 10,
     observables: d.observables ?? [...OBSERVABLES],
     checkpointIntervalSeconds: d.checkpoint_interval_seconds ?? 300,
     checkpointEveryParticles: every,
-    runsPerJob: d.runs_per_job ?? defaultRunsPerJob(d.particles, d.clusters),
+    runsPerJob: d.runs_per_job ?? defaultRunsPerJob(d.particles, runsMax),
+    analysis,
+    target: t
+      ? {
+          estimator: t.estimator ?? 'radius_of_gyration',
+          halfWidth: t.half_width,
+          level: t.level ?? 0.95,
+          maxClusters: t.max_clusters,
+          minBatch,
+          minClusters,
+        }
+      : null,
   };
 }
 
@@ -169,7 +245,37 @@ export function specToDocument(s: EnsembleSpec): Record<string, unknown> {
     checkpoint_interval_seconds: s.checkpointIntervalSeconds,
     checkpoint_every_particles: s.checkpointEveryParticles,
     runs_per_job: s.runsPerJob,
+    ...analysisDocument(s.analysis),
+    ...(s.target
+      ? {
+          target: {
+            estimator: s.target.estimator,
+            half_width: s.target.halfWidth,
+            level: s.target.level,
+            max_clusters: s.target.maxClusters,
+            min_batch: s.target.minBatch,
+            min_clusters: s.target.minClusters,
+          },
+        }
+      : {}),
   };
+}
+
+/** The [analysis] table of a spec document (absent when no option is set, so older documents stay identical). */
+function analysisDocument(a: AnalysisSettings): { analysis?: Record<string, unknown> } {
+  const out: Record<string, unknown> = {};
+  for (const [k, f] of ANALYSIS_FIELDS) if (a[k] !== undefined) out[f] = a[k];
+  return Object.keys(out).length > 0 ? { analysis: out } : {};
+}
+
+/**
+ * Validate analysis options given apart from a spec (CLI overrides) with the
+ * same schema and messages as the [analysis] table; returns the merged settings.
+ */
+export function mergeAnalysisSettings(base: AnalysisSettings, overrideDoc: Record<string, unknown>): AnalysisSettings {
+  const merged = { ...analysisDocument(base).analysis, ...overrideDoc };
+  const probe = { model: 'dla-offlattice-2d', particles: 2, clusters: 1, seed: 0, analysis: merged };
+  return validateSpec(probe, { maxTotalParticles: Number.MAX_SAFE_INTEGER }).analysis;
 }
 
 // ---------------------------------------------------------------- messages
@@ -234,6 +340,7 @@ function allowedOf(s: any): string {
     const items = s.items?.enum ? ` of distinct values from ${s.items.enum.map((x: unknown) => JSON.stringify(x)).join(', ')}` : '';
     return `a non-empty list${items}`;
   }
+  if (s.type === 'boolean') return 'true or false';
   if (s.type === 'object') return `a table with the fields ${Object.keys(s.properties ?? {}).join(', ')}`;
   return 'see the spec schema';
 }
@@ -244,7 +351,7 @@ function messageOf(e: ErrorObject, doc: unknown): string {
   switch (e.keyword) {
     case 'required': {
       const name = (e.params as { missingProperty: string }).missingProperty;
-      const s = (SPEC_SCHEMA.properties as Record<string, unknown>)[name];
+      const s = (schemaAt(e.schemaPath)?.properties as Record<string, unknown> | undefined)?.[name];
       return `${e.instancePath === '' ? '' : field + '.'}${name}: missing; allowed: ${allowedOf(s)}`;
     }
     case 'additionalProperties': {

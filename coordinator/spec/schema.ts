@@ -16,6 +16,7 @@ export const MAX_RUNS_PER_JOB = 1000;
 export const DEFAULT_MAX_TOTAL_PARTICLES = 10_000_000_000;
 
 export const MODEL_KINDS = ['dla-offlattice-2d'] as const;
+export const TARGET_ESTIMATORS = ['radius_of_gyration', 'max_radius', 'mass_radius'] as const;
 export const OBSERVABLES = ['radius_of_gyration', 'max_radius', 'center_offset', 'mass_radius'] as const;
 
 export const SPEC_SCHEMA = {
@@ -23,7 +24,7 @@ export const SPEC_SCHEMA = {
   title: 'tendril ensemble spec',
   type: 'object',
   additionalProperties: false,
-  required: ['model', 'particles', 'clusters', 'seed'],
+  required: ['model', 'particles', 'seed'],
   properties: {
     name: { type: 'string', minLength: 1, maxLength: 100, pattern: '^[A-Za-z0-9][A-Za-z0-9 _.,:()+-]*$', description: 'a label for people' },
     model: { type: 'string', enum: [...MODEL_KINDS], description: 'growth model' },
@@ -37,7 +38,7 @@ export const SPEC_SCHEMA = {
       },
     },
     particles: { type: 'integer', minimum: MIN_PARTICLES, maximum: MAX_PARTICLES, description: 'particles per cluster, seed included' },
-    clusters: { type: 'integer', minimum: 1, maximum: MAX_CLUSTERS, description: 'number of clusters (runs)' },
+    clusters: { type: 'integer', minimum: 1, maximum: MAX_CLUSTERS, description: 'number of clusters (runs); with [target], the size of the first batch' },
     seed: {
       description: 'ensemble seed: an unsigned 64-bit integer (a string of decimal digits, or an integer below 2^53)',
       anyOf: [
@@ -56,5 +57,34 @@ export const SPEC_SCHEMA = {
     checkpoint_interval_seconds: { type: 'number', minimum: 1, maximum: 86_400, description: 'checkpoint a running cluster at least this often' },
     checkpoint_every_particles: { type: 'integer', minimum: 0, maximum: MAX_PARTICLES, description: 'also checkpoint every this many particles (0 = off)' },
     runs_per_job: { type: 'integer', minimum: 1, maximum: MAX_RUNS_PER_JOB, description: 'clusters grown by one queue job (default: chosen from the cluster size)' },
+    analysis: {
+      type: 'object',
+      additionalProperties: false,
+      description: 'options of the ensemble statistics (defaults: see docs/summary-schema.md)',
+      properties: {
+        fit_min_size: { type: 'number', minimum: 1, maximum: MAX_PARTICLES, description: 'smallest N of the R_g and R_max fits' },
+        fit_max_size: { type: 'number', minimum: 1, maximum: MAX_PARTICLES, description: 'largest N of the R_g and R_max fits' },
+        mass_radius_min_radius: { type: 'number', minimum: 0, maximum: 1e6, description: 'smallest r of the M(r) fit, in particle diameters' },
+        mass_radius_max_radius: { type: 'number', minimum: 0, maximum: 1e6, description: 'largest r of the M(r) fit, in particle diameters' },
+        resamples: { type: 'integer', minimum: 10, maximum: 1_000_000, description: 'bootstrap resamples' },
+        level: { type: 'number', minimum: 0.5, maximum: 0.999, description: 'confidence level of the intervals' },
+        corrections: { type: 'boolean', description: 'run the corrections-to-scaling fit' },
+        local_slope_width: { type: 'number', minimum: 0.05, maximum: 3, description: 'full width of the local-slope window in decades' },
+      },
+    },
+    target: {
+      type: 'object',
+      additionalProperties: false,
+      required: ['half_width', 'max_clusters'],
+      description: 'adaptive ensemble: add clusters in batches until the interval of D is this narrow or max_clusters is reached',
+      properties: {
+        estimator: { type: 'string', enum: [...TARGET_ESTIMATORS], description: 'estimator whose interval of D is watched' },
+        half_width: { type: 'number', exclusiveMinimum: 0, maximum: 1, description: 'largest allowed half-width of the interval of D' },
+        level: { type: 'number', minimum: 0.5, maximum: 0.999, description: 'confidence level of the watched interval' },
+        max_clusters: { type: 'integer', minimum: 1, maximum: MAX_CLUSTERS, description: 'most clusters the ensemble may grow to' },
+        min_batch: { type: 'integer', minimum: 1, maximum: MAX_CLUSTERS, description: 'smallest batch of clusters added at once' },
+        min_clusters: { type: 'integer', minimum: 2, maximum: MAX_CLUSTERS, description: 'fewest clusters before the target may count as reached' },
+      },
+    },
   },
 } as const;

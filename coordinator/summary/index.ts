@@ -16,7 +16,11 @@ import {
   type RunResultData,
 } from '../../proto/convert.js';
 import { ENGINE_VERSION } from '../../worker/engine-version.js';
-import { specToDocument, type EnsembleSpec, type Observable } from '../spec/index.js';
+import { specToDocument, type AnalysisSettings, type EnsembleSpec, type Observable } from '../spec/index.js';
+import type { EnsembleAnalysis } from '../stats/analyze-ensemble.js';
+import { analysisOptionsOf, safeAnalysis, type AdaptiveHistory } from './adaptive.js';
+
+export { analysisOptionsOf, judgeBatch, newAdaptiveHistory, safeAnalysis, type AdaptiveBatch, type AdaptiveHistory, type AdaptiveOutcome } from './adaptive.js';
 
 export interface SummaryInput {
   ensembleId: string;
@@ -24,6 +28,16 @@ export interface SummaryInput {
   createdAtMs: number;
   /** Results in any order; a run index present more than once is counted once (the first wins). */
   results: Iterable<RunResultData>;
+  /** Clusters planned so far (an adaptive ensemble's grows batch by batch); default spec.clusters. */
+  clustersPlanned?: number;
+  /**
+   * Whether the ensemble has ended (all planned runs stored and, when
+   * adaptive, the stopping rule has said stop). Default: every planned run
+   * is stored. An unfinished summary is marked partial.
+   */
+  finished?: boolean;
+  /** Batch history of an adaptive ensemble. */
+  adaptive?: AdaptiveHistory | null;
 }
 
 export type SummaryEnricher = (runs: RunResultData[], spec: EnsembleSpec) => unknown;
@@ -88,8 +102,8 @@ export function uniqueRuns(results: Iterable<RunResultData>): RunResultData[] {
  * HTTP API is built with: the one place to plug the statistics library in,
  * e.g. `return { enrich: (runs) => analyzeEnsemble(runs) };`.
  */
-export function defaultSummaryOptions(): SummaryOptions {
-  return {};
+export function defaultSummaryOptions(overrides: AnalysisSettings = {}): SummaryOptions {
+  return { enrich: (runs, spec) => safeAnalysis(runs, analysisOptionsOf({ ...spec.analysis, ...overrides })) };
 }
 
 export function buildSummary(input: SummaryInput, opts: SummaryOptions = defaultSummaryOptions()): EnsembleSummaryData {
@@ -122,7 +136,7 @@ export function buildSummary(input: SummaryInput, opts: SummaryOptions = default
     name: input.spec.name,
     engineVersion: ENGINE_VERSION,
     specJson: JSON.stringify(specToDocument(input.spec)),
-    clustersPlanned: input.spec.clusters,
+    clustersPlanned: input.clustersPlanned ?? input.spec.clusters,
     clustersDone: runs.length,
     runs,
     radiusOfGyrationFit: fit,
@@ -131,7 +145,16 @@ export function buildSummary(input: SummaryInput, opts: SummaryOptions = default
     meanSizes,
     meanLogRadiusOfGyration: meanLog,
     statisticsJson: statistics === undefined ? '' : JSON.stringify(statistics),
+    partial: !(input.finished ?? runs.length >= (input.clustersPlanned ?? input.spec.clusters)),
+    adaptiveJson: input.adaptive ? JSON.stringify(input.adaptive) : '',
   };
+}
+
+/** The analysis inside a summary, or null when it is absent or could not be made. */
+export function analysisOf(s: EnsembleSummaryData): EnsembleAnalysis | null {
+  if (s.statisticsJson === '') return null;
+  const a = JSON.parse(s.statisticsJson) as { schema?: string };
+  return a.schema === 'tendril.ensemble-statistics/1' ? (a as EnsembleAnalysis) : null;
 }
 
 const SERIES_COLUMNS: Array<[Observable, keyof RunResultData['series']]> = [
@@ -159,6 +182,8 @@ export function summaryToJsonObject(s: EnsembleSummaryData): Record<string, unkn
     spec: JSON.parse(s.specJson),
     clusters_planned: s.clustersPlanned,
     clusters_done: s.clustersDone,
+    partial: s.partial,
+    adaptive: s.adaptiveJson === '' ? null : JSON.parse(s.adaptiveJson),
     radius_of_gyration_fit: s.radiusOfGyrationFit && {
       exponent: s.radiusOfGyrationFit.exponent,
       prefactor: s.radiusOfGyrationFit.prefactor,
@@ -227,6 +252,76 @@ export function runsToCsv(s: EnsembleSummaryData): string {
   return lines.join('\n') + '\n';
 }
 
+/** Per-estimator results (and the corrected D of the corrections fits): one row per estimator. */
+export function estimatorsToCsv(s: EnsembleSummaryData): string {
+  const lines = [
+    'estimator,quantity,available,D,percentile_low,percentile_high,bca_low,bca_high,level,interval_status,fit_variable,fit_from,fit_to,first_used,last_used,points,window_source,clusters,partial,reason',
+  ];
+  const a = analysisOf(s);
+  if (a) {
+    for (const e of Object.values(a.estimators)) {
+      const iv = e.interval;
+      const w = e.fitWindow;
+      lines.push(
+        [
+          e.name, e.quantity, e.available, opt(e.D), opt(iv.percentile?.[0]), opt(iv.percentile?.[1]), opt(iv.bca?.[0]), opt(iv.bca?.[1]), iv.level, iv.status,
+          w?.variable ?? '', opt(w?.from), opt(w?.to), opt(w?.firstUsed), opt(w?.lastUsed), w?.points ?? '', w?.source ?? '', a.clusters, s.partial, csvText(e.reason ?? ''),
+        ].join(','),
+      );
+    }
+    for (const c of [a.corrections.radiusOfGyration, a.corrections.maxRadius]) {
+      if (!c) continue;
+      const iv = c.D.interval;
+      lines.push(
+        [
+          `${c.estimator}Corrected`, `${c.estimator === 'radiusOfGyration' ? 'R_g' : 'R_max'}(N) with corrections to scaling`, c.available, opt(c.D.value),
+          opt(iv.percentile?.[0]), opt(iv.percentile?.[1]), opt(iv.bca?.[0]), opt(iv.bca?.[1]), iv.level, iv.status,
+          'N', opt(c.window?.from), opt(c.window?.to), '', '', c.points, c.window?.source ?? '', a.clusters, s.partial, csvText(c.reason ?? c.omegaReason ?? ''),
+        ].join(','),
+      );
+    }
+  }
+  return lines.join('\n') + '\n';
+}
+
+/** Local slopes: one row per (estimator, centre of the sliding window). */
+export function localSlopesToCsv(s: EnsembleSummaryData): string {
+  const lines = ['estimator,at,D,percentile_low,percentile_high,bca_low,bca_high,interval_status'];
+  const a = analysisOf(s);
+  if (a) {
+    for (const e of Object.values(a.estimators)) {
+      for (const p of e.localSlopes?.points ?? []) {
+        lines.push([e.name, p.at, opt(p.D), opt(p.percentile?.[0]), opt(p.percentile?.[1]), opt(p.bca?.[0]), opt(p.bca?.[1]), p.status].join(','));
+      }
+    }
+  }
+  return lines.join('\n') + '\n';
+}
+
+/** Batches of an adaptive ensemble: one row per batch (header only for a fixed count). */
+export function batchesToCsv(s: EnsembleSummaryData): string {
+  const lines = ['batch,from_run,to_run,clusters_after,D,half_width,interval_low,interval_high,decision,reason'];
+  if (s.adaptiveJson !== '') {
+    const h = JSON.parse(s.adaptiveJson) as AdaptiveHistory;
+    for (const b of h.batches) {
+      const j = b.judged;
+      lines.push([b.batch, b.fromRun, b.toRun, j?.clusters ?? '', opt(j?.D), opt(j?.halfWidth), opt(j?.interval?.[0]), opt(j?.interval?.[1]), j?.action ?? 'pending', csvText(j?.reason ?? '')].join(','));
+    }
+  }
+  return lines.join('\n') + '\n';
+}
+
+/** Every CSV table of a summary, by file name; each is one plain table with a header row. */
+export const CSV_TABLES: Record<string, (s: EnsembleSummaryData) => string> = {
+  series: summaryToCsv,
+  runs: runsToCsv,
+  'mass-radius': massRadiusToCsv,
+  estimators: estimatorsToCsv,
+  'local-slopes': localSlopesToCsv,
+  batches: batchesToCsv,
+};
+export const CSV_TABLE_NAMES = Object.keys(CSV_TABLES);
+
 export function summaryToProtobuf(s: EnsembleSummaryData): Uint8Array {
   return encodeEnsembleSummary(s);
 }
@@ -234,13 +329,21 @@ export function summaryToProtobuf(s: EnsembleSummaryData): Uint8Array {
 export type SummaryFormat = 'json' | 'csv' | 'pb';
 export const SUMMARY_FORMATS: SummaryFormat[] = ['json', 'csv', 'pb'];
 
-export function renderSummary(s: EnsembleSummaryData, format: SummaryFormat): Uint8Array {
+/** One download: JSON, protobuf, or one CSV table (default the per-run series). */
+export function renderSummary(s: EnsembleSummaryData, format: SummaryFormat, table = 'series'): Uint8Array {
   if (format === 'pb') return summaryToProtobuf(s);
-  return Buffer.from(format === 'json' ? summaryToJson(s) : summaryToCsv(s), 'utf8');
+  if (format === 'json') return Buffer.from(summaryToJson(s), 'utf8');
+  const t = CSV_TABLES[table];
+  if (!t) throw new RangeError(`table: "${table}" is not allowed; allowed: ${CSV_TABLE_NAMES.join(', ')}`);
+  return Buffer.from(t(s), 'utf8');
 }
 
 function num(v: number): string {
   return Number.isFinite(v) ? String(v) : '';
+}
+
+function opt(v: number | null | undefined): string {
+  return v === null || v === undefined || !Number.isFinite(v) ? '' : String(v);
 }
 
 function csvText(t: string): string {

@@ -1568,6 +1568,12 @@ export namespace tendril {
         /** EnsembleSummary statisticsJson. */
         statisticsJson: string;
 
+        /** EnsembleSummary partial. */
+        partial: boolean;
+
+        /** EnsembleSummary adaptiveJson. */
+        adaptiveJson: string;
+
         /**
          * Creates a new EnsembleSummary instance using the specified properties.
          * @param [properties] Properties to set
@@ -1694,6 +1700,12 @@ export namespace tendril {
             /** EnsembleSummary statisticsJson */
             statisticsJson?: (string|null);
 
+            /** EnsembleSummary partial */
+            partial?: (boolean|null);
+
+            /** EnsembleSummary adaptiveJson */
+            adaptiveJson?: (string|null);
+
             /** Unknown fields preserved while decoding when enabled */
             $unknowns?: Uint8Array[];
         }
@@ -1714,6 +1726,8 @@ export namespace tendril {
           meanSizes?: number[]|null;
           meanLogRadiusOfGyration?: number[]|null;
           statisticsJson?: string|null;
+          partial?: boolean|null;
+          adaptiveJson?: string|null;
           $unknowns?: Uint8Array[];
         };
     }

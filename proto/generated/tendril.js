@@ -3,7 +3,7 @@ import $protobuf from "protobufjs/minimal.js";
 
 // Common aliases
 const $Reader = $protobuf.Reader, $Writer = $protobuf.Writer, $util = $protobuf.util;
-const $Object = $util.global.Object, $undefined = $util.global.undefined, $Error = $util.global.Error, $RangeError = $util.global.RangeError, $TypeError = $util.global.TypeError, $Number = $util.global.Number, $isFinite = $util.global.isFinite, $String = $util.global.String, $Array = $util.global.Array;
+const $Object = $util.global.Object, $undefined = $util.global.undefined, $Error = $util.global.Error, $RangeError = $util.global.RangeError, $TypeError = $util.global.TypeError, $Number = $util.global.Number, $isFinite = $util.global.isFinite, $String = $util.global.String, $Array = $util.global.Array, $Boolean = $util.global.Boolean;
 
 // Exported root namespace
 const $root = $protobuf.roots["default"] || ($protobuf.roots["default"] = {});
@@ -4372,6 +4372,8 @@ export const tendril = $root.tendril = (() => {
          * @property {Array.<number>|null} [meanSizes] EnsembleSummary meanSizes
          * @property {Array.<number>|null} [meanLogRadiusOfGyration] EnsembleSummary meanLogRadiusOfGyration
          * @property {string|null} [statisticsJson] EnsembleSummary statisticsJson
+         * @property {boolean|null} [partial] EnsembleSummary partial
+         * @property {string|null} [adaptiveJson] EnsembleSummary adaptiveJson
          * @property {Array.<Uint8Array>} [$unknowns] Unknown fields preserved while decoding when enabled
          */
 
@@ -4400,6 +4402,8 @@ export const tendril = $root.tendril = (() => {
          *   meanSizes?: Array.<number>|null;
          *   meanLogRadiusOfGyration?: Array.<number>|null;
          *   statisticsJson?: string|null;
+         *   partial?: boolean|null;
+         *   adaptiveJson?: string|null;
          *   $unknowns?: Array.<Uint8Array>;
          * }} tendril.EnsembleSummary.$Shape
          */
@@ -4535,6 +4539,22 @@ export const tendril = $root.tendril = (() => {
         EnsembleSummary.prototype.statisticsJson = "";
 
         /**
+         * EnsembleSummary partial.
+         * @member {boolean} partial
+         * @memberof tendril.EnsembleSummary
+         * @instance
+         */
+        EnsembleSummary.prototype.partial = false;
+
+        /**
+         * EnsembleSummary adaptiveJson.
+         * @member {string} adaptiveJson
+         * @memberof tendril.EnsembleSummary
+         * @instance
+         */
+        EnsembleSummary.prototype.adaptiveJson = "";
+
+        /**
          * Creates a new EnsembleSummary instance using the specified properties.
          * @function create
          * @memberof tendril.EnsembleSummary
@@ -4595,6 +4615,10 @@ export const tendril = $root.tendril = (() => {
                 writer.uint32(/* id 13, wireType 2 =*/106).doubles(message.meanLogRadiusOfGyration);
             if (message.statisticsJson != null && $Object.hasOwnProperty.call(message, "statisticsJson") && message.statisticsJson !== "")
                 writer.uint32(/* id 14, wireType 2 =*/114).string(message.statisticsJson);
+            if (message.partial != null && $Object.hasOwnProperty.call(message, "partial") && message.partial !== false)
+                writer.uint32(/* id 15, wireType 0 =*/120).bool(message.partial);
+            if (message.adaptiveJson != null && $Object.hasOwnProperty.call(message, "adaptiveJson") && message.adaptiveJson !== "")
+                writer.uint32(/* id 16, wireType 2 =*/130).string(message.adaptiveJson);
             if (message.$unknowns != null && $Object.hasOwnProperty.call(message, "$unknowns"))
                 for (let i = 0; i < message.$unknowns.length; ++i)
                     writer.raw(message.$unknowns[i]);
@@ -4784,6 +4808,24 @@ export const tendril = $root.tendril = (() => {
                             delete message.statisticsJson;
                         continue;
                     }
+                case 15: {
+                        if (wireType !== 0)
+                            break;
+                        if (value = reader.bool())
+                            message.partial = value;
+                        else
+                            delete message.partial;
+                        continue;
+                    }
+                case 16: {
+                        if (wireType !== 2)
+                            break;
+                        if ((value = reader.stringVerify()).length)
+                            message.adaptiveJson = value;
+                        else
+                            delete message.adaptiveJson;
+                        continue;
+                    }
                 }
                 reader.skipType(wireType, _depth, tag);
                 if (!reader.discardUnknown) {
@@ -4890,6 +4932,12 @@ export const tendril = $root.tendril = (() => {
             if (message.statisticsJson != null && $Object.hasOwnProperty.call(message, "statisticsJson"))
                 if (!$util.isString(message.statisticsJson))
                     return "statisticsJson: string expected";
+            if (message.partial != null && $Object.hasOwnProperty.call(message, "partial"))
+                if (typeof message.partial !== "boolean")
+                    return "partial: boolean expected";
+            if (message.adaptiveJson != null && $Object.hasOwnProperty.call(message, "adaptiveJson"))
+                if (!$util.isString(message.adaptiveJson))
+                    return "adaptiveJson: string expected";
             return null;
         };
 
@@ -4970,6 +5018,12 @@ export const tendril = $root.tendril = (() => {
             if (object.statisticsJson != null)
                 if (typeof object.statisticsJson !== "string" || object.statisticsJson.length)
                     message.statisticsJson = $String(object.statisticsJson);
+            if (object.partial != null)
+                if (object.partial)
+                    message.partial = $Boolean(object.partial);
+            if (object.adaptiveJson != null)
+                if (typeof object.adaptiveJson !== "string" || object.adaptiveJson.length)
+                    message.adaptiveJson = $String(object.adaptiveJson);
             return message;
         };
 
@@ -5007,6 +5061,8 @@ export const tendril = $root.tendril = (() => {
                 object.fractalDimension = 0;
                 object.createdAtMs = 0;
                 object.statisticsJson = "";
+                object.partial = false;
+                object.adaptiveJson = "";
             }
             if (message.contractVersion != null && $Object.hasOwnProperty.call(message, "contractVersion"))
                 object.contractVersion = message.contractVersion;
@@ -5045,6 +5101,10 @@ export const tendril = $root.tendril = (() => {
             }
             if (message.statisticsJson != null && $Object.hasOwnProperty.call(message, "statisticsJson"))
                 object.statisticsJson = message.statisticsJson;
+            if (message.partial != null && $Object.hasOwnProperty.call(message, "partial"))
+                object.partial = message.partial;
+            if (message.adaptiveJson != null && $Object.hasOwnProperty.call(message, "adaptiveJson"))
+                object.adaptiveJson = message.adaptiveJson;
             return object;
         };
 

@@ -1,0 +1,78 @@
+/**
+ * Writing a summary into a folder (shared by `tendril run` and `tendril
+ * summary --format tables|html`): summary.json, summary.pb, one CSV file per
+ * table (see CSV_TABLES in coordinator/summary/index.ts) and, when asked,
+ * report.html with plots/ (coordinator/report).
+ */
+import { mkdir, writeFile } from 'node:fs/promises';
+import { join } from 'node:path';
+import type { EnsembleSummaryData, RunResultData } from '../../proto/convert.js';
+import { writeEnsembleReport } from '../report/index.js';
+import type { EnsembleSpec } from '../spec/index.js';
+import { analysisOf, CSV_TABLES, summaryToJson, summaryToProtobuf, type AdaptiveHistory } from '../summary/index.js';
+
+export interface SummaryFilesOptions {
+  /** Write report.html and plots/ (default true). */
+  report?: boolean;
+  /** Write summary.json and summary.pb (default true). */
+  json?: boolean;
+  /** Write the CSV tables (default true). */
+  tables?: boolean;
+  ensembleId?: string;
+}
+
+/** Writes the files and returns their names relative to `dir`. */
+export async function writeSummaryFiles(
+  dir: string,
+  s: EnsembleSummaryData,
+  runs: readonly RunResultData[],
+  spec: EnsembleSpec,
+  o: SummaryFilesOptions = {},
+): Promise<string[]> {
+  await mkdir(dir, { recursive: true });
+  const written: string[] = [];
+  if (o.json ?? true) {
+    await writeFile(join(dir, 'summary.json'), summaryToJson(s));
+    await writeFile(join(dir, 'summary.pb'), summaryToProtobuf(s));
+    written.push('summary.json', 'summary.pb');
+  }
+  if (o.tables ?? true) {
+    for (const [name, render] of Object.entries(CSV_TABLES)) {
+      await writeFile(join(dir, `${name}.csv`), render(s));
+      written.push(`${name}.csv`);
+    }
+  }
+  const analysis = analysisOf(s);
+  if ((o.report ?? true) && analysis) {
+    const files = await writeEnsembleReport(dir, { analysis, runs, spec, ensembleId: o.ensembleId ?? s.ensembleId, title: s.partial ? `${s.name} (partial: ${s.clustersDone} of ${s.clustersPlanned} clusters)` : undefined });
+    written.push('report.html', `plots/ (${files.svgs.length} SVG, ${files.pngs.length} PNG)`);
+  }
+  return written;
+}
+
+/** A few lines for people: D from each estimator with its interval, and the adaptive outcome. */
+export function describeAnalysis(s: EnsembleSummaryData): string {
+  const lines: string[] = [];
+  if (s.partial) lines.push(`partial summary: ${s.clustersDone} of ${s.clustersPlanned} planned clusters finished`);
+  const a = analysisOf(s);
+  if (a) {
+    for (const e of Object.values(a.estimators)) {
+      if (!e.available || e.D === null) continue;
+      const iv = e.interval.bca ?? e.interval.percentile;
+      const w = e.fitWindow;
+      lines.push(
+        `D from ${e.quantity}: ${e.D.toFixed(4)}` +
+          (iv ? ` [${iv[0].toFixed(4)}, ${iv[1].toFixed(4)}] (${Math.round(e.interval.level * 100)}% ${e.interval.bca ? 'BCa' : 'percentile'})` : ` (no interval: ${e.interval.status})`) +
+          (w ? `, fit over ${w.variable} = ${w.firstUsed}..${w.lastUsed}` : ''),
+      );
+    }
+  } else if (s.statisticsJson !== '') {
+    const x = JSON.parse(s.statisticsJson) as { reason?: string };
+    if (x.reason) lines.push(`no statistics: ${x.reason}`);
+  }
+  if (s.adaptiveJson !== '') {
+    const h = JSON.parse(s.adaptiveJson) as AdaptiveHistory;
+    lines.push(`adaptive: ${h.outcome}${h.reason ? ` (${h.reason})` : ''} after ${h.batches.length} batch(es)`);
+  }
+  return lines.map((l) => l + '\n').join('');
+}
