@@ -38,6 +38,7 @@ describe('tendril probe', () => {
     expect(m.capacity.capacity).toBeGreaterThan(0);
     expect(m.converged.length).toBe(25);
     expect(typeof m.maxConcentration.exponent).toBe('number');
+    expect(m.boxes.maxMeasure.length).toBe(m.window.scales);
     expect(readFileSync(join(dir, 'a', 'probe-measure.png')).subarray(1, 4).toString()).toBe('PNG');
   });
 

@@ -69,6 +69,8 @@ export interface HarmonicMeasures {
   radius: number;
   window: { epsMin: number; epsMax: number; scales: number; relativeMin: number; relativeMax: number };
   spectrum: Spectrum;
+  /** The box statistics behind the fits: per box side, Z(q, eps) for each q, sum mu log mu, and max mu. */
+  boxes: { eps: number[]; z: number[][]; entropy: number[]; maxMeasure: number[] };
   tauHalves: [number[], number[]] | null;
   converged: Array<boolean | null>;
   maxConcentration: { exponent: number; fitError: number; beurlingBound: number; consistentWithBeurling: boolean };
@@ -128,7 +130,8 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
       w: null,
     };
   };
-  const spectrum = spectrumFrom(boxStatistics(measureOf('all'), eps, inp.q, ox, oy), radius);
+  const stats = boxStatistics(measureOf('all'), eps, inp.q, ox, oy);
+  const spectrum = spectrumFrom(stats, radius);
   const canHalve = source === 'contact-points' ? inp.contactCount >= 200 : inp.halves !== null;
   let tauHalves: [number[], number[]] | null = null;
   let converged: Array<boolean | null> = inp.q.map(() => null);
@@ -149,6 +152,7 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
     radius,
     window: { epsMin: lo, epsMax: hi, scales, relativeMin: lo / radius, relativeMax: hi / radius },
     spectrum,
+    boxes: { eps: stats.eps, z: stats.z, entropy: stats.entropy, maxMeasure: stats.maxMeasure },
     tauHalves,
     converged,
     maxConcentration: {
