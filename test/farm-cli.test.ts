@@ -82,7 +82,7 @@ describe('tendril CLI (farm and embedded commands)', () => {
     expect(unknown.code).toBe(2);
     expect(unknown.stderr).toBe('tendril: ensemble id: "enope" is not known to this farm\n');
     const fmt = await cli('summary', id, '--prefix', prefix, '--format', 'xml');
-    expect(fmt.stderr).toBe('tendril: --format: "xml" is not allowed; allowed: json, csv, pb\n');
+    expect(fmt.stderr).toBe('tendril: --format: "xml" is not allowed; allowed: json, csv, pb, tables, html\n');
     const noRedis = await cli('list', '--redis', 'redis://127.0.0.1:1');
     expect(noRedis.code).toBe(2);
     expect(noRedis.stderr).toMatch(/^tendril: --redis: cannot reach redis:\/\/127\.0\.0\.1:1: .*\n$/);

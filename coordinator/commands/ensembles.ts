@@ -4,8 +4,11 @@ import type { Command } from 'commander';
 import { cancelEnsemble } from '../farm/queue.js';
 import type { EnsembleStatus, EnsembleStore } from '../farm/store.js';
 import { formatDuration } from '../progress/index.js';
-import { buildSummary, renderSummary, SUMMARY_FORMATS, type SummaryFormat } from '../summary/index.js';
+import { farmSummary } from '../farm/summary.js';
+import { CSV_TABLE_NAMES, defaultSummaryOptions, renderSummary, SUMMARY_FORMATS, type SummaryFormat } from '../summary/index.js';
 import { UsageError } from '../usage-error.js';
+import { addAnalysisOptions, analysisSettingsFromCli, type AnalysisCliOptions } from './analysis-options.js';
+import { describeAnalysis, writeSummaryFiles } from './summary-files.js';
 import { addFarmOptions, openFarm, type FarmCliOptions } from './farm-options.js';
 
 export function statusLine(s: EnsembleStatus): string {
@@ -13,7 +16,8 @@ export function statusLine(s: EnsembleStatus): string {
   const eta = s.etaSeconds === null ? '?' : formatDuration(s.etaSeconds);
   return (
     `${s.id}  ${s.state.padEnd(9)} ${s.name}  runs ${r.done}/${r.planned} done, ${r.running} running, ${r.queued} queued, ${r.failed} failed; ` +
-    `${s.particles.done}/${s.particles.total} particles; ${Math.round(s.throughput)} particles/s; ${s.state === 'running' ? `about ${eta} left` : ''}`.trimEnd()
+    `${s.particles.done}/${s.particles.total} particles; ${Math.round(s.throughput)} particles/s; ${s.state === 'running' ? `about ${eta} left` : ''}`.trimEnd() +
+    (s.adaptive ? `; adaptive: ${s.adaptive.outcome} after ${s.adaptive.batches} batch(es), cap ${s.adaptive.maxClusters} clusters` : '')
   );
 }
 
@@ -68,21 +72,36 @@ export function register(program: Command): void {
   );
 
   addFarmOptions(
-    program
-      .command('summary')
-      .description("download an ensemble's summary (per-run tables and the R_g fit) as JSON, CSV or protobuf")
-      .argument('<id>', 'ensemble id')
-      .option('--format <format>', 'json, csv or pb', 'json')
-      .option('--out <file>', 'write to this file instead of standard output'),
-  ).action(async (id: string, opts: FarmCliOptions & { format: string; out?: string }) => {
-    if (!SUMMARY_FORMATS.includes(opts.format as SummaryFormat)) throw new UsageError(`--format: "${opts.format}" is not allowed; allowed: json, csv, pb`);
+    addAnalysisOptions(
+      program
+        .command('summary')
+        .description(
+          "an ensemble's summary (estimators with bootstrap intervals, local slopes, per-run tables; partial while it runs) as JSON, one CSV table, protobuf, a folder of CSV tables, or an HTML report",
+        )
+        .argument('<id>', 'ensemble id')
+        .option('--format <format>', 'json, csv, pb, tables (a folder of CSV files) or html (report.html with plots, into a folder)', 'json')
+        .option('--table <name>', `CSV table for --format csv: ${CSV_TABLE_NAMES.join(', ')}`, 'series')
+        .option('--out <path>', 'file (json, csv, pb) or folder (tables, html); default standard output for json and csv'),
+    ),
+  ).action(async (id: string, opts: FarmCliOptions & AnalysisCliOptions & { format: string; table: string; out?: string }) => {
+    const formats = [...SUMMARY_FORMATS, 'tables', 'html'];
+    if (!formats.includes(opts.format)) throw new UsageError(`--format: "${opts.format}" is not allowed; allowed: ${formats.join(', ')}`);
+    if (!CSV_TABLE_NAMES.includes(opts.table)) throw new UsageError(`--table: "${opts.table}" is not allowed; allowed: ${CSV_TABLE_NAMES.join(', ')}`);
     if (opts.format === 'pb' && !opts.out && process.stdout.isTTY) throw new UsageError('--out: missing; allowed: a file name (protobuf is not written to a terminal)');
+    if ((opts.format === 'tables' || opts.format === 'html') && !opts.out) throw new UsageError(`--out: missing; allowed: a folder name (--format ${opts.format} writes several files)`);
     const farm = await openFarm(opts);
     try {
       const rec = await farm.store.get(id);
       if (!rec) throw new UsageError(`ensemble id: "${id}" is not known to this farm`);
-      const summary = buildSummary({ ensembleId: id, spec: rec.spec, createdAtMs: rec.createdAtMs, results: await farm.store.results(id) });
-      const bytes = renderSummary(summary, opts.format as SummaryFormat);
+      const analysis = analysisSettingsFromCli(rec.spec.analysis, opts);
+      const got = (await farmSummary(farm.store, id, defaultSummaryOptions(analysis)))!;
+      if (opts.format === 'tables' || opts.format === 'html') {
+        const html = opts.format === 'html';
+        const written = await writeSummaryFiles(opts.out!, got.summary, got.results, rec.spec, { report: html, json: html, tables: true, ensembleId: id });
+        process.stdout.write(describeAnalysis(got.summary) + `wrote ${written.join(', ')} into ${opts.out}\n`);
+        return;
+      }
+      const bytes = renderSummary(got.summary, opts.format as SummaryFormat, opts.table);
       if (opts.out) await writeFile(opts.out, bytes);
       else process.stdout.write(bytes);
     } finally {

@@ -6,6 +6,7 @@
  */
 import { readFile } from 'node:fs/promises';
 import type { Command } from 'commander';
+import { startAdaptiveSweeps } from '../farm/adaptive.js';
 import { buildApi, isLoopback } from '../http/server.js';
 import { coordinatorMetrics, newRegistry } from '../metrics/index.js';
 import { limitsFromEnv } from '../spec/index.js';
@@ -57,9 +58,11 @@ export function register(program: Command): void {
     coordinatorMetrics(registry, farm.store, farm.queue);
     const app = buildApi({ store: farm.store, queue: farm.queue, token, limits, registry, bodyLimit: opts.bodyLimit });
     const address = await app.listen({ host: opts.host, port: opts.port });
+    // adaptive ensembles: a sweep judges finished batches that no worker judged (e.g. it died right after storing the last result)
+    const stopSweeps = startAdaptiveSweeps(farm.store, farm.queue, 30_000, (line) => process.stderr.write(`tendril serve: ${line}\n`));
     process.stdout.write(`serving on ${address}${token ? '' : ' (no API token: creating and cancelling are disabled)'}\n`);
     await new Promise<void>((resolve) => {
-      const stop = () => void app.close().then(() => farm.close()).finally(resolve);
+      const stop = () => void stopSweeps().then(() => app.close()).then(() => farm.close()).finally(resolve);
       process.once('SIGTERM', stop);
       process.once('SIGINT', stop);
     });

@@ -5,7 +5,9 @@
  */
 import { availableParallelism } from 'node:os';
 import { Option, type Command } from 'commander';
+import { advanceAdaptive, startAdaptiveSweeps } from '../farm/adaptive.js';
 import { DirectoryArtifactStore } from '../farm/artifacts.js';
+import type { RunSink } from '../../worker/queue-processor.js';
 import { newRegistry, serveMetrics, workerMetrics } from '../metrics/index.js';
 import { RunWorker } from '../../worker/queue-processor.js';
 import { addFarmOptions, openFarm, type FarmCliOptions } from './farm-options.js';
@@ -19,6 +21,7 @@ interface WorkerOptions extends FarmCliOptions {
   lockMs?: number;
   stalledMs?: number;
   progressMs?: number;
+  adaptiveSweepMs: number;
 }
 
 const SHUTDOWN_LIMIT_MS = 9_000;
@@ -34,17 +37,41 @@ export function register(program: Command): void {
       .option('--metrics-host <host>', 'address for /metrics', '127.0.0.1')
       .addOption(new Option('--lock-ms <ms>', 'queue lock duration').argParser(positiveInt('--lock-ms', 3_600_000)).hideHelp())
       .addOption(new Option('--stalled-ms <ms>', 'stalled-job check interval').argParser(positiveInt('--stalled-ms', 3_600_000)).hideHelp())
-      .addOption(new Option('--progress-ms <ms>', 'progress report interval').argParser(positiveInt('--progress-ms', 600_000)).hideHelp()),
+      .addOption(new Option('--progress-ms <ms>', 'progress report interval').argParser(positiveInt('--progress-ms', 600_000)).hideHelp())
+      .addOption(new Option('--adaptive-sweep-ms <ms>', 'how often to check adaptive ensembles for a finished batch').argParser(positiveInt('--adaptive-sweep-ms', 3_600_000)).default(30_000).hideHelp()),
   ).action(async (opts: WorkerOptions) => {
     const farm = await openFarm(opts);
     const registry = newRegistry();
     const metrics = workerMetrics(registry);
     const concurrency = opts.concurrency ?? availableParallelism();
     const log = (line: string) => process.stderr.write(`tendril worker: ${line}\n`);
+    // adaptive ensembles: the worker that stores the last result of a batch judges it and queues the next
+    // batch (coordinator/farm/adaptive.ts: an atomic Redis step, so a batch is never added twice)
+    const store = farm.store;
+    const sink: RunSink = {
+      isCancelled: (e) => store.isCancelled(e),
+      exists: (e) => store.exists(e),
+      hasResult: (e, i) => store.hasResult(e, i),
+      runStarted: (e, i, w) => store.runStarted(e, i, w),
+      runReleased: (e, i) => store.runReleased(e, i),
+      progress: (e, i, c, d) => store.progress(e, i, c, d),
+      runFailed: (e, i, r) => store.runFailed(e, i, r),
+      saveResult: async (result, bytes) => {
+        const counted = await store.saveResult(result, bytes);
+        try {
+          const step = await advanceAdaptive(store, farm.queue, result.ensembleId);
+          if (step === 'extended' || step === 'finished') log(`adaptive ensemble ${result.ensembleId}: batch judged, ${step === 'extended' ? 'next batch queued' : 'stopped'}`);
+        } catch (err) {
+          log(`adaptive ensemble ${result.ensembleId}: ${(err as Error).message.split('\n')[0]} (the periodic sweep retries)`);
+        }
+        return counted;
+      },
+    };
+    const stopSweeps = startAdaptiveSweeps(store, farm.queue, opts.adaptiveSweepMs, log);
     const worker = new RunWorker({
       connection: farm.redis,
       prefix: farm.prefix,
-      sink: farm.store,
+      sink,
       checkpoints: new DirectoryArtifactStore(opts.artifacts ?? process.env.TENDRIL_ARTIFACTS ?? 'tendril-artifacts'),
       concurrency,
       lockDuration: opts.lockMs,
@@ -65,6 +92,7 @@ export function register(program: Command): void {
           process.exit(1);
         }, SHUTDOWN_LIMIT_MS);
         hard.unref();
+        void stopSweeps();
         worker
           .shutdown()
           .catch((err: Error) => log(`shutdown: ${err.message}`))

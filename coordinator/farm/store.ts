@@ -3,7 +3,10 @@
  *
  *   P:ensembles                    sorted set: ensemble id, scored by creation time (ms)
  *   P:ensemble:ID                  hash: spec (canonical JSON), name, created_at_ms,
- *                                  clusters, particles, jobs, cancelled ("1" once cancelled)
+ *                                  clusters (planned so far), particles, jobs (queued so far),
+ *                                  cancelled ("1" once cancelled); adaptive ensembles also
+ *                                  adaptive (AdaptiveHistory JSON: target, outcome, batches) and
+ *                                  queued_through (runs 0..queued_through-1 have their jobs queued)
  *   P:ensemble:ID:results          hash: run index -> RunResult protobuf bytes; written with
  *                                  HSETNX, so a run executed twice is stored (and counted) once
  *   P:ensemble:ID:running          hash: run index -> worker id, while a worker grows it
@@ -17,6 +20,7 @@
 import { Redis } from 'ioredis';
 import { decodeRunResult, type RunResultData } from '../../proto/convert.js';
 import { specToDocument, validateSpec, type EnsembleSpec } from '../spec/index.js';
+import type { AdaptiveHistory } from '../summary/adaptive.js';
 import type { RunSink } from '../../worker/queue-processor.js';
 
 export const DEFAULT_PREFIX = 'tendril';
@@ -34,7 +38,36 @@ export interface EnsembleRecord {
   createdAtMs: number;
   jobs: number;
   cancelled: boolean;
+  /** Clusters planned so far: spec.clusters, or the sum of the batches of an adaptive ensemble. */
+  plannedClusters: number;
+  /** Batch history of an adaptive ensemble; null for a fixed count. */
+  adaptive: AdaptiveHistory | null;
+  /** Runs whose jobs are known to be queued (adaptive ensembles; = plannedClusters otherwise). */
+  queuedThrough: number;
 }
+
+/**
+ * One atomic step of an adaptive ensemble: only if the ensemble still has
+ * `expected` planned clusters and no outcome, write the new planned count,
+ * job count and history. Two coordinators judging the same complete batch
+ * both try; exactly one succeeds, so a batch is never added twice.
+ * KEYS[1] ensemble hash; ARGV expected clusters, new clusters, new jobs, history JSON.
+ */
+const EXTEND_SCRIPT = `
+if redis.call('HGET', KEYS[1], 'clusters') ~= ARGV[1] then return 0 end
+local h = redis.call('HGET', KEYS[1], 'adaptive')
+if not h then return 0 end
+if string.find(h, '"outcome":"running"', 1, true) == nil then return 0 end
+redis.call('HSET', KEYS[1], 'clusters', ARGV[2], 'jobs', ARGV[3], 'adaptive', ARGV[4])
+return 1
+`;
+
+/** Raise queued_through to ARGV[1] (never lower it). */
+const QUEUED_SCRIPT = `
+local q = tonumber(redis.call('HGET', KEYS[1], 'queued_through') or '0')
+if tonumber(ARGV[1]) > q then redis.call('HSET', KEYS[1], 'queued_through', ARGV[1]) end
+return 1
+`;
 
 export type EnsembleState = 'running' | 'done' | 'failed' | 'cancelled';
 
@@ -50,6 +83,8 @@ export interface EnsembleStatus {
   /** Seconds until done at the current throughput; null when unknown. */
   etaSeconds: number | null;
   failures: Array<{ runIndex: number; reason: string }>;
+  /** Adaptive ensembles: the outcome so far, batches planned, and the cluster cap; null for a fixed count. */
+  adaptive: { outcome: string; batches: number; maxClusters: number } | null;
 }
 
 export class EnsembleStore implements RunSink {
@@ -62,12 +97,19 @@ export class EnsembleStore implements RunSink {
     return part ? `${this.prefix}:ensemble:${id}:${part}` : `${this.prefix}:ensemble:${id}`;
   }
 
-  async create(id: string, spec: EnsembleSpec, jobs: number, createdAtMs = Date.now()): Promise<void> {
+  async create(id: string, spec: EnsembleSpec, jobs: number, createdAtMs = Date.now(), adaptive: AdaptiveHistory | null = null): Promise<void> {
     const ok = await this.redis.hsetnx(this.k(id), 'spec', JSON.stringify(specToDocument(spec)));
     if (!ok) throw new Error(`ensemble ${id} exists already`);
+    const fields: Record<string, string> = {
+      name: spec.name, created_at_ms: String(createdAtMs), clusters: String(spec.clusters), particles: String(spec.particles), jobs: String(jobs),
+    };
+    if (adaptive) {
+      fields.adaptive = JSON.stringify(adaptive);
+      fields.queued_through = '0';
+    }
     await this.redis
       .multi()
-      .hset(this.k(id), { name: spec.name, created_at_ms: String(createdAtMs), clusters: String(spec.clusters), particles: String(spec.particles), jobs: String(jobs) })
+      .hset(this.k(id), fields)
       .zadd(`${this.prefix}:ensembles`, createdAtMs, id)
       .exec();
   }
@@ -82,7 +124,35 @@ export class EnsembleStore implements RunSink {
       createdAtMs: Number(h.created_at_ms ?? 0),
       jobs: Number(h.jobs ?? 0),
       cancelled: h.cancelled === '1',
+      plannedClusters: Number(h.clusters ?? 0),
+      adaptive: h.adaptive ? (JSON.parse(h.adaptive) as AdaptiveHistory) : null,
+      queuedThrough: h.queued_through !== undefined ? Number(h.queued_through) : Number(h.clusters ?? 0),
     };
+  }
+
+  /** The atomic batch step of an adaptive ensemble (see EXTEND_SCRIPT); true when this call made it. */
+  async extendAdaptive(id: string, expectedClusters: number, newClusters: number, newJobs: number, history: AdaptiveHistory): Promise<boolean> {
+    const r = await this.redis.eval(EXTEND_SCRIPT, 1, this.k(id), String(expectedClusters), String(newClusters), String(newJobs), JSON.stringify(history));
+    return r === 1;
+  }
+
+  async resultCount(id: string): Promise<number> {
+    return this.redis.hlen(this.k(id, 'results'));
+  }
+
+  /** Record that the jobs of runs 0..through-1 are queued. */
+  async markQueued(id: string, through: number): Promise<void> {
+    await this.redis.eval(QUEUED_SCRIPT, 1, this.k(id), String(through));
+  }
+
+  /** Ids of adaptive ensembles still growing (scanning the newest `limit`). */
+  async runningAdaptiveIds(limit = 1000): Promise<string[]> {
+    const out: string[] = [];
+    for (const id of await this.ids(limit)) {
+      const [a, c] = await this.redis.hmget(this.k(id), 'adaptive', 'cancelled');
+      if (a && c !== '1' && a.includes('"outcome":"running"')) out.push(id);
+    }
+    return out;
   }
 
   /** Ensemble ids, newest first. */
@@ -167,7 +237,7 @@ export class EnsembleStore implements RunSink {
       this.redis.hgetall(this.k(id, 'failed')),
       this.redis.hgetall(this.k(id, 'rate')),
     ]);
-    const planned = rec.spec.clusters;
+    const planned = rec.plannedClusters;
     const runningN = Object.keys(running).length;
     const failedN = Object.keys(failed).length;
     let particlesDone = doneN * rec.spec.particles;
@@ -181,7 +251,7 @@ export class EnsembleStore implements RunSink {
     const total = planned * rec.spec.particles;
     let state: EnsembleState = 'running';
     if (rec.cancelled && doneN < planned) state = 'cancelled';
-    else if (doneN === planned) state = 'done';
+    else if (doneN === planned && (!rec.adaptive || rec.adaptive.outcome !== 'running')) state = 'done';
     else if (doneN + failedN === planned) state = 'failed';
     const remaining = total - particlesDone;
     return {
@@ -197,6 +267,7 @@ export class EnsembleStore implements RunSink {
         .map(([i, reason]) => ({ runIndex: Number(i), reason }))
         .sort((a, b) => a.runIndex - b.runIndex)
         .slice(0, 20),
+      adaptive: rec.adaptive ? { outcome: rec.adaptive.outcome, batches: rec.adaptive.batches.length, maxClusters: rec.adaptive.target.max_clusters } : null,
     };
   }
 

@@ -25,7 +25,8 @@ import { cancelEnsemble, launchEnsemble } from '../farm/queue.js';
 import type { EnsembleStore } from '../farm/store.js';
 import { ENSEMBLE_ID_PATTERN } from '../plan.js';
 import { parseSpecText, SpecError, SPEC_SCHEMA, validateSpec, type SpecLimits } from '../spec/index.js';
-import { buildSummary, renderSummary, SUMMARY_FORMATS, type SummaryFormat, type SummaryOptions } from '../summary/index.js';
+import { farmSummary } from '../farm/summary.js';
+import { CSV_TABLE_NAMES, defaultSummaryOptions, renderSummary, SUMMARY_FORMATS, type SummaryFormat, type SummaryOptions } from '../summary/index.js';
 
 export interface ApiOptions {
   store: EnsembleStore;
@@ -36,6 +37,7 @@ export interface ApiOptions {
   registry?: Registry;
   /** Largest request body in bytes (default 64 KiB). */
   bodyLimit?: number;
+  /** Summary options; default defaultSummaryOptions() (the full analysis, with the spec's [analysis] settings). */
   summary?: SummaryOptions;
   logger?: boolean;
 }
@@ -65,6 +67,11 @@ const STATUS_SCHEMA = {
     throughput: { type: 'number', description: 'particles per second over the last minute' },
     etaSeconds: { type: ['number', 'null'] },
     failures: { type: 'array', items: { type: 'object', properties: { runIndex: { type: 'integer' }, reason: { type: 'string' } } } },
+    adaptive: {
+      type: ['object', 'null'],
+      description: 'adaptive ensembles: outcome (running, target-reached, cap-reached), batches planned, cluster cap',
+      properties: { outcome: { type: 'string' }, batches: { type: 'integer' }, maxClusters: { type: 'integer' } },
+    },
   },
 } as const;
 
@@ -169,28 +176,30 @@ export function buildApi(o: ApiOptions): FastifyInstance {
     },
   );
 
-  app.get<{ Params: { id: string }; Querystring: { format?: string } }>(
+  app.get<{ Params: { id: string }; Querystring: { format?: string; table?: string } }>(
     '/ensembles/:id/summary',
     {
       schema: {
        
         params: ID_PARAMS,
-        querystring: { type: 'object', properties: { format: { type: 'string', enum: SUMMARY_FORMATS } } },
+        querystring: { type: 'object', properties: { format: { type: 'string', enum: SUMMARY_FORMATS }, table: { type: 'string', description: 'CSV table (format=csv)' } } },
       },
     },
     async (req, reply) => {
       const format = req.query.format ?? 'json';
       if (!SUMMARY_FORMATS.includes(format as SummaryFormat)) throw new ApiError(400, `format: ${JSON.stringify(format.slice(0, 40))} is not allowed; allowed: one of "json", "csv", "pb"`);
+      const table = req.query.table ?? 'series';
+      if (!CSV_TABLE_NAMES.includes(table)) throw new ApiError(400, `table: ${JSON.stringify(table.slice(0, 40))} is not allowed; allowed: one of ${CSV_TABLE_NAMES.map((t) => JSON.stringify(t)).join(', ')}`);
       checkId(req.params.id);
-      const rec = await o.store.get(req.params.id);
-      if (!rec) throw new ApiError(404, `id: "${req.params.id}" is not an ensemble of this farm`);
-      const summary = buildSummary({ ensembleId: rec.id, spec: rec.spec, createdAtMs: rec.createdAtMs, results: await o.store.results(rec.id) }, o.summary);
+      const got = await farmSummary(o.store, req.params.id, o.summary ?? defaultSummaryOptions());
+      if (!got) throw new ApiError(404, `id: "${req.params.id}" is not an ensemble of this farm`);
       const type = format === 'pb' ? 'application/x-protobuf' : format === 'csv' ? 'text/csv; charset=utf-8' : 'application/json; charset=utf-8';
-      const ext = format === 'pb' ? 'pb' : format;
+      const name = format === 'csv' ? `${got.record.id}-${table}.csv` : `${got.record.id}-summary.${format}`;
       return reply
         .header('content-type', type)
-        .header('content-disposition', `attachment; filename="${rec.id}-summary.${ext}"`)
-        .send(Buffer.from(renderSummary(summary, format as SummaryFormat)));
+        .header('content-disposition', `attachment; filename="${name}"`)
+        .header('x-summary-partial', got.summary.partial ? 'true' : 'false')
+        .send(Buffer.from(renderSummary(got.summary, format as SummaryFormat, table)));
     },
   );
 
