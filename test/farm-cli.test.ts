@@ -39,9 +39,21 @@ describe('tendril CLI (farm and embedded commands)', () => {
     const out = join(dir, 'demo');
     const r = await cli('run', 'examples/demo.toml', '--out', out, '--threads', '2', '--progress', 'none');
     expect(r.code).toBe(0);
-    expect(r.stdout).toMatch(/^coral-reef-demo: 8 clusters of 5000 particles in [\d.]+ s; R_g ~ N\^0\.\d+ over N = 100\.\.5000, D = 1\.\d+$/m);
+    expect(r.stdout).toMatch(/^coral-reef-demo: 8 clusters of 5000 particles in [\d.]+ s$/m);
+    expect(r.stdout).toMatch(/^D from R_g\(N\): 1\.\d{4} \[1\.\d{4}, 1\.\d{4}\] \(95% BCa\), fit over N = 100\.\.5000$/m);
     const summary = JSON.parse(readFileSync(join(out, 'summary.json'), 'utf8'));
     expect(summary.clusters_done).toBe(8);
+    expect(summary.partial).toBe(false);
+    // the analysis is in the summary, and the same numbers are in the estimator table and the report
+    const rg = summary.statistics.estimators.radiusOfGyration;
+    expect(rg.available).toBe(true);
+    expect(rg.interval.bca[0]).toBeLessThan(rg.D);
+    expect(rg.interval.bca[1]).toBeGreaterThan(rg.D);
+    const est = readFileSync(join(out, 'estimators.csv'), 'utf8').trim().split('\n').map((l) => l.split(','));
+    const row = est.find((c) => c[0] === 'radiusOfGyration')!;
+    expect(Number(row[est[0].indexOf('D')])).toBe(rg.D);
+    expect(Number(row[est[0].indexOf('bca_low')])).toBe(rg.interval.bca[0]);
+    expect(readFileSync(join(out, 'report.html'), 'utf8')).toContain('<svg');
     const spec = parseSpec(readFileSync(join(ROOT, 'examples/demo.toml'), 'utf8'), 'toml');
     const k = createKernel(growthTaskOf(runTaskFor('x', spec, 5)));
     k.growTo(spec.particles);

@@ -63,7 +63,7 @@ export function describeAnalysis(s: EnsembleSummaryData): string {
       lines.push(
         `D from ${e.quantity}: ${e.D.toFixed(4)}` +
           (iv ? ` [${iv[0].toFixed(4)}, ${iv[1].toFixed(4)}] (${Math.round(e.interval.level * 100)}% ${e.interval.bca ? 'BCa' : 'percentile'})` : ` (no interval: ${e.interval.status})`) +
-          (w ? `, fit over ${w.variable} = ${w.firstUsed}..${w.lastUsed}` : ''),
+          (w && w.firstUsed !== null && w.lastUsed !== null ? `, fit over ${w.variable} = ${short(w.firstUsed)}..${short(w.lastUsed)}` : ''),
       );
     }
   } else if (s.statisticsJson !== '') {
@@ -75,4 +75,8 @@ export function describeAnalysis(s: EnsembleSummaryData): string {
     lines.push(`adaptive: ${h.outcome}${h.reason ? ` (${h.reason})` : ''} after ${h.batches.length} batch(es)`);
   }
   return lines.map((l) => l + '\n').join('');
+}
+
+function short(v: number): string {
+  return Number.isInteger(v) ? String(v) : v.toPrecision(4);
 }
