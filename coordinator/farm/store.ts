@@ -251,7 +251,8 @@ export class EnsembleStore implements RunSink {
     const total = planned * rec.spec.particles;
     let state: EnsembleState = 'running';
     if (rec.cancelled && doneN < planned) state = 'cancelled';
-    else if (doneN === planned && (!rec.adaptive || rec.adaptive.outcome !== 'running')) state = 'done';
+    else if (doneN === planned && rec.adaptive?.outcome === 'running') state = 'running'; // batch complete, awaiting its judgement
+    else if (doneN === planned) state = 'done';
     else if (doneN + failedN === planned) state = 'failed';
     const remaining = total - particlesDone;
     return {
