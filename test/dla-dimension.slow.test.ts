@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { analyzeEnsemble } from '../coordinator/stats/analyze-ensemble.js';
-import { dlaTask, growResult } from './support/grow.js';
+import { dlaTask, growResult, yieldToRunner } from './support/grow.js';
 
 // Slow statistical check of the physics: the fractal dimension of an
 // ensemble of off-lattice 2D DLA clusters, from the radius of gyration
@@ -15,8 +15,12 @@ const PARTICLES = 20000;
 const PUBLISHED_D = 1.71;
 
 describe('fractal dimension of off-lattice 2D DLA', () => {
-  it(`D from R_g(N) of ${CLUSTERS} clusters of ${PARTICLES} agrees with the published value and Kesten's bound`, () => {
-    const runs = Array.from({ length: CLUSTERS }, (_, i) => growResult(dlaTask(PARTICLES, i, '1710')));
+  it(`D from R_g(N) of ${CLUSTERS} clusters of ${PARTICLES} agrees with the published value and Kesten's bound`, async () => {
+    const runs = [];
+    for (let i = 0; i < CLUSTERS; i++) {
+      runs.push(growResult(dlaTask(PARTICLES, i, '1710')));
+      await yieldToRunner();
+    }
     const analysis = analyzeEnsemble(runs, { resamples: 1000, corrections: false });
     const rg = analysis.estimators.radiusOfGyration;
     expect(rg.available).toBe(true);

@@ -21,3 +21,12 @@ export function growResult(task: GrowthTask): GrowthResult {
 export function finalRg(r: GrowthResult): number {
   return r.series.radiusOfGyration[r.series.radiusOfGyration.length - 1];
 }
+
+/**
+ * Let the test runner's messages through during a long computation: vitest's
+ * worker reports progress over an RPC channel that times out when a test
+ * keeps the event loop busy for a minute.
+ */
+export function yieldToRunner(): Promise<void> {
+  return new Promise((resolve) => setImmediate(resolve));
+}
