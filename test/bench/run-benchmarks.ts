@@ -8,6 +8,8 @@
  *   growth     test/bench/growth-bench.ts: one cluster per size, each in a fresh
  *              process (--sizes or env TENDRIL_BENCH_SIZES; default 10^4, 10^5, 10^6)
  *   aggregate  test/bench/aggregate-bench.ts: runAggregateBenchmark()
+ *   probe      test/bench/probe-bench.ts: runProbeBenchmark() — probe walkers per
+ *              second on a grown cluster (10^6 particles, 10^6 walkers, one core)
  *   farm       test/bench/farm-bench.ts: runFarmBenchmark() — the same ensemble
  *              (20 × 10^5 by default) on two worker processes over Redis
  *              (REDIS_URL) against the embedded mode on two threads
@@ -15,8 +17,9 @@
 import { runGrowthBenchmark, sizesFromArgs } from './growth-bench.js';
 import { runAggregateBenchmark } from './aggregate-bench.js';
 import { runFarmBenchmark } from './farm-bench.js';
+import { runProbeBenchmark } from './probe-bench.js';
 
-const PARTS = ['growth', 'aggregate', 'farm'] as const;
+const PARTS = ['growth', 'aggregate', 'probe', 'farm'] as const;
 type Part = (typeof PARTS)[number];
 
 export function partsFromArgs(argv: string[]): Part[] {
@@ -43,6 +46,11 @@ async function main(argv: string[]): Promise<number> {
     try {
       if (part === 'growth') await runGrowthBenchmark({ sizes: sizesFromArgs(argv) });
       else if (part === 'aggregate') runAggregate();
+      else if (part === 'probe') {
+        const r = runProbeBenchmark(1_000_000, 1_000_000);
+        process.stdout.write(`probe: ${r.walkers} walkers on ${r.particles} particles: ${Math.round(r.walkersPerSecond)} walkers/s\n`);
+        process.stdout.write(JSON.stringify(r) + '\n');
+      }
       else {
         const r = await runFarmBenchmark({ redisUrl: process.env.REDIS_URL });
         process.stdout.write(
