@@ -103,6 +103,13 @@ describe('HTTP API', () => {
       const out = await runTask(runTaskFor(id, spec, i));
       if (out.status !== 'done') throw new Error('not done');
       await store.saveResult(out.result, encodeRunResult(out.result));
+      if (i === 0) {
+        // while the ensemble runs, the summary is partial and analyses the runs stored so far
+        const part = await app.inject({ url: `/ensembles/${id}/summary` });
+        expect(part.headers['x-summary-partial']).toBe('true');
+        expect(part.json().partial).toBe(true);
+        expect(part.json().statistics.clusters).toBe(1);
+      }
     }
     const s = (await app.inject({ url: `/ensembles/${id}` })).json();
     expect(s.state).toBe('done');
@@ -111,6 +118,15 @@ describe('HTTP API', () => {
     expect(json.headers['content-type']).toMatch(/^application\/json/);
     expect(json.json().clusters_done).toBe(2);
     expect(json.json().radius_of_gyration_fit.exponent).toBeGreaterThan(0.4);
+    expect(json.json().partial).toBe(false);
+    expect(json.json().statistics.schema).toBe('tendril.ensemble-statistics/1');
+    expect(json.json().statistics.estimators.radiusOfGyration.D).toBeGreaterThan(1);
+    const est = await app.inject({ url: `/ensembles/${id}/summary?format=csv&table=estimators` });
+    expect(est.headers['content-disposition']).toBe(`attachment; filename="${id}-estimators.csv"`);
+    expect(est.body.split('\n')[1].split(',')[0]).toBe('radiusOfGyration');
+    const badTable = await app.inject({ url: `/ensembles/${id}/summary?format=csv&table=plots` });
+    expect(badTable.statusCode).toBe(400);
+    expect(badTable.json().error).toBe('table: "plots" is not allowed; allowed: one of "series", "runs", "mass-radius", "estimators", "local-slopes", "batches"');
     const csv = await app.inject({ url: `/ensembles/${id}/summary?format=csv` });
     expect(csv.body.split('\n')[0]).toBe('run_index,state_hash,size,radius_of_gyration,max_radius,center_offset');
     const pb = await app.inject({ url: `/ensembles/${id}/summary?format=pb` });
