@@ -59,6 +59,37 @@ describe('OccupancyIndex2d', () => {
     expect(exactChecks).toBeGreaterThan(100);
   });
 
+  it('keeps every centre through bucket growth and rewrites (dense packing, full cells)', () => {
+    // a square lattice of spacing 1 fills every side-2 cell with 4 centres,
+    // so buckets chain and are rewritten many times while cells are full
+    const index = new OccupancyIndex2d(16);
+    const side = 150;
+    for (let i = 0; i < side * side; i++) index.insert((i % side) - 75 + 0.5, Math.floor(i / side) - 75 + 0.5);
+    const rng = Random.forRun(12, 0);
+    for (let q = 0; q < 500; q++) {
+      const wx = (rng.nextDouble() - 0.5) * 160;
+      const wy = (rng.nextDouble() - 0.5) * 160;
+      // centres within 2 by brute force over the lattice
+      const expected: string[] = [];
+      for (let gx = Math.floor(wx - 3); gx <= wx + 3; gx++)
+        for (let gy = Math.floor(wy - 3); gy <= wy + 3; gy++) {
+          const px = gx + 0.5, py = gy + 0.5;
+          if (px < -74.5 || px > 74.5 || py < -74.5 || py > 74.5) continue;
+          if (Math.hypot(px - wx, py - wy) <= 2) expected.push(`${px},${py}`);
+        }
+      index.query(wx, wy);
+      if (expected.length === 0) continue;
+      expect(index.nearCount).toBeGreaterThanOrEqual(expected.length);
+      const listed = new Set<string>();
+      for (let j = 0; j < index.nearCount; j++) {
+        listed.add(`${index.nearX[j]},${index.nearY[j]}`);
+        const id = index.nearId[j];
+        expect(index.nearX[j]).toBe((id % side) - 75 + 0.5);
+      }
+      for (const e of expected) expect(listed.has(e)).toBe(true);
+    }
+  });
+
   it('gives the same answer whatever the order of queries (no hidden state in results)', () => {
     const rng = Random.forRun(5, 1);
     const { x, y } = randomCluster(800, 40, rng);

@@ -8,8 +8,8 @@
  * are computed exactly in floating point (and kept as int32: `| 0`, which is
  * exact for |x| < 2^31 and keeps V8 from boxing them).
  *  - Buckets (level 0, cells of side 2): each occupied cell points to a chain
- *    of buckets, each holding up to 4 centres' coordinates inline (one cache
- *    line), in arrival order. When the walker's level-0 cell is marked, the
+ *    of buckets, each holding up to 2 centres' coordinates inline (half a
+ *    cache line), in arrival order. When the walker's level-0 cell is marked, the
  *    3 × 3 block of cells around it is scanned exactly.
  *  - Marks at every level k = 0 … MAX_LEVEL, cells of side 2^(k+1): a cell is
  *    *marked* when a particle centre lies in the (2·DILATION + 1)² block of
@@ -42,8 +42,10 @@ const PARENT = 4;
  * queries to the exact scan; 2 was fastest when measured against 1 and 3.
  */
 const DILATION = 2;
-/** Centres per bucket. */
-const BUCKET = 4;
+/** Centres per bucket (a cell of side 2 holds two on average in a DLA cluster; fuller cells chain buckets). */
+const BUCKET = 2;
+/** Float64 words per bucket (x, y per centre). */
+const BUCKET_WORDS = 2 * BUCKET;
 /** At most this many centres are returned by a scan (a 6 × 6 block holds far fewer unit disks). */
 const MAX_NEAR = 256;
 /** SCALES[k] = 1 / (cell side at level k) = 2^-(k+1); SIDES[k] = 2^(k+1). */
@@ -67,7 +69,7 @@ export class OccupancyIndex2d {
 
   /** Level-0 cell → newest bucket of its chain (-1: none). */
   private readonly heads: TiledInt32Grid;
-  /** Bucket b holds coordinates at [8b, 8b + 2·fill[b]) as x, y pairs. */
+  /** Bucket b holds coordinates at [4b, 4b + 2·fill[b]) as x, y pairs. */
   private coords: Float64Array;
   /** ids[4b + j]: arrival index of the j-th centre of bucket b. */
   private ids: Int32Array;
@@ -122,11 +124,12 @@ export class OccupancyIndex2d {
     let b = this.heads.get(cx, cy);
     if (b < 0 || this.fill[b] === BUCKET) {
       const nb = this.newBucket();
-      this.chain[nb] = b;
+      // newBucket may have rewritten the buckets (renumbering them): read the head again
+      this.chain[nb] = this.heads.get(cx, cy);
       this.heads.set(cx, cy, nb);
       b = nb;
     }
-    const slot = 8 * b + 2 * this.fill[b];
+    const slot = BUCKET_WORDS * b + 2 * this.fill[b];
     this.coords[slot] = px;
     this.coords[slot + 1] = py;
     if (this.trackIds) this.ids[BUCKET * b + this.fill[b]] = id;
@@ -188,7 +191,7 @@ export class OccupancyIndex2d {
       pool[c] = nb;
       let prev = -1;
       while (b >= 0) {
-        coords.set(this.coords.subarray(8 * b, 8 * b + 8), 8 * nb);
+        coords.set(this.coords.subarray(BUCKET_WORDS * b, BUCKET_WORDS * b + BUCKET_WORDS), BUCKET_WORDS * nb);
         if (this.trackIds) ids.set(this.ids.subarray(BUCKET * b, BUCKET * b + BUCKET), BUCKET * nb);
         fill[nb] = this.fill[b];
         if (prev >= 0) chain[prev] = nb;
@@ -286,8 +289,8 @@ export class OccupancyIndex2d {
         if (tile < 0) continue;
         let b = pool[tile * TILE_CELLS + rowOffset + (ix & TILE_MASK)];
         while (b >= 0) {
-          const end = 8 * b + 2 * fill[b];
-          for (let o = 8 * b; o < end; o += 2) {
+          const end = BUCKET_WORDS * b + 2 * fill[b];
+          for (let o = BUCKET_WORDS * b; o < end; o += 2) {
             const px = coords[o];
             const py = coords[o + 1];
             const ddx = px - wx;
@@ -330,8 +333,8 @@ export class OccupancyIndex2d {
           if (tile < 0) continue;
           let b = pool[tile * TILE_CELLS + rowOffset + (ix & TILE_MASK)];
           while (b >= 0) {
-            const e = 8 * b + 2 * fill[b];
-            for (let o = 8 * b; o < e; o += 2) {
+            const e = BUCKET_WORDS * b + 2 * fill[b];
+            for (let o = BUCKET_WORDS * b; o < e; o += 2) {
               const ddx = coords[o] - wx;
               const ddy = coords[o + 1] - wy;
               const d2 = ddx * ddx + ddy * ddy;
