@@ -1,13 +1,17 @@
 /**
- * The ensemble summary: per-run tables and a plain least-squares fit of
- * log R_g against log N, written as JSON, CSV or protobuf
- * (EnsembleSummary of proto/tendril.proto). The same builder serves the farm
- * and the embedded mode.
+ * The ensemble summary: per-run tables, a plain least-squares fit of log R_g
+ * against log N, and the full ensemble analysis (coordinator/stats:
+ * estimators with bootstrap intervals, local slopes, corrections to scaling,
+ * consistency panel), written as JSON, CSV tables or protobuf
+ * (EnsembleSummary of proto/tendril.proto). The same builder serves the farm,
+ * the embedded mode, the CLI and the HTTP API; docs/summary-schema.md
+ * documents the result.
  *
- * The statistics library plugs in through `SummaryOptions.enrich`: it gets the
- * deduplicated results in run-index order and the spec, and returns any
- * JSON-serialisable object, which lands under "statistics" in the JSON and in
- * `statistics_json` of the protobuf summary.
+ * The analysis plugs in through `SummaryOptions.enrich`; defaultSummaryOptions()
+ * runs analyzeEnsemble with the spec's [analysis] settings (plus any CLI
+ * overrides). Its result lands under "statistics" in the JSON and in
+ * `statistics_json` of the protobuf summary. A summary of an unfinished
+ * ensemble is marked partial and analyses the runs stored so far.
  */
 import {
   encodeEnsembleSummary,
