@@ -10,13 +10,28 @@ import type { Command } from 'commander';
 import { createProgress, type ProgressMode } from '../progress/index.js';
 import { runEmbedded, EmbeddedAborted } from '../embedded/index.js';
 import { DirectoryArtifactStore } from '../farm/artifacts.js';
-import { newEnsembleId } from '../plan.js';
-import { specToDocument } from '../spec/index.js';
+import { newEnsembleId, runTaskFor } from '../plan.js';
+import type { SampleClusterInput } from '../report/index.js';
+import { specToDocument, type EnsembleSpec } from '../spec/index.js';
+import { growthTaskOf } from '../../proto/convert.js';
+import { createKernel } from '../../worker/models.js';
 import { defaultSummaryOptions } from '../summary/index.js';
 import { UsageError } from '../usage-error.js';
 import { addAnalysisOptions, analysisSettingsFromCli, type AnalysisCliOptions } from './analysis-options.js';
 import { describeAnalysis, writeSummaryFiles } from './summary-files.js';
 import { loadSpecFile, positiveInt } from './spec-file.js';
+
+/** Largest cluster regrown for the report's picture (results hold no positions; regrowing run 0 is cheap below this). */
+const PICTURE_MAX_PARTICLES = 200_000;
+
+/** Run 0 grown again in this thread (same task, same result) for the report's cluster picture. */
+function sampleCluster(ensembleId: string, spec: EnsembleSpec): SampleClusterInput | undefined {
+  if (spec.particles > PICTURE_MAX_PARTICLES) return undefined;
+  const k = createKernel(growthTaskOf(runTaskFor(ensembleId, spec, 0)));
+  k.growTo(spec.particles);
+  const p = k.positions();
+  return { points: { dimension: 2, count: p.count, x: p.x.slice(0, p.count), y: p.y.slice(0, p.count), diameter: 1 }, runIndex: 0 };
+}
 
 interface RunOptions extends AnalysisCliOptions {
   out: string;
@@ -80,7 +95,11 @@ export function register(program: Command): void {
         });
         progress.stop();
         const s = outcome.summary;
-        const written = await writeSummaryFiles(opts.out, s, outcome.results, spec, { report: opts.report !== false, ensembleId });
+        const written = await writeSummaryFiles(opts.out, s, outcome.results, spec, {
+          report: opts.report !== false,
+          ensembleId,
+          sampleCluster: opts.report !== false ? sampleCluster(ensembleId, spec) : undefined,
+        });
         process.stdout.write(
           `${spec.name}: ${s.clustersDone} clusters of ${spec.particles} particles in ${outcome.wallSeconds.toFixed(1)} s` +
             (outcome.reused > 0 ? ` (${outcome.reused} taken from an earlier run)` : '') +

@@ -7,7 +7,7 @@
 import { mkdir, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import type { EnsembleSummaryData, RunResultData } from '../../proto/convert.js';
-import { writeEnsembleReport } from '../report/index.js';
+import { writeEnsembleReport, type SampleClusterInput } from '../report/index.js';
 import type { EnsembleSpec } from '../spec/index.js';
 import { analysisOf, CSV_TABLES, summaryToJson, summaryToProtobuf, type AdaptiveHistory } from '../summary/index.js';
 
@@ -19,6 +19,8 @@ export interface SummaryFilesOptions {
   /** Write the CSV tables (default true). */
   tables?: boolean;
   ensembleId?: string;
+  /** A cluster to picture in the report. */
+  sampleCluster?: SampleClusterInput;
 }
 
 /** Writes the files and returns their names relative to `dir`. */
@@ -44,7 +46,7 @@ export async function writeSummaryFiles(
   }
   const analysis = analysisOf(s);
   if ((o.report ?? true) && analysis) {
-    const files = await writeEnsembleReport(dir, { analysis, runs, spec, ensembleId: o.ensembleId ?? s.ensembleId, title: s.partial ? `${s.name} (partial: ${s.clustersDone} of ${s.clustersPlanned} clusters)` : undefined });
+    const files = await writeEnsembleReport(dir, { analysis, runs, spec, sampleCluster: o.sampleCluster, ensembleId: o.ensembleId ?? s.ensembleId, title: s.partial ? `${s.name} (partial: ${s.clustersDone} of ${s.clustersPlanned} clusters)` : undefined });
     written.push('report.html', `plots/ (${files.svgs.length} SVG, ${files.pngs.length} PNG)`);
   }
   return written;
