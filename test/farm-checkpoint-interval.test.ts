@@ -1,0 +1,41 @@
+import { execFile } from 'node:child_process';
+import { existsSync, rmSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { promisify } from 'node:util';
+import { Redis } from 'ioredis';
+import { afterAll, describe, expect, it } from 'vitest';
+import { checkpointKey } from '../coordinator/farm/artifacts.js';
+import { CLI, REDIS_URL, ROOT, deleteKeys, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
+
+const run = promisify(execFile);
+
+// The time-based checkpoint trigger: with checkpoint_interval_seconds = 1, a
+// run that lasts several seconds leaves a checkpoint in the artifact folder
+// while it is still running (the particle-count trigger is off).
+describe('checkpoints every few seconds', () => {
+  const dir = tempDir('ckpt-interval');
+  const prefix = uniquePrefix('ckpt-interval');
+  const redis = new Redis(REDIS_URL);
+  let worker: WorkerProc | undefined;
+
+  afterAll(async () => {
+    await stopWorker(worker);
+    await deleteKeys(redis, prefix);
+    redis.disconnect();
+    rmSync(dir, { recursive: true, force: true });
+  });
+
+  it('a long run is checkpointed by time before it finishes', async () => {
+    const spec = join(dir, 'long.json');
+    writeFileSync(spec, JSON.stringify({ model: 'dla-offlattice-2d', particles: 3_000_000, clusters: 1, seed: 9, checkpoint_interval_seconds: 1 }));
+    const launched = await run(process.execPath, [CLI, 'launch', spec, '--redis', REDIS_URL, '--prefix', prefix], { cwd: ROOT });
+    const id = launched.stdout.trim();
+    const artifacts = join(dir, 'artifacts');
+    worker = await startWorker({ prefix, artifacts });
+    const file = join(artifacts, checkpointKey(id, 0));
+    await waitFor('a time-based checkpoint', async () => existsSync(file), 30_000);
+    // still running: the result is not stored yet
+    expect(await redis.hlen(`${prefix}:ensemble:${id}:results`)).toBe(0);
+    await run(process.execPath, [CLI, 'cancel', id, '--redis', REDIS_URL, '--prefix', prefix], { cwd: ROOT });
+  }, 90_000);
+});
