@@ -4,8 +4,8 @@
  * analysis; `tendril summary` writes the tables and the HTML report for a
  * farm ensemble, honours analysis overrides, and refuses bad ones in one line.
  */
-import { execFile } from 'node:child_process';
-import { existsSync, readFileSync, rmSync } from 'node:fs';
+import { execFile, spawn } from 'node:child_process';
+import { existsSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { promisify } from 'node:util';
 import { Redis } from 'ioredis';
@@ -16,7 +16,7 @@ import { EnsembleStore } from '../coordinator/farm/store.js';
 import { validateSpec } from '../coordinator/spec/index.js';
 import { analysisOf, CSV_TABLES, summaryToJsonObject } from '../coordinator/summary/index.js';
 import { encodeRunResult } from '../proto/convert.js';
-import { CLI, deleteKeys, REDIS_URL, tempDir, uniquePrefix } from './farm-helpers.js';
+import { CLI, deleteKeys, REDIS_URL, tempDir, uniquePrefix, waitFor } from './farm-helpers.js';
 
 const run = promisify(execFile);
 const dir = tempDir('summary-tables');
@@ -130,5 +130,25 @@ describe('summary tables', () => {
     expect(badWindow.stderr).toBe('tendril: --fit-window (analysis.fit_min_size): 5000 is not allowed; allowed: a number below analysis.fit_max_size (100)\n');
     const noOut = await cli('summary', id, '--prefix', prefix, '--format', 'html');
     expect(noOut.stderr).toBe('tendril: --out: missing; allowed: a folder name (--format html writes several files)\n');
+  }, 90_000);
+
+  it('an interrupted tendril run leaves a partial summary of the runs finished so far', async () => {
+    const specFile = join(dir, 'long.toml');
+    writeFileSync(specFile, 'name = "long"\nmodel = "dla-offlattice-2d"\nparticles = 4000\nclusters = 200\nseed = 8\n');
+    const out = join(dir, 'interrupted');
+    const child = spawn(process.execPath, [CLI, 'run', specFile, '--out', out, '--threads', '1', '--progress', 'none'], { stdio: ['ignore', 'pipe', 'pipe'] });
+    let err = '';
+    child.stderr.on('data', (d) => (err += d));
+    const exited = new Promise<number | null>((resolve) => child.once('exit', (code) => resolve(code)));
+    await waitFor('three stored results', async () => existsSync(join(out, 'state', 'tendril-run')) || (existsSync(join(out, 'state')) && JSON.stringify(readdirSync(join(out, 'state'), { recursive: true })).split('.result').length > 3), 60_000);
+    child.kill('SIGINT');
+    expect(await exited).toBe(130);
+    expect(err).toMatch(/interrupted with \d+ of 200 runs done; checkpoints kept; wrote a partial summary; run the same command again to continue/);
+    const j = JSON.parse(readFileSync(join(out, 'summary.json'), 'utf8'));
+    expect(j.partial).toBe(true);
+    expect(j.clusters_planned).toBe(200);
+    expect(j.clusters_done).toBeGreaterThanOrEqual(3);
+    expect(j.clusters_done).toBeLessThan(200);
+    expect(j.statistics.clusters).toBe(j.clusters_done);
   }, 90_000);
 });

@@ -15,7 +15,7 @@ import type { SampleClusterInput } from '../report/index.js';
 import { specToDocument, type EnsembleSpec } from '../spec/index.js';
 import { growthTaskOf } from '../../proto/convert.js';
 import { createKernel } from '../../worker/models.js';
-import { defaultSummaryOptions } from '../summary/index.js';
+import { buildSummary, defaultSummaryOptions } from '../summary/index.js';
 import { UsageError } from '../usage-error.js';
 import { addAnalysisOptions, analysisSettingsFromCli, type AnalysisCliOptions } from './analysis-options.js';
 import { describeAnalysis, writeSummaryFiles } from './summary-files.js';
@@ -109,7 +109,15 @@ export function register(program: Command): void {
       } catch (err) {
         progress.stop();
         if (err instanceof EmbeddedAborted) {
-          process.stderr.write(`tendril: ${err.message}; run the same command again to continue\n`);
+          // a partial summary of the runs finished so far (no report: it is rewritten when the run completes)
+          if (err.results.length > 0) {
+            const partial = buildSummary(
+              { ensembleId, spec, createdAtMs, results: err.results, clustersPlanned: err.clustersPlanned, finished: false, adaptive: err.adaptive },
+              defaultSummaryOptions(analysis),
+            );
+            await writeSummaryFiles(opts.out, partial, err.results, spec, { report: false, ensembleId });
+          }
+          process.stderr.write(`tendril: ${err.message}; ${err.results.length > 0 ? 'wrote a partial summary; ' : ''}run the same command again to continue\n`);
           process.exitCode = 130;
           return;
         }

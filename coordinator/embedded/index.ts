@@ -56,6 +56,10 @@ export interface EmbeddedOutcome {
 
 export class EmbeddedAborted extends Error {
   override name = 'EmbeddedAborted';
+  /** Results finished before the interruption (run-index order) and the clusters planned so far. */
+  results: RunResultData[] = [];
+  clustersPlanned = 0;
+  adaptive: AdaptiveHistory | null = null;
 }
 
 const resultKey = (id: string, i: number) => `${id}/run-${i}.result`;
@@ -94,6 +98,7 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
     }
   };
 
+  const adaptive = spec.target ? newAdaptiveHistory(spec) : null;
   const active = new Set<ThreadRun>();
   const onAbort = () => {
     for (const a of active) a.stop();
@@ -139,12 +144,17 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
           }
         }),
     );
-    if (opts.signal?.aborted) throw new EmbeddedAborted(`interrupted with ${results.size} of ${planned} runs done${store ? '; checkpoints kept' : ''}`);
+    if (opts.signal?.aborted) {
+      const e = new EmbeddedAborted(`interrupted with ${results.size} of ${planned} runs done${store ? '; checkpoints kept' : ''}`);
+      e.results = [...results.values()].sort((x, y) => x.runIndex - y.runIndex);
+      e.clustersPlanned = planned;
+      e.adaptive = adaptive;
+      throw e;
+    }
     if (failures.length > 0) throw new Error(`${failures.length} run(s) failed; first: ${failures[0]}`);
   };
 
   // batches: one for a fixed count; for a [target], batch after batch until the stopping rule says stop
-  const adaptive = spec.target ? newAdaptiveHistory(spec) : null;
   opts.signal?.addEventListener('abort', onAbort, { once: true });
   try {
     let from = 0;
