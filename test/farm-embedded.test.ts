@@ -151,3 +151,32 @@ describe('summary', () => {
     expect(csv.length).toBe(1 + r.result.series.sizes.length);
   });
 });
+
+describe('worker-thread pool', () => {
+  it('runs as many tasks at once as it has threads (no two runs share a thread)', async () => {
+    const { TaskThreadPool } = await import('../worker/task-thread.js');
+    const pool = new TaskThreadPool(2);
+    const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 20000, clusters: 4, seed: 3 });
+    const tasks = [0, 1, 2, 3].map((i) => runTaskFor('pool-test', spec, i));
+    const started: number[] = [];
+    let concurrent = 0;
+    let maxConcurrent = 0;
+    await Promise.all(
+      tasks.map(async (t) => {
+        const h = pool.run(t, {
+          onProgress: () => {
+            if (!started.includes(t.runIndex)) {
+              started.push(t.runIndex);
+              concurrent++;
+              maxConcurrent = Math.max(maxConcurrent, concurrent);
+            }
+          },
+        });
+        await h.outcome;
+        concurrent--;
+      }),
+    );
+    await pool.close();
+    expect(maxConcurrent).toBe(2);
+  }, 120_000);
+});

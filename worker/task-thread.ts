@@ -146,12 +146,15 @@ export class TaskThreadPool {
     return slot;
   }
 
+  /** A free thread, marked busy before it is handed out (so two runs never share one). */
   private async acquire(): Promise<Slot> {
     for (;;) {
       if (this.closed) throw new Error('thread pool is closed');
-      const free = this.slots.find((s) => !s.busy);
-      if (free) return free;
-      if (this.slots.length < this.size) return this.spawn();
+      const free = this.slots.find((s) => !s.busy) ?? (this.slots.length < this.size ? this.spawn() : undefined);
+      if (free) {
+        free.busy = true;
+        return free;
+      }
       await new Promise<void>((resolve) => this.waiting.push(resolve));
     }
   }
