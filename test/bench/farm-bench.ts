@@ -41,6 +41,9 @@ export interface FarmBenchResult {
   /** Median seconds from launching a one-run ensemble of 10 particles until its result is stored. */
   queueRoundTripSeconds: number;
   sameHashes: boolean;
+  /** Mean kernel time per run (timings.growSeconds) in each mode: tells CPU contention from scheduling gaps. */
+  embeddedGrowSecondsPerRun: number;
+  farmGrowSecondsPerRun: number;
 }
 
 const here = fileURLToPath(import.meta.url);
@@ -58,6 +61,10 @@ function startWorker(redisUrl: string, prefix: string, artifacts: string): Promi
     });
     child.once('exit', (code) => reject(new Error(`worker exited with ${code}`)));
   });
+}
+
+function meanGrow(runs: Array<{ timings: { growSeconds: number } }>): number {
+  return runs.reduce((a, r) => a + r.timings.growSeconds, 0) / Math.max(1, runs.length);
 }
 
 async function until(fn: () => Promise<boolean>, pollMs = 20): Promise<void> {
@@ -110,6 +117,8 @@ export async function runFarmBenchmark(opts: FarmBenchOptions = {}): Promise<Far
       throughputRatio: embeddedSeconds / farmSeconds,
       queueRoundTripSeconds: trips[Math.floor(trips.length / 2)],
       sameHashes,
+      embeddedGrowSecondsPerRun: meanGrow(local.results),
+      farmGrowSecondsPerRun: meanGrow(farm),
     };
   } finally {
     for (const w of workers) {

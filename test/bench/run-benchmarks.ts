@@ -52,11 +52,29 @@ async function main(argv: string[]): Promise<number> {
         process.stdout.write(JSON.stringify(r) + '\n');
       }
       else {
-        const r = await runFarmBenchmark({ redisUrl: process.env.REDIS_URL });
+        // the two modes are timed in turn three times; the ratio of a single
+        // pair moves by ±15% with the machine's other load, so the median is reported
+        const pairs = [];
+        for (let i = 0; i < 3; i++) {
+          const r = await runFarmBenchmark({ redisUrl: process.env.REDIS_URL });
+          process.stdout.write(JSON.stringify(r) + '\n');
+          pairs.push(r);
+        }
+        const ratios = pairs.map((r) => r.throughputRatio).sort((a, b) => a - b);
+        const trips = pairs.map((r) => r.queueRoundTripSeconds).sort((a, b) => a - b);
+        const summary = {
+          benchmark: 'farm-overhead-median',
+          clusters: pairs[0].clusters,
+          particles: pairs[0].particles,
+          throughputRatioMedian: ratios[1],
+          throughputRatios: pairs.map((r) => r.throughputRatio),
+          queueRoundTripSecondsMedian: trips[1],
+          sameHashes: pairs.every((r) => r.sameHashes),
+        };
         process.stdout.write(
-          `farm: ${r.clusters} clusters of ${r.particles}: farm/embedded throughput ${r.throughputRatio.toFixed(3)}, queue round trip ${(1000 * r.queueRoundTripSeconds).toFixed(1)} ms\n`,
+          `farm: ${summary.clusters} clusters of ${summary.particles}: farm/embedded throughput, median of 3: ${summary.throughputRatioMedian.toFixed(3)}; queue round trip ${(1000 * summary.queueRoundTripSecondsMedian).toFixed(1)} ms\n`,
         );
-        process.stdout.write(JSON.stringify(r) + '\n');
+        process.stdout.write(JSON.stringify(summary) + '\n');
       }
     } catch (err) {
       failed++;
