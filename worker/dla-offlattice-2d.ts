@@ -68,6 +68,7 @@ import { Random, STREAM_GROWTH } from './random.js';
 import { countWithin, massRadiusRadii, recordSizes } from './record-sizes.js';
 import { StateHasher } from './state-hash.js';
 import { direction, sampleDirection } from './uniform-direction.js';
+import { contact, firstContact } from './segment-contact-2d.js';
 import { canonicalJson } from './canonical-json.js';
 
 export const DEFAULT_DLA_OFFLATTICE_2D: OffLatticeDla2dParams = {
@@ -245,30 +246,11 @@ export class OffLatticeDla2d implements GrowthKernel {
       // Final approach: straight step of length minStep, stopping at the
       // first contact. Every centre within 1 + minStep is in index.nearX/Y
       // (d < minStep <= 1 means the exact scan answered).
-      const nearX = index.nearX;
-      const nearY = index.nearY;
-      const nearCount = index.nearCount;
-      let tHit = minStep;
-      let hit = -1;
-      for (let j = 0; j < nearCount; j++) {
-        const qx = wx - nearX[j];
-        const qy = wy - nearY[j];
-        const b = qx * cx + qy * cy;
-        if (b >= 0) continue; // moving away from p
-        const c = qx * qx + qy * qy - 1;
-        const disc = b * b - c;
-        if (disc < 0) continue;
-        let t = -b - Math.sqrt(disc);
-        if (t < 0) t = 0; // already in contact up to rounding
-        if (t < tHit) {
-          tHit = t;
-          hit = j;
-        }
-      }
+      const hit = firstContact(index.nearX, index.nearY, index.nearCount, wx, wy, cx, cy, minStep, null, null);
       shortSteps++;
       if (hit >= 0) {
-        wx += tHit * cx;
-        wy += tHit * cy;
+        wx += contact.t * cx;
+        wy += contact.t * cy;
         break;
       }
       wx += minStep * cx;

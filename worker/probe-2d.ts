@@ -61,6 +61,7 @@ import { OccupancyIndex2d } from './occupancy-index-2d.js';
 import { returnToCircle, returned } from './poisson-return-2d.js';
 import { Random, STREAM_PROBE, parseSeed } from './random.js';
 import { direction, sampleDirection } from './uniform-direction.js';
+import { contact, firstContact } from './segment-contact-2d.js';
 
 /** Default straight-step length near contact, in units of the largest contact radius. */
 export const DEFAULT_PROBE_MIN_STEP = 0.02;
@@ -434,28 +435,11 @@ export class ProbeWalk {
         continue;
       }
       // straight step of length minStep with exact first contact (d < minStep <= 1: the scan was exact)
-      let tHit = minStep;
-      let hit = -1;
-      for (let j = 0; j < nearCount; j++) {
-        const qx = wx - nearX[j];
-        const qy = wy - nearY[j];
-        const b = qx * cx + qy * cy;
-        if (b >= 0) continue;
-        const rr = radii === null ? 1 : radii[nearId[j]];
-        const c = qx * qx + qy * qy - rr * rr;
-        const disc = b * b - c;
-        if (disc < 0) continue;
-        let t = -b - Math.sqrt(disc);
-        if (t < 0) t = 0;
-        if (t < tHit) {
-          tHit = t;
-          hit = j;
-        }
-      }
+      const hit = firstContact(nearX, nearY, nearCount, wx, wy, cx, cy, minStep, radii, nearId);
       this.shortSteps++;
       if (hit >= 0) {
-        this.hitX = wx + tHit * cx;
-        this.hitY = wy + tHit * cy;
+        this.hitX = wx + contact.t * cx;
+        this.hitY = wy + contact.t * cy;
         return nearId[hit];
       }
       wx += minStep * cx;
