@@ -25,7 +25,7 @@
  * of particles, not with the area.
  */
 
-import { TILE_CELLS, TILE_MASK, TILE_SHIFT } from './tile-directory.js';
+import { TILE_CELLS } from './tile-directory.js';
 import { TiledByteGrid, TiledInt32Grid } from './tiled-grids.js';
 
 /** Mark levels 0..MAX_LEVEL; the coarsest cell has side 2^(MAX_LEVEL+1) = 2^25 diameters. */
@@ -273,21 +273,9 @@ export class OccupancyIndex2d {
     const trackIds = this.trackIds;
     let n = 0;
     let best = Infinity;
-    const dir = heads.dir;
-    const pool = heads.pool;
     for (let iy = cy - 1; iy <= cy + 1; iy++) {
-      // the row's cells lie in one or two tiles: look each tile up once
-      const ty = iy >> TILE_SHIFT;
-      const rowOffset = (iy & TILE_MASK) << TILE_SHIFT;
-      let tx = (cx - 1) >> TILE_SHIFT;
-      let tile = dir.find(tx, ty);
       for (let ix = cx - 1; ix <= cx + 1; ix++) {
-        if (ix >> TILE_SHIFT !== tx) {
-          tx = ix >> TILE_SHIFT;
-          tile = dir.find(tx, ty);
-        }
-        if (tile < 0) continue;
-        let b = pool[tile * TILE_CELLS + rowOffset + (ix & TILE_MASK)];
+        let b = heads.get(ix, iy);
         while (b >= 0) {
           const end = BUCKET_WORDS * b + 2 * fill[b];
           for (let o = BUCKET_WORDS * b; o < end; o += 2) {
@@ -321,17 +309,8 @@ export class OccupancyIndex2d {
       reach = 4 + edge;
       for (let iy = cy - 2; iy <= cy + 2; iy++) {
         const step = iy === cy - 2 || iy === cy + 2 ? 1 : 4;
-        const ty = iy >> TILE_SHIFT;
-        const rowOffset = (iy & TILE_MASK) << TILE_SHIFT;
-        let tx = (cx - 2) >> TILE_SHIFT;
-        let tile = dir.find(tx, ty);
         for (let ix = cx - 2; ix <= cx + 2; ix += step) {
-          if (ix >> TILE_SHIFT !== tx) {
-            tx = ix >> TILE_SHIFT;
-            tile = dir.find(tx, ty);
-          }
-          if (tile < 0) continue;
-          let b = pool[tile * TILE_CELLS + rowOffset + (ix & TILE_MASK)];
+          let b = heads.get(ix, iy);
           while (b >= 0) {
             const e = BUCKET_WORDS * b + 2 * fill[b];
             for (let o = BUCKET_WORDS * b; o < e; o += 2) {
