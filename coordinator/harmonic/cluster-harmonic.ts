@@ -1,0 +1,94 @@
+/**
+ * The harmonic measures of one probed cluster at one size, in the compact
+ * form an ensemble keeps (the farm stores one per (run, size) in Redis; the
+ * embedded mode keeps them beside the run results). Per-disk hit counts are
+ * reduced here to what the ensemble statistics need, so nothing per disk
+ * has to travel further.
+ *
+ * "At size n" means the first n particles of the finished cluster: particles
+ * are stored in arrival order and never move, so that prefix is exactly the
+ * cluster as it was when it had n particles. Probing at sizes during growth
+ * is therefore probing prefixes of the final snapshot (an exact identity,
+ * not an approximation).
+ *
+ * Z(3) at particle scale is Σ_i p_i³ over the particles (boxes of one
+ * particle), p_i the harmonic measure of particle i. From hit counts c_i of
+ * W walkers it is estimated without bias by the multinomial factorial
+ * moment Σ c_i(c_i − 1)(c_i − 2) / (W(W − 1)(W − 2)) (E[c(c−1)(c−2)] =
+ * W(W−1)(W−2) p³ for one cell of a multinomial; common practice, no
+ * source). The plain plug-in Σ (c_i/W)³ is biased upward by ≈ 3 Σ p_i²/W.
+ */
+import type { HarmonicMeasures } from './probe-analysis.js';
+
+export interface ClusterHarmonic {
+  runIndex: number;
+  /** Particles in the probed prefix. */
+  size: number;
+  walkers: number;
+  q: number[];
+  tau: number[];
+  tauFitError: number[];
+  /** D_q = τ(q)/(q − 1), null where undefined. */
+  dq: Array<number | null>;
+  alpha: number[];
+  f: number[];
+  /** Per q: whether the two halves of the probes agree (null: not judged). */
+  converged: Array<boolean | null>;
+  informationDimension: number;
+  maxConcentrationExponent: number;
+  /** Fit window of τ(q), as fractions of the set's radius. */
+  window: { relativeMin: number; relativeMax: number };
+  /** Radius of the set (smallest circle about the bounding-box centre enclosing the disks). */
+  radius: number;
+  /** Log capacity of the union of contact disks, its standard error; null when too few contact points. */
+  logCapacity: number | null;
+  logCapacityError: number | null;
+  /** Unbiased Σ p_i³ over the particles (see the file header); null when W < 3. */
+  z3: number | null;
+  /** Same with the plug-in estimator Σ (c_i/W)^q for q = 2, 3 (for comparison). */
+  z2Plugin: number;
+  z3Plugin: number;
+}
+
+/** Unbiased Σ p_i^3 from multinomial counts (see the file header). */
+export function growthMomentZ3(counts: ArrayLike<number>, walkers: number): number | null {
+  if (walkers < 3) return null;
+  let s = 0;
+  for (let i = 0; i < counts.length; i++) {
+    const c = counts[i];
+    if (c >= 3) s += c * (c - 1) * (c - 2);
+  }
+  return s / (walkers * (walkers - 1) * (walkers - 2));
+}
+
+export function clusterHarmonicOf(runIndex: number, size: number, m: HarmonicMeasures, counts: ArrayLike<number>): ClusterHarmonic {
+  const w = m.walkers;
+  let z2 = 0;
+  let z3 = 0;
+  for (let i = 0; i < counts.length; i++) {
+    const p = counts[i] / w;
+    z2 += p * p;
+    z3 += p * p * p;
+  }
+  return {
+    runIndex,
+    size,
+    walkers: w,
+    q: [...m.spectrum.q],
+    tau: [...m.spectrum.tau],
+    tauFitError: [...m.spectrum.tauFitError],
+    dq: [...m.spectrum.dq],
+    alpha: [...m.spectrum.alpha],
+    f: [...m.spectrum.f],
+    converged: [...m.converged],
+    informationDimension: m.spectrum.informationDimension,
+    maxConcentrationExponent: m.maxConcentration.exponent,
+    window: { relativeMin: m.window.relativeMin, relativeMax: m.window.relativeMax },
+    radius: m.radius,
+    logCapacity: m.capacity ? m.capacity.logCapacity : null,
+    logCapacityError: m.capacity ? m.capacity.logCapacityError : null,
+    z3: growthMomentZ3(counts, w),
+    z2Plugin: z2,
+    z3Plugin: z3,
+  };
+}

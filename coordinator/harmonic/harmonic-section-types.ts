@@ -1,0 +1,97 @@
+/**
+ * The shape of the "harmonic" section of an ensemble summary (under
+ * statistics.harmonic in the JSON; inside statistics_json of the protobuf):
+ * ensemble-level harmonic measures with cluster-bootstrap intervals, built
+ * by coordinator/harmonic/harmonic-section.ts from the ClusterHarmonic
+ * records of the probed clusters, and drawn by the report.
+ */
+import type { IntervalSummary } from '../stats/bca.js';
+import type { EnsembleValue } from './ensemble-intervals.js';
+
+/** Ensemble values of the clusters probed at one size. */
+export interface HarmonicAtSize {
+  size: number;
+  clusters: number;
+  /** Walkers per cluster (mean). */
+  walkers: number;
+  q: number[];
+  tau: EnsembleValue[];
+  /** D_q of the ensemble-mean τ: τ̄(q)/(q − 1); null at q = 1 (see informationDimension). */
+  dq: Array<number | null>;
+  /** Legendre transform of the ensemble-mean τ̄(q): α = dτ̄/dq, f = qα − τ̄. */
+  alpha: number[];
+  f: number[];
+  /** Per q: fraction of clusters whose two probe halves agree; null where no cluster was judged. */
+  convergedFraction: Array<number | null>;
+  /** Per q: true when convergedFraction ≥ 0.9 (our rule). */
+  converged: boolean[];
+  informationDimension: EnsembleValue;
+  maxConcentrationExponent: EnsembleValue;
+  /** Beurling: exponent ≥ 1/2 (interval upper end at least 0.5). */
+  beurlingRespected: boolean | null;
+  logCapacity: EnsembleValue;
+  /** Unbiased particle-scale Σ p³ (ensemble mean). */
+  z3: EnsembleValue;
+  /** τ(3) of this size's ensemble, when 3 is on the q grid. */
+  tau3: EnsembleValue | null;
+}
+
+/** cap(N) ~ N^{1/D_cap}: fit of mean log capacity against log N over the probed sizes. */
+export interface CapacityGrowth {
+  sizes: number[];
+  meanLogCapacity: number[];
+  /** Slope of log cap against log N, with its cluster-bootstrap interval. */
+  exponent: number | null;
+  exponentInterval: IntervalSummary | null;
+  /** D_cap = 1/exponent and its interval (the exponent's ends inverted). */
+  dimension: number | null;
+  dimensionInterval: [number, number] | null;
+  reason: string | null;
+}
+
+/**
+ * The capacity-increment relation: the mean growth of log capacity per added
+ * particle between successive probed sizes, against the particle-scale growth
+ * moment Z(3) at those sizes. Proportionality (ratio constant in N, log–log
+ * slope 1) is what makes τ(3) = D.
+ */
+export interface CapacityIncrement {
+  /** Per interval [N_k, N_{k+1}]: */
+  fromSize: number[];
+  toSize: number[];
+  /** Mean over clusters of (log cap(N_{k+1}) − log cap(N_k)) / (N_{k+1} − N_k). */
+  meanIncrement: number[];
+  /** Z(3) at the interval: geometric mean of the ensemble-mean Z(3) at its two ends. */
+  z3: number[];
+  /** meanIncrement / z3 per interval. */
+  ratio: number[];
+  /** Slope of log meanIncrement against log z3 over the intervals (1 if proportional), with interval. */
+  slope: number | null;
+  slopeInterval: IntervalSummary | null;
+  /** Whether the slope interval contains 1. */
+  proportional: boolean | null;
+  reason: string | null;
+}
+
+/** τ(3) beside the mass-based D of the same clusters (the electrostatic scaling law τ(3) = D). */
+export interface ElectrostaticCheck {
+  size: number;
+  tau3: EnsembleValue | null;
+  massDimension: { estimator: string; value: number | null; interval: [number, number] | null } | null;
+  /** Whether the intervals overlap. */
+  consistent: boolean | null;
+  source: string;
+}
+
+export interface HarmonicSection {
+  schema: 'tendril-harmonic/1';
+  convention: string;
+  /** Probe settings of the spec. */
+  probe: { walkers: number; jobs: number; q: number[]; sizes: number[]; contactSample: number; minStep: number };
+  bySize: HarmonicAtSize[];
+  capacityGrowth: CapacityGrowth;
+  capacityIncrement: CapacityIncrement;
+  electrostatic: ElectrostaticCheck;
+  /** Clusters probed at every size (the ones the growth relations use). */
+  clustersAtAllSizes: number;
+}
