@@ -113,6 +113,29 @@ export interface DiskSet {
   r: number | ArrayLike<number>;
 }
 
+/**
+ * Digest of a disk set: "n-" + FNV-1a (32 bit) over the float64 words of
+ * x, y and r of every disk in order. A probe task carries it, so a job never
+ * runs on a set other than the one it was planned for; cheap enough to
+ * compute without building the geometry.
+ */
+export function diskSetDigest(set: DiskSet): string {
+  let h = 0x811c9dc5;
+  const word = new Float64Array(1);
+  const words = new Uint32Array(word.buffer);
+  const mixIn = (v: number): void => {
+    word[0] = v;
+    h = Math.imul(h ^ words[0], 0x01000193);
+    h = Math.imul(h ^ words[1], 0x01000193);
+  };
+  for (let i = 0; i < set.count; i++) {
+    mixIn(set.x[i]);
+    mixIn(set.y[i]);
+    mixIn(typeof set.r === 'number' ? set.r : set.r[i]);
+  }
+  return `${set.count}-${(h >>> 0).toString(16).padStart(8, '0')}`;
+}
+
 /** The prepared set: scaled coordinates and the occupancy index, reusable by many jobs. */
 export class ProbeGeometry {
   readonly count: number;
@@ -160,19 +183,8 @@ export class ProbeGeometry {
     const uy = new Float64Array(n);
     this.radii = uniform ? null : new Float64Array(n);
     let ext = 0;
-    let h = 0x811c9dc5;
-    const word = new Float64Array(1);
-    const words = new Uint32Array(word.buffer);
-    const mixIn = (v: number): void => {
-      word[0] = v;
-      h = Math.imul(h ^ words[0], 0x01000193);
-      h = Math.imul(h ^ words[1], 0x01000193);
-    };
     for (let i = 0; i < n; i++) {
       const r = typeof set.r === 'number' ? set.r : set.r[i];
-      mixIn(set.x[i]);
-      mixIn(set.y[i]);
-      mixIn(r);
       ux[i] = (set.x[i] - this.centreX) * inv;
       uy[i] = (set.y[i] - this.centreY) * inv;
       const rr = uniform ? 1 : r * inv;
@@ -181,7 +193,7 @@ export class ProbeGeometry {
       if (e > ext) ext = e;
     }
     this.extent = ext;
-    this.digest = `${n}-${(h >>> 0).toString(16).padStart(8, '0')}`;
+    this.digest = diskSetDigest(set);
     checkDensity(ux, uy, n);
     this.index = new OccupancyIndex2d(n);
     for (let i = 0; i < n; i++) this.index.insert(ux[i], uy[i]);
@@ -448,9 +460,9 @@ export class ProbeWalk {
   }
 }
 
-/** The tasks of a probe of `walkers` probes split into `jobs` jobs (job sizes differ by at most one). */
+/** The tasks of a probe of `walkers` probes split into `jobs` jobs (job sizes differ by at most one); `geometry` may be given by its digest alone. */
 export function planProbeJobs(
-  geometry: ProbeGeometry, seed: string, walkers: number, jobs: number, contactSampleTotal: number,
+  geometry: ProbeGeometry | string, seed: string, walkers: number, jobs: number, contactSampleTotal: number,
   minStep = DEFAULT_PROBE_MIN_STEP, launchMargin = DEFAULT_PROBE_LAUNCH_MARGIN,
 ): ProbeTask[] {
   if (!Number.isSafeInteger(jobs) || jobs < 1 || jobs > walkers) throw new RangeError(`jobs must be an integer in [1, ${walkers}], got ${jobs}`);
@@ -468,7 +480,7 @@ export function planProbeJobs(
       contactSample: Math.min(w, sBase + (j < sExtra ? 1 : 0)),
       minStep,
       launchMargin,
-      geometryDigest: geometry.digest,
+      geometryDigest: typeof geometry === 'string' ? geometry : geometry.digest,
     });
   }
   return tasks;

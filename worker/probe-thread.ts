@@ -1,11 +1,36 @@
 /**
- * Worker-thread body for embedded probing: receives { set, tasks }, builds
- * the geometry once, runs its probe jobs in order and posts the results.
+ * Worker-thread body for probing: a long-lived thread that keeps the last
+ * prepared geometry (ProbeGeometry) and runs probe jobs on it, so that the
+ * many jobs of one large set pay for the geometry once per thread.
+ *
+ * Messages:
+ *   main -> thread  { type: 'probe', id, key, set?, task }   set: sent when the
+ *                   thread does not hold `key` yet (the pool tracks this)
+ *   thread -> main  { type: 'done', id, result } | { type: 'failed', id, message }
  */
-import { parentPort, workerData } from 'node:worker_threads';
-import { ProbeGeometry, runProbeJob, type DiskSet, type ProbeTask } from './probe-2d.js';
+import { parentPort } from 'node:worker_threads';
+import { ProbeGeometry, runProbeJob, type DiskSet, type ProbeResult, type ProbeTask } from './probe-2d.js';
 
-const data = workerData as { set: DiskSet; tasks: ProbeTask[] };
-const geometry = new ProbeGeometry(data.set);
-const results = data.tasks.map((t) => runProbeJob(geometry, t));
-parentPort?.postMessage(results);
+export type ToProbeThread = { type: 'probe'; id: number; key: string; set?: DiskSet; task: ProbeTask };
+export type FromProbeThread = { type: 'done'; id: number; result: ProbeResult } | { type: 'failed'; id: number; message: string };
+
+if (parentPort) {
+  const port = parentPort;
+  let heldKey: string | null = null;
+  let held: ProbeGeometry | null = null;
+  port.on('message', (m: ToProbeThread) => {
+    try {
+      if (m.set) {
+        held = null;
+        heldKey = null;
+        held = new ProbeGeometry(m.set);
+        heldKey = m.key;
+      }
+      if (held === null || heldKey !== m.key) throw new Error(`probe thread holds no geometry for "${m.key}"`);
+      const result = runProbeJob(held, m.task);
+      port.postMessage({ type: 'done', id: m.id, result } satisfies FromProbeThread);
+    } catch (err) {
+      port.postMessage({ type: 'failed', id: m.id, message: ((err as Error)?.message ?? String(err)).split('\n')[0] } satisfies FromProbeThread);
+    }
+  });
+}

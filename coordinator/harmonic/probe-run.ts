@@ -1,14 +1,15 @@
 /**
  * Embedded probing: plan the probe jobs of a set, run them in this process
- * or on T worker threads (jobs dealt round-robin; results put back in job
- * order, so the counts do not depend on T), add the counts, and analyse.
+ * or on a pool of T probe threads (worker/probe-thread-pool.ts; results put
+ * back in job order, so the counts do not depend on T), add the counts, and
+ * analyse.
  * Halves for the convergence flags: even jobs and odd jobs.
  */
-import { Worker } from 'node:worker_threads';
 import {
-  ProbeGeometry, addProbeCounts, planProbeJobs, runProbeJob,
+  ProbeGeometry, addProbeCounts, diskSetDigest, planProbeJobs, runProbeJob,
   DEFAULT_PROBE_LAUNCH_MARGIN, DEFAULT_PROBE_MIN_STEP, type DiskSet, type ProbeResult, type ProbeTask,
 } from '../../worker/probe-2d.js';
+import { ProbeThreadPool } from '../../worker/probe-thread-pool.js';
 import { analyzeProbe, type HarmonicMeasures } from './probe-analysis.js';
 
 export interface ProbeRunOptions {
@@ -32,29 +33,23 @@ export interface ProbeRun {
   seconds: number;
 }
 
-function runOnThread(set: DiskSet, tasks: ProbeTask[]): Promise<ProbeResult[]> {
-  return new Promise((resolve, reject) => {
-    const w = new Worker(new URL('../../worker/probe-thread.js', import.meta.url), { workerData: { set, tasks } });
-    w.once('message', (m: ProbeResult[]) => resolve(m));
-    w.once('error', reject);
-    w.once('exit', (code) => { if (code !== 0) reject(new Error(`probe thread exited with code ${code}`)); });
-  });
-}
-
 export async function runProbes(set: DiskSet, o: ProbeRunOptions): Promise<ProbeRun> {
-  const geometry = new ProbeGeometry(set);
-  const tasks = planProbeJobs(geometry, o.seed, o.walkers, o.jobs, o.contactSample,
+  const geometry = o.threads <= 1 ? new ProbeGeometry(set) : null;
+  const digest = geometry ? geometry.digest : diskSetDigest(set);
+  const tasks = planProbeJobs(digest, o.seed, o.walkers, o.jobs, o.contactSample,
     o.minStep ?? DEFAULT_PROBE_MIN_STEP, o.launchMargin ?? DEFAULT_PROBE_LAUNCH_MARGIN);
   const t0 = performance.now();
   let results: ProbeResult[];
   if (o.threads <= 1) {
-    results = tasks.map((t) => runProbeJob(geometry, t));
+    results = tasks.map((t) => runProbeJob(geometry!, t));
   } else {
-    const plain: DiskSet = { count: set.count, x: Array.from(set.x), y: Array.from(set.y), r: typeof set.r === 'number' ? set.r : Array.from(set.r) };
-    const groups: ProbeTask[][] = Array.from({ length: Math.min(o.threads, tasks.length) }, () => []);
-    tasks.forEach((t, j) => groups[j % groups.length].push(t));
-    results = (await Promise.all(groups.map((g) => runOnThread(plain, g)))).flat();
-    results.sort((a, b) => a.jobIndex - b.jobIndex);
+    const plain: DiskSet = { count: set.count, x: Float64Array.from(set.x), y: Float64Array.from(set.y), r: typeof set.r === 'number' ? set.r : Float64Array.from(set.r) };
+    const pool = new ProbeThreadPool(Math.min(o.threads, tasks.length));
+    try {
+      results = await Promise.all(tasks.map((t) => pool.run(digest, () => plain, t)));
+    } finally {
+      await pool.close();
+    }
   }
   const seconds = (performance.now() - t0) / 1000;
   return { tasks, results, ...analyseResults(set, results, o.q), seconds };

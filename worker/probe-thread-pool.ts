@@ -1,0 +1,129 @@
+/**
+ * A pool of probe threads (worker/probe-thread.ts). Each thread keeps the
+ * geometry of the last set it probed; a job goes preferably to a free thread
+ * that already holds its set (by key), otherwise the set is loaded (through
+ * the caller's loader, once per thread that needs it) and sent along.
+ * Results do not depend on which thread ran a job: a job is a function of
+ * (set, task) only.
+ */
+import { Worker } from 'node:worker_threads';
+import { existsSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import type { DiskSet, ProbeResult, ProbeTask } from './probe-2d.js';
+import type { FromProbeThread, ToProbeThread } from './probe-thread.js';
+
+interface Slot {
+  worker: Worker;
+  busy: boolean;
+  key: string | null;
+  lastUsed: number;
+}
+
+export class ProbeJobFailed extends Error {
+  override name = 'ProbeJobFailed';
+}
+
+/** The compiled thread entry; under vitest (TypeScript sources) it points into dist/. */
+function threadEntry(): URL {
+  const here = fileURLToPath(import.meta.url);
+  if (here.endsWith('.ts')) {
+    const compiled = here.replace(/([\\/])worker([\\/])probe-thread-pool\.ts$/, '$1dist$1worker$2probe-thread.js');
+    if (!existsSync(compiled)) throw new Error(`compiled thread entry ${compiled} is missing: run npm run build`);
+    return new URL(`file://${compiled}`);
+  }
+  return new URL('./probe-thread.js', import.meta.url);
+}
+
+export class ProbeThreadPool {
+  private readonly slots: Slot[] = [];
+  private readonly waiting: Array<() => void> = [];
+  private nextId = 1;
+  private tick = 0;
+  private closed = false;
+
+  constructor(readonly size: number) {
+    if (!Number.isInteger(size) || size < 1) throw new RangeError(`probe pool size ${size} must be an integer >= 1`);
+  }
+
+  private async acquire(key: string): Promise<Slot> {
+    for (;;) {
+      if (this.closed) throw new Error('probe pool is closed');
+      const free = this.slots.filter((s) => !s.busy);
+      let slot = free.find((s) => s.key === key);
+      if (!slot && this.slots.length < this.size) {
+        slot = { worker: new Worker(threadEntry()), busy: false, key: null, lastUsed: 0 };
+        this.slots.push(slot);
+      }
+      if (!slot && free.length > 0) slot = free.reduce((a, b) => (a.lastUsed <= b.lastUsed ? a : b));
+      if (slot) {
+        slot.busy = true;
+        slot.lastUsed = ++this.tick;
+        return slot;
+      }
+      await new Promise<void>((resolve) => this.waiting.push(resolve));
+    }
+  }
+
+  private release(slot: Slot, broken: boolean): void {
+    slot.busy = false;
+    if (broken) {
+      this.slots.splice(this.slots.indexOf(slot), 1);
+      void slot.worker.terminate();
+    }
+    this.waiting.shift()?.();
+  }
+
+  /**
+   * Run one probe job on the set named `key`; `load` is called only when the
+   * chosen thread does not hold that set yet. Rejects with ProbeJobFailed
+   * (one-line reason) when the job is refused or the thread dies.
+   */
+  async run(key: string, load: () => DiskSet | Promise<DiskSet>, task: ProbeTask): Promise<ProbeResult> {
+    const slot = await this.acquire(key);
+    let set: DiskSet | undefined;
+    try {
+      if (slot.key !== key) set = await load();
+    } catch (err) {
+      this.release(slot, false);
+      throw err;
+    }
+    const id = this.nextId++;
+    return await new Promise<ProbeResult>((resolve, reject) => {
+      const w = slot.worker;
+      const finish = (broken: boolean) => {
+        w.off('message', onMessage);
+        w.off('error', onError);
+        w.off('exit', onExit);
+        this.release(slot, broken);
+      };
+      const onMessage = (m: FromProbeThread) => {
+        if (m.id !== id) return;
+        if (m.type === 'failed' && set) slot.key = null;
+        finish(false);
+        if (m.type === 'done') resolve(m.result);
+        else reject(new ProbeJobFailed(m.message));
+      };
+      const onError = (err: Error) => {
+        slot.key = null;
+        finish(true);
+        reject(new ProbeJobFailed(`probe thread crashed: ${err.message.split('\n')[0]}`));
+      };
+      const onExit = (code: number) => {
+        slot.key = null;
+        finish(true);
+        reject(new ProbeJobFailed(`probe thread exited with code ${code}`));
+      };
+      w.on('message', onMessage);
+      w.once('error', onError);
+      w.once('exit', onExit);
+      if (set) slot.key = key;
+      w.postMessage({ type: 'probe', id, key, set, task } satisfies ToProbeThread);
+    });
+  }
+
+  async close(): Promise<void> {
+    this.closed = true;
+    for (const resolve of this.waiting.splice(0)) resolve();
+    await Promise.all(this.slots.splice(0).map((s) => s.worker.terminate()));
+  }
+}
