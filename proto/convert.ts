@@ -42,6 +42,8 @@ export interface RunTaskData extends PlainGrowthTask {
   /** Also checkpoint every this many particles; 0 = off. */
   checkpointEveryParticles: number;
   engineVersion: string;
+  /** Hand back the final positions with the result (for probing); absent = false. */
+  keepPositions?: boolean;
 }
 
 export interface PlainSeries {
@@ -198,6 +200,7 @@ export function runTaskToProto(t: RunTaskData): tendril.RunTask {
     checkpointIntervalSeconds: t.checkpointIntervalSeconds,
     checkpointEveryParticles: t.checkpointEveryParticles,
     engineVersion: t.engineVersion,
+    keepPositions: t.keepPositions === true,
   });
 }
 
@@ -214,6 +217,7 @@ export function runTaskFromProto(m: tendril.IRunTask): RunTaskData {
     checkpointEveryParticles: m.checkpointEveryParticles ?? 0,
     engineVersion: m.engineVersion ?? '',
   };
+  if (m.keepPositions) t.keepPositions = true;
   if (t.ensembleId === '') fail('RunTask.ensemble_id is empty');
   if (!/^[0-9]{1,20}$/.test(t.ensembleSeed)) fail(`RunTask.ensemble_seed "${t.ensembleSeed}" is not a decimal unsigned 64-bit integer`);
   if (t.particles < 1) fail(`RunTask.particles is ${t.particles}, must be >= 1`);

@@ -43,7 +43,7 @@ export interface RunOptions {
 }
 
 export type RunOutcome =
-  | { status: 'done'; result: RunResultData }
+  | { status: 'done'; result: RunResultData; /** The final state, when the task asks to keep positions. */ final?: CheckpointData }
   | { status: 'stopped'; checkpoint: CheckpointData };
 
 export class TaskRejected extends Error {
@@ -141,5 +141,5 @@ export async function runTask(run: RunTaskData, opts: RunOptions = {}): Promise<
       finishedBy: opts.workerId ?? `${hostname()}:${process.pid}`,
     },
   };
-  return { status: 'done', result };
+  return run.keepPositions ? { status: 'done', result, final: takeCheckpoint() } : { status: 'done', result };
 }

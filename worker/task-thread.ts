@@ -9,7 +9,7 @@
  *                   { type: 'stop', id }                      checkpoint and stop
  *   thread -> main  { type: 'progress', id, count, particles, jumps }
  *                   { type: 'checkpoint', id, bytes, count }  store it (no reply needed)
- *                   { type: 'done', id, result }
+ *                   { type: 'done', id, result, final? }      final: the end state when the task keeps positions
  *                   { type: 'stopped', id, checkpoint }
  *                   { type: 'failed', id, message, rejected }
  *
@@ -36,7 +36,7 @@ type ToThread = { type: 'run'; id: number; task: Uint8Array; checkpoint?: Uint8A
 type FromThread =
   | { type: 'progress'; id: number; count: number; particles: number; jumps: number }
   | { type: 'checkpoint'; id: number; bytes: Uint8Array; count: number }
-  | { type: 'done'; id: number; result: Uint8Array }
+  | { type: 'done'; id: number; result: Uint8Array; final?: Uint8Array }
   | { type: 'stopped'; id: number; checkpoint: Uint8Array }
   | { type: 'failed'; id: number; message: string; rejected: boolean };
 
@@ -72,7 +72,8 @@ function threadMain(): void {
         });
         if (outcome.status === 'done') {
           const result = encodeRunResult(outcome.result).slice();
-          port.postMessage({ type: 'done', id: m.id, result } satisfies FromThread, [result.buffer]);
+          const final = outcome.final ? encodeCheckpoint(outcome.final).slice() : undefined;
+          port.postMessage({ type: 'done', id: m.id, result, final } satisfies FromThread, final ? [result.buffer, final.buffer] : [result.buffer]);
         } else {
           const cp = encodeCheckpoint(outcome.checkpoint).slice();
           port.postMessage({ type: 'stopped', id: m.id, checkpoint: cp } satisfies FromThread, [cp.buffer]);
@@ -102,7 +103,7 @@ export interface ThreadRunHandlers {
 }
 
 export type ThreadOutcome =
-  | { status: 'done'; result: RunResultData; resultBytes: Uint8Array }
+  | { status: 'done'; result: RunResultData; resultBytes: Uint8Array; /** Final state (Checkpoint protobuf) when the task keeps positions. */ final?: Uint8Array }
   | { status: 'stopped'; checkpoint: Uint8Array }
   | { status: 'failed'; message: string; rejected: boolean };
 
@@ -197,7 +198,7 @@ export class TaskThreadPool {
               break;
             case 'done':
               try {
-                finish({ status: 'done', result: decodeRunResult(m.result), resultBytes: m.result }, false);
+                finish({ status: 'done', result: decodeRunResult(m.result), resultBytes: m.result, ...(m.final ? { final: m.final } : {}) }, false);
               } catch (err) {
                 finish({ status: 'failed', message: (err as Error).message, rejected: false }, false);
               }

@@ -304,6 +304,9 @@ export namespace tendril {
         /** RunTask engineVersion. */
         engineVersion: string;
 
+        /** RunTask keepPositions. */
+        keepPositions: boolean;
+
         /**
          * Creates a new RunTask instance using the specified properties.
          * @param [properties] Properties to set
@@ -418,6 +421,9 @@ export namespace tendril {
             /** RunTask engineVersion */
             engineVersion?: (string|null);
 
+            /** RunTask keepPositions */
+            keepPositions?: (boolean|null);
+
             /** Unknown fields preserved while decoding when enabled */
             $unknowns?: Uint8Array[];
         }
@@ -434,6 +440,7 @@ export namespace tendril {
           checkpointIntervalSeconds?: number|null;
           checkpointEveryParticles?: number|null;
           engineVersion?: string|null;
+          keepPositions?: boolean|null;
           $unknowns?: Uint8Array[];
         };
     }

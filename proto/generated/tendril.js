@@ -3,7 +3,7 @@ import $protobuf from "protobufjs/minimal.js";
 
 // Common aliases
 const $Reader = $protobuf.Reader, $Writer = $protobuf.Writer, $util = $protobuf.util;
-const $Object = $util.global.Object, $undefined = $util.global.undefined, $Error = $util.global.Error, $RangeError = $util.global.RangeError, $TypeError = $util.global.TypeError, $Number = $util.global.Number, $isFinite = $util.global.isFinite, $String = $util.global.String, $Array = $util.global.Array, $Boolean = $util.global.Boolean;
+const $Object = $util.global.Object, $undefined = $util.global.undefined, $Error = $util.global.Error, $RangeError = $util.global.RangeError, $TypeError = $util.global.TypeError, $Number = $util.global.Number, $isFinite = $util.global.isFinite, $String = $util.global.String, $Boolean = $util.global.Boolean, $Array = $util.global.Array;
 
 // Exported root namespace
 const $root = $protobuf.roots["default"] || ($protobuf.roots["default"] = {});
@@ -639,6 +639,7 @@ export const tendril = $root.tendril = (() => {
          * @property {number|null} [checkpointIntervalSeconds] RunTask checkpointIntervalSeconds
          * @property {number|null} [checkpointEveryParticles] RunTask checkpointEveryParticles
          * @property {string|null} [engineVersion] RunTask engineVersion
+         * @property {boolean|null} [keepPositions] RunTask keepPositions
          * @property {Array.<Uint8Array>} [$unknowns] Unknown fields preserved while decoding when enabled
          */
 
@@ -663,6 +664,7 @@ export const tendril = $root.tendril = (() => {
          *   checkpointIntervalSeconds?: number|null;
          *   checkpointEveryParticles?: number|null;
          *   engineVersion?: string|null;
+         *   keepPositions?: boolean|null;
          *   $unknowns?: Array.<Uint8Array>;
          * }} tendril.RunTask.$Shape
          */
@@ -763,6 +765,14 @@ export const tendril = $root.tendril = (() => {
         RunTask.prototype.engineVersion = "";
 
         /**
+         * RunTask keepPositions.
+         * @member {boolean} keepPositions
+         * @memberof tendril.RunTask
+         * @instance
+         */
+        RunTask.prototype.keepPositions = false;
+
+        /**
          * Creates a new RunTask instance using the specified properties.
          * @function create
          * @memberof tendril.RunTask
@@ -814,6 +824,8 @@ export const tendril = $root.tendril = (() => {
                 writer.uint32(/* id 9, wireType 0 =*/72).uint32(message.checkpointEveryParticles);
             if (message.engineVersion != null && $Object.hasOwnProperty.call(message, "engineVersion") && message.engineVersion !== "")
                 writer.uint32(/* id 10, wireType 2 =*/82).string(message.engineVersion);
+            if (message.keepPositions != null && $Object.hasOwnProperty.call(message, "keepPositions") && message.keepPositions !== false)
+                writer.uint32(/* id 11, wireType 0 =*/88).bool(message.keepPositions);
             if (message.$unknowns != null && $Object.hasOwnProperty.call(message, "$unknowns"))
                 for (let i = 0; i < message.$unknowns.length; ++i)
                     writer.raw(message.$unknowns[i]);
@@ -958,6 +970,15 @@ export const tendril = $root.tendril = (() => {
                             delete message.engineVersion;
                         continue;
                     }
+                case 11: {
+                        if (wireType !== 0)
+                            break;
+                        if (value = reader.bool())
+                            message.keepPositions = value;
+                        else
+                            delete message.keepPositions;
+                        continue;
+                    }
                 }
                 reader.skipType(wireType, _depth, tag);
                 if (!reader.discardUnknown) {
@@ -1038,6 +1059,9 @@ export const tendril = $root.tendril = (() => {
             if (message.engineVersion != null && $Object.hasOwnProperty.call(message, "engineVersion"))
                 if (!$util.isString(message.engineVersion))
                     return "engineVersion: string expected";
+            if (message.keepPositions != null && $Object.hasOwnProperty.call(message, "keepPositions"))
+                if (typeof message.keepPositions !== "boolean")
+                    return "keepPositions: boolean expected";
             return null;
         };
 
@@ -1091,6 +1115,9 @@ export const tendril = $root.tendril = (() => {
             if (object.engineVersion != null)
                 if (typeof object.engineVersion !== "string" || object.engineVersion.length)
                     message.engineVersion = $String(object.engineVersion);
+            if (object.keepPositions != null)
+                if (object.keepPositions)
+                    message.keepPositions = $Boolean(object.keepPositions);
             return message;
         };
 
@@ -1122,6 +1149,7 @@ export const tendril = $root.tendril = (() => {
                 object.checkpointIntervalSeconds = 0;
                 object.checkpointEveryParticles = 0;
                 object.engineVersion = "";
+                object.keepPositions = false;
             }
             if (message.contractVersion != null && $Object.hasOwnProperty.call(message, "contractVersion"))
                 object.contractVersion = message.contractVersion;
@@ -1143,6 +1171,8 @@ export const tendril = $root.tendril = (() => {
                 object.checkpointEveryParticles = message.checkpointEveryParticles;
             if (message.engineVersion != null && $Object.hasOwnProperty.call(message, "engineVersion"))
                 object.engineVersion = message.engineVersion;
+            if (message.keepPositions != null && $Object.hasOwnProperty.call(message, "keepPositions"))
+                object.keepPositions = message.keepPositions;
             return object;
         };
 
