@@ -80,7 +80,7 @@ describe('ensemble spec', () => {
     ['missing seed', { model: 'dla-offlattice-2d', particles: 10, clusters: 1 }, 'seed: missing; allowed: ensemble seed: an unsigned 64-bit integer (a string of decimal digits, or an integer below 2^53)'],
     ['negative seed', { ...base, seed: -1 }, 'seed: -1 is not allowed; allowed: ensemble seed: an unsigned 64-bit integer (a string of decimal digits, or an integer below 2^53)'],
     ['seed above 2^64', { ...base, seed: '18446744073709551616' }, 'seed: "18446744073709551616" is out of range; allowed: an integer from 0 to 18446744073709551615'],
-    ['unknown field', { ...base, particels: 5 }, 'particels: unknown field; allowed fields: name, model, params, particles, clusters, seed, records_per_decade, observables, checkpoint_interval_seconds, checkpoint_every_particles, runs_per_job, analysis, target'],
+    ['unknown field', { ...base, particels: 5 }, 'particels: unknown field; allowed fields: name, model, params, particles, clusters, seed, records_per_decade, observables, checkpoint_interval_seconds, checkpoint_every_particles, runs_per_job, analysis, probe, target'],
     ['bad min_step', { ...base, params: { min_step: 0 } }, 'params.min_step: 0 is out of range; allowed: a number above 0 up to 1'],
     ['unknown param', { ...base, params: { step: 1 } }, 'params.step: unknown field; allowed fields: min_step, launch_margin'],
     ['records per decade', { ...base, records_per_decade: 5 }, 'records_per_decade: 5 is out of range; allowed: an integer from 10 to 100'],

@@ -48,6 +48,27 @@ export interface TargetSpec {
   minClusters: number;
 }
 
+/** The [probe] table: harmonic-measure probing of every cluster at its end and at chosen sizes. */
+export interface ProbeSpec {
+  walkers: number;
+  jobs: number;
+  q: number[];
+  contactSample: number;
+  minStep: number;
+  /** Sizes below `particles` at which clusters are also probed, ascending (may be empty). */
+  atSizes: number[];
+}
+
+/** Default q grid of probing: -1 to 5 in steps of 0.25 (contains 0, 1, 2 and 3). */
+export const DEFAULT_PROBE_Q: readonly number[] = Array.from({ length: 25 }, (_, k) => -1 + 0.25 * k);
+/** Default probe walkers per job when the spec gives no job count. */
+export const DEFAULT_PROBE_WALKERS_PER_JOB = 250_000;
+
+/** Every size at which the clusters of a spec are probed (ascending, the final size last); empty without [probe]. */
+export function probeSizesOf(s: EnsembleSpec): number[] {
+  return s.probe ? [...s.probe.atSizes, s.particles] : [];
+}
+
 /** Default fewest clusters before an adaptive target may count as reached (a bootstrap interval of fewer is too noisy to trust). */
 export const DEFAULT_TARGET_MIN_CLUSTERS = 20;
 /** Default smallest batch of an adaptive ensemble. */
@@ -86,6 +107,8 @@ export interface EnsembleSpec {
   analysis: AnalysisSettings;
   /** Adaptive target, or null for a fixed count; then `clusters` is the first batch. */
   target: TargetSpec | null;
+  /** Harmonic-measure probing, or null. */
+  probe: ProbeSpec | null;
 }
 
 export class SpecError extends Error {
@@ -173,6 +196,13 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
   if (every > d.particles) {
     problems.push(`checkpoint_every_particles: ${every} is out of range; allowed: 0 (off) or an integer from 1 to particles (${d.particles})`);
   }
+  const pr = d.probe as Record<string, any> | undefined;
+  if (pr) {
+    for (const [k, v] of (pr.at_sizes ?? []).entries()) {
+      if (v >= d.particles) problems.push(`probe.at_sizes[${k}]: ${v} is out of range; allowed: an integer from 2 to particles - 1 (${d.particles - 1})`);
+    }
+    if (pr.jobs !== undefined && pr.jobs > pr.walkers) problems.push(`probe.jobs: ${pr.jobs} is out of range; allowed: an integer from 1 to probe.walkers (${pr.walkers})`);
+  }
   const seed = String(d.seed);
   if (BigInt(seed) >= 1n << 64n) problems.push(`seed: "${seed}" is out of range; allowed: an integer from 0 to 18446744073709551615`);
   if (problems.length > 0) throw new SpecError(problems);
@@ -204,6 +234,16 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
           maxClusters: t.max_clusters,
           minBatch,
           minClusters,
+        }
+      : null,
+    probe: pr
+      ? {
+          walkers: pr.walkers,
+          jobs: pr.jobs ?? Math.min(pr.walkers, 4096, Math.max(2, Math.ceil(pr.walkers / DEFAULT_PROBE_WALKERS_PER_JOB))),
+          q: pr.q ? [...pr.q] : [...DEFAULT_PROBE_Q],
+          contactSample: Math.min(pr.walkers, pr.contact_sample ?? 4000),
+          minStep: pr.min_step ?? 0.02,
+          atSizes: [...(pr.at_sizes ?? [])].sort((a: number, b: number) => a - b),
         }
       : null,
   };
@@ -255,6 +295,18 @@ export function specToDocument(s: EnsembleSpec): Record<string, unknown> {
             max_clusters: s.target.maxClusters,
             min_batch: s.target.minBatch,
             min_clusters: s.target.minClusters,
+          },
+        }
+      : {}),
+    ...(s.probe
+      ? {
+          probe: {
+            walkers: s.probe.walkers,
+            jobs: s.probe.jobs,
+            q: [...s.probe.q],
+            contact_sample: s.probe.contactSample,
+            min_step: s.probe.minStep,
+            ...(s.probe.atSizes.length > 0 ? { at_sizes: [...s.probe.atSizes] } : {}),
           },
         }
       : {}),

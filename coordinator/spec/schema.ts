@@ -18,6 +18,8 @@ export const DEFAULT_MAX_TOTAL_PARTICLES = 10_000_000_000;
 export const MODEL_KINDS = ['dla-offlattice-2d'] as const;
 export const TARGET_ESTIMATORS = ['radius_of_gyration', 'max_radius', 'mass_radius'] as const;
 export const OBSERVABLES = ['radius_of_gyration', 'max_radius', 'center_offset', 'mass_radius'] as const;
+/** Most sizes at which a cluster may be probed besides its final size. */
+export const MAX_PROBE_SIZES = 24;
 
 export const SPEC_SCHEMA = {
   $id: 'tendril/ensemble-spec',
@@ -70,6 +72,28 @@ export const SPEC_SCHEMA = {
         level: { type: 'number', minimum: 0.5, maximum: 0.999, description: 'confidence level of the intervals' },
         corrections: { type: 'boolean', description: 'run the corrections-to-scaling fit' },
         local_slope_width: { type: 'number', minimum: 0.05, maximum: 3, description: 'full width of the local-slope window in decades' },
+      },
+    },
+    probe: {
+      type: 'object',
+      additionalProperties: false,
+      required: ['walkers'],
+      description: 'probe every cluster with walkers at its end (and at at_sizes) to measure its harmonic measure',
+      properties: {
+        walkers: { type: 'integer', minimum: 100, maximum: 10_000_000_000, description: 'probe walkers per cluster and size' },
+        jobs: { type: 'integer', minimum: 1, maximum: 4096, description: 'independent probe jobs per cluster and size (default: one per 250000 walkers, at least 2)' },
+        q: {
+          type: 'array', minItems: 1, maxItems: 401, uniqueItems: true,
+          items: { type: 'number', minimum: -50, maximum: 50 },
+          description: 'q values of the partition function (default -1 to 5 in steps of 0.25)',
+        },
+        contact_sample: { type: 'integer', minimum: 3, maximum: 20_000, description: 'contact points kept for the capacity (default 4000)' },
+        min_step: { type: 'number', exclusiveMinimum: 0, maximum: 1, description: 'straight-step length of the probes near contact, in contact radii (default 0.02)' },
+        at_sizes: {
+          type: 'array', minItems: 1, maxItems: MAX_PROBE_SIZES, uniqueItems: true,
+          items: { type: 'integer', minimum: 2, maximum: MAX_PARTICLES },
+          description: 'also probe each cluster when it had these many particles (each below particles)',
+        },
       },
     },
     target: {
