@@ -126,7 +126,7 @@ describe('HTTP API', () => {
     expect(est.body.split('\n')[1].split(',')[0]).toBe('radiusOfGyration');
     const badTable = await app.inject({ url: `/ensembles/${id}/summary?format=csv&table=plots` });
     expect(badTable.statusCode).toBe(400);
-    expect(badTable.json().error).toBe('table: "plots" is not allowed; allowed: one of "series", "runs", "mass-radius", "estimators", "local-slopes", "batches"');
+    expect(badTable.json().error).toBe('table: "plots" is not allowed; allowed: one of "series", "runs", "mass-radius", "estimators", "local-slopes", "batches", "harmonic"');
     const csv = await app.inject({ url: `/ensembles/${id}/summary?format=csv` });
     expect(csv.body.split('\n')[0]).toBe('run_index,state_hash,size,radius_of_gyration,max_radius,center_offset');
     const pb = await app.inject({ url: `/ensembles/${id}/summary?format=pb` });

@@ -18,12 +18,21 @@
  *
  * Storage is injected (RunSink for results and progress, CheckpointStore for
  * checkpoints), so this file knows no key layout.
+ *
+ * Probe jobs (name "probe", payload ProbeJobData) share the queue and the
+ * concurrency: they are handed to the injected ProbeJobHandler (the
+ * coordinator's side: coordinator/farm/probe-jobs.ts), which loads the set,
+ * runs the job on a probe thread and stores its result. A run whose task
+ * keeps positions hands its final state to RunSink.finalPositions before
+ * its result is stored, so that a crash in between repeats both (the probe
+ * jobs it queues have fixed ids and are queued once).
  */
 import { hostname } from 'node:os';
 import { UnrecoverableError, WaitingError, Worker, type ConnectionOptions, type Job } from 'bullmq';
 import type { Redis } from 'ioredis';
 import { ContractError, decodeRunTask, type RunResultData, type RunTaskData } from '../proto/convert.js';
 import { checkRunTask, TaskRejected } from './task-runner.js';
+import { checkProbeTask, type ProbeTask } from './probe-2d.js';
 import { TaskThreadPool, type ThreadRun } from './task-thread.js';
 
 export const QUEUE_NAME = 'runs';
@@ -34,6 +43,45 @@ export interface RunJobData {
   ensembleId: string;
   /** Base64 protobuf RunTask messages. */
   tasks: string[];
+}
+
+/** Payload of a probe job (version 1): one job of the probe of (run, size) of an ensemble. */
+export interface ProbeJobData {
+  v: number;
+  kind: 'probe';
+  ensembleId: string;
+  runIndex: number;
+  size: number;
+  /** The probe task (worker/probe-2d.ts ProbeTask), plain JSON. */
+  task: ProbeTask;
+}
+
+export interface ProbeJobHandler {
+  /** Run (or skip, when done before) one probe job; throws ProbeJobRefused for a job that can never succeed. */
+  run(job: ProbeJobData): Promise<'done' | 'skipped' | 'cancelled'>;
+  /** The job failed for good (refused, or out of attempts): record the reason. */
+  failed(job: ProbeJobData, reason: string): Promise<void>;
+}
+
+export class ProbeJobRefused extends Error {
+  override name = 'ProbeJobRefused';
+}
+
+/** Read a probe job payload; throws ContractError naming what is wrong. */
+export function readProbeJobData(data: unknown): ProbeJobData {
+  const d = data as Partial<ProbeJobData> | null;
+  if (typeof d !== 'object' || d === null) throw new ContractError('probe job payload is not an object');
+  if (d.v !== JOB_PAYLOAD_VERSION) throw new ContractError(`probe job payload v is ${JSON.stringify(d.v)}, this worker reads only version ${JOB_PAYLOAD_VERSION}`);
+  if (typeof d.ensembleId !== 'string' || d.ensembleId === '') throw new ContractError('probe job payload ensembleId is missing');
+  if (!Number.isSafeInteger(d.runIndex) || (d.runIndex as number) < 0) throw new ContractError(`probe job payload runIndex is ${JSON.stringify(d.runIndex)}, must be a non-negative integer`);
+  if (!Number.isSafeInteger(d.size) || (d.size as number) < 1) throw new ContractError(`probe job payload size is ${JSON.stringify(d.size)}, must be a positive integer`);
+  if (typeof d.task !== 'object' || d.task === null) throw new ContractError('probe job payload task is missing');
+  try {
+    checkProbeTask(d.task);
+  } catch (err) {
+    throw new ContractError(`probe job payload task: ${(err as Error).message}`);
+  }
+  return d as ProbeJobData;
 }
 
 export interface RunSink {
@@ -47,6 +95,8 @@ export interface RunSink {
   /** Store a finished run; false when it was stored before. */
   saveResult(result: RunResultData, bytes: Uint8Array): Promise<boolean>;
   runFailed(ensembleId: string, runIndex: number, reason: string): Promise<void>;
+  /** Keep the final state of a run that keeps positions (and queue its probes); called before saveResult. */
+  finalPositions?(run: RunTaskData, finalCheckpoint: Uint8Array): Promise<void>;
 }
 
 export interface CheckpointStore {
@@ -70,6 +120,8 @@ export interface ProcessorOptions extends ProcessorEvents {
   prefix: string;
   sink: RunSink;
   checkpoints: CheckpointStore;
+  /** Runs probe jobs; without it a probe job fails at once with a reason. */
+  probes?: ProbeJobHandler;
   /** Jobs (and threads) at once; default 1. */
   concurrency?: number;
   workerId?: string;
@@ -114,7 +166,7 @@ export class RunWorker {
     const concurrency = o.concurrency ?? 1;
     this.workerId = o.workerId ?? `${hostname()}:${process.pid}`;
     this.pool = new TaskThreadPool(concurrency);
-    this.worker = new Worker<RunJobData>(QUEUE_NAME, (job, token) => this.process(job, token), {
+    this.worker = new Worker<RunJobData>(QUEUE_NAME, (job, token) => (job.name === 'probe' ? this.processProbe(job as unknown as Job<ProbeJobData>) : this.process(job, token)), {
       connection: o.connection as unknown as ConnectionOptions,
       prefix: o.prefix,
       concurrency,
@@ -127,6 +179,12 @@ export class RunWorker {
       if (err instanceof WaitingError || err?.name === 'WaitingError') return;
       o.onJobFailed?.(err.message);
       o.log?.(`job ${job?.id ?? '?'} failed: ${err.message}`);
+      if (job?.name === 'probe') {
+        if (err instanceof UnrecoverableError || job.attemptsMade >= (job.opts.attempts ?? 1)) {
+          void (async () => o.probes?.failed(readProbeJobData(job.data), err.message))().catch(() => undefined);
+        }
+        return;
+      }
       // out of attempts: record the reason on its runs so status shows them as failed
       if (job && !(err instanceof UnrecoverableError) && job.attemptsMade >= (job.opts.attempts ?? 1)) {
         void (async () => {
@@ -199,6 +257,25 @@ export class RunWorker {
     return { done, skipped, cancelled: false };
   }
 
+  private async processProbe(job: Job<ProbeJobData>): Promise<{ outcome: string }> {
+    let d: ProbeJobData;
+    try {
+      d = readProbeJobData(job.data);
+    } catch (err) {
+      throw new UnrecoverableError((err as Error).message.split('\n')[0]);
+    }
+    if (!this.o.probes) throw new UnrecoverableError('this worker has no probe handler');
+    this.o.onRunStarted?.();
+    try {
+      return { outcome: await this.o.probes.run(d) };
+    } catch (err) {
+      if (err instanceof ProbeJobRefused || (err as Error)?.name === 'ProbeJobRefused') throw new UnrecoverableError((err as Error).message.split('\n')[0]);
+      throw err;
+    } finally {
+      this.o.onRunEnded?.();
+    }
+  }
+
   private async growOne(run: RunTaskData): Promise<'done' | 'released' | 'cancelled'> {
     const { sink, checkpoints } = this.o;
     const key = checkpointKey(run.ensembleId, run.runIndex);
@@ -246,6 +323,11 @@ export class RunWorker {
       await writes;
       if (outcome.status === 'done') {
         if (lastCount >= 0 && reported >= 0 && lastCount > reported) await sink.progress(run.ensembleId, run.runIndex, lastCount, lastCount - reported);
+        if (run.keepPositions) {
+          if (!outcome.final) throw new Error(`run ${run.runIndex}: the thread returned no final positions`);
+          if (!sink.finalPositions) throw new UnrecoverableError(`run ${run.runIndex} keeps positions but this worker cannot store them`);
+          await sink.finalPositions(run, outcome.final);
+        }
         const counted = await sink.saveResult(outcome.result, outcome.resultBytes);
         await checkpoints.delete(key);
         this.o.onRunDone?.(outcome.result, counted);

@@ -17,6 +17,8 @@ import { growthTaskOf } from '../../proto/convert.js';
 import { createKernel } from '../../worker/models.js';
 import { buildSummary, defaultSummaryOptions } from '../summary/index.js';
 import { UsageError } from '../usage-error.js';
+import { renderMeasurePng } from '../harmonic/measure-picture.js';
+import { CLUSTER_CONTACT_RADIUS } from '../harmonic/ensemble-probing.js';
 import { addAnalysisOptions, analysisSettingsFromCli, type AnalysisCliOptions } from './analysis-options.js';
 import { describeAnalysis, writeSummaryFiles } from './summary-files.js';
 import { loadSpecFile, positiveInt } from './spec-file.js';
@@ -99,6 +101,14 @@ export function register(program: Command): void {
           report: opts.report !== false,
           ensembleId,
           sampleCluster: opts.report !== false ? sampleCluster(ensembleId, spec) : undefined,
+          measurePicture:
+            opts.report !== false && outcome.picture
+              ? {
+                  runIndex: outcome.picture.runIndex,
+                  size: outcome.picture.size,
+                  png: renderMeasurePng(outcome.picture.size, outcome.picture.x, outcome.picture.y, CLUSTER_CONTACT_RADIUS / 2, outcome.picture.counts),
+                }
+              : undefined,
         });
         process.stdout.write(
           `${spec.name}: ${s.clustersDone} clusters of ${spec.particles} particles in ${outcome.wallSeconds.toFixed(1)} s` +
@@ -112,7 +122,7 @@ export function register(program: Command): void {
           // a partial summary of the runs finished so far (no report: it is rewritten when the run completes)
           if (err.results.length > 0) {
             const partial = buildSummary(
-              { ensembleId, spec, createdAtMs, results: err.results, clustersPlanned: err.clustersPlanned, finished: false, adaptive: err.adaptive },
+              { ensembleId, spec, createdAtMs, results: err.results, clustersPlanned: err.clustersPlanned, finished: false, adaptive: err.adaptive, harmonic: err.harmonic },
               defaultSummaryOptions(analysis),
             );
             await writeSummaryFiles(opts.out, partial, err.results, spec, { report: false, ensembleId });

@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import type { EnsembleSummaryData, RunResultData } from '../../proto/convert.js';
 import { writeEnsembleReport, type SampleClusterInput } from '../report/index.js';
 import type { EnsembleSpec } from '../spec/index.js';
-import { analysisOf, CSV_TABLES, summaryToJson, summaryToProtobuf, type AdaptiveHistory } from '../summary/index.js';
+import { analysisOf, CSV_TABLES, harmonicOfSummary, summaryToJson, summaryToProtobuf, type AdaptiveHistory } from '../summary/index.js';
 
 export interface SummaryFilesOptions {
   /** Write report.html and plots/ (default true). */
@@ -21,6 +21,8 @@ export interface SummaryFilesOptions {
   ensembleId?: string;
   /** A cluster to picture in the report. */
   sampleCluster?: SampleClusterInput;
+  /** A probed cluster coloured by harmonic measure, for the report. */
+  measurePicture?: { runIndex: number; size: number; png: Uint8Array };
 }
 
 /** Writes the files and returns their names relative to `dir`. */
@@ -46,7 +48,7 @@ export async function writeSummaryFiles(
   }
   const analysis = analysisOf(s);
   if ((o.report ?? true) && analysis) {
-    const files = await writeEnsembleReport(dir, { analysis, runs, spec, sampleCluster: o.sampleCluster, ensembleId: o.ensembleId ?? s.ensembleId, title: s.partial ? `${s.name} (partial: ${s.clustersDone} of ${s.clustersPlanned} clusters)` : undefined });
+    const files = await writeEnsembleReport(dir, { analysis, runs, spec, sampleCluster: o.sampleCluster, measurePicture: o.measurePicture, ensembleId: o.ensembleId ?? s.ensembleId, title: s.partial ? `${s.name} (partial: ${s.clustersDone} of ${s.clustersPlanned} clusters)` : undefined });
     written.push('report.html', `plots/ (${files.svgs.length} SVG, ${files.pngs.length} PNG)`);
   }
   return written;
@@ -71,6 +73,23 @@ export function describeAnalysis(s: EnsembleSummaryData): string {
   } else if (s.statisticsJson !== '') {
     const x = JSON.parse(s.statisticsJson) as { reason?: string };
     if (x.reason) lines.push(`no statistics: ${x.reason}`);
+  }
+  const hm = harmonicOfSummary(s);
+  if (hm) {
+    const last = hm.bySize[hm.bySize.length - 1];
+    const ev = (v: { mean: number; interval: { bca: [number, number] | null; percentile: [number, number] | null } } | null | undefined) => {
+      if (!v || !Number.isFinite(v.mean)) return 'n/a';
+      const iv = v.interval.bca ?? v.interval.percentile;
+      return `${v.mean.toFixed(4)}${iv ? ` [${iv[0].toFixed(4)}, ${iv[1].toFixed(4)}]` : ''}`;
+    };
+    if (last) {
+      lines.push(`harmonic measure at N = ${last.size} (${last.clusters} clusters, ${last.walkers} walkers each): tau'(1) = ${ev(last.informationDimension)}, tau(3) = ${ev(last.tau3)}, max-concentration exponent = ${ev(last.maxConcentrationExponent)}`);
+    }
+    const cg = hm.capacityGrowth;
+    if (cg.dimension !== null) lines.push(`capacity growth: D_cap = ${cg.dimension.toFixed(4)}${cg.dimensionInterval ? ` [${cg.dimensionInterval[0].toFixed(4)}, ${cg.dimensionInterval[1].toFixed(4)}]` : ''}`);
+    else if (cg.reason) lines.push(`capacity growth: ${cg.reason}`);
+    const e = hm.electrostatic;
+    if (e.consistent !== null) lines.push(`tau(3) = D check: ${e.consistent ? 'consistent' : 'NOT consistent'} (tau(3) ${ev(e.tau3)} vs D ${e.massDimension?.value?.toFixed(4) ?? 'n/a'})`);
   }
   if (s.adaptiveJson !== '') {
     const h = JSON.parse(s.adaptiveJson) as AdaptiveHistory;

@@ -7,6 +7,7 @@ import { availableParallelism } from 'node:os';
 import { Option, type Command } from 'commander';
 import { advanceAdaptive, startAdaptiveSweeps } from '../farm/adaptive.js';
 import { DirectoryArtifactStore } from '../farm/artifacts.js';
+import { FarmProbeHandler, keepFinalAndQueueProbes } from '../farm/probe-jobs.js';
 import type { RunSink } from '../../worker/queue-processor.js';
 import { newRegistry, serveMetrics, workerMetrics } from '../metrics/index.js';
 import { RunWorker } from '../../worker/queue-processor.js';
@@ -48,7 +49,10 @@ export function register(program: Command): void {
     // adaptive ensembles: the worker that stores the last result of a batch judges it and queues the next
     // batch (coordinator/farm/adaptive.ts: an atomic Redis step, so a batch is never added twice)
     const store = farm.store;
+    const artifacts = new DirectoryArtifactStore(opts.artifacts ?? process.env.TENDRIL_ARTIFACTS ?? 'tendril-artifacts');
+    const probes = new FarmProbeHandler(store, artifacts, concurrency, { onProbed: metrics.onProbed, log });
     const sink: RunSink = {
+      finalPositions: (run, bytes) => keepFinalAndQueueProbes(store, artifacts, farm.queue, run, bytes),
       isCancelled: (e) => store.isCancelled(e),
       exists: (e) => store.exists(e),
       hasResult: (e, i) => store.hasResult(e, i),
@@ -72,7 +76,8 @@ export function register(program: Command): void {
       connection: farm.redis,
       prefix: farm.prefix,
       sink,
-      checkpoints: new DirectoryArtifactStore(opts.artifacts ?? process.env.TENDRIL_ARTIFACTS ?? 'tendril-artifacts'),
+      checkpoints: artifacts,
+      probes,
       concurrency,
       lockDuration: opts.lockMs,
       stalledInterval: opts.stalledMs,
@@ -95,6 +100,7 @@ export function register(program: Command): void {
         void stopSweeps();
         worker
           .shutdown()
+          .then(() => probes.close())
           .catch((err: Error) => log(`shutdown: ${err.message}`))
           .finally(() => {
             server?.close();

@@ -10,13 +10,26 @@
  * When an artifact store is given, checkpoints and finished results are kept
  * there (keys as in the farm), so an interrupted `tendril run` continues
  * where it stopped when started again with the same spec and output folder.
+ *
+ * A spec with [probe]: after each batch is grown, every new cluster is
+ * probed at each size of probeSizesOf(spec) on a pool of probe threads (the
+ * same jobs, seeds and analysis as the farm: coordinator/harmonic/
+ * ensemble-probing.ts); the per-cluster records go into the summary. With a
+ * store, each cluster's final positions (`run-I.final`), its records
+ * (`run-I.harmonic.json`) and its final hit counts (`run-I.hits`, float64)
+ * are kept, so an interrupted run probes only what is missing.
  */
 import { availableParallelism } from 'node:os';
-import { decodeRunResult, encodeRunResult, type RunResultData, type RunTaskData } from '../../proto/convert.js';
+import { decodeCheckpoint, decodeRunResult, encodeRunResult, type RunResultData, type RunTaskData } from '../../proto/convert.js';
+import { ProbeThreadPool } from '../../worker/probe-thread-pool.js';
+import type { ProbeResult } from '../../worker/probe-2d.js';
+import { analyseProbedCluster, clusterPrefix, positionsOf, prefixDigest, probeTasksOf } from '../harmonic/ensemble-probing.js';
+import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
 import { TaskThreadPool, type ThreadOutcome, type ThreadRun } from '../../worker/task-thread.js';
 import { checkpointKey, type ArtifactStore } from '../farm/artifacts.js';
+import { finalKey, hitsKey } from '../farm/probe-jobs.js';
 import { planEnsemble, type PlannedJob } from '../plan.js';
-import { maxRunsOf, type EnsembleSpec } from '../spec/index.js';
+import { maxRunsOf, probeSizesOf, type EnsembleSpec } from '../spec/index.js';
 import { buildSummary, defaultSummaryOptions, judgeBatch, newAdaptiveHistory, type AdaptiveBatch, type AdaptiveHistory, type SummaryOptions } from '../summary/index.js';
 import type { EnsembleSummaryData } from '../../proto/convert.js';
 
@@ -25,6 +38,18 @@ export interface EmbeddedProgress {
   runsTotal: number;
   particlesDone: number;
   particlesTotal: number;
+  /** Probe jobs finished and planned so far (0 without [probe]). */
+  probeJobsDone: number;
+  probeJobsTotal: number;
+}
+
+/** The hit counts of one probed cluster at its final size, for the report's picture. */
+export interface ProbedPicture {
+  runIndex: number;
+  size: number;
+  x: Float64Array;
+  y: Float64Array;
+  counts: Float64Array;
 }
 
 export interface EmbeddedOptions {
@@ -52,6 +77,10 @@ export interface EmbeddedOutcome {
   wallSeconds: number;
   /** Batch history of an adaptive ensemble; null for a fixed count. */
   adaptive: AdaptiveHistory | null;
+  /** Harmonic records of the probed clusters (run, then size order); empty without [probe]. */
+  harmonic: ClusterHarmonic[];
+  /** The lowest-index probed cluster at its final size, when its hits are at hand. */
+  picture: ProbedPicture | null;
 }
 
 export class EmbeddedAborted extends Error {
@@ -60,9 +89,11 @@ export class EmbeddedAborted extends Error {
   results: RunResultData[] = [];
   clustersPlanned = 0;
   adaptive: AdaptiveHistory | null = null;
+  harmonic: ClusterHarmonic[] = [];
 }
 
 const resultKey = (id: string, i: number) => `${id}/run-${i}.result`;
+export const harmonicKey = (id: string, i: number) => `${id}/run-${i}.harmonic.json`;
 
 export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Promise<EmbeddedOutcome> {
   const t0 = Date.now();
@@ -71,13 +102,22 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
   const store = opts.store;
   const results = new Map<number, RunResultData>();
   const live = new Map<number, number>();
+  const probe = spec.probe;
+  const probeSizes = probeSizesOf(spec);
+  const probePool = probe ? new ProbeThreadPool(pool.size) : null;
+  /** Final positions of clusters grown in this call and not yet probed. */
+  const finals = new Map<number, { x: Float64Array; y: Float64Array; count: number }>();
+  const harmonic = new Map<number, ClusterHarmonic[]>();
+  let picture: ProbedPicture | null = null;
+  let probeJobsDone = 0;
   let planned = spec.clusters;
   let reused = 0;
   const report = () => {
     let p = 0;
     for (const r of results.values()) p += r.particles;
     for (const c of live.values()) p += c;
-    opts.onProgress?.({ runsDone: results.size, runsTotal: planned, particlesDone: p, particlesTotal: planned * spec.particles });
+    const probeJobsTotal = probe ? planned * probeSizes.length * probe.jobs : 0;
+    opts.onProgress?.({ runsDone: results.size, runsTotal: planned, particlesDone: p, particlesTotal: planned * spec.particles, probeJobsDone, probeJobsTotal });
   };
 
   /** Results of earlier (interrupted) invocations, from the store. */
@@ -89,6 +129,16 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
       try {
         const r = decodeRunResult(bytes);
         if (r.runIndex === run.runIndex && r.particles === run.particles && r.ensembleSeed === run.ensembleSeed && r.engineVersion === run.engineVersion) {
+          if (probe) {
+            // a probed ensemble reuses a run only with its records, or with its positions to probe again
+            const recs = await store.get(harmonicKey(opts.ensembleId, run.runIndex));
+            if (recs) harmonic.set(run.runIndex, JSON.parse(Buffer.from(recs).toString('utf8')) as ClusterHarmonic[]);
+            else {
+              const fin = await store.get(finalKey(opts.ensembleId, run.runIndex));
+              if (!fin) continue;
+              finals.set(run.runIndex, positionsOf(decodeCheckpoint(fin)));
+            }
+          }
           results.set(run.runIndex, r);
           reused++;
         }
@@ -131,6 +181,11 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
           await writes;
           live.delete(run.runIndex);
           if (outcome.status === 'done') {
+            if (probe) {
+              if (!outcome.final) throw new Error(`run ${run.runIndex}: the thread returned no final positions to probe`);
+              finals.set(run.runIndex, positionsOf(decodeCheckpoint(outcome.final)));
+              if (store) await store.put(finalKey(opts.ensembleId, run.runIndex), outcome.final);
+            }
             results.set(run.runIndex, outcome.result);
             if (store) {
               await store.put(resultKey(opts.ensembleId, run.runIndex), encodeRunResult(outcome.result));
@@ -149,9 +204,63 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
       e.results = [...results.values()].sort((x, y) => x.runIndex - y.runIndex);
       e.clustersPlanned = planned;
       e.adaptive = adaptive;
+      e.harmonic = harmonicList();
       throw e;
     }
     if (failures.length > 0) throw new Error(`${failures.length} run(s) failed; first: ${failures[0]}`);
+  };
+
+  const harmonicList = () => [...harmonic.keys()].sort((a, b) => a - b).flatMap((i) => harmonic.get(i)!);
+
+  /** Probe every cluster grown (or reused without records) and not yet probed, at every probe size. */
+  const probeAll = async () => {
+    if (!probe || !probePool) return;
+    const groups = [...finals.entries()].filter(([i]) => !harmonic.has(i)).sort((a, b) => a[0] - b[0])
+      .flatMap(([runIndex, pos]) => probeSizes.map((size) => ({ runIndex, pos, size, set: clusterPrefix(pos, size) })));
+    const failures: string[] = [];
+    const done = new Map<string, ProbeResult[]>();
+    await Promise.all(groups.map(async (g) => {
+      const key = `${g.runIndex}:${g.size}`;
+      const digest = prefixDigest(g.pos, g.size);
+      const tasks = probeTasksOf(probe, spec.seed, g.runIndex, g.size, digest);
+      const out = await Promise.all(tasks.map(async (t) => {
+        if (opts.signal?.aborted) return null;
+        try {
+          const r = await probePool.run(`${opts.ensembleId}:${key}`, () => g.set, t);
+          probeJobsDone++;
+          report();
+          return r;
+        } catch (err) {
+          failures.push(`probe of run ${g.runIndex} at size ${g.size}, job ${t.jobIndex}: ${(err as Error).message}`);
+          return null;
+        }
+      }));
+      if (out.every((r) => r !== null)) done.set(key, out as ProbeResult[]);
+    }));
+    for (const [runIndex, pos] of [...finals.entries()].sort((a, b) => a[0] - b[0])) {
+      if (harmonic.has(runIndex) || !probeSizes.every((n) => done.has(`${runIndex}:${n}`))) continue;
+      const recs: ClusterHarmonic[] = [];
+      for (const size of probeSizes) {
+        const { record, counts } = analyseProbedCluster(clusterPrefix(pos, size), done.get(`${runIndex}:${size}`)!, probe, runIndex, size);
+        recs.push(record);
+        if (size === spec.particles) {
+          if (store) await store.put(hitsKey(opts.ensembleId, runIndex), new Uint8Array(counts.buffer, counts.byteOffset, counts.byteLength));
+          if (picture === null || runIndex < picture.runIndex) picture = { runIndex, size, x: pos.x.slice(0, size), y: pos.y.slice(0, size), counts };
+        }
+      }
+      harmonic.set(runIndex, recs);
+      if (store) await store.put(harmonicKey(opts.ensembleId, runIndex), Buffer.from(JSON.stringify(recs)));
+      finals.delete(runIndex);
+    }
+    if (opts.signal?.aborted) {
+      const e = new EmbeddedAborted(`interrupted with ${results.size} of ${planned} runs done${store ? '; checkpoints kept' : ''}`);
+      e.results = [...results.values()].sort((x, y) => x.runIndex - y.runIndex);
+      e.clustersPlanned = planned;
+      e.adaptive = adaptive;
+      e.harmonic = harmonicList();
+      throw e;
+    }
+    if (failures.length > 0) throw new Error(`${failures.length} probe job(s) failed; first: ${failures[0]}`);
   };
 
   // batches: one for a fixed count; for a [target], batch after batch until the stopping rule says stop
@@ -164,6 +273,7 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
       await reuse(batch);
       report();
       await grow(batch);
+      await probeAll();
       if (!adaptive) break;
       const all = [...results.values()].sort((x, y) => x.runIndex - y.runIndex);
       const j = judgeBatch(spec, all);
@@ -181,11 +291,24 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
   } finally {
     opts.signal?.removeEventListener('abort', onAbort);
     await pool.close();
+    await probePool?.close();
   }
   const all = [...results.values()].sort((a, b) => a.runIndex - b.runIndex);
   const summary = buildSummary(
-    { ensembleId: opts.ensembleId, spec, createdAtMs: opts.createdAtMs ?? t0, results: all, clustersPlanned: planned, finished: true, adaptive },
+    { ensembleId: opts.ensembleId, spec, createdAtMs: opts.createdAtMs ?? t0, results: all, clustersPlanned: planned, finished: true, adaptive, harmonic: harmonicList() },
     opts.summary ?? defaultSummaryOptions(),
   );
-  return { ensembleId: opts.ensembleId, results: all, summary, reused, wallSeconds: (Date.now() - t0) / 1000, adaptive };
+  if (probe && picture === null && store) {
+    // the picture's cluster was probed by an earlier invocation: its hits and positions are in the store
+    const first = [...harmonic.keys()].sort((a, b) => a - b)[0];
+    if (first !== undefined) {
+      const [fin, hits] = await Promise.all([store.get(finalKey(opts.ensembleId, first)), store.get(hitsKey(opts.ensembleId, first))]);
+      if (fin && hits) {
+        const pos = positionsOf(decodeCheckpoint(fin));
+        const counts = new Float64Array(Uint8Array.from(hits).buffer);
+        if (counts.length === spec.particles) picture = { runIndex: first, size: spec.particles, x: pos.x.slice(0, spec.particles), y: pos.y.slice(0, spec.particles), counts };
+      }
+    }
+  }
+  return { ensembleId: opts.ensembleId, results: all, summary, reused, wallSeconds: (Date.now() - t0) / 1000, adaptive, harmonic: harmonicList(), picture };
 }

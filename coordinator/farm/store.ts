@@ -13,7 +13,12 @@
  *   P:ensemble:ID:progress         hash: run index -> particles placed so far (running runs)
  *   P:ensemble:ID:failed           hash: run index -> reason, for runs that failed for good
  *   P:ensemble:ID:rate             hash: 10-second bucket number -> particles grown in it
- *   P:runs:*                       the BullMQ queue "runs" (BullMQ's own layout)
+ *   P:ensemble:ID:harmonic         hash: "RUN:SIZE" -> ClusterHarmonic JSON of a probed cluster (HSETNX:
+ *                                  the first analysis of a (run, size) is the one kept)
+ *   P:ensemble:ID:probed:RUN:SIZE  set: probe job indices of (run, size) whose results are stored
+ *   P:ensemble:ID:probe-failed     hash: "RUN:SIZE" -> reason, for probes that failed for good
+ *   P:runs:*                       the BullMQ queue "runs" (BullMQ's own layout), holding grow
+ *                                  and probe jobs
  *
  * Checkpoints are not in Redis but in the artifact store (coordinator/farm/artifacts.ts).
  */
@@ -22,6 +27,7 @@ import { decodeRunResult, type RunResultData } from '../../proto/convert.js';
 import { specToDocument, validateSpec, type EnsembleSpec } from '../spec/index.js';
 import type { AdaptiveHistory } from '../summary/adaptive.js';
 import type { RunSink } from '../../worker/queue-processor.js';
+import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
 
 export const DEFAULT_PREFIX = 'tendril';
 const RATE_BUCKET_MS = 10_000;
@@ -85,6 +91,8 @@ export interface EnsembleStatus {
   failures: Array<{ runIndex: number; reason: string }>;
   /** Adaptive ensembles: the outcome so far, batches planned, and the cluster cap; null for a fixed count. */
   adaptive: { outcome: string; batches: number; maxClusters: number } | null;
+  /** Probed ensembles: (run, size) probes planned for the planned clusters, analysed, failed; null without [probe]. */
+  probes: { planned: number; done: number; failed: number; failures: Array<{ runIndex: number; size: number; reason: string }> } | null;
 }
 
 export class EnsembleStore implements RunSink {
@@ -217,6 +225,39 @@ export class EnsembleStore implements RunSink {
       .exec();
   }
 
+  // ---------------------------------------------------------- probes
+
+  /** Record that probe job j of (run, size) has its result stored; returns how many jobs of it have. */
+  async probeJobStored(id: string, runIndex: number, size: number, job: number): Promise<number> {
+    const key = this.k(id, `probed:${runIndex}:${size}`);
+    const r = await this.redis.multi().sadd(key, String(job)).scard(key).exec();
+    return Number(r?.[1]?.[1] ?? 0);
+  }
+
+  async hasHarmonic(id: string, runIndex: number, size: number): Promise<boolean> {
+    return (await this.redis.hexists(this.k(id, 'harmonic'), `${runIndex}:${size}`)) === 1;
+  }
+
+  /** Keep the analysis of a probed (run, size); false when one was kept before. */
+  async saveHarmonic(id: string, record: ClusterHarmonic): Promise<boolean> {
+    const ok = await this.redis.hsetnx(this.k(id, 'harmonic'), `${record.runIndex}:${record.size}`, JSON.stringify(record));
+    await this.redis.hdel(this.k(id, 'probe-failed'), `${record.runIndex}:${record.size}`);
+    return ok === 1;
+  }
+
+  async probeFailed(id: string, runIndex: number, size: number, reason: string): Promise<void> {
+    if (await this.hasHarmonic(id, runIndex, size)) return;
+    await this.redis.hset(this.k(id, 'probe-failed'), `${runIndex}:${size}`, reason.slice(0, 500));
+  }
+
+  /** The kept harmonic records, in (run, size) order. */
+  async harmonicRecords(id: string): Promise<ClusterHarmonic[]> {
+    const h = await this.redis.hgetall(this.k(id, 'harmonic'));
+    return Object.values(h)
+      .map((v) => JSON.parse(v) as ClusterHarmonic)
+      .sort((a, b) => a.runIndex - b.runIndex || a.size - b.size);
+  }
+
   // ---------------------------------------------------------- reading
 
   /** Stored results in run-index order (one per run index by construction). */
@@ -230,13 +271,16 @@ export class EnsembleStore implements RunSink {
   async status(id: string, now = Date.now()): Promise<EnsembleStatus | null> {
     const rec = await this.get(id);
     if (!rec) return null;
-    const [doneN, running, progress, failed, rate] = await Promise.all([
+    const [doneN, running, progress, failed, rate, harmonicN, probeFailed] = await Promise.all([
       this.redis.hlen(this.k(id, 'results')),
       this.redis.hgetall(this.k(id, 'running')),
       this.redis.hgetall(this.k(id, 'progress')),
       this.redis.hgetall(this.k(id, 'failed')),
       this.redis.hgetall(this.k(id, 'rate')),
+      this.redis.hlen(this.k(id, 'harmonic')),
+      this.redis.hgetall(this.k(id, 'probe-failed')),
     ]);
+    const probeSizes = rec.spec.probe ? rec.spec.probe.atSizes.length + 1 : 0;
     const planned = rec.plannedClusters;
     const runningN = Object.keys(running).length;
     const failedN = Object.keys(failed).length;
@@ -249,11 +293,14 @@ export class EnsembleStore implements RunSink {
     const windowS = Math.min(RATE_WINDOW_MS, Math.max(RATE_BUCKET_MS, now - rec.createdAtMs)) / 1000;
     const throughput = recent / windowS;
     const total = planned * rec.spec.particles;
+    const probesPlanned = planned * probeSizes;
+    const probeFailedN = Object.keys(probeFailed).length;
+    const probesComplete = harmonicN >= probesPlanned;
     let state: EnsembleState = 'running';
-    if (rec.cancelled && doneN < planned) state = 'cancelled';
+    if (rec.cancelled && (doneN < planned || !probesComplete)) state = 'cancelled';
     else if (doneN === planned && rec.adaptive?.outcome === 'running') state = 'running'; // batch complete, awaiting its judgement
-    else if (doneN === planned) state = 'done';
-    else if (doneN + failedN === planned) state = 'failed';
+    else if (doneN === planned && probesComplete) state = 'done';
+    else if (doneN + failedN === planned && harmonicN + probeFailedN >= doneN * probeSizes && (failedN > 0 || probeFailedN > 0)) state = 'failed';
     const remaining = total - particlesDone;
     return {
       id,
@@ -269,14 +316,32 @@ export class EnsembleStore implements RunSink {
         .sort((a, b) => a.runIndex - b.runIndex)
         .slice(0, 20),
       adaptive: rec.adaptive ? { outcome: rec.adaptive.outcome, batches: rec.adaptive.batches.length, maxClusters: rec.adaptive.target.max_clusters } : null,
+      probes: rec.spec.probe
+        ? {
+            planned: probesPlanned,
+            done: harmonicN,
+            failed: probeFailedN,
+            failures: Object.entries(probeFailed)
+              .map(([k, reason]) => ({ runIndex: Number(k.split(':')[0]), size: Number(k.split(':')[1]), reason }))
+              .sort((a, b) => a.runIndex - b.runIndex || a.size - b.size)
+              .slice(0, 20),
+          }
+        : null,
     };
   }
 
   /** Delete every key of an ensemble (tests and operators). */
   async purge(id: string): Promise<void> {
+    const probed: string[] = [];
+    let cursor = '0';
+    do {
+      const [next, keys] = await this.redis.scan(cursor, 'MATCH', this.k(id, 'probed:*'), 'COUNT', 1000);
+      cursor = next;
+      probed.push(...keys);
+    } while (cursor !== '0');
     await this.redis
       .multi()
-      .del(this.k(id), this.k(id, 'results'), this.k(id, 'running'), this.k(id, 'progress'), this.k(id, 'failed'), this.k(id, 'rate'))
+      .del(this.k(id), this.k(id, 'results'), this.k(id, 'running'), this.k(id, 'progress'), this.k(id, 'failed'), this.k(id, 'rate'), this.k(id, 'harmonic'), this.k(id, 'probe-failed'), ...probed)
       .zrem(`${this.prefix}:ensembles`, id)
       .exec();
   }

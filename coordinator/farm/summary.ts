@@ -19,6 +19,7 @@ export async function farmSummary(store: EnsembleStore, id: string, opts: Summar
   if (!record) return null;
   const results = await store.results(id);
   const status = await store.status(id);
+  const harmonic = record.spec.probe ? await store.harmonicRecords(id) : undefined;
   const summary = buildSummary(
     {
       ensembleId: id,
@@ -28,6 +29,7 @@ export async function farmSummary(store: EnsembleStore, id: string, opts: Summar
       clustersPlanned: record.plannedClusters,
       finished: status !== null && status.state !== 'running',
       adaptive: record.adaptive,
+      harmonic,
     },
     opts,
   );

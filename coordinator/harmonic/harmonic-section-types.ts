@@ -7,6 +7,7 @@
  */
 import type { IntervalSummary } from '../stats/bca.js';
 import type { EnsembleValue } from './ensemble-intervals.js';
+import type { ClusterHarmonic } from './cluster-harmonic.js';
 
 /** Ensemble values of the clusters probed at one size. */
 export interface HarmonicAtSize {
@@ -94,4 +95,6 @@ export interface HarmonicSection {
   electrostatic: ElectrostaticCheck;
   /** Clusters probed at every size (the ones the growth relations use). */
   clustersAtAllSizes: number;
+  /** The per-cluster records behind it (run, then size order); attached by the summary builder. */
+  perCluster?: ClusterHarmonic[];
 }

@@ -25,7 +25,8 @@ export function newRegistry(defaults = true): Registry {
   return r;
 }
 
-export function workerMetrics(registry: Registry): Required<Pick<ProcessorEvents, 'onGrowth' | 'onRunDone' | 'onRunStarted' | 'onRunEnded' | 'onJobFailed'>> {
+export function workerMetrics(registry: Registry): Required<Pick<ProcessorEvents, 'onGrowth' | 'onRunDone' | 'onRunStarted' | 'onRunEnded' | 'onJobFailed'>> & { onProbed: (walkers: number) => void } {
+  const probed = new Counter({ name: 'tendril_probe_walkers_total', help: 'Probe walkers run by this worker (harmonic-measure probing).', registers: [registry] });
   const particles = new Counter({ name: 'tendril_particles_grown_total', help: 'Particles added to clusters by this worker.', registers: [registry] });
   const jumps = new Counter({ name: 'tendril_walker_jumps_total', help: 'Walk-on-spheres jumps of walkers grown by this worker.', registers: [registry] });
   const finished = new Counter({ name: 'tendril_runs_finished_total', help: 'Runs finished by this worker, by whether the result was new.', labelNames: ['outcome'], registers: [registry] });
@@ -56,6 +57,7 @@ export function workerMetrics(registry: Registry): Required<Pick<ProcessorEvents
     onRunStarted: () => active.inc(),
     onRunEnded: () => active.dec(),
     onJobFailed: () => failed.inc(),
+    onProbed: (w) => probed.inc(w),
   };
 }
 

@@ -23,6 +23,11 @@ import { ENGINE_VERSION } from '../../worker/engine-version.js';
 import { specToDocument, type AnalysisSettings, type EnsembleSpec, type Observable } from '../spec/index.js';
 import type { EnsembleAnalysis } from '../stats/analyze-ensemble.js';
 import { analysisOptionsOf, safeAnalysis, type AdaptiveHistory } from './adaptive.js';
+import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
+import { harmonicSection } from '../harmonic/harmonic-section.js';
+import type { HarmonicSection } from '../harmonic/harmonic-section-types.js';
+import { SIGN_CONVENTION } from '../harmonic/probe-analysis.js';
+import { probeSizesOf } from '../spec/index.js';
 
 export { analysisOptionsOf, judgeBatch, newAdaptiveHistory, safeAnalysis, type AdaptiveBatch, type AdaptiveHistory, type AdaptiveOutcome } from './adaptive.js';
 
@@ -42,6 +47,8 @@ export interface SummaryInput {
   finished?: boolean;
   /** Batch history of an adaptive ensemble. */
   adaptive?: AdaptiveHistory | null;
+  /** Harmonic records of the probed clusters (spec with [probe]); any order, one per (run, size). */
+  harmonic?: readonly ClusterHarmonic[];
 }
 
 export type SummaryEnricher = (runs: RunResultData[], spec: EnsembleSpec) => unknown;
@@ -134,7 +141,11 @@ export function buildSummary(input: SummaryInput, opts: SummaryOptions = default
         opts.fitMinSize ?? 100,
       )
     : null;
-  const statistics = opts.enrich ? opts.enrich(runs, input.spec) : undefined;
+  let statistics = opts.enrich ? opts.enrich(runs, input.spec) : undefined;
+  if (input.spec.probe) {
+    const section = harmonicOf(input, runs, statistics);
+    statistics = typeof statistics === 'object' && statistics !== null ? { ...statistics, harmonic: section } : { harmonic: section };
+  }
   return {
     ensembleId: input.ensembleId,
     name: input.spec.name,
@@ -152,6 +163,35 @@ export function buildSummary(input: SummaryInput, opts: SummaryOptions = default
     partial: !(input.finished ?? runs.length >= (input.clustersPlanned ?? input.spec.clusters)),
     adaptiveJson: input.adaptive ? JSON.stringify(input.adaptive) : '',
   };
+}
+
+/**
+ * The harmonic section of a probed ensemble: the records of the runs in the
+ * summary (one per (run, size), first wins), with the mass-based D from the
+ * R_g estimator of the same analysis for the τ(3) = D check.
+ */
+function harmonicOf(input: SummaryInput, runs: RunResultData[], statistics: unknown): HarmonicSection {
+  const p = input.spec.probe!;
+  const inRuns = new Set(runs.map((r) => r.runIndex));
+  const seen = new Set<string>();
+  const records: ClusterHarmonic[] = [];
+  for (const r of [...(input.harmonic ?? [])].sort((a, b) => a.runIndex - b.runIndex || a.size - b.size)) {
+    const k = `${r.runIndex}:${r.size}`;
+    if (!inRuns.has(r.runIndex) || seen.has(k)) continue;
+    seen.add(k);
+    records.push(r);
+  }
+  const a = statistics as Partial<EnsembleAnalysis> | undefined;
+  const rg = a?.schema === 'tendril.ensemble-statistics/1' ? a.estimators?.radiusOfGyration : undefined;
+  const iv = rg?.interval;
+  const section = harmonicSection(records, {
+    probe: { walkers: p.walkers, jobs: p.jobs, q: [...p.q], sizes: probeSizesOf(input.spec), contactSample: p.contactSample, minStep: p.minStep },
+    massDimension: rg ? { estimator: 'radiusOfGyration', value: rg.D ?? null, interval: iv?.bca ?? iv?.percentile ?? null } : null,
+    seed: input.spec.seed,
+    resamples: input.spec.analysis.resamples,
+    level: input.spec.analysis.level,
+  });
+  return { ...section, convention: section.convention || SIGN_CONVENTION, perCluster: records };
 }
 
 /** The analysis inside a summary, or null when it is absent or could not be made. */
@@ -315,6 +355,24 @@ export function batchesToCsv(s: EnsembleSummaryData): string {
   return lines.join('\n') + '\n';
 }
 
+/** The harmonic section of a summary, or null (no [probe], or not computed). */
+export function harmonicOfSummary(s: EnsembleSummaryData): HarmonicSection | null {
+  if (s.statisticsJson === '') return null;
+  const h = (JSON.parse(s.statisticsJson) as { harmonic?: HarmonicSection }).harmonic;
+  return h && h.schema === 'tendril-harmonic/1' ? h : null;
+}
+
+/** Probed clusters: one row per (run, size), τ(q) as one column per q (header only without [probe]). */
+export function harmonicToCsv(s: EnsembleSummaryData): string {
+  const h = harmonicOfSummary(s);
+  const q = h?.probe.q ?? [];
+  const lines = [['run_index', 'size', 'walkers', 'log_capacity', 'log_capacity_error', 'z3', 'information_dimension', 'max_concentration_exponent', 'radius', ...q.map((v) => `tau_q${v}`)].join(',')];
+  for (const r of h?.perCluster ?? []) {
+    lines.push([r.runIndex, r.size, r.walkers, opt(r.logCapacity), opt(r.logCapacityError), opt(r.z3), opt(r.informationDimension), opt(r.maxConcentrationExponent), opt(r.radius), ...r.tau.map((t) => opt(t))].join(','));
+  }
+  return lines.join('\n') + '\n';
+}
+
 /** Every CSV table of a summary, by file name; each is one plain table with a header row. */
 export const CSV_TABLES: Record<string, (s: EnsembleSummaryData) => string> = {
   series: summaryToCsv,
@@ -323,6 +381,7 @@ export const CSV_TABLES: Record<string, (s: EnsembleSummaryData) => string> = {
   estimators: estimatorsToCsv,
   'local-slopes': localSlopesToCsv,
   batches: batchesToCsv,
+  harmonic: harmonicToCsv,
 };
 export const CSV_TABLE_NAMES = Object.keys(CSV_TABLES);
 

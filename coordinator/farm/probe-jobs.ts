@@ -1,0 +1,143 @@
+/**
+ * Probing on the farm. A run of a spec with [probe] keeps its positions:
+ * before its result is stored, the worker writes the final state to the
+ * artifact store (`ID/run-I.final`, a Checkpoint at count = particles) and
+ * queues the probe jobs of every size of probeSizesOf(spec) (job id
+ * "ID-pI-N-J", so a repeated run queues nothing twice).
+ *
+ * A probe job (ProbeJobData): skip if (run, size) is analysed already; else
+ * run the job on a probe thread unless its result is stored already
+ * (`ID/probe/run-I-size-N/job-J.json`), store the result, and mark it in
+ * Redis. The job that finds all K results stored analyses them (the same
+ * analysis as the embedded mode, coordinator/harmonic/ensemble-probing.ts)
+ * and keeps the record with HSETNX; for the final size it also keeps the
+ * summed hit counts (`ID/run-I.hits`, float64) for pictures. A job acks
+ * only after this, so a crash at any point is repaired by the retry, and
+ * nothing is counted twice.
+ */
+import type { Queue } from 'bullmq';
+import { decodeCheckpoint, type RunTaskData } from '../../proto/convert.js';
+import type { ProbeResult } from '../../worker/probe-2d.js';
+import { ProbeThreadPool } from '../../worker/probe-thread-pool.js';
+import { JOB_PAYLOAD_VERSION, ProbeJobRefused, type ProbeJobData, type ProbeJobHandler } from '../../worker/queue-processor.js';
+import { analyseProbedCluster, clusterPrefix, positionsOf, prefixDigest, probeTasksOf } from '../harmonic/ensemble-probing.js';
+import { probeSizesOf, type EnsembleSpec } from '../spec/index.js';
+import type { ArtifactStore } from './artifacts.js';
+import type { EnsembleStore } from './store.js';
+
+export const finalKey = (id: string, run: number) => `${id}/run-${run}.final`;
+export const hitsKey = (id: string, run: number) => `${id}/run-${run}.hits`;
+export const probeResultKey = (id: string, run: number, size: number, job: number) => `${id}/probe/run-${run}-size-${size}/job-${job}.json`;
+
+/** BullMQ job descriptions of the probes of one finished run. */
+export function probeJobsOf(id: string, spec: EnsembleSpec, runIndex: number, final: { x: Float64Array; y: Float64Array; count: number }, attempts = 5) {
+  const p = spec.probe;
+  if (!p) return [];
+  return probeSizesOf(spec).flatMap((size) =>
+    probeTasksOf(p, spec.seed, runIndex, size, prefixDigest(final, size)).map((task) => ({
+      name: 'probe',
+      data: { v: JOB_PAYLOAD_VERSION, kind: 'probe', ensembleId: id, runIndex, size, task } satisfies ProbeJobData,
+      opts: {
+        jobId: `${id}-p${runIndex}-${size}-${task.jobIndex}`,
+        attempts,
+        backoff: { type: 'exponential' as const, delay: 5000 },
+        removeOnComplete: { age: 7 * 86400, count: 10000 },
+        removeOnFail: { age: 30 * 86400 },
+      },
+    })),
+  );
+}
+
+/** RunSink.finalPositions of a farm worker: keep the final state, then queue the run's probes. */
+export async function keepFinalAndQueueProbes(store: EnsembleStore, artifacts: ArtifactStore, queue: Queue, run: RunTaskData, finalBytes: Uint8Array): Promise<void> {
+  const rec = await store.get(run.ensembleId);
+  if (!rec?.spec.probe) return;
+  await artifacts.put(finalKey(run.ensembleId, run.runIndex), finalBytes);
+  const jobs = probeJobsOf(run.ensembleId, rec.spec, run.runIndex, positionsOf(decodeCheckpoint(finalBytes)));
+  for (let i = 0; i < jobs.length; i += 500) await queue.addBulk(jobs.slice(i, i + 500));
+}
+
+export interface FarmProbeEvents {
+  /** Walkers probed by a job this process ran. */
+  onProbed?: (walkers: number) => void;
+  log?: (line: string) => void;
+}
+
+/** The ProbeJobHandler of a farm worker process. */
+export class FarmProbeHandler implements ProbeJobHandler {
+  readonly pool: ProbeThreadPool;
+  /** The last final state read (jobs of one cluster tend to come together). */
+  private cached: { key: string; final: { x: Float64Array; y: Float64Array; count: number } } | null = null;
+
+  constructor(
+    private readonly store: EnsembleStore,
+    private readonly artifacts: ArtifactStore,
+    threads: number,
+    private readonly events: FarmProbeEvents = {},
+  ) {
+    this.pool = new ProbeThreadPool(threads);
+  }
+
+  private async finalOf(id: string, run: number): Promise<{ x: Float64Array; y: Float64Array; count: number }> {
+    const key = finalKey(id, run);
+    if (this.cached?.key === key) return this.cached.final;
+    const bytes = await this.artifacts.get(key);
+    if (!bytes) throw new ProbeJobRefused(`probe of run ${run}: its final positions (${key}) are not in the artifact store`);
+    const final = positionsOf(decodeCheckpoint(bytes));
+    this.cached = { key, final };
+    return final;
+  }
+
+  async run(d: ProbeJobData): Promise<'done' | 'skipped' | 'cancelled'> {
+    const { ensembleId: id, runIndex, size } = d;
+    const j = d.task.jobIndex;
+    if (await this.store.isCancelled(id)) return 'cancelled';
+    if (await this.store.hasHarmonic(id, runIndex, size)) return 'skipped';
+    const rec = await this.store.get(id);
+    if (!rec) throw new ProbeJobRefused(`probe job of unknown ensemble ${id}`);
+    const p = rec.spec.probe;
+    if (!p) throw new ProbeJobRefused(`ensemble ${id} has no [probe] table`);
+    if (!probeSizesOf(rec.spec).includes(size)) throw new ProbeJobRefused(`probe size ${size} is not one of the ensemble's sizes`);
+    if (!(j >= 0 && j < p.jobs)) throw new ProbeJobRefused(`probe job index ${j} is outside 0..${p.jobs - 1}`);
+    const rkey = probeResultKey(id, runIndex, size, j);
+    if (!(await this.artifacts.get(rkey))) {
+      const final = await this.finalOf(id, runIndex);
+      if (size > final.count) throw new ProbeJobRefused(`probe size ${size} exceeds the cluster's ${final.count} particles`);
+      let result: ProbeResult;
+      try {
+        result = await this.pool.run(`${id}:${runIndex}:${size}`, () => clusterPrefix(final, size), d.task);
+      } catch (err) {
+        if ((err as Error).name === 'ProbeJobFailed' && /must|digest/.test((err as Error).message)) throw new ProbeJobRefused((err as Error).message);
+        throw err;
+      }
+      await this.artifacts.put(rkey, Buffer.from(JSON.stringify(result)));
+      this.events.onProbed?.(result.walkers);
+    }
+    const stored = await this.store.probeJobStored(id, runIndex, size, j);
+    if (stored >= p.jobs) await this.analyse(id, rec.spec, runIndex, size);
+    return 'done';
+  }
+
+  /** Analyse a (run, size) whose job results are all stored, and keep the record. */
+  private async analyse(id: string, spec: EnsembleSpec, runIndex: number, size: number): Promise<void> {
+    const p = spec.probe!;
+    const results: ProbeResult[] = [];
+    for (let j = 0; j < p.jobs; j++) {
+      const bytes = await this.artifacts.get(probeResultKey(id, runIndex, size, j));
+      if (!bytes) throw new Error(`probe of run ${runIndex} at size ${size}: result of job ${j} is marked stored but missing`);
+      results.push(JSON.parse(Buffer.from(bytes).toString('utf8')) as ProbeResult);
+    }
+    const final = await this.finalOf(id, runIndex);
+    const { record, counts } = analyseProbedCluster(clusterPrefix(final, size), results, p, runIndex, size);
+    if (size === spec.particles) await this.artifacts.put(hitsKey(id, runIndex), new Uint8Array(counts.buffer, counts.byteOffset, counts.byteLength));
+    if (await this.store.saveHarmonic(id, record)) this.events.log?.(`ensemble ${id}: run ${runIndex} probed at size ${size}`);
+  }
+
+  async failed(d: ProbeJobData, reason: string): Promise<void> {
+    await this.store.probeFailed(d.ensembleId, d.runIndex, d.size, `job ${d.task.jobIndex}: ${reason}`);
+  }
+
+  async close(): Promise<void> {
+    await this.pool.close();
+  }
+}

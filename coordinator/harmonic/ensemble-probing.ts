@@ -1,0 +1,76 @@
+/**
+ * Probing the clusters of an ensemble ([probe] table of the spec): the same
+ * planning and analysis for the farm and the embedded mode.
+ *
+ * What is probed: cluster i of the ensemble at each size n of
+ * probeSizesOf(spec) (the [probe] at_sizes and the final size). The set at
+ * size n is the first n particle centres of the finished cluster, which is
+ * exactly the cluster when it had n particles (particles are stored in
+ * arrival order and never move). It is probed as disks of radius 1 (one
+ * particle diameter) about the centres: the capture disks a growth walker's
+ * centre sees, so the measure found is each particle's growth probability
+ * (see worker/probe-2d.ts).
+ *
+ * Seeds: the probe of (run i, size n) uses the 64-bit seed
+ *   s(i, n) = mix64(mix64(ensemble seed ⊕ mix64(i + 1)) ⊕ mix64(n + 2^40))
+ * (SplitMix64 finaliser, worker/random.ts) and its job j the stream
+ * Random.forRun(s(i, n), j, STREAM_PROBE). So the probe of a cluster depends
+ * only on (spec, run index, size, engine version), never on who runs which
+ * job or in which order, and the hit counts of the jobs add up.
+ */
+import type { CheckpointData } from '../../proto/convert.js';
+import { addProbeCounts, diskSetDigest, planProbeJobs, DEFAULT_PROBE_LAUNCH_MARGIN, type DiskSet, type ProbeResult, type ProbeTask } from '../../worker/probe-2d.js';
+import { mix64, parseSeed } from '../../worker/random.js';
+import type { ProbeSpec } from '../spec/index.js';
+import { analyseResults } from './probe-run.js';
+import { clusterHarmonicOf, type ClusterHarmonic } from './cluster-harmonic.js';
+
+/** Contact radius of a grown cluster's particles as probed (one particle diameter). */
+export const CLUSTER_CONTACT_RADIUS = 1;
+
+const MASK64 = (1n << 64n) - 1n;
+
+/** The probe seed of (run, size); see the file header. */
+export function probeSeedOf(ensembleSeed: string, runIndex: number, size: number): string {
+  const a = mix64(parseSeed(ensembleSeed) ^ mix64(BigInt(runIndex) + 1n));
+  return (mix64(a ^ mix64(BigInt(size) + (1n << 40n))) & MASK64).toString();
+}
+
+/** The set of the first `size` particles of a finished cluster (views, no copy). */
+export function clusterPrefix(final: { x: Float64Array; y: Float64Array; count: number }, size: number): DiskSet {
+  if (!Number.isInteger(size) || size < 1 || size > final.count) throw new RangeError(`probe size ${size} must be an integer from 1 to the cluster's ${final.count} particles`);
+  return { count: size, x: final.x.subarray(0, size), y: final.y.subarray(0, size), r: CLUSTER_CONTACT_RADIUS };
+}
+
+/** Positions of a final-state checkpoint. */
+export function positionsOf(c: CheckpointData): { x: Float64Array; y: Float64Array; count: number } {
+  return { x: c.state.x, y: c.state.y, count: c.state.count };
+}
+
+/** The probe jobs of (run, size) for a set with the given digest. */
+export function probeTasksOf(p: ProbeSpec, ensembleSeed: string, runIndex: number, size: number, digest: string): ProbeTask[] {
+  return planProbeJobs(digest, probeSeedOf(ensembleSeed, runIndex, size), p.walkers, p.jobs, p.contactSample, p.minStep, DEFAULT_PROBE_LAUNCH_MARGIN);
+}
+
+/** Digest of the set of (final cluster, size). */
+export function prefixDigest(final: { x: Float64Array; y: Float64Array; count: number }, size: number): string {
+  return diskSetDigest(clusterPrefix(final, size));
+}
+
+/**
+ * Analyse the complete job results of one (run, size): they must be exactly
+ * the planned jobs 0 … jobs−1 (checked), in any order.
+ */
+export function analyseProbedCluster(
+  set: DiskSet, results: readonly ProbeResult[], p: ProbeSpec, runIndex: number, size: number,
+): { record: ClusterHarmonic; counts: Float64Array } {
+  const sorted = [...results].sort((a, b) => a.jobIndex - b.jobIndex);
+  if (sorted.length !== p.jobs || sorted.some((r, j) => r.jobIndex !== j))
+    throw new RangeError(`probe of run ${runIndex} at size ${size}: expected job results 0..${p.jobs - 1}, got ${sorted.map((r) => r.jobIndex).join(',')}`);
+  const digest = diskSetDigest(set);
+  for (const r of sorted) if (r.geometryDigest !== digest) throw new RangeError(`probe of run ${runIndex} at size ${size}: job ${r.jobIndex} ran on set ${r.geometryDigest}, not ${digest}`);
+  const a = analyseResults(set, sorted, p.q);
+  return { record: clusterHarmonicOf(runIndex, size, a.measures, a.counts), counts: a.counts };
+}
+
+export { addProbeCounts };
