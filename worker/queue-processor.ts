@@ -49,6 +49,9 @@ export interface RunJobData {
 export interface ProbeJobData {
   v: number;
   kind: 'probe';
+  /** What is probed: a cluster of an ensemble (default) or the point set of a probe request. */
+  source?: 'cluster' | 'request';
+  /** The ensemble id, or the probe request id. */
   ensembleId: string;
   runIndex: number;
   size: number;
@@ -76,6 +79,7 @@ export function readProbeJobData(data: unknown): ProbeJobData {
   if (!Number.isSafeInteger(d.runIndex) || (d.runIndex as number) < 0) throw new ContractError(`probe job payload runIndex is ${JSON.stringify(d.runIndex)}, must be a non-negative integer`);
   if (!Number.isSafeInteger(d.size) || (d.size as number) < 1) throw new ContractError(`probe job payload size is ${JSON.stringify(d.size)}, must be a positive integer`);
   if (typeof d.task !== 'object' || d.task === null) throw new ContractError('probe job payload task is missing');
+  if (d.source !== undefined && d.source !== 'cluster' && d.source !== 'request') throw new ContractError(`probe job payload source is ${JSON.stringify(d.source)}, must be "cluster" or "request"`);
   try {
     checkProbeTask(d.task);
   } catch (err) {

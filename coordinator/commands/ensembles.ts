@@ -17,7 +17,8 @@ export function statusLine(s: EnsembleStatus): string {
   return (
     `${s.id}  ${s.state.padEnd(9)} ${s.name}  runs ${r.done}/${r.planned} done, ${r.running} running, ${r.queued} queued, ${r.failed} failed; ` +
     `${s.particles.done}/${s.particles.total} particles; ${Math.round(s.throughput)} particles/s; ${s.state === 'running' ? `about ${eta} left` : ''}`.trimEnd() +
-    (s.adaptive ? `; adaptive: ${s.adaptive.outcome} after ${s.adaptive.batches} batch(es), cap ${s.adaptive.maxClusters} clusters` : '')
+    (s.adaptive ? `; adaptive: ${s.adaptive.outcome} after ${s.adaptive.batches} batch(es), cap ${s.adaptive.maxClusters} clusters` : '') +
+    (s.probes ? `; probes ${s.probes.done}/${s.probes.planned} analysed${s.probes.failed > 0 ? `, ${s.probes.failed} failed (first: run ${s.probes.failures[0].runIndex} at N = ${s.probes.failures[0].size}: ${s.probes.failures[0].reason})` : ''}` : '')
   );
 }
 

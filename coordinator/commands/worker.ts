@@ -8,6 +8,7 @@ import { Option, type Command } from 'commander';
 import { advanceAdaptive, startAdaptiveSweeps } from '../farm/adaptive.js';
 import { DirectoryArtifactStore } from '../farm/artifacts.js';
 import { FarmProbeHandler, keepFinalAndQueueProbes } from '../farm/probe-jobs.js';
+import { ProbeRequestStore } from '../farm/probe-requests.js';
 import type { RunSink } from '../../worker/queue-processor.js';
 import { newRegistry, serveMetrics, workerMetrics } from '../metrics/index.js';
 import { RunWorker } from '../../worker/queue-processor.js';
@@ -50,7 +51,7 @@ export function register(program: Command): void {
     // batch (coordinator/farm/adaptive.ts: an atomic Redis step, so a batch is never added twice)
     const store = farm.store;
     const artifacts = new DirectoryArtifactStore(opts.artifacts ?? process.env.TENDRIL_ARTIFACTS ?? 'tendril-artifacts');
-    const probes = new FarmProbeHandler(store, artifacts, concurrency, { onProbed: metrics.onProbed, log });
+    const probes = new FarmProbeHandler(store, artifacts, concurrency, { onProbed: metrics.onProbed, log }, new ProbeRequestStore(farm.redis, farm.prefix));
     const sink: RunSink = {
       finalPositions: (run, bytes) => keepFinalAndQueueProbes(store, artifacts, farm.queue, run, bytes),
       isCancelled: (e) => store.isCancelled(e),

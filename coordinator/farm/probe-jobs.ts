@@ -24,10 +24,14 @@ import { analyseProbedCluster, clusterPrefix, positionsOf, prefixDigest, probeTa
 import { probeSizesOf, type EnsembleSpec } from '../spec/index.js';
 import type { ArtifactStore } from './artifacts.js';
 import type { EnsembleStore } from './store.js';
+import type { ProbeRequestStore } from './probe-requests.js';
+import { analyseResults } from '../harmonic/probe-run.js';
+import type { DiskSet } from '../../worker/probe-2d.js';
 
 export const finalKey = (id: string, run: number) => `${id}/run-${run}.final`;
 export const hitsKey = (id: string, run: number) => `${id}/run-${run}.hits`;
 export const probeResultKey = (id: string, run: number, size: number, job: number) => `${id}/probe/run-${run}-size-${size}/job-${job}.json`;
+export const requestResultKey = (id: string, job: number) => `${id}/request/job-${job}.json`;
 
 /** BullMQ job descriptions of the probes of one finished run. */
 export function probeJobsOf(id: string, spec: EnsembleSpec, runIndex: number, final: { x: Float64Array; y: Float64Array; count: number }, attempts = 5) {
@@ -69,13 +73,54 @@ export class FarmProbeHandler implements ProbeJobHandler {
   /** The last final state read (jobs of one cluster tend to come together). */
   private cached: { key: string; final: { x: Float64Array; y: Float64Array; count: number } } | null = null;
 
+  private cachedRequest: { id: string; set: DiskSet } | null = null;
+
   constructor(
     private readonly store: EnsembleStore,
     private readonly artifacts: ArtifactStore,
     threads: number,
     private readonly events: FarmProbeEvents = {},
+    private readonly requests?: ProbeRequestStore,
   ) {
     this.pool = new ProbeThreadPool(threads);
+  }
+
+  private async requestSet(id: string): Promise<DiskSet> {
+    if (this.cachedRequest?.id === id) return this.cachedRequest.set;
+    const set = await this.requests!.set(id);
+    if (!set) throw new ProbeJobRefused(`probe request ${id} has no point set`);
+    this.cachedRequest = { id, set };
+    return set;
+  }
+
+  /** A job of a probe request (a user's point set; see probe-requests.ts). */
+  private async runRequest(d: ProbeJobData): Promise<'done' | 'skipped'> {
+    const req = this.requests;
+    if (!req) throw new ProbeJobRefused('this worker has no probe-request store');
+    const id = d.ensembleId;
+    if (await req.hasMeasures(id)) return 'skipped';
+    const s = await req.settings(id);
+    if (!s) throw new ProbeJobRefused(`probe job of unknown probe request ${id}`);
+    const j = d.task.jobIndex;
+    if (!(j >= 0 && j < s.jobs)) throw new ProbeJobRefused(`probe job index ${j} is outside 0..${s.jobs - 1}`);
+    const key = requestResultKey(id, j);
+    if (!(await this.artifacts.get(key))) {
+      const result = await this.pool.run(`${id}:request`, () => this.requestSet(id), d.task);
+      await this.artifacts.put(key, Buffer.from(JSON.stringify(result)));
+      this.events.onProbed?.(result.walkers);
+    }
+    if ((await req.jobStored(id, j)) >= s.jobs) {
+      const results: ProbeResult[] = [];
+      for (let k = 0; k < s.jobs; k++) {
+        const b = await this.artifacts.get(requestResultKey(id, k));
+        if (!b) throw new Error(`probe request ${id}: result of job ${k} is marked stored but missing`);
+        results.push(JSON.parse(Buffer.from(b).toString('utf8')) as ProbeResult);
+      }
+      const set = await this.requestSet(id);
+      const a = analyseResults(set, results.sort((x, y) => x.jobIndex - y.jobIndex), s.q);
+      if (await req.saveMeasures(id, a.measures, a.counts)) this.events.log?.(`probe request ${id}: analysed`);
+    }
+    return 'done';
   }
 
   private async finalOf(id: string, run: number): Promise<{ x: Float64Array; y: Float64Array; count: number }> {
@@ -89,6 +134,7 @@ export class FarmProbeHandler implements ProbeJobHandler {
   }
 
   async run(d: ProbeJobData): Promise<'done' | 'skipped' | 'cancelled'> {
+    if (d.source === 'request') return this.runRequest(d);
     const { ensembleId: id, runIndex, size } = d;
     const j = d.task.jobIndex;
     if (await this.store.isCancelled(id)) return 'cancelled';
@@ -134,6 +180,10 @@ export class FarmProbeHandler implements ProbeJobHandler {
   }
 
   async failed(d: ProbeJobData, reason: string): Promise<void> {
+    if (d.source === 'request') {
+      await this.requests?.failed(d.ensembleId, `job ${d.task.jobIndex}: ${reason}`);
+      return;
+    }
     await this.store.probeFailed(d.ensembleId, d.runIndex, d.size, `job ${d.task.jobIndex}: ${reason}`);
   }
 

@@ -6,7 +6,12 @@
  *   GET  /ensembles                  list with status, newest first
  *   GET  /ensembles/:id              status: runs by state, particles done, throughput, ETA
  *   POST /ensembles/:id/cancel       cancel; token required
- *   GET  /ensembles/:id/summary?format=json|csv|pb
+ *   GET  /ensembles/:id/summary?format=json|csv|pb[&table=NAME]
+ *   POST /probes                     probe a point set of your own on the farm: body = {csv | points,
+ *                                    walkers, seed, jobs?, q?, contact_sample?, min_step?, name?};
+ *                                    token required; 201 {id, status}
+ *   GET  /probes/:id                 state, jobs done, and the harmonic measures once analysed
+ *   GET  /probes/:id/hits            CSV index,x,y,r,hits,measure per disk (once analysed)
  *   GET  /metrics                    Prometheus text format
  *   GET  /health
  *
@@ -26,6 +31,7 @@ import type { EnsembleStore } from '../farm/store.js';
 import { ENSEMBLE_ID_PATTERN } from '../plan.js';
 import { parseSpecText, SpecError, SPEC_SCHEMA, validateSpec, type SpecLimits } from '../spec/index.js';
 import { farmSummary } from '../farm/summary.js';
+import { launchProbeRequest, ProbeRequestError, ProbeRequestStore, validateProbeRequest } from '../farm/probe-requests.js';
 import { CSV_TABLE_NAMES, defaultSummaryOptions, renderSummary, SUMMARY_FORMATS, type SummaryFormat, type SummaryOptions } from '../summary/index.js';
 
 export interface ApiOptions {
@@ -37,6 +43,8 @@ export interface ApiOptions {
   registry?: Registry;
   /** Largest request body in bytes (default 64 KiB). */
   bodyLimit?: number;
+  /** Largest probe-request body in bytes (default 128 MiB: point sets are large). */
+  probeBodyLimit?: number;
   /** Summary options; default defaultSummaryOptions() (the full analysis, with the spec's [analysis] settings). */
   summary?: SummaryOptions;
   logger?: boolean;
@@ -71,6 +79,14 @@ const STATUS_SCHEMA = {
       type: ['object', 'null'],
       description: 'adaptive ensembles: outcome (running, target-reached, cap-reached), batches planned, cluster cap',
       properties: { outcome: { type: 'string' }, batches: { type: 'integer' }, maxClusters: { type: 'integer' } },
+    },
+    probes: {
+      type: ['object', 'null'],
+      description: 'ensembles with [probe]: (run, size) probes planned, analysed and failed',
+      properties: {
+        planned: { type: 'integer' }, done: { type: 'integer' }, failed: { type: 'integer' },
+        failures: { type: 'array', items: { type: 'object', properties: { runIndex: { type: 'integer' }, size: { type: 'integer' }, reason: { type: 'string' } } } },
+      },
     },
   },
 } as const;
@@ -202,6 +218,42 @@ export function buildApi(o: ApiOptions): FastifyInstance {
         .send(Buffer.from(renderSummary(got.summary, format as SummaryFormat, table)));
     },
   );
+
+  const probeStore = new ProbeRequestStore(o.store.redis, o.store.prefix);
+  const probeLimit = o.probeBodyLimit ?? 128 * 1024 * 1024;
+  const probeStatus = async (id: string) => {
+    checkId(id);
+    const s = await probeStore.status(id);
+    if (!s) throw new ApiError(404, `id: "${id}" is not a probe request of this farm`);
+    return s;
+  };
+
+  app.post(
+    '/probes',
+    { preHandler: requireToken, bodyLimit: probeLimit, schema: { response: { 201: { type: 'object', properties: { id: { type: 'string' }, status: { type: 'string' } } }, 400: ERROR_SCHEMA, 401: ERROR_SCHEMA } } },
+    async (req, reply) => {
+      let v;
+      try {
+        v = validateProbeRequest(req.body);
+      } catch (err) {
+        if (err instanceof ProbeRequestError) throw new ApiError(400, err.message);
+        throw err;
+      }
+      const id = await launchProbeRequest(probeStore, o.queue, v.settings, v.set);
+      return reply.code(201).send({ id, status: `/probes/${id}` });
+    },
+  );
+
+  app.get<{ Params: { id: string } }>('/probes/:id', { schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA } } }, async (req) => probeStatus(req.params.id));
+
+  app.get<{ Params: { id: string } }>('/probes/:id/hits', { schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA } } }, async (req, reply) => {
+    const s = await probeStatus(req.params.id);
+    const [set, hits] = await Promise.all([probeStore.set(s.id), probeStore.hits(s.id)]);
+    if (!set || !hits) throw new ApiError(409, `id: "${s.id}" is not analysed yet (state ${s.state}, ${s.jobs.done} of ${s.jobs.planned} jobs done)`);
+    const lines = ['index,x,y,r,hits,measure'];
+    for (let i = 0; i < set.count; i++) lines.push(`${i},${set.x[i]},${set.y[i]},${typeof set.r === 'number' ? set.r : set.r[i]},${hits[i]},${hits[i] / s.walkers}`);
+    return reply.header('content-type', 'text/csv; charset=utf-8').header('content-disposition', `attachment; filename="${s.id}-hits.csv"`).send(lines.join('\n') + '\n');
+  });
 
   app.get('/metrics', async (_req, reply) => {
     if (!o.registry) throw new ApiError(404, 'GET /metrics: metrics are not enabled');

@@ -1,0 +1,218 @@
+/**
+ * Probe requests: a user's own point set (a digitised deposit, a crack
+ * pattern, …) probed on the farm, submitted through the HTTP API
+ * (POST /probes). The set and the settings are kept in Redis; the probe is
+ * split into seeded jobs on the shared queue (the same ProbeJobData as the
+ * probes of ensembles, with source "request"), and the worker that stores
+ * the last job result analyses them (coordinator/harmonic/probe-run.ts
+ * analyseResults: the same analysis as `tendril probe`). Job j uses
+ * Random.forRun(seed, j, STREAM_PROBE), so the measures equal those of
+ * `tendril probe` with the same set, seed, walkers and jobs.
+ *
+ * Keys (P = prefix):
+ *   P:probe:ID        hash: request (settings JSON), set (float64 x | y | r, little-endian),
+ *                     created_at_ms, measures (HarmonicMeasures JSON, once analysed),
+ *                     hits (float64 per disk, once analysed), failed (reason)
+ *   P:probe:ID:done   set: job indices whose results are stored
+ *   P:probes          sorted set of request ids by creation time
+ * Job results live in the artifact store under ID/request/job-J.json.
+ */
+import { randomBytes } from 'node:crypto';
+import type { Queue } from 'bullmq';
+import type { Redis } from 'ioredis';
+import { diskSetDigest, planProbeJobs, DEFAULT_PROBE_LAUNCH_MARGIN, DEFAULT_PROBE_MIN_STEP, type DiskSet } from '../../worker/probe-2d.js';
+import { JOB_PAYLOAD_VERSION, type ProbeJobData } from '../../worker/queue-processor.js';
+import { parseDiskCsv } from '../harmonic/probe-input.js';
+import type { HarmonicMeasures } from '../harmonic/probe-analysis.js';
+import { DEFAULT_PROBE_Q } from '../spec/index.js';
+
+export interface ProbeRequestSettings {
+  name: string;
+  walkers: number;
+  seed: string;
+  jobs: number;
+  q: number[];
+  contactSample: number;
+  minStep: number;
+}
+
+export class ProbeRequestError extends Error {
+  override name = 'ProbeRequestError';
+}
+
+/** Most disks in one request. */
+export const MAX_REQUEST_DISKS = 2_000_000;
+
+const isInt = (v: unknown, lo: number, hi: number): v is number => typeof v === 'number' && Number.isSafeInteger(v) && v >= lo && v <= hi;
+
+/**
+ * Check a request body: { name?, csv? | points?: {x: [...], y: [...], r: number | [...]},
+ * walkers, seed, jobs?, q?, contact_sample?, min_step? }. Throws ProbeRequestError with one
+ * line naming the field, the value and what is allowed.
+ */
+export function validateProbeRequest(body: unknown): { settings: ProbeRequestSettings; set: DiskSet & { x: Float64Array; y: Float64Array; r: Float64Array } } {
+  const fail = (m: string): never => {
+    throw new ProbeRequestError(m);
+  };
+  const show = (v: unknown) => {
+    const s = JSON.stringify(v);
+    return s === undefined ? 'nothing' : s.length > 60 ? s.slice(0, 57) + '...' : s;
+  };
+  if (typeof body !== 'object' || body === null || Array.isArray(body)) fail('body: not allowed; allowed: a JSON object with walkers, seed and csv or points');
+  const b = body as Record<string, unknown>;
+  const known = ['name', 'csv', 'points', 'walkers', 'seed', 'jobs', 'q', 'contact_sample', 'min_step'];
+  for (const k of Object.keys(b)) if (!known.includes(k)) fail(`${k}: unknown field; allowed fields: ${known.join(', ')}`);
+  if (b.name !== undefined && (typeof b.name !== 'string' || !/^[A-Za-z0-9][A-Za-z0-9 _.,:()+-]{0,99}$/.test(b.name))) fail(`name: ${show(b.name)} is not allowed; allowed: 1 to 100 letters, digits, spaces or _.,:()+-`);
+  if (!isInt(b.walkers, 100, 1e10)) fail(`walkers: ${show(b.walkers)} is out of range; allowed: an integer from 100 to 10000000000`);
+  const walkers = b.walkers as number;
+  const seedOk = (typeof b.seed === 'string' && /^[0-9]{1,20}$/.test(b.seed) && BigInt(b.seed) < 1n << 64n) || isInt(b.seed, 0, Number.MAX_SAFE_INTEGER);
+  if (!seedOk) fail(`seed: ${show(b.seed)} is not allowed; allowed: an unsigned 64-bit integer (decimal string, or an integer below 2^53)`);
+  const jobs = b.jobs ?? Math.min(walkers, Math.max(2, Math.ceil(walkers / 250_000)));
+  if (!isInt(jobs, 1, Math.min(4096, walkers))) fail(`jobs: ${show(b.jobs)} is out of range; allowed: an integer from 1 to ${Math.min(4096, walkers)}`);
+  const q = b.q ?? [...DEFAULT_PROBE_Q];
+  if (!Array.isArray(q) || q.length < 1 || q.length > 401 || q.some((v) => typeof v !== 'number' || !(v >= -50 && v <= 50)) || new Set(q).size !== q.length)
+    fail(`q: ${show(b.q)} is not allowed; allowed: 1 to 401 distinct numbers from -50 to 50`);
+  const cs = b.contact_sample ?? 4000;
+  if (!isInt(cs, 3, 20000)) fail(`contact_sample: ${show(b.contact_sample)} is out of range; allowed: an integer from 3 to 20000`);
+  const minStep = b.min_step ?? DEFAULT_PROBE_MIN_STEP;
+  if (typeof minStep !== 'number' || !(minStep > 0 && minStep <= 1)) fail(`min_step: ${show(b.min_step)} is out of range; allowed: a number above 0 up to 1`);
+  if ((b.csv === undefined) === (b.points === undefined)) fail('csv, points: exactly one must be given; allowed: csv (text of x,y,r rows) or points ({x: [...], y: [...], r: number or [...]})');
+  let x: Float64Array, y: Float64Array, r: Float64Array;
+  if (b.csv !== undefined) {
+    if (typeof b.csv !== 'string') fail(`csv: ${show(b.csv)} is not allowed; allowed: text of x,y,r rows`);
+    try {
+      const s = parseDiskCsv(b.csv as string, 'csv');
+      x = s.x; y = s.y; r = s.r as Float64Array;
+    } catch (e) {
+      return fail((e as Error).message);
+    }
+  } else {
+    const p = b.points as Record<string, unknown>;
+    if (typeof p !== 'object' || p === null || !Array.isArray(p.x) || !Array.isArray(p.y)) return fail(`points: ${show(b.points)} is not allowed; allowed: {x: [...], y: [...], r: number or [...]} with x and y of equal length`);
+    const n = p.x.length;
+    if (n < 1 || p.y.length !== n) fail(`points.y: ${p.y.length} values is not allowed; allowed: as many as points.x (${n}), at least 1`);
+    x = new Float64Array(n); y = new Float64Array(n); r = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      const xi = p.x[i], yi = p.y[i];
+      if (typeof xi !== 'number' || !Number.isFinite(xi)) fail(`points.x[${i}]: ${show(xi)} is not allowed; allowed: a finite number`);
+      if (typeof yi !== 'number' || !Number.isFinite(yi)) fail(`points.y[${i}]: ${show(yi)} is not allowed; allowed: a finite number`);
+      const ri = typeof p.r === 'number' ? p.r : Array.isArray(p.r) ? p.r[i] : undefined;
+      if (typeof ri !== 'number' || !(Number.isFinite(ri) && ri > 0)) fail(`points.r${Array.isArray(p.r) ? `[${i}]` : ''}: ${show(ri)} is not allowed; allowed: a finite number > 0 (one for all, or one per point)`);
+      x[i] = xi as number; y[i] = yi as number; r[i] = ri as number;
+    }
+    if (Array.isArray(p.r) && p.r.length !== n) fail(`points.r: ${p.r.length} values is not allowed; allowed: one number, or as many as points.x (${n})`);
+  }
+  if (x!.length > MAX_REQUEST_DISKS) fail(`points: ${x!.length} disks is out of range; allowed: at most ${MAX_REQUEST_DISKS}`);
+  return {
+    settings: { name: (b.name as string | undefined) ?? 'probe', walkers, seed: BigInt(b.seed as string | number).toString(), jobs: jobs as number, q: [...(q as number[])], contactSample: Math.min(walkers, cs as number), minStep: minStep as number },
+    set: { count: x!.length, x: x!, y: y!, r: r! },
+  };
+}
+
+export interface ProbeRequestStatus {
+  id: string;
+  name: string;
+  state: 'running' | 'done' | 'failed';
+  createdAt: string;
+  disks: number;
+  walkers: number;
+  jobs: { planned: number; done: number };
+  failure: string | null;
+  measures: HarmonicMeasures | null;
+}
+
+export class ProbeRequestStore {
+  constructor(readonly redis: Redis, readonly prefix: string) {}
+
+  private k(id: string, part?: string): string {
+    return part ? `${this.prefix}:probe:${id}:${part}` : `${this.prefix}:probe:${id}`;
+  }
+
+  async create(id: string, settings: ProbeRequestSettings, set: { count: number; x: Float64Array; y: Float64Array; r: Float64Array }, createdAtMs = Date.now()): Promise<void> {
+    const n = set.count;
+    const bytes = Buffer.alloc(24 * n);
+    for (let i = 0; i < n; i++) {
+      bytes.writeDoubleLE(set.x[i], 8 * i);
+      bytes.writeDoubleLE(set.y[i], 8 * (n + i));
+      bytes.writeDoubleLE(set.r[i], 8 * (2 * n + i));
+    }
+    const ok = await this.redis.hsetnx(this.k(id), 'request', JSON.stringify({ ...settings, disks: n, digest: diskSetDigest(set) }));
+    if (!ok) throw new Error(`probe request ${id} exists already`);
+    await this.redis.multi().hset(this.k(id), { set: bytes, created_at_ms: String(createdAtMs) }).zadd(`${this.prefix}:probes`, createdAtMs, id).exec();
+  }
+
+  async settings(id: string): Promise<(ProbeRequestSettings & { disks: number; digest: string }) | null> {
+    const s = await this.redis.hget(this.k(id), 'request');
+    return s ? JSON.parse(s) : null;
+  }
+
+  async set(id: string): Promise<DiskSet | null> {
+    const b = await this.redis.hgetBuffer(this.k(id), 'set');
+    if (!b) return null;
+    const n = b.length / 24;
+    const all = new Float64Array(3 * n);
+    for (let i = 0; i < 3 * n; i++) all[i] = b.readDoubleLE(8 * i);
+    return { count: n, x: all.subarray(0, n), y: all.subarray(n, 2 * n), r: all.subarray(2 * n) };
+  }
+
+  async jobStored(id: string, job: number): Promise<number> {
+    const r = await this.redis.multi().sadd(this.k(id, 'done'), String(job)).scard(this.k(id, 'done')).exec();
+    return Number(r?.[1]?.[1] ?? 0);
+  }
+
+  async hasMeasures(id: string): Promise<boolean> {
+    return (await this.redis.hexists(this.k(id), 'measures')) === 1;
+  }
+
+  async saveMeasures(id: string, m: HarmonicMeasures, counts: Float64Array): Promise<boolean> {
+    const ok = await this.redis.hsetnx(this.k(id), 'measures', JSON.stringify(m));
+    if (ok) await this.redis.multi().hset(this.k(id), 'hits', Buffer.from(counts.buffer, counts.byteOffset, counts.byteLength)).hdel(this.k(id), 'failed').exec();
+    return ok === 1;
+  }
+
+  async failed(id: string, reason: string): Promise<void> {
+    if (!(await this.hasMeasures(id))) await this.redis.hset(this.k(id), 'failed', reason.slice(0, 500));
+  }
+
+  async hits(id: string): Promise<Float64Array | null> {
+    const b = await this.redis.hgetBuffer(this.k(id), 'hits');
+    if (!b) return null;
+    const out = new Float64Array(b.length / 8);
+    for (let i = 0; i < out.length; i++) out[i] = b.readDoubleLE(8 * i);
+    return out;
+  }
+
+  async status(id: string): Promise<ProbeRequestStatus | null> {
+    const [s, created, measures, failed, done] = await Promise.all([
+      this.settings(id), this.redis.hget(this.k(id), 'created_at_ms'), this.redis.hget(this.k(id), 'measures'), this.redis.hget(this.k(id), 'failed'), this.redis.scard(this.k(id, 'done')),
+    ]);
+    if (!s) return null;
+    return {
+      id, name: s.name, state: measures ? 'done' : failed ? 'failed' : 'running', createdAt: new Date(Number(created ?? 0)).toISOString(),
+      disks: s.disks, walkers: s.walkers, jobs: { planned: s.jobs, done }, failure: failed, measures: measures ? JSON.parse(measures) : null,
+    };
+  }
+
+  async purge(id: string): Promise<void> {
+    await this.redis.multi().del(this.k(id), this.k(id, 'done')).zrem(`${this.prefix}:probes`, id).exec();
+  }
+}
+
+/** A fresh request id: "p" + base-36 time + 8 random hex digits. */
+export function newProbeRequestId(now = Date.now()): string {
+  return `p${now.toString(36)}${randomBytes(4).toString('hex')}`;
+}
+
+/** Record a request and queue its jobs (job ids "ID-J": queued once). */
+export async function launchProbeRequest(store: ProbeRequestStore, queue: Queue, settings: ProbeRequestSettings, set: { count: number; x: Float64Array; y: Float64Array; r: Float64Array }, attempts = 5): Promise<string> {
+  const id = newProbeRequestId();
+  await store.create(id, settings, set);
+  const tasks = planProbeJobs(diskSetDigest(set), settings.seed, settings.walkers, settings.jobs, settings.contactSample, settings.minStep, DEFAULT_PROBE_LAUNCH_MARGIN);
+  const jobs = tasks.map((task) => ({
+    name: 'probe',
+    data: { v: JOB_PAYLOAD_VERSION, kind: 'probe', source: 'request', ensembleId: id, runIndex: 0, size: set.count, task } satisfies ProbeJobData,
+    opts: { jobId: `${id}-${task.jobIndex}`, attempts, backoff: { type: 'exponential' as const, delay: 5000 }, removeOnComplete: { age: 7 * 86400, count: 10000 }, removeOnFail: { age: 30 * 86400 } },
+  }));
+  for (let i = 0; i < jobs.length; i += 500) await queue.addBulk(jobs.slice(i, i + 500));
+  return id;
+}
