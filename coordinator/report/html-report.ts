@@ -17,24 +17,34 @@ import { join } from 'node:path';
 import type { GrowthResult } from '../../worker/growth-kernel.js';
 import { ENGINE_VERSION } from '../../worker/engine-version.js';
 import type { EnsembleAnalysis } from '../stats/analyze-ensemble.js';
+import type { HarmonicAtSize, HarmonicSection } from '../harmonic/harmonic-section-types.js';
 import type { IntervalSummary } from '../stats/bca.js';
 import { extractEnsembleData, type EnsembleData } from '../stats/ensemble-data.js';
 import { decodeSnapshot, type PointSet } from '../snapshot/cluster-snapshot.js';
 import { specToDocument, type EnsembleSpec } from '../spec/index.js';
-import { fmt, fmtAbscissa, fmtRange, labelOf, levelPercent, shownInterval } from './labels.js';
+import { fmt, fmtAbscissa, fmtRange, isFiniteNumber, labelOf, levelPercent, shownInterval, valueText } from './labels.js';
 import { clusterFigure, comparisonFigure, correctionsFigure, estimatorFigure, localSlopesFigure, type Figure } from './plots.js';
+import { evRange, harmonicFigures, measurePictureFigure, sizesLargestFirst, type MeasurePictureInput } from './harmonic-plots.js';
 import { embeddableFonts, pngRenderer } from './png-plot.js';
 import { escapeXml, FONT_FAMILY, parseRichText } from './svg-plot.js';
 
 export type SampleClusterInput = PointSet | Uint8Array | { points: PointSet | Uint8Array; runIndex?: number };
 
+/** The statistics of a summary: the ensemble analysis, with the harmonic section when clusters were probed. */
+export type ReportAnalysis = EnsembleAnalysis & { harmonic?: HarmonicSection | null };
+
 export interface ReportInput {
-  analysis: EnsembleAnalysis;
+  analysis: ReportAnalysis;
   /** The run results the analysis was made from (for the curves of the log-log plots). */
   runs: readonly GrowthResult[];
   spec?: EnsembleSpec;
   /** One cluster to picture: a point set, snapshot bytes (coordinator/snapshot), or either with its run index. */
   sampleCluster?: SampleClusterInput;
+  /**
+   * A cluster coloured by harmonic measure (PNG from renderMeasurePng of
+   * coordinator/harmonic/measure-picture.ts), shown in the harmonic section.
+   */
+  measurePicture?: MeasurePictureInput;
   /** Page title; default from the spec name or the model kind. */
   title?: string;
   /** Ensemble id, shown in the header when given. */
@@ -157,6 +167,94 @@ function correctionsSection(a: EnsembleAnalysis): string {
   return `<table id="corrections"><thead><tr><th>curve</th><th>D</th><th>ω</th><th>A</th><th>B</th><th>B N<sub>min</sub><sup>−ω</sup></th><th>window</th><th>residual sum of squares: with correction / pure power law</th></tr></thead><tbody>${rows.join('') || '<tr><td colspan="8" class="na">no corrections fit</td></tr>'}</tbody></table><p class="method">${escapeHtml(method)}</p>`;
 }
 
+function evCell(v: { mean: number; interval: IntervalSummary } | null | undefined, digits = 4): string {
+  if (!v || !isFiniteNumber(v.mean)) return '<td class="num na">–</td>';
+  const sh = evRange(v as Parameters<typeof evRange>[0]);
+  return `<td class="num" data-value="${escapeHtml(String(v.mean))}">${escapeHtml(fmt(v.mean, digits))}${sh.range ? ` <span class="iv">${escapeHtml(fmtRange(sh.range, digits))} ${escapeHtml(sh.kind ?? '')}</span>` : ' <span class="iv">no interval</span>'}</td>`;
+}
+
+function verdictItem(key: string, text: string, verdict: boolean | null, yes: string, no: string, unknown: string): string {
+  const cls = verdict === null ? 'na' : verdict ? 'ok' : 'warn';
+  const v = verdict === null ? unknown : verdict ? yes : no;
+  return `<li data-check="${key}">${richHtml(text)} <span class="${cls}" data-verdict="${verdict === null ? 'none' : verdict ? 'yes' : 'no'}">${escapeHtml(v)}</span></li>`;
+}
+
+function qIndex(s: HarmonicAtSize, q: number): number {
+  return s.q.findIndex((v) => Math.abs(v - q) < 1e-9);
+}
+
+/** The checks of the harmonic section as a list: τ(1), τ′(1) against Makarov, Beurling, D_cap, the increment slope, τ(3) against D. */
+function harmonicPanel(h: HarmonicSection, top: HarmonicAtSize | undefined): string {
+  const items: string[] = [];
+  if (top) {
+    const k1 = qIndex(top, 1);
+    const t1 = k1 >= 0 ? top.tau[k1] : null;
+    if (t1 && isFiniteNumber(t1.mean)) {
+      const r = evRange(t1).range;
+      items.push(verdictItem('tau1', `${valueText('τ(1)', t1.mean, t1.interval)} at N = ${fmtAbscissa(top.size)}: 0 by the normalisation Σ μ = 1, so this checks the fit.`, r ? r[0] <= 0 && r[1] >= 0 : null, 'contains 0', 'excludes 0', 'no interval'));
+    } else items.push(`<li data-check="tau1" class="na">τ(1): q = 1 is not on the q grid or τ(1) is not finite.</li>`);
+    const d1 = top.informationDimension;
+    if (d1 && isFiniteNumber(d1.mean)) {
+      const r = evRange(d1).range;
+      items.push(verdictItem('makarov', `Information dimension: ${valueText('τ′(1) = D_{1}', d1.mean, d1.interval)}; Makarov (1985): exactly 1 for a connected planar set.`, r ? r[0] <= 1 && r[1] >= 1 : null, 'agrees (1 inside the interval)', 'disagrees (1 outside the interval)', 'no interval: not judged'));
+    } else items.push('<li data-check="makarov" class="na">τ′(1) is not available.</li>');
+    const mc = top.maxConcentrationExponent;
+    items.push(verdictItem('beurling', `Maximum concentration (max μ(B) scales as (ε/R) to the power α_{min}): ${valueText('α_{min}', mc?.mean, mc?.interval)}; Beurling: α_{min} ≥ 1/2 for a connected set.`, top.beurlingRespected ?? null, 'respected', 'violated', 'not judged'));
+  } else items.push('<li class="na">No probed size with a q grid.</li>');
+  const g = h.capacityGrowth;
+  if (g && isFiniteNumber(g.exponent)) {
+    const dim = isFiniteNumber(g.dimension) ? `D_{cap} = 1/β = ${fmt(g.dimension)}${g.dimensionInterval ? ` ${fmtRange(g.dimensionInterval)}` : ' (no interval)'}` : 'D_{cap} not available';
+    items.push(`<li data-check="capacity">${richHtml(`Capacity growth cap ∝ N^{β} over N = ${(g.sizes ?? []).map((n) => fmtAbscissa(n)).join(', ')}: ${valueText('β', g.exponent, g.exponentInterval)};`)} <b>${richHtml(dim)}</b>.</li>`);
+  } else items.push(`<li data-check="capacity" class="na">Capacity growth: no fit (${escapeHtml(g?.reason ?? 'not available')}).</li>`);
+  const c = h.capacityIncrement;
+  if (c && isFiniteNumber(c.slope)) {
+    items.push(verdictItem('increment', `Capacity increment: log–log slope of mean Δ ln cap/ΔN against Z(3), ${valueText('slope', c.slope, c.slopeInterval, 3)}; proportional means slope 1.`, c.proportional ?? null, 'proportional (1 inside the interval)', 'not proportional (1 outside the interval)', 'not judged'));
+  } else items.push(`<li data-check="increment" class="na">Capacity increment: no slope (${escapeHtml(c?.reason ?? 'not available')}).</li>`);
+  const e = h.electrostatic;
+  if (e) {
+    const md = e.massDimension;
+    const est = md ? labelOf(md.estimator).rich : '';
+    const dText = md ? (isFiniteNumber(md.value) ? `D from ${est} = ${fmt(md.value)}${md.interval ? ` ${fmtRange(md.interval)}` : ' (no interval)'}` : `D from ${est} not available`) : 'no mass-based D';
+    items.push(verdictItem('electrostatic', `Electrostatic scaling law τ(3) = D at N = ${fmtAbscissa(e.size)}: ${valueText('τ(3)', e.tau3?.mean, e.tau3?.interval)}; ${dText} (${e.source}).`, e.consistent ?? null, 'consistent (intervals overlap)', 'inconsistent (intervals do not overlap)', 'not judged'));
+  }
+  return `<ul id="harmonic-panel">${items.join('')}</ul>`;
+}
+
+function harmonicTauTable(top: HarmonicAtSize): string {
+  const rows = top.q.map((q, k) => {
+    const t = top.tau[k];
+    const dq = top.dq?.[k];
+    const frac = top.convergedFraction?.[k];
+    const conv = frac === null || frac === undefined ? '<td class="na" data-converged="none">not judged</td>' : `<td class="${top.converged[k] ? 'ok' : 'warn'}" data-converged="${top.converged[k] ? 'yes' : 'no'}">${top.converged[k] ? 'yes' : 'no'}</td>`;
+    return `<tr data-q="${escapeHtml(String(q))}"${top.converged[k] ? '' : ' class="not-converged"'}><td class="num">${escapeHtml(fmt(q, 2))}</td>${evCell(t)}${isFiniteNumber(dq) ? num(dq) : `<td class="num na">${Math.abs(q - 1) < 1e-9 ? 'see τ′(1)' : '–'}</td>`}${isFiniteNumber(frac) ? `<td class="num">${escapeHtml((frac * 100).toFixed(0))}%</td>` : '<td class="num na">–</td>'}${conv}</tr>`;
+  });
+  return `<h3>τ(q) and D<sub>q</sub> at N = ${escapeHtml(fmtAbscissa(top.size))} (${top.clusters} cluster(s), ${escapeHtml(fmtAbscissa(top.walkers))} walkers each)</h3>` +
+    `<table id="harmonic-tau"><thead><tr><th>q</th><th>τ(q), interval</th><th>D<sub>q</sub> = τ(q)/(q − 1)</th><th>clusters whose probe halves agree</th><th>converged (≥ 90%)</th></tr></thead><tbody>${rows.join('')}</tbody></table>`;
+}
+
+function harmonicSizesTable(sizes: HarmonicAtSize[]): string {
+  const rows = sizes.map((s) => {
+    const nc = s.converged.filter(Boolean).length;
+    return `<tr data-size="${s.size}"><td class="num">${escapeHtml(fmtAbscissa(s.size))}</td><td class="num">${s.clusters}</td><td class="num">${escapeHtml(fmtAbscissa(s.walkers))}</td>${evCell(s.informationDimension)}${evCell(s.maxConcentrationExponent)}${evCell(s.logCapacity)}${s.z3 && isFiniteNumber(s.z3.mean) ? `<td class="num">${escapeHtml(s.z3.mean.toExponential(3))}</td>` : '<td class="num na">–</td>'}${evCell(s.tau3)}<td class="num">${nc} of ${s.q.length}</td></tr>`;
+  });
+  return `<h3>By probed size</h3><table id="harmonic-sizes"><thead><tr><th>N</th><th>clusters</th><th>walkers per cluster</th><th>τ′(1)</th><th>α<sub>min</sub></th><th>mean ln cap</th><th>Z(3)</th><th>τ(3)</th><th>q converged</th></tr></thead><tbody>${rows.join('')}</tbody></table>`;
+}
+
+/** The "Harmonic measure" section: settings, checks, tables and figures. */
+function harmonicSection(h: HarmonicSection, figures: Figure[], hasPng: boolean): string {
+  const sizes = sizesLargestFirst(h);
+  const top = sizes[0];
+  const pr = h.probe;
+  const out: string[] = [];
+  out.push(`<p class="method" id="harmonic-settings">Probes: ${escapeHtml(String(pr?.walkers ?? '–'))} walkers in ${escapeHtml(String(pr?.jobs ?? '–'))} job(s) per cluster and size; sizes N = ${escapeHtml((pr?.sizes ?? []).map((n) => fmtAbscissa(n)).join(', ') || '–')}; q from ${escapeHtml(fmt(pr?.q?.length ? Math.min(...pr.q) : null, 2))} to ${escapeHtml(fmt(pr?.q?.length ? Math.max(...pr.q) : null, 2))} (${pr?.q?.length ?? 0} values); contact sample ${escapeHtml(String(pr?.contactSample ?? '–'))}; minimum step ${escapeHtml(String(pr?.minStep ?? '–'))}. Clusters probed at every size: ${h.clustersAtAllSizes}. Convention: ${escapeHtml(h.convention)}.</p>`);
+  out.push('<h3>Checks</h3>', harmonicPanel(h, top));
+  if (top) out.push(harmonicTauTable(top));
+  if (sizes.length) out.push(harmonicSizesTable(sizes));
+  if (sizes.length === 1) out.push('<p class="na" id="harmonic-one-size">One size was probed: no capacity growth, no capacity increments and no other sizes in the figures.</p>');
+  out.push(...figures.map((f) => figureHtml(f, hasPng)));
+  return out.join('\n');
+}
+
 function notesSection(a: EnsembleAnalysis, own: string[]): string {
   const items: string[] = [];
   for (const n of a.notes) items.push(n);
@@ -258,7 +356,17 @@ export function buildEnsembleReport(input: ReportInput): { html: string; figures
       notes.push(`no sample cluster picture: ${(e as Error).message}`);
     }
   } else notes.push('no sample cluster was given: no cluster picture');
-  for (const f of figures) if (f.note) notes.push(`figure ${f.name}: ${f.note}`);
+  const harmonic = a.harmonic ?? null;
+  const harmonicFigs: Figure[] = [];
+  if (harmonic) {
+    harmonicFigs.push(...harmonicFigures(harmonic));
+    if (input.measurePicture) {
+      const pic = measurePictureFigure(input.measurePicture);
+      harmonicFigs.push(pic);
+      if (!pic.note) extraPngs.push({ name: 'harmonic-measure-raster', png: Buffer.from(input.measurePicture.png) });
+    } else notes.push('no harmonic measure picture was given');
+  } else if (input.measurePicture) notes.push('a harmonic measure picture was given but the statistics have no harmonic section: not shown');
+  for (const f of [...figures, ...harmonicFigs]) if (f.note) notes.push(`figure ${f.name}: ${f.note}`);
 
   const title = input.title ?? `Ensemble report: ${input.spec?.name ?? a.modelKind ?? 'unnamed ensemble'}`;
   const wantPng = input.png ?? true;
@@ -281,12 +389,13 @@ export function buildEnsembleReport(input: ReportInput): { html: string; figures
     notesSection(a, notes),
     '<h2 id="section-figures">Figures</h2>',
     ...figures.map((f) => figureHtml(f, hasPng)),
+    ...(harmonic ? ['<h2 id="section-harmonic">Harmonic measure</h2>', harmonicSection(harmonic, harmonicFigs, hasPng)] : []),
     '<h2 id="section-options">Analysis options</h2>',
     `<pre id="options">${escapeHtml(JSON.stringify(a.options, null, 2))}</pre>`,
     '</body></html>',
     '',
   ].join('\n');
-  return { html, figures, extraPngs, notes };
+  return { html, figures: [...figures, ...harmonicFigs], extraPngs, notes };
 }
 
 /**

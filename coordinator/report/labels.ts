@@ -70,3 +70,29 @@ export function estimateText(D: number | null, iv: IntervalSummary, symbol = 'D'
   if (!range) return `${symbol} = ${fmt(D)} (no interval: ${iv.status})`;
   return `${symbol} = ${fmt(D)}, ${levelPercent(iv)} ${kind} ${fmtRange(range)}`;
 }
+
+/** Axis labels of the harmonic-measure figures (rich text; units or "dimensionless"). */
+export const HARMONIC_AXIS = {
+  q: 'moment order q',
+  tau: 'mass exponent τ(q) (dimensionless)',
+  alpha: 'singularity strength α (local exponent of the measure)',
+  f: 'f(α): dimension of the points of exponent α',
+  capacity: 'logarithmic capacity cap (particle diameters)',
+  z3: 'growth moment Z(3) = Σ p_{i}^{3} (particle scale, dimensionless)',
+  increment: 'mean Δ ln cap / ΔN (per particle)',
+  exponent: 'exponent value (dimensionless)',
+} as const;
+
+/** A finite number (JSON turns NaN into null, so values read back may be null). */
+export function isFiniteNumber(v: unknown): v is number {
+  return typeof v === 'number' && Number.isFinite(v);
+}
+
+/** Estimate text for a value whose interval may be missing: "τ(3) = 1.7000, 95% BCa [1.65, 1.75]". */
+export function valueText(symbol: string, v: number | null | undefined, iv: IntervalSummary | null | undefined, digits = 4): string {
+  if (!isFiniteNumber(v)) return `${symbol} not available`;
+  if (!iv) return `${symbol} = ${fmt(v, digits)} (no interval)`;
+  const { range, kind } = shownInterval(iv);
+  if (!range) return `${symbol} = ${fmt(v, digits)} (no interval: ${iv.notes[0] ?? iv.status})`;
+  return `${symbol} = ${fmt(v, digits)}, ${levelPercent(iv)} ${kind} ${fmtRange(range, digits)}`;
+}
