@@ -6,3 +6,6 @@ export * from './ensemble-intervals.js';
 export * from './probe-input.js';
 export * from './measure-picture.js';
 export * from './probe-run.js';
+export * from './cluster-harmonic.js';
+export * from './harmonic-section-types.js';
+export * from './harmonic-section.js';

@@ -1,0 +1,384 @@
+/**
+ * The harmonic section of an ensemble summary (shape: harmonic-section-types.ts)
+ * from the ClusterHarmonic records of the probed clusters: one record per
+ * (run, size), any order. Pure and deterministic: the same records (in any
+ * order) and the same seed give the same section bit for bit. Thin data
+ * never throws: whatever cannot be formed is null with a `reason` (or an
+ * interval with status 'too-few-clusters' and a note). Only inconsistent
+ * input (records of one ensemble on different q grids) and invalid options
+ * throw, with one line naming the field.
+ *
+ * Rules (ours where no source is named)
+ *  - Records are grouped by size; within a size they are ordered by run
+ *    index, and a second record of the same (run, size) is ignored (probes
+ *    of a (run, size) are deterministic, so duplicates are copies).
+ *  - Per size, every scalar is an ensemble mean over clusters with its
+ *    cluster-bootstrap interval (ensembleMeanInterval: whole clusters
+ *    resampled, percentile and BCa; at least 3 clusters). Non-finite
+ *    per-cluster values (and null capacities or Z(3)) are left out of that
+ *    quantity only; EnsembleValue.clusters says how many entered. Every
+ *    interval uses the same seed, so quantities with the same clusters share
+ *    the same resamples (their intervals are jointly consistent).
+ *  - D_q, α and f(α) of a size are those of the ensemble-mean τ̄(q), not
+ *    means of the per-cluster values: D_q = τ̄(q)/(q − 1) (null at q = 1);
+ *    α = dτ̄/dq by finite differences over the q grid sorted by value
+ *    (central inside, one-sided at the ends), and at q = 1 the ensemble mean
+ *    of the fitted τ'(1) (the information dimension), as
+ *    coordinator/harmonic/spectrum.ts does for one cluster; f = qα − τ̄.
+ *    A grid of one q ≠ 1 has no α (NaN, null in JSON).
+ *  - convergedFraction(q) = share of the clusters judged at q (two probe
+ *    halves compared, see probe-analysis.ts) whose halves agree; converged
+ *    when that share is at least 0.9.
+ *  - Beurling: the maximum box measure M(ε) ~ (ε/R)^a of a connected set has
+ *    a ≥ 1/2 (Beurling's estimate; Garnett & Marshall 2005, Harmonic
+ *    Measure). beurlingRespected: the upper end of the 95% interval of the
+ *    ensemble-mean exponent (BCa, else percentile) is at least 1/2; null
+ *    without an interval.
+ *  - Growth relations use the clusters probed at every size present in the
+ *    records ("complete" clusters) with a finite log capacity (and, for the
+ *    increments, a Z(3)) at every size; sizes are all sizes present.
+ *    clustersAtAllSizes counts the clusters with a record at every size.
+ *
+ * Capacity growth. cap(N) ~ N^{1/D_cap}: the OLS slope of the ensemble mean
+ * of log cap against log N over the sizes. The OLS slope is linear in the
+ * ordinates, so the slope of the mean curve is the mean of the per-cluster
+ * slopes, and the cluster bootstrap of the slope (resample complete
+ * clusters, recompute the means and the slope) is exactly the bootstrap of
+ * the mean of per-cluster slopes (ensembleMeanInterval). D_cap = 1/slope;
+ * its interval inverts the slope interval's ends (null if it reaches 0).
+ * For a set of diameter R the capacity is between R/4 and R (Ransford
+ * 1995, Potential Theory in the Complex Plane, ch. 5), so D_cap is the mass
+ * dimension measured with the capacity as the radius.
+ *
+ * Capacity increment, and why it is the electrostatic scaling law. Let g be
+ * the Green function of the exterior of the cluster K with pole at ∞,
+ * g(z) = log|z| − log cap K + o(1), and h = |∇g| on ∂K, so that h ds/(2π)
+ * is the harmonic measure. Hadamard's variational formula: pushing ∂K out by
+ * δn(s) changes Robin's constant −log cap by −(1/2π) ∫ h² δn ds, so
+ *   δ log cap = (1/2π) ∫ h² δn ds.
+ * A particle of fixed size a attached at s is a bump of area ∝ a² there,
+ * so it raises log cap by c a² h(s)², c a shape constant (the capture disks
+ * all have the same shape). In DLA it lands at s with the harmonic measure,
+ * probability h(s) ds/(2π). Hence the mean increment per particle is
+ *   ⟨Δ log cap⟩ = (c a²/4π²) ∫ h³ ds.
+ * At particle scale the harmonic measure of particle i is p_i ≈ h a/(2π), so
+ * ∫ h³ ds ≈ Σ_i h_i³ a = (2π)³ Σ p_i³ / a², and
+ *   ⟨d log cap / dN⟩ = 2π c Σ_i p_i³ = 2π c Z(3, a).
+ * With cap ~ N^{1/D}, the left side is 1/(D N); with Z(3, ε) ~ (ε/R)^τ(3)
+ * and R ~ N^{1/D}, the right side is ∝ N^{−τ(3)/D}; so τ(3) = D, the
+ * electrostatic scaling law (Halsey 1987, Phys. Rev. Lett. 59, 2067;
+ * citation from memory). The relation tested here is the proportionality
+ * itself, size by size, without fitting τ(3):
+ *   meanIncrement_k = mean over complete clusters of
+ *     (log cap(N_{k+1}) − log cap(N_k)) / (N_{k+1} − N_k),
+ *   z3_k = √(Z̄3(N_k) Z̄3(N_{k+1})) (Z̄3: mean over the same clusters of the
+ *     unbiased particle-scale Σ p³, cluster-harmonic.ts),
+ * and the OLS slope of log meanIncrement against log z3 over the intervals
+ * is 1 if they are proportional. The geometric mean is the right interval
+ * value for a power law Z3 ∝ N^{−β}: the average of N^{−β} over [N_k, N_{k+1}]
+ * is N_k^{−β} times a function of N_{k+1}/N_k only, so for geometrically
+ * spaced sizes it is a constant multiple of the geometric mean, which leaves
+ * the slope unchanged (for other spacings the error is second order in
+ * log(N_{k+1}/N_k)). The slope's interval: cluster bootstrap (resample
+ * complete clusters, recompute all means and the slope; BCa acceleration from
+ * leave-one-cluster-out slopes); it needs at least 3 sizes and 3 complete
+ * clusters, and every mean increment and z3 positive. proportional: the
+ * interval (BCa, else percentile) contains 1.
+ *
+ * Electrostatic check: the ensemble τ(3) at the largest size beside the
+ * mass dimension of the same clusters (given by the caller, with its
+ * estimator named); consistent when the two intervals overlap (BCa, else
+ * percentile, for τ(3)); null when either is missing.
+ */
+import { bootstrapRandom, drawResample, weightedColumnMeans } from '../stats/bootstrap.js';
+import { bootstrapInterval, type IntervalSummary } from '../stats/bca.js';
+import type { ClusterHarmonic } from './cluster-harmonic.js';
+import { ensembleMeanInterval, type EnsembleValue } from './ensemble-intervals.js';
+import type {
+  CapacityGrowth, CapacityIncrement, ElectrostaticCheck, HarmonicAtSize, HarmonicSection,
+} from './harmonic-section-types.js';
+import { SIGN_CONVENTION } from './probe-analysis.js';
+
+export const HARMONIC_CONVERGED_SHARE = 0.9;
+export const ELECTROSTATIC_SOURCE =
+  'electrostatic scaling law tau(3) = D: Halsey 1987, Phys. Rev. Lett. 59, 2067 (citation from memory)';
+
+export interface HarmonicSectionOptions {
+  probe: HarmonicSection['probe'];
+  massDimension: { estimator: string; value: number | null; interval: [number, number] | null } | null;
+  seed: string | number;
+  /** Bootstrap resamples; default 2000, allowed 10..1000000. */
+  resamples?: number;
+  /** Confidence level; default 0.95, allowed 0.5..0.999. */
+  level?: number;
+}
+
+function checkOption(field: string, v: number, lo: number, hi: number, integer: boolean): number {
+  if (!Number.isFinite(v) || v < lo || v > hi || (integer && !Number.isInteger(v)))
+    throw new RangeError(`harmonic section ${field}: ${v} is not ${integer ? 'an integer' : 'a number'} in [${lo}, ${hi}]`);
+  return v;
+}
+
+/** The interval of a summary: BCa when available, else percentile, else null. */
+export function intervalEnds(iv: IntervalSummary | null | undefined): [number, number] | null {
+  if (!iv) return null;
+  return iv.bca ?? iv.percentile ?? null;
+}
+
+function sameGrid(a: readonly number[], b: readonly number[]): boolean {
+  return a.length === b.length && a.every((v, k) => v === b[k]);
+}
+
+const isOne = (q: number): boolean => Math.abs(q - 1) < 1e-12;
+
+/** OLS slope of y against x (both length ≥ 2, x with spread). */
+function olsSlope(x: ArrayLike<number>, y: ArrayLike<number>): number {
+  const n = x.length;
+  let xm = 0, ym = 0;
+  for (let i = 0; i < n; i++) { xm += x[i]; ym += y[i]; }
+  xm /= n; ym /= n;
+  let sxx = 0, sxy = 0;
+  for (let i = 0; i < n; i++) { sxx += (x[i] - xm) * (x[i] - xm); sxy += (x[i] - xm) * (y[i] - ym); }
+  return sxy / sxx;
+}
+
+/** OLS slope weights w_i with slope = Σ w_i y_i. */
+function olsWeights(x: readonly number[]): number[] {
+  const n = x.length;
+  const xm = x.reduce((s, v) => s + v, 0) / n;
+  const sxx = x.reduce((s, v) => s + (v - xm) * (v - xm), 0);
+  return x.map((v) => (v - xm) / sxx);
+}
+
+function finite(values: Array<number | null | undefined>): number[] {
+  const out: number[] = [];
+  for (const v of values) if (typeof v === 'number' && Number.isFinite(v)) out.push(v);
+  return out;
+}
+
+function atSize(size: number, group: readonly ClusterHarmonic[], q: readonly number[], seed: string | number, resamples: number, level: number): HarmonicAtSize {
+  const emi = (v: number[]): EnsembleValue => ensembleMeanInterval(v, seed, resamples, level);
+  const tau = q.map((_, k) => emi(finite(group.map((c) => c.tau[k]))));
+  const informationDimension = emi(finite(group.map((c) => c.informationDimension)));
+  const maxConcentrationExponent = emi(finite(group.map((c) => c.maxConcentrationExponent)));
+  const logCapacity = emi(finite(group.map((c) => c.logCapacity)));
+  const z3 = emi(finite(group.map((c) => c.z3)));
+  const tauMean = tau.map((t) => t.mean);
+  const dq = q.map((qk, k) => (isOne(qk) ? null : tauMean[k] / (qk - 1)));
+  // Legendre transform over the grid sorted by q value
+  const order = q.map((_, k) => k).sort((a, b) => q[a] - q[b]);
+  const alpha = new Array<number>(q.length).fill(NaN);
+  for (let j = 0; j < order.length; j++) {
+    const k = order[j];
+    if (isOne(q[k])) { alpha[k] = informationDimension.mean; continue; }
+    if (order.length < 2) continue;
+    const a = order[j === 0 ? 0 : j - 1];
+    const b = order[j === order.length - 1 ? j : j + 1];
+    alpha[k] = (tauMean[b] - tauMean[a]) / (q[b] - q[a]);
+  }
+  const f = q.map((qk, k) => qk * alpha[k] - tauMean[k]);
+  const convergedFraction = q.map((_, k) => {
+    let judged = 0, agree = 0;
+    for (const c of group) {
+      const v = c.converged[k];
+      if (v === null || v === undefined) continue;
+      judged++;
+      if (v) agree++;
+    }
+    return judged > 0 ? agree / judged : null;
+  });
+  const converged = convergedFraction.map((s) => s !== null && s >= HARMONIC_CONVERGED_SHARE);
+  const mx = intervalEnds(maxConcentrationExponent.interval);
+  const k3 = q.findIndex((v) => Math.abs(v - 3) < 1e-12);
+  return {
+    size,
+    clusters: group.length,
+    walkers: group.reduce((s, c) => s + c.walkers, 0) / group.length,
+    q: [...q],
+    tau,
+    dq,
+    alpha,
+    f,
+    convergedFraction,
+    converged,
+    informationDimension,
+    maxConcentrationExponent,
+    beurlingRespected: mx ? mx[1] >= 0.5 : null,
+    logCapacity,
+    z3,
+    tau3: k3 >= 0 ? tau[k3] : null,
+  };
+}
+
+/** Per complete cluster (ascending run index), the values of `pick` at every size (row-major K × S). */
+function completeRows(
+  bySizeGroups: ReadonlyArray<readonly ClusterHarmonic[]>, pick: (c: ClusterHarmonic) => Array<number | null>,
+): { runs: number[]; rows: number[][] } {
+  const s = bySizeGroups.length;
+  const maps = bySizeGroups.map((g) => new Map(g.map((c) => [c.runIndex, c])));
+  const runs: number[] = [];
+  const rows: number[][] = [];
+  for (const c0 of bySizeGroups[0] ?? []) {
+    const row: number[] = [];
+    let ok = true;
+    for (let j = 0; j < s && ok; j++) {
+      const c = maps[j].get(c0.runIndex);
+      if (!c) { ok = false; break; }
+      for (const v of pick(c)) {
+        if (typeof v !== 'number' || !Number.isFinite(v)) { ok = false; break; }
+        row.push(v);
+      }
+    }
+    if (ok) { runs.push(c0.runIndex); rows.push(row); }
+  }
+  return { runs, rows };
+}
+
+function capacityGrowthOf(sizes: number[], groups: ReadonlyArray<readonly ClusterHarmonic[]>, seed: string | number, resamples: number, level: number): CapacityGrowth {
+  const empty = (reason: string, meanLogCapacity: number[] = []): CapacityGrowth => ({
+    sizes: [...sizes], meanLogCapacity, exponent: null, exponentInterval: null, dimension: null, dimensionInterval: null, reason,
+  });
+  if (sizes.length < 2) return empty(`${sizes.length} probed size${sizes.length === 1 ? '' : 's'}; the capacity growth needs at least 2`);
+  const { rows } = completeRows(groups, (c) => [c.logCapacity]);
+  const k = rows.length;
+  if (k === 0) return empty('no cluster has a log capacity at every probed size');
+  const meanLogCapacity = sizes.map((_, j) => rows.reduce((s, r) => s + r[j], 0) / k);
+  if (k < 3) return empty(`${k} cluster${k === 1 ? '' : 's'} with a log capacity at every probed size; at least 3 are needed`, meanLogCapacity);
+  const w = olsWeights(sizes.map((n) => Math.log(n)));
+  const perCluster = rows.map((r) => r.reduce((s, v, j) => s + w[j] * v, 0));
+  const ev = ensembleMeanInterval(perCluster, seed, resamples, level);
+  const exponent = ev.mean; // = the OLS slope of meanLogCapacity (linearity of OLS)
+  const ends = intervalEnds(ev.interval);
+  return {
+    sizes: [...sizes],
+    meanLogCapacity,
+    exponent,
+    exponentInterval: ev.interval,
+    dimension: exponent > 0 ? 1 / exponent : null,
+    dimensionInterval: ends && ends[0] > 0 ? [1 / ends[1], 1 / ends[0]] : null,
+    reason: exponent > 0 ? null : `the mean log capacity does not grow with N (slope ${exponent.toPrecision(3)}): no D_cap`,
+  };
+}
+
+function capacityIncrementOf(sizes: number[], groups: ReadonlyArray<readonly ClusterHarmonic[]>, seed: string | number, resamples: number, level: number): CapacityIncrement {
+  const m = sizes.length - 1;
+  const base = {
+    fromSize: sizes.slice(0, Math.max(m, 0)),
+    toSize: sizes.slice(1),
+  };
+  const empty = (reason: string, partial?: Pick<CapacityIncrement, 'meanIncrement' | 'z3' | 'ratio'>): CapacityIncrement => ({
+    ...base, meanIncrement: partial?.meanIncrement ?? [], z3: partial?.z3 ?? [], ratio: partial?.ratio ?? [],
+    slope: null, slopeInterval: null, proportional: null, reason,
+  });
+  if (m < 1) return empty(`${sizes.length} probed size${sizes.length === 1 ? '' : 's'}; increments need at least 2`);
+  // per complete cluster: log cap at every size, then Z(3) at every size
+  const { rows: raw } = completeRows(groups, (c) => [c.logCapacity, c.z3]);
+  const k = raw.length;
+  if (k === 0) return empty('no cluster has a log capacity and Z(3) at every probed size');
+  const s = sizes.length;
+  const cols = m + s;
+  // matrix K × (m increments, s Z(3) values)
+  const y = new Float64Array(k * cols);
+  for (let c = 0; c < k; c++) {
+    const r = raw[c];
+    for (let j = 0; j < m; j++) y[c * cols + j] = (r[2 * (j + 1)] - r[2 * j]) / (sizes[j + 1] - sizes[j]);
+    for (let j = 0; j < s; j++) y[c * cols + m + j] = r[2 * j + 1];
+  }
+  const means = new Float64Array(cols);
+  for (let c = 0; c < k; c++) for (let j = 0; j < cols; j++) means[j] += y[c * cols + j];
+  for (let j = 0; j < cols; j++) means[j] /= k;
+  const meanIncrement = Array.from(means.subarray(0, m));
+  const z3 = meanIncrement.map((_, j) => Math.sqrt(means[m + j] * means[m + j + 1]));
+  const ratio = meanIncrement.map((v, j) => v / z3[j]);
+  const partial = { meanIncrement, z3, ratio };
+  if (m < 2) return empty(`${sizes.length} probed sizes give ${m} increment; the slope needs at least 3 sizes`, partial);
+  if (k < 3) return empty(`${k} cluster${k === 1 ? '' : 's'} with a log capacity and Z(3) at every probed size; at least 3 are needed`, partial);
+  const slopeOf = (mu: ArrayLike<number>): number => {
+    const lx = new Float64Array(m);
+    const ly = new Float64Array(m);
+    for (let j = 0; j < m; j++) {
+      const inc = mu[j];
+      const zz = Math.sqrt(mu[m + j] * mu[m + j + 1]);
+      if (!(inc > 0) || !(zz > 0)) return NaN;
+      lx[j] = Math.log(zz);
+      ly[j] = Math.log(inc);
+    }
+    return olsSlope(lx, ly);
+  };
+  const slope = slopeOf(means);
+  if (!Number.isFinite(slope)) {
+    const bad = meanIncrement.findIndex((v, j) => !(v > 0) || !(z3[j] > 0));
+    return empty(`interval ${sizes[bad]}..${sizes[bad + 1]}: mean increment ${meanIncrement[bad].toPrecision(3)} and z3 ${z3[bad].toPrecision(3)} must both be positive for the log-log slope`, partial);
+  }
+  const rng = bootstrapRandom(seed);
+  const counts = new Int32Array(k);
+  const drawn = new Int32Array(k);
+  const weights = new Float64Array(k);
+  const mu = new Float64Array(cols);
+  const reps = new Float64Array(resamples);
+  for (let b = 0; b < resamples; b++) {
+    const used = drawResample(rng, counts, drawn, weights);
+    weightedColumnMeans(y, cols, k, drawn, weights, used, mu);
+    reps[b] = slopeOf(mu);
+  }
+  const jack = new Float64Array(k);
+  for (let c = 0; c < k; c++) {
+    for (let j = 0; j < cols; j++) mu[j] = (means[j] * k - y[c * cols + j]) / (k - 1);
+    jack[c] = slopeOf(mu);
+  }
+  const slopeInterval = bootstrapInterval(slope, reps, jack, level);
+  const ends = intervalEnds(slopeInterval);
+  return {
+    ...base, meanIncrement, z3, ratio, slope, slopeInterval,
+    proportional: ends ? ends[0] <= 1 && 1 <= ends[1] : null,
+    reason: ends ? null : `no interval for the slope (${slopeInterval.status}: ${slopeInterval.notes.join('; ')})`,
+  };
+}
+
+function electrostaticOf(bySize: HarmonicAtSize[], mass: HarmonicSectionOptions['massDimension']): ElectrostaticCheck {
+  const last = bySize.length > 0 ? bySize[bySize.length - 1] : null;
+  const tau3 = last ? last.tau3 : null;
+  const a = intervalEnds(tau3?.interval);
+  const b = mass?.interval ?? null;
+  return {
+    size: last ? last.size : 0,
+    tau3,
+    massDimension: mass ? { estimator: mass.estimator, value: mass.value, interval: mass.interval ? [mass.interval[0], mass.interval[1]] : null } : null,
+    consistent: a && b ? a[0] <= b[1] && b[0] <= a[1] : null,
+    source: ELECTROSTATIC_SOURCE,
+  };
+}
+
+/** The harmonic section of an ensemble summary from its per-(run, size) records (see the file header). */
+export function harmonicSection(clusters: readonly ClusterHarmonic[], o: HarmonicSectionOptions): HarmonicSection {
+  const resamples = checkOption('resamples', o.resamples ?? 2000, 10, 1_000_000, true);
+  const level = checkOption('level', o.level ?? 0.95, 0.5, 0.999, false);
+  const q = clusters.length > 0 ? clusters[0].q : o.probe.q;
+  for (const c of clusters)
+    if (!sameGrid(c.q, q)) throw new RangeError(`harmonic record of run ${c.runIndex} at size ${c.size}: q grid [${c.q.join(', ')}] differs from [${q.join(', ')}]`);
+  const groupsMap = new Map<number, ClusterHarmonic[]>();
+  for (const c of clusters) {
+    let g = groupsMap.get(c.size);
+    if (!g) groupsMap.set(c.size, (g = []));
+    g.push(c);
+  }
+  const sizes = [...groupsMap.keys()].sort((a, b) => a - b);
+  const groups = sizes.map((n) => {
+    const sorted = [...groupsMap.get(n)!].sort((a, b) => a.runIndex - b.runIndex);
+    return sorted.filter((c, i) => i === 0 || c.runIndex !== sorted[i - 1].runIndex);
+  });
+  const bySize = sizes.map((n, j) => atSize(n, groups[j], q, o.seed, resamples, level));
+  const runSets = groups.map((g) => new Set(g.map((c) => c.runIndex)));
+  const clustersAtAllSizes = groups.length === 0 ? 0 : groups[0].filter((c) => runSets.every((s) => s.has(c.runIndex))).length;
+  return {
+    schema: 'tendril-harmonic/1',
+    convention: SIGN_CONVENTION,
+    probe: { ...o.probe, q: [...o.probe.q], sizes: [...o.probe.sizes] },
+    bySize,
+    capacityGrowth: capacityGrowthOf(sizes, groups, o.seed, resamples, level),
+    capacityIncrement: capacityIncrementOf(sizes, groups, o.seed, resamples, level),
+    electrostatic: electrostaticOf(bySize, o.massDimension),
+    clustersAtAllSizes,
+  };
+}
+
