@@ -205,6 +205,34 @@ describe('harmonic section: per size', () => {
   });
 });
 
+describe('harmonic section: particle-scale form of tau(3) = D', () => {
+  it('recovers tau(3)/D from Z(3) = c N^(-r) with cluster noise (exact power law: common practice, no source), and judges r = 1 consistent, r = 1.3 not', () => {
+    const ensemble = (r: number, seed: number) => {
+      const rng = Random.forRun(seed, 0);
+      return Array.from({ length: 12 }, (_, c) => {
+        const u = 0.1 * gaussian(rng);
+        return SIZES.map((n) => record(c, n, { z3: Math.exp(Math.log(2) - r * Math.log(n) + u + 0.02 * gaussian(rng)) }));
+      }).flat();
+    };
+    const one = harmonicSection(ensemble(1, 5), options()).electrostatic.particleScale;
+    expect(one.clusters).toBe(12);
+    expect(one.reason).toBeNull();
+    const iv = one.ratioInterval!.bca ?? one.ratioInterval!.percentile!;
+    expect(iv[0]).toBeLessThanOrEqual(1);
+    expect(iv[1]).toBeGreaterThanOrEqual(1);
+    expect(one.consistent).toBe(true);
+    const steep = harmonicSection(ensemble(1.3, 6), options()).electrostatic.particleScale;
+    expect(steep.ratio!).toBeCloseTo(1.3, 1);
+    expect(steep.consistent).toBe(false);
+    // exact data: the ratio is the exponent itself
+    const exact = SIZES.flatMap((n) => Array.from({ length: 4 }, (_, c) => record(c, n, { z3: 3 * n ** -1.1 })));
+    expect(harmonicSection(exact, options()).electrostatic.particleScale.ratio!).toBeCloseTo(1.1, 12);
+    // a cluster with no Z(3) at some size is left out; too few clusters give a reason
+    expect(harmonicSection(exact.map((r) => (r.runIndex === 0 && r.size === SIZES[0] ? { ...r, z3: null } : r)), options()).electrostatic.particleScale.clusters).toBe(3);
+    expect(harmonicSection(exact.filter((r) => r.runIndex < 2), options()).electrostatic.particleScale.reason).toMatch(/2 clusters with a positive Z\(3\) at every probed size; at least 3 are needed/);
+  });
+});
+
 describe('harmonic section: thin data and determinism', () => {
   it('gives reasons instead of throwing when there are too few clusters or sizes', () => {
     const none = harmonicSection([], options());

@@ -92,6 +92,7 @@ function fullSection(): HarmonicSection {
     electrostatic: {
       size: 8000, tau3: top.tau3, massDimension: { estimator: 'radiusOfGyration', value: 1.71, interval: [1.69, 1.73] },
       consistent: false, source: 'electrostatic scaling law (rendering test data)',
+      particleScale: { sizes, clusters: 8, ratio: 0.99, ratioInterval: interval(0.99, 0.02), consistent: true, reason: null },
     },
     clustersAtAllSizes: 8,
   };
@@ -107,7 +108,7 @@ function thinSection(): HarmonicSection {
     bySize: [s],
     capacityGrowth: { sizes: [1500], meanLogCapacity: [s.logCapacity.mean], exponent: null, exponentInterval: null, dimension: null, dimensionInterval: null, reason: 'one probed size: no growth fit' },
     capacityIncrement: { fromSize: [], toSize: [], meanIncrement: [], z3: [], ratio: [], slope: null, slopeInterval: null, proportional: null, reason: 'fewer than two probed sizes' },
-    electrostatic: { size: 1500, tau3: null, massDimension: null, consistent: null, source: 'test' },
+    electrostatic: { size: 1500, tau3: null, massDimension: null, consistent: null, source: 'test', particleScale: { sizes: [1500], clusters: 0, ratio: null, ratioInterval: null, consistent: null, reason: 'one probed size' } },
     clustersAtAllSizes: 2,
   };
 }

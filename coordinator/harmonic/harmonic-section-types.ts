@@ -81,6 +81,13 @@ export interface ElectrostaticCheck {
   massDimension: { estimator: string; value: number | null; interval: [number, number] | null } | null;
   /** Whether the intervals overlap. */
   consistent: boolean | null;
+  /**
+   * The same law at particle scale, where it is derived: Z(3, a) ∝ N^{−τ(3)/D},
+   * so ratio = τ(3)/D = −(slope of log Z(3) against log N), the mean over the
+   * clusters probed at every size of their OLS slopes, with its interval; the law
+   * says ratio = 1.
+   */
+  particleScale: { sizes: number[]; clusters: number; ratio: number | null; ratioInterval: IntervalSummary | null; consistent: boolean | null; reason: string | null };
   source: string;
 }
 

@@ -335,7 +335,27 @@ function capacityIncrementOf(sizes: number[], groups: ReadonlyArray<readonly Clu
   };
 }
 
-function electrostaticOf(bySize: HarmonicAtSize[], mass: HarmonicSectionOptions['massDimension']): ElectrostaticCheck {
+/**
+ * τ(3)/D at particle scale: per complete cluster the OLS slope of log Z(3)
+ * (unbiased particle-scale Σp³) against log N over the probed sizes; the
+ * ratio is minus the ensemble mean of those slopes, with its cluster-bootstrap
+ * interval (ensembleMeanInterval). Clusters with a Z(3) ≤ 0 at some size
+ * (fewer than 3 hits on every particle) are left out.
+ */
+function particleScaleOf(sizes: number[], groups: ReadonlyArray<readonly ClusterHarmonic[]>, seed: string | number, resamples: number, level: number): ElectrostaticCheck['particleScale'] {
+  const empty = (reason: string, clusters = 0): ElectrostaticCheck['particleScale'] => ({ sizes: [...sizes], clusters, ratio: null, ratioInterval: null, consistent: null, reason });
+  if (sizes.length < 2) return empty(`${sizes.length} probed size${sizes.length === 1 ? '' : 's'}; the particle-scale check needs at least 2`);
+  const { rows } = completeRows(groups, (c) => [c.z3 !== null && c.z3 > 0 ? Math.log(c.z3) : null]);
+  const k = rows.length;
+  if (k < 3) return empty(`${k} cluster${k === 1 ? '' : 's'} with a positive Z(3) at every probed size; at least 3 are needed`, k);
+  const w = olsWeights(sizes.map((n) => Math.log(n)));
+  const perCluster = rows.map((r) => -r.reduce((s, v, j) => s + w[j] * v, 0));
+  const ev = ensembleMeanInterval(perCluster, seed, resamples, level);
+  const ends = intervalEnds(ev.interval);
+  return { sizes: [...sizes], clusters: k, ratio: ev.mean, ratioInterval: ev.interval, consistent: ends ? ends[0] <= 1 && 1 <= ends[1] : null, reason: ends ? null : `no interval (${ev.interval.status})` };
+}
+
+function electrostaticOf(bySize: HarmonicAtSize[], mass: HarmonicSectionOptions['massDimension'], particleScale: ElectrostaticCheck['particleScale']): ElectrostaticCheck {
   const last = bySize.length > 0 ? bySize[bySize.length - 1] : null;
   const tau3 = last ? last.tau3 : null;
   const a = intervalEnds(tau3?.interval);
@@ -345,6 +365,7 @@ function electrostaticOf(bySize: HarmonicAtSize[], mass: HarmonicSectionOptions[
     tau3,
     massDimension: mass ? { estimator: mass.estimator, value: mass.value, interval: mass.interval ? [mass.interval[0], mass.interval[1]] : null } : null,
     consistent: a && b ? a[0] <= b[1] && b[0] <= a[1] : null,
+    particleScale,
     source: ELECTROSTATIC_SOURCE,
   };
 }
@@ -377,7 +398,7 @@ export function harmonicSection(clusters: readonly ClusterHarmonic[], o: Harmoni
     bySize,
     capacityGrowth: capacityGrowthOf(sizes, groups, o.seed, resamples, level),
     capacityIncrement: capacityIncrementOf(sizes, groups, o.seed, resamples, level),
-    electrostatic: electrostaticOf(bySize, o.massDimension),
+    electrostatic: electrostaticOf(bySize, o.massDimension, particleScaleOf(sizes, groups, o.seed, resamples, level)),
     clustersAtAllSizes,
   };
 }

@@ -215,7 +215,11 @@ function harmonicPanel(h: HarmonicSection, top: HarmonicAtSize | undefined): str
     const md = e.massDimension;
     const est = md ? labelOf(md.estimator).rich : '';
     const dText = md ? (isFiniteNumber(md.value) ? `D from ${est} = ${fmt(md.value)}${md.interval ? ` ${fmtRange(md.interval)}` : ' (no interval)'}` : `D from ${est} not available`) : 'no mass-based D';
-    items.push(verdictItem('electrostatic', `Electrostatic scaling law τ(3) = D at N = ${fmtAbscissa(e.size)}: ${valueText('τ(3)', e.tau3?.mean, e.tau3?.interval)}; ${dText} (${e.source}).`, e.consistent ?? null, 'consistent (intervals overlap)', 'inconsistent (intervals do not overlap)', 'not judged'));
+    items.push(verdictItem('electrostatic', `Electrostatic scaling law τ(3) = D at N = ${fmtAbscissa(e.size)}, τ(3) from the box fit: ${valueText('τ(3)', e.tau3?.mean, e.tau3?.interval)}; ${dText} (${e.source}).`, e.consistent ?? null, 'consistent (intervals overlap)', 'inconsistent (intervals do not overlap)', 'not judged'));
+    const ps = e.particleScale;
+    if (ps && isFiniteNumber(ps.ratio)) {
+      items.push(verdictItem('electrostatic-particle', `The same law at particle scale, Z(3) ∝ N^{−τ(3)/D} over N = ${ps.sizes.map((n) => fmtAbscissa(n)).join(', ')} (${ps.clusters} clusters): ${valueText('τ(3)/D', ps.ratio, ps.ratioInterval, 3)}; the law says 1.`, ps.consistent ?? null, 'consistent (1 inside the interval)', 'inconsistent (1 outside the interval)', 'not judged'));
+    } else if (ps) items.push(`<li data-check="electrostatic-particle" class="na">Particle-scale form of τ(3) = D: not available (${escapeHtml(ps.reason ?? 'no ratio')}).</li>`);
   }
   return `<ul id="harmonic-panel">${items.join('')}</ul>`;
 }
