@@ -10,6 +10,8 @@
  *   aggregate  test/bench/aggregate-bench.ts: runAggregateBenchmark()
  *   probe      test/bench/probe-bench.ts: runProbeBenchmark() — probe walkers per
  *              second on a grown cluster (10^6 particles, 10^6 walkers, one core)
+ *   probe-scaling  test/bench/probe-scaling-bench.ts: 10^7 probe walkers on a 10^6
+ *              cluster as a farm probe request, one worker process against two
  *   farm       test/bench/farm-bench.ts: runFarmBenchmark() — the same ensemble
  *              (20 × 10^5 by default) on two worker processes over Redis
  *              (REDIS_URL) against the embedded mode on two threads
@@ -18,8 +20,9 @@ import { runGrowthBenchmark, sizesFromArgs } from './growth-bench.js';
 import { runAggregateBenchmark } from './aggregate-bench.js';
 import { runFarmBenchmark } from './farm-bench.js';
 import { runProbeBenchmark } from './probe-bench.js';
+import { runProbeScalingBenchmark } from './probe-scaling-bench.js';
 
-const PARTS = ['growth', 'aggregate', 'probe', 'farm'] as const;
+const PARTS = ['growth', 'aggregate', 'probe', 'probe-scaling', 'farm'] as const;
 type Part = (typeof PARTS)[number];
 
 export function partsFromArgs(argv: string[]): Part[] {
@@ -49,6 +52,11 @@ async function main(argv: string[]): Promise<number> {
       else if (part === 'probe') {
         const r = runProbeBenchmark(1_000_000, 1_000_000);
         process.stdout.write(`probe: ${r.walkers} walkers on ${r.particles} particles: ${Math.round(r.walkersPerSecond)} walkers/s\n`);
+        process.stdout.write(JSON.stringify(r) + '\n');
+      }
+      else if (part === 'probe-scaling') {
+        const r = await runProbeScalingBenchmark({ redisUrl: process.env.REDIS_URL });
+        process.stdout.write(`probe scaling: ${r.walkers} walkers on ${r.particles} particles: 1 worker ${r.oneWorkerSeconds.toFixed(1)} s, 2 workers ${r.twoWorkerSeconds.toFixed(1)} s, ratio ${r.scalingRatio.toFixed(3)} (target <= 1.2)\n`);
         process.stdout.write(JSON.stringify(r) + '\n');
       }
       else {

@@ -1,0 +1,139 @@
+/**
+ * Probe scaling benchmark: one grown DLA cluster (default 10^6 particles)
+ * probed with W walkers (default 10^7) as a probe request on the farm
+ * (coordinator/farm/probe-requests.ts), first by one `tendril worker`
+ * process, then by two, each with one thread, through BullMQ on Redis
+ * (REDIS_URL). Reports both wall times (launch until the measures are
+ * stored) and the scaling ratio t2 / (t1 / 2) (1 = perfect; the target is
+ * at most 1.2), and whether both runs gave identical measures.
+ *
+ *   node dist/test/bench/probe-scaling-bench.js [--particles N] [--walkers W] [--jobs K]
+ *
+ * Needs the compiled tree (npm run build). Prints one JSON line.
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import { mkdtempSync, rmSync, realpathSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { Redis } from 'ioredis';
+import { runQueue } from '../../coordinator/farm/queue.js';
+import { launchProbeRequest, ProbeRequestStore } from '../../coordinator/farm/probe-requests.js';
+import { createKernel, defaultModelParams } from '../../worker/models.js';
+
+export interface ProbeScalingResult {
+  benchmark: 'probe-scaling';
+  particles: number;
+  walkers: number;
+  jobs: number;
+  growSeconds: number;
+  oneWorkerSeconds: number;
+  twoWorkerSeconds: number;
+  oneWorkerWalkersPerSecond: number;
+  twoWorkerWalkersPerSecond: number;
+  /** t2 / (t1 / 2): 1 = perfect scaling; the target is at most 1.2. */
+  scalingRatio: number;
+  sameMeasures: boolean;
+}
+
+const here = fileURLToPath(import.meta.url);
+const CLI = join(here, '..', '..', '..', 'coordinator', 'cli.js');
+
+function startWorker(redisUrl: string, prefix: string, artifacts: string): Promise<ChildProcess> {
+  const child = spawn(process.execPath, [CLI, 'worker', '--redis', redisUrl, '--prefix', prefix, '--artifacts', artifacts, '--concurrency', '1'], { stdio: ['ignore', 'pipe', 'inherit'] });
+  return new Promise((resolve, reject) => {
+    let out = '';
+    child.stdout!.on('data', (d) => {
+      out += d;
+      if (out.includes('ready:')) resolve(child);
+    });
+    child.once('exit', (code) => reject(new Error(`worker exited with ${code}`)));
+  });
+}
+
+async function stop(children: ChildProcess[]): Promise<void> {
+  await Promise.all(children.map((c) => new Promise<void>((r) => {
+    if (c.exitCode !== null) return r();
+    c.once('exit', () => r());
+    c.kill('SIGTERM');
+  })));
+}
+
+function argValue(argv: string[], name: string, fallback: number): number {
+  const i = argv.indexOf(name);
+  if (i < 0) return fallback;
+  const v = Number(argv[i + 1]);
+  if (!Number.isSafeInteger(v) || v < 1) throw new RangeError(`${name} must be a positive integer, got "${argv[i + 1]}"`);
+  return v;
+}
+
+export async function runProbeScalingBenchmark(o: { particles?: number; walkers?: number; jobs?: number; redisUrl?: string } = {}): Promise<ProbeScalingResult> {
+  const particles = o.particles ?? 1_000_000;
+  const walkers = o.walkers ?? 10_000_000;
+  const jobs = o.jobs ?? 40;
+  const redisUrl = o.redisUrl ?? process.env.REDIS_URL ?? 'redis://127.0.0.1:6379';
+  let t = performance.now();
+  const kernel = createKernel({ model: defaultModelParams('dla-offlattice-2d'), particles, ensembleSeed: '2027', runIndex: 0, recordsPerDecade: 10 });
+  kernel.growTo(particles);
+  const growSeconds = (performance.now() - t) / 1000;
+  const p = kernel.positions();
+  const set = { count: particles, x: p.x.slice(0, particles), y: p.y.slice(0, particles), r: new Float64Array(particles).fill(1) };
+  const prefix = `tendril-bench-probe-${process.pid}`;
+  const redis = new Redis(redisUrl, { maxRetriesPerRequest: null });
+  const store = new ProbeRequestStore(redis, prefix);
+  const queue = runQueue(redis, prefix);
+  const settings = { name: 'probe scaling', walkers, seed: '99', jobs, q: [0, 1, 2, 3], contactSample: 4000, minStep: 0.02 };
+  const timed = async (workers: number): Promise<{ seconds: number; measures: string }> => {
+    const artifacts = mkdtempSync(join(tmpdir(), 'tendril-probe-bench-'));
+    const children: ChildProcess[] = [];
+    try {
+      for (let w = 0; w < workers; w++) children.push(await startWorker(redisUrl, prefix, artifacts));
+      t = performance.now();
+      const id = await launchProbeRequest(store, queue, settings, set);
+      for (;;) {
+        const s = await store.status(id);
+        if (s?.state === 'failed') throw new Error(`probe request failed: ${s.failure}`);
+        if (s?.state === 'done') {
+          const seconds = (performance.now() - t) / 1000;
+          const m = { ...s.measures };
+          await store.purge(id);
+          return { seconds, measures: JSON.stringify(m) };
+        }
+        await new Promise((r) => setTimeout(r, 100));
+      }
+    } finally {
+      await stop(children);
+      rmSync(artifacts, { recursive: true, force: true });
+    }
+  };
+  try {
+    const one = await timed(1);
+    const two = await timed(2);
+    return {
+      benchmark: 'probe-scaling', particles, walkers, jobs, growSeconds,
+      oneWorkerSeconds: one.seconds, twoWorkerSeconds: two.seconds,
+      oneWorkerWalkersPerSecond: walkers / one.seconds, twoWorkerWalkersPerSecond: walkers / two.seconds,
+      scalingRatio: two.seconds / (one.seconds / 2),
+      sameMeasures: one.measures === two.measures,
+    };
+  } finally {
+    await queue.obliterate({ force: true }).catch(() => undefined);
+    await queue.close();
+    redis.disconnect();
+  }
+}
+
+function isEntryPoint(): boolean {
+  try {
+    return process.argv[1] !== undefined && realpathSync(process.argv[1]) === realpathSync(fileURLToPath(import.meta.url));
+  } catch {
+    return false;
+  }
+}
+
+if (isEntryPoint()) {
+  const a = process.argv;
+  const r = await runProbeScalingBenchmark({ particles: argValue(a, '--particles', 1_000_000), walkers: argValue(a, '--walkers', 10_000_000), jobs: argValue(a, '--jobs', 40) });
+  process.stdout.write(`probe scaling: ${r.walkers} walkers on ${r.particles} particles: 1 worker ${r.oneWorkerSeconds.toFixed(1)} s, 2 workers ${r.twoWorkerSeconds.toFixed(1)} s, ratio ${r.scalingRatio.toFixed(3)}\n`);
+  process.stdout.write(JSON.stringify(r) + '\n');
+}
