@@ -102,6 +102,50 @@ describe('OccupancyIndex2d', () => {
     expect(fb).toEqual(fa);
   });
 
+  it('answers a walker that stays in one cell as a fresh index does, and sees centres inserted since', () => {
+    // The index reuses the last exact scan while the walker stays in its
+    // level-0 cell; answers and near lists must equal those of an index that
+    // scans afresh (common practice, no source).
+    const rng = Random.forRun(8, 2);
+    const { x, y } = randomCluster(900, 40, rng);
+    const walker = new OccupancyIndex2d(16);
+    const fresh = new OccupancyIndex2d(16);
+    for (let i = 0; i < x.length; i++) { walker.insert(x[i], y[i]); fresh.insert(x[i], y[i]); }
+    let reused = 0;
+    for (let q = 0; q < 1000; q++) {
+      const j = rng.nextBelow(x.length);
+      // a first query, then four more in the same side-2 cell
+      const cx = Math.floor((x[j] + (rng.nextDouble() - 0.5) * 4) * 0.5) * 2;
+      const cy = Math.floor((y[j] + (rng.nextDouble() - 0.5) * 4) * 0.5) * 2;
+      for (let s = 0; s < 5; s++) {
+        const wx = cx + rng.nextDouble() * 2;
+        const wy = cy + rng.nextDouble() * 2;
+        walker.query(wx, wy);
+        // move `fresh` to an exact scan in another cell first, so that it scans (wx, wy) anew
+        let k = rng.nextBelow(x.length);
+        while (Math.floor((x[k] + 1.01) * 0.5) === cx / 2 && Math.floor(y[k] * 0.5) === cy / 2) k = rng.nextBelow(x.length);
+        fresh.query(x[k] + 1.01, y[k]);
+        if (fresh.nearCount < 0) throw new Error('expected an exact scan next to a disk');
+        fresh.query(wx, wy);
+        let same = walker.free === fresh.free && walker.nearCount === fresh.nearCount;
+        for (let i = 0; i < fresh.nearCount; i++)
+          same &&= walker.nearX[i] === fresh.nearX[i] && walker.nearY[i] === fresh.nearY[i] && walker.nearId[i] === fresh.nearId[i];
+        if (!same) expect({ wx, wy, free: walker.free, count: walker.nearCount }).toEqual({ wx, wy, free: fresh.free, count: fresh.nearCount });
+        if (s > 0 && fresh.nearCount >= 0) reused++;
+      }
+    }
+    expect(reused).toBeGreaterThan(500);
+    // an insert next to the walker's cell after a scan there is seen by the next query
+    const idx = new OccupancyIndex2d(16);
+    idx.insert(0, 0);
+    idx.query(1.5, 0.5);
+    const before = idx.free;
+    idx.insert(2.9, 0.5);
+    idx.query(1.5, 0.5);
+    expect(idx.free).toBeCloseTo(0.4, 12);
+    expect(before).toBeCloseTo(Math.hypot(1.5, 0.5) - 1, 12);
+  });
+
   it('grows with the number of particles, not with the area spanned', () => {
     // 2000 disks on a square lattice of spacing `gap`: the area spanned grows
     // as gap², the index must not (it may grow with log(gap): one mark tile

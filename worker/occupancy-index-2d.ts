@@ -10,7 +10,9 @@
  *  - Buckets (level 0, cells of side 2): each occupied cell points to a chain
  *    of buckets, each holding up to 2 centres' coordinates inline (half a
  *    cache line), in arrival order. When the walker's level-0 cell is marked, the
- *    3 × 3 block of cells around it is scanned exactly.
+ *    3 × 3 block of cells around it is scanned exactly. The centres found are
+ *    kept until the next insert, and reused while the walker's exact scans
+ *    stay in the same cell (about half of them in DLA growth).
  *  - Marks at every level k = 0 … MAX_LEVEL, cells of side 2^(k+1): a cell is
  *    *marked* when a particle centre lies in the (2·DILATION + 1)² block of
  *    cells centred on it. If the walker's cell is unmarked, the nearest
@@ -48,6 +50,10 @@ const BUCKET = 2;
 const BUCKET_WORDS = 2 * BUCKET;
 /** At most this many centres are returned by a scan (a 6 × 6 block holds far fewer unit disks). */
 const MAX_NEAR = 256;
+/** Room for the ring's centres (16 cells of side 2 hold at most about 75 unit disks); grown if ever exceeded. */
+const RING_START = 128;
+/** A cell coordinate no centre can have (cell coordinates are int32 of |x| < 2^31 / 2). */
+const NO_CELL = -2147483648;
 /** SCALES[k] = 1 / (cell side at level k) = 2^-(k+1); SIDES[k] = 2^(k+1). */
 const SCALES = new Float64Array(MAX_LEVEL + 2);
 const SIDES = new Float64Array(MAX_LEVEL + 2);
@@ -66,6 +72,20 @@ export class OccupancyIndex2d {
   nearCount = -1;
   /** Result of the last `query`: a lower bound on (nearest centre distance) − 1. */
   free = 0;
+
+  /**
+   * The last exact scan's 3 × 3 block (level-0 cell of its centre; NO_CELL
+   * when none or after an insert): nearX/nearY[0 .. scanCount) still hold its
+   * centres, and ringX/ringY[0 .. ringCount) those of the ring around it
+   * (ringCount -1: not gathered yet). A walker that stays in one cell reuses
+   * them: the same centres in the same order, so the same answers.
+   */
+  private scanCx = NO_CELL;
+  private scanCy = NO_CELL;
+  private scanCount = 0;
+  private ringX = new Float64Array(RING_START);
+  private ringY = new Float64Array(RING_START);
+  private ringCount = -1;
 
   /** Level-0 cell → newest bucket of its chain (-1: none). */
   private readonly heads: TiledInt32Grid;
@@ -118,6 +138,7 @@ export class OccupancyIndex2d {
   /** Add a centre. Insert in arrival order: scans return centres in that order. */
   insert(px: number, py: number): void {
     this.count++;
+    this.scanCx = NO_CELL;
     const cx = Math.floor(px * 0.5) | 0;
     const cy = Math.floor(py * 0.5) | 0;
     const id = this.count - 1;
@@ -262,39 +283,57 @@ export class OccupancyIndex2d {
   private exactScan(wx: number, wy: number): void {
     const cx = Math.floor(wx * 0.5) | 0;
     const cy = Math.floor(wy * 0.5) | 0;
-    const heads = this.heads;
-    const coords = this.coords;
-    const fill = this.fill;
-    const chain = this.chain;
     const nearX = this.nearX;
     const nearY = this.nearY;
-    const nearId = this.nearId;
-    const ids = this.ids;
-    const trackIds = this.trackIds;
-    let n = 0;
     let best = Infinity;
-    for (let iy = cy - 1; iy <= cy + 1; iy++) {
-      for (let ix = cx - 1; ix <= cx + 1; ix++) {
-        let b = heads.get(ix, iy);
-        while (b >= 0) {
-          const end = BUCKET_WORDS * b + 2 * fill[b];
-          for (let o = BUCKET_WORDS * b; o < end; o += 2) {
-            const px = coords[o];
-            const py = coords[o + 1];
-            const ddx = px - wx;
-            const ddy = py - wy;
-            const d2 = ddx * ddx + ddy * ddy;
-            if (d2 < best) best = d2;
-            if (n < MAX_NEAR) {
-              nearX[n] = px;
-              nearY[n] = py;
-              if (trackIds) nearId[n] = ids[o >> 1]; // coords stride 2 per centre, ids stride 1
-              n++;
+    let n: number;
+    if (cx === this.scanCx && cy === this.scanCy) {
+      // same block as the last scan, no insert since: its centres are still in nearX/nearY
+      n = this.scanCount;
+      for (let j = 0; j < n; j++) {
+        const ddx = nearX[j] - wx;
+        const ddy = nearY[j] - wy;
+        const d2 = ddx * ddx + ddy * ddy;
+        if (d2 < best) best = d2;
+      }
+    } else {
+      const heads = this.heads;
+      const coords = this.coords;
+      const fill = this.fill;
+      const chain = this.chain;
+      const nearId = this.nearId;
+      const ids = this.ids;
+      const trackIds = this.trackIds;
+      n = 0;
+      let complete = true;
+      for (let iy = cy - 1; iy <= cy + 1; iy++) {
+        for (let ix = cx - 1; ix <= cx + 1; ix++) {
+          let b = heads.get(ix, iy);
+          while (b >= 0) {
+            const end = BUCKET_WORDS * b + 2 * fill[b];
+            for (let o = BUCKET_WORDS * b; o < end; o += 2) {
+              const px = coords[o];
+              const py = coords[o + 1];
+              const ddx = px - wx;
+              const ddy = py - wy;
+              const d2 = ddx * ddx + ddy * ddy;
+              if (d2 < best) best = d2;
+              if (n < MAX_NEAR) {
+                nearX[n] = px;
+                nearY[n] = py;
+                if (trackIds) nearId[n] = ids[o >> 1]; // coords stride 2 per centre, ids stride 1
+                n++;
+              } else complete = false;
             }
+            b = chain[b];
           }
-          b = chain[b];
         }
       }
+      // a truncated list cannot stand for the block: do not reuse it
+      this.scanCx = complete ? cx : NO_CELL;
+      this.scanCy = cy;
+      this.scanCount = n;
+      this.ringCount = -1;
     }
     this.nearCount = n;
     const ex = wx - cx * 2;
@@ -302,29 +341,63 @@ export class OccupancyIndex2d {
     const edge = Math.min(ex, 2 - ex, ey, 2 - ey);
     let reach = 2 + edge;
     if (best >= reach * reach) {
-      // Nothing within the 3 × 3 block is closer than its edge: scan the ring
+      // Nothing within the 3 × 3 block is closer than its edge: take the ring
       // of 16 cells around it too (the mark that sent us here may come from
-      // there), so that the answer can reach 4 + edge. The near list is not
-      // needed then (the answer is at least 1 >= minStep).
+      // there), so that the answer can reach 4 + edge. The near list does not
+      // need them (the answer is at least 1 >= minStep).
       reach = 4 + edge;
-      for (let iy = cy - 2; iy <= cy + 2; iy++) {
-        const step = iy === cy - 2 || iy === cy + 2 ? 1 : 4;
-        for (let ix = cx - 2; ix <= cx + 2; ix += step) {
-          let b = heads.get(ix, iy);
-          while (b >= 0) {
-            const e = BUCKET_WORDS * b + 2 * fill[b];
-            for (let o = BUCKET_WORDS * b; o < e; o += 2) {
-              const ddx = coords[o] - wx;
-              const ddy = coords[o + 1] - wy;
-              const d2 = ddx * ddx + ddy * ddy;
-              if (d2 < best) best = d2;
-            }
-            b = chain[b];
-          }
-        }
+      if (this.ringCount < 0) this.gatherRing(cx, cy);
+      const ringX = this.ringX;
+      const ringY = this.ringY;
+      const m = this.ringCount;
+      for (let j = 0; j < m; j++) {
+        const ddx = ringX[j] - wx;
+        const ddy = ringY[j] - wy;
+        const d2 = ddx * ddx + ddy * ddy;
+        if (d2 < best) best = d2;
       }
     }
     const nearest = Math.sqrt(best);
     this.free = (nearest < reach ? nearest : reach) - 1;
   }
+
+  /** Copy the centres of the ring of 16 level-0 cells around the 3 × 3 block at (cx, cy) into ringX/ringY. */
+  private gatherRing(cx: number, cy: number): void {
+    const heads = this.heads;
+    const coords = this.coords;
+    const fill = this.fill;
+    const chain = this.chain;
+    let ringX = this.ringX;
+    let ringY = this.ringY;
+    let m = 0;
+    for (let iy = cy - 2; iy <= cy + 2; iy++) {
+      const step = iy === cy - 2 || iy === cy + 2 ? 1 : 4;
+      for (let ix = cx - 2; ix <= cx + 2; ix += step) {
+        let b = heads.get(ix, iy);
+        while (b >= 0) {
+          const e = BUCKET_WORDS * b + 2 * fill[b];
+          for (let o = BUCKET_WORDS * b; o < e; o += 2) {
+            if (m === ringX.length) {
+              // only for centres packed closer than unit disks allow
+              this.ringX = growCopy(ringX);
+              this.ringY = growCopy(ringY);
+              ringX = this.ringX;
+              ringY = this.ringY;
+            }
+            ringX[m] = coords[o];
+            ringY[m] = coords[o + 1];
+            m++;
+          }
+          b = chain[b];
+        }
+      }
+    }
+    this.ringCount = m;
+  }
+}
+
+function growCopy(a: Float64Array): Float64Array<ArrayBuffer> {
+  const b = new Float64Array(2 * a.length);
+  b.set(a);
+  return b;
 }
