@@ -88,8 +88,18 @@ export function describeAnalysis(s: EnsembleSummaryData): string {
     const cg = hm.capacityGrowth;
     if (cg.dimension !== null) lines.push(`capacity growth: D_cap = ${cg.dimension.toFixed(4)}${cg.dimensionInterval ? ` [${cg.dimensionInterval[0].toFixed(4)}, ${cg.dimensionInterval[1].toFixed(4)}]` : ''}`);
     else if (cg.reason) lines.push(`capacity growth: ${cg.reason}`);
+    const ci = hm.capacityIncrement;
+    if (ci.slope !== null) {
+      const iv = ci.slopeInterval?.bca ?? ci.slopeInterval?.percentile;
+      lines.push(`capacity increment vs Z(3): log-log slope ${ci.slope.toFixed(3)}${iv ? ` [${iv[0].toFixed(3)}, ${iv[1].toFixed(3)}]` : ''} (1 = proportional: ${ci.proportional === null ? 'not judged' : ci.proportional ? 'yes' : 'no'})`);
+    }
     const e = hm.electrostatic;
-    if (e.consistent !== null) lines.push(`tau(3) = D check: ${e.consistent ? 'consistent' : 'NOT consistent'} (tau(3) ${ev(e.tau3)} vs D ${e.massDimension?.value?.toFixed(4) ?? 'n/a'})`);
+    if (e.consistent !== null) lines.push(`tau(3) = D, box fit at N = ${e.size}: ${e.consistent ? 'consistent' : 'not consistent'} (tau(3) ${ev(e.tau3)} vs D ${e.massDimension?.value?.toFixed(4) ?? 'n/a'})`);
+    const ps = e.particleScale;
+    if (ps.ratio !== null) {
+      const iv = ps.ratioInterval?.bca ?? ps.ratioInterval?.percentile;
+      lines.push(`tau(3) = D, particle scale (Z(3) ~ N^(-tau(3)/D)): tau(3)/D = ${ps.ratio.toFixed(3)}${iv ? ` [${iv[0].toFixed(3)}, ${iv[1].toFixed(3)}]` : ''} (${ps.consistent === null ? 'not judged' : ps.consistent ? 'consistent with 1' : 'not consistent with 1'})`);
+    }
   }
   if (s.adaptiveJson !== '') {
     const h = JSON.parse(s.adaptiveJson) as AdaptiveHistory;
