@@ -10,7 +10,7 @@
 import { rmSync } from 'node:fs';
 import { Redis } from 'ioredis';
 import { afterAll, describe, expect, it } from 'vitest';
-import { runEmbedded } from '../coordinator/embedded/index.js';
+import { EmbeddedAborted, runEmbedded } from '../coordinator/embedded/index.js';
 import { DirectoryArtifactStore } from '../coordinator/farm/artifacts.js';
 import { probeResultKey } from '../coordinator/farm/probe-jobs.js';
 import { launchEnsemble, runQueue } from '../coordinator/farm/queue.js';
@@ -105,6 +105,18 @@ describe('embedded probing', () => {
     expect(again.reused).toBe(3);
     expect(again.harmonic).toEqual(direct);
     expect(again.picture?.counts).toEqual(two.picture?.counts);
+    // interrupted while probing: the next invocation probes only what is missing, same records
+    const dir2 = tempDir('probe-embedded-abort');
+    dirs.push(dir2);
+    const store2 = new DirectoryArtifactStore(dir2);
+    const abort = new AbortController();
+    await expect(runEmbedded(spec, {
+      ensembleId: 'p3', threads: 2, store: store2, signal: abort.signal,
+      onProgress: (pr) => { if (pr.probeJobsDone >= 4) abort.abort(); },
+    })).rejects.toBeInstanceOf(EmbeddedAborted);
+    const resumed = await runEmbedded(spec, { ensembleId: 'p3', threads: 2, store: store2 });
+    expect(resumed.reused).toBe(3);
+    expect(resumed.harmonic).toEqual(direct);
     // the summary carries the section and the per-cluster table
     const h = harmonicOfSummary(two.summary)!;
     expect(h.schema).toBe('tendril-harmonic/1');

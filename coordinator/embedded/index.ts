@@ -105,8 +105,8 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
   const probe = spec.probe;
   const probeSizes = probeSizesOf(spec);
   const probePool = probe ? new ProbeThreadPool(pool.size) : null;
-  /** Final positions of clusters grown in this call and not yet probed. */
-  const finals = new Map<number, { x: Float64Array; y: Float64Array; count: number }>();
+  /** Clusters not yet probed: their final positions, or null when they wait in the store. */
+  const finals = new Map<number, { x: Float64Array; y: Float64Array; count: number } | null>();
   const harmonic = new Map<number, ClusterHarmonic[]>();
   let picture: ProbedPicture | null = null;
   let probeJobsDone = 0;
@@ -134,9 +134,8 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
             const recs = await store.get(harmonicKey(opts.ensembleId, run.runIndex));
             if (recs) harmonic.set(run.runIndex, JSON.parse(Buffer.from(recs).toString('utf8')) as ClusterHarmonic[]);
             else {
-              const fin = await store.get(finalKey(opts.ensembleId, run.runIndex));
-              if (!fin) continue;
-              finals.set(run.runIndex, positionsOf(decodeCheckpoint(fin)));
+              if (!(await store.get(finalKey(opts.ensembleId, run.runIndex)))) continue;
+              finals.set(run.runIndex, null);
             }
           }
           results.set(run.runIndex, r);
@@ -183,8 +182,10 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
           if (outcome.status === 'done') {
             if (probe) {
               if (!outcome.final) throw new Error(`run ${run.runIndex}: the thread returned no final positions to probe`);
-              finals.set(run.runIndex, positionsOf(decodeCheckpoint(outcome.final)));
-              if (store) await store.put(finalKey(opts.ensembleId, run.runIndex), outcome.final);
+              if (store) {
+                await store.put(finalKey(opts.ensembleId, run.runIndex), outcome.final);
+                finals.set(run.runIndex, null);
+              } else finals.set(run.runIndex, positionsOf(decodeCheckpoint(outcome.final)));
             }
             results.set(run.runIndex, outcome.result);
             if (store) {
@@ -212,45 +213,64 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
 
   const harmonicList = () => [...harmonic.keys()].sort((a, b) => a - b).flatMap((i) => harmonic.get(i)!);
 
-  /** Probe every cluster grown (or reused without records) and not yet probed, at every probe size. */
-  const probeAll = async () => {
-    if (!probe || !probePool) return;
-    const groups = [...finals.entries()].filter(([i]) => !harmonic.has(i)).sort((a, b) => a[0] - b[0])
-      .flatMap(([runIndex, pos]) => probeSizes.map((size) => ({ runIndex, pos, size, set: clusterPrefix(pos, size) })));
-    const failures: string[] = [];
-    const done = new Map<string, ProbeResult[]>();
-    await Promise.all(groups.map(async (g) => {
-      const key = `${g.runIndex}:${g.size}`;
-      const digest = prefixDigest(g.pos, g.size);
-      const tasks = probeTasksOf(probe, spec.seed, g.runIndex, g.size, digest);
+  /** Probe one cluster at every probe size and keep its records; false when a job failed or the run was aborted. */
+  const probeCluster = async (runIndex: number, failures: string[]): Promise<void> => {
+    const held = finals.get(runIndex);
+    let pos = held ?? null;
+    if (!pos && store) {
+      const fin = await store.get(finalKey(opts.ensembleId, runIndex));
+      if (fin) pos = positionsOf(decodeCheckpoint(fin));
+    }
+    if (!pos) {
+      failures.push(`probe of run ${runIndex}: its final positions are missing`);
+      return;
+    }
+    const final = pos;
+    const groups = await Promise.all(probeSizes.map(async (size) => {
+      const set = clusterPrefix(final, size);
+      const tasks = probeTasksOf(probe!, spec.seed, runIndex, size, prefixDigest(final, size));
       const out = await Promise.all(tasks.map(async (t) => {
         if (opts.signal?.aborted) return null;
         try {
-          const r = await probePool.run(`${opts.ensembleId}:${key}`, () => g.set, t);
+          const r = await probePool!.run(`${opts.ensembleId}:${runIndex}:${size}`, () => set, t);
           probeJobsDone++;
           report();
           return r;
         } catch (err) {
-          failures.push(`probe of run ${g.runIndex} at size ${g.size}, job ${t.jobIndex}: ${(err as Error).message}`);
+          failures.push(`probe of run ${runIndex} at size ${size}, job ${t.jobIndex}: ${(err as Error).message}`);
           return null;
         }
       }));
-      if (out.every((r) => r !== null)) done.set(key, out as ProbeResult[]);
+      return { size, set, results: out.every((r) => r !== null) ? (out as ProbeResult[]) : null };
     }));
-    for (const [runIndex, pos] of [...finals.entries()].sort((a, b) => a[0] - b[0])) {
-      if (harmonic.has(runIndex) || !probeSizes.every((n) => done.has(`${runIndex}:${n}`))) continue;
-      const recs: ClusterHarmonic[] = [];
-      for (const size of probeSizes) {
-        const { record, counts } = analyseProbedCluster(clusterPrefix(pos, size), done.get(`${runIndex}:${size}`)!, probe, runIndex, size);
-        recs.push(record);
-        if (size === spec.particles) {
-          if (store) await store.put(hitsKey(opts.ensembleId, runIndex), new Uint8Array(counts.buffer, counts.byteOffset, counts.byteLength));
-          if (picture === null || runIndex < picture.runIndex) picture = { runIndex, size, x: pos.x.slice(0, size), y: pos.y.slice(0, size), counts };
-        }
+    if (groups.some((g) => g.results === null)) return;
+    const recs: ClusterHarmonic[] = [];
+    for (const g of groups) {
+      const { record, counts } = analyseProbedCluster(g.set, g.results!, probe!, runIndex, g.size);
+      recs.push(record);
+      if (g.size === spec.particles) {
+        if (store) await store.put(hitsKey(opts.ensembleId, runIndex), new Uint8Array(counts.buffer, counts.byteOffset, counts.byteLength));
+        if (picture === null || runIndex < picture.runIndex) picture = { runIndex, size: g.size, x: final.x.slice(0, g.size), y: final.y.slice(0, g.size), counts };
       }
-      harmonic.set(runIndex, recs);
-      if (store) await store.put(harmonicKey(opts.ensembleId, runIndex), Buffer.from(JSON.stringify(recs)));
-      finals.delete(runIndex);
+    }
+    harmonic.set(runIndex, recs);
+    if (store) await store.put(harmonicKey(opts.ensembleId, runIndex), Buffer.from(JSON.stringify(recs)));
+    finals.delete(runIndex);
+  };
+
+  /**
+   * Probe every cluster grown (or reused without records) and not yet
+   * probed, at every probe size: as many clusters at once as there are
+   * probe threads, so that their jobs keep every thread busy while only a
+   * few clusters' positions are in memory (with a store, positions wait
+   * there, not in memory).
+   */
+  const probeAll = async () => {
+    if (!probe || !probePool) return;
+    const todo = [...finals.keys()].filter((i) => !harmonic.has(i)).sort((a, b) => a - b);
+    const failures: string[] = [];
+    for (let w = 0; w < todo.length && !opts.signal?.aborted; w += probePool.size) {
+      await Promise.all(todo.slice(w, w + probePool.size).map((i) => probeCluster(i, failures)));
     }
     if (opts.signal?.aborted) {
       const e = new EmbeddedAborted(`interrupted with ${results.size} of ${planned} runs done${store ? '; checkpoints kept' : ''}`);

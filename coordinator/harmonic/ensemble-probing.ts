@@ -36,10 +36,10 @@ export function probeSeedOf(ensembleSeed: string, runIndex: number, size: number
   return (mix64(a ^ mix64(BigInt(size) + (1n << 40n))) & MASK64).toString();
 }
 
-/** The set of the first `size` particles of a finished cluster (views, no copy). */
+/** The set of the first `size` particles of a finished cluster (compact copies, cheap to send to a thread). */
 export function clusterPrefix(final: { x: Float64Array; y: Float64Array; count: number }, size: number): DiskSet {
   if (!Number.isInteger(size) || size < 1 || size > final.count) throw new RangeError(`probe size ${size} must be an integer from 1 to the cluster's ${final.count} particles`);
-  return { count: size, x: final.x.subarray(0, size), y: final.y.subarray(0, size), r: CLUSTER_CONTACT_RADIUS };
+  return { count: size, x: final.x.slice(0, size), y: final.y.slice(0, size), r: CLUSTER_CONTACT_RADIUS };
 }
 
 /** Positions of a final-state checkpoint. */
