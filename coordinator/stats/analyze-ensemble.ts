@@ -92,7 +92,22 @@ export interface AnalysisOptions {
 export const DEFAULT_SIZE_WINDOW_RULE =
   'N from max(100, N_final * 10^-2.5) to N_final; if fewer than 4 recorded sizes fall inside, the last 4 usable sizes';
 export const DEFAULT_RADIUS_WINDOW_RULE =
-  'r from 5 particle diameters to 0.5 * (smallest final R_g of the ensemble); if fewer than 4 radii fall inside, r from 1 to the smallest final R_g';
+  'r from max(5, R_g(N_lo)) to 0.5 * (smallest final R_g of the ensemble), where N_lo is the lower end of the R_g/R_max size window and R_g(N_lo) the ensemble mean radius of gyration there ' +
+  '(geometric mean, interpolated in log N): the part of a cluster within r of its seed was laid down while the cluster was about that big, so M(r) then describes the same stage of growth as the R_g(N) and R_max(N) fits, and the upper end keeps to the frozen interior; ' +
+  'if fewer than 4 radii fall inside, r from 1 to the smallest final R_g';
+
+/** exp of the ensemble-mean log ordinate of `d` at abscissa `at`, interpolated linearly in log abscissa (clamped to the recorded range). */
+function meanAt(d: LogLogData, at: number): number {
+  const lx = Math.log(at);
+  const n = d.columns;
+  if (n === 0) return NaN;
+  if (lx <= d.x[0]) return Math.exp(d.mean[0]);
+  if (lx >= d.x[n - 1]) return Math.exp(d.mean[n - 1]);
+  let j = 1;
+  while (d.x[j] < lx) j++;
+  const f = (lx - d.x[j - 1]) / (d.x[j] - d.x[j - 1]);
+  return Math.exp(d.mean[j - 1] + f * (d.mean[j] - d.mean[j - 1]));
+}
 export const DEFAULT_CORRECTIONS_WINDOW_RULE = 'N from max(10, N_final * 10^-4) to N_final';
 
 export interface FitWindowSummary {
@@ -303,7 +318,10 @@ export function analyzeEnsemble(runs: readonly GrowthResult[], options: Analysis
         [from, to] = indexRange(ab, lo, hi);
       } else {
         source = 'default'; rule = DEFAULT_RADIUS_WINDOW_RULE;
-        lo = 5; hi = 0.5 * minFinalRg;
+        const sizeUser = options.fitWindow;
+        const sizeLo = sizeUser?.minSize !== undefined ? sizeUser.minSize : Math.max(100, data.finalSize * Math.pow(10, -2.5));
+        const stage = data.radiusOfGyration.columns > 0 ? meanAt(data.radiusOfGyration, sizeLo) : NaN;
+        lo = Number.isFinite(stage) ? Math.max(5, stage) : 5; hi = 0.5 * minFinalRg;
         [from, to] = indexRange(ab, lo, hi);
         if (to - from < 4) { lo = 1; hi = minFinalRg; [from, to] = indexRange(ab, lo, hi); notes.push(`massRadius: default window had fewer than 4 radii; widened to r in [1, ${hi.toPrecision(4)}]`); }
       }
