@@ -182,6 +182,8 @@ describe('harmonic section: per size', () => {
     expect(at.converged[1]).toBe(false);
     expect(at.convergedFraction[2]).toBe(1);
     expect(at.converged[2]).toBe(true);
+    // sorted grid 0 (unjudged), 0.5, 1, 2 (converged), 3 (not): the range to quote is [0.5, 2]
+    expect(at.convergedRange).toEqual([0.5, 2]);
     expect(at.tau3).toBe(at.tau[0]);
     expect(at.beurlingRespected).toBe(true);
     const low = harmonicSection(recs.map((r) => ({ ...r, maxConcentrationExponent: r.maxConcentrationExponent - 0.2 })), options()).bySize[0];

@@ -39,6 +39,16 @@ function madeUpTau(q: number, b: number): number {
   return 0.6 * (q - 1) + (0.4 * (1 - Math.exp(-b * (q - 1)))) / b;
 }
 
+/** The run of converged q holding q = 1 on a sorted grid (rendering data). */
+function rangeAround1(q: number[], conv: boolean[]): [number, number] | null {
+  let k = q.indexOf(1);
+  if (k < 0 || !conv[k]) return null;
+  let a = k;
+  while (a > 0 && conv[a - 1]) a--;
+  while (k < q.length - 1 && conv[k + 1]) k++;
+  return [q[a], q[k]];
+}
+
 function atSize(size: number, q: number[], b: number, o: { clusters?: number; withIntervals?: boolean; notConverged?: number[]; unjudged?: number[] } = {}): HarmonicAtSize {
   const clusters = o.clusters ?? 8;
   const tau = q.map((v) => madeUpTau(v, b));
@@ -56,6 +66,7 @@ function atSize(size: number, q: number[], b: number, o: { clusters?: number; wi
     alpha, f: q.map((v, k) => v * alpha[k] - tau[k]),
     convergedFraction: q.map((v) => ((o.unjudged ?? []).includes(v) ? null : (o.notConverged ?? []).includes(v) ? 0.6 : 1)),
     converged: conv,
+    convergedRange: rangeAround1(q, conv),
     informationDimension: ev(1.004, o.withIntervals === false ? null : 0.012, clusters),
     maxConcentrationExponent: ev(0.62, o.withIntervals === false ? null : 0.03, clusters),
     beurlingRespected: true,
@@ -238,6 +249,8 @@ describe('report: harmonic measure section', () => {
     expect(check('increment')).toContain('data-verdict="yes"');
     expect(check('electrostatic')).toContain('data-verdict="no"');
     expect(check('capacity')).toContain(fmt(1 / 0.585));
+    expect(check('electrostatic-particle')).toContain('data-verdict="yes"');
+    expect(check('q-range')).toContain('for q from −0.5 to 4.5');
     expect(built.notes.filter((n) => n.includes('harmonic'))).toEqual([]);
   });
 

@@ -83,7 +83,7 @@ export function describeAnalysis(s: EnsembleSummaryData): string {
       return `${v.mean.toFixed(4)}${iv ? ` [${iv[0].toFixed(4)}, ${iv[1].toFixed(4)}]` : ''}`;
     };
     if (last) {
-      lines.push(`harmonic measure at N = ${last.size} (${last.clusters} clusters, ${last.walkers} walkers each): tau'(1) = ${ev(last.informationDimension)}, tau(3) = ${ev(last.tau3)}, max-concentration exponent = ${ev(last.maxConcentrationExponent)}`);
+      lines.push(`harmonic measure at N = ${last.size} (${last.clusters} clusters, ${last.walkers} walkers each): tau'(1) = ${ev(last.informationDimension)}, tau(3) = ${ev(last.tau3)}, max-concentration exponent = ${ev(last.maxConcentrationExponent)}; tau(q) converged for ${last.convergedRange ? `q in [${last.convergedRange[0]}, ${last.convergedRange[1]}]` : 'no q'}`);
     }
     const cg = hm.capacityGrowth;
     if (cg.dimension !== null) lines.push(`capacity growth: D_cap = ${cg.dimension.toFixed(4)}${cg.dimensionInterval ? ` [${cg.dimensionInterval[0].toFixed(4)}, ${cg.dimensionInterval[1].toFixed(4)}]` : ''}`);

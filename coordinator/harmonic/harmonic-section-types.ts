@@ -26,6 +26,8 @@ export interface HarmonicAtSize {
   convergedFraction: Array<number | null>;
   /** Per q: true when convergedFraction ≥ 0.9 (our rule). */
   converged: boolean[];
+  /** [q_lo, q_hi]: the longest run of consecutive converged q (preferring the one holding q = 1); null when none. */
+  convergedRange: [number, number] | null;
   informationDimension: EnsembleValue;
   maxConcentrationExponent: EnsembleValue;
   /** Beurling: exponent ≥ 1/2 (interval upper end at least 0.5). */

@@ -28,7 +28,9 @@
  *    A grid of one q ≠ 1 has no α (NaN, null in JSON).
  *  - convergedFraction(q) = share of the clusters judged at q (two probe
  *    halves compared, see probe-analysis.ts) whose halves agree; converged
- *    when that share is at least 0.9.
+ *    when that share is at least 0.9; convergedRange is the longest run of
+ *    consecutive converged q on the sorted grid, preferring the run that
+ *    holds q = 1 (the q-range to quote); the rest are flagged.
  *  - Beurling: the maximum box measure M(ε) ~ (ε/R)^a of a connected set has
  *    a ≥ 1/2 (Beurling's estimate; Garnett & Marshall 2005, Harmonic
  *    Measure). beurlingRespected: the upper end of the 95% interval of the
@@ -188,6 +190,19 @@ function atSize(size: number, group: readonly ClusterHarmonic[], q: readonly num
     return judged > 0 ? agree / judged : null;
   });
   const converged = convergedFraction.map((s) => s !== null && s >= HARMONIC_CONVERGED_SHARE);
+  // the converged q-range: the longest run of consecutive converged q (in ascending q), preferring the one holding q = 1
+  let best: [number, number] | null = null;
+  let bestHasOne = false;
+  for (let i = 0; i < order.length; ) {
+    if (!converged[order[i]]) { i++; continue; }
+    let j = i;
+    while (j + 1 < order.length && converged[order[j + 1]]) j++;
+    const hasOne = order.slice(i, j + 1).some((k) => Math.abs(q[k] - 1) < 1e-12);
+    const len = j - i;
+    if (best === null || (hasOne && !bestHasOne) || (hasOne === bestHasOne && len > best[1] - best[0])) { best = [i, j]; bestHasOne = hasOne; }
+    i = j + 1;
+  }
+  const convergedRange: [number, number] | null = best ? [q[order[best[0]]], q[order[best[1]]]] : null;
   const mx = intervalEnds(maxConcentrationExponent.interval);
   const k3 = q.findIndex((v) => Math.abs(v - 3) < 1e-12);
   return {
@@ -201,6 +216,7 @@ function atSize(size: number, group: readonly ClusterHarmonic[], q: readonly num
     f,
     convergedFraction,
     converged,
+    convergedRange,
     informationDimension,
     maxConcentrationExponent,
     beurlingRespected: mx ? mx[1] >= 0.5 : null,

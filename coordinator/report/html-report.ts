@@ -183,10 +183,19 @@ function qIndex(s: HarmonicAtSize, q: number): number {
   return s.q.findIndex((v) => Math.abs(v - q) < 1e-9);
 }
 
+/** A q value as written on the grid (typographic minus). */
+function qText(v: number): string {
+  return `${v < 0 ? '−' : ''}${Math.abs(v)}`;
+}
+
 /** The checks of the harmonic section as a list: τ(1), τ′(1) against Makarov, Beurling, D_cap, the increment slope, τ(3) against D. */
 function harmonicPanel(h: HarmonicSection, top: HarmonicAtSize | undefined): string {
   const items: string[] = [];
   if (top) {
+    const cr = top.convergedRange;
+    items.push(cr
+      ? `<li data-check="q-range">${richHtml(`τ(q) converged (the two halves of the probes agree in at least 90% of the clusters) for q from ${qText(cr[0])} to ${qText(cr[1])} at N = ${fmtAbscissa(top.size)}; quote τ(q), D_{q} and f(α) only there.`)}</li>`
+      : `<li data-check="q-range" class="na">${richHtml(`No q has converged τ(q) at N = ${fmtAbscissa(top.size)} (or convergence was not judged: a single probe job).`)}</li>`);
     const k1 = qIndex(top, 1);
     const t1 = k1 >= 0 ? top.tau[k1] : null;
     if (t1 && isFiniteNumber(t1.mean)) {
