@@ -62,11 +62,11 @@ describe('log-log fits on exact power laws', () => {
     }
     const w = a.estimators.radiusOfGyration.fitWindow!;
     expect(w.source).toBe('default');
-    expect(w.from).toBeCloseTo(Math.max(100, 1e5 * Math.pow(10, -2.5)), 6); // 316.2
+    expect(w.from).toBeCloseTo(Math.max(100, 1e5 * Math.pow(10, -1.5)), 6); // 3162.3
     expect(w.to).toBe(1e5);
-    // the recorded size 316 = round(10^2.5) lies just below 10^2.5 = 316.23, so the window starts at 355
-    expect(w.firstUsed).toBe(355);
-    expect(w.points).toBe(50);
+    // the recorded size 3162 = round(10^3.5) lies just below 10^3.5 = 3162.28, so the window starts at round(10^3.55) = 3548
+    expect(w.firstUsed).toBe(3548);
+    expect(w.points).toBe(30);
     const m = a.estimators.massRadius.fitWindow!;
     // M(r) starts at the ensemble's R_g at the lower end of the size window (316.23): for an exact
     // power law, the geometric mean over clusters of R_g(n0) (316.23/n0)^(1/D), n0 the first recorded size

@@ -90,7 +90,10 @@ export interface AnalysisOptions {
 }
 
 export const DEFAULT_SIZE_WINDOW_RULE =
-  'N from max(100, N_final * 10^-2.5) to N_final; if fewer than 4 recorded sizes fall inside, the last 4 usable sizes';
+  'N from max(100, N_final * 10^-1.5) to N_final (the last 1.5 decades: the effective dimension of DLA drifts with N, and a wider window reaches into the drift of the small clusters); if fewer than 4 recorded sizes fall inside, the last 4 usable sizes';
+
+/** Decades of N below the final size covered by the default size window (see DEFAULT_SIZE_WINDOW_RULE). */
+export const DEFAULT_SIZE_WINDOW_DECADES = 1.5;
 export const DEFAULT_RADIUS_WINDOW_RULE =
   'r from max(5, R_g(N_lo)) to 0.5 * (smallest final R_g of the ensemble), where N_lo is the lower end of the R_g/R_max size window and R_g(N_lo) the ensemble mean radius of gyration there ' +
   '(geometric mean, interpolated in log N): the part of a cluster within r of its seed was laid down while the cluster was about that big, so M(r) then describes the same stage of growth as the R_g(N) and R_max(N) fits, and the upper end keeps to the frozen interior; ' +
@@ -319,7 +322,7 @@ export function analyzeEnsemble(runs: readonly GrowthResult[], options: Analysis
       } else {
         source = 'default'; rule = DEFAULT_RADIUS_WINDOW_RULE;
         const sizeUser = options.fitWindow;
-        const sizeLo = sizeUser?.minSize !== undefined ? sizeUser.minSize : Math.max(100, data.finalSize * Math.pow(10, -2.5));
+        const sizeLo = sizeUser?.minSize !== undefined ? sizeUser.minSize : Math.max(100, data.finalSize * Math.pow(10, -DEFAULT_SIZE_WINDOW_DECADES));
         const stage = data.radiusOfGyration.columns > 0 ? meanAt(data.radiusOfGyration, sizeLo) : NaN;
         lo = Number.isFinite(stage) ? Math.max(5, stage) : 5; hi = 0.5 * minFinalRg;
         [from, to] = indexRange(ab, lo, hi);
@@ -332,7 +335,7 @@ export function analyzeEnsemble(runs: readonly GrowthResult[], options: Analysis
         [from, to] = indexRange(ab, lo, hi);
       } else {
         source = 'default'; rule = DEFAULT_SIZE_WINDOW_RULE;
-        hi = data.finalSize; lo = Math.max(100, hi * Math.pow(10, -2.5));
+        hi = data.finalSize; lo = Math.max(100, hi * Math.pow(10, -DEFAULT_SIZE_WINDOW_DECADES));
         [from, to] = indexRange(ab, lo, hi);
         if (to - from < 4) {
           to = d.columns; from = Math.max(0, to - 4); lo = ab[from]; hi = ab[to - 1];
