@@ -7,8 +7,7 @@
  * (set, task) only.
  */
 import { Worker } from 'node:worker_threads';
-import { existsSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
+import { compiledWorkerEntry } from './thread-entry.js';
 import type { DiskSet, ProbeResult, ProbeTask } from './probe-2d.js';
 import type { FromProbeThread, ToProbeThread } from './probe-thread.js';
 
@@ -21,17 +20,6 @@ interface Slot {
 
 export class ProbeJobFailed extends Error {
   override name = 'ProbeJobFailed';
-}
-
-/** The compiled thread entry; under vitest (TypeScript sources) it points into dist/. */
-function threadEntry(): URL {
-  const here = fileURLToPath(import.meta.url);
-  if (here.endsWith('.ts')) {
-    const compiled = here.replace(/([\\/])worker([\\/])probe-thread-pool\.ts$/, '$1dist$1worker$2probe-thread.js');
-    if (!existsSync(compiled)) throw new Error(`compiled thread entry ${compiled} is missing: run npm run build`);
-    return new URL(`file://${compiled}`);
-  }
-  return new URL('./probe-thread.js', import.meta.url);
 }
 
 export class ProbeThreadPool {
@@ -51,7 +39,7 @@ export class ProbeThreadPool {
       const free = this.slots.filter((s) => !s.busy);
       let slot = free.find((s) => s.key === key);
       if (!slot && this.slots.length < this.size) {
-        slot = { worker: new Worker(threadEntry()), busy: false, key: null, lastUsed: 0 };
+        slot = { worker: new Worker(compiledWorkerEntry(import.meta.url, 'probe-thread')), busy: false, key: null, lastUsed: 0 };
         this.slots.push(slot);
       }
       if (!slot && free.length > 0) slot = free.reduce((a, b) => (a.lastUsed <= b.lastUsed ? a : b));

@@ -17,8 +17,7 @@
  * thread's entry point (when loaded as a Worker).
  */
 import { isMainThread, parentPort, Worker } from 'node:worker_threads';
-import { existsSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
+import { compiledWorkerEntry } from './thread-entry.js';
 import {
   decodeCheckpoint,
   decodeRunResult,
@@ -119,17 +118,6 @@ interface Slot {
   busy: boolean;
 }
 
-/** The compiled thread entry; under vitest (TypeScript sources) it points into dist/. */
-function threadEntry(): URL {
-  const here = fileURLToPath(import.meta.url);
-  if (here.endsWith('.ts')) {
-    const compiled = here.replace(/([\\/])worker([\\/])task-thread\.ts$/, '$1dist$1worker$2task-thread.js');
-    if (!existsSync(compiled)) throw new Error(`compiled thread entry ${compiled} is missing: run npm run build`);
-    return new URL(`file://${compiled}`);
-  }
-  return new URL(import.meta.url);
-}
-
 export class TaskThreadPool {
   private readonly slots: Slot[] = [];
   private readonly waiting: Array<() => void> = [];
@@ -141,7 +129,7 @@ export class TaskThreadPool {
   }
 
   private spawn(): Slot {
-    const worker = new Worker(threadEntry());
+    const worker = new Worker(compiledWorkerEntry(import.meta.url, 'task-thread'));
     const slot: Slot = { worker, busy: false };
     this.slots.push(slot);
     return slot;

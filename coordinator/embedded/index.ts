@@ -152,6 +152,17 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
   const onAbort = () => {
     for (const a of active) a.stop();
   };
+  const harmonicList = () => [...harmonic.keys()].sort((a, b) => a - b).flatMap((i) => harmonic.get(i)!);
+  /** What an interrupted call rejects with: the runs (and probe records) finished so far. */
+  const abortedError = (): EmbeddedAborted => {
+    const e = new EmbeddedAborted(`interrupted with ${results.size} of ${planned} runs done${store ? '; checkpoints kept' : ''}`);
+    e.results = [...results.values()].sort((x, y) => x.runIndex - y.runIndex);
+    e.clustersPlanned = planned;
+    e.adaptive = adaptive;
+    e.harmonic = harmonicList();
+    return e;
+  };
+
   const grow = async (runs: RunTaskData[]) => {
     const failures: string[] = [];
     await Promise.all(
@@ -200,18 +211,9 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
           }
         }),
     );
-    if (opts.signal?.aborted) {
-      const e = new EmbeddedAborted(`interrupted with ${results.size} of ${planned} runs done${store ? '; checkpoints kept' : ''}`);
-      e.results = [...results.values()].sort((x, y) => x.runIndex - y.runIndex);
-      e.clustersPlanned = planned;
-      e.adaptive = adaptive;
-      e.harmonic = harmonicList();
-      throw e;
-    }
+    if (opts.signal?.aborted) throw abortedError();
     if (failures.length > 0) throw new Error(`${failures.length} run(s) failed; first: ${failures[0]}`);
   };
-
-  const harmonicList = () => [...harmonic.keys()].sort((a, b) => a - b).flatMap((i) => harmonic.get(i)!);
 
   /** Probe one cluster at every probe size and keep its records; false when a job failed or the run was aborted. */
   const probeCluster = async (runIndex: number, failures: string[]): Promise<void> => {
@@ -272,14 +274,7 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
     for (let w = 0; w < todo.length && !opts.signal?.aborted; w += probePool.size) {
       await Promise.all(todo.slice(w, w + probePool.size).map((i) => probeCluster(i, failures)));
     }
-    if (opts.signal?.aborted) {
-      const e = new EmbeddedAborted(`interrupted with ${results.size} of ${planned} runs done${store ? '; checkpoints kept' : ''}`);
-      e.results = [...results.values()].sort((x, y) => x.runIndex - y.runIndex);
-      e.clustersPlanned = planned;
-      e.adaptive = adaptive;
-      e.harmonic = harmonicList();
-      throw e;
-    }
+    if (opts.signal?.aborted) throw abortedError();
     if (failures.length > 0) throw new Error(`${failures.length} probe job(s) failed; first: ${failures[0]}`);
   };
 
