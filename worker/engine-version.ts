@@ -4,4 +4,4 @@
  * kernel, the random generator or the observables could change a single bit
  * of a result, so that results from different engines are never mixed.
  */
-export const ENGINE_VERSION = 'tendril-engine/1';
+export const ENGINE_VERSION = 'tendril-engine/2';

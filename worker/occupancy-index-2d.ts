@@ -10,14 +10,21 @@
  *  - Buckets (level 0, cells of side 2): each occupied cell points to a chain
  *    of buckets, each holding up to 2 centres' coordinates inline (half a
  *    cache line), in arrival order. When the walker's level-0 cell is marked, the
- *    3 × 3 block of cells around it is scanned exactly. The centres found are
- *    kept until the next insert, and reused while the walker's exact scans
- *    stay in the same cell (about half of them in DLA growth).
+ *    3 × 3 block of cells around it is scanned exactly, visiting only the
+ *    cells that hold centres (a bit grid of them, worker/window-bit-grid.ts,
+ *    gives a row of the block in one word). The centres found are kept until
+ *    the next insert, and reused while the walker's exact scans stay in the
+ *    same cell (about half of them in DLA growth).
  *  - Marks at every level k = 0 … MAX_LEVEL, cells of side 2^(k+1): a cell is
  *    *marked* when a particle centre lies in the (2·DILATION + 1)² block of
- *    cells centred on it. If the walker's cell is unmarked, the nearest
- *    centre is at least DILATION · side + (distance from the walker to its
- *    own cell's edge) away. Marks are monotone in k (an unmarked cell's
+ *    cells centred on it. An unmarked cell also carries its *closeness*, a
+ *    lower bound on the Euclidean gap between its square and the nearest
+ *    cell holding a centre (between DILATION and GAP_RADIUS sides, in steps
+ *    of 1/GAP_PER_SIDE side). If the walker's cell is unmarked, the nearest
+ *    centre is at least that gap + (distance from the walker to its own
+ *    cell's edge) away: a segment from the walker to a centre leaves the
+ *    walker's cell after at least that distance and then crosses the gap.
+ *    Marks are monotone in k (an unmarked cell's
  *    children are unmarked), so the largest unmarked level is unique and the
  *    query result does not depend on where the search starts — which keeps
  *    results independent of the order of queries, and so of checkpoints.
@@ -29,6 +36,9 @@
 
 import { TILE_CELLS } from './tile-directory.js';
 import { TiledByteGrid, TiledInt32Grid } from './tiled-grids.js';
+import { CORE_MASK, WINDOW_RADIUS, WindowBitGrid } from './window-bit-grid.js';
+
+const clz32 = Math.clz32;
 
 /** Mark levels 0..MAX_LEVEL; the coarsest cell has side 2^(MAX_LEVEL+1) = 2^25 diameters. */
 const MAX_LEVEL = 24;
@@ -41,9 +51,40 @@ const PARENT = 4;
 /**
  * Marks extend this many cells around a centre's cell at every level (a
  * 5 × 5 block). Wider marks give longer jumps per query but send more
- * queries to the exact scan; 2 was fastest when measured against 1 and 3.
+ * queries to the exact scan; 2 was fastest when measured against 1 and 3
+ * (before the closeness field).
  */
 const DILATION = 2;
+/**
+ * Bits GAP_SHIFT.. of a mark cell hold its *closeness* c in 0 .. GAP_STEPS:
+ * the square of an unmarked level-k cell is at Euclidean distance at least
+ * (DILATION + (GAP_STEPS − c) / GAP_PER_SIDE) · side from every level-k cell
+ * that holds a centre. It is kept for the cells within GAP_RADIUS cells of
+ * each holding cell; a cell further from all of them (c = 0, the blank
+ * value) is at least GAP_RADIUS · side = (DILATION + GAP_STEPS / GAP_PER_SIDE) · side
+ * from them.
+ */
+const GAP_SHIFT = 3;
+const GAP_PER_SIDE = 8;
+const GAP_RADIUS = 4;
+const GAP_STEPS = (GAP_RADIUS - DILATION) * GAP_PER_SIDE;
+/**
+ * CLOSENESS[(dy + GAP_RADIUS)·(2·GAP_RADIUS + 1) + dx + GAP_RADIUS]: the
+ * closeness a holding cell gives the cell (dx, dy) cells away, from the exact
+ * gap between the two squares, sqrt(a² + b²) sides with a = max(|dx| − 1, 0),
+ * b = max(|dy| − 1, 0): GAP_STEPS − u for the largest u in 0 .. GAP_STEPS with
+ * DILATION + u / GAP_PER_SIDE <= that gap (integer arithmetic, no rounding).
+ */
+const CLOSENESS = new Uint8Array((2 * GAP_RADIUS + 1) ** 2);
+for (let dy = -GAP_RADIUS; dy <= GAP_RADIUS; dy++)
+  for (let dx = -GAP_RADIUS; dx <= GAP_RADIUS; dx++) {
+    const a = Math.max(Math.abs(dx) - 1, 0);
+    const b = Math.max(Math.abs(dy) - 1, 0);
+    const gap2 = GAP_PER_SIDE * GAP_PER_SIDE * (a * a + b * b); // gap², in (sides / GAP_PER_SIDE)²
+    let u = -1;
+    while (u < GAP_STEPS && (DILATION * GAP_PER_SIDE + u + 1) ** 2 <= gap2) u++;
+    CLOSENESS[(dy + GAP_RADIUS) * (2 * GAP_RADIUS + 1) + dx + GAP_RADIUS] = u < 0 ? GAP_STEPS : GAP_STEPS - u;
+  }
 /** Centres per bucket (a cell of side 2 holds two on average in a DLA cluster; fuller cells chain buckets). */
 const BUCKET = 2;
 /** Float64 words per bucket (x, y per centre). */
@@ -98,6 +139,8 @@ export class OccupancyIndex2d {
   private buckets = 0;
   /** marks[k]: mark cells of side 2^(k+1), k = 0..MAX_LEVEL. */
   private readonly marks: TiledByteGrid[] = [];
+  /** One bit per level-0 cell, set when the cell holds a centre (the HOLDS bits of marks[0], laid out for window reads). */
+  private readonly held0: WindowBitGrid;
   /** Level at which the next search starts (a speed hint only). */
   private guess = 1;
   private count = 0;
@@ -116,6 +159,7 @@ export class OccupancyIndex2d {
     this.fill = new Uint8Array(expectBuckets);
     this.chain = new Int32Array(expectBuckets);
     this.heads = new TiledInt32Grid(-1, Math.max(16, expectedParticles >> 6));
+    this.held0 = new WindowBitGrid(Math.max(16, expectedParticles >> 8));
     let expect = Math.max(16, expectedParticles >> 5);
     for (let k = 0; k <= MAX_LEVEL; k++) {
       this.marks.push(new TiledByteGrid(Math.max(4, expect)));
@@ -132,6 +176,7 @@ export class OccupancyIndex2d {
   get bytes(): number {
     let b = this.heads.bytes + this.coords.byteLength + this.ids.byteLength + this.fill.byteLength + this.chain.byteLength;
     for (const t of this.marks) b += t.bytes;
+    b += this.held0.bytes;
     return b;
   }
 
@@ -165,6 +210,8 @@ export class OccupancyIndex2d {
       // A cell that already holds a centre has its block marked, and so does
       // every coarser cell containing it: nothing left to do.
       if ((old & HOLDS) !== 0) break;
+      if (k === 0) this.held0.set(ix, iy);
+      t.raiseBlock(ix, iy, GAP_RADIUS, CLOSENESS, GAP_SHIFT);
       const below = k > 0 ? this.marks[k - 1] : null;
       for (let dy = -DILATION; dy <= DILATION; dy++)
         for (let dx = -DILATION; dx <= DILATION; dx++) {
@@ -266,12 +313,13 @@ export class OccupancyIndex2d {
     }
     this.guess = k;
     this.nearCount = -1;
+    // the cell is unmarked: its closeness bounds the distance to every centre
     const side = SIDES[k];
     const inv = SCALES[k];
     const ex = wx - Math.floor(wx * inv) * side;
     const ey = wy - Math.floor(wy * inv) * side;
     const edge = Math.min(ex, side - ex, ey, side - ey);
-    this.free = DILATION * side + edge - 1;
+    this.free = (DILATION + (GAP_STEPS - (v >>> GAP_SHIFT)) * (1 / GAP_PER_SIDE)) * side + edge - 1;
   }
 
   /** Mark bits of the level-k cell holding (wx, wy). */
@@ -306,9 +354,16 @@ export class OccupancyIndex2d {
       const trackIds = this.trackIds;
       n = 0;
       let complete = true;
-      for (let iy = cy - 1; iy <= cy + 1; iy++) {
-        for (let ix = cx - 1; ix <= cx + 1; ix++) {
-          let b = heads.get(ix, iy);
+      // only the cells that hold centres (their bits in held[0]), row by row
+      const row0 = this.heldRow0(cx, cy);
+      const words = this.held0.words;
+      const shift = (cx & CORE_MASK) + WINDOW_RADIUS - 1; // bit 0: column cx - 1
+      for (let dy = -1; dy <= 1; dy++) {
+        let cells = row0 < 0 ? 0 : (words[row0 + dy] >>> shift) & 7;
+        while (cells !== 0) {
+          const ix = cx - 1 + (31 - clz32(cells & -cells));
+          cells &= cells - 1;
+          let b = heads.get(ix, cy + dy);
           while (b >= 0) {
             const end = BUCKET_WORDS * b + 2 * fill[b];
             for (let o = BUCKET_WORDS * b; o < end; o += 2) {
@@ -370,10 +425,16 @@ export class OccupancyIndex2d {
     let ringX = this.ringX;
     let ringY = this.ringY;
     let m = 0;
-    for (let iy = cy - 2; iy <= cy + 2; iy++) {
-      const step = iy === cy - 2 || iy === cy + 2 ? 1 : 4;
-      for (let ix = cx - 2; ix <= cx + 2; ix += step) {
-        let b = heads.get(ix, iy);
+    const row0 = this.heldRow0(cx, cy);
+    const words = this.held0.words;
+    const shift = (cx & CORE_MASK) + WINDOW_RADIUS - 2; // bit 0: column cx - 2
+    for (let dy = -2; dy <= 2; dy++) {
+      // all five columns in the outer rows, the two outer ones in the others
+      let cells = row0 < 0 ? 0 : (words[row0 + dy] >>> shift) & (dy === -2 || dy === 2 ? 0x1f : 0x11);
+      while (cells !== 0) {
+        const ix = cx - 2 + (31 - clz32(cells & -cells));
+        cells &= cells - 1;
+        let b = heads.get(ix, cy + dy);
         while (b >= 0) {
           const e = BUCKET_WORDS * b + 2 * fill[b];
           for (let o = BUCKET_WORDS * b; o < e; o += 2) {
@@ -393,6 +454,12 @@ export class OccupancyIndex2d {
       }
     }
     this.ringCount = m;
+  }
+
+  /** Offset in held[0].words of the row of level-0 cell row cy, in the tile owning cell (cx, cy); -1: no centre within 4 cells. */
+  private heldRow0(cx: number, cy: number): number {
+    const base = this.held0.tileOffset(cx, cy);
+    return base < 0 ? -1 : base + (cy & CORE_MASK) + WINDOW_RADIUS;
   }
 }
 

@@ -4,7 +4,7 @@
  * one typed array with 64 cells per tile, grown by doubling.
  */
 
-import { TILE_CELLS, TILE_SHIFT, TileDirectory, cellInTile } from './tile-directory.js';
+import { TILE_CELLS, TILE_MASK, TILE_SHIFT, TileDirectory, cellInTile } from './tile-directory.js';
 
 export class TiledInt32Grid {
   readonly dir: TileDirectory;
@@ -61,6 +61,41 @@ export class TiledByteGrid {
   get(ix: number, iy: number): number {
     const t = this.dir.find(ix >> TILE_SHIFT, iy >> TILE_SHIFT);
     return t < 0 ? 0 : this.pool[t * TILE_CELLS + cellInTile(ix, iy)];
+  }
+
+  /**
+   * For every cell of the (2r + 1)² block centred on (ix, iy): raise the
+   * field in bits `shift`.. of the cell to at least values[(dy + r)·(2r + 1) + dx + r]
+   * (bits below `shift` are kept). Tiles are visited one at a time.
+   */
+  raiseBlock(ix: number, iy: number, r: number, values: Uint8Array, shift: number): void {
+    const low = (1 << shift) - 1;
+    const w = 2 * r + 1;
+    for (let ty = (iy - r) >> TILE_SHIFT; ty <= (iy + r) >> TILE_SHIFT; ty++) {
+      const y0 = Math.max(iy - r, ty << TILE_SHIFT);
+      const y1 = Math.min(iy + r, (ty << TILE_SHIFT) + TILE_MASK);
+      for (let tx = (ix - r) >> TILE_SHIFT; tx <= (ix + r) >> TILE_SHIFT; tx++) {
+        const x0 = Math.max(ix - r, tx << TILE_SHIFT);
+        const x1 = Math.min(ix + r, (tx << TILE_SHIFT) + TILE_MASK);
+        const t = this.dir.findOrAdd(tx, ty);
+        if ((t + 1) * TILE_CELLS > this.pool.length) {
+          const bigger = new Uint8Array(this.pool.length * 2);
+          bigger.set(this.pool);
+          this.pool = bigger;
+        }
+        const pool = this.pool;
+        for (let y = y0; y <= y1; y++) {
+          const row = t * TILE_CELLS + ((y & TILE_MASK) << TILE_SHIFT);
+          const vrow = (y - iy + r) * w + r - ix;
+          for (let x = x0; x <= x1; x++) {
+            const v = values[vrow + x];
+            const o = row + (x & TILE_MASK);
+            const old = pool[o];
+            if (v > old >>> shift) pool[o] = (old & low) | (v << shift);
+          }
+        }
+      }
+    }
   }
 
   /** Or `bits` into cell (ix, iy); returns the old value. */
