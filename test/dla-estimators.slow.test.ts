@@ -1,35 +1,31 @@
 /**
- * A real DLA ensemble of CI size (32 off-lattice clusters of 25000
- * particles, grown by the embedded mode): D from the three estimators of the
- * summary with the library's default windows.
+ * A real DLA ensemble of a size that fits CI (16 off-lattice clusters of
+ * 10^6 particles, grown by the embedded mode on two threads, about 1.5
+ * minutes here): D from the three estimators of the summary with the
+ * library's default windows.
  *
  * Published value: D = 1.7100 ± 0.0002 for 2D off-lattice DLA (Menshutin,
  * Shchur & Vinokur 2008, Physica A 387, 6299), from R_g(N) of very large
  * clusters with corrections to scaling.
  *
- * What we find at this size (seed 1710, deterministic; 95% BCa, 2000 resamples):
- *   D(R_g)   1.715 [1.703, 1.732]  - covers the published value
- *   D(R_max) 1.753 [1.731, 1.777]  - high
- *   D(M(r))  1.675 [1.659, 1.687]  - low (window r = 7.9 .. 79: from R_g at the
- *                                     size window's lower end N = 100 to half
- *                                     the smallest final R_g)
- * R_max is an extreme-value statistic of the rim: its local slopes still
- * swing between 1.70 and 1.79 over N = 10^3..10^4, so it converges more
- * slowly than R_g. M(r) of the final clusters describes the structure laid
- * down while the cluster was small; its local slopes rise with r (about 1.65
- * at r = 5, 1.69 at r = 60..110) and bend down at the growing rim. These are
- * finite-size effects, not faults of the fits, and they shrink slowly: on 16
- * clusters of 200000 particles (same seed, measured with the same code)
- *   D(R_g) 1.725 [1.709, 1.745], D(R_max) 1.765 [1.731, 1.804],
- *   D(M(r)) 1.701 [1.687, 1.716] (r = 22 .. 282),
- * R_g and M(r) now both cover 1.7100 but their paired difference still
- * excludes 0, and M(r)'s local slopes reach 1.71-1.73 only for r > 110.
- * Multiscaling-like drift of this kind is reported for off-lattice DLA below
- * about 10^4 particles and fading only for much larger clusters (Menshutin
- * 2012, Phys. Rev. Lett. 108, 015501). So the test checks R_g against the
- * published value and states the disagreement of the other two as an
- * expected failure (it.fails): if a later change makes the three agree,
- * this test turns red and should become a plain `it`.
+ * Why this size. The effective dimension of DLA drifts with N: local slopes
+ * of R_g(N) wander between 1.57 and 1.75 below N ≈ 10^4 and settle near 1.71
+ * only above N ≈ 10^5; seed-centred M(r) describes the cluster's earlier
+ * stages (local slopes 1.63-1.66 for r < 30, 1.70-1.71 for r > 100); the rim
+ * statistic R_max converges slowest (drift of this kind is reported for
+ * off-lattice DLA below about 10^4 particles: Menshutin 2012, Phys. Rev.
+ * Lett. 108, 015501). Measured with seed 1710 (95% BCa, 2000 resamples):
+ *   32 × 25000, default windows (the last 1.5 decades of N; r from R_g at the
+ *     window's lower end to half the final R_g): the three disagree
+ *     (R_g 1.722 [1.706, 1.741], R_max 1.766 [1.730, 1.800], M(r) 1.684
+ *     [1.663, 1.704]; paired differences exclude 0);
+ *   16 × 10^6 with the older 2.5-decade window: R_g 1.719 [1.711, 1.729]
+ *     misses 1.7100 and the pairs disagree — the window reached into the
+ *     small-N drift, which is why the default is now 1.5 decades;
+ *   16 × 10^6, default windows: this test.
+ * The statistical intervals do not include the remaining systematic drift,
+ * so the checks below are meaningful only at sizes where the local slopes
+ * have settled; the local-slope test shows that they have.
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { runEmbedded } from '../coordinator/embedded/index.js';
@@ -38,42 +34,45 @@ import type { EnsembleAnalysis } from '../coordinator/stats/analyze-ensemble.js'
 import { analysisOf } from '../coordinator/summary/index.js';
 
 const PUBLISHED_D = 1.71; // Menshutin, Shchur & Vinokur 2008, Physica A 387, 6299: 1.7100 ± 0.0002
+const CLUSTERS = 16;
+const PARTICLES = 1_000_000;
 let a: EnsembleAnalysis;
 
 beforeAll(async () => {
-  const spec = validateSpec({ name: 'dla-estimators', model: 'dla-offlattice-2d', particles: 25000, clusters: 32, seed: 1710, records_per_decade: 20 });
+  const spec = validateSpec({ name: 'dla-estimators', model: 'dla-offlattice-2d', particles: PARTICLES, clusters: CLUSTERS, seed: 1710, records_per_decade: 20 }, { maxTotalParticles: 1e8 });
   const o = await runEmbedded(spec, { ensembleId: 'dla-estimators', threads: 2 });
   a = analysisOf(o.summary)!;
-}, 180_000);
+}, 600_000);
 
 const iv = (e: { interval: { bca: [number, number] | null; percentile: [number, number] | null } }) => e.interval.bca ?? e.interval.percentile!;
 
 describe('DLA ensemble: three estimators of D (slow)', () => {
   it('D from R_g covers the published off-lattice value; every estimate obeys Kesten and D <= 2', () => {
     const rg = a.estimators.radiusOfGyration;
-    expect(a.clusters).toBe(32);
+    expect(a.clusters).toBe(CLUSTERS);
     expect(rg.interval.status).toBe('ok');
     const [lo, hi] = iv(rg);
     expect(lo).toBeLessThanOrEqual(PUBLISHED_D);
     expect(hi).toBeGreaterThanOrEqual(PUBLISHED_D);
     expect(hi - lo).toBeLessThan(0.05);
     for (const e of Object.values(a.estimators)) {
-      expect(e.D!).toBeGreaterThan(1.5); // Kesten's bound (from memory: Kesten 1987, D >= 3/2 in 2D)
+      expect(e.D!).toBeGreaterThan(1.5); // Kesten's bound (Kesten 1987, Stoch. Proc. Appl. 25, 165: D >= 3/2 in 2D)
       expect(e.D!).toBeLessThan(2);
     }
   });
 
-  it('the finite-size drift is visible: R_max sits above R_g and M(r) below, the M(r) local slopes rise through the frozen region', () => {
-    const rg = a.estimators.radiusOfGyration.D!;
-    expect(a.estimators.maxRadius.D!).toBeGreaterThan(rg);
-    expect(a.estimators.massRadius.D!).toBeLessThan(rg);
-    const pts = a.estimators.massRadius.localSlopes!.points.filter((p) => p.D !== null);
-    const near = (r: number) => pts.reduce((b, p) => (Math.abs(Math.log(p.at / r)) < Math.abs(Math.log(b.at / r)) ? p : b));
-    expect(near(60).D!).toBeGreaterThan(near(8).D!);
+  it('the local slopes have settled inside the fit windows: every window point within 0.03 of the fitted D (our rule, no source)', () => {
+    for (const name of ['radiusOfGyration', 'massRadius'] as const) {
+      const e = a.estimators[name];
+      const w = e.fitWindow!;
+      const inside = e.localSlopes!.points.filter((p) => p.D !== null && p.at >= w.firstUsed! && p.at <= w.lastUsed!);
+      expect(inside.length, name).toBeGreaterThan(3);
+      for (const p of inside) expect(Math.abs(p.D! - e.D!), `${name} at ${p.at}`).toBeLessThan(0.03);
+    }
   });
 
-  // Known disagreement at CI sizes (see the header): expected to fail until the estimators agree.
-  it.fails('all three estimators agree within their intervals (paired differences contain 0)', () => {
+  it('all three estimators agree within their intervals (paired differences contain 0) and the panel says so', () => {
+    expect(a.consistency.pairs.length).toBe(3);
     for (const p of a.consistency.pairs) expect(p.agree, `${p.a} vs ${p.b}: difference ${p.difference}`).toBe(true);
   });
 });
