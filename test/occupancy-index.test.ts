@@ -200,7 +200,7 @@ describe('OccupancyIndex2d', () => {
 });
 
 describe('WindowBitGrid', () => {
-  it('reads the 9 × 9 window around any cell from the tile owning it, across tile borders and negative coordinates', () => {
+  it('reads the window around any cell from the tile owning it, across tile borders and negative coordinates', () => {
     // against a plain set of cells (common practice, no source)
     const rng = Random.forRun(4, 4);
     const grid = new WindowBitGrid(4);
@@ -226,6 +226,6 @@ describe('WindowBitGrid', () => {
         }
         expect(grid.get(ix, iy)).toBe(set.has(`${ix},${iy}`));
       }
-    expect(ones).toBeGreaterThan(10000);
+    expect(ones).toBeGreaterThan(5000);
   });
 });

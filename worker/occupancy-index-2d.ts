@@ -51,8 +51,9 @@ const PARENT = 4;
 /**
  * Marks extend this many cells around a centre's cell at every level (a
  * 5 × 5 block). Wider marks give longer jumps per query but send more
- * queries to the exact scan; 2 was fastest when measured against 1 and 3
- * (before the closeness field).
+ * queries to the exact scan; 2 was fastest when measured against 1 and 3,
+ * before the closeness field and again with it (GAP_RADIUS 5 did not pay
+ * either: its longer jumps were too rare for the wider updates).
  */
 const DILATION = 2;
 /**
@@ -73,7 +74,8 @@ const GAP_STEPS = (GAP_RADIUS - DILATION) * GAP_PER_SIDE;
  * closeness a holding cell gives the cell (dx, dy) cells away, from the exact
  * gap between the two squares, sqrt(a² + b²) sides with a = max(|dx| − 1, 0),
  * b = max(|dy| − 1, 0): GAP_STEPS − u for the largest u in 0 .. GAP_STEPS with
- * DILATION + u / GAP_PER_SIDE <= that gap (integer arithmetic, no rounding).
+ * DILATION + u / GAP_PER_SIDE <= that gap (integer arithmetic, no rounding);
+ * GAP_STEPS when the gap is below DILATION sides (such cells are marked).
  */
 const CLOSENESS = new Uint8Array((2 * GAP_RADIUS + 1) ** 2);
 for (let dy = -GAP_RADIUS; dy <= GAP_RADIUS; dy++)
@@ -354,7 +356,7 @@ export class OccupancyIndex2d {
       const trackIds = this.trackIds;
       n = 0;
       let complete = true;
-      // only the cells that hold centres (their bits in held[0]), row by row
+      // only the cells that hold centres (their bits in held0), row by row
       const row0 = this.heldRow0(cx, cy);
       const words = this.held0.words;
       const shift = (cx & CORE_MASK) + WINDOW_RADIUS - 1; // bit 0: column cx - 1

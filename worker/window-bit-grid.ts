@@ -1,8 +1,8 @@
 /**
- * Sparse grid of one bit per cell, laid out for reading the 9 × 9 window of
+ * Sparse grid of one bit per cell, laid out for reading the 5 × 5 window of
  * cells around any cell with one tile lookup: each tile owns a core of
- * 16 × 16 cells and also keeps a copy of the 4 cells around its core on
- * every side (its apron), 24 × 24 bits in all, one int32 word per row. The
+ * 16 × 16 cells and also keeps a copy of the 2 cells around its core on
+ * every side (its apron), 20 × 20 bits in all, one int32 word per row. The
  * window of Chebyshev radius WINDOW_RADIUS around a cell of a tile's core
  * lies inside that tile. Setting a bit writes it into the owning tile and
  * into every neighbour whose apron covers the cell (at most four tiles).
@@ -13,7 +13,7 @@
 import { TileDirectory } from './tile-directory.js';
 
 /** Cells of a window on each side of its centre cell. */
-export const WINDOW_RADIUS = 4;
+export const WINDOW_RADIUS = 2;
 /** log2 of the core's side in cells. */
 export const CORE_SHIFT = 4;
 /** Core side − 1: the cell's column (row) in its tile's core is ix & CORE_MASK. */
@@ -23,7 +23,7 @@ export const TILE_ROWS = (1 << CORE_SHIFT) + 2 * WINDOW_RADIUS;
 
 export class WindowBitGrid {
   private readonly dir: TileDirectory;
-  /** Tile t's rows are words[t·TILE_ROWS ..]; row r, bit c is cell (16·tx − 4 + c, 16·ty − 4 + r). Re-read after a set. */
+  /** Tile t's rows are words[t·TILE_ROWS ..]; row r, bit c is cell (16·tx − WINDOW_RADIUS + c, 16·ty − WINDOW_RADIUS + r). Re-read after a set. */
   words: Int32Array;
 
   constructor(expectedTiles: number) {
