@@ -136,8 +136,11 @@ describe('harmonic measures of growing off-lattice DLA clusters', () => {
   // so the window [8, R/2] gives an average over a crossover, not an exponent. The same law in
   // its particle-scale form (Z(3) against N, above) holds. The box fit needs clusters with many
   // more decades between particle and cluster size (multiscaling persists below ~10^4
-  // particles: Menshutin 2012, Phys. Rev. Lett. 108, 015501). If a change makes this pass,
-  // make it a plain `it`.
+  // particles: Menshutin 2012, Phys. Rev. Lett. 108, 015501). On larger clusters it keeps
+  // rising (8 clusters of 10^5 probed with 10^6 walkers at N = 12500 … 10^5, engine 1 with the
+  // default window [R/32, R/2]: 1.595, 1.608, 1.661, 1.666 [1.649, 1.682] against D(R_g) =
+  // 1.730 [1.710, 1.761]; a single 10^5 cluster gave 1.703), while the particle-scale ratio
+  // there is 0.987 [0.968, 1.009]. If a change makes this pass, make it a plain `it`.
   it.fails('box-fit tau(3) at the largest size is consistent with the mass dimension (electrostatic scaling law, Halsey 1987, citation from memory)', () => {
     expect(section.electrostatic.tau3).not.toBeNull();
     expect(section.electrostatic.consistent).toBe(true);
@@ -149,6 +152,8 @@ describe('harmonic measures of growing off-lattice DLA clusters', () => {
   // window [R/16, R/2] gives 0.878 on the exact harmonic measure of a segment (arcsine law,
   // dimension exactly 1), 0.927 over [R/64, R/4] and 0.980 over [R/1000, R/50]; and at N = 4000
   // the local slopes of the DLA information dimension run from 0.56 (ε 1.5–6) to 1.03 (ε 24–96).
+  // On 8 clusters of 10^5 (10^6 walkers each) it is 0.954, 0.969, 0.988, 0.994 [0.987, 0.998] at
+  // N = 12500 … 10^5: converging to 1 from below, not yet within the (small) ensemble error.
   it.fails("box-fit tau'(1) contains 1 within the ensemble error at the largest size (Makarov 1985, Proc. London Math. Soc. 51, 369, citation from memory)", () => {
     const b = section.bySize[section.bySize.length - 1];
     const iv = intervalEnds(b.informationDimension.interval)!;
