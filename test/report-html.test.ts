@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import { PNG } from 'pngjs';
 import type { GrowthResult } from '../worker/growth-kernel.js';
 import { createKernel, defaultModelParams } from '../worker/models.js';
+import { ENGINE_VERSION } from '../worker/engine-version.js';
 import { analyzeEnsemble, type EnsembleAnalysis } from '../coordinator/stats/index.js';
 import { encodeSnapshot, type PointSet } from '../coordinator/snapshot/index.js';
 import { validateSpec } from '../coordinator/spec/index.js';
@@ -104,7 +105,7 @@ describe('ensemble report from a real small DLA ensemble', () => {
     expect(html).not.toContain('<report>');
     // every figure inline
     expect((html.match(/<svg /g) ?? []).length).toBe(files.figures.length);
-    expect(html).toContain('tendril-engine/1');
+    expect(html).toContain(ENGINE_VERSION);
     expect(html).toContain('<th>seed</th>');
     for (const f of files.svgs) {
       const svg = readFileSync(f, 'utf8');

@@ -36,8 +36,9 @@
  * Brownian path is replaced by straight steps of length minStep (step 4).
  * As minStep → 0 the process converges to the model above. The effect is
  * not small for coarse steps: measured at N = 1000 (300 clusters each, seed
- * 55), mean R_g is 25.92 ± 0.06 for minStep = 1, 27.70 ± 0.07 for 0.25,
- * 28.45 ± 0.07 for 0.05 and 28.41 ± 0.06 for 0.01 — a straight final step
+ * 55, engine tendril-engine/2), mean R_g is 25.69 ± 0.06 for minStep = 1,
+ * 27.68 ± 0.07 for 0.25, 28.45 ± 0.07 for 0.05 and 28.56 ± 0.07 for 0.01
+ * — a straight final step
  * acts like a slightly larger capture radius. Hence the default 0.02, which
  * costs about 10% more steps than 0.25; test/dla-min-step.slow.test.ts shows
  * that 0.02 and 0.005 give the same mean R_g within the ensemble error, and
