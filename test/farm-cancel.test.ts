@@ -26,7 +26,7 @@ afterAll(async () => {
 describe('cancel', () => {
   it('drops queued jobs and stops the running run within seconds; the worker goes on', async () => {
     worker = await startWorker({ prefix, artifacts });
-    const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 60000, clusters: 3, seed: 8, runs_per_job: 1, checkpoint_every_particles: 5000 });
+    const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 600000, clusters: 3, seed: 8, runs_per_job: 1, checkpoint_every_particles: 50000 });
     const id = await launchEnsemble(store, queue, spec);
     await waitFor('a run in progress', async () => ((await store.status(id))?.particles.done ?? 0) > 3000);
     expect(await cancelEnsemble(store, queue, id)).toBe(true);

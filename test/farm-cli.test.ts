@@ -40,7 +40,7 @@ describe('tendril CLI (farm and embedded commands)', () => {
     const r = await cli('run', 'examples/demo.toml', '--out', out, '--threads', '2', '--progress', 'none');
     expect(r.code).toBe(0);
     expect(r.stdout).toMatch(/^coral-reef-demo: 8 clusters of 5000 particles in [\d.]+ s$/m);
-    expect(r.stdout).toMatch(/^D from R_g\(N\): 1\.\d{4} \[1\.\d{4}, 1\.\d{4}\] \(95% BCa\), fit over N = 100\.\.5000$/m);
+    expect(r.stdout).toMatch(/^D from R_g\(N\): 1\.\d{4} \[1\.\d{4}, 1\.\d{4}\] \(95% BCa\), fit over N = 200\.\.5000$/m);
     const summary = JSON.parse(readFileSync(join(out, 'summary.json'), 'utf8'));
     expect(summary.clusters_done).toBe(8);
     expect(summary.partial).toBe(false);

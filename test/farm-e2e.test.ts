@@ -40,15 +40,15 @@ describe('farm end to end (real Redis, two worker processes)', () => {
   });
 
   it('two workers give the same per-run hashes as the embedded run of the same spec', async () => {
-    // clusters long enough (about a second) that a busy worker cannot take the next job before the idle one
-    const spec = validateSpec({ name: 'e2e', model: 'dla-offlattice-2d', particles: 15000, clusters: 4, seed: '77', runs_per_job: 1 });
+    // clusters long enough (most of a second) that a busy worker cannot take the next job before the idle one
+    const spec = validateSpec({ name: 'e2e', model: 'dla-offlattice-2d', particles: 100000, clusters: 4, seed: '77', runs_per_job: 1 });
     const id = await launchEnsemble(store, queue, spec);
     const status = await waitFor('ensemble done', async () => {
       const s = await store.status(id);
       return s?.state === 'done' ? s : undefined;
     });
     expect(status.runs).toEqual({ planned: 4, queued: 0, running: 0, done: 4, failed: 0 });
-    expect(status.particles.done).toBe(4 * 15000);
+    expect(status.particles.done).toBe(4 * 100000);
     const farm = await store.results(id);
     const local = await runEmbedded(spec, { ensembleId: 'local', threads: 2 });
     expect(farm.map((r) => r.stateHash)).toEqual(local.results.map((r) => r.stateHash));
@@ -59,7 +59,7 @@ describe('farm end to end (real Redis, two worker processes)', () => {
   });
 
   it('SIGKILL mid-run: the run resumes from its checkpoint on the other worker, same hash, counted once', async () => {
-    const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 40000, clusters: 1, seed: '4242', checkpoint_every_particles: 4000 });
+    const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 300000, clusters: 1, seed: '4242', checkpoint_every_particles: 30000 });
     // stop the second worker so that the first one surely takes the job
     await stopWorker(workers.pop(), 'SIGTERM');
     const id = await launchEnsemble(store, queue, spec);
@@ -81,11 +81,12 @@ describe('farm end to end (real Redis, two worker processes)', () => {
   });
 
   it('SIGTERM: a worker checkpoints, hands its run back and exits within 10 s; another finishes it', async () => {
-    const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 40000, clusters: 1, seed: '999', checkpoint_interval_seconds: 3600 });
+    // long enough (a few seconds) that the run is surely still growing when the signal comes
+    const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 400000, clusters: 1, seed: '999', checkpoint_interval_seconds: 3600 });
     const id = await launchEnsemble(store, queue, spec);
     await waitFor('run in progress', async () => {
       const st = await store.status(id);
-      return st && st.particles.done > 2000;
+      return st && st.particles.done > 2000 && st.runs.running === 1;
     });
     const w = workers.pop()!;
     const t0 = Date.now();

@@ -94,7 +94,7 @@ describe('embedded mode', () => {
 
   it('an interrupted run keeps checkpoints and continues to the same hashes', async () => {
     const store = new DirectoryArtifactStore(tmp());
-    const big = validateSpec({ model: 'dla-offlattice-2d', particles: 6000, clusters: 2, seed: 5, checkpoint_every_particles: 1000 });
+    const big = validateSpec({ model: 'dla-offlattice-2d', particles: 200000, clusters: 2, seed: 5, checkpoint_every_particles: 20000 });
     const abort = new AbortController();
     const first = runEmbedded(big, {
       ensembleId: 'emb2',
@@ -102,18 +102,18 @@ describe('embedded mode', () => {
       store,
       signal: abort.signal,
       onProgress: (p) => {
-        if (p.particlesDone > 3000) abort.abort();
+        if (p.particlesDone > 30000) abort.abort();
       },
     });
     await expect(first).rejects.toThrow(EmbeddedAborted);
     const cps = await store.list('emb2/');
     expect(cps.length).toBeGreaterThan(0);
     const cp = decodeCheckpoint((await store.get(checkpointKey('emb2', 0)))!);
-    expect(cp.state.count).toBeLessThan(6000);
+    expect(cp.state.count).toBeLessThan(200000);
     const second = await runEmbedded(big, { ensembleId: 'emb2', threads: 2, store });
     for (const r of second.results) {
       const k = createKernel(growthTaskOf(runTaskFor('x', big, r.runIndex)));
-      k.growTo(6000);
+      k.growTo(200000);
       expect(r.stateHash).toBe(k.result().stateHash);
     }
     expect(second.results.some((r) => r.timings.resumes > 0)).toBe(true);

@@ -28,7 +28,7 @@ describe('Redis restart mid-ensemble (test-owned redis-server with AOF)', () => 
     const store = new EnsembleStore(redis, prefix);
     const queue = runQueue(redis, prefix);
     queue.on('error', () => undefined);
-    const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 6000, clusters: 8, seed: '31337', runs_per_job: 1, checkpoint_every_particles: 2000 });
+    const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 60000, clusters: 8, seed: '31337', runs_per_job: 1, checkpoint_every_particles: 20000 });
     const id = await launchEnsemble(store, queue, spec);
     worker = await startWorker({ redisUrl: server.url, prefix, artifacts, concurrency: 2 });
     await waitFor('two runs done', async () => ((await store.status(id))?.runs.done ?? 0) >= 2);
