@@ -5,7 +5,7 @@
  * queue round trip (launch of a one-run ensemble of a tiny cluster until its
  * result is stored), as one JSON line.
  *
- *   node dist/test/bench/farm-bench.js [--clusters 20] [--particles 100000]
+ *   node dist/test/bench/farm-bench.js [--clusters 20] [--particles 300000]
  *
  * Needs the compiled tree (npm run build) and Redis at REDIS_URL.
  */
@@ -73,7 +73,8 @@ async function until(fn: () => Promise<boolean>, pollMs = 20): Promise<void> {
 
 export async function runFarmBenchmark(opts: FarmBenchOptions = {}): Promise<FarmBenchResult> {
   const clusters = opts.clusters ?? 20;
-  const particles = opts.particles ?? 100_000;
+  // 3·10^5 particles: about two seconds per run, so that the per-job cost is judged against jobs of a realistic length
+  const particles = opts.particles ?? 300_000;
   const redisUrl = opts.redisUrl ?? process.env.REDIS_URL ?? 'redis://127.0.0.1:6379';
   const spec = validateSpec({ name: 'farm bench', model: 'dla-offlattice-2d', particles, clusters, seed: '1234567', runs_per_job: 1 }, { maxTotalParticles: Number.MAX_SAFE_INTEGER });
 

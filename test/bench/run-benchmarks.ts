@@ -13,7 +13,7 @@
  *   probe-scaling  test/bench/probe-scaling-bench.ts: 10^7 probe walkers on a 10^6
  *              cluster as a farm probe request, one worker process against two
  *   farm       test/bench/farm-bench.ts: runFarmBenchmark() — the same ensemble
- *              (20 × 10^5 by default) on two worker processes over Redis
+ *              (20 × 3·10^5 by default) on two worker processes over Redis
  *              (REDIS_URL) against the embedded mode on two threads
  */
 import { runGrowthBenchmark, sizesFromArgs } from './growth-bench.js';
