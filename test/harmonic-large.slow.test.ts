@@ -11,10 +11,12 @@
  *    59, 2067; citation from memory): the box-fit τ(3) interval overlaps the
  *    interval of D from R_g(N) of the same clusters;
  *  - τ′(1) = 1 (Makarov 1985, Proc. London Math. Soc. 51, 369; citation from
- *    memory): measured 1.005 [1.002, 1.010] here and 0.994 [0.989, 0.999] at
+ *    memory): measured 1.005 [1.002, 1.010] here and 0.994 [0.987, 0.998] at
  *    N = 10^5 — within 0.6% of 1, but the box fit's finite-window bias
  *    changes sign between these sizes and exceeds the small statistical
- *    error, so the strict check is recorded as an expected failure;
+ *    error, so the strict check is recorded as an expected failure; with
+ *    the fit-window systematic (half the difference of the fits over the
+ *    two halves of the ε window, about 0.02 here) 1 is inside;
  *  - Beurling: the maximum-concentration exponent is at least 1/2 (Garnett
  *    & Marshall 2005, Harmonic Measure).
  */
@@ -58,6 +60,15 @@ describe('harmonic measure of 10^6-particle DLA clusters (slow)', () => {
     expect(t3[0]).toBeLessThanOrEqual(d[1]);
     expect(d[0]).toBeLessThanOrEqual(t3[1]);
     expect(h.electrostatic.consistent).toBe(true);
+  });
+
+  it("tau'(1) = 1 and tau(3) = D hold within the statistical interval widened by the fit-window systematic (probe-analysis.ts)", () => {
+    const ws = top.informationDimensionWithSystematic!;
+    expect(top.systematic.informationDimension!).toBeGreaterThan(0);
+    expect(top.systematic.informationDimension!).toBeLessThan(0.05);
+    expect(ws[0]).toBeLessThanOrEqual(1);
+    expect(ws[1]).toBeGreaterThanOrEqual(1);
+    expect(h.electrostatic.consistentWithSystematic).toBe(true);
   });
 
   // Expected failure, measured (see the header): 1.005 [1.002, 1.010]; the bias of the box fit

@@ -24,7 +24,7 @@ function record(runIndex: number, size: number, over: Partial<ClusterHarmonic> =
     runIndex, size, walkers: 10000, q,
     tau, tauFitError: q.map(() => 0.01), dq: q.map((v, k) => (v === 1 ? null : tau[k] / (v - 1))),
     alpha: q.map(() => 0.7), f: q.map(() => 0), converged: q.map(() => true),
-    informationDimension: 0.95, maxConcentrationExponent: 0.6,
+    informationDimension: 0.95, tauSystematic: q.map(() => 0.01), informationDimensionSystematic: 0.02, maxConcentrationExponent: 0.6,
     window: { relativeMin: 1 / 32, relativeMax: 0.5 }, radius: Math.sqrt(size),
     logCapacity: Math.log(size) / 1.7, logCapacityError: 0.001, z3: 1 / size, z2Plugin: 0, z3Plugin: 0,
     ...over,
@@ -232,6 +232,24 @@ describe('harmonic section: particle-scale form of tau(3) = D', () => {
     // a cluster with no Z(3) at some size is left out; too few clusters give a reason
     expect(harmonicSection(exact.map((r) => (r.runIndex === 0 && r.size === SIZES[0] ? { ...r, z3: null } : r)), options()).electrostatic.particleScale.clusters).toBe(3);
     expect(harmonicSection(exact.filter((r) => r.runIndex < 2), options()).electrostatic.particleScale.reason).toMatch(/2 clusters with a positive Z\(3\) at every probed size; at least 3 are needed/);
+  });
+});
+
+describe('harmonic section: fit-window systematic', () => {
+  it('reports the ensemble mean of the per-cluster systematics and widens the intervals by it (our rule)', () => {
+    const recs = Array.from({ length: 6 }, (_, c) => record(c, 1000, { informationDimension: 0.95 + 0.002 * c, informationDimensionSystematic: 0.01 * (c + 1), tauSystematic: Q.map((v) => (v === 3 ? 0.05 : 0.01)) }));
+    const at = harmonicSection(recs, options()).bySize[0];
+    expect(at.systematic.informationDimension).toBeCloseTo(0.035, 12);
+    expect(at.systematic.tau[Q.indexOf(3)]).toBeCloseTo(0.05, 12);
+    const iv = at.informationDimension.interval.bca ?? at.informationDimension.interval.percentile!;
+    expect(at.informationDimensionWithSystematic![0]).toBeCloseTo(iv[0] - 0.035, 12);
+    expect(at.informationDimensionWithSystematic![1]).toBeCloseTo(iv[1] + 0.035, 12);
+    const t3 = at.tau3!.interval.bca ?? at.tau3!.interval.percentile!;
+    expect(at.tau3WithSystematic![0]).toBeCloseTo(t3[0] - 0.05, 12);
+    // records without a systematic (fewer than 4 box sides) leave it null
+    const none = harmonicSection(recs.map((r) => ({ ...r, tauSystematic: null, informationDimensionSystematic: null })), options()).bySize[0];
+    expect(none.systematic.informationDimension).toBeNull();
+    expect(none.informationDimensionWithSystematic).toBeNull();
   });
 });
 

@@ -67,6 +67,9 @@ function atSize(size: number, q: number[], b: number, o: { clusters?: number; wi
     convergedFraction: q.map((v) => ((o.unjudged ?? []).includes(v) ? null : (o.notConverged ?? []).includes(v) ? 0.6 : 1)),
     converged: conv,
     convergedRange: rangeAround1(q, conv),
+    systematic: { tau: q.map(() => 0.01), informationDimension: 0.02 },
+    informationDimensionWithSystematic: null,
+    tau3WithSystematic: null,
     informationDimension: ev(1.004, o.withIntervals === false ? null : 0.012, clusters),
     maxConcentrationExponent: ev(0.62, o.withIntervals === false ? null : 0.03, clusters),
     beurlingRespected: true,
@@ -102,7 +105,7 @@ function fullSection(): HarmonicSection {
     },
     electrostatic: {
       size: 8000, tau3: top.tau3, massDimension: { estimator: 'radiusOfGyration', value: 1.71, interval: [1.69, 1.73] },
-      consistent: false, source: 'electrostatic scaling law (rendering test data)',
+      consistent: false, consistentWithSystematic: true, source: 'electrostatic scaling law (rendering test data)',
       particleScale: { sizes, clusters: 8, ratio: 0.99, ratioInterval: interval(0.99, 0.02), consistent: true, reason: null },
     },
     clustersAtAllSizes: 8,
@@ -119,7 +122,7 @@ function thinSection(): HarmonicSection {
     bySize: [s],
     capacityGrowth: { sizes: [1500], meanLogCapacity: [s.logCapacity.mean], exponent: null, exponentInterval: null, dimension: null, dimensionInterval: null, reason: 'one probed size: no growth fit' },
     capacityIncrement: { fromSize: [], toSize: [], meanIncrement: [], z3: [], ratio: [], slope: null, slopeInterval: null, proportional: null, reason: 'fewer than two probed sizes' },
-    electrostatic: { size: 1500, tau3: null, massDimension: null, consistent: null, source: 'test', particleScale: { sizes: [1500], clusters: 0, ratio: null, ratioInterval: null, consistent: null, reason: 'one probed size' } },
+    electrostatic: { size: 1500, tau3: null, massDimension: null, consistent: null, consistentWithSystematic: null, source: 'test', particleScale: { sizes: [1500], clusters: 0, ratio: null, ratioInterval: null, consistent: null, reason: 'one probed size' } },
     clustersAtAllSizes: 2,
   };
 }

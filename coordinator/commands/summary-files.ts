@@ -94,7 +94,9 @@ export function describeAnalysis(s: EnsembleSummaryData): string {
       lines.push(`capacity increment vs Z(3): log-log slope ${ci.slope.toFixed(3)}${iv ? ` [${iv[0].toFixed(3)}, ${iv[1].toFixed(3)}]` : ''} (1 = proportional: ${ci.proportional === null ? 'not judged' : ci.proportional ? 'yes' : 'no'})`);
     }
     const e = hm.electrostatic;
-    if (e.consistent !== null) lines.push(`tau(3) = D, box fit at N = ${e.size}: ${e.consistent ? 'consistent' : 'not consistent'} (tau(3) ${ev(e.tau3)} vs D ${e.massDimension?.value?.toFixed(4) ?? 'n/a'})`);
+    if (e.consistent !== null) lines.push(`tau(3) = D, box fit at N = ${e.size}: ${e.consistent ? 'consistent' : 'not consistent'} (tau(3) ${ev(e.tau3)} vs D ${e.massDimension?.value?.toFixed(4) ?? 'n/a'})${e.consistentWithSystematic !== null ? `; with the fit-window systematic: ${e.consistentWithSystematic ? 'consistent' : 'not consistent'}` : ''}`);
+    const ws = last?.informationDimensionWithSystematic;
+    if (ws) lines.push(`tau'(1) with the fit-window systematic: [${ws[0].toFixed(4)}, ${ws[1].toFixed(4)}] (Makarov: 1)`);
     const ps = e.particleScale;
     if (ps.ratio !== null) {
       const iv = ps.ratioInterval?.bca ?? ps.ratioInterval?.percentile;

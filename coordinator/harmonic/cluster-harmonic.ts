@@ -35,6 +35,9 @@ export interface ClusterHarmonic {
   /** Per q: whether the two halves of the probes agree (null: not judged). */
   converged: Array<boolean | null>;
   informationDimension: number;
+  /** Fit-window systematic of τ(q) and τ'(1) (probe-analysis.ts); null with fewer than 4 box sides. */
+  tauSystematic: number[] | null;
+  informationDimensionSystematic: number | null;
   maxConcentrationExponent: number;
   /** Fit window of τ(q), as fractions of the set's radius. */
   window: { relativeMin: number; relativeMax: number };
@@ -82,6 +85,8 @@ export function clusterHarmonicOf(runIndex: number, size: number, m: HarmonicMea
     f: [...m.spectrum.f],
     converged: [...m.converged],
     informationDimension: m.spectrum.informationDimension,
+    tauSystematic: m.windowSystematic ? [...m.windowSystematic.tau] : null,
+    informationDimensionSystematic: m.windowSystematic ? m.windowSystematic.informationDimension : null,
     maxConcentrationExponent: m.maxConcentration.exponent,
     window: { relativeMin: m.window.relativeMin, relativeMax: m.window.relativeMax },
     radius: m.radius,

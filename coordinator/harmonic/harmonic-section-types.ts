@@ -29,6 +29,12 @@ export interface HarmonicAtSize {
   /** [q_lo, q_hi]: the longest run of consecutive converged q (preferring the one holding q = 1); null when none. */
   convergedRange: [number, number] | null;
   informationDimension: EnsembleValue;
+  /** Fit-window systematic (ensemble mean of the per-cluster half-differences of the fits over the two halves of the ε window). */
+  systematic: { tau: Array<number | null>; informationDimension: number | null };
+  /** The statistical interval of τ'(1) (BCa, else percentile) widened by the systematic on both sides; null without either. */
+  informationDimensionWithSystematic: [number, number] | null;
+  /** The same for τ(3), when 3 is on the grid. */
+  tau3WithSystematic: [number, number] | null;
   maxConcentrationExponent: EnsembleValue;
   /** Beurling: exponent ≥ 1/2 (interval upper end at least 0.5). */
   beurlingRespected: boolean | null;
@@ -83,6 +89,8 @@ export interface ElectrostaticCheck {
   massDimension: { estimator: string; value: number | null; interval: [number, number] | null } | null;
   /** Whether the intervals overlap. */
   consistent: boolean | null;
+  /** Whether τ(3)'s interval widened by its fit-window systematic overlaps D's interval. */
+  consistentWithSystematic: boolean | null;
   /**
    * The same law at particle scale, where it is derived: Z(3, a) ∝ N^{−τ(3)/D},
    * so ratio = τ(3)/D = −(slope of log Z(3) against log N), the mean over the

@@ -31,6 +31,11 @@
  *    when that share is at least 0.9; convergedRange is the longest run of
  *    consecutive converged q on the sorted grid, preferring the run that
  *    holds q = 1 (the q-range to quote); the rest are flagged.
+ *  - Fit-window systematic (probe-analysis.ts: half the difference of the
+ *    fits over the two halves of the ε window, per cluster): its ensemble
+ *    mean is reported beside each statistical interval, and the interval
+ *    widened by it on both sides (linear addition, conservative; our rule)
+ *    is what the Makarov and electrostatic checks "with systematic" use.
  *  - Beurling: the maximum box measure M(ε) ~ (ε/R)^a of a connected set has
  *    a ≥ 1/2 (Beurling's estimate; Garnett & Marshall 2005, Harmonic
  *    Measure). beurlingRespected: the upper end of the 95% interval of the
@@ -205,7 +210,17 @@ function atSize(size: number, group: readonly ClusterHarmonic[], q: readonly num
   const convergedRange: [number, number] | null = best ? [q[order[best[0]]], q[order[best[1]]]] : null;
   const mx = intervalEnds(maxConcentrationExponent.interval);
   const k3 = q.findIndex((v) => Math.abs(v - 3) < 1e-12);
+  // fit-window systematic: the ensemble mean of the per-cluster half-differences (null where no cluster has one)
+  const meanOf = (v: number[]): number | null => (v.length > 0 ? v.reduce((a, b) => a + b, 0) / v.length : null);
+  const systematic = {
+    tau: q.map((_, k) => meanOf(finite(group.map((c) => c.tauSystematic?.[k])))),
+    informationDimension: meanOf(finite(group.map((c) => c.informationDimensionSystematic))),
+  };
+  const widen = (iv: [number, number] | null, sys: number | null): [number, number] | null => (iv && sys !== null ? [iv[0] - sys, iv[1] + sys] : null);
   return {
+    systematic,
+    informationDimensionWithSystematic: widen(intervalEnds(informationDimension.interval), systematic.informationDimension),
+    tau3WithSystematic: k3 >= 0 ? widen(intervalEnds(tau[k3].interval), systematic.tau[k3]) : null,
     size,
     clusters: group.length,
     walkers: group.reduce((s, c) => s + c.walkers, 0) / group.length,
@@ -381,6 +396,7 @@ function electrostaticOf(bySize: HarmonicAtSize[], mass: HarmonicSectionOptions[
     tau3,
     massDimension: mass ? { estimator: mass.estimator, value: mass.value, interval: mass.interval ? [mass.interval[0], mass.interval[1]] : null } : null,
     consistent: a && b ? a[0] <= b[1] && b[0] <= a[1] : null,
+    consistentWithSystematic: last?.tau3WithSystematic && b ? last.tau3WithSystematic[0] <= b[1] && b[0] <= last.tau3WithSystematic[1] : null,
     particleScale,
     source: ELECTROSTATIC_SOURCE,
   };

@@ -32,11 +32,18 @@
  * rectangle, hence in ellipses of capacity (A + B)/2; two tangent disks of
  * radius ρ have capacity πρ/2 exactly (inversion onto a strip).
  *
+ * Fit-window systematic: the same fits over the lower and the upper half of
+ * the box sides (the first and the last ⌈S/2⌉ of the S scales, sharing the
+ * middle one when S is odd); windowSystematic is half the difference of the
+ * two, for τ(q) and τ'(1). It measures the curvature of the log–log plots
+ * inside the window, an error the fit's own scatter does not show (common
+ * practice, no source).
+ *
  * Beurling: the maximum box measure M(ε) ~ (ε/R)^a must have a ≥ 1/2 for a
  * connected set (Garnett & Marshall 2005, Harmonic Measure); the check
  * allows 0.05 for finite-size effects (our rule).
  */
-import { boxStatistics, logSpaced, type WeightedPoints } from './partition-function.js';
+import { boxStatistics, logSpaced, type BoxStatistics, type WeightedPoints } from './partition-function.js';
 import { spectrumFrom, type Spectrum } from './spectrum.js';
 import { logCapacity, type CapacityEstimate } from './log-capacity.js';
 
@@ -72,6 +79,8 @@ export interface HarmonicMeasures {
   /** The box statistics behind the fits: per box side, Z(q, eps) for each q, sum mu log mu, and max mu. */
   boxes: { eps: number[]; z: number[][]; entropy: number[]; maxMeasure: number[] };
   tauHalves: [number[], number[]] | null;
+  /** Half the difference of the fits over the lower and upper half of the window (see the file header). */
+  windowSystematic: { tau: number[]; informationDimension: number } | null;
   converged: Array<boolean | null>;
   maxConcentration: { exponent: number; fitError: number; beurlingBound: number; consistentWithBeurling: boolean };
   capacity: (CapacityEstimate & { set: string }) | null;
@@ -132,6 +141,21 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
   };
   const stats = boxStatistics(measureOf('all'), eps, inp.q, ox, oy);
   const spectrum = spectrumFrom(stats, radius);
+  const ns = stats.eps.length;
+  let windowSystematic: HarmonicMeasures['windowSystematic'] = null;
+  if (ns >= 4) {
+    const h = Math.ceil(ns / 2);
+    const part = (from: number, to: number): BoxStatistics => ({
+      eps: stats.eps.slice(from, to), q: stats.q, z: stats.z.slice(from, to), entropy: stats.entropy.slice(from, to),
+      maxMeasure: stats.maxMeasure.slice(from, to), occupied: stats.occupied.slice(from, to),
+    });
+    const lower = spectrumFrom(part(0, h), radius);
+    const upper = spectrumFrom(part(ns - h, ns), radius);
+    windowSystematic = {
+      tau: lower.tau.map((t, k) => Math.abs(t - upper.tau[k]) / 2),
+      informationDimension: Math.abs(lower.informationDimension - upper.informationDimension) / 2,
+    };
+  }
   const canHalve = source === 'contact-points' ? inp.contactCount >= 200 : inp.halves !== null;
   let tauHalves: [number[], number[]] | null = null;
   let converged: Array<boolean | null> = inp.q.map(() => null);
@@ -154,6 +178,7 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
     spectrum,
     boxes: { eps: stats.eps, z: stats.z, entropy: stats.entropy, maxMeasure: stats.maxMeasure },
     tauHalves,
+    windowSystematic,
     converged,
     maxConcentration: {
       exponent: spectrum.maxConcentrationExponent,

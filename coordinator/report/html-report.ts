@@ -207,6 +207,10 @@ function harmonicPanel(h: HarmonicSection, top: HarmonicAtSize | undefined): str
       const r = evRange(d1).range;
       items.push(verdictItem('makarov', `Information dimension: ${valueText('τ′(1) = D_{1}', d1.mean, d1.interval)}; Makarov (1985): exactly 1 for a connected planar set.`, r ? r[0] <= 1 && r[1] >= 1 : null, 'agrees (1 inside the interval)', 'disagrees (1 outside the interval)', 'no interval: not judged'));
     } else items.push('<li data-check="makarov" class="na">τ′(1) is not available.</li>');
+    const ws = top.informationDimensionWithSystematic;
+    if (ws && top.systematic?.informationDimension !== null && top.systematic?.informationDimension !== undefined) {
+      items.push(verdictItem('makarov-sys', `With the fit-window systematic (half the difference of the fits over the two halves of the ε window, ±${fmt(top.systematic.informationDimension, 3)}): τ′(1) in ${fmtRange(ws)}.`, ws[0] <= 1 && ws[1] >= 1, 'agrees with 1', 'disagrees with 1', 'not judged'));
+    }
     const mc = top.maxConcentrationExponent;
     items.push(verdictItem('beurling', `Maximum concentration (max μ(B) scales as (ε/R) to the power α_{min}): ${valueText('α_{min}', mc?.mean, mc?.interval)}; Beurling: α_{min} ≥ 1/2 for a connected set.`, top.beurlingRespected ?? null, 'respected', 'violated', 'not judged'));
   } else items.push('<li class="na">No probed size with a q grid.</li>');
@@ -225,6 +229,9 @@ function harmonicPanel(h: HarmonicSection, top: HarmonicAtSize | undefined): str
     const est = md ? labelOf(md.estimator).rich : '';
     const dText = md ? (isFiniteNumber(md.value) ? `D from ${est} = ${fmt(md.value)}${md.interval ? ` ${fmtRange(md.interval)}` : ' (no interval)'}` : `D from ${est} not available`) : 'no mass-based D';
     items.push(verdictItem('electrostatic', `Electrostatic scaling law τ(3) = D at N = ${fmtAbscissa(e.size)}, τ(3) from the box fit: ${valueText('τ(3)', e.tau3?.mean, e.tau3?.interval)}; ${dText} (${e.source}).`, e.consistent ?? null, 'consistent (intervals overlap)', 'inconsistent (intervals do not overlap)', 'not judged'));
+    if (e.consistentWithSystematic !== null && e.consistentWithSystematic !== undefined) {
+      items.push(verdictItem('electrostatic-sys', `τ(3) with its fit-window systematic against the same D.`, e.consistentWithSystematic, 'consistent', 'inconsistent', 'not judged'));
+    }
     const ps = e.particleScale;
     if (ps && isFiniteNumber(ps.ratio)) {
       items.push(verdictItem('electrostatic-particle', `The same law at particle scale, Z(3) ∝ N^{−τ(3)/D} over N = ${ps.sizes.map((n) => fmtAbscissa(n)).join(', ')} (${ps.clusters} clusters): ${valueText('τ(3)/D', ps.ratio, ps.ratioInterval, 3)}; the law says 1.`, ps.consistent ?? null, 'consistent (1 inside the interval)', 'inconsistent (1 outside the interval)', 'not judged'));
