@@ -9,7 +9,7 @@ import { Redis } from 'ioredis';
 import { afterAll, describe, expect, it } from 'vitest';
 import { runQueue } from '../coordinator/farm/queue.js';
 import { EnsembleStore } from '../coordinator/farm/store.js';
-import { ProbeRequestStore } from '../coordinator/farm/probe-requests.js';
+import { ProbeRequestStore, validateProbeRequest } from '../coordinator/farm/probe-requests.js';
 import { runProbes } from '../coordinator/harmonic/probe-run.js';
 import { buildApi } from '../coordinator/http/server.js';
 import { deleteKeys, REDIS_URL, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
@@ -46,6 +46,8 @@ describe('POST /probes', () => {
       [{ walkers: 1000, seed: 1, csv: '0,0,1\n', jobs: 5000 }, 'jobs: 5000 is out of range; allowed: an integer from 1 to 1000'],
       [{ walkers: 1000, seed: 1, csv: '0,0,1\n', colour: 'red' }, 'colour: unknown field; allowed fields: name, csv, points, walkers, seed, jobs, q, contact_sample, min_step'],
     ];
+    // the default job count follows the spec's rule (capped at 4096), so a huge walker count is accepted
+    expect(validateProbeRequest({ walkers: 1e10, seed: 1, csv: '0,0,1\n' }).settings.jobs).toBe(4096);
     for (const [body, msg] of cases) {
       const r = await post(body);
       expect(r.statusCode).toBe(400);

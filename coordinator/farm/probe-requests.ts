@@ -24,7 +24,7 @@ import { diskSetDigest, planProbeJobs, DEFAULT_PROBE_LAUNCH_MARGIN, DEFAULT_PROB
 import { JOB_PAYLOAD_VERSION, type ProbeJobData } from '../../worker/queue-processor.js';
 import { parseDiskCsv } from '../harmonic/probe-input.js';
 import type { HarmonicMeasures } from '../harmonic/probe-analysis.js';
-import { DEFAULT_PROBE_Q } from '../spec/index.js';
+import { DEFAULT_PROBE_Q, defaultProbeJobs } from '../spec/index.js';
 
 export interface ProbeRequestSettings {
   name: string;
@@ -67,7 +67,7 @@ export function validateProbeRequest(body: unknown): { settings: ProbeRequestSet
   const walkers = b.walkers as number;
   const seedOk = (typeof b.seed === 'string' && /^[0-9]{1,20}$/.test(b.seed) && BigInt(b.seed) < 1n << 64n) || isInt(b.seed, 0, Number.MAX_SAFE_INTEGER);
   if (!seedOk) fail(`seed: ${show(b.seed)} is not allowed; allowed: an unsigned 64-bit integer (decimal string, or an integer below 2^53)`);
-  const jobs = b.jobs ?? Math.min(walkers, Math.max(2, Math.ceil(walkers / 250_000)));
+  const jobs = b.jobs ?? defaultProbeJobs(walkers);
   if (!isInt(jobs, 1, Math.min(4096, walkers))) fail(`jobs: ${show(b.jobs)} is out of range; allowed: an integer from 1 to ${Math.min(4096, walkers)}`);
   const q = b.q ?? [...DEFAULT_PROBE_Q];
   if (!Array.isArray(q) || q.length < 1 || q.length > 401 || q.some((v) => typeof v !== 'number' || !(v >= -50 && v <= 50)) || new Set(q).size !== q.length)

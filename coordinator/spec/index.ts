@@ -64,6 +64,11 @@ export const DEFAULT_PROBE_Q: readonly number[] = Array.from({ length: 25 }, (_,
 /** Default probe walkers per job when the spec gives no job count. */
 export const DEFAULT_PROBE_WALKERS_PER_JOB = 250_000;
 
+/** Probe jobs when none are asked for: one per DEFAULT_PROBE_WALKERS_PER_JOB walkers, at least 2 (for the convergence halves), at most 4096 and at most one per walker. */
+export function defaultProbeJobs(walkers: number): number {
+  return Math.min(walkers, 4096, Math.max(2, Math.ceil(walkers / DEFAULT_PROBE_WALKERS_PER_JOB)));
+}
+
 /** Every size at which the clusters of a spec are probed (ascending, the final size last); empty without [probe]. */
 export function probeSizesOf(s: EnsembleSpec): number[] {
   return s.probe ? [...s.probe.atSizes, s.particles] : [];
@@ -239,7 +244,7 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
     probe: pr
       ? {
           walkers: pr.walkers,
-          jobs: pr.jobs ?? Math.min(pr.walkers, 4096, Math.max(2, Math.ceil(pr.walkers / DEFAULT_PROBE_WALKERS_PER_JOB))),
+          jobs: pr.jobs ?? defaultProbeJobs(pr.walkers),
           q: pr.q ? [...pr.q] : [...DEFAULT_PROBE_Q],
           contactSample: Math.min(pr.walkers, pr.contact_sample ?? 4000),
           minStep: pr.min_step ?? 0.02,
