@@ -9,16 +9,16 @@
  *
  * Needs the compiled tree (npm run build) and Redis at REDIS_URL.
  */
-import { spawn, type ChildProcess } from 'node:child_process';
-import { mkdtempSync, rmSync, realpathSync } from 'node:fs';
+import type { ChildProcess } from 'node:child_process';
+import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { Redis } from 'ioredis';
 import { runEmbedded } from '../../coordinator/embedded/index.js';
 import { launchEnsemble, runQueue } from '../../coordinator/farm/queue.js';
 import { EnsembleStore } from '../../coordinator/farm/store.js';
 import { validateSpec } from '../../coordinator/spec/index.js';
+import { isEntryPoint, startBenchWorker, stopBenchWorkers } from './bench-process.js';
 
 export interface FarmBenchOptions {
   clusters?: number;
@@ -46,22 +46,8 @@ export interface FarmBenchResult {
   farmGrowSecondsPerRun: number;
 }
 
-const here = fileURLToPath(import.meta.url);
-const CLI = join(here, '..', '..', '..', 'coordinator', 'cli.js');
-
-function startWorker(redisUrl: string, prefix: string, artifacts: string): Promise<ChildProcess> {
-  const child = spawn(process.execPath, [CLI, 'worker', '--redis', redisUrl, '--prefix', prefix, '--artifacts', artifacts, '--concurrency', '1', '--progress-ms', '1000'], {
-    stdio: ['ignore', 'pipe', 'inherit'],
-  });
-  return new Promise((resolve, reject) => {
-    let out = '';
-    child.stdout!.on('data', (d) => {
-      out += d;
-      if (out.includes('ready:')) resolve(child);
-    });
-    child.once('exit', (code) => reject(new Error(`worker exited with ${code}`)));
-  });
-}
+/** Workers report progress once a second (the default 2 s would delay the last run's accounting). */
+const PROGRESS = ['--progress-ms', '1000'];
 
 function meanGrow(runs: Array<{ timings: { growSeconds: number } }>): number {
   return runs.reduce((a, r) => a + r.timings.growSeconds, 0) / Math.max(1, runs.length);
@@ -89,7 +75,7 @@ export async function runFarmBenchmark(opts: FarmBenchOptions = {}): Promise<Far
   const queue = runQueue(redis, prefix);
   const workers: ChildProcess[] = [];
   try {
-    workers.push(await startWorker(redisUrl, prefix, artifacts), await startWorker(redisUrl, prefix, artifacts));
+    workers.push(await startBenchWorker(redisUrl, prefix, artifacts, PROGRESS), await startBenchWorker(redisUrl, prefix, artifacts, PROGRESS));
     const t1 = performance.now();
     const id = await launchEnsemble(store, queue, spec);
     await until(async () => (await store.status(id))?.state === 'done', 50);
@@ -122,13 +108,7 @@ export async function runFarmBenchmark(opts: FarmBenchOptions = {}): Promise<Far
       farmGrowSecondsPerRun: meanGrow(farm),
     };
   } finally {
-    for (const w of workers) {
-      if (w.exitCode === null) {
-        const gone = new Promise((r) => w.once('exit', r));
-        w.kill('SIGTERM');
-        await gone;
-      }
-    }
+    await stopBenchWorkers(workers);
     await queue.close();
     let cursor = '0';
     do {
@@ -146,7 +126,7 @@ function arg(name: string): number | undefined {
   return i > 0 ? Number(process.argv[i + 1]) : undefined;
 }
 
-if (process.argv[1] && realpathSync(process.argv[1]) === realpathSync(here)) {
+if (isEntryPoint(import.meta.url)) {
   runFarmBenchmark({ clusters: arg('--clusters'), particles: arg('--particles') }).then(
     (r) => process.stdout.write(JSON.stringify(r) + '\n'),
     (err: Error) => {

@@ -15,12 +15,12 @@
  * included, process start-up excluded).
  */
 import { spawn } from 'node:child_process';
-import { realpathSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { createKernel, defaultModelParams } from '../../worker/models.js';
 import type { GrowthTask } from '../../worker/growth-kernel.js';
 import { ENGINE_VERSION } from '../../worker/engine-version.js';
 import { createProgress } from '../../coordinator/progress/progress.js';
+import { isEntryPoint } from './bench-process.js';
 
 export const DEFAULT_GROWTH_SIZES = [10_000, 100_000, 1_000_000];
 
@@ -164,17 +164,7 @@ function seedFromArgs(argv: string[]): string {
   return s;
 }
 
-function isEntryPoint(): boolean {
-  const invoked = process.argv[1];
-  if (invoked === undefined) return false;
-  try {
-    return realpathSync(invoked) === realpathSync(THIS_FILE);
-  } catch {
-    return false;
-  }
-}
-
-if (isEntryPoint()) {
+if (isEntryPoint(import.meta.url)) {
   const argv = process.argv.slice(2);
   if (argv[0] === CHILD_FLAG) {
     childMain(Number(argv[1]), argv[2] ?? '1');

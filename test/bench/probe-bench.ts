@@ -7,10 +7,9 @@
  *
  * Prints a human-readable line and one JSON line.
  */
-import { fileURLToPath } from 'node:url';
-import { realpathSync } from 'node:fs';
 import { createKernel, defaultModelParams } from '../../worker/models.js';
 import { ProbeGeometry, planProbeJobs, runProbeJob } from '../../worker/probe-2d.js';
+import { argValue, isEntryPoint } from './bench-process.js';
 
 export interface ProbeBenchmarkResult {
   benchmark: 'probe';
@@ -23,14 +22,6 @@ export interface ProbeBenchmarkResult {
   jumpsPerWalker: number;
   shortStepsPerWalker: number;
   returnsPerWalker: number;
-}
-
-function argValue(argv: string[], name: string, fallback: number): number {
-  const i = argv.indexOf(name);
-  if (i < 0) return fallback;
-  const v = Number(argv[i + 1]);
-  if (!Number.isSafeInteger(v) || v < 1) throw new RangeError(`${name} must be a positive integer, got "${argv[i + 1]}"`);
-  return v;
 }
 
 export function runProbeBenchmark(particles = 100_000, walkers = 100_000): ProbeBenchmarkResult {
@@ -55,15 +46,7 @@ export function runProbeBenchmark(particles = 100_000, walkers = 100_000): Probe
   };
 }
 
-function isEntryPoint(): boolean {
-  try {
-    return process.argv[1] !== undefined && realpathSync(process.argv[1]) === realpathSync(fileURLToPath(import.meta.url));
-  } catch {
-    return false;
-  }
-}
-
-if (isEntryPoint()) {
+if (isEntryPoint(import.meta.url)) {
   const r = runProbeBenchmark(argValue(process.argv, '--particles', 100_000), argValue(process.argv, '--walkers', 100_000));
   process.stdout.write(`probe: ${r.walkers} walkers on ${r.particles} particles: ${r.probeSeconds.toFixed(2)} s, ${Math.round(r.walkersPerSecond)} walkers/s\n`);
   process.stdout.write(JSON.stringify(r) + '\n');

@@ -11,15 +11,15 @@
  *
  * Needs the compiled tree (npm run build). Prints one JSON line.
  */
-import { spawn, type ChildProcess } from 'node:child_process';
-import { mkdtempSync, rmSync, realpathSync } from 'node:fs';
+import type { ChildProcess } from 'node:child_process';
+import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { Redis } from 'ioredis';
 import { runQueue } from '../../coordinator/farm/queue.js';
 import { launchProbeRequest, ProbeRequestStore } from '../../coordinator/farm/probe-requests.js';
 import { createKernel, defaultModelParams } from '../../worker/models.js';
+import { argValue, isEntryPoint, startBenchWorker, stopBenchWorkers } from './bench-process.js';
 
 export interface ProbeScalingResult {
   benchmark: 'probe-scaling';
@@ -34,37 +34,6 @@ export interface ProbeScalingResult {
   /** t2 / (t1 / 2): 1 = perfect scaling; the target is at most 1.2. */
   scalingRatio: number;
   sameMeasures: boolean;
-}
-
-const here = fileURLToPath(import.meta.url);
-const CLI = join(here, '..', '..', '..', 'coordinator', 'cli.js');
-
-function startWorker(redisUrl: string, prefix: string, artifacts: string): Promise<ChildProcess> {
-  const child = spawn(process.execPath, [CLI, 'worker', '--redis', redisUrl, '--prefix', prefix, '--artifacts', artifacts, '--concurrency', '1'], { stdio: ['ignore', 'pipe', 'inherit'] });
-  return new Promise((resolve, reject) => {
-    let out = '';
-    child.stdout!.on('data', (d) => {
-      out += d;
-      if (out.includes('ready:')) resolve(child);
-    });
-    child.once('exit', (code) => reject(new Error(`worker exited with ${code}`)));
-  });
-}
-
-async function stop(children: ChildProcess[]): Promise<void> {
-  await Promise.all(children.map((c) => new Promise<void>((r) => {
-    if (c.exitCode !== null) return r();
-    c.once('exit', () => r());
-    c.kill('SIGTERM');
-  })));
-}
-
-function argValue(argv: string[], name: string, fallback: number): number {
-  const i = argv.indexOf(name);
-  if (i < 0) return fallback;
-  const v = Number(argv[i + 1]);
-  if (!Number.isSafeInteger(v) || v < 1) throw new RangeError(`${name} must be a positive integer, got "${argv[i + 1]}"`);
-  return v;
 }
 
 export async function runProbeScalingBenchmark(o: { particles?: number; walkers?: number; jobs?: number; redisUrl?: string } = {}): Promise<ProbeScalingResult> {
@@ -87,7 +56,7 @@ export async function runProbeScalingBenchmark(o: { particles?: number; walkers?
     const artifacts = mkdtempSync(join(tmpdir(), 'tendril-probe-bench-'));
     const children: ChildProcess[] = [];
     try {
-      for (let w = 0; w < workers; w++) children.push(await startWorker(redisUrl, prefix, artifacts));
+      for (let w = 0; w < workers; w++) children.push(await startBenchWorker(redisUrl, prefix, artifacts));
       t = performance.now();
       const id = await launchProbeRequest(store, queue, settings, set);
       for (;;) {
@@ -102,7 +71,7 @@ export async function runProbeScalingBenchmark(o: { particles?: number; walkers?
         await new Promise((r) => setTimeout(r, 100));
       }
     } finally {
-      await stop(children);
+      await stopBenchWorkers(children);
       rmSync(artifacts, { recursive: true, force: true });
     }
   };
@@ -123,15 +92,7 @@ export async function runProbeScalingBenchmark(o: { particles?: number; walkers?
   }
 }
 
-function isEntryPoint(): boolean {
-  try {
-    return process.argv[1] !== undefined && realpathSync(process.argv[1]) === realpathSync(fileURLToPath(import.meta.url));
-  } catch {
-    return false;
-  }
-}
-
-if (isEntryPoint()) {
+if (isEntryPoint(import.meta.url)) {
   const a = process.argv;
   const r = await runProbeScalingBenchmark({ particles: argValue(a, '--particles', 1_000_000), walkers: argValue(a, '--walkers', 10_000_000), jobs: argValue(a, '--jobs', 40) });
   process.stdout.write(`probe scaling: ${r.walkers} walkers on ${r.particles} particles: 1 worker ${r.oneWorkerSeconds.toFixed(1)} s, 2 workers ${r.twoWorkerSeconds.toFixed(1)} s, ratio ${r.scalingRatio.toFixed(3)}\n`);
