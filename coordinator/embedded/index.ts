@@ -22,8 +22,8 @@
 import { availableParallelism } from 'node:os';
 import { decodeCheckpoint, decodeRunResult, encodeRunResult, type RunResultData, type RunTaskData } from '../../proto/convert.js';
 import { ProbeThreadPool } from '../../worker/probe-thread-pool.js';
-import type { ProbeResult } from '../../worker/probe-2d.js';
-import { analyseProbedCluster, clusterPrefix, positionsOf, prefixDigest, probeTasksOf } from '../harmonic/ensemble-probing.js';
+import { diskSetDigest, type ProbeResult } from '../../worker/probe-2d.js';
+import { analyseProbedCluster, clusterPrefix, positionsOf, probeTasksOf } from '../harmonic/ensemble-probing.js';
 import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
 import { TaskThreadPool, type ThreadOutcome, type ThreadRun } from '../../worker/task-thread.js';
 import { checkpointKey, type ArtifactStore } from '../farm/artifacts.js';
@@ -230,7 +230,7 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
     const final = pos;
     const groups = await Promise.all(probeSizes.map(async (size) => {
       const set = clusterPrefix(final, size);
-      const tasks = probeTasksOf(probe!, spec.seed, runIndex, size, prefixDigest(final, size));
+      const tasks = probeTasksOf(probe!, spec.seed, runIndex, size, diskSetDigest(set));
       const out = await Promise.all(tasks.map(async (t) => {
         if (opts.signal?.aborted) return null;
         try {

@@ -74,6 +74,8 @@ export class FarmProbeHandler implements ProbeJobHandler {
   private cached: { key: string; final: { x: Float64Array; y: Float64Array; count: number } } | null = null;
 
   private cachedRequest: { id: string; set: DiskSet } | null = null;
+  /** The spec of the last ensemble seen (a spec never changes; reading and validating it once per job was wasted work). */
+  private cachedSpec: { id: string; spec: EnsembleSpec } | null = null;
 
   constructor(
     private readonly store: EnsembleStore,
@@ -139,11 +141,15 @@ export class FarmProbeHandler implements ProbeJobHandler {
     const j = d.task.jobIndex;
     if (await this.store.isCancelled(id)) return 'cancelled';
     if (await this.store.hasHarmonic(id, runIndex, size)) return 'skipped';
-    const rec = await this.store.get(id);
-    if (!rec) throw new ProbeJobRefused(`probe job of unknown ensemble ${id}`);
-    const p = rec.spec.probe;
+    if (this.cachedSpec?.id !== id) {
+      const rec = await this.store.get(id);
+      if (!rec) throw new ProbeJobRefused(`probe job of unknown ensemble ${id}`);
+      this.cachedSpec = { id, spec: rec.spec };
+    }
+    const spec = this.cachedSpec.spec;
+    const p = spec.probe;
     if (!p) throw new ProbeJobRefused(`ensemble ${id} has no [probe] table`);
-    if (!probeSizesOf(rec.spec).includes(size)) throw new ProbeJobRefused(`probe size ${size} is not one of the ensemble's sizes`);
+    if (!probeSizesOf(spec).includes(size)) throw new ProbeJobRefused(`probe size ${size} is not one of the ensemble's sizes`);
     if (!(j >= 0 && j < p.jobs)) throw new ProbeJobRefused(`probe job index ${j} is outside 0..${p.jobs - 1}`);
     const rkey = probeResultKey(id, runIndex, size, j);
     if (!(await this.artifacts.get(rkey))) {
@@ -160,7 +166,7 @@ export class FarmProbeHandler implements ProbeJobHandler {
       this.events.onProbed?.(result.walkers);
     }
     const stored = await this.store.probeJobStored(id, runIndex, size, j);
-    if (stored >= p.jobs) await this.analyse(id, rec.spec, runIndex, size);
+    if (stored >= p.jobs) await this.analyse(id, spec, runIndex, size);
     return 'done';
   }
 

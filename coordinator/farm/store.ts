@@ -24,7 +24,7 @@
  */
 import { Redis } from 'ioredis';
 import { decodeRunResult, type RunResultData } from '../../proto/convert.js';
-import { specToDocument, validateSpec, type EnsembleSpec } from '../spec/index.js';
+import { probeSizesOf, specToDocument, validateSpec, type EnsembleSpec } from '../spec/index.js';
 import type { AdaptiveHistory } from '../summary/adaptive.js';
 import type { RunSink } from '../../worker/queue-processor.js';
 import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
@@ -280,7 +280,7 @@ export class EnsembleStore implements RunSink {
       this.redis.hlen(this.k(id, 'harmonic')),
       this.redis.hgetall(this.k(id, 'probe-failed')),
     ]);
-    const probeSizes = rec.spec.probe ? rec.spec.probe.atSizes.length + 1 : 0;
+    const probeSizes = probeSizesOf(rec.spec).length;
     const planned = rec.plannedClusters;
     const runningN = Object.keys(running).length;
     const failedN = Object.keys(failed).length;

@@ -19,7 +19,7 @@
  * job or in which order, and the hit counts of the jobs add up.
  */
 import type { CheckpointData } from '../../proto/convert.js';
-import { addProbeCounts, diskSetDigest, planProbeJobs, DEFAULT_PROBE_LAUNCH_MARGIN, type DiskSet, type ProbeResult, type ProbeTask } from '../../worker/probe-2d.js';
+import { diskSetDigest, planProbeJobs, DEFAULT_PROBE_LAUNCH_MARGIN, type DiskSet, type ProbeResult, type ProbeTask } from '../../worker/probe-2d.js';
 import { mix64, parseSeed } from '../../worker/random.js';
 import type { ProbeSpec } from '../spec/index.js';
 import { analyseResults } from './probe-run.js';
@@ -73,4 +73,3 @@ export function analyseProbedCluster(
   return { record: clusterHarmonicOf(runIndex, size, a.measures, a.counts), counts: a.counts };
 }
 
-export { addProbeCounts };

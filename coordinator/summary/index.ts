@@ -26,7 +26,6 @@ import { analysisOptionsOf, safeAnalysis, type AdaptiveHistory } from './adaptiv
 import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
 import { harmonicSection } from '../harmonic/harmonic-section.js';
 import type { HarmonicSection } from '../harmonic/harmonic-section-types.js';
-import { SIGN_CONVENTION } from '../harmonic/probe-analysis.js';
 import { probeSizesOf } from '../spec/index.js';
 
 export { analysisOptionsOf, judgeBatch, newAdaptiveHistory, safeAnalysis, type AdaptiveBatch, type AdaptiveHistory, type AdaptiveOutcome } from './adaptive.js';
@@ -191,7 +190,7 @@ function harmonicOf(input: SummaryInput, runs: RunResultData[], statistics: unkn
     resamples: input.spec.analysis.resamples,
     level: input.spec.analysis.level,
   });
-  return { ...section, convention: section.convention || SIGN_CONVENTION, perCluster: records };
+  return { ...section, perCluster: records };
 }
 
 /** The analysis inside a summary, or null when it is absent or could not be made. */
