@@ -8,12 +8,11 @@
  */
 import { Worker } from 'node:worker_threads';
 import { compiledWorkerEntry } from './thread-entry.js';
+import { ThreadSlots, type ThreadSlot } from './thread-slots.js';
 import type { DiskSet, ProbeResult, ProbeTask } from './probe-2d.js';
 import type { FromProbeThread, ToProbeThread } from './probe-thread.js';
 
-interface Slot {
-  worker: Worker;
-  busy: boolean;
+interface Slot extends ThreadSlot {
   key: string | null;
   lastUsed: number;
 }
@@ -23,42 +22,26 @@ export class ProbeJobFailed extends Error {
 }
 
 export class ProbeThreadPool {
-  private readonly slots: Slot[] = [];
-  private readonly waiting: Array<() => void> = [];
+  private readonly pool: ThreadSlots<Slot>;
   private nextId = 1;
   private tick = 0;
-  private closed = false;
 
   constructor(readonly size: number) {
-    if (!Number.isInteger(size) || size < 1) throw new RangeError(`probe pool size ${size} must be an integer >= 1`);
+    this.pool = new ThreadSlots(size, 'probe pool');
   }
 
+  /** A free thread holding `key`'s set, else a new thread while fewer than `size` exist, else the free one used longest ago. */
   private async acquire(key: string): Promise<Slot> {
-    for (;;) {
-      if (this.closed) throw new Error('probe pool is closed');
-      const free = this.slots.filter((s) => !s.busy);
-      let slot = free.find((s) => s.key === key);
-      if (!slot && this.slots.length < this.size) {
-        slot = { worker: new Worker(compiledWorkerEntry(import.meta.url, 'probe-thread')), busy: false, key: null, lastUsed: 0 };
-        this.slots.push(slot);
-      }
-      if (!slot && free.length > 0) slot = free.reduce((a, b) => (a.lastUsed <= b.lastUsed ? a : b));
-      if (slot) {
-        slot.busy = true;
-        slot.lastUsed = ++this.tick;
-        return slot;
-      }
-      await new Promise<void>((resolve) => this.waiting.push(resolve));
-    }
+    const slot = await this.pool.acquire(
+      (free, canSpawn) => free.find((s) => s.key === key) ?? (canSpawn ? 'spawn' : free.length > 0 ? free.reduce((a, b) => (a.lastUsed <= b.lastUsed ? a : b)) : undefined),
+      () => ({ worker: new Worker(compiledWorkerEntry(import.meta.url, 'probe-thread')), busy: false, key: null, lastUsed: 0 }),
+    );
+    slot.lastUsed = ++this.tick;
+    return slot;
   }
 
   private release(slot: Slot, broken: boolean): void {
-    slot.busy = false;
-    if (broken) {
-      this.slots.splice(this.slots.indexOf(slot), 1);
-      void slot.worker.terminate();
-    }
-    this.waiting.shift()?.();
+    this.pool.release(slot, broken);
   }
 
   /**
@@ -110,8 +93,6 @@ export class ProbeThreadPool {
   }
 
   async close(): Promise<void> {
-    this.closed = true;
-    for (const resolve of this.waiting.splice(0)) resolve();
-    await Promise.all(this.slots.splice(0).map((s) => s.worker.terminate()));
+    await this.pool.close();
   }
 }

@@ -18,6 +18,7 @@
  */
 import { isMainThread, parentPort, Worker } from 'node:worker_threads';
 import { compiledWorkerEntry } from './thread-entry.js';
+import { ThreadSlots, type ThreadSlot } from './thread-slots.js';
 import {
   decodeCheckpoint,
   decodeRunResult,
@@ -113,58 +114,33 @@ export interface ThreadRun {
   stop(): void;
 }
 
-interface Slot {
-  worker: Worker;
-  busy: boolean;
-}
-
 export class TaskThreadPool {
-  private readonly slots: Slot[] = [];
-  private readonly waiting: Array<() => void> = [];
+  private readonly pool: ThreadSlots<ThreadSlot>;
   private nextId = 1;
-  private closed = false;
 
   constructor(readonly size: number) {
-    if (!Number.isInteger(size) || size < 1) throw new RangeError(`thread pool size ${size} must be an integer >= 1`);
+    this.pool = new ThreadSlots(size, 'thread pool');
   }
 
-  private spawn(): Slot {
-    const worker = new Worker(compiledWorkerEntry(import.meta.url, 'task-thread'));
-    const slot: Slot = { worker, busy: false };
-    this.slots.push(slot);
-    return slot;
+  /** A free thread (the first one, or a new one while fewer than `size` exist). */
+  private acquire(): Promise<ThreadSlot> {
+    return this.pool.acquire(
+      (free, canSpawn) => free[0] ?? (canSpawn ? 'spawn' : undefined),
+      () => ({ worker: new Worker(compiledWorkerEntry(import.meta.url, 'task-thread')), busy: false }),
+    );
   }
 
-  /** A free thread, marked busy before it is handed out (so two runs never share one). */
-  private async acquire(): Promise<Slot> {
-    for (;;) {
-      if (this.closed) throw new Error('thread pool is closed');
-      const free = this.slots.find((s) => !s.busy) ?? (this.slots.length < this.size ? this.spawn() : undefined);
-      if (free) {
-        free.busy = true;
-        return free;
-      }
-      await new Promise<void>((resolve) => this.waiting.push(resolve));
-    }
-  }
-
-  private release(slot: Slot, broken: boolean): void {
-    slot.busy = false;
-    if (broken) {
-      this.slots.splice(this.slots.indexOf(slot), 1);
-      void slot.worker.terminate();
-    }
-    this.waiting.shift()?.();
+  private release(slot: ThreadSlot, broken: boolean): void {
+    this.pool.release(slot, broken);
   }
 
   /** Start a run as soon as a thread is free. */
   run(task: RunTaskData, h: ThreadRunHandlers = {}): ThreadRun {
     const id = this.nextId++;
     let stopRequested = false;
-    let slotRef: Slot | undefined;
+    let slotRef: ThreadSlot | undefined;
     const outcome = (async (): Promise<ThreadOutcome> => {
       const slot = await this.acquire();
-      slot.busy = true;
       slotRef = slot;
       return await new Promise<ThreadOutcome>((resolve) => {
         const w = slot.worker;
@@ -226,8 +202,6 @@ export class TaskThreadPool {
 
   /** Terminate all threads (running runs are lost; stop them first to keep their checkpoints). */
   async close(): Promise<void> {
-    this.closed = true;
-    for (const resolve of this.waiting.splice(0)) resolve();
-    await Promise.all(this.slots.splice(0).map((s) => s.worker.terminate()));
+    await this.pool.close();
   }
 }
