@@ -11,8 +11,8 @@
  *    59, 2067; citation from memory): the box-fit τ(3) interval overlaps the
  *    interval of D from R_g(N) of the same clusters;
  *  - τ′(1) = 1 (Makarov 1985, Proc. London Math. Soc. 51, 369; citation from
- *    memory): measured 1.005 [1.002, 1.010] here and 0.994 [0.987, 0.998] at
- *    N = 10^5 — within 0.6% of 1, but the box fit's finite-window bias
+ *    memory): measured 1.005 [1.002, 1.010] here and 0.994 [0.989, 0.999] on
+ *    the first 10^5 particles of the same clusters — within 0.6% of 1, but the box fit's finite-window bias
  *    changes sign between these sizes and exceeds the small statistical
  *    error, so the strict check is recorded as an expected failure; with
  *    the fit-window systematic (half the difference of the fits over the
