@@ -22,7 +22,8 @@ import { SpecError, validateSpec, probeSizesOf } from '../coordinator/spec/index
 import { harmonicOfSummary, harmonicToCsv, renderSummary } from '../coordinator/summary/index.js';
 import { decodeEnsembleSummary, growthTaskOf } from '../proto/convert.js';
 import { createKernel } from '../worker/models.js';
-import { ProbeGeometry, runProbeJob } from '../worker/probe-2d.js';
+import { planProbeJobs, ProbeGeometry, runProbeJob } from '../worker/probe-2d.js';
+import { ProbeJobFailed, ProbeThreadPool } from '../worker/probe-thread-pool.js';
 import { deleteKeys, REDIS_URL, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
 
 const doc = {
@@ -129,6 +130,22 @@ describe('embedded probing', () => {
     const pb = decodeEnsembleSummary(renderSummary(two.summary, 'pb'));
     expect(JSON.parse(pb.statisticsJson).harmonic.perCluster).toEqual(direct);
   }, 120_000);
+});
+
+describe('probe threads', () => {
+  it('report a job they refuse (a task planned for another set) as refused, so the farm does not retry it', async () => {
+    const pool = new ProbeThreadPool(1);
+    try {
+      const set = { count: 3, x: new Float64Array([0, 2, 4]), y: new Float64Array(3), r: 1 };
+      const [task] = planProbeJobs('3-00000000', '1', 200, 1, 10);
+      const err = await pool.run('k', () => set, task).catch((e: unknown) => e);
+      expect(err).toBeInstanceOf(ProbeJobFailed);
+      expect((err as ProbeJobFailed).refused).toBe(true);
+      expect((err as Error).message).toMatch(/^geometryDigest must match the point set/);
+    } finally {
+      await pool.close();
+    }
+  });
 });
 
 describe('farm probing (real Redis, two worker processes)', () => {

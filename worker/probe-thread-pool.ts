@@ -19,6 +19,10 @@ interface Slot extends ThreadSlot {
 
 export class ProbeJobFailed extends Error {
   override name = 'ProbeJobFailed';
+  /** True when the job or its set is invalid, so running it again cannot succeed. */
+  constructor(message: string, readonly refused = false) {
+    super(message);
+  }
 }
 
 export class ProbeThreadPool {
@@ -72,7 +76,7 @@ export class ProbeThreadPool {
         if (m.type === 'failed' && set) slot.key = null;
         finish(false);
         if (m.type === 'done') resolve(m.result);
-        else reject(new ProbeJobFailed(m.message));
+        else reject(new ProbeJobFailed(m.message, m.refused));
       };
       const onError = (err: Error) => {
         slot.key = null;

@@ -6,13 +6,14 @@
  * Messages:
  *   main -> thread  { type: 'probe', id, key, set?, task }   set: sent when the
  *                   thread does not hold `key` yet (the pool tracks this)
- *   thread -> main  { type: 'done', id, result } | { type: 'failed', id, message }
+ *   thread -> main  { type: 'done', id, result } | { type: 'failed', id, message, refused }
+ *                   refused: the job or its set is invalid (a RangeError), so a retry cannot succeed
  */
 import { parentPort } from 'node:worker_threads';
 import { ProbeGeometry, runProbeJob, type DiskSet, type ProbeResult, type ProbeTask } from './probe-2d.js';
 
 export type ToProbeThread = { type: 'probe'; id: number; key: string; set?: DiskSet; task: ProbeTask };
-export type FromProbeThread = { type: 'done'; id: number; result: ProbeResult } | { type: 'failed'; id: number; message: string };
+export type FromProbeThread = { type: 'done'; id: number; result: ProbeResult } | { type: 'failed'; id: number; message: string; refused: boolean };
 
 if (parentPort) {
   const port = parentPort;
@@ -30,7 +31,7 @@ if (parentPort) {
       const result = runProbeJob(held, m.task);
       port.postMessage({ type: 'done', id: m.id, result } satisfies FromProbeThread);
     } catch (err) {
-      port.postMessage({ type: 'failed', id: m.id, message: ((err as Error)?.message ?? String(err)).split('\n')[0] } satisfies FromProbeThread);
+      port.postMessage({ type: 'failed', id: m.id, message: ((err as Error)?.message ?? String(err)).split('\n')[0], refused: err instanceof RangeError } satisfies FromProbeThread);
     }
   });
 }

@@ -18,7 +18,7 @@
 import type { Queue } from 'bullmq';
 import { decodeCheckpoint, type RunTaskData } from '../../proto/convert.js';
 import type { ProbeResult } from '../../worker/probe-2d.js';
-import { ProbeThreadPool } from '../../worker/probe-thread-pool.js';
+import { ProbeJobFailed, ProbeThreadPool } from '../../worker/probe-thread-pool.js';
 import { JOB_PAYLOAD_VERSION, ProbeJobRefused, type ProbeJobData, type ProbeJobHandler } from '../../worker/queue-processor.js';
 import { analyseProbedCluster, clusterPrefix, positionsOf, prefixDigest, probeTasksOf } from '../harmonic/ensemble-probing.js';
 import { probeSizesOf, type EnsembleSpec } from '../spec/index.js';
@@ -95,6 +95,16 @@ export class FarmProbeHandler implements ProbeJobHandler {
     return set;
   }
 
+  /** One job on a probe thread; a job the thread refuses (invalid task or set) fails for good, not by retries. */
+  private async runOnThread(key: string, load: () => DiskSet | Promise<DiskSet>, task: ProbeJobData['task']): Promise<ProbeResult> {
+    try {
+      return await this.pool.run(key, load, task);
+    } catch (err) {
+      if (err instanceof ProbeJobFailed && err.refused) throw new ProbeJobRefused(err.message);
+      throw err;
+    }
+  }
+
   /** A job of a probe request (a user's point set; see probe-requests.ts). */
   private async runRequest(d: ProbeJobData): Promise<'done' | 'skipped'> {
     const req = this.requests;
@@ -107,7 +117,7 @@ export class FarmProbeHandler implements ProbeJobHandler {
     if (!(j >= 0 && j < s.jobs)) throw new ProbeJobRefused(`probe job index ${j} is outside 0..${s.jobs - 1}`);
     const key = requestResultKey(id, j);
     if (!(await this.artifacts.get(key))) {
-      const result = await this.pool.run(`${id}:request`, () => this.requestSet(id), d.task);
+      const result = await this.runOnThread(`${id}:request`, () => this.requestSet(id), d.task);
       await this.artifacts.put(key, Buffer.from(JSON.stringify(result)));
       this.events.onProbed?.(result.walkers);
     }
@@ -155,13 +165,7 @@ export class FarmProbeHandler implements ProbeJobHandler {
     if (!(await this.artifacts.get(rkey))) {
       const final = await this.finalOf(id, runIndex);
       if (size > final.count) throw new ProbeJobRefused(`probe size ${size} exceeds the cluster's ${final.count} particles`);
-      let result: ProbeResult;
-      try {
-        result = await this.pool.run(`${id}:${runIndex}:${size}`, () => clusterPrefix(final, size), d.task);
-      } catch (err) {
-        if ((err as Error).name === 'ProbeJobFailed' && /must|digest/.test((err as Error).message)) throw new ProbeJobRefused((err as Error).message);
-        throw err;
-      }
+      const result = await this.runOnThread(`${id}:${runIndex}:${size}`, () => clusterPrefix(final, size), d.task);
       await this.artifacts.put(rkey, Buffer.from(JSON.stringify(result)));
       this.events.onProbed?.(result.walkers);
     }
