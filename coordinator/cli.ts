@@ -9,7 +9,7 @@ import { realpathSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { Command, CommanderError } from 'commander';
 import { UsageError } from './usage-error.js';
-import { ENGINE_VERSION } from '../worker/engine-version.js';
+import { ENGINE_VERSION } from '../worker/core/engine-version.js';
 
 type Register = (program: Command) => void;
 

@@ -1,12 +1,12 @@
 /**
  * Planning: an ensemble spec becomes one run task per cluster, grouped into
  * queue jobs of `runsPerJob` runs. Run i gets the stream (ensemble seed, run
- * index i) of worker/random.ts, so a run's result depends only on the spec
+ * index i) of worker/core/random.ts, so a run's result depends only on the spec
  * and the engine version, never on how the runs are grouped or who runs them.
  */
 import { randomBytes } from 'node:crypto';
 import type { RunTaskData } from '../proto/convert.js';
-import { ENGINE_VERSION } from '../worker/engine-version.js';
+import { ENGINE_VERSION } from '../worker/core/engine-version.js';
 import { maxRunsOf, type EnsembleSpec } from './spec/index.js';
 
 export interface PlannedJob {

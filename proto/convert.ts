@@ -2,7 +2,7 @@
  * Conversions between tendril's plain objects and the protobuf messages of
  * proto/tendril.proto. proto/ imports nothing else of ours, so the plain shapes
  * are declared here; they are structurally identical to the kernel contract of
- * worker/growth-kernel.ts (test/proto-contract.test.ts checks that both ways).
+ * worker/core/growth-kernel.ts (test/proto-contract.test.ts checks that both ways).
  *
  * Every decoder checks what it reads and throws a ContractError with a
  * one-line message naming the bad field, so a malformed job fails with a

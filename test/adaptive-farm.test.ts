@@ -16,7 +16,7 @@ import { farmSummary } from '../coordinator/farm/summary.js';
 import { runTaskFor } from '../coordinator/plan.js';
 import { validateSpec } from '../coordinator/spec/index.js';
 import { encodeRunResult, growthTaskOf } from '../proto/convert.js';
-import { createKernel } from '../worker/models.js';
+import { createKernel } from '../worker/models/registry.js';
 import { deleteKeys, REDIS_URL, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
 
 const redis = new Redis(REDIS_URL, { maxRetriesPerRequest: null });

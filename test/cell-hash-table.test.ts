@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { CellHashTable } from '../worker/cell-hash-table.js';
+import { CellHashTable } from '../worker/index/cell-hash-table.js';
 
 describe('CellHashTable', () => {
   it('keeps every entry across many reallocations (compared with a Map)', () => {

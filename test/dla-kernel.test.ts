@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { createKernel } from '../worker/models.js';
-import type { GrowthCheckpoint } from '../worker/growth-kernel.js';
+import { createKernel } from '../worker/models/registry.js';
+import type { GrowthCheckpoint } from '../worker/core/growth-kernel.js';
 import { dlaTask } from './support/grow.js';
 
 describe('off-lattice 2D DLA kernel: geometry invariants', () => {
-  // Definition of the model (worker/dla-offlattice-2d.ts): disks of diameter 1
+  // Definition of the model (worker/models/dla-offlattice-2d/kernel.ts): disks of diameter 1
   // never overlap and each new disk touches the cluster where it stops.
   for (const runIndex of [0, 1, 2]) {
     it(`no overlaps and every disk touches an earlier one (run ${runIndex}, 4000 particles)`, () => {

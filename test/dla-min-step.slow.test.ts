@@ -2,7 +2,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { finalRg, dlaTask, growResult, yieldToRunner } from './support/grow.js';
 
 // Slow statistical check of the kernel's one approximation (straight final
-// steps of length minStep, see worker/dla-offlattice-2d.ts): the default
+// steps of length minStep, see worker/models/dla-offlattice-2d/kernel.ts): the default
 // minStep = 0.02 and a four times finer 0.005 must give the same mean radius
 // of gyration within the ensembles' own error (Welch z-test, |z| < 3.3, i.e.
 // significance 1e-3; common practice, no source). A coarse minStep = 0.25

@@ -8,7 +8,7 @@ import { EnsembleStore } from '../coordinator/farm/store.js';
 import { parseSpec } from '../coordinator/spec/index.js';
 import { runTaskFor } from '../coordinator/plan.js';
 import { growthTaskOf } from '../proto/convert.js';
-import { createKernel } from '../worker/models.js';
+import { createKernel } from '../worker/models/registry.js';
 import { privateRedis, CLI, deleteKeys, REDIS_URL, ROOT, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
 
 const run = promisify(execFile);

@@ -8,8 +8,8 @@ import { planEnsemble, runTaskFor } from '../coordinator/plan.js';
 import { validateSpec } from '../coordinator/spec/index.js';
 import { buildSummary, logLogFit, summaryToCsv, summaryToJsonObject } from '../coordinator/summary/index.js';
 import { decodeCheckpoint, decodeEnsembleSummary, encodeEnsembleSummary, growthTaskOf, type CheckpointData } from '../proto/convert.js';
-import { createKernel } from '../worker/models.js';
-import { runTask, TaskRejected } from '../worker/task-runner.js';
+import { createKernel } from '../worker/models/registry.js';
+import { runTask, TaskRejected } from '../worker/runtime/task-runner.js';
 
 const dirs: string[] = [];
 const tmp = () => {
@@ -154,7 +154,7 @@ describe('summary', () => {
 
 describe('worker-thread pool', () => {
   it('runs as many tasks at once as it has threads (no two runs share a thread)', async () => {
-    const { TaskThreadPool } = await import('../worker/task-thread.js');
+    const { TaskThreadPool } = await import('../worker/runtime/task-thread.js');
     const pool = new TaskThreadPool(2);
     const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 20000, clusters: 4, seed: 3 });
     const tasks = [0, 1, 2, 3].map((i) => runTaskFor('pool-test', spec, i));

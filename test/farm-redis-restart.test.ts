@@ -6,7 +6,7 @@ import { EnsembleStore } from '../coordinator/farm/store.js';
 import { runTaskFor } from '../coordinator/plan.js';
 import { validateSpec } from '../coordinator/spec/index.js';
 import { growthTaskOf } from '../proto/convert.js';
-import { createKernel } from '../worker/models.js';
+import { createKernel } from '../worker/models/registry.js';
 import { privateRedis, sleep, startWorker, stopWorker, tempDir, waitFor, type PrivateRedis, type WorkerProc } from './farm-helpers.js';
 
 let server: PrivateRedis | undefined;

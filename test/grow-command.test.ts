@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { defaultModelParams } from '../worker/models.js';
+import { defaultModelParams } from '../worker/models/registry.js';
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -78,7 +78,7 @@ describe('tendril grow, end to end', () => {
     expect(s.count).toBe(N);
     expect(s.diameter).toBe(1);
     expect(s.arrivalOrder).toBe(true);
-    expect([s.x[0], s.y[0]]).toEqual([0, 0]); // the seed sits at the origin (worker/dla-offlattice-2d.ts)
+    expect([s.x[0], s.y[0]]).toEqual([0, 0]); // the seed sits at the origin (worker/models/dla-offlattice-2d/kernel.ts)
     // Model definition (DESIGN.md, kernel header): each arrival touches an earlier disk and overlaps none.
     // Tolerance 1e-9 diameters allows for floating-point rounding of the contact point.
     let worstOverlap = 0;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { createKernel, defaultModelParams } from '../worker/models.js';
+import { createKernel, defaultModelParams } from '../worker/models/registry.js';
 import { runProbes } from '../coordinator/harmonic/probe-run.js';
 
 describe('harmonic measure of grown DLA clusters', () => {

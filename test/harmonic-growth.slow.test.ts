@@ -28,8 +28,8 @@ import { harmonicSection, intervalEnds } from '../coordinator/harmonic/harmonic-
 import type { HarmonicSection } from '../coordinator/harmonic/harmonic-section-types.js';
 import { runProbes } from '../coordinator/harmonic/probe-run.js';
 import { analyzeEnsemble } from '../coordinator/stats/analyze-ensemble.js';
-import type { GrowthResult } from '../worker/growth-kernel.js';
-import { createKernel } from '../worker/models.js';
+import type { GrowthResult } from '../worker/core/growth-kernel.js';
+import { createKernel } from '../worker/models/registry.js';
 import { dlaTask, yieldToRunner } from './support/grow.js';
 
 const CLUSTERS = 20;

@@ -3,7 +3,7 @@ import { boxStatistics, logSpaced } from '../coordinator/harmonic/partition-func
 import { spectrumFrom } from '../coordinator/harmonic/spectrum.js';
 import { logCapacity } from '../coordinator/harmonic/log-capacity.js';
 import { ensembleMeanInterval } from '../coordinator/harmonic/ensemble-intervals.js';
-import { Random } from '../worker/random.js';
+import { Random } from '../worker/core/random.js';
 
 const Q = [-1, 0, 0.5, 1, 2, 3, 4];
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { growthMomentZ3, type ClusterHarmonic } from '../coordinator/harmonic/cluster-harmonic.js';
 import { harmonicSection, intervalEnds, type HarmonicSectionOptions } from '../coordinator/harmonic/harmonic-section.js';
-import { Random } from '../worker/random.js';
+import { Random } from '../worker/core/random.js';
 
 // Exact and synthetic checks of the harmonic section (coordinator/harmonic/harmonic-section.ts):
 // synthetic per-cluster records with a known truth, so every check compares with the truth

@@ -9,7 +9,7 @@ import { runTaskFor } from '../coordinator/plan.js';
 import { validateSpec } from '../coordinator/spec/index.js';
 import { readToken } from '../coordinator/commands/serve.js';
 import { decodeEnsembleSummary, encodeRunResult } from '../proto/convert.js';
-import { runTask } from '../worker/task-runner.js';
+import { runTask } from '../worker/runtime/task-runner.js';
 import { deleteKeys, REDIS_URL, uniquePrefix } from './farm-helpers.js';
 
 const TOKEN = 'test-token-0123456789abcdef';

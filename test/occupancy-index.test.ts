@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { OccupancyIndex2d } from '../worker/occupancy-index-2d.js';
-import { Random } from '../worker/random.js';
-import { CORE_MASK, WINDOW_RADIUS, WindowBitGrid } from '../worker/window-bit-grid.js';
+import { OccupancyIndex2d } from '../worker/index/occupancy-index-2d.js';
+import { Random } from '../worker/core/random.js';
+import { CORE_MASK, WINDOW_RADIUS, WindowBitGrid } from '../worker/index/window-bit-grid.js';
 
 // The index must give a lower bound on (nearest-centre distance) − 1
 // everywhere, be exact close to the cluster, and list every centre within 2

@@ -21,9 +21,9 @@ import { runTaskFor } from '../coordinator/plan.js';
 import { SpecError, validateSpec, probeSizesOf } from '../coordinator/spec/index.js';
 import { harmonicOfSummary, harmonicToCsv, renderSummary } from '../coordinator/summary/index.js';
 import { decodeEnsembleSummary, growthTaskOf } from '../proto/convert.js';
-import { createKernel } from '../worker/models.js';
-import { planProbeJobs, ProbeGeometry, runProbeJob } from '../worker/probe-2d.js';
-import { ProbeJobFailed, ProbeThreadPool } from '../worker/probe-thread-pool.js';
+import { createKernel } from '../worker/models/registry.js';
+import { planProbeJobs, ProbeGeometry, runProbeJob } from '../worker/probe/probe-2d.js';
+import { ProbeJobFailed, ProbeThreadPool } from '../worker/runtime/probe-thread-pool.js';
 import { deleteKeys, REDIS_URL, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
 
 const doc = {

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { ProbeGeometry, addProbeCounts, planProbeJobs, runProbeJob } from '../worker/probe-2d.js';
+import { ProbeGeometry, addProbeCounts, planProbeJobs, runProbeJob } from '../worker/probe/probe-2d.js';
 import { logCapacity } from '../coordinator/harmonic/log-capacity.js';
-import { createKernel, defaultModelParams } from '../worker/models.js';
-import { Random } from '../worker/random.js';
+import { createKernel, defaultModelParams } from '../worker/models/registry.js';
+import { Random } from '../worker/core/random.js';
 
 function probe(set: ConstructorParameters<typeof ProbeGeometry>[0], walkers: number, jobs: number, sample: number, seed = '11', minStep = 0.02) {
   const g = new ProbeGeometry(set);

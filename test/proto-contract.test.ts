@@ -21,7 +21,7 @@ import {
   type RunResultData,
   type RunTaskData,
 } from '../proto/convert.js';
-import type { GrowthCheckpoint, GrowthResult, GrowthTask } from '../worker/growth-kernel.js';
+import type { GrowthCheckpoint, GrowthResult, GrowthTask } from '../worker/core/growth-kernel.js';
 
 // Compile-time check: the plain shapes of proto/convert.ts and the kernel
 // contract are assignable both ways (tsc fails the build otherwise).

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { Random, mix64 } from '../worker/random.js';
+import { Random, mix64 } from '../worker/core/random.js';
 
 describe('Random (xoshiro128**)', () => {
   it('matches the reference xoshiro128** output for a known state', () => {

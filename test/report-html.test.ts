@@ -3,9 +3,9 @@ import { existsSync, mkdtempSync, readFileSync, readdirSync, rmSync } from 'node
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { PNG } from 'pngjs';
-import type { GrowthResult } from '../worker/growth-kernel.js';
-import { createKernel, defaultModelParams } from '../worker/models.js';
-import { ENGINE_VERSION } from '../worker/engine-version.js';
+import type { GrowthResult } from '../worker/core/growth-kernel.js';
+import { createKernel, defaultModelParams } from '../worker/models/registry.js';
+import { ENGINE_VERSION } from '../worker/core/engine-version.js';
 import { analyzeEnsemble, type EnsembleAnalysis } from '../coordinator/stats/index.js';
 import { encodeSnapshot, type PointSet } from '../coordinator/snapshot/index.js';
 import { validateSpec } from '../coordinator/spec/index.js';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { ENGINE_VERSION } from '../worker/engine-version.js';
+import { ENGINE_VERSION } from '../worker/core/engine-version.js';
 
 describe('project skeleton', () => {
   it('has an engine version string', () => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { decideStopping, EnsembleStoppingMonitor } from '../coordinator/stats/adaptive-stopping.js';
 import { syntheticEnsemble } from '../coordinator/stats/synthetic-ensemble.js';
-import type { GrowthResult } from '../worker/growth-kernel.js';
+import type { GrowthResult } from '../worker/core/growth-kernel.js';
 
 // The batch projection uses the 1/sqrt(K) shrinking of a bootstrap interval of
 // a mean (common practice, no source).

@@ -4,7 +4,7 @@ import { bootstrapInterval, jackknifeAcceleration, sortedQuantile } from '../coo
 import { bootstrapRandom, bootstrapScalar, drawResample, jackknifeScalar } from '../coordinator/stats/bootstrap.js';
 import { erfc, normalCdf, normalQuantile } from '../coordinator/stats/special-functions.js';
 import { syntheticEnsemble } from '../coordinator/stats/synthetic-ensemble.js';
-import { Random } from '../worker/random.js';
+import { Random } from '../worker/core/random.js';
 
 describe('normal distribution functions', () => {
   it('match standard table values (Abramowitz & Stegun 1964, Table 26.1; values from memory, widely reproduced)', () => {

@@ -5,7 +5,7 @@ import { fitLine } from '../coordinator/stats/log-log-fit.js';
 import { localWindows } from '../coordinator/stats/local-slopes.js';
 import { fitScalingCorrections } from '../coordinator/stats/scaling-corrections-fit.js';
 import { logSpacedSizes, syntheticEnsemble } from '../coordinator/stats/synthetic-ensemble.js';
-import type { GrowthResult } from '../worker/growth-kernel.js';
+import type { GrowthResult } from '../worker/core/growth-kernel.js';
 
 // Exact power laws must be recovered to rounding: a least-squares line through
 // points on a line is that line (common practice, no source). The corrections

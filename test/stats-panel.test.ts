@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { analyzeEnsemble } from '../coordinator/stats/analyze-ensemble.js';
 import { MODEL_REFERENCES } from '../coordinator/stats/reference-values.js';
 import { syntheticEnsemble } from '../coordinator/stats/synthetic-ensemble.js';
-import type { GrowthResult } from '../worker/growth-kernel.js';
+import type { GrowthResult } from '../worker/core/growth-kernel.js';
 
 const sizes = Array.from({ length: 40 }, (_, i) => Math.round(1000 * Math.pow(10, i / 20)));
 const radii = Array.from({ length: 25 }, (_, i) => 5 * Math.pow(10, i / 20));

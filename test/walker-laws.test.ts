@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { returnToCircle, returned, sampleReturnAngle } from '../worker/poisson-return-2d.js';
-import { Random } from '../worker/random.js';
-import { direction, sampleDirection } from '../worker/uniform-direction.js';
+import { returnToCircle, returned, sampleReturnAngle } from '../worker/walkers/poisson-return-2d.js';
+import { Random } from '../worker/core/random.js';
+import { direction, sampleDirection } from '../worker/walkers/uniform-direction.js';
 import { ksOneSample } from './support/ks.js';
 
 // Significance level for the distribution tests below: each must fail only

@@ -22,7 +22,7 @@ import { parseIntegerOption, parseNumberOption, parseSeedOption } from './grow.j
 import { readProbeInput } from '../harmonic/probe-input.js';
 import { runProbes } from '../harmonic/probe-run.js';
 import { renderMeasurePng } from '../harmonic/measure-picture.js';
-import { DEFAULT_PROBE_MIN_STEP } from '../../worker/probe-2d.js';
+import { DEFAULT_PROBE_MIN_STEP } from '../../worker/probe/probe-2d.js';
 
 export const MEASURES_FILE = 'probe-measures.json';
 export const HITS_FILE = 'probe-hits.csv';

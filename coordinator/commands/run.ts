@@ -14,7 +14,7 @@ import { newEnsembleId, runTaskFor } from '../plan.js';
 import type { SampleClusterInput } from '../report/index.js';
 import { specToDocument, type EnsembleSpec } from '../spec/index.js';
 import { growthTaskOf } from '../../proto/convert.js';
-import { createKernel } from '../../worker/models.js';
+import { createKernel } from '../../worker/models/registry.js';
 import { buildSummary, defaultSummaryOptions } from '../summary/index.js';
 import { UsageError } from '../usage-error.js';
 import { renderMeasurePng } from '../harmonic/measure-picture.js';

@@ -9,9 +9,9 @@ import { advanceAdaptive, startAdaptiveSweeps } from '../farm/adaptive.js';
 import { DirectoryArtifactStore } from '../farm/artifacts.js';
 import { FarmProbeHandler, keepFinalAndQueueProbes } from '../farm/probe-jobs.js';
 import { ProbeRequestStore } from '../farm/probe-requests.js';
-import type { RunSink } from '../../worker/queue-processor.js';
+import type { RunSink } from '../../worker/runtime/queue-processor.js';
 import { newRegistry, serveMetrics, workerMetrics } from '../metrics/index.js';
-import { RunWorker } from '../../worker/queue-processor.js';
+import { RunWorker } from '../../worker/runtime/queue-processor.js';
 import { addFarmOptions, openFarm, type FarmCliOptions } from './farm-options.js';
 import { positiveInt } from './spec-file.js';
 

@@ -21,11 +21,11 @@
  */
 import { availableParallelism } from 'node:os';
 import { decodeCheckpoint, decodeRunResult, encodeRunResult, type RunResultData, type RunTaskData } from '../../proto/convert.js';
-import { ProbeThreadPool } from '../../worker/probe-thread-pool.js';
-import { diskSetDigest, type ProbeResult } from '../../worker/probe-2d.js';
+import { ProbeThreadPool } from '../../worker/runtime/probe-thread-pool.js';
+import { diskSetDigest, type ProbeResult } from '../../worker/probe/probe-2d.js';
 import { analyseProbedCluster, clusterPrefix, positionsOf, probeTasksOf } from '../harmonic/ensemble-probing.js';
 import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
-import { TaskThreadPool, type ThreadOutcome, type ThreadRun } from '../../worker/task-thread.js';
+import { TaskThreadPool, type ThreadOutcome, type ThreadRun } from '../../worker/runtime/task-thread.js';
 import { checkpointKey, type ArtifactStore } from '../farm/artifacts.js';
 import { finalKey, hitsKey } from '../farm/probe-jobs.js';
 import { planEnsemble, type PlannedJob } from '../plan.js';

@@ -17,16 +17,16 @@
  */
 import type { Queue } from 'bullmq';
 import { decodeCheckpoint, type RunTaskData } from '../../proto/convert.js';
-import type { ProbeResult } from '../../worker/probe-2d.js';
-import { ProbeJobFailed, ProbeThreadPool } from '../../worker/probe-thread-pool.js';
-import { JOB_PAYLOAD_VERSION, ProbeJobRefused, type ProbeJobData, type ProbeJobHandler } from '../../worker/queue-processor.js';
+import type { ProbeResult } from '../../worker/probe/probe-2d.js';
+import { ProbeJobFailed, ProbeThreadPool } from '../../worker/runtime/probe-thread-pool.js';
+import { JOB_PAYLOAD_VERSION, ProbeJobRefused, type ProbeJobData, type ProbeJobHandler } from '../../worker/runtime/queue-processor.js';
 import { analyseProbedCluster, clusterPrefix, positionsOf, prefixDigest, probeTasksOf } from '../harmonic/ensemble-probing.js';
 import { probeSizesOf, type EnsembleSpec } from '../spec/index.js';
 import type { ArtifactStore } from './artifacts.js';
 import type { EnsembleStore } from './store.js';
 import type { ProbeRequestStore } from './probe-requests.js';
 import { analyseResults } from '../harmonic/probe-run.js';
-import type { DiskSet } from '../../worker/probe-2d.js';
+import type { DiskSet } from '../../worker/probe/probe-2d.js';
 
 export const finalKey = (id: string, run: number) => `${id}/run-${run}.final`;
 export const hitsKey = (id: string, run: number) => `${id}/run-${run}.hits`;

@@ -20,8 +20,8 @@
 import { randomBytes } from 'node:crypto';
 import type { Queue } from 'bullmq';
 import type { Redis } from 'ioredis';
-import { diskSetDigest, planProbeJobs, DEFAULT_PROBE_LAUNCH_MARGIN, DEFAULT_PROBE_MIN_STEP, type DiskSet } from '../../worker/probe-2d.js';
-import { JOB_PAYLOAD_VERSION, type ProbeJobData } from '../../worker/queue-processor.js';
+import { diskSetDigest, planProbeJobs, DEFAULT_PROBE_LAUNCH_MARGIN, DEFAULT_PROBE_MIN_STEP, type DiskSet } from '../../worker/probe/probe-2d.js';
+import { JOB_PAYLOAD_VERSION, type ProbeJobData } from '../../worker/runtime/queue-processor.js';
 import { parseDiskCsv } from '../harmonic/probe-input.js';
 import type { HarmonicMeasures } from '../harmonic/probe-analysis.js';
 import { DEFAULT_PROBE_Q, defaultProbeJobs } from '../spec/index.js';

@@ -26,7 +26,7 @@ import { Redis } from 'ioredis';
 import { decodeRunResult, type RunResultData } from '../../proto/convert.js';
 import { probeSizesOf, specToDocument, validateSpec, type EnsembleSpec } from '../spec/index.js';
 import type { AdaptiveHistory } from '../summary/adaptive.js';
-import type { RunSink } from '../../worker/queue-processor.js';
+import type { RunSink } from '../../worker/runtime/queue-processor.js';
 import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
 
 export const DEFAULT_PREFIX = 'tendril';

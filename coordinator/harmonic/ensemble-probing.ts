@@ -9,18 +9,18 @@
  * arrival order and never move). It is probed as disks of radius 1 (one
  * particle diameter) about the centres: the capture disks a growth walker's
  * centre sees, so the measure found is each particle's growth probability
- * (see worker/probe-2d.ts).
+ * (see worker/probe/probe-2d.ts).
  *
  * Seeds: the probe of (run i, size n) uses the 64-bit seed
  *   s(i, n) = mix64(mix64(ensemble seed ⊕ mix64(i + 1)) ⊕ mix64(n + 2^40))
- * (SplitMix64 finaliser, worker/random.ts) and its job j the stream
+ * (SplitMix64 finaliser, worker/core/random.ts) and its job j the stream
  * Random.forRun(s(i, n), j, STREAM_PROBE). So the probe of a cluster depends
  * only on (spec, run index, size, engine version), never on who runs which
  * job or in which order, and the hit counts of the jobs add up.
  */
 import type { CheckpointData } from '../../proto/convert.js';
-import { diskSetDigest, planProbeJobs, DEFAULT_PROBE_LAUNCH_MARGIN, type DiskSet, type ProbeResult, type ProbeTask } from '../../worker/probe-2d.js';
-import { mix64, parseSeed } from '../../worker/random.js';
+import { diskSetDigest, planProbeJobs, DEFAULT_PROBE_LAUNCH_MARGIN, type DiskSet, type ProbeResult, type ProbeTask } from '../../worker/probe/probe-2d.js';
+import { mix64, parseSeed } from '../../worker/core/random.js';
 import type { ProbeSpec } from '../spec/index.js';
 import { analyseResults } from './probe-run.js';
 import { clusterHarmonicOf, type ClusterHarmonic } from './cluster-harmonic.js';

@@ -1,13 +1,13 @@
 /**
  * Inputs to probe: one of our cluster snapshots (coordinator/snapshot; 2D
  * only), probed as disks of radius = the snapshot's contact distance
- * (diameter) around the centres (see worker/probe-2d.ts), or a CSV of
+ * (diameter) around the centres (see worker/probe/probe-2d.ts), or a CSV of
  * `x,y,r` rows (disk centre and contact radius; an optional header line
  * naming x,y,r; blank lines and lines starting with # are skipped).
  */
 import { readFileSync } from 'node:fs';
 import { decodeSnapshot } from '../snapshot/cluster-snapshot.js';
-import type { DiskSet } from '../../worker/probe-2d.js';
+import type { DiskSet } from '../../worker/probe/probe-2d.js';
 
 export interface ProbeInput extends DiskSet {
   x: Float64Array;

@@ -1,6 +1,6 @@
 /**
  * Embedded probing: plan the probe jobs of a set, run them in this process
- * or on a pool of T probe threads (worker/probe-thread-pool.ts; results put
+ * or on a pool of T probe threads (worker/runtime/probe-thread-pool.ts; results put
  * back in job order, so the counts do not depend on T), add the counts, and
  * analyse.
  * Halves for the convergence flags: even jobs and odd jobs.
@@ -8,8 +8,8 @@
 import {
   ProbeGeometry, addProbeCounts, diskSetDigest, planProbeJobs, runProbeJob,
   DEFAULT_PROBE_LAUNCH_MARGIN, DEFAULT_PROBE_MIN_STEP, type DiskSet, type ProbeResult, type ProbeTask,
-} from '../../worker/probe-2d.js';
-import { ProbeThreadPool } from '../../worker/probe-thread-pool.js';
+} from '../../worker/probe/probe-2d.js';
+import { ProbeThreadPool } from '../../worker/runtime/probe-thread-pool.js';
 import { analyzeProbe, type HarmonicMeasures } from './probe-analysis.js';
 
 export interface ProbeRunOptions {

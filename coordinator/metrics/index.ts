@@ -13,7 +13,7 @@
 import { createServer, type Server } from 'node:http';
 import { Counter, Gauge, Histogram, Registry, collectDefaultMetrics } from 'prom-client';
 import type { Queue } from 'bullmq';
-import type { ProcessorEvents } from '../../worker/queue-processor.js';
+import type { ProcessorEvents } from '../../worker/runtime/queue-processor.js';
 import type { EnsembleStore } from '../farm/store.js';
 
 /** Run durations from seconds (tests, demos) up to days. */

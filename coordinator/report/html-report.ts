@@ -14,8 +14,8 @@
  */
 import { mkdir, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
-import type { GrowthResult } from '../../worker/growth-kernel.js';
-import { ENGINE_VERSION } from '../../worker/engine-version.js';
+import type { GrowthResult } from '../../worker/core/growth-kernel.js';
+import { ENGINE_VERSION } from '../../worker/core/engine-version.js';
 import type { EnsembleAnalysis } from '../stats/analyze-ensemble.js';
 import type { HarmonicAtSize, HarmonicSection } from '../harmonic/harmonic-section-types.js';
 import type { IntervalSummary } from '../stats/bca.js';

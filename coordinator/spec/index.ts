@@ -9,8 +9,8 @@
  */
 import { Ajv, type ErrorObject } from 'ajv';
 import { parse as parseToml } from 'smol-toml';
-import { defaultModelParams } from '../../worker/models.js';
-import type { ModelParams } from '../../worker/growth-kernel.js';
+import { defaultModelParams } from '../../worker/models/registry.js';
+import type { ModelParams } from '../../worker/core/growth-kernel.js';
 import {
   DEFAULT_MAX_TOTAL_PARTICLES,
   MAX_RUNS_PER_JOB,

@@ -17,7 +17,7 @@
  * gets the decision plus the estimate it was based on.
  */
 
-import type { GrowthResult } from '../../worker/growth-kernel.js';
+import type { GrowthResult } from '../../worker/core/growth-kernel.js';
 import { analyzeEnsemble, type AnalysisOptions, type EstimatorName } from './analyze-ensemble.js';
 import { StatsInputError } from './ensemble-data.js';
 

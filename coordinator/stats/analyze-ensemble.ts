@@ -41,8 +41,8 @@
  *   notes             remarks about the input (duplicates, truncation, fallbacks of windows)
  */
 
-import type { GrowthResult } from '../../worker/growth-kernel.js';
-import { parseSeed } from '../../worker/random.js';
+import type { GrowthResult } from '../../worker/core/growth-kernel.js';
+import { parseSeed } from '../../worker/core/random.js';
 import { bootstrapInterval, unavailableInterval, type IntervalSummary } from './bca.js';
 import { bootstrapRandom, drawResample, jackknifeMeans, weightedColumnMeans, weightedMean } from './bootstrap.js';
 import { buildConsistencyPanel, type ConsistencyPanel } from './consistency-panel.js';

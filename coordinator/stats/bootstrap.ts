@@ -14,7 +14,7 @@
  * beyond which Random.nextBelow is used.
  */
 
-import { Random, STREAM_BOOTSTRAP } from '../../worker/random.js';
+import { Random, STREAM_BOOTSTRAP } from '../../worker/core/random.js';
 
 /** The bootstrap generator for an analysis seed. */
 export function bootstrapRandom(seed: string | number | bigint): Random {

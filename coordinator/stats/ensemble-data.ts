@@ -18,7 +18,7 @@
  * (e.g. R_g = 0 at N = 1 is left out).
  */
 
-import type { GrowthResult } from '../../worker/growth-kernel.js';
+import type { GrowthResult } from '../../worker/core/growth-kernel.js';
 
 /** log y against log x for K clusters on a common abscissa grid. */
 export interface LogLogData {

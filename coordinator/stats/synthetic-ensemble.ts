@@ -12,8 +12,8 @@
  * 1/D in expectation (zero-mean noise), so intervals must cover 1/D.
  */
 
-import type { GrowthResult } from '../../worker/growth-kernel.js';
-import { Random, STREAM_GROWTH } from '../../worker/random.js';
+import type { GrowthResult } from '../../worker/core/growth-kernel.js';
+import { Random, STREAM_GROWTH } from '../../worker/core/random.js';
 
 export interface SyntheticEnsembleSpec {
   clusters: number;

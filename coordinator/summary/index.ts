@@ -19,7 +19,7 @@ import {
   type PowerLawFitData,
   type RunResultData,
 } from '../../proto/convert.js';
-import { ENGINE_VERSION } from '../../worker/engine-version.js';
+import { ENGINE_VERSION } from '../../worker/core/engine-version.js';
 import { specToDocument, type AnalysisSettings, type EnsembleSpec, type Observable } from '../spec/index.js';
 import type { EnsembleAnalysis } from '../stats/analyze-ensemble.js';
 import { analysisOptionsOf, safeAnalysis, type AdaptiveHistory } from './adaptive.js';

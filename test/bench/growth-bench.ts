@@ -16,9 +16,9 @@
  */
 import { spawn } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
-import { createKernel, defaultModelParams } from '../../worker/models.js';
-import type { GrowthTask } from '../../worker/growth-kernel.js';
-import { ENGINE_VERSION } from '../../worker/engine-version.js';
+import { createKernel, defaultModelParams } from '../../worker/models/registry.js';
+import type { GrowthTask } from '../../worker/core/growth-kernel.js';
+import { ENGINE_VERSION } from '../../worker/core/engine-version.js';
 import { createProgress } from '../../coordinator/progress/progress.js';
 import { isEntryPoint } from './bench-process.js';
 

@@ -7,8 +7,8 @@
  *
  * Prints a human-readable line and one JSON line.
  */
-import { createKernel, defaultModelParams } from '../../worker/models.js';
-import { ProbeGeometry, planProbeJobs, runProbeJob } from '../../worker/probe-2d.js';
+import { createKernel, defaultModelParams } from '../../worker/models/registry.js';
+import { ProbeGeometry, planProbeJobs, runProbeJob } from '../../worker/probe/probe-2d.js';
 import { argValue, isEntryPoint } from './bench-process.js';
 
 export interface ProbeBenchmarkResult {

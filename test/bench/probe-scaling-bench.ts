@@ -18,7 +18,7 @@ import { join } from 'node:path';
 import { Redis } from 'ioredis';
 import { runQueue } from '../../coordinator/farm/queue.js';
 import { launchProbeRequest, ProbeRequestStore } from '../../coordinator/farm/probe-requests.js';
-import { createKernel, defaultModelParams } from '../../worker/models.js';
+import { createKernel, defaultModelParams } from '../../worker/models/registry.js';
 import { argValue, isEntryPoint, startBenchWorker, stopBenchWorkers } from './bench-process.js';
 
 export interface ProbeScalingResult {

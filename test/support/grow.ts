@@ -1,5 +1,5 @@
-import type { GrowthResult, GrowthTask, OffLatticeDla2dParams } from '../../worker/growth-kernel.js';
-import { createKernel, defaultModelParams } from '../../worker/models.js';
+import type { GrowthResult, GrowthTask, OffLatticeDla2dParams } from '../../worker/core/growth-kernel.js';
+import { createKernel, defaultModelParams } from '../../worker/models/registry.js';
 
 export function dlaTask(particles: number, runIndex = 0, seed = '1', model: Partial<OffLatticeDla2dParams> = {}): GrowthTask {
   return {

@@ -1,6 +1,6 @@
 /**
  * A deliberately simple reference for the off-lattice 2D DLA kernel, for
- * tests only: the same model (worker/dla-offlattice-2d.ts header), simulated
+ * tests only: the same model (worker/models/dla-offlattice-2d/kernel.ts header), simulated
  * with no acceleration at all. Every move is a straight step of fixed length
  * `step` in a uniform direction (drawn with cos/sin, not the kernel's polar
  * sampler); contact is found exactly along the step by brute force over the
@@ -11,7 +11,7 @@
  * shared with the kernel but the random generator.
  */
 
-import { Random } from '../../worker/random.js';
+import { Random } from '../../worker/core/random.js';
 
 export function growReference(particles: number, seed: string, runIndex: number, step: number): { x: Float64Array; y: Float64Array; rg: number } {
   const rng = Random.forRun(seed, runIndex, 7);

@@ -1,7 +1,7 @@
 /**
  * The BullMQ side of a worker process. Jobs come from the queue "runs"; each
  * holds one or more run tasks (protobuf, base64). Growth happens in worker
- * threads (worker/task-thread.ts), so this thread's event loop stays free
+ * threads (worker/runtime/task-thread.ts), so this thread's event loop stays free
  * and BullMQ's lock renewal is never starved.
  *
  * Per run: skip it if its result is stored already (a retry after a crash);
@@ -30,9 +30,9 @@
 import { hostname } from 'node:os';
 import { UnrecoverableError, WaitingError, Worker, type ConnectionOptions, type Job } from 'bullmq';
 import type { Redis } from 'ioredis';
-import { ContractError, decodeRunTask, type RunResultData, type RunTaskData } from '../proto/convert.js';
+import { ContractError, decodeRunTask, type RunResultData, type RunTaskData } from '../../proto/convert.js';
 import { checkRunTask, TaskRejected } from './task-runner.js';
-import { checkProbeTask, type ProbeTask } from './probe-2d.js';
+import { checkProbeTask, type ProbeTask } from '../probe/probe-2d.js';
 import { TaskThreadPool, type ThreadRun } from './task-thread.js';
 
 export const QUEUE_NAME = 'runs';
@@ -55,7 +55,7 @@ export interface ProbeJobData {
   ensembleId: string;
   runIndex: number;
   size: number;
-  /** The probe task (worker/probe-2d.ts ProbeTask), plain JSON. */
+  /** The probe task (worker/probe/probe-2d.ts ProbeTask), plain JSON. */
   task: ProbeTask;
 }
 

@@ -11,7 +11,7 @@
  *    of buckets, each holding up to 2 centres' coordinates inline (half a
  *    cache line), in arrival order. When the walker's level-0 cell is marked, the
  *    3 × 3 block of cells around it is scanned exactly, visiting only the
- *    cells that hold centres (a bit grid of them, worker/window-bit-grid.ts,
+ *    cells that hold centres (a bit grid of them, worker/index/window-bit-grid.ts,
  *    gives a row of the block in one word). The centres found are kept until
  *    the next insert, and reused while the walker's exact scans stay in the
  *    same cell (about half of them in DLA growth).
@@ -30,7 +30,7 @@
  *    results independent of the order of queries, and so of checkpoints.
  *    Each level-k cell whose parent (level k + 1) is marked carries a PARENT
  *    bit, so a walker that stays at its level is answered by one lookup.
- * Every grid is sparse (worker/tiled-grids.ts): memory grows with the number
+ * Every grid is sparse (worker/index/tiled-grids.ts): memory grows with the number
  * of particles, not with the area.
  */
 

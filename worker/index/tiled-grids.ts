@@ -1,5 +1,5 @@
 /**
- * Sparse 2D grids on a TileDirectory (worker/tile-directory.ts): int32 cell
+ * Sparse 2D grids on a TileDirectory (worker/index/tile-directory.ts): int32 cell
  * values (list heads) and byte cell values (occupancy marks). Each pool is
  * one typed array with 64 cells per tile, grown by doubling.
  */

@@ -7,11 +7,11 @@
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 
-/** URL of the compiled `worker/<file>.js`, given the caller's import.meta.url. */
+/** URL of the compiled `<file>.js` next to the caller (a file under worker/), given the caller's import.meta.url. */
 export function compiledWorkerEntry(callerUrl: string, file: string): URL {
   const here = fileURLToPath(callerUrl);
   if (here.endsWith('.ts')) {
-    const compiled = here.replace(/([\\/])worker([\\/])[^\\/]+\.ts$/, `$1dist$1worker$2${file}.js`);
+    const compiled = here.replace(/([\\/])worker([\\/](?:[^\\/]+[\\/])*)[^\\/]+\.ts$/, `$1dist$1worker$2${file}.js`);
     if (!existsSync(compiled)) throw new Error(`compiled thread entry ${compiled} is missing: run npm run build`);
     return new URL(`file://${compiled}`);
   }

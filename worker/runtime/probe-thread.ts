@@ -10,7 +10,7 @@
  *                   refused: the job or its set is invalid (a RangeError), so a retry cannot succeed
  */
 import { parentPort } from 'node:worker_threads';
-import { ProbeGeometry, runProbeJob, type DiskSet, type ProbeResult, type ProbeTask } from './probe-2d.js';
+import { ProbeGeometry, runProbeJob, type DiskSet, type ProbeResult, type ProbeTask } from '../probe/probe-2d.js';
 
 export type ToProbeThread = { type: 'probe'; id: number; key: string; set?: DiskSet; task: ProbeTask };
 export type FromProbeThread = { type: 'done'; id: number; result: ProbeResult } | { type: 'failed'; id: number; message: string; refused: boolean };

@@ -3,11 +3,11 @@
  * way the farm, the embedded mode, the benchmarks and the tests build a
  * kernel. To add a model: write worker/<model>.ts implementing GrowthKernel
  * (exact definition in its header), add its parameter type to ModelParams in
- * worker/growth-kernel.ts, and register it here.
+ * worker/core/growth-kernel.ts, and register it here.
  */
 
-import type { GrowthCheckpoint, GrowthKernel, GrowthTask, ModelParams } from './growth-kernel.js';
-import { DEFAULT_DLA_OFFLATTICE_2D, OffLatticeDla2d, checkDlaOffLattice2dTask } from './dla-offlattice-2d.js';
+import type { GrowthCheckpoint, GrowthKernel, GrowthTask, ModelParams } from '../core/growth-kernel.js';
+import { DEFAULT_DLA_OFFLATTICE_2D, OffLatticeDla2d, checkDlaOffLattice2dTask } from './dla-offlattice-2d/kernel.js';
 
 interface ModelEntry {
   /** Spatial dimension of the clusters. */

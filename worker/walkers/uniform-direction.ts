@@ -13,7 +13,7 @@
  * are deterministic, so the same engine gives the same bits everywhere.
  */
 
-import type { Random } from './random.js';
+import type { Random } from '../core/random.js';
 
 const TABLE_BITS = 12;
 const TABLE_SIZE = 1 << TABLE_BITS;

@@ -17,15 +17,15 @@
  *    measure found is the growth probability of each particle. A user's CSV
  *    of x, y, r rows is probed with r_i = r as given.
  *
- * How it is simulated (the growth walk of worker/dla-offlattice-2d.ts
+ * How it is simulated (the growth walk of worker/models/dla-offlattice-2d/kernel.ts
  * without sticking; lengths are internally divided by s = max r_i, after
  * moving the origin to the centre of the bounding box of the centres)
  *  1. Launch uniformly on the circle of radius R_L = R_ext + launchMargin
  *     (default margin 0: the smallest circle about the origin enclosing K),
  *     R_ext = max(|p_i| + r_i): exact for a walker from infinity.
  *  2. Outside R_L the walker is returned to that circle by the exact
- *     exterior Poisson kernel (worker/poisson-return-2d.ts).
- *  3. Walk-on-spheres: the occupancy index (worker/occupancy-index-2d.ts,
+ *     exterior Poisson kernel (worker/walkers/poisson-return-2d.ts).
+ *  3. Walk-on-spheres: the occupancy index (worker/index/occupancy-index-2d.ts,
  *     built on the scaled centres, where every scaled radius is ≤ 1) gives
  *     a lower bound on (nearest centre distance − 1) ≤ the distance to ∂K.
  *     When the index scanned exactly, the distance to ∂K is computed exactly
@@ -56,12 +56,12 @@
  * from the harmonic measure).
  */
 
-import { ENGINE_VERSION } from './engine-version.js';
-import { OccupancyIndex2d } from './occupancy-index-2d.js';
-import { returnToCircle, returned } from './poisson-return-2d.js';
-import { Random, STREAM_PROBE, parseSeed } from './random.js';
-import { direction, sampleDirection } from './uniform-direction.js';
-import { contact, firstContact } from './segment-contact-2d.js';
+import { ENGINE_VERSION } from '../core/engine-version.js';
+import { OccupancyIndex2d } from '../index/occupancy-index-2d.js';
+import { returnToCircle, returned } from '../walkers/poisson-return-2d.js';
+import { Random, STREAM_PROBE, parseSeed } from '../core/random.js';
+import { direction, sampleDirection } from '../walkers/uniform-direction.js';
+import { contact, firstContact } from '../walkers/segment-contact-2d.js';
 
 /** Default straight-step length near contact, in units of the largest contact radius. */
 export const DEFAULT_PROBE_MIN_STEP = 0.02;

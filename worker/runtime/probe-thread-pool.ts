@@ -1,5 +1,5 @@
 /**
- * A pool of probe threads (worker/probe-thread.ts). Each thread keeps the
+ * A pool of probe threads (worker/runtime/probe-thread.ts). Each thread keeps the
  * geometry of the last set it probed; a job goes preferably to a free thread
  * that already holds its set (by key), otherwise the set is loaded (through
  * the caller's loader, once per thread that needs it) and sent along.
@@ -9,7 +9,7 @@
 import { Worker } from 'node:worker_threads';
 import { compiledWorkerEntry } from './thread-entry.js';
 import { ThreadSlots, type ThreadSlot } from './thread-slots.js';
-import type { DiskSet, ProbeResult, ProbeTask } from './probe-2d.js';
+import type { DiskSet, ProbeResult, ProbeTask } from '../probe/probe-2d.js';
 import type { FromProbeThread, ToProbeThread } from './probe-thread.js';
 
 interface Slot extends ThreadSlot {

@@ -6,7 +6,7 @@
  * window of Chebyshev radius WINDOW_RADIUS around a cell of a tile's core
  * lies inside that tile. Setting a bit writes it into the owning tile and
  * into every neighbour whose apron covers the cell (at most four tiles).
- * Tiles live on a TileDirectory (worker/tile-directory.ts), so memory grows
+ * Tiles live on a TileDirectory (worker/index/tile-directory.ts), so memory grows
  * with the number of tiles touched, never with the area spanned.
  */
 

@@ -9,14 +9,14 @@
  * particle-count checkpoints land exactly where asked.
  *
  * This file does no I/O itself: checkpoints and progress go to callbacks.
- * It runs inside a worker thread (worker/task-thread.ts) in both the farm and
+ * It runs inside a worker thread (worker/runtime/task-thread.ts) in both the farm and
  * the embedded mode.
  */
 import { hostname } from 'node:os';
-import { growthTaskOf, type CheckpointData, type RunResultData, type RunTaskData } from '../proto/convert.js';
-import { ENGINE_VERSION } from './engine-version.js';
-import type { GrowthCheckpoint } from './growth-kernel.js';
-import { checkTask, createKernel } from './models.js';
+import { growthTaskOf, type CheckpointData, type RunResultData, type RunTaskData } from '../../proto/convert.js';
+import { ENGINE_VERSION } from '../core/engine-version.js';
+import type { GrowthCheckpoint } from '../core/growth-kernel.js';
+import { checkTask, createKernel } from '../models/registry.js';
 
 export interface RunProgress {
   runIndex: number;

@@ -18,9 +18,9 @@
  *     exact.
  *  2. Return: whenever the walker is outside R_L it is moved to the point
  *     where its Brownian path first hits the launch circle, sampled from the
- *     exact exterior Poisson kernel (worker/poisson-return-2d.ts). In two
+ *     exact exterior Poisson kernel (worker/walkers/poisson-return-2d.ts). In two
  *     dimensions that hit is certain, so no walker is ever killed.
- *  3. Walk-on-spheres: the occupancy index (worker/occupancy-index-2d.ts)
+ *  3. Walk-on-spheres: the occupancy index (worker/index/occupancy-index-2d.ts)
  *     gives a lower bound d on the free distance (distance to the nearest
  *     centre, minus 1); the bound r − R_max − 1 from the walker's radius r is
  *     also used. When d >= minStep the walker jumps to a uniform point on the
@@ -61,16 +61,16 @@ import type {
   GrowthSeries,
   GrowthTask,
   OffLatticeDla2dParams,
-} from './growth-kernel.js';
-import { ENGINE_VERSION } from './engine-version.js';
-import { OccupancyIndex2d } from './occupancy-index-2d.js';
-import { returnToCircle, returned } from './poisson-return-2d.js';
-import { Random, STREAM_GROWTH } from './random.js';
-import { countWithin, massRadiusRadii, recordSizes } from './record-sizes.js';
-import { StateHasher } from './state-hash.js';
-import { direction, sampleDirection } from './uniform-direction.js';
-import { contact, firstContact } from './segment-contact-2d.js';
-import { canonicalJson } from './canonical-json.js';
+} from '../../core/growth-kernel.js';
+import { ENGINE_VERSION } from '../../core/engine-version.js';
+import { OccupancyIndex2d } from '../../index/occupancy-index-2d.js';
+import { returnToCircle, returned } from '../../walkers/poisson-return-2d.js';
+import { Random, STREAM_GROWTH } from '../../core/random.js';
+import { countWithin, massRadiusRadii, recordSizes } from '../../core/record-sizes.js';
+import { StateHasher } from '../../core/state-hash.js';
+import { direction, sampleDirection } from '../../walkers/uniform-direction.js';
+import { contact, firstContact } from '../../walkers/segment-contact-2d.js';
+import { canonicalJson } from '../../core/canonical-json.js';
 
 export const DEFAULT_DLA_OFFLATTICE_2D: OffLatticeDla2dParams = {
   kind: 'dla-offlattice-2d',

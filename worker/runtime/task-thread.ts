@@ -2,7 +2,7 @@
  * Runs growth off the main thread. The main thread of a worker process (or
  * of `tendril run`) keeps its event loop free for queue lock renewal, Redis,
  * metrics and signals, while each worker thread runs one task at a time with
- * worker/task-runner.ts.
+ * worker/runtime/task-runner.ts.
  *
  * Messages (all payloads are protobuf bytes of proto/tendril.proto):
  *   main -> thread  { type: 'run', id, task, checkpoint? }   start a run
@@ -29,7 +29,7 @@ import {
   type CheckpointData,
   type RunResultData,
   type RunTaskData,
-} from '../proto/convert.js';
+} from '../../proto/convert.js';
 import { runTask, type RunProgress } from './task-runner.js';
 
 type ToThread = { type: 'run'; id: number; task: Uint8Array; checkpoint?: Uint8Array; workerId: string } | { type: 'stop'; id: number };

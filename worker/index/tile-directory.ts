@@ -1,8 +1,8 @@
 /**
  * Sparse storage of a 2D grid in tiles of 8 × 8 cells: this directory maps
  * tile coordinates (ix >> 3, iy >> 3) to tile numbers 0, 1, 2, ... in
- * allocation order, through a hash table (worker/cell-hash-table.ts). The
- * grids built on it (worker/tiled-grids.ts) keep 64 cell values per tile in
+ * allocation order, through a hash table (worker/index/cell-hash-table.ts). The
+ * grids built on it (worker/index/tiled-grids.ts) keep 64 cell values per tile in
  * one typed array, so neighbouring cells share memory, and memory grows
  * with the number of tiles touched, never with the area spanned. The last
  * tile looked up is cached: a walker's successive queries rarely hash.

@@ -14,7 +14,7 @@
  * sin θ = 2kuv/(u² + k²v²).
  */
 
-import type { Random } from './random.js';
+import type { Random } from '../core/random.js';
 
 /** Result slots, written by `returnToCircle` (no allocation). */
 export const returned = { x: 0, y: 0 };

@@ -9,7 +9,7 @@
 /** Model parameters; one variant per model, discriminated by `kind`. */
 export type ModelParams = OffLatticeDla2dParams;
 
-/** Off-lattice DLA in the plane; see worker/dla-offlattice-2d.ts for the exact definition. */
+/** Off-lattice DLA in the plane; see worker/models/dla-offlattice-2d/kernel.ts for the exact definition. */
 export interface OffLatticeDla2dParams {
   kind: 'dla-offlattice-2d';
   /**
@@ -83,7 +83,7 @@ export interface GrowthCheckpoint {
   /** Particle centres in arrival order, length >= count (extra entries ignored). */
   x: Float64Array;
   y: Float64Array;
-  /** Random generator state (see worker/random.ts). */
+  /** Random generator state (see worker/core/random.ts). */
   rngState: Uint32Array;
   counters: GrowthCounters;
   /** Records taken so far. */
