@@ -1,11 +1,13 @@
 import { defineConfig } from 'vitest/config';
 
-// Tests run from TypeScript sources; tests that start worker threads or child
-// processes use the compiled tree in dist/ (built by `npm test`'s pretest step).
+// `npm test`: every test but the long physics checks (*.slow.test.ts), which
+// `npm run test:slow` runs with test/vitest.slow.config.ts. Tests run from
+// TypeScript sources; tests that start worker threads or child processes use
+// the compiled tree in dist/ (built by the pretest step).
 export default defineConfig({
   test: {
     include: ['test/**/*.test.ts'],
-    exclude: ['dist/**', 'node_modules/**'],
+    exclude: ['dist/**', 'node_modules/**', 'test/**/*.slow.test.ts'],
     testTimeout: 120_000,
     hookTimeout: 120_000,
     pool: 'forks',
