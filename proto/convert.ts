@@ -2,7 +2,10 @@
  * Conversions between tendril's plain objects and the protobuf messages of
  * proto/tendril.proto. proto/ imports nothing else of ours, so the plain shapes
  * are declared here; they are structurally identical to the kernel contract of
- * worker/core/growth-kernel.ts (test/proto-contract.test.ts checks that both ways).
+ * worker/core/growth-kernel.ts (test/proto-contract.test.ts checks that both
+ * ways). Model parameters and counters travel as name → value maps, so the
+ * contract carries any model; the registry (worker/models/registry.ts) checks
+ * them when a task is run.
  *
  * Every decoder checks what it reads and throws a ContractError with a
  * one-line message naming the bad field, so a malformed job fails with a
@@ -12,19 +15,25 @@ import { tendril } from './generated/tendril.js';
 
 export { tendril };
 
-/** Version of the wire contract written into every message; see the header of tendril.proto. */
-export const CONTRACT_VERSION = 1;
+/**
+ * Version of the wire contract written into every message; see the header of
+ * tendril.proto. Readers accept every version in READABLE_CONTRACT_VERSIONS:
+ * contract 1 (one model, x/y arrays, fixed counters) is read into the shapes
+ * of contract 2 (a model kind with a parameter map, dimension-strided
+ * positions, counters by name, model state).
+ */
+export const CONTRACT_VERSION = 2;
+export const READABLE_CONTRACT_VERSIONS: readonly number[] = [1, 2];
 
 export class ContractError extends Error {
   override name = 'ContractError';
 }
 
-export interface PlainOffLatticeDla2d {
-  kind: 'dla-offlattice-2d';
-  minStep: number;
-  launchMargin: number;
+/** A model and its numeric parameters by name (mirrors ModelParams of worker/core/growth-kernel.ts). */
+export interface PlainModel {
+  kind: string;
+  params: Record<string, number>;
 }
-export type PlainModel = PlainOffLatticeDla2d;
 
 export interface PlainGrowthTask {
   model: PlainModel;
@@ -51,19 +60,17 @@ export interface PlainSeries {
   radiusOfGyration: number[];
   maxRadius: number[];
   centerOffset: number[];
+  extra: Record<string, number[]>;
 }
 export interface PlainMassRadius {
   radii: number[];
   counts: number[];
 }
-export interface PlainCounters {
-  jumps: number;
-  shortSteps: number;
-  returns: number;
-}
+export type PlainCounters = Record<string, number>;
 export interface PlainGrowthResult {
   engineVersion: string;
   model: PlainModel;
+  dimension: number;
   particles: number;
   ensembleSeed: string;
   runIndex: number;
@@ -75,12 +82,13 @@ export interface PlainGrowthResult {
 export interface PlainGrowthCheckpoint {
   engineVersion: string;
   task: PlainGrowthTask;
+  dimension: number;
   count: number;
-  x: Float64Array;
-  y: Float64Array;
+  positions: Float64Array;
   rngState: Uint32Array;
   counters: PlainCounters;
   series: PlainSeries;
+  modelState: Uint8Array;
 }
 
 export interface RunTimingsData {
@@ -112,7 +120,7 @@ function fail(msg: string): never {
 }
 
 function checkVersion(what: string, v: number): void {
-  if (v !== CONTRACT_VERSION) fail(`${what}.contract_version is ${v}, this build reads only version ${CONTRACT_VERSION}`);
+  if (!READABLE_CONTRACT_VERSIONS.includes(v)) fail(`${what}.contract_version is ${v}, this build reads versions ${READABLE_CONTRACT_VERSIONS.join(' and ')}`);
 }
 
 function decodeWith<T>(what: string, decode: (b: Uint8Array) => T, bytes: Uint8Array): T {
@@ -125,7 +133,7 @@ function decodeWith<T>(what: string, decode: (b: Uint8Array) => T, bytes: Uint8A
 
 export function growthTaskOf(run: RunTaskData): PlainGrowthTask {
   return {
-    model: { ...run.model },
+    model: { kind: run.model.kind, params: { ...run.model.params } },
     particles: run.particles,
     ensembleSeed: run.ensembleSeed,
     runIndex: run.runIndex,
@@ -133,19 +141,28 @@ export function growthTaskOf(run: RunTaskData): PlainGrowthTask {
   };
 }
 
+/** The only model of contract 1, by its contract-2 kind and parameter names. */
+const LEGACY_KIND = 'dla-offlattice-2d';
+
 function modelToProto(m: PlainModel): tendril.IModelParams {
-  switch (m.kind) {
-    case 'dla-offlattice-2d':
-      return { offlatticeDla2d: { minStep: m.minStep, launchMargin: m.launchMargin } };
-    default:
-      return fail(`model.kind "${(m as { kind: string }).kind}" has no protobuf encoding`);
-  }
+  return { kind: m.kind, params: { ...m.params } };
 }
 
 function modelFromProto(what: string, m: tendril.IModelParams | null | undefined): PlainModel {
+  if (m?.kind) {
+    const params: Record<string, number> = {};
+    for (const [k, v] of Object.entries(m.params ?? {})) params[k] = Number(v);
+    return { kind: m.kind, params };
+  }
   const d = m?.offlatticeDla2d;
-  if (d) return { kind: 'dla-offlattice-2d', minStep: d.minStep ?? 0, launchMargin: d.launchMargin ?? 0 };
-  return fail(`${what}.model is missing or of an unknown kind`);
+  if (d) return { kind: LEGACY_KIND, params: { min_step: d.minStep ?? 0, launch_margin: d.launchMargin ?? 0 } };
+  return fail(`${what}.model is missing`);
+}
+
+function seriesToProto(s: PlainSeries): tendril.IGrowthSeries {
+  const extra: Record<string, tendril.IDoubleList> = {};
+  for (const [k, v] of Object.entries(s.extra)) extra[k] = { values: v };
+  return { sizes: s.sizes, radiusOfGyration: s.radiusOfGyration, maxRadius: s.maxRadius, centerOffset: s.centerOffset, extra };
 }
 
 function seriesFromProto(s: tendril.IGrowthSeries | null | undefined): PlainSeries {
@@ -156,11 +173,29 @@ function seriesFromProto(s: tendril.IGrowthSeries | null | undefined): PlainSeri
   if (rg.length !== sizes.length || mr.length !== sizes.length || co.length !== sizes.length) {
     fail(`series has ${sizes.length} sizes but ${rg.length}/${mr.length}/${co.length} values`);
   }
-  return { sizes, radiusOfGyration: rg, maxRadius: mr, centerOffset: co };
+  const extra: Record<string, number[]> = {};
+  for (const [k, v] of Object.entries(s?.extra ?? {})) {
+    const values = (v?.values ?? []).slice();
+    if (values.length !== sizes.length) fail(`series.extra["${k.slice(0, 40)}"] has ${values.length} values for ${sizes.length} sizes`);
+    extra[k] = values;
+  }
+  return { sizes, radiusOfGyration: rg, maxRadius: mr, centerOffset: co, extra };
 }
 
-function countersFromProto(c: tendril.IGrowthCounters | null | undefined): PlainCounters {
-  return { jumps: c?.jumps ?? 0, shortSteps: c?.shortSteps ?? 0, returns: c?.returns ?? 0 };
+/** Counters by name (contract 2), or contract 1's fixed counters under their names. */
+function countersFromProto(values: { [k: string]: number } | null | undefined, legacy: tendril.IGrowthCounters | null | undefined): PlainCounters {
+  if (values && Object.keys(values).length > 0) {
+    const out: PlainCounters = {};
+    for (const [k, v] of Object.entries(values)) out[k] = Number(v);
+    return out;
+  }
+  if (legacy) return { jumps: legacy.jumps ?? 0, short_steps: legacy.shortSteps ?? 0, returns: legacy.returns ?? 0 };
+  return {};
+}
+
+function checkDimension(what: string, d: number): number {
+  if (d !== 2 && d !== 3) fail(`${what}.dimension is ${d}, allowed: 2 or 3`);
+  return d;
 }
 
 const LITTLE_ENDIAN = new Uint8Array(Uint16Array.of(1).buffer)[0] === 1;
@@ -176,7 +211,7 @@ function floatsToBytes(a: Float64Array, count: number): Uint8Array {
 
 function bytesToFloats(what: string, b: Uint8Array | null | undefined, count: number): Float64Array {
   const len = b?.length ?? 0;
-  if (len !== count * 8) fail(`${what} holds ${len} bytes, expected ${count * 8} for ${count} particles`);
+  if (len !== count * 8) fail(`${what} holds ${len} bytes, expected ${count * 8} for ${count} values`);
   const out = new Float64Array(count);
   if (LITTLE_ENDIAN) new Uint8Array(out.buffer).set(b!);
   else {
@@ -246,9 +281,10 @@ export function runResultToProto(r: RunResultData): tendril.RunResult {
     model: modelToProto(r.model),
     particles: r.particles,
     ensembleSeed: r.ensembleSeed,
-    series: { ...r.series },
+    series: seriesToProto(r.series),
     massRadius: { ...r.massRadius },
-    counters: { ...r.counters },
+    counterValues: { ...r.counters },
+    dimension: r.dimension,
     stateHash: r.stateHash,
     timings: { ...r.timings },
   });
@@ -266,11 +302,12 @@ export function runResultFromProto(m: tendril.IRunResult): RunResultData {
     runIndex: m.runIndex ?? 0,
     engineVersion: m.engineVersion ?? '',
     model: modelFromProto('RunResult', m.model),
+    dimension: checkDimension('RunResult', m.contractVersion === 1 ? 2 : (m.dimension ?? 0)),
     particles: m.particles ?? 0,
     ensembleSeed: m.ensembleSeed ?? '',
     series: seriesFromProto(m.series),
     massRadius: { radii, counts },
-    counters: countersFromProto(m.counters),
+    counters: countersFromProto(m.counterValues, m.counters),
     stateHash: m.stateHash ?? '',
     timings: {
       growSeconds: t?.growSeconds ?? 0,
@@ -301,16 +338,29 @@ export function encodeCheckpoint(c: CheckpointData): Uint8Array {
     engineVersion: s.engineVersion,
     task: runTaskToProto(c.run),
     count: s.count,
-    x: floatsToBytes(s.x, s.count),
-    y: floatsToBytes(s.y, s.count),
+    dimension: s.dimension,
+    positions: floatsToBytes(s.positions, s.count * s.dimension),
     rngState: Array.from(s.rngState),
-    counters: { ...s.counters },
-    series: { ...s.series },
+    counterValues: { ...s.counters },
+    series: seriesToProto(s.series),
+    modelState: s.modelState,
     growSeconds: c.growSeconds,
     startedAtMs: c.startedAtMs,
     resumes: c.resumes,
   });
   return tendril.Checkpoint.encode(msg).finish();
+}
+
+/** Contract 1 positions: x and y arrays, interleaved into contract 2's layout. */
+function legacyPositions(m: tendril.ICheckpoint, count: number): Float64Array {
+  const x = bytesToFloats('Checkpoint.x', m.x, count);
+  const y = bytesToFloats('Checkpoint.y', m.y, count);
+  const out = new Float64Array(2 * count);
+  for (let i = 0; i < count; i++) {
+    out[2 * i] = x[i];
+    out[2 * i + 1] = y[i];
+  }
+  return out;
 }
 
 export function decodeCheckpoint(bytes: Uint8Array): CheckpointData {
@@ -322,17 +372,20 @@ export function decodeCheckpoint(bytes: Uint8Array): CheckpointData {
   if (count < 1 || count > run.particles) fail(`Checkpoint.count is ${count}, allowed 1..${run.particles}`);
   const rng = m.rngState ?? [];
   if (rng.length !== 4) fail(`Checkpoint.rng_state has ${rng.length} words, expected 4`);
+  const legacy = m.contractVersion === 1;
+  const dimension = checkDimension('Checkpoint', legacy ? 2 : (m.dimension ?? 0));
   return {
     run,
     state: {
       engineVersion: m.engineVersion ?? '',
       task: growthTaskOf(run),
+      dimension,
       count,
-      x: bytesToFloats('Checkpoint.x', m.x, count),
-      y: bytesToFloats('Checkpoint.y', m.y, count),
+      positions: legacy ? legacyPositions(m, count) : bytesToFloats('Checkpoint.positions', m.positions, count * dimension),
       rngState: Uint32Array.from(rng),
-      counters: countersFromProto(m.counters),
+      counters: countersFromProto(m.counterValues, m.counters),
       series: seriesFromProto(m.series),
+      modelState: m.modelState ? Uint8Array.from(m.modelState) : new Uint8Array(0),
     },
     growSeconds: m.growSeconds ?? 0,
     startedAtMs: m.startedAtMs ?? 0,

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { createKernel } from '../worker/models/registry.js';
 import type { GrowthCheckpoint } from '../worker/core/growth-kernel.js';
 import { dlaTask } from './support/grow.js';
+import { axisOf } from '../worker/core/positions.js';
 
 describe('off-lattice 2D DLA kernel: geometry invariants', () => {
   // Definition of the model (worker/models/dla-offlattice-2d/kernel.ts): disks of diameter 1
@@ -11,7 +12,10 @@ describe('off-lattice 2D DLA kernel: geometry invariants', () => {
       const task = dlaTask(4000, runIndex, '424242');
       const k = createKernel(task);
       k.growTo(task.particles);
-      const { x, y, count } = k.positions();
+      const pos = k.positions();
+      const count = pos.count;
+      const x = axisOf(pos, 0);
+      const y = axisOf(pos, 1);
       expect(count).toBe(4000);
       expect(x[0]).toBe(0);
       expect(y[0]).toBe(0);
@@ -104,12 +108,13 @@ describe('off-lattice 2D DLA kernel: determinism and checkpoints', () => {
   });
 
   it('refuses bad parameters with the field, value and range', () => {
-    expect(() => createKernel(dlaTask(100, 0, '1', { minStep: 0 }))).toThrow('model.minStep must be in (0, 1], got 0');
-    expect(() => createKernel(dlaTask(100, 0, '1', { minStep: 1.5 }))).toThrow('model.minStep must be in (0, 1], got 1.5');
-    expect(() => createKernel(dlaTask(100, 0, '1', { launchMargin: -1 }))).toThrow('model.launchMargin must be in (0, 1000], got -1');
-    expect(() => createKernel({ ...dlaTask(100), particles: 0 })).toThrow('particles must be an integer in [1, 100000000], got 0');
-    expect(() => createKernel({ ...dlaTask(100), recordsPerDecade: 5 })).toThrow('recordsPerDecade must be an integer in [10, 100], got 5');
-    expect(() => createKernel({ ...dlaTask(100), model: { kind: 'nope' } as never })).toThrow(/model.kind must be one of dla-offlattice-2d, got "nope"/);
+    expect(() => createKernel(dlaTask(100, 0, '1', { min_step: 0 }))).toThrow('params.min_step: 0 is out of range; allowed: a number above 0 and at most 1 (particle diameters, for dla-offlattice-2d)');
+    expect(() => createKernel(dlaTask(100, 0, '1', { min_step: 1.5 }))).toThrow('params.min_step: 1.5 is out of range; allowed: a number above 0 and at most 1 (particle diameters, for dla-offlattice-2d)');
+    expect(() => createKernel(dlaTask(100, 0, '1', { launch_margin: -1 }))).toThrow('params.launch_margin: -1 is out of range; allowed: a number above 0 and at most 1000 (particle diameters, for dla-offlattice-2d)');
+    expect(() => createKernel(dlaTask(100, 0, '1', { eta: 2 }))).toThrow('params.eta: not a parameter of dla-offlattice-2d; allowed: min_step, launch_margin');
+    expect(() => createKernel({ ...dlaTask(100), particles: 0 })).toThrow('particles: 0 is out of range; allowed: an integer from 1 to 100000000');
+    expect(() => createKernel({ ...dlaTask(100), recordsPerDecade: 5 })).toThrow('records_per_decade: 5 is out of range; allowed: an integer from 10 to 100');
+    expect(() => createKernel({ ...dlaTask(100), model: { kind: 'nope', params: {} } })).toThrow(/model: "nope" is not a model; allowed: one of dla-offlattice-2d/);
   });
 });
 
@@ -128,7 +133,10 @@ describe('off-lattice 2D DLA kernel: observables', () => {
       expect(r.series.maxRadius[i]).toBeGreaterThanOrEqual(r.series.maxRadius[i - 1]);
     }
     // observables recomputed from the positions at the final size (R_max with the kernel's sqrt(x² + y²): Math.hypot may differ by an ulp)
-    const { x, y, count } = k.positions();
+    const pos = k.positions();
+    const count = pos.count;
+    const x = axisOf(pos, 0);
+    const y = axisOf(pos, 1);
     let sx = 0, sy = 0, s2 = 0, rmax = 0;
     for (let i = 0; i < count; i++) { sx += x[i]; sy += y[i]; s2 += x[i] ** 2 + y[i] ** 2; rmax = Math.max(rmax, Math.sqrt(x[i] * x[i] + y[i] * y[i])); }
     const mx = sx / count, my = sy / count;

@@ -13,7 +13,7 @@ const PARTICLES = 1000;
 async function rgSample(minStep: number): Promise<number[]> {
   const out: number[] = [];
   for (let i = 0; i < CLUSTERS; i++) {
-    out.push(finalRg(growResult(dlaTask(PARTICLES, i, String(1000 + Math.round(minStep * 100)), { minStep }))));
+    out.push(finalRg(growResult(dlaTask(PARTICLES, i, String(1000 + Math.round(minStep * 100)), { min_step: minStep }))));
     if (i % 20 === 19) await yieldToRunner();
   }
   return out;

@@ -70,8 +70,8 @@ describe('task runner', () => {
 
   it('rejects a task of another engine version and an invalid model with a reason', async () => {
     await expect(runTask({ ...runTaskFor('e1', spec, 0), engineVersion: 'other/9' })).rejects.toThrow(TaskRejected);
-    await expect(runTask({ ...runTaskFor('e1', spec, 0), model: { kind: 'dla-offlattice-2d', minStep: -1, launchMargin: 2 } })).rejects.toThrow(
-      /task of run 0 is invalid: .*minStep/,
+    await expect(runTask({ ...runTaskFor('e1', spec, 0), model: { kind: 'dla-offlattice-2d', params: { min_step: -1, launch_margin: 2 } } })).rejects.toThrow(
+      /task of run 0 is invalid: params\.min_step: -1 is out of range/,
     );
   });
 });

@@ -39,8 +39,8 @@ describe('worker lock renewal and metrics', () => {
     expect(r.timings.resumes).toBe(0);
     expect(r.timings.growSeconds).toBeGreaterThan(2); // the run outlived the 1 s lock at least twice over
     const text = await (await fetch(`http://127.0.0.1:${port}/metrics`)).text();
-    expect(text).toMatch(/^tendril_particles_grown_total \d+$/m);
-    const grown = Number(/^tendril_particles_grown_total (\d+)$/m.exec(text)![1]);
+    expect(text).toMatch(/^tendril_particles_grown_total\{model="dla-offlattice-2d"\} \d+$/m);
+    const grown = Number(/^tendril_particles_grown_total\{model="dla-offlattice-2d"\} (\d+)$/m.exec(text)![1]);
     expect(grown).toBeGreaterThan(590000);
     expect(grown).toBeLessThanOrEqual(600000);
     expect(text).toMatch(/^tendril_runs_finished_total\{outcome="stored"\} 1$/m);

@@ -144,12 +144,12 @@ describe('tendril grow, end to end', () => {
 
   it('passes model options through to the result', () => {
     const dir = join(work, 'opts');
-    const r = tendril('grow', '--particles', '300', '--seed', '18446744073709551615', '--out', dir, '--min-step', '0.5',
-      '--launch-margin', '7.5', '--records-per-decade', '10', '--picture-size', '64', '--quiet');
+    const r = tendril('grow', '--particles', '300', '--seed', '18446744073709551615', '--out', dir, '--model', 'dla-offlattice-2d', '--param', 'min_step=0.5',
+      '--param', 'launch_margin=7.5', '--records-per-decade', '10', '--picture-size', '64', '--quiet');
     expect(r.stderr).toBe('');
     expect(r.status).toBe(0);
     const rr = JSON.parse(readFileSync(join(dir, 'run-result.json'), 'utf8'));
-    expect(rr.model).toEqual({ kind: 'dla-offlattice-2d', minStep: 0.5, launchMargin: 7.5 });
+    expect(rr.model).toEqual({ kind: 'dla-offlattice-2d', params: { min_step: 0.5, launch_margin: 7.5 } });
     expect(rr.ensembleSeed).toBe('18446744073709551615');
     expect(rr.particles).toBe(300);
   });
@@ -167,11 +167,14 @@ describe('tendril grow, bad options', () => {
     ['seed negative', ['--particles', '10', '--seed', '-1'], 'tendril: --seed must be an unsigned 64-bit integer in [0, 18446744073709551615] written in decimal, got "-1"'],
     ['seed 2^64', ['--particles', '10', '--seed', '18446744073709551616'], 'tendril: --seed must be an unsigned 64-bit integer in [0, 18446744073709551615] written in decimal, got "18446744073709551616"'],
     ['seed hex', ['--particles', '10', '--seed', '0x10'], 'tendril: --seed must be an unsigned 64-bit integer in [0, 18446744073709551615] written in decimal, got "0x10"'],
-    ['min-step zero', ['--particles', '10', '--min-step', '0'], 'tendril: --min-step must be a number in (0, 1], got "0"'],
-    ['min-step above 1', ['--particles', '10', '--min-step', '1.01'], 'tendril: --min-step must be a number in (0, 1], got "1.01"'],
-    ['min-step not a number', ['--particles', '10', '--min-step', 'NaN'], 'tendril: --min-step must be a number in (0, 1], got "NaN"'],
-    ['launch-margin zero', ['--particles', '10', '--launch-margin', '0'], 'tendril: --launch-margin must be a number in (0, 100], got "0"'],
-    ['launch-margin too large', ['--particles', '10', '--launch-margin', '1e3'], 'tendril: --launch-margin must be a number in (0, 100], got "1e3"'],
+    ['min_step zero', ['--particles', '10', '--param', 'min_step=0'], 'tendril: --param min_step: 0 is out of range; allowed: a number above 0 and at most 1 (particle diameters, for dla-offlattice-2d)'],
+    ['min_step above 1', ['--particles', '10', '--param', 'min_step=1.01'], 'tendril: --param min_step: 1.01 is out of range; allowed: a number above 0 and at most 1 (particle diameters, for dla-offlattice-2d)'],
+    ['min_step not a number', ['--particles', '10', '--param', 'min_step=NaN'], 'tendril: --param min_step: "NaN" is not a number; allowed: a number above 0 and at most 1 (particle diameters, for dla-offlattice-2d)'],
+    ['launch_margin zero', ['--particles', '10', '--param', 'launch_margin=0'], 'tendril: --param launch_margin: 0 is out of range; allowed: a number above 0 and at most 1000 (particle diameters, for dla-offlattice-2d)'],
+    ['launch_margin too large', ['--particles', '10', '--param', 'launch_margin=1e4'], 'tendril: --param launch_margin: 10000 is out of range; allowed: a number above 0 and at most 1000 (particle diameters, for dla-offlattice-2d)'],
+    ['unknown parameter', ['--particles', '10', '--param', 'eta=2'], 'tendril: --param eta: not a parameter of dla-offlattice-2d; allowed: min_step, launch_margin'],
+    ['parameter without a value', ['--particles', '10', '--param', 'min_step'], 'tendril: --param: "min_step" is not allowed; allowed: NAME=VALUE with NAME one of min_step, launch_margin'],
+    ['unknown model', ['--particles', '10', '--model', 'dla-3d-foo'], 'tendril: --model: "dla-3d-foo" is not a model; allowed: one of dla-offlattice-2d (see tendril models)'],
     ['picture-size too small', ['--particles', '10', '--picture-size', '63'], `tendril: --picture-size ${R} [64, 8192], got "63"`],
     ['picture-size too large', ['--particles', '10', '--picture-size', '8193'], `tendril: --picture-size ${R} [64, 8192], got "8193"`],
     ['records-per-decade too small', ['--particles', '10', '--records-per-decade', '9'], `tendril: --records-per-decade ${R} [10, 100], got "9"`],

@@ -1,3 +1,4 @@
+import { axisOf } from '../worker/core/positions.js';
 import { describe, expect, it } from 'vitest';
 import { createKernel, defaultModelParams } from '../worker/models/registry.js';
 import { runProbes } from '../coordinator/harmonic/probe-run.js';
@@ -8,7 +9,7 @@ describe('harmonic measure of grown DLA clusters', () => {
     const k = createKernel({ model: defaultModelParams('dla-offlattice-2d'), particles: n, ensembleSeed: '31', runIndex: 0, recordsPerDecade: 10 });
     k.growTo(n);
     const p = k.positions();
-    const set = { count: n, x: p.x.slice(0, n), y: p.y.slice(0, n), r: 1 };
+    const set = { count: n, x: axisOf(p, 0, n), y: axisOf(p, 1, n), r: 1 };
     const run = await runProbes(set, { walkers: 80000, seed: '8', jobs: 4, threads: 1, q: [0, 0.5, 1, 2, 3], contactSample: 1500 });
     const m = run.measures;
     expect(m.measureSource).toBe('disk-centres');

@@ -22,6 +22,7 @@
  * converged at these sizes: see the two expected failures at the end.
  * Time: about 45 s on one core (growth and probing; the analysis 0.1 s).
  */
+import { axisOf } from '../worker/core/positions.js';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { clusterHarmonicOf, type ClusterHarmonic } from '../coordinator/harmonic/cluster-harmonic.js';
 import { harmonicSection, intervalEnds } from '../coordinator/harmonic/harmonic-section.js';
@@ -51,7 +52,7 @@ beforeAll(async () => {
     runs.push(k.result());
     const p = k.positions();
     for (const n of SIZES) {
-      const set = { count: n, x: p.x.slice(0, n), y: p.y.slice(0, n), r: 1 };
+      const set = { count: n, x: axisOf(p, 0, n), y: axisOf(p, 1, n), r: 1 };
       const run = await runProbes(set, { walkers: WALKERS, seed: String(1000 * i + n), jobs: 2, threads: 1, q: Q, contactSample: 2000 });
       records.push(clusterHarmonicOf(i, n, run.measures, run.counts));
       await yieldToRunner();

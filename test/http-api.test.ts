@@ -150,10 +150,12 @@ describe('HTTP API', () => {
     expect(text).not.toMatch(/ensemble_id|job_id/);
     const wr = newRegistry(false);
     const w = workerMetrics(wr);
-    w.onGrowth(100, 2500);
+    w.onGrowth('dla-offlattice-2d', 100, { jumps: 2500, short_steps: 7, returns: 0 });
     const wt = await wr.metrics();
-    expect(wt).toMatch(/^tendril_particles_grown_total 100$/m);
-    expect(wt).toMatch(/^tendril_walker_jumps_total 2500$/m);
+    expect(wt).toMatch(/^tendril_particles_grown_total\{model="dla-offlattice-2d"\} 100$/m);
+    expect(wt).toMatch(/^tendril_kernel_counter_total\{model="dla-offlattice-2d",counter="jumps"\} 2500$/m);
+    expect(wt).toMatch(/^tendril_kernel_counter_total\{model="dla-offlattice-2d",counter="short_steps"\} 7$/m);
+    expect(newRegistry(true).getMetricsAsArray().map((m) => m.name).filter((n) => n.includes('process_process'))).toEqual([]);
     expect(wt).toMatch(/^tendril_run_duration_seconds_bucket\{le="3600"\} 0$/m);
   });
 });

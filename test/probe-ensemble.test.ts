@@ -7,6 +7,7 @@
  * test/probe-kernel.test.ts, test/harmonic-measures.test.ts and
  * test/harmonic-growth.slow.test.ts.
  */
+import { axisOf } from '../worker/core/positions.js';
 import { rmSync } from 'node:fs';
 import { Redis } from 'ioredis';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -41,7 +42,7 @@ function directRecords(runIndex: number) {
   const k = createKernel(growthTaskOf(runTaskFor('x', spec, runIndex)));
   k.growTo(spec.particles);
   const p = k.positions();
-  const final = { x: p.x.slice(0, p.count), y: p.y.slice(0, p.count), count: p.count };
+  const final = { dimension: 2, count: p.count, coords: p.coords.slice(0, 2 * p.count) };
   return probeSizesOf(spec).map((size) => {
     const set = clusterPrefix(final, size);
     const g = new ProbeGeometry(set);

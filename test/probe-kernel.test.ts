@@ -1,3 +1,4 @@
+import { axisOf } from '../worker/core/positions.js';
 import { describe, expect, it } from 'vitest';
 import { ProbeGeometry, addProbeCounts, planProbeJobs, runProbeJob } from '../worker/probe/probe-2d.js';
 import { logCapacity } from '../coordinator/harmonic/log-capacity.js';
@@ -90,7 +91,7 @@ describe('probe kernel', () => {
     const k = createKernel({ model: defaultModelParams('dla-offlattice-2d'), particles: 300, ensembleSeed: '4', runIndex: 0, recordsPerDecade: 10 });
     k.growTo(300);
     const p = k.positions();
-    const set = { count: 300, x: p.x.slice(0, 300), y: p.y.slice(0, 300), r: 1 };
+    const set = { count: 300, x: axisOf(p, 0, 300), y: axisOf(p, 1, 300), r: 1 };
     const w = 30000;
     const a = probe(set, w, 2, 0, '21', 0.02).counts;
     const b = probe(set, w, 2, 0, '22', 0.004).counts;
@@ -111,14 +112,14 @@ describe('probe kernel', () => {
     const k = createKernel({ model: defaultModelParams('dla-offlattice-2d'), particles: 500, ensembleSeed: '9', runIndex: 0, recordsPerDecade: 10 });
     k.growTo(500);
     const p = k.positions();
-    const g = new ProbeGeometry({ count: 500, x: p.x.slice(0, 500), y: p.y.slice(0, 500), r: 1 });
+    const g = new ProbeGeometry({ count: 500, x: axisOf(p, 0, 500), y: axisOf(p, 1, 500), r: 1 });
     const rng = Random.forRun('3', 0, 1);
     let checked = 0;
     for (let t = 0; t < 20000; t++) {
       const wx = g.gridMin + g.gridCells * g.gridSide * rng.nextDouble();
       const wy = g.gridMin + g.gridCells * g.gridSide * rng.nextDouble();
       let best = Infinity;
-      for (let i = 0; i < 500; i++) best = Math.min(best, Math.hypot(wx - (p.x[i] - g.centreX), wy - (p.y[i] - g.centreY)));
+      for (let i = 0; i < 500; i++) best = Math.min(best, Math.hypot(wx - (p.coords[2 * i] - g.centreX), wy - (p.coords[2 * i + 1] - g.centreY)));
       const cell = Math.floor((wy - g.gridMin) / g.gridSide) * g.gridCells + Math.floor((wx - g.gridMin) / g.gridSide);
       expect(g.gridFree[cell]).toBeLessThanOrEqual(best - 1);
       if (g.gridFree[cell] > 0.5 * (best - 1)) checked++;

@@ -37,7 +37,7 @@ const task: RunTaskData = {
   ensembleId: 'e-1',
   runIndex: 7,
   ensembleSeed: '18446744073709551615',
-  model: { kind: 'dla-offlattice-2d', minStep: 0.25, launchMargin: 2 },
+  model: { kind: 'dla-offlattice-2d', params: { min_step: 0.25, launch_margin: 2 } },
   particles: 5000,
   recordsPerDecade: 10,
   checkpointIntervalSeconds: 120,
@@ -50,11 +50,12 @@ const result: RunResultData = {
   runIndex: 7,
   engineVersion: 'tendril-engine/1',
   model: task.model,
+  dimension: 2,
   particles: 5000,
   ensembleSeed: task.ensembleSeed,
-  series: { sizes: [1, 10, 100], radiusOfGyration: [0, 1.5, 6.25], maxRadius: [0, 3, 12], centerOffset: [0, 0.1, 0.2] },
+  series: { sizes: [1, 10, 100], radiusOfGyration: [0, 1.5, 6.25], maxRadius: [0, 3, 12], centerOffset: [0, 0.1, 0.2], extra: { axis_ratio: [1, 1.25, 0.5] } },
   massRadius: { radii: [1, 2, 4], counts: [1, 5, 17] },
-  counters: { jumps: 2 ** 40 + 3, shortSteps: 12, returns: 1 },
+  counters: { jumps: 2 ** 40 + 3, short_steps: 12, returns: 1 },
   stateHash: 'abc123',
   timings: { growSeconds: 1.5, startedAtMs: 1.7e12, finishedAtMs: 1.7e12 + 1500, resumes: 2, finishedBy: 'host:1' },
 };
@@ -85,39 +86,64 @@ describe('protobuf contract', () => {
     expect(back.counters.jumps).toBe(2 ** 40 + 3);
   });
 
-  it('round-trips a checkpoint bit for bit', () => {
-    const n = 1000;
-    const x = new Float64Array(n + 5);
-    const y = new Float64Array(n + 5);
-    for (let i = 0; i < n; i++) {
-      x[i] = Math.sin(i) * 1e3 + 1e-12 * i;
-      y[i] = -Math.cos(i) / 3;
-    }
-    const bytes = encodeCheckpoint({
-      run: task,
-      state: {
-        engineVersion: 'tendril-engine/1',
-        task: { model: task.model, particles: task.particles, ensembleSeed: task.ensembleSeed, runIndex: 7, recordsPerDecade: 10 },
-        count: n,
-        x,
-        y,
-        rngState: Uint32Array.of(1, 0xffffffff, 3, 4),
-        counters: { jumps: 5, shortSteps: 6, returns: 7 },
-        series: { sizes: [1], radiusOfGyration: [0], maxRadius: [0], centerOffset: [0] },
-      },
-      growSeconds: 3,
-      startedAtMs: 10,
-      resumes: 1,
+  for (const dimension of [2, 3]) {
+    it(`round-trips a ${dimension}D checkpoint bit for bit, with counters and model state`, () => {
+      const n = 1000;
+      const positions = new Float64Array(dimension * n + 5);
+      for (let i = 0; i < dimension * n; i++) positions[i] = Math.sin(i) * 1e3 + 1e-12 * i;
+      const bytes = encodeCheckpoint({
+        run: task,
+        state: {
+          engineVersion: 'tendril-engine/1',
+          task: { model: task.model, particles: task.particles, ensembleSeed: task.ensembleSeed, runIndex: 7, recordsPerDecade: 10 },
+          dimension,
+          count: n,
+          positions,
+          rngState: Uint32Array.of(1, 0xffffffff, 3, 4),
+          counters: { jumps: 5, short_steps: 6, returns: 2 ** 45 },
+          series: { sizes: [1], radiusOfGyration: [0], maxRadius: [0], centerOffset: [0], extra: { width: [0.5] } },
+          modelState: Uint8Array.of(9, 8, 7),
+        },
+        growSeconds: 3,
+        startedAtMs: 10,
+        resumes: 1,
+      });
+      const back = decodeCheckpoint(bytes);
+      expect(back.state.count).toBe(n);
+      expect(back.state.dimension).toBe(dimension);
+      expect(back.state.positions.length).toBe(dimension * n);
+      expect(Array.from(back.state.positions)).toEqual(Array.from(positions.subarray(0, dimension * n)));
+      expect(Array.from(back.state.rngState)).toEqual([1, 0xffffffff, 3, 4]);
+      expect(back.state.counters).toEqual({ jumps: 5, short_steps: 6, returns: 2 ** 45 });
+      expect(back.state.series.extra).toEqual({ width: [0.5] });
+      expect(Array.from(back.state.modelState)).toEqual([9, 8, 7]);
+      expect(back.state.task.runIndex).toBe(7);
+      expect(back.run).toEqual(task);
+      expect(back.resumes).toBe(1);
     });
+  }
+
+  it('reads contract 1 (one model as a oneof, x and y arrays, fixed counters) into the contract-2 shapes', () => {
+    const n = 3;
+    const x = Float64Array.of(0, 1, -0.5);
+    const y = Float64Array.of(0, 0.25, 2);
+    const legacyTask = { contractVersion: 1, ensembleId: 'e-1', runIndex: 7, ensembleSeed: '5', model: { offlatticeDla2d: { minStep: 0.25, launchMargin: 2 } }, particles: 10, recordsPerDecade: 10, checkpointIntervalSeconds: 5, checkpointEveryParticles: 0, engineVersion: 'tendril-engine/2' };
+    const bytes = tendril.Checkpoint.encode({
+      contractVersion: 1, engineVersion: 'tendril-engine/2', task: legacyTask, count: n,
+      x: new Uint8Array(x.buffer), y: new Uint8Array(y.buffer), rngState: [1, 2, 3, 4],
+      counters: { jumps: 11, shortSteps: 12, returns: 13 }, series: { sizes: [], radiusOfGyration: [], maxRadius: [], centerOffset: [] },
+    }).finish();
     const back = decodeCheckpoint(bytes);
-    expect(back.state.count).toBe(n);
-    expect(back.state.x.length).toBe(n);
-    expect(Array.from(back.state.x)).toEqual(Array.from(x.subarray(0, n)));
-    expect(Array.from(back.state.y)).toEqual(Array.from(y.subarray(0, n)));
-    expect(Array.from(back.state.rngState)).toEqual([1, 0xffffffff, 3, 4]);
-    expect(back.state.task.runIndex).toBe(7);
-    expect(back.run).toEqual(task);
-    expect(back.resumes).toBe(1);
+    expect(back.run.model).toEqual({ kind: 'dla-offlattice-2d', params: { min_step: 0.25, launch_margin: 2 } });
+    expect(back.state.dimension).toBe(2);
+    expect(Array.from(back.state.positions)).toEqual([0, 0, 1, 0.25, -0.5, 2]);
+    expect(back.state.counters).toEqual({ jumps: 11, short_steps: 12, returns: 13 });
+    expect(back.state.modelState.length).toBe(0);
+    const legacyResult = tendril.RunResult.encode({ ...tendril.RunResult.decode(encodeRunResult(result)), contractVersion: 1, counterValues: {}, counters: { jumps: 1, shortSteps: 2, returns: 3 }, model: { offlatticeDla2d: { minStep: 0.1, launchMargin: 3 } } }).finish();
+    const r = decodeRunResult(legacyResult);
+    expect(r.counters).toEqual({ jumps: 1, short_steps: 2, returns: 3 });
+    expect(r.dimension).toBe(2);
+    expect(r.model).toEqual({ kind: 'dla-offlattice-2d', params: { min_step: 0.1, launch_margin: 3 } });
   });
 
   it('round-trips an ensemble summary', () => {
@@ -143,7 +169,7 @@ describe('protobuf contract', () => {
 
   const bad: Array<[string, () => unknown, RegExp]> = [
     ['garbage bytes', () => decodeRunTask(Uint8Array.of(0xff, 0xff, 0xff, 0xff, 0x0f)), /^RunTask: not a valid protobuf message/],
-    ['unknown version', () => decodeRunTask(tendril.RunTask.encode({ ...encodeObj(), contractVersion: 99 }).finish()), /RunTask\.contract_version is 99, this build reads only version 1/],
+    ['unknown version', () => decodeRunTask(tendril.RunTask.encode({ ...encodeObj(), contractVersion: 99 }).finish()), /RunTask\.contract_version is 99, this build reads versions 1 and 2/],
     ['missing model', () => decodeRunTask(tendril.RunTask.encode({ ...encodeObj(), model: null }).finish()), /RunTask\.model is missing/],
     ['bad seed', () => decodeRunTask(tendril.RunTask.encode({ ...encodeObj(), ensembleSeed: '-3' }).finish()), /ensemble_seed "-3"/],
     ['zero particles', () => decodeRunTask(tendril.RunTask.encode({ ...encodeObj(), particles: 0 }).finish()), /RunTask\.particles is 0/],

@@ -8,6 +8,7 @@
  * check that the report shows what the section says, marks what it flags,
  * draws the bound lines, and survives thin data.
  */
+import { axisOf } from '../worker/core/positions.js';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -131,7 +132,7 @@ function grow(particles: number, runIndex: number, seed: string): { result: Grow
   const k = createKernel({ model: defaultModelParams('dla-offlattice-2d'), particles, ensembleSeed: seed, runIndex, recordsPerDecade: 20 });
   k.growTo(particles);
   const p = k.positions();
-  return { result: k.result(), x: Float64Array.from(p.x.slice(0, p.count)), y: Float64Array.from(p.y.slice(0, p.count)), n: p.count };
+  return { result: k.result(), x: Float64Array.from(axisOf(p, 0, p.count)), y: Float64Array.from(axisOf(p, 1, p.count)), n: p.count };
 }
 
 function figureSvg(html: string, name: string): string {

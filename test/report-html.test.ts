@@ -1,3 +1,4 @@
+import { axisOf } from '../worker/core/positions.js';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { existsSync, mkdtempSync, readFileSync, readdirSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -21,7 +22,7 @@ function grow(particles: number, runIndex: number, seed = SEED): { result: Growt
   const k = createKernel({ model: defaultModelParams('dla-offlattice-2d'), particles, ensembleSeed: seed, runIndex, recordsPerDecade: 20 });
   k.growTo(particles);
   const p = k.positions();
-  return { result: k.result(), points: { dimension: 2, count: p.count, x: p.x.slice(0, p.count), y: p.y.slice(0, p.count), diameter: 1 } };
+  return { result: k.result(), points: { dimension: 2, count: p.count, x: axisOf(p, 0, p.count), y: axisOf(p, 1, p.count), diameter: 1 } };
 }
 
 function svgSize(svg: string): [number, number] {

@@ -24,7 +24,7 @@ describe('ensemble spec', () => {
     const s = parseSpec(good, 'toml');
     expect(s.name).toBe('demo');
     expect(s.model.kind).toBe('dla-offlattice-2d');
-    expect(s.model.minStep).toBeGreaterThan(0);
+    expect(s.model.params.min_step).toBeGreaterThan(0);
     expect(s.particles).toBe(5000);
     expect(s.clusters).toBe(8);
     expect(s.seed).toBe('20261202');
@@ -66,7 +66,7 @@ describe('ensemble spec', () => {
   it('accepts a 64-bit seed as a string and model parameters', () => {
     const s = validateSpec({ model: 'dla-offlattice-2d', particles: 100, clusters: 2, seed: '18446744073709551615', params: { min_step: 0.5 } });
     expect(s.seed).toBe('18446744073709551615');
-    expect(s.model.minStep).toBe(0.5);
+    expect(s.model.params.min_step).toBe(0.5);
   });
 
   const base = { model: 'dla-offlattice-2d', particles: 1000, clusters: 4, seed: 1 };
@@ -81,8 +81,8 @@ describe('ensemble spec', () => {
     ['negative seed', { ...base, seed: -1 }, 'seed: -1 is not allowed; allowed: ensemble seed: an unsigned 64-bit integer (a string of decimal digits, or an integer below 2^53)'],
     ['seed above 2^64', { ...base, seed: '18446744073709551616' }, 'seed: "18446744073709551616" is out of range; allowed: an integer from 0 to 18446744073709551615'],
     ['unknown field', { ...base, particels: 5 }, 'particels: unknown field; allowed fields: name, model, params, particles, clusters, seed, records_per_decade, observables, checkpoint_interval_seconds, checkpoint_every_particles, runs_per_job, analysis, probe, target'],
-    ['bad min_step', { ...base, params: { min_step: 0 } }, 'params.min_step: 0 is out of range; allowed: a number above 0 up to 1'],
-    ['unknown param', { ...base, params: { step: 1 } }, 'params.step: unknown field; allowed fields: min_step, launch_margin'],
+    ['bad min_step', { ...base, params: { min_step: 0 } }, 'params.min_step: 0 is out of range; allowed: a number above 0 and at most 1 (particle diameters, for dla-offlattice-2d)'],
+    ['unknown param', { ...base, params: { step: 1 } }, 'params.step: not a parameter of dla-offlattice-2d; allowed: min_step, launch_margin'],
     ['records per decade', { ...base, records_per_decade: 5 }, 'records_per_decade: 5 is out of range; allowed: an integer from 10 to 100'],
     ['bad observable', { ...base, observables: ['rg'] }, 'observables[0]: "rg" is not allowed; allowed: one of "radius_of_gyration", "max_radius", "center_offset", "mass_radius"'],
     ['repeated observable', { ...base, observables: ['max_radius', 'max_radius'] }, 'observables: ["max_radius","max_radius"] repeats an entry; allowed: a non-empty list of distinct values from "radius_of_gyration", "max_radius", "center_offset", "mass_radius"'],

@@ -19,13 +19,14 @@ function exactRuns(opts: { clusters: number; D: number; sizes: number[]; radii: 
     const f = 1 + (opts.amplitudeSpread ?? 0.1) * Math.sin(1.7 * c + 0.3);
     const corr = (n: number) => (opts.correction ? 1 + opts.correction.B * Math.pow(n, -opts.correction.omega) : 1);
     out.push({
-      engineVersion: 'test', model: { kind: 'dla-offlattice-2d', minStep: 0.5, launchMargin: 2 }, particles: opts.sizes[opts.sizes.length - 1],
+      engineVersion: 'test', model: { kind: 'dla-offlattice-2d', params: { min_step: 0.5, launch_margin: 2 } }, dimension: 2, particles: opts.sizes[opts.sizes.length - 1],
       ensembleSeed: '5', runIndex: c,
       series: {
         sizes: opts.sizes.slice(),
         radiusOfGyration: opts.sizes.map((n) => 0.6 * f * Math.pow(n, 1 / opts.D) * corr(n)),
         maxRadius: opts.sizes.map((n) => 1.7 * f * Math.pow(n, 1 / opts.D) * corr(n)),
         centerOffset: opts.sizes.map(() => 0),
+        extra: {},
       },
       massRadius: { radii: opts.radii.slice(), counts: opts.radii.map((r) => 1.3 * f * Math.pow(r, opts.D)) },
       counters: { jumps: 0, shortSteps: 0, returns: 0 }, stateHash: `h${c}`,

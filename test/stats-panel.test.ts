@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { analyzeEnsemble } from '../coordinator/stats/analyze-ensemble.js';
-import { MODEL_REFERENCES } from '../coordinator/stats/reference-values.js';
+import { referenceFor } from '../coordinator/stats/reference-values.js';
 import { syntheticEnsemble } from '../coordinator/stats/synthetic-ensemble.js';
 import type { GrowthResult } from '../worker/core/growth-kernel.js';
 
@@ -57,6 +57,6 @@ describe('consistency panel', () => {
     expect(JSON.stringify(b.corrections)).toBe(JSON.stringify(a.corrections));
     expect(b.consistency.reference).toBeNull();
     expect(b.consistency.bounds).toHaveLength(1); // only D <= d
-    expect(Object.keys(MODEL_REFERENCES)).toContain('dla-offlattice-2d');
+    expect(referenceFor('dla-offlattice-2d')?.dimension?.value).toBe(1.71);
   });
 });

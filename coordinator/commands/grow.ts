@@ -1,6 +1,7 @@
 /**
- * `tendril grow`: grow one cluster (model dla-offlattice-2d) in this process
- * and write, into the output folder (created if missing):
+ * `tendril grow`: grow one cluster of any registered model (`--model KIND`,
+ * parameters with `--param NAME=VALUE`, see `tendril models`) in this
+ * process and write, into the output folder (created if missing):
  *
  *   run-result.json   the GrowthResult (deterministic: a function of the model
  *                     parameters, seed and engine version) with one extra
@@ -21,8 +22,9 @@ import { mkdirSync, statSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import type { Command } from 'commander';
 import { UsageError } from '../usage-error.js';
-import { createKernel, defaultModelParams } from '../../worker/models/registry.js';
-import type { GrowthResult, GrowthTask } from '../../worker/core/growth-kernel.js';
+import { checkModelParams, createKernel, MODEL_KINDS, modelDescriptor, modelParams } from '../../worker/models/registry.js';
+import type { GrowthResult, GrowthTask, ModelParams } from '../../worker/core/growth-kernel.js';
+import { axisOf } from '../../worker/core/positions.js';
 import { encodeSnapshot } from '../snapshot/cluster-snapshot.js';
 import { renderClusterPng, DEFAULT_PICTURE_SIZE } from '../render/cluster-picture.js';
 import { createProgress, formatRate, type ProgressMode } from '../progress/progress.js';
@@ -37,8 +39,8 @@ export interface GrowOptions {
   /** Normalised decimal string of an unsigned 64-bit integer. */
   seed: string;
   out: string;
-  minStep: number;
-  launchMargin: number;
+  /** The model and its parameters (defaults filled in, checked against the model's descriptor). */
+  model: ModelParams;
   pictureSize: number;
   recordsPerDecade: number;
   quiet: boolean;
@@ -102,9 +104,38 @@ export function parseSeedOption(name: string, raw: unknown): string {
   return BigInt(s).toString();
 }
 
+/**
+ * The model of `--model KIND` and `--param NAME=VALUE` options (repeatable):
+ * every parameter not given takes its default; an unknown name, a value that
+ * is not a number or one outside the parameter's range is one line naming it.
+ */
+export function parseModelOptions(kindRaw: unknown, paramsRaw: unknown): ModelParams {
+  const kind = kindRaw === undefined ? MODEL_KINDS[0] : String(kindRaw);
+  let d;
+  try {
+    d = modelDescriptor(kind);
+  } catch {
+    throw new UsageError(`--model: ${JSON.stringify(kind)} is not a model; allowed: one of ${MODEL_KINDS.join(', ')} (see tendril models)`);
+  }
+  const given: Record<string, number> = {};
+  const list = paramsRaw === undefined ? [] : Array.isArray(paramsRaw) ? paramsRaw : [paramsRaw];
+  for (const item of list) {
+    const m = /^([A-Za-z0-9_]+)=(.*)$/.exec(String(item));
+    if (!m) throw new UsageError(`--param: ${JSON.stringify(String(item))} is not allowed; allowed: NAME=VALUE with NAME one of ${d.params.map((p) => p.name).join(', ') || '(none: ' + kind + ' has no parameters)'}`);
+    const v = NUMBER_RE.test(m[2].trim()) || /^[-+]/.test(m[2].trim()) ? Number(m[2].trim()) : NaN;
+    given[m[1]] = Number.isNaN(v) ? (m[2] as unknown as number) : v;
+  }
+  const model = modelParams(kind, given);
+  try {
+    checkModelParams(model);
+  } catch (err) {
+    throw new UsageError((err as Error).message.replace(/^params\./, '--param '));
+  }
+  return model;
+}
+
 /** Validate the raw commander options of `grow`; throws UsageError with one line. */
 export function parseGrowOptions(raw: Record<string, unknown>): GrowOptions {
-  const defaults = defaultModelParams('dla-offlattice-2d');
   const need = (key: string, flag: string, what: string): unknown => {
     const v = raw[key];
     if (v === undefined) throw new UsageError(`--${flag} is required (${what})`);
@@ -114,17 +145,16 @@ export function parseGrowOptions(raw: Record<string, unknown>): GrowOptions {
   const seed = parseSeedOption('seed', need('seed', 'seed', 'an unsigned 64-bit integer in decimal'));
   const outRaw = need('out', 'out', 'the output folder');
   if (typeof outRaw !== 'string' || outRaw.trim() === '') throw new UsageError(`--out must name a folder, got ${JSON.stringify(String(outRaw))}`);
-  const minStep = raw.minStep === undefined ? defaults.minStep : parseNumberOption('min-step', raw.minStep, 0, 1, true);
-  const launchMargin = raw.launchMargin === undefined ? defaults.launchMargin : parseNumberOption('launch-margin', raw.launchMargin, 0, 100, true);
+  const model = parseModelOptions(raw.model, raw.param);
   const pictureSize = raw.pictureSize === undefined ? DEFAULT_PICTURE_SIZE : parseIntegerOption('picture-size', raw.pictureSize, 64, 8192);
   const recordsPerDecade =
     raw.recordsPerDecade === undefined ? DEFAULT_RECORDS_PER_DECADE : parseIntegerOption('records-per-decade', raw.recordsPerDecade, 10, 100);
-  return { particles, seed, out: outRaw, minStep, launchMargin, pictureSize, recordsPerDecade, quiet: raw.quiet === true };
+  return { particles, seed, out: outRaw, model, pictureSize, recordsPerDecade, quiet: raw.quiet === true };
 }
 
 export function growTask(o: GrowOptions): GrowthTask {
   return {
-    model: { ...defaultModelParams('dla-offlattice-2d'), minStep: o.minStep, launchMargin: o.launchMargin },
+    model: { kind: o.model.kind, params: { ...o.model.params } },
     particles: o.particles,
     ensembleSeed: o.seed,
     runIndex: 0,
@@ -206,10 +236,12 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
   progress.stop();
   const result = kernel.result();
   const pos = kernel.positions();
-  const radii = clusterRadii(pos.x, pos.y, pos.count);
+  const x = axisOf(pos, 0);
+  const y = axisOf(pos, 1);
+  const radii = clusterRadii(x, y, pos.count);
 
   const w0 = performance.now();
-  const points = { dimension: 2 as const, count: pos.count, x: pos.x, y: pos.y, diameter: 1, arrivalOrder: true };
+  const points = { dimension: 2 as const, count: pos.count, x, y, diameter: modelDescriptor(task.model.kind).contactDistance, arrivalOrder: true };
   const files = {
     runResult: join(dir, RUN_RESULT_FILE),
     snapshot: join(dir, SNAPSHOT_FILE),
@@ -239,12 +271,12 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
 export function register(program: Command): void {
   program
     .command('grow')
-    .description('grow one off-lattice DLA cluster and write its run result, snapshot and picture')
+    .description('grow one cluster of a model (see tendril models) and write its run result, snapshot and picture')
     .option('--particles <n>', 'cluster size, seed particle included (integer in [2, 100000000])')
     .option('--seed <s>', 'ensemble seed, unsigned 64-bit integer in decimal (the cluster is run 0)')
     .option('--out <dir>', 'output folder, created if missing')
-    .option('--min-step <x>', 'length of the short final steps next to the cluster, in (0, 1]')
-    .option('--launch-margin <x>', 'launch circle radius minus (maximum radius + 1), in (0, 100]')
+    .option('--model <kind>', `growth model, one of ${MODEL_KINDS.join(', ')} (default ${MODEL_KINDS[0]})`)
+    .option('--param <name=value>', 'a model parameter (repeatable); every other one takes its default (see tendril models)', (v: string, prev: string[] = []) => [...prev, v])
     .option('--picture-size <px>', `side of cluster.png in pixels, in [64, 8192] (default ${DEFAULT_PICTURE_SIZE})`)
     .option('--records-per-decade <k>', `observable records per decade of size, in [10, 100] (default ${DEFAULT_RECORDS_PER_DECADE})`)
     .option('--quiet', 'no progress display')

@@ -21,6 +21,8 @@
  */
 import { availableParallelism } from 'node:os';
 import { decodeCheckpoint, decodeRunResult, encodeRunResult, type RunResultData, type RunTaskData } from '../../proto/convert.js';
+import type { ClusterPositions } from '../../worker/core/growth-kernel.js';
+import { axisOf } from '../../worker/core/positions.js';
 import { ProbeThreadPool } from '../../worker/runtime/probe-thread-pool.js';
 import { diskSetDigest, type ProbeResult } from '../../worker/probe/probe-2d.js';
 import { analyseProbedCluster, clusterPrefix, positionsOf, probeTasksOf } from '../harmonic/ensemble-probing.js';
@@ -106,7 +108,7 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
   const probeSizes = probeSizesOf(spec);
   const probePool = probe ? new ProbeThreadPool(pool.size) : null;
   /** Clusters not yet probed: their final positions, or null when they wait in the store. */
-  const finals = new Map<number, { x: Float64Array; y: Float64Array; count: number } | null>();
+  const finals = new Map<number, ClusterPositions | null>();
   const harmonic = new Map<number, ClusterHarmonic[]>();
   let picture: ProbedPicture | null = null;
   let probeJobsDone = 0;
@@ -252,7 +254,7 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
       recs.push(record);
       if (g.size === spec.particles) {
         if (store) await store.put(hitsKey(opts.ensembleId, runIndex), new Uint8Array(counts.buffer, counts.byteOffset, counts.byteLength));
-        if (picture === null || runIndex < picture.runIndex) picture = { runIndex, size: g.size, x: final.x.slice(0, g.size), y: final.y.slice(0, g.size), counts };
+        if (picture === null || runIndex < picture.runIndex) picture = { runIndex, size: g.size, x: axisOf(final, 0, g.size), y: axisOf(final, 1, g.size), counts };
       }
     }
     harmonic.set(runIndex, recs);
@@ -321,7 +323,7 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
       if (fin && hits) {
         const pos = positionsOf(decodeCheckpoint(fin));
         const counts = new Float64Array(Uint8Array.from(hits).buffer);
-        if (counts.length === spec.particles) picture = { runIndex: first, size: spec.particles, x: pos.x.slice(0, spec.particles), y: pos.y.slice(0, spec.particles), counts };
+        if (counts.length === spec.particles) picture = { runIndex: first, size: spec.particles, x: axisOf(pos, 0, spec.particles), y: axisOf(pos, 1, spec.particles), counts };
       }
     }
   }

@@ -27,6 +27,7 @@ import type { EnsembleStore } from './store.js';
 import type { ProbeRequestStore } from './probe-requests.js';
 import { analyseResults } from '../harmonic/probe-run.js';
 import type { DiskSet } from '../../worker/probe/probe-2d.js';
+import type { ClusterPositions } from '../../worker/core/growth-kernel.js';
 
 export const finalKey = (id: string, run: number) => `${id}/run-${run}.final`;
 export const hitsKey = (id: string, run: number) => `${id}/run-${run}.hits`;
@@ -34,7 +35,7 @@ export const probeResultKey = (id: string, run: number, size: number, job: numbe
 export const requestResultKey = (id: string, job: number) => `${id}/request/job-${job}.json`;
 
 /** BullMQ job descriptions of the probes of one finished run. */
-export function probeJobsOf(id: string, spec: EnsembleSpec, runIndex: number, final: { x: Float64Array; y: Float64Array; count: number }, attempts = 5) {
+export function probeJobsOf(id: string, spec: EnsembleSpec, runIndex: number, final: ClusterPositions, attempts = 5) {
   const p = spec.probe;
   if (!p) return [];
   return probeSizesOf(spec).flatMap((size) =>
@@ -71,7 +72,7 @@ export interface FarmProbeEvents {
 export class FarmProbeHandler implements ProbeJobHandler {
   readonly pool: ProbeThreadPool;
   /** The last final state read (jobs of one cluster tend to come together). */
-  private cached: { key: string; final: { x: Float64Array; y: Float64Array; count: number } } | null = null;
+  private cached: { key: string; final: ClusterPositions } | null = null;
 
   private cachedRequest: { id: string; set: DiskSet } | null = null;
   /** The spec of the last ensemble seen (a spec never changes; reading and validating it once per job was wasted work). */
@@ -135,7 +136,7 @@ export class FarmProbeHandler implements ProbeJobHandler {
     return 'done';
   }
 
-  private async finalOf(id: string, run: number): Promise<{ x: Float64Array; y: Float64Array; count: number }> {
+  private async finalOf(id: string, run: number): Promise<ClusterPositions> {
     const key = finalKey(id, run);
     if (this.cached?.key === key) return this.cached.final;
     const bytes = await this.artifacts.get(key);

@@ -19,6 +19,8 @@
  * job or in which order, and the hit counts of the jobs add up.
  */
 import type { CheckpointData } from '../../proto/convert.js';
+import type { ClusterPositions } from '../../worker/core/growth-kernel.js';
+import { axisOf } from '../../worker/core/positions.js';
 import { diskSetDigest, planProbeJobs, DEFAULT_PROBE_LAUNCH_MARGIN, type DiskSet, type ProbeResult, type ProbeTask } from '../../worker/probe/probe-2d.js';
 import { mix64, parseSeed } from '../../worker/core/random.js';
 import type { ProbeSpec } from '../spec/index.js';
@@ -37,14 +39,15 @@ export function probeSeedOf(ensembleSeed: string, runIndex: number, size: number
 }
 
 /** The set of the first `size` particles of a finished cluster (compact copies, cheap to send to a thread). */
-export function clusterPrefix(final: { x: Float64Array; y: Float64Array; count: number }, size: number): DiskSet {
+export function clusterPrefix(final: ClusterPositions, size: number): DiskSet {
   if (!Number.isInteger(size) || size < 1 || size > final.count) throw new RangeError(`probe size ${size} must be an integer from 1 to the cluster's ${final.count} particles`);
-  return { count: size, x: final.x.slice(0, size), y: final.y.slice(0, size), r: CLUSTER_CONTACT_RADIUS };
+  if (final.dimension !== 2) throw new RangeError(`probing needs a planar cluster; this one has dimension ${final.dimension}`);
+  return { count: size, x: axisOf(final, 0, size), y: axisOf(final, 1, size), r: CLUSTER_CONTACT_RADIUS };
 }
 
 /** Positions of a final-state checkpoint. */
-export function positionsOf(c: CheckpointData): { x: Float64Array; y: Float64Array; count: number } {
-  return { x: c.state.x, y: c.state.y, count: c.state.count };
+export function positionsOf(c: CheckpointData): ClusterPositions {
+  return { dimension: c.state.dimension, count: c.state.count, coords: c.state.positions };
 }
 
 /** The probe jobs of (run, size) for a set with the given digest. */
@@ -53,7 +56,7 @@ export function probeTasksOf(p: ProbeSpec, ensembleSeed: string, runIndex: numbe
 }
 
 /** Digest of the set of (final cluster, size). */
-export function prefixDigest(final: { x: Float64Array; y: Float64Array; count: number }, size: number): string {
+export function prefixDigest(final: ClusterPositions, size: number): string {
   return diskSetDigest(clusterPrefix(final, size));
 }
 

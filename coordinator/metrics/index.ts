@@ -2,7 +2,8 @@
  * Prometheus metrics (prom-client). Names use base units and `_total` for
  * counters; labels never carry job or ensemble ids.
  *
- * Worker processes:   tendril_particles_grown_total, tendril_walker_jumps_total,
+ * Worker processes:   tendril_particles_grown_total{model}, tendril_kernel_counter_total{model,counter}
+ *                     (the counters each model's descriptor declares, e.g. jumps),
  *                     tendril_runs_finished_total{outcome="stored"|"duplicate"},
  *                     tendril_jobs_failed_total, tendril_runs_active,
  *                     tendril_run_duration_seconds (histogram, minutes to hours),
@@ -21,14 +22,19 @@ export const RUN_DURATION_BUCKETS = [1, 10, 30, 60, 120, 300, 600, 1200, 1800, 3
 
 export function newRegistry(defaults = true): Registry {
   const r = new Registry();
-  if (defaults) collectDefaultMetrics({ register: r, prefix: 'tendril_process_' });
+  if (defaults) collectDefaultMetrics({ register: r, prefix: 'tendril_' });
   return r;
 }
 
 export function workerMetrics(registry: Registry): Required<Pick<ProcessorEvents, 'onGrowth' | 'onRunDone' | 'onRunStarted' | 'onRunEnded' | 'onJobFailed'>> & { onProbed: (walkers: number) => void } {
   const probed = new Counter({ name: 'tendril_probe_walkers_total', help: 'Probe walkers run by this worker (harmonic-measure probing).', registers: [registry] });
-  const particles = new Counter({ name: 'tendril_particles_grown_total', help: 'Particles added to clusters by this worker.', registers: [registry] });
-  const jumps = new Counter({ name: 'tendril_walker_jumps_total', help: 'Walk-on-spheres jumps of walkers grown by this worker.', registers: [registry] });
+  const particles = new Counter({ name: 'tendril_particles_grown_total', help: 'Particles added to clusters by this worker, by model.', labelNames: ['model'], registers: [registry] });
+  const counters = new Counter({
+    name: 'tendril_kernel_counter_total',
+    help: 'Work counters of the clusters grown by this worker, by model and counter (as each model declares them, e.g. walk-on-spheres jumps).',
+    labelNames: ['model', 'counter'],
+    registers: [registry],
+  });
   const finished = new Counter({ name: 'tendril_runs_finished_total', help: 'Runs finished by this worker, by whether the result was new.', labelNames: ['outcome'], registers: [registry] });
   const failed = new Counter({ name: 'tendril_jobs_failed_total', help: 'Queue jobs that failed on this worker.', registers: [registry] });
   const active = new Gauge({ name: 'tendril_runs_active', help: 'Runs being grown right now.', registers: [registry] });
@@ -45,9 +51,9 @@ export function workerMetrics(registry: Registry): Required<Pick<ProcessorEvents
     },
   });
   return {
-    onGrowth: (p, j) => {
-      particles.inc(p);
-      jumps.inc(j);
+    onGrowth: (model, p, deltas) => {
+      particles.inc({ model }, p);
+      for (const [counter, v] of Object.entries(deltas)) if (v > 0) counters.inc({ model, counter }, v);
       recent.push([Date.now(), p]);
     },
     onRunDone: (r, counted) => {

@@ -9,7 +9,7 @@
  */
 import { Ajv, type ErrorObject } from 'ajv';
 import { parse as parseToml } from 'smol-toml';
-import { defaultModelParams } from '../../worker/models/registry.js';
+import { checkModelParams, MODEL_KINDS, modelParams } from '../../worker/models/registry.js';
 import type { ModelParams } from '../../worker/core/growth-kernel.js';
 import {
   DEFAULT_MAX_TOTAL_PARTICLES,
@@ -17,12 +17,10 @@ import {
   OBSERVABLES,
   SPEC_SCHEMA,
   type TARGET_ESTIMATORS,
-  type MODEL_KINDS,
 } from './schema.js';
 
 export { SPEC_SCHEMA } from './schema.js';
 
-export type ModelKind = (typeof MODEL_KINDS)[number];
 export type Observable = (typeof OBSERVABLES)[number];
 export type TargetEstimator = (typeof TARGET_ESTIMATORS)[number];
 
@@ -210,12 +208,13 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
   }
   const seed = String(d.seed);
   if (BigInt(seed) >= 1n << 64n) problems.push(`seed: "${seed}" is out of range; allowed: an integer from 0 to 18446744073709551615`);
+  const model: ModelParams = modelParams(d.model, (d.params ?? {}) as Record<string, number>);
+  try {
+    checkModelParams(model);
+  } catch (err) {
+    problems.push((err as Error).message);
+  }
   if (problems.length > 0) throw new SpecError(problems);
-
-  const model = { ...defaultModelParams(d.model as ModelKind) } as ModelParams;
-  const p = (d.params ?? {}) as Record<string, number>;
-  if (p.min_step !== undefined) model.minStep = p.min_step;
-  if (p.launch_margin !== undefined) model.launchMargin = p.launch_margin;
 
   const analysis: AnalysisSettings = {};
   for (const [k, f] of ANALYSIS_FIELDS) if (a[f] !== undefined) (analysis as Record<string, unknown>)[k] = a[f];
@@ -273,15 +272,10 @@ export function defaultRunsPerJob(particles: number, clusters: number): number {
 
 /** The canonical document of a validated spec (snake_case, defaults explicit); re-validates to the same spec. */
 export function specToDocument(s: EnsembleSpec): Record<string, unknown> {
-  const params: Record<string, number> = {};
-  if (s.model.kind === 'dla-offlattice-2d') {
-    params.min_step = s.model.minStep;
-    params.launch_margin = s.model.launchMargin;
-  }
   return {
     name: s.name,
     model: s.model.kind,
-    params,
+    params: { ...s.model.params },
     particles: s.particles,
     clusters: s.clusters,
     seed: s.seed,
@@ -331,7 +325,7 @@ function analysisDocument(a: AnalysisSettings): { analysis?: Record<string, unkn
  */
 export function mergeAnalysisSettings(base: AnalysisSettings, overrideDoc: Record<string, unknown>): AnalysisSettings {
   const merged = { ...analysisDocument(base).analysis, ...overrideDoc };
-  const probe = { model: 'dla-offlattice-2d', particles: 2, clusters: 1, seed: 0, analysis: merged };
+  const probe = { model: MODEL_KINDS[0], particles: 2, clusters: 1, seed: 0, analysis: merged };
   return validateSpec(probe, { maxTotalParticles: Number.MAX_SAFE_INTEGER }).analysis;
 }
 

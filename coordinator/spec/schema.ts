@@ -5,8 +5,15 @@
  * EnsembleSpec with defaults filled in.
  *
  * Limits that depend on the operator (the total-work ceiling) are checked in
- * coordinator/spec/index.ts, not here.
+ * coordinator/spec/index.ts, not here. The models and their parameters come
+ * from the model registry (worker/models/registry.ts): `model` is one of the
+ * registered kinds, and `params` holds the numeric parameters of that model
+ * (checked against its descriptor in coordinator/spec/index.ts, with one line
+ * naming params.NAME, the model and the allowed range).
  */
+import { MODEL_KINDS } from '../../worker/models/registry.js';
+
+export { MODEL_KINDS };
 
 export const MAX_PARTICLES = 100_000_000;
 export const MIN_PARTICLES = 2;
@@ -15,7 +22,6 @@ export const MAX_RUNS_PER_JOB = 1000;
 /** Default ceiling on particles × clusters; raise it with TENDRIL_MAX_TOTAL_PARTICLES or --max-total-particles. */
 export const DEFAULT_MAX_TOTAL_PARTICLES = 10_000_000_000;
 
-export const MODEL_KINDS = ['dla-offlattice-2d'] as const;
 export const TARGET_ESTIMATORS = ['radius_of_gyration', 'max_radius', 'mass_radius'] as const;
 export const OBSERVABLES = ['radius_of_gyration', 'max_radius', 'center_offset', 'mass_radius'] as const;
 /** Most sizes at which a cluster may be probed besides its final size. */
@@ -32,12 +38,8 @@ export const SPEC_SCHEMA = {
     model: { type: 'string', enum: [...MODEL_KINDS], description: 'growth model' },
     params: {
       type: 'object',
-      additionalProperties: false,
-      description: 'model parameters (defaults depend on the model)',
-      properties: {
-        min_step: { type: 'number', exclusiveMinimum: 0, maximum: 1, description: 'length of the final straight steps near the cluster' },
-        launch_margin: { type: 'number', exclusiveMinimum: 0, maximum: 1000, description: 'launch circle radius minus (maximum radius + 1)' },
-      },
+      additionalProperties: { type: 'number' },
+      description: 'model parameters by name (see `tendril models`: each model has its own, with defaults and ranges)',
     },
     particles: { type: 'integer', minimum: MIN_PARTICLES, maximum: MAX_PARTICLES, description: 'particles per cluster, seed included' },
     clusters: { type: 'integer', minimum: 1, maximum: MAX_CLUSTERS, description: 'number of clusters (runs); with [target], the size of the first batch' },

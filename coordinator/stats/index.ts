@@ -7,7 +7,7 @@ export { buildConsistencyPanel, type ConsistencyPanel } from './consistency-pane
 export { extractEnsembleData, StatsInputError } from './ensemble-data.js';
 export { fitLine, slopeWeights } from './log-log-fit.js';
 export { localWindows } from './local-slopes.js';
-export { MODEL_REFERENCES, referenceFor, type ModelReference } from './reference-values.js';
+export { referenceFor, type ModelReference } from './reference-values.js';
 export { fitScalingCorrections, CorrectionsFitter, type CorrectionsFit } from './scaling-corrections-fit.js';
 export { decideStopping, EnsembleStoppingMonitor, type StoppingDecision, type StoppingInput, type MonitorOptions, type MonitorReport } from './adaptive-stopping.js';
 export { syntheticEnsemble, logSpacedSizes, type SyntheticEnsembleSpec } from './synthetic-ensemble.js';

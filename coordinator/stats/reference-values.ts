@@ -1,23 +1,13 @@
 /**
- * Published reference values and rigorous bounds per model kind. They are
- * shown beside our estimates in the consistency panel and are never used as
- * fit input. Sources as in /work/shared/REFERENCES.md.
+ * Published reference values and rigorous bounds of a model, shown beside our
+ * estimates in the consistency panel and never used as fit input. They are
+ * declared by each model's descriptor (worker/models/<kind>/descriptor.ts),
+ * with their sources; this file only shapes them for the statistics.
  */
+import type { ContextValue, DimensionBound, PublishedValue } from '../../worker/core/model-descriptor.js';
+import { isModelKind, modelDescriptor } from '../../worker/models/registry.js';
 
-export interface PublishedValue {
-  value: number;
-  /** One-sigma uncertainty as published. */
-  uncertainty: number;
-  source: string;
-}
-
-export interface DimensionBound {
-  /** 'lower' means D >= value, 'upper' means D <= value. */
-  side: 'lower' | 'upper';
-  value: number;
-  rule: string;
-  source: string;
-}
+export type { DimensionBound, PublishedValue };
 
 export interface ModelReference {
   modelKind: string;
@@ -26,30 +16,13 @@ export interface ModelReference {
   dimension: PublishedValue | null;
   /** Rigorous bounds on D besides D <= embedding dimension. */
   bounds: DimensionBound[];
+  /** Values shown for context only, never checked. */
+  context: ContextValue[];
 }
 
-export const MODEL_REFERENCES: Readonly<Record<string, ModelReference>> = {
-  'dla-offlattice-2d': {
-    modelKind: 'dla-offlattice-2d',
-    embeddingDimension: 2,
-    dimension: {
-      value: 1.71,
-      uncertainty: 0.0002,
-      source: 'Menshutin, Shchur & Vinokur 2008, Physica A 387, 6299 (1000 clusters of 5e7 particles)',
-    },
-    bounds: [
-      {
-        side: 'lower',
-        value: 1.5,
-        rule: "Kesten's bound: radius after n particles at most C n^(2/3), so D >= 3/2",
-        source: 'Kesten 1987, Stoch. Proc. Appl. 25, 165',
-      },
-    ],
-  },
-};
-
-/** The reference entry for a model kind, or null if we have none. */
+/** The reference entry for a model kind, or null for an unknown kind. */
 export function referenceFor(modelKind: string | null | undefined): ModelReference | null {
-  if (!modelKind) return null;
-  return Object.prototype.hasOwnProperty.call(MODEL_REFERENCES, modelKind) ? MODEL_REFERENCES[modelKind] : null;
+  if (!isModelKind(modelKind)) return null;
+  const d = modelDescriptor(modelKind);
+  return { modelKind, embeddingDimension: d.dimension, dimension: d.reference.dimension, bounds: [...d.reference.bounds], context: [...d.reference.context] };
 }

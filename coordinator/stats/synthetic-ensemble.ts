@@ -14,8 +14,11 @@
 
 import type { GrowthResult } from '../../worker/core/growth-kernel.js';
 import { Random, STREAM_GROWTH } from '../../worker/core/random.js';
+import { MODEL_KINDS, modelParams } from '../../worker/models/registry.js';
 
 export interface SyntheticEnsembleSpec {
+  /** Model kind written into the results (default: the first registered model); parameters at their defaults. */
+  modelKind?: string;
   clusters: number;
   /** Recorded sizes (ascending). */
   sizes: number[];
@@ -77,13 +80,14 @@ export function syntheticEnsemble(spec: SyntheticEnsembleSpec): GrowthResult[] {
     const mass = radii.length ? noisyPowerLaw(rng, radii, Math.log(spec.massAmplitude ?? 1.2), spec.dimension, walk, offset) : [];
     out.push({
       engineVersion: 'synthetic',
-      model: { kind: 'dla-offlattice-2d', minStep: 0.5, launchMargin: 2 },
+      model: modelParams(spec.modelKind ?? MODEL_KINDS[0]),
+      dimension: 2,
       particles: spec.sizes[spec.sizes.length - 1],
       ensembleSeed: String(seed),
       runIndex,
-      series: { sizes: spec.sizes.slice(), radiusOfGyration: rg, maxRadius: rmax, centerOffset: spec.sizes.map(() => 0) },
+      series: { sizes: spec.sizes.slice(), radiusOfGyration: rg, maxRadius: rmax, centerOffset: spec.sizes.map(() => 0), extra: {} },
       massRadius: { radii: radii.slice(), counts: mass },
-      counters: { jumps: 0, shortSteps: 0, returns: 0 },
+      counters: {},
       stateHash: `synthetic-${seed}-${runIndex}`,
     });
   }

@@ -200,7 +200,7 @@ export function analysisOf(s: EnsembleSummaryData): EnsembleAnalysis | null {
   return a.schema === 'tendril.ensemble-statistics/1' ? (a as EnsembleAnalysis) : null;
 }
 
-const SERIES_COLUMNS: Array<[Observable, keyof RunResultData['series']]> = [
+const SERIES_COLUMNS: Array<[Observable, 'radiusOfGyration' | 'maxRadius' | 'centerOffset']> = [
   ['radius_of_gyration', 'radiusOfGyration'],
   ['max_radius', 'maxRadius'],
   ['center_offset', 'centerOffset'],
@@ -240,11 +240,12 @@ export function summaryToJsonObject(s: EnsembleSummaryData): Record<string, unkn
     runs: s.runs.map((r) => {
       const series: Record<string, number[]> = { sizes: r.series.sizes };
       for (const [o, k] of SERIES_COLUMNS) if (obs.includes(o)) series[o] = r.series[k];
+      for (const [name, values] of Object.entries(r.series.extra)) series[name] = values;
       return {
         run_index: r.runIndex,
         particles: r.particles,
         state_hash: r.stateHash,
-        counters: { jumps: r.counters.jumps, short_steps: r.counters.shortSteps, returns: r.counters.returns },
+        counters: { ...r.counters },
         timings: {
           grow_seconds: r.timings.growSeconds,
           started_at: new Date(r.timings.startedAtMs).toISOString(),
@@ -264,14 +265,22 @@ export function summaryToJson(s: EnsembleSummaryData): string {
   return JSON.stringify(summaryToJsonObject(s), null, 2) + '\n';
 }
 
-/** One row per (run, recorded size): the per-run observable table in long format. */
+/** Names of a keyed field over all runs, in order of first appearance (every run of an ensemble has the same ones). */
+function namesOver(s: EnsembleSummaryData, of: (r: RunResultData) => Record<string, unknown>): string[] {
+  const names = new Set<string>();
+  for (const r of s.runs) for (const k of Object.keys(of(r))) names.add(k);
+  return [...names];
+}
+
+/** One row per (run, recorded size): the per-run observable table in long format (model-specific observables last). */
 export function summaryToCsv(s: EnsembleSummaryData): string {
   const obs = observablesOf(s);
   const cols = SERIES_COLUMNS.filter(([o]) => obs.includes(o));
-  const lines = [['run_index', 'state_hash', 'size', ...cols.map(([o]) => o)].join(',')];
+  const extra = namesOver(s, (r) => r.series.extra);
+  const lines = [['run_index', 'state_hash', 'size', ...cols.map(([o]) => o), ...extra].join(',')];
   for (const r of s.runs) {
     for (let i = 0; i < r.series.sizes.length; i++) {
-      lines.push([r.runIndex, r.stateHash, r.series.sizes[i], ...cols.map(([, k]) => num(r.series[k][i]))].join(','));
+      lines.push([r.runIndex, r.stateHash, r.series.sizes[i], ...cols.map(([, k]) => num(r.series[k][i])), ...extra.map((k) => opt(r.series.extra[k]?.[i]))].join(','));
     }
   }
   return lines.join('\n') + '\n';
@@ -284,12 +293,13 @@ export function massRadiusToCsv(s: EnsembleSummaryData): string {
   return lines.join('\n') + '\n';
 }
 
-/** Per-run totals: one row per run. */
+/** Per-run totals: one row per run; one column per counter of the model. */
 export function runsToCsv(s: EnsembleSummaryData): string {
-  const lines = ['run_index,particles,state_hash,jumps,short_steps,returns,grow_seconds,resumes,finished_by'];
+  const counters = namesOver(s, (r) => r.counters);
+  const lines = [['run_index', 'particles', 'state_hash', ...counters, 'grow_seconds', 'resumes', 'finished_by'].join(',')];
   for (const r of s.runs) {
     lines.push(
-      [r.runIndex, r.particles, r.stateHash, r.counters.jumps, r.counters.shortSteps, r.counters.returns, num(r.timings.growSeconds), r.timings.resumes, csvText(r.timings.finishedBy)].join(','),
+      [r.runIndex, r.particles, r.stateHash, ...counters.map((k) => opt(r.counters[k])), num(r.timings.growSeconds), r.timings.resumes, csvText(r.timings.finishedBy)].join(','),
     );
   }
   return lines.join('\n') + '\n';

@@ -149,8 +149,14 @@ export namespace tendril {
         /** ModelParams offlatticeDla2d. */
         offlatticeDla2d?: (tendril.OffLatticeDla2dParams.$Properties|null);
 
-        /** ModelParams model. */
-        model?: "offlatticeDla2d";
+        /** ModelParams kind. */
+        kind: string;
+
+        /** ModelParams params. */
+        params: { [k: string]: number };
+
+        /** ModelParams legacy. */
+        legacy?: "offlatticeDla2d";
 
         /**
          * Creates a new ModelParams instance using the specified properties.
@@ -239,8 +245,14 @@ export namespace tendril {
             /** ModelParams offlatticeDla2d */
             offlatticeDla2d?: (tendril.OffLatticeDla2dParams.$Properties|null);
 
-            /** ModelParams model */
-            model?: "offlatticeDla2d";
+            /** ModelParams kind */
+            kind?: (string|null);
+
+            /** ModelParams params */
+            params?: ({ [k: string]: number }|null);
+
+            /** ModelParams legacy */
+            legacy?: "offlatticeDla2d";
 
             /** Unknown fields preserved while decoding when enabled */
             $unknowns?: Uint8Array[];
@@ -249,9 +261,11 @@ export namespace tendril {
         /** Narrowed shape of a ModelParams. */
         type $Shape = {
           offlatticeDla2d?: tendril.OffLatticeDla2dParams.$Shape|null;
+          kind?: string|null;
+          params?: { [k: string]: number }|null;
           $unknowns?: Uint8Array[];
         } & (
-          ({ model?: undefined; offlatticeDla2d?: null }|{ model?: "offlatticeDla2d"; offlatticeDla2d: tendril.OffLatticeDla2dParams.$Shape })
+          ({ legacy?: undefined; offlatticeDla2d?: null }|{ legacy?: "offlatticeDla2d"; offlatticeDla2d: tendril.OffLatticeDla2dParams.$Shape })
         );
     }
 
@@ -446,6 +460,123 @@ export namespace tendril {
     }
 
     /**
+     * Properties of a DoubleList.
+     * @deprecated Use tendril.DoubleList.$Properties instead.
+     */
+    interface IDoubleList extends tendril.DoubleList.$Properties {
+    }
+
+    /** Represents a DoubleList. */
+    class DoubleList {
+
+        /**
+         * Constructs a new DoubleList.
+         * @param [properties] Properties to set
+         */
+        constructor(properties?: tendril.DoubleList.$Properties);
+
+        /** Unknown fields preserved while decoding when enabled */
+        $unknowns?: Uint8Array[];
+
+        /** DoubleList values. */
+        values: number[];
+
+        /**
+         * Creates a new DoubleList instance using the specified properties.
+         * @param [properties] Properties to set
+         * @returns DoubleList instance
+         */
+        static create(properties: tendril.DoubleList.$Shape): tendril.DoubleList & tendril.DoubleList.$Shape;
+        static create(properties?: tendril.DoubleList.$Properties): tendril.DoubleList;
+
+        /**
+         * Encodes the specified DoubleList message. Does not implicitly {@link tendril.DoubleList.verify|verify} messages.
+         * @param message DoubleList message or plain object to encode
+         * @param [writer] Writer to encode to
+         * @returns Writer
+         */
+        static encode(message: tendril.DoubleList.$Properties, writer?: $protobuf.Writer): $protobuf.Writer;
+
+        /**
+         * Encodes the specified DoubleList message, length delimited. Does not implicitly {@link tendril.DoubleList.verify|verify} messages.
+         * @param message DoubleList message or plain object to encode
+         * @param [writer] Writer to encode to
+         * @returns Writer
+         */
+        static encodeDelimited(message: tendril.DoubleList.$Properties, writer?: $protobuf.Writer): $protobuf.Writer;
+
+        /**
+         * Decodes a DoubleList message from the specified reader or buffer.
+         * @param reader Reader or buffer to decode from
+         * @param [length] Message length if known beforehand
+         * @returns {tendril.DoubleList & tendril.DoubleList.$Shape} DoubleList
+         * @throws {Error} If the payload is not a reader or valid buffer
+         * @throws {$protobuf.util.ProtocolError} If required fields are missing
+         */
+        static decode(reader: ($protobuf.Reader|Uint8Array), length?: number): tendril.DoubleList & tendril.DoubleList.$Shape;
+
+        /**
+         * Decodes a DoubleList message from the specified reader or buffer, length delimited.
+         * @param reader Reader or buffer to decode from
+         * @returns {tendril.DoubleList & tendril.DoubleList.$Shape} DoubleList
+         * @throws {Error} If the payload is not a reader or valid buffer
+         * @throws {$protobuf.util.ProtocolError} If required fields are missing
+         */
+        static decodeDelimited(reader: ($protobuf.Reader|Uint8Array)): tendril.DoubleList & tendril.DoubleList.$Shape;
+
+        /**
+         * Verifies a DoubleList message.
+         * @param message Plain object to verify
+         * @returns `null` if valid, otherwise the reason why it is not
+         */
+        static verify(message: { [k: string]: any }): (string|null);
+
+        /**
+         * Creates a DoubleList message from a plain object. Also converts values to their respective internal types.
+         * @param object Plain object
+         * @returns DoubleList
+         */
+        static fromObject(object: { [k: string]: any }): tendril.DoubleList;
+
+        /**
+         * Creates a plain object from a DoubleList message. Also converts values to other types if specified.
+         * @param message DoubleList
+         * @param [options] Conversion options
+         * @returns Plain object
+         */
+        static toObject(message: tendril.DoubleList, options?: $protobuf.IConversionOptions): { [k: string]: any };
+
+        /**
+         * Converts this DoubleList to JSON.
+         * @returns JSON object
+         */
+        toJSON(): { [k: string]: any };
+
+        /**
+         * Gets the type url for DoubleList
+         * @param [prefix] Custom type url prefix, defaults to `"type.googleapis.com"`
+         * @returns The type url
+         */
+        static getTypeUrl(prefix?: string): string;
+    }
+
+    namespace DoubleList {
+
+        /** Properties of a DoubleList. */
+        interface $Properties {
+
+            /** DoubleList values */
+            values?: (number[]|null);
+
+            /** Unknown fields preserved while decoding when enabled */
+            $unknowns?: Uint8Array[];
+        }
+
+        /** Shape of a DoubleList. */
+        type $Shape = tendril.DoubleList.$Properties;
+    }
+
+    /**
      * Properties of a GrowthSeries.
      * @deprecated Use tendril.GrowthSeries.$Properties instead.
      */
@@ -475,6 +606,9 @@ export namespace tendril {
 
         /** GrowthSeries centerOffset. */
         centerOffset: number[];
+
+        /** GrowthSeries extra. */
+        extra: { [k: string]: tendril.DoubleList.$Properties };
 
         /**
          * Creates a new GrowthSeries instance using the specified properties.
@@ -571,6 +705,9 @@ export namespace tendril {
 
             /** GrowthSeries centerOffset */
             centerOffset?: (number[]|null);
+
+            /** GrowthSeries extra */
+            extra?: ({ [k: string]: tendril.DoubleList.$Properties }|null);
 
             /** Unknown fields preserved while decoding when enabled */
             $unknowns?: Uint8Array[];
@@ -1028,6 +1165,12 @@ export namespace tendril {
         /** RunResult timings. */
         timings?: (tendril.RunTimings.$Properties|null);
 
+        /** RunResult counterValues. */
+        counterValues: { [k: string]: number };
+
+        /** RunResult dimension. */
+        dimension: number;
+
         /**
          * Creates a new RunResult instance using the specified properties.
          * @param [properties] Properties to set
@@ -1148,6 +1291,12 @@ export namespace tendril {
             /** RunResult timings */
             timings?: (tendril.RunTimings.$Properties|null);
 
+            /** RunResult counterValues */
+            counterValues?: ({ [k: string]: number }|null);
+
+            /** RunResult dimension */
+            dimension?: (number|null);
+
             /** Unknown fields preserved while decoding when enabled */
             $unknowns?: Uint8Array[];
         }
@@ -1166,6 +1315,8 @@ export namespace tendril {
           counters?: tendril.GrowthCounters.$Shape|null;
           stateHash?: string|null;
           timings?: tendril.RunTimings.$Shape|null;
+          counterValues?: { [k: string]: number }|null;
+          dimension?: number|null;
           $unknowns?: Uint8Array[];
         };
     }
@@ -1224,6 +1375,18 @@ export namespace tendril {
 
         /** Checkpoint resumes. */
         resumes: number;
+
+        /** Checkpoint dimension. */
+        dimension: number;
+
+        /** Checkpoint positions. */
+        positions: Uint8Array;
+
+        /** Checkpoint counterValues. */
+        counterValues: { [k: string]: number };
+
+        /** Checkpoint modelState. */
+        modelState: Uint8Array;
 
         /**
          * Creates a new Checkpoint instance using the specified properties.
@@ -1345,6 +1508,18 @@ export namespace tendril {
             /** Checkpoint resumes */
             resumes?: (number|null);
 
+            /** Checkpoint dimension */
+            dimension?: (number|null);
+
+            /** Checkpoint positions */
+            positions?: (Uint8Array|null);
+
+            /** Checkpoint counterValues */
+            counterValues?: ({ [k: string]: number }|null);
+
+            /** Checkpoint modelState */
+            modelState?: (Uint8Array|null);
+
             /** Unknown fields preserved while decoding when enabled */
             $unknowns?: Uint8Array[];
         }
@@ -1363,6 +1538,10 @@ export namespace tendril {
           growSeconds?: number|null;
           startedAtMs?: number|null;
           resumes?: number|null;
+          dimension?: number|null;
+          positions?: Uint8Array|null;
+          counterValues?: { [k: string]: number }|null;
+          modelState?: Uint8Array|null;
           $unknowns?: Uint8Array[];
         };
     }

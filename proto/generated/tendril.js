@@ -328,7 +328,9 @@ export const tendril = $root.tendril = (() => {
          * Properties of a ModelParams.
          * @typedef {Object} tendril.ModelParams.$Properties
          * @property {tendril.OffLatticeDla2dParams.$Properties|null} [offlatticeDla2d] ModelParams offlatticeDla2d
-         * @property {"offlatticeDla2d"} [model] ModelParams model
+         * @property {string|null} [kind] ModelParams kind
+         * @property {Object.<string,number>|null} [params] ModelParams params
+         * @property {"offlatticeDla2d"} [legacy] ModelParams legacy
          * @property {Array.<Uint8Array>} [$unknowns] Unknown fields preserved while decoding when enabled
          */
 
@@ -344,9 +346,11 @@ export const tendril = $root.tendril = (() => {
          * Narrowed shape of a ModelParams.
          * @typedef {{
          *   offlatticeDla2d?: tendril.OffLatticeDla2dParams.$Shape|null;
+         *   kind?: string|null;
+         *   params?: Object.<string,number>|null;
          *   $unknowns?: Array.<Uint8Array>;
          * } & (
-         *   ({ model?: undefined; offlatticeDla2d?: null }|{ model?: "offlatticeDla2d"; offlatticeDla2d: tendril.OffLatticeDla2dParams.$Shape })
+         *   ({ legacy?: undefined; offlatticeDla2d?: null }|{ legacy?: "offlatticeDla2d"; offlatticeDla2d: tendril.OffLatticeDla2dParams.$Shape })
          * )} tendril.ModelParams.$Shape
          */
 
@@ -359,6 +363,7 @@ export const tendril = $root.tendril = (() => {
          * @property {Array.<Uint8Array>} [$unknowns] Unknown fields preserved while decoding when enabled
          */
         const ModelParams = function (properties) {
+            this.params = {};
             if (properties)
                 for (let keys = $Object.keys(properties), i = 0; i < keys.length; ++i)
                     if (properties[keys[i]] != null && keys[i] !== "__proto__")
@@ -373,16 +378,32 @@ export const tendril = $root.tendril = (() => {
          */
         ModelParams.prototype.offlatticeDla2d = null;
 
+        /**
+         * ModelParams kind.
+         * @member {string} kind
+         * @memberof tendril.ModelParams
+         * @instance
+         */
+        ModelParams.prototype.kind = "";
+
+        /**
+         * ModelParams params.
+         * @member {Object.<string,number>} params
+         * @memberof tendril.ModelParams
+         * @instance
+         */
+        ModelParams.prototype.params = $util.emptyObject;
+
         // OneOf field names bound to virtual getters and setters
         let $oneOfFields;
 
         /**
-         * ModelParams model.
-         * @member {"offlatticeDla2d"|undefined} model
+         * ModelParams legacy.
+         * @member {"offlatticeDla2d"|undefined} legacy
          * @memberof tendril.ModelParams
          * @instance
          */
-        $Object.defineProperty(ModelParams.prototype, "model", {
+        $Object.defineProperty(ModelParams.prototype, "legacy", {
             get: $util.oneOfGetter($oneOfFields = ["offlatticeDla2d"]),
             set: $util.oneOfSetter($oneOfFields)
         });
@@ -421,6 +442,11 @@ export const tendril = $root.tendril = (() => {
                 throw $Error("max depth exceeded");
             if (message.offlatticeDla2d != null && $Object.hasOwnProperty.call(message, "offlatticeDla2d"))
                 $root.tendril.OffLatticeDla2dParams.encode(message.offlatticeDla2d, writer.uint32(/* id 1, wireType 2 =*/10).fork(), _depth + 1).ldelim();
+            if (message.kind != null && $Object.hasOwnProperty.call(message, "kind") && message.kind !== "")
+                writer.uint32(/* id 2, wireType 2 =*/18).string(message.kind);
+            if (message.params != null && $Object.hasOwnProperty.call(message, "params"))
+                for (let keys = $Object.keys(message.params), i = 0; i < keys.length; ++i)
+                    writer.uint32(/* id 3, wireType 2 =*/26).fork().uint32(/* id 1, wireType 2 =*/10).string(keys[i]).uint32(/* id 2, wireType 1 =*/17).double(message.params[keys[i]]).ldelim();
             if (message.$unknowns != null && $Object.hasOwnProperty.call(message, "$unknowns"))
                 for (let i = 0; i < message.$unknowns.length; ++i)
                     writer.raw(message.$unknowns[i]);
@@ -458,7 +484,7 @@ export const tendril = $root.tendril = (() => {
                 _depth = 0;
             if (_depth > $Reader.recursionLimit)
                 throw $Error("max depth exceeded");
-            let end, message;
+            let end, message, key, value;
             if (length === $undefined)
                 end = reader.len;
             else {
@@ -482,7 +508,52 @@ export const tendril = $root.tendril = (() => {
                         if (wireType !== 2)
                             break;
                         message.offlatticeDla2d = $root.tendril.OffLatticeDla2dParams.decode(reader, reader.size(), $undefined, _depth + 1, message.offlatticeDla2d);
-                        message.model = "offlatticeDla2d";
+                        message.legacy = "offlatticeDla2d";
+                        continue;
+                    }
+                case 2: {
+                        if (wireType !== 2)
+                            break;
+                        if ((value = reader.stringVerify()).length)
+                            message.kind = value;
+                        else
+                            delete message.kind;
+                        continue;
+                    }
+                case 3: {
+                        if (wireType !== 2)
+                            break;
+                        if (message.params === $util.emptyObject)
+                            message.params = {};
+                        let end2 = reader.size() + reader.pos;
+                        if (end2 > reader.len)
+                            throw $RangeError("index out of range");
+                        reader.len = end2;
+                        key = "";
+                        value = 0;
+                        while (reader.pos < end2) {
+                            let tag2 = reader.tag();
+                            wireType = tag2 & 7;
+                            switch (tag2 >>>= 3) {
+                            case 1:
+                                if (wireType !== 2)
+                                    break;
+                                key = reader.stringVerify();
+                                continue;
+                            case 2:
+                                if (wireType !== 1)
+                                    break;
+                                value = reader.double();
+                                continue;
+                            }
+                            reader.skipType(wireType, _depth, tag2);
+                        }
+                        if (reader.pos !== end2)
+                            throw $RangeError("index out of range");
+                        reader.len = end;
+                        if (key === "__proto__")
+                            $util.makeProp(message.params, key);
+                        message.params[key] = value;
                         continue;
                     }
                 }
@@ -535,12 +606,23 @@ export const tendril = $root.tendril = (() => {
                 return "max depth exceeded";
             let properties = {};
             if (message.offlatticeDla2d != null && $Object.hasOwnProperty.call(message, "offlatticeDla2d")) {
-                properties.model = 1;
+                properties.legacy = 1;
                 {
                     let error = $root.tendril.OffLatticeDla2dParams.verify(message.offlatticeDla2d, _depth + 1);
                     if (error)
                         return "offlatticeDla2d." + error;
                 }
+            }
+            if (message.kind != null && $Object.hasOwnProperty.call(message, "kind"))
+                if (!$util.isString(message.kind))
+                    return "kind: string expected";
+            if (message.params != null && $Object.hasOwnProperty.call(message, "params")) {
+                if (!$util.isObject(message.params))
+                    return "params: object expected";
+                let key = $Object.keys(message.params);
+                for (let i = 0; i < key.length; ++i)
+                    if (typeof message.params[key[i]] !== "number")
+                        return "params: number{k:string} expected";
             }
             return null;
         };
@@ -568,6 +650,19 @@ export const tendril = $root.tendril = (() => {
                     throw $TypeError(".tendril.ModelParams.offlatticeDla2d: object expected");
                 message.offlatticeDla2d = $root.tendril.OffLatticeDla2dParams.fromObject(object.offlatticeDla2d, _depth + 1);
             }
+            if (object.kind != null)
+                if (typeof object.kind !== "string" || object.kind.length)
+                    message.kind = $String(object.kind);
+            if (object.params) {
+                if (!$util.isObject(object.params))
+                    throw $TypeError(".tendril.ModelParams.params: object expected");
+                message.params = {};
+                for (let keys = $Object.keys(object.params), i = 0; i < keys.length; ++i) {
+                    if (keys[i] === "__proto__")
+                        $util.makeProp(message.params, keys[i]);
+                    message.params[keys[i]] = $Number(object.params[keys[i]]);
+                }
+            }
             return message;
         };
 
@@ -588,10 +683,25 @@ export const tendril = $root.tendril = (() => {
             if (_depth > $util.recursionLimit)
                 throw $Error("max depth exceeded");
             let object = {};
+            if (options.objects || options.defaults)
+                object.params = {};
+            if (options.defaults)
+                object.kind = "";
             if (message.offlatticeDla2d != null && $Object.hasOwnProperty.call(message, "offlatticeDla2d")) {
                 object.offlatticeDla2d = $root.tendril.OffLatticeDla2dParams.toObject(message.offlatticeDla2d, options, _depth + 1);
                 if (options.oneofs)
-                    object.model = "offlatticeDla2d";
+                    object.legacy = "offlatticeDla2d";
+            }
+            if (message.kind != null && $Object.hasOwnProperty.call(message, "kind"))
+                object.kind = message.kind;
+            let keys2;
+            if (message.params && (keys2 = $Object.keys(message.params)).length) {
+                object.params = {};
+                for (let j = 0; j < keys2.length; ++j) {
+                    if (keys2[j] === "__proto__")
+                        $util.makeProp(object.params, keys2[j]);
+                    object.params[keys2[j]] = options.json && !$isFinite(message.params[keys2[j]]) ? $String(message.params[keys2[j]]) : message.params[keys2[j]];
+                }
             }
             return object;
         };
@@ -1204,6 +1314,298 @@ export const tendril = $root.tendril = (() => {
         return RunTask;
     })();
 
+    tendril.DoubleList = (function() {
+
+        /**
+         * Properties of a DoubleList.
+         * @typedef {Object} tendril.DoubleList.$Properties
+         * @property {Array.<number>|null} [values] DoubleList values
+         * @property {Array.<Uint8Array>} [$unknowns] Unknown fields preserved while decoding when enabled
+         */
+
+        /**
+         * Properties of a DoubleList.
+         * @memberof tendril
+         * @interface IDoubleList
+         * @augments tendril.DoubleList.$Properties
+         * @deprecated Use tendril.DoubleList.$Properties instead.
+         */
+
+        /**
+         * Shape of a DoubleList.
+         * @typedef {tendril.DoubleList.$Properties} tendril.DoubleList.$Shape
+         */
+
+        /**
+         * Constructs a new DoubleList.
+         * @memberof tendril
+         * @classdesc Represents a DoubleList.
+         * @constructor
+         * @param {tendril.DoubleList.$Properties=} [properties] Properties to set
+         * @property {Array.<Uint8Array>} [$unknowns] Unknown fields preserved while decoding when enabled
+         */
+        const DoubleList = function (properties) {
+            this.values = [];
+            if (properties)
+                for (let keys = $Object.keys(properties), i = 0; i < keys.length; ++i)
+                    if (properties[keys[i]] != null && keys[i] !== "__proto__")
+                        this[keys[i]] = properties[keys[i]];
+        };
+
+        /**
+         * DoubleList values.
+         * @member {Array.<number>} values
+         * @memberof tendril.DoubleList
+         * @instance
+         */
+        DoubleList.prototype.values = $util.emptyArray;
+
+        /**
+         * Creates a new DoubleList instance using the specified properties.
+         * @function create
+         * @memberof tendril.DoubleList
+         * @static
+         * @param {tendril.DoubleList.$Properties=} [properties] Properties to set
+         * @returns {tendril.DoubleList} DoubleList instance
+         * @type {{
+         *   (properties: tendril.DoubleList.$Shape): tendril.DoubleList & tendril.DoubleList.$Shape;
+         *   (properties?: tendril.DoubleList.$Properties): tendril.DoubleList;
+         * }}
+         */
+        DoubleList.create = function(properties) {
+            return new DoubleList(properties);
+        };
+
+        /**
+         * Encodes the specified DoubleList message. Does not implicitly {@link tendril.DoubleList.verify|verify} messages.
+         * @function encode
+         * @memberof tendril.DoubleList
+         * @static
+         * @param {tendril.DoubleList.$Properties} message DoubleList message or plain object to encode
+         * @param {$protobuf.Writer} [writer] Writer to encode to
+         * @returns {$protobuf.Writer} Writer
+         */
+        DoubleList.encode = function (message, writer, _depth) {
+            if (!writer)
+                writer = $Writer.create();
+            if (_depth === $undefined)
+                _depth = 0;
+            if (_depth > $util.recursionLimit)
+                throw $Error("max depth exceeded");
+            if (message.values != null && message.values.length)
+                writer.uint32(/* id 1, wireType 2 =*/10).doubles(message.values);
+            if (message.$unknowns != null && $Object.hasOwnProperty.call(message, "$unknowns"))
+                for (let i = 0; i < message.$unknowns.length; ++i)
+                    writer.raw(message.$unknowns[i]);
+            return writer;
+        };
+
+        /**
+         * Encodes the specified DoubleList message, length delimited. Does not implicitly {@link tendril.DoubleList.verify|verify} messages.
+         * @function encodeDelimited
+         * @memberof tendril.DoubleList
+         * @static
+         * @param {tendril.DoubleList.$Properties} message DoubleList message or plain object to encode
+         * @param {$protobuf.Writer} [writer] Writer to encode to
+         * @returns {$protobuf.Writer} Writer
+         */
+        DoubleList.encodeDelimited = function(message, writer) {
+            return this.encode(message, (writer || $Writer.create()).fork()).ldelim();
+        };
+
+        /**
+         * Decodes a DoubleList message from the specified reader or buffer.
+         * @function decode
+         * @memberof tendril.DoubleList
+         * @static
+         * @param {$protobuf.Reader|Uint8Array} reader Reader or buffer to decode from
+         * @param {number} [length] Message length if known beforehand
+         * @returns {tendril.DoubleList & tendril.DoubleList.$Shape} DoubleList
+         * @throws {Error} If the payload is not a reader or valid buffer
+         * @throws {$protobuf.util.ProtocolError} If required fields are missing
+         */
+        DoubleList.decode = function (reader, length, _end, _depth, _target) {
+            if (!(reader instanceof $Reader))
+                reader = $Reader.create(reader);
+            if (_depth === $undefined)
+                _depth = 0;
+            if (_depth > $Reader.recursionLimit)
+                throw $Error("max depth exceeded");
+            let end, message;
+            if (length === $undefined)
+                end = reader.len;
+            else {
+                end = reader.pos + length;
+                if (end > reader.len)
+                    throw $RangeError("index out of range");
+                length = reader.len;
+                reader.len = end;
+            }
+            message = _target || new $root.tendril.DoubleList();
+            while (reader.pos < end) {
+                let start = reader.pos;
+                let tag = reader.tag();
+                if (tag === _end) {
+                    _end = $undefined;
+                    break;
+                }
+                let wireType = tag & 7;
+                switch (tag >>>= 3) {
+                case 1: {
+                        if (wireType === 2) {
+                            if (!(message.values && message.values.length))
+                                message.values = [];
+                            reader.doubles(message.values);
+                            continue;
+                        }
+                        if (wireType !== 1)
+                            break;
+                        if (!(message.values && message.values.length))
+                            message.values = [];
+                        message.values.push(reader.double());
+                        continue;
+                    }
+                }
+                reader.skipType(wireType, _depth, tag);
+                if (!reader.discardUnknown) {
+                    $util.makeProp(message, "$unknowns", false);
+                    (message.$unknowns || (message.$unknowns = [])).push(reader.raw(start, reader.pos));
+                }
+            }
+            if (length !== $undefined) {
+                if (reader.pos !== end)
+                    throw $RangeError("index out of range");
+                reader.len = length;
+            }
+            if (_end !== $undefined)
+                throw $Error("missing end group");
+            return message;
+        };
+
+        /**
+         * Decodes a DoubleList message from the specified reader or buffer, length delimited.
+         * @function decodeDelimited
+         * @memberof tendril.DoubleList
+         * @static
+         * @param {$protobuf.Reader|Uint8Array} reader Reader or buffer to decode from
+         * @returns {tendril.DoubleList & tendril.DoubleList.$Shape} DoubleList
+         * @throws {Error} If the payload is not a reader or valid buffer
+         * @throws {$protobuf.util.ProtocolError} If required fields are missing
+         */
+        DoubleList.decodeDelimited = function(reader) {
+            if (!(reader instanceof $Reader))
+                reader = new $Reader(reader);
+            return this.decode(reader, reader.size());
+        };
+
+        /**
+         * Verifies a DoubleList message.
+         * @function verify
+         * @memberof tendril.DoubleList
+         * @static
+         * @param {Object.<string,*>} message Plain object to verify
+         * @returns {string|null} `null` if valid, otherwise the reason why it is not
+         */
+        DoubleList.verify = function (message, _depth) {
+            if (typeof message !== "object" || message === null)
+                return "object expected";
+            if (_depth === $undefined)
+                _depth = 0;
+            if (_depth > $util.recursionLimit)
+                return "max depth exceeded";
+            if (message.values != null && $Object.hasOwnProperty.call(message, "values")) {
+                if (!$Array.isArray(message.values))
+                    return "values: array expected";
+                for (let i = 0; i < message.values.length; ++i)
+                    if (typeof message.values[i] !== "number")
+                        return "values: number[] expected";
+            }
+            return null;
+        };
+
+        /**
+         * Creates a DoubleList message from a plain object. Also converts values to their respective internal types.
+         * @function fromObject
+         * @memberof tendril.DoubleList
+         * @static
+         * @param {Object.<string,*>} object Plain object
+         * @returns {tendril.DoubleList} DoubleList
+         */
+        DoubleList.fromObject = function (object, _depth) {
+            if (object instanceof $root.tendril.DoubleList)
+                return object;
+            if (!$util.isObject(object))
+                throw $TypeError(".tendril.DoubleList: object expected");
+            if (_depth === $undefined)
+                _depth = 0;
+            if (_depth > $util.recursionLimit)
+                throw $Error("max depth exceeded");
+            let message = new $root.tendril.DoubleList();
+            if (object.values) {
+                if (!$Array.isArray(object.values))
+                    throw $TypeError(".tendril.DoubleList.values: array expected");
+                message.values = $Array(object.values.length);
+                for (let i = 0; i < object.values.length; ++i)
+                    message.values[i] = $Number(object.values[i]);
+            }
+            return message;
+        };
+
+        /**
+         * Creates a plain object from a DoubleList message. Also converts values to other types if specified.
+         * @function toObject
+         * @memberof tendril.DoubleList
+         * @static
+         * @param {tendril.DoubleList} message DoubleList
+         * @param {$protobuf.IConversionOptions} [options] Conversion options
+         * @returns {Object.<string,*>} Plain object
+         */
+        DoubleList.toObject = function (message, options, _depth) {
+            if (!options)
+                options = {};
+            if (_depth === $undefined)
+                _depth = 0;
+            if (_depth > $util.recursionLimit)
+                throw $Error("max depth exceeded");
+            let object = {};
+            if (options.arrays || options.defaults)
+                object.values = [];
+            if (message.values && message.values.length) {
+                object.values = $Array(message.values.length);
+                for (let j = 0; j < message.values.length; ++j)
+                    object.values[j] = options.json && !$isFinite(message.values[j]) ? $String(message.values[j]) : message.values[j];
+            }
+            return object;
+        };
+
+        /**
+         * Converts this DoubleList to JSON.
+         * @function toJSON
+         * @memberof tendril.DoubleList
+         * @instance
+         * @returns {Object.<string,*>} JSON object
+         */
+        DoubleList.prototype.toJSON = function() {
+            return DoubleList.toObject(this, $protobuf.util.toJSONOptions);
+        };
+
+        /**
+         * Gets the type url for DoubleList
+         * @function getTypeUrl
+         * @memberof tendril.DoubleList
+         * @static
+         * @param {string} [prefix] Custom type url prefix, defaults to `"type.googleapis.com"`
+         * @returns {string} The type url
+         */
+        DoubleList.getTypeUrl = function(prefix) {
+            if (prefix === $undefined)
+                prefix = "type.googleapis.com";
+            return prefix + "/tendril.DoubleList";
+        };
+
+        return DoubleList;
+    })();
+
     tendril.GrowthSeries = (function() {
 
         /**
@@ -1213,6 +1615,7 @@ export const tendril = $root.tendril = (() => {
          * @property {Array.<number>|null} [radiusOfGyration] GrowthSeries radiusOfGyration
          * @property {Array.<number>|null} [maxRadius] GrowthSeries maxRadius
          * @property {Array.<number>|null} [centerOffset] GrowthSeries centerOffset
+         * @property {Object.<string,tendril.DoubleList.$Properties>|null} [extra] GrowthSeries extra
          * @property {Array.<Uint8Array>} [$unknowns] Unknown fields preserved while decoding when enabled
          */
 
@@ -1242,6 +1645,7 @@ export const tendril = $root.tendril = (() => {
             this.radiusOfGyration = [];
             this.maxRadius = [];
             this.centerOffset = [];
+            this.extra = {};
             if (properties)
                 for (let keys = $Object.keys(properties), i = 0; i < keys.length; ++i)
                     if (properties[keys[i]] != null && keys[i] !== "__proto__")
@@ -1279,6 +1683,14 @@ export const tendril = $root.tendril = (() => {
          * @instance
          */
         GrowthSeries.prototype.centerOffset = $util.emptyArray;
+
+        /**
+         * GrowthSeries extra.
+         * @member {Object.<string,tendril.DoubleList.$Properties>} extra
+         * @memberof tendril.GrowthSeries
+         * @instance
+         */
+        GrowthSeries.prototype.extra = $util.emptyObject;
 
         /**
          * Creates a new GrowthSeries instance using the specified properties.
@@ -1320,6 +1732,11 @@ export const tendril = $root.tendril = (() => {
                 writer.uint32(/* id 3, wireType 2 =*/26).doubles(message.maxRadius);
             if (message.centerOffset != null && message.centerOffset.length)
                 writer.uint32(/* id 4, wireType 2 =*/34).doubles(message.centerOffset);
+            if (message.extra != null && $Object.hasOwnProperty.call(message, "extra"))
+                for (let keys = $Object.keys(message.extra), i = 0; i < keys.length; ++i) {
+                    writer.uint32(/* id 5, wireType 2 =*/42).fork().uint32(/* id 1, wireType 2 =*/10).string(keys[i]);
+                    $root.tendril.DoubleList.encode(message.extra[keys[i]], writer.uint32(/* id 2, wireType 2 =*/18).fork(), _depth + 1).ldelim().ldelim();
+                }
             if (message.$unknowns != null && $Object.hasOwnProperty.call(message, "$unknowns"))
                 for (let i = 0; i < message.$unknowns.length; ++i)
                     writer.raw(message.$unknowns[i]);
@@ -1357,7 +1774,7 @@ export const tendril = $root.tendril = (() => {
                 _depth = 0;
             if (_depth > $Reader.recursionLimit)
                 throw $Error("max depth exceeded");
-            let end, message;
+            let end, message, key, value;
             if (length === $undefined)
                 end = reader.len;
             else {
@@ -1431,6 +1848,42 @@ export const tendril = $root.tendril = (() => {
                         if (!(message.centerOffset && message.centerOffset.length))
                             message.centerOffset = [];
                         message.centerOffset.push(reader.double());
+                        continue;
+                    }
+                case 5: {
+                        if (wireType !== 2)
+                            break;
+                        if (message.extra === $util.emptyObject)
+                            message.extra = {};
+                        let end2 = reader.size() + reader.pos;
+                        if (end2 > reader.len)
+                            throw $RangeError("index out of range");
+                        reader.len = end2;
+                        key = "";
+                        value = null;
+                        while (reader.pos < end2) {
+                            let tag2 = reader.tag();
+                            wireType = tag2 & 7;
+                            switch (tag2 >>>= 3) {
+                            case 1:
+                                if (wireType !== 2)
+                                    break;
+                                key = reader.stringVerify();
+                                continue;
+                            case 2:
+                                if (wireType !== 2)
+                                    break;
+                                value = $root.tendril.DoubleList.decode(reader, reader.size(), $undefined, _depth + 1, value);
+                                continue;
+                            }
+                            reader.skipType(wireType, _depth, tag2);
+                        }
+                        if (reader.pos !== end2)
+                            throw $RangeError("index out of range");
+                        reader.len = end;
+                        if (key === "__proto__")
+                            $util.makeProp(message.extra, key);
+                        message.extra[key] = value || new $root.tendril.DoubleList();
                         continue;
                     }
                 }
@@ -1509,6 +1962,16 @@ export const tendril = $root.tendril = (() => {
                     if (typeof message.centerOffset[i] !== "number")
                         return "centerOffset: number[] expected";
             }
+            if (message.extra != null && $Object.hasOwnProperty.call(message, "extra")) {
+                if (!$util.isObject(message.extra))
+                    return "extra: object expected";
+                let key = $Object.keys(message.extra);
+                for (let i = 0; i < key.length; ++i) {
+                    let error = $root.tendril.DoubleList.verify(message.extra[key[i]], _depth + 1);
+                    if (error)
+                        return "extra." + error;
+                }
+            }
             return null;
         };
 
@@ -1558,6 +2021,18 @@ export const tendril = $root.tendril = (() => {
                 for (let i = 0; i < object.centerOffset.length; ++i)
                     message.centerOffset[i] = $Number(object.centerOffset[i]);
             }
+            if (object.extra) {
+                if (!$util.isObject(object.extra))
+                    throw $TypeError(".tendril.GrowthSeries.extra: object expected");
+                message.extra = {};
+                for (let keys = $Object.keys(object.extra), i = 0; i < keys.length; ++i) {
+                    if (keys[i] === "__proto__")
+                        $util.makeProp(message.extra, keys[i]);
+                    if (!$util.isObject(object.extra[keys[i]]))
+                        throw $TypeError(".tendril.GrowthSeries.extra: object expected");
+                    message.extra[keys[i]] = $root.tendril.DoubleList.fromObject(object.extra[keys[i]], _depth + 1);
+                }
+            }
             return message;
         };
 
@@ -1584,6 +2059,8 @@ export const tendril = $root.tendril = (() => {
                 object.maxRadius = [];
                 object.centerOffset = [];
             }
+            if (options.objects || options.defaults)
+                object.extra = {};
             if (message.sizes && message.sizes.length) {
                 object.sizes = $Array(message.sizes.length);
                 for (let j = 0; j < message.sizes.length; ++j)
@@ -1603,6 +2080,15 @@ export const tendril = $root.tendril = (() => {
                 object.centerOffset = $Array(message.centerOffset.length);
                 for (let j = 0; j < message.centerOffset.length; ++j)
                     object.centerOffset[j] = options.json && !$isFinite(message.centerOffset[j]) ? $String(message.centerOffset[j]) : message.centerOffset[j];
+            }
+            let keys2;
+            if (message.extra && (keys2 = $Object.keys(message.extra)).length) {
+                object.extra = {};
+                for (let j = 0; j < keys2.length; ++j) {
+                    if (keys2[j] === "__proto__")
+                        $util.makeProp(object.extra, keys2[j]);
+                    object.extra[keys2[j]] = $root.tendril.DoubleList.toObject(message.extra[keys2[j]], options, _depth + 1);
+                }
             }
             return object;
         };
@@ -2717,6 +3203,8 @@ export const tendril = $root.tendril = (() => {
          * @property {tendril.GrowthCounters.$Properties|null} [counters] RunResult counters
          * @property {string|null} [stateHash] RunResult stateHash
          * @property {tendril.RunTimings.$Properties|null} [timings] RunResult timings
+         * @property {Object.<string,number>|null} [counterValues] RunResult counterValues
+         * @property {number|null} [dimension] RunResult dimension
          * @property {Array.<Uint8Array>} [$unknowns] Unknown fields preserved while decoding when enabled
          */
 
@@ -2743,6 +3231,8 @@ export const tendril = $root.tendril = (() => {
          *   counters?: tendril.GrowthCounters.$Shape|null;
          *   stateHash?: string|null;
          *   timings?: tendril.RunTimings.$Shape|null;
+         *   counterValues?: Object.<string,number>|null;
+         *   dimension?: number|null;
          *   $unknowns?: Array.<Uint8Array>;
          * }} tendril.RunResult.$Shape
          */
@@ -2756,6 +3246,7 @@ export const tendril = $root.tendril = (() => {
          * @property {Array.<Uint8Array>} [$unknowns] Unknown fields preserved while decoding when enabled
          */
         const RunResult = function (properties) {
+            this.counterValues = {};
             if (properties)
                 for (let keys = $Object.keys(properties), i = 0; i < keys.length; ++i)
                     if (properties[keys[i]] != null && keys[i] !== "__proto__")
@@ -2859,6 +3350,22 @@ export const tendril = $root.tendril = (() => {
         RunResult.prototype.timings = null;
 
         /**
+         * RunResult counterValues.
+         * @member {Object.<string,number>} counterValues
+         * @memberof tendril.RunResult
+         * @instance
+         */
+        RunResult.prototype.counterValues = $util.emptyObject;
+
+        /**
+         * RunResult dimension.
+         * @member {number} dimension
+         * @memberof tendril.RunResult
+         * @instance
+         */
+        RunResult.prototype.dimension = 0;
+
+        /**
          * Creates a new RunResult instance using the specified properties.
          * @function create
          * @memberof tendril.RunResult
@@ -2914,6 +3421,11 @@ export const tendril = $root.tendril = (() => {
                 writer.uint32(/* id 11, wireType 2 =*/90).string(message.stateHash);
             if (message.timings != null && $Object.hasOwnProperty.call(message, "timings"))
                 $root.tendril.RunTimings.encode(message.timings, writer.uint32(/* id 12, wireType 2 =*/98).fork(), _depth + 1).ldelim();
+            if (message.counterValues != null && $Object.hasOwnProperty.call(message, "counterValues"))
+                for (let keys = $Object.keys(message.counterValues), i = 0; i < keys.length; ++i)
+                    writer.uint32(/* id 13, wireType 2 =*/106).fork().uint32(/* id 1, wireType 2 =*/10).string(keys[i]).uint32(/* id 2, wireType 1 =*/17).double(message.counterValues[keys[i]]).ldelim();
+            if (message.dimension != null && $Object.hasOwnProperty.call(message, "dimension") && message.dimension !== 0)
+                writer.uint32(/* id 14, wireType 0 =*/112).uint32(message.dimension);
             if (message.$unknowns != null && $Object.hasOwnProperty.call(message, "$unknowns"))
                 for (let i = 0; i < message.$unknowns.length; ++i)
                     writer.raw(message.$unknowns[i]);
@@ -2951,7 +3463,7 @@ export const tendril = $root.tendril = (() => {
                 _depth = 0;
             if (_depth > $Reader.recursionLimit)
                 throw $Error("max depth exceeded");
-            let end, message, value;
+            let end, message, key, value;
             if (length === $undefined)
                 end = reader.len;
             else {
@@ -3064,6 +3576,51 @@ export const tendril = $root.tendril = (() => {
                         message.timings = $root.tendril.RunTimings.decode(reader, reader.size(), $undefined, _depth + 1, message.timings);
                         continue;
                     }
+                case 13: {
+                        if (wireType !== 2)
+                            break;
+                        if (message.counterValues === $util.emptyObject)
+                            message.counterValues = {};
+                        let end2 = reader.size() + reader.pos;
+                        if (end2 > reader.len)
+                            throw $RangeError("index out of range");
+                        reader.len = end2;
+                        key = "";
+                        value = 0;
+                        while (reader.pos < end2) {
+                            let tag2 = reader.tag();
+                            wireType = tag2 & 7;
+                            switch (tag2 >>>= 3) {
+                            case 1:
+                                if (wireType !== 2)
+                                    break;
+                                key = reader.stringVerify();
+                                continue;
+                            case 2:
+                                if (wireType !== 1)
+                                    break;
+                                value = reader.double();
+                                continue;
+                            }
+                            reader.skipType(wireType, _depth, tag2);
+                        }
+                        if (reader.pos !== end2)
+                            throw $RangeError("index out of range");
+                        reader.len = end;
+                        if (key === "__proto__")
+                            $util.makeProp(message.counterValues, key);
+                        message.counterValues[key] = value;
+                        continue;
+                    }
+                case 14: {
+                        if (wireType !== 0)
+                            break;
+                        if (value = reader.uint32())
+                            message.dimension = value;
+                        else
+                            delete message.dimension;
+                        continue;
+                    }
                 }
                 reader.skipType(wireType, _depth, tag);
                 if (!reader.discardUnknown) {
@@ -3158,6 +3715,17 @@ export const tendril = $root.tendril = (() => {
                 if (error)
                     return "timings." + error;
             }
+            if (message.counterValues != null && $Object.hasOwnProperty.call(message, "counterValues")) {
+                if (!$util.isObject(message.counterValues))
+                    return "counterValues: object expected";
+                let key = $Object.keys(message.counterValues);
+                for (let i = 0; i < key.length; ++i)
+                    if (typeof message.counterValues[key[i]] !== "number")
+                        return "counterValues: number{k:string} expected";
+            }
+            if (message.dimension != null && $Object.hasOwnProperty.call(message, "dimension"))
+                if (!$util.isInteger(message.dimension))
+                    return "dimension: integer expected";
             return null;
         };
 
@@ -3225,6 +3793,19 @@ export const tendril = $root.tendril = (() => {
                     throw $TypeError(".tendril.RunResult.timings: object expected");
                 message.timings = $root.tendril.RunTimings.fromObject(object.timings, _depth + 1);
             }
+            if (object.counterValues) {
+                if (!$util.isObject(object.counterValues))
+                    throw $TypeError(".tendril.RunResult.counterValues: object expected");
+                message.counterValues = {};
+                for (let keys = $Object.keys(object.counterValues), i = 0; i < keys.length; ++i) {
+                    if (keys[i] === "__proto__")
+                        $util.makeProp(message.counterValues, keys[i]);
+                    message.counterValues[keys[i]] = $Number(object.counterValues[keys[i]]);
+                }
+            }
+            if (object.dimension != null)
+                if ($Number(object.dimension) !== 0)
+                    message.dimension = object.dimension >>> 0;
             return message;
         };
 
@@ -3245,6 +3826,8 @@ export const tendril = $root.tendril = (() => {
             if (_depth > $util.recursionLimit)
                 throw $Error("max depth exceeded");
             let object = {};
+            if (options.objects || options.defaults)
+                object.counterValues = {};
             if (options.defaults) {
                 object.contractVersion = 0;
                 object.ensembleId = "";
@@ -3258,6 +3841,7 @@ export const tendril = $root.tendril = (() => {
                 object.counters = null;
                 object.stateHash = "";
                 object.timings = null;
+                object.dimension = 0;
             }
             if (message.contractVersion != null && $Object.hasOwnProperty.call(message, "contractVersion"))
                 object.contractVersion = message.contractVersion;
@@ -3283,6 +3867,17 @@ export const tendril = $root.tendril = (() => {
                 object.stateHash = message.stateHash;
             if (message.timings != null && $Object.hasOwnProperty.call(message, "timings"))
                 object.timings = $root.tendril.RunTimings.toObject(message.timings, options, _depth + 1);
+            let keys2;
+            if (message.counterValues && (keys2 = $Object.keys(message.counterValues)).length) {
+                object.counterValues = {};
+                for (let j = 0; j < keys2.length; ++j) {
+                    if (keys2[j] === "__proto__")
+                        $util.makeProp(object.counterValues, keys2[j]);
+                    object.counterValues[keys2[j]] = options.json && !$isFinite(message.counterValues[keys2[j]]) ? $String(message.counterValues[keys2[j]]) : message.counterValues[keys2[j]];
+                }
+            }
+            if (message.dimension != null && $Object.hasOwnProperty.call(message, "dimension"))
+                object.dimension = message.dimension;
             return object;
         };
 
@@ -3331,6 +3926,10 @@ export const tendril = $root.tendril = (() => {
          * @property {number|null} [growSeconds] Checkpoint growSeconds
          * @property {number|null} [startedAtMs] Checkpoint startedAtMs
          * @property {number|null} [resumes] Checkpoint resumes
+         * @property {number|null} [dimension] Checkpoint dimension
+         * @property {Uint8Array|null} [positions] Checkpoint positions
+         * @property {Object.<string,number>|null} [counterValues] Checkpoint counterValues
+         * @property {Uint8Array|null} [modelState] Checkpoint modelState
          * @property {Array.<Uint8Array>} [$unknowns] Unknown fields preserved while decoding when enabled
          */
 
@@ -3357,6 +3956,10 @@ export const tendril = $root.tendril = (() => {
          *   growSeconds?: number|null;
          *   startedAtMs?: number|null;
          *   resumes?: number|null;
+         *   dimension?: number|null;
+         *   positions?: Uint8Array|null;
+         *   counterValues?: Object.<string,number>|null;
+         *   modelState?: Uint8Array|null;
          *   $unknowns?: Array.<Uint8Array>;
          * }} tendril.Checkpoint.$Shape
          */
@@ -3371,6 +3974,7 @@ export const tendril = $root.tendril = (() => {
          */
         const Checkpoint = function (properties) {
             this.rngState = [];
+            this.counterValues = {};
             if (properties)
                 for (let keys = $Object.keys(properties), i = 0; i < keys.length; ++i)
                     if (properties[keys[i]] != null && keys[i] !== "__proto__")
@@ -3474,6 +4078,38 @@ export const tendril = $root.tendril = (() => {
         Checkpoint.prototype.resumes = 0;
 
         /**
+         * Checkpoint dimension.
+         * @member {number} dimension
+         * @memberof tendril.Checkpoint
+         * @instance
+         */
+        Checkpoint.prototype.dimension = 0;
+
+        /**
+         * Checkpoint positions.
+         * @member {Uint8Array} positions
+         * @memberof tendril.Checkpoint
+         * @instance
+         */
+        Checkpoint.prototype.positions = $util.newBuffer([]);
+
+        /**
+         * Checkpoint counterValues.
+         * @member {Object.<string,number>} counterValues
+         * @memberof tendril.Checkpoint
+         * @instance
+         */
+        Checkpoint.prototype.counterValues = $util.emptyObject;
+
+        /**
+         * Checkpoint modelState.
+         * @member {Uint8Array} modelState
+         * @memberof tendril.Checkpoint
+         * @instance
+         */
+        Checkpoint.prototype.modelState = $util.newBuffer([]);
+
+        /**
          * Creates a new Checkpoint instance using the specified properties.
          * @function create
          * @memberof tendril.Checkpoint
@@ -3529,6 +4165,15 @@ export const tendril = $root.tendril = (() => {
                 writer.uint32(/* id 11, wireType 1 =*/89).double(message.startedAtMs);
             if (message.resumes != null && $Object.hasOwnProperty.call(message, "resumes") && message.resumes !== 0)
                 writer.uint32(/* id 12, wireType 0 =*/96).uint32(message.resumes);
+            if (message.dimension != null && $Object.hasOwnProperty.call(message, "dimension") && message.dimension !== 0)
+                writer.uint32(/* id 13, wireType 0 =*/104).uint32(message.dimension);
+            if (message.positions != null && $Object.hasOwnProperty.call(message, "positions") && message.positions.length)
+                writer.uint32(/* id 14, wireType 2 =*/114).bytes(message.positions);
+            if (message.counterValues != null && $Object.hasOwnProperty.call(message, "counterValues"))
+                for (let keys = $Object.keys(message.counterValues), i = 0; i < keys.length; ++i)
+                    writer.uint32(/* id 15, wireType 2 =*/122).fork().uint32(/* id 1, wireType 2 =*/10).string(keys[i]).uint32(/* id 2, wireType 1 =*/17).double(message.counterValues[keys[i]]).ldelim();
+            if (message.modelState != null && $Object.hasOwnProperty.call(message, "modelState") && message.modelState.length)
+                writer.uint32(/* id 16, wireType 2 =*/130).bytes(message.modelState);
             if (message.$unknowns != null && $Object.hasOwnProperty.call(message, "$unknowns"))
                 for (let i = 0; i < message.$unknowns.length; ++i)
                     writer.raw(message.$unknowns[i]);
@@ -3566,7 +4211,7 @@ export const tendril = $root.tendril = (() => {
                 _depth = 0;
             if (_depth > $Reader.recursionLimit)
                 throw $Error("max depth exceeded");
-            let end, message, value;
+            let end, message, key, value;
             if (length === $undefined)
                 end = reader.len;
             else {
@@ -3690,6 +4335,69 @@ export const tendril = $root.tendril = (() => {
                             delete message.resumes;
                         continue;
                     }
+                case 13: {
+                        if (wireType !== 0)
+                            break;
+                        if (value = reader.uint32())
+                            message.dimension = value;
+                        else
+                            delete message.dimension;
+                        continue;
+                    }
+                case 14: {
+                        if (wireType !== 2)
+                            break;
+                        if ((value = reader.bytes()).length)
+                            message.positions = value;
+                        else
+                            delete message.positions;
+                        continue;
+                    }
+                case 15: {
+                        if (wireType !== 2)
+                            break;
+                        if (message.counterValues === $util.emptyObject)
+                            message.counterValues = {};
+                        let end2 = reader.size() + reader.pos;
+                        if (end2 > reader.len)
+                            throw $RangeError("index out of range");
+                        reader.len = end2;
+                        key = "";
+                        value = 0;
+                        while (reader.pos < end2) {
+                            let tag2 = reader.tag();
+                            wireType = tag2 & 7;
+                            switch (tag2 >>>= 3) {
+                            case 1:
+                                if (wireType !== 2)
+                                    break;
+                                key = reader.stringVerify();
+                                continue;
+                            case 2:
+                                if (wireType !== 1)
+                                    break;
+                                value = reader.double();
+                                continue;
+                            }
+                            reader.skipType(wireType, _depth, tag2);
+                        }
+                        if (reader.pos !== end2)
+                            throw $RangeError("index out of range");
+                        reader.len = end;
+                        if (key === "__proto__")
+                            $util.makeProp(message.counterValues, key);
+                        message.counterValues[key] = value;
+                        continue;
+                    }
+                case 16: {
+                        if (wireType !== 2)
+                            break;
+                        if ((value = reader.bytes()).length)
+                            message.modelState = value;
+                        else
+                            delete message.modelState;
+                        continue;
+                    }
                 }
                 reader.skipType(wireType, _depth, tag);
                 if (!reader.discardUnknown) {
@@ -3784,6 +4492,23 @@ export const tendril = $root.tendril = (() => {
             if (message.resumes != null && $Object.hasOwnProperty.call(message, "resumes"))
                 if (!$util.isInteger(message.resumes))
                     return "resumes: integer expected";
+            if (message.dimension != null && $Object.hasOwnProperty.call(message, "dimension"))
+                if (!$util.isInteger(message.dimension))
+                    return "dimension: integer expected";
+            if (message.positions != null && $Object.hasOwnProperty.call(message, "positions"))
+                if (!(message.positions && typeof message.positions.length === "number" || $util.isString(message.positions)))
+                    return "positions: buffer expected";
+            if (message.counterValues != null && $Object.hasOwnProperty.call(message, "counterValues")) {
+                if (!$util.isObject(message.counterValues))
+                    return "counterValues: object expected";
+                let key = $Object.keys(message.counterValues);
+                for (let i = 0; i < key.length; ++i)
+                    if (typeof message.counterValues[key[i]] !== "number")
+                        return "counterValues: number{k:string} expected";
+            }
+            if (message.modelState != null && $Object.hasOwnProperty.call(message, "modelState"))
+                if (!(message.modelState && typeof message.modelState.length === "number" || $util.isString(message.modelState)))
+                    return "modelState: buffer expected";
             return null;
         };
 
@@ -3857,6 +4582,31 @@ export const tendril = $root.tendril = (() => {
             if (object.resumes != null)
                 if ($Number(object.resumes) !== 0)
                     message.resumes = object.resumes >>> 0;
+            if (object.dimension != null)
+                if ($Number(object.dimension) !== 0)
+                    message.dimension = object.dimension >>> 0;
+            if (object.positions != null)
+                if (object.positions.length)
+                    if (typeof object.positions === "string")
+                        $util.base64.decode(object.positions, message.positions = $util.newBuffer($util.base64.length(object.positions)), 0);
+                    else if (object.positions.length >= 0)
+                        message.positions = object.positions;
+            if (object.counterValues) {
+                if (!$util.isObject(object.counterValues))
+                    throw $TypeError(".tendril.Checkpoint.counterValues: object expected");
+                message.counterValues = {};
+                for (let keys = $Object.keys(object.counterValues), i = 0; i < keys.length; ++i) {
+                    if (keys[i] === "__proto__")
+                        $util.makeProp(message.counterValues, keys[i]);
+                    message.counterValues[keys[i]] = $Number(object.counterValues[keys[i]]);
+                }
+            }
+            if (object.modelState != null)
+                if (object.modelState.length)
+                    if (typeof object.modelState === "string")
+                        $util.base64.decode(object.modelState, message.modelState = $util.newBuffer($util.base64.length(object.modelState)), 0);
+                    else if (object.modelState.length >= 0)
+                        message.modelState = object.modelState;
             return message;
         };
 
@@ -3879,6 +4629,8 @@ export const tendril = $root.tendril = (() => {
             let object = {};
             if (options.arrays || options.defaults)
                 object.rngState = [];
+            if (options.objects || options.defaults)
+                object.counterValues = {};
             if (options.defaults) {
                 object.contractVersion = 0;
                 object.engineVersion = "";
@@ -3903,6 +4655,21 @@ export const tendril = $root.tendril = (() => {
                 object.growSeconds = 0;
                 object.startedAtMs = 0;
                 object.resumes = 0;
+                object.dimension = 0;
+                if (options.bytes === $String)
+                    object.positions = "";
+                else {
+                    object.positions = [];
+                    if (options.bytes !== $Array)
+                        object.positions = $util.newBuffer(object.positions);
+                }
+                if (options.bytes === $String)
+                    object.modelState = "";
+                else {
+                    object.modelState = [];
+                    if (options.bytes !== $Array)
+                        object.modelState = $util.newBuffer(object.modelState);
+                }
             }
             if (message.contractVersion != null && $Object.hasOwnProperty.call(message, "contractVersion"))
                 object.contractVersion = message.contractVersion;
@@ -3931,6 +4698,21 @@ export const tendril = $root.tendril = (() => {
                 object.startedAtMs = options.json && !$isFinite(message.startedAtMs) ? $String(message.startedAtMs) : message.startedAtMs;
             if (message.resumes != null && $Object.hasOwnProperty.call(message, "resumes"))
                 object.resumes = message.resumes;
+            if (message.dimension != null && $Object.hasOwnProperty.call(message, "dimension"))
+                object.dimension = message.dimension;
+            if (message.positions != null && $Object.hasOwnProperty.call(message, "positions"))
+                object.positions = options.bytes === $String ? $util.base64.encode(message.positions, 0, message.positions.length) : options.bytes === $Array ? $Array.prototype.slice.call(message.positions) : message.positions;
+            let keys2;
+            if (message.counterValues && (keys2 = $Object.keys(message.counterValues)).length) {
+                object.counterValues = {};
+                for (let j = 0; j < keys2.length; ++j) {
+                    if (keys2[j] === "__proto__")
+                        $util.makeProp(object.counterValues, keys2[j]);
+                    object.counterValues[keys2[j]] = options.json && !$isFinite(message.counterValues[keys2[j]]) ? $String(message.counterValues[keys2[j]]) : message.counterValues[keys2[j]];
+                }
+            }
+            if (message.modelState != null && $Object.hasOwnProperty.call(message, "modelState"))
+                object.modelState = options.bytes === $String ? $util.base64.encode(message.modelState, 0, message.modelState.length) : options.bytes === $Array ? $Array.prototype.slice.call(message.modelState) : message.modelState;
             return object;
         };
 

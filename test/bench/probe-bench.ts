@@ -7,6 +7,7 @@
  *
  * Prints a human-readable line and one JSON line.
  */
+import { axisOf } from '../../worker/core/positions.js';
 import { createKernel, defaultModelParams } from '../../worker/models/registry.js';
 import { ProbeGeometry, planProbeJobs, runProbeJob } from '../../worker/probe/probe-2d.js';
 import { argValue, isEntryPoint } from './bench-process.js';
@@ -31,7 +32,7 @@ export function runProbeBenchmark(particles = 100_000, walkers = 100_000): Probe
   const growSeconds = (performance.now() - t) / 1000;
   const p = kernel.positions();
   t = performance.now();
-  const g = new ProbeGeometry({ count: particles, x: p.x, y: p.y, r: 1 });
+  const g = new ProbeGeometry({ count: particles, x: axisOf(p, 0), y: axisOf(p, 1), r: 1 });
   const indexSeconds = (performance.now() - t) / 1000;
   const [task] = planProbeJobs(g, '1', walkers, 1, 0);
   t = performance.now();

@@ -11,6 +11,7 @@
  *
  * Needs the compiled tree (npm run build). Prints one JSON line.
  */
+import { axisOf } from '../../worker/core/positions.js';
 import type { ChildProcess } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -46,7 +47,7 @@ export async function runProbeScalingBenchmark(o: { particles?: number; walkers?
   kernel.growTo(particles);
   const growSeconds = (performance.now() - t) / 1000;
   const p = kernel.positions();
-  const set = { count: particles, x: p.x.slice(0, particles), y: p.y.slice(0, particles), r: new Float64Array(particles).fill(1) };
+  const set = { count: particles, x: axisOf(p, 0, particles), y: axisOf(p, 1, particles), r: new Float64Array(particles).fill(1) };
   const prefix = `tendril-bench-probe-${process.pid}`;
   const redis = new Redis(redisUrl, { maxRetriesPerRequest: null });
   const store = new ProbeRequestStore(redis, prefix);

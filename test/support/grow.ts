@@ -1,9 +1,10 @@
-import type { GrowthResult, GrowthTask, OffLatticeDla2dParams } from '../../worker/core/growth-kernel.js';
-import { createKernel, defaultModelParams } from '../../worker/models/registry.js';
+import type { GrowthResult, GrowthTask } from '../../worker/core/growth-kernel.js';
+import { createKernel, modelParams } from '../../worker/models/registry.js';
 
-export function dlaTask(particles: number, runIndex = 0, seed = '1', model: Partial<OffLatticeDla2dParams> = {}): GrowthTask {
+/** A task of off-lattice 2D DLA; `params` overrides parameters by name (e.g. { min_step: 0.1 }). */
+export function dlaTask(particles: number, runIndex = 0, seed = '1', params: Record<string, number> = {}): GrowthTask {
   return {
-    model: { ...(defaultModelParams('dla-offlattice-2d') as OffLatticeDla2dParams), ...model },
+    model: modelParams('dla-offlattice-2d', params),
     particles,
     ensembleSeed: seed,
     runIndex,

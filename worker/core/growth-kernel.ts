@@ -1,24 +1,19 @@
 /**
- * The contract every growth kernel fulfils. A kernel is pure: it is built from
- * a task (and optionally a checkpoint), grows when asked, and hands back
- * checkpoints and a result. It does no I/O and knows nothing of queues, files
- * or HTTP, so the same kernel serves the farm, the embedded mode, the
- * benchmarks and the tests.
+ * The contract every growth kernel fulfils, whatever its model and dimension.
+ * A kernel is pure: it is built from a task (and optionally a checkpoint),
+ * grows when asked, and hands back checkpoints and a result. It does no I/O
+ * and knows nothing of queues, files or HTTP, so the same kernel serves the
+ * farm, the embedded mode, the benchmarks and the tests.
+ *
+ * What a model is (its parameters, counters, observables, references) is
+ * declared by its descriptor (worker/core/model-descriptor.ts); the registry
+ * (worker/models/registry.ts) builds kernels from tasks.
  */
 
-/** Model parameters; one variant per model, discriminated by `kind`. */
-export type ModelParams = OffLatticeDla2dParams;
-
-/** Off-lattice DLA in the plane; see worker/models/dla-offlattice-2d/kernel.ts for the exact definition. */
-export interface OffLatticeDla2dParams {
-  kind: 'dla-offlattice-2d';
-  /**
-   * Step length (in particle diameters) of the straight final steps taken
-   * once the walker is closer than this to contact; 0 < minStep <= 1.
-   */
-  minStep: number;
-  /** Launch circle radius = maximum radius + 1 + launchMargin; launchMargin > 0. */
-  launchMargin: number;
+/** A model and its numeric parameters by name (snake_case, as in specs and on the wire). */
+export interface ModelParams {
+  kind: string;
+  params: Record<string, number>;
 }
 
 export interface GrowthTask {
@@ -33,7 +28,7 @@ export interface GrowthTask {
   recordsPerDecade: number;
 }
 
-/** Observables recorded while growing, at log-spaced cluster sizes. */
+/** Observables recorded while growing, at log-spaced cluster sizes (worker/core/record-sizes.ts). */
 export interface GrowthSeries {
   /** Cluster size N (particles, seed included) at each record. */
   sizes: number[];
@@ -43,6 +38,8 @@ export interface GrowthSeries {
   maxRadius: number[];
   /** Distance of the centre of mass from the seed centre. */
   centerOffset: number[];
+  /** Model-specific observables at the same sizes, by the names the descriptor declares (empty for most models). */
+  extra: Record<string, number[]>;
 }
 
 /** Mass–radius counts of the final cluster: M(r) = number of centres within r of the seed. */
@@ -51,47 +48,53 @@ export interface MassRadius {
   counts: number[];
 }
 
-/** Work counters; deterministic (they depend only on the task). */
-export interface GrowthCounters {
-  /** Walk-on-spheres jumps (each uniform exit from a free disk). */
-  jumps: number;
-  /** Short straight steps taken next to the cluster. */
-  shortSteps: number;
-  /** Returns of far walkers to the launch circle by the exact Poisson kernel. */
-  returns: number;
-}
+/** Work counters by the names the descriptor declares; deterministic (they depend only on the task). */
+export type Counters = Record<string, number>;
 
 export interface GrowthResult {
   engineVersion: string;
   model: ModelParams;
+  /** Spatial dimension of the cluster (2 or 3). */
+  dimension: number;
   particles: number;
   ensembleSeed: string;
   runIndex: number;
   series: GrowthSeries;
   massRadius: MassRadius;
-  counters: GrowthCounters;
+  counters: Counters;
   /** Hex digest of the final state (positions, generator state, counters). */
   stateHash: string;
 }
 
-/** Everything needed to continue a run; the acceleration index is rebuilt from positions. */
+/** Particle centres in arrival order, dimension-strided: centre i is coords[i·dimension … i·dimension + dimension − 1]. */
+export interface ClusterPositions {
+  dimension: number;
+  count: number;
+  /** At least count·dimension entries (extra ones are ignored). */
+  coords: Float64Array;
+}
+
+/** Everything needed to continue a run; acceleration structures are rebuilt from positions (and modelState). */
 export interface GrowthCheckpoint {
   engineVersion: string;
   task: GrowthTask;
+  dimension: number;
   /** Particles placed so far (seed included). */
   count: number;
-  /** Particle centres in arrival order, length >= count (extra entries ignored). */
-  x: Float64Array;
-  y: Float64Array;
+  /** Centres in arrival order, dimension-strided, at least count·dimension entries (extra ones ignored). */
+  positions: Float64Array;
   /** Random generator state (see worker/core/random.ts). */
   rngState: Uint32Array;
-  counters: GrowthCounters;
+  counters: Counters;
   /** Records taken so far. */
   series: GrowthSeries;
+  /** State of the model that positions cannot rebuild, in the model's own layout (empty for most models). */
+  modelState: Uint8Array;
 }
 
 export interface GrowthKernel {
   readonly task: GrowthTask;
+  readonly dimension: number;
   /** Particles placed so far, seed included. */
   readonly count: number;
   /** True once count === task.particles. */
@@ -100,9 +103,10 @@ export interface GrowthKernel {
   growTo(target: number): void;
   /** Snapshot of the full state; the arrays are copies. */
   checkpoint(): GrowthCheckpoint;
-  /** Views (not copies) of the particle centres, valid until the next growTo. */
-  positions(): { x: Float64Array; y: Float64Array; count: number };
-  readonly counters: GrowthCounters;
+  /** A view (not a copy) of the particle centres, valid until the next growTo. */
+  positions(): ClusterPositions;
+  /** Counters so far (live; copy to keep). */
+  readonly counters: Readonly<Counters>;
   /** The run result; only valid when done. */
   result(): GrowthResult;
 }

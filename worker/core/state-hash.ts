@@ -44,6 +44,31 @@ export class StateHasher {
     return this;
   }
 
+  /**
+   * Mix the IEEE bits of `count` float64 values a[offset], a[offset + stride],
+   * … — the same words, in the same order, as float64Array over a packed
+   * copy (so one axis of dimension-strided positions hashes as its own array).
+   */
+  float64Strided(a: Float64Array, count: number, stride: number, offset: number): this {
+    const scratch = this.scratch;
+    const sw = this.scratchWords;
+    let h1 = this.h1;
+    let h2 = this.h2;
+    for (let i = 0, j = offset; i < count; i++, j += stride) {
+      scratch[0] = a[j];
+      const w0 = sw[0];
+      const w1 = sw[1];
+      h1 = mixLane(h1, w0);
+      h2 = mixLane(h2, w0 ^ 0x9e3779b9);
+      h1 = mixLane(h1, w1);
+      h2 = mixLane(h2, w1 ^ 0x9e3779b9);
+    }
+    this.h1 = h1;
+    this.h2 = h2;
+    this.words += 2 * count;
+    return this;
+  }
+
   /** Mix a non-negative integer below 2^53 (as two words). */
   integer(n: number): this {
     return this.word(n % 4294967296).word(Math.floor(n / 4294967296));

@@ -1,53 +1,89 @@
 /**
- * The model registry: one entry per model kind. `createKernel` is the only
- * way the farm, the embedded mode, the benchmarks and the tests build a
- * kernel. To add a model: write worker/<model>.ts implementing GrowthKernel
- * (exact definition in its header), add its parameter type to ModelParams in
- * worker/core/growth-kernel.ts, and register it here.
+ * The model registry: one line per model (its descriptor, from
+ * worker/models/<kind>/descriptor.ts). Everything that builds, checks,
+ * lists or validates a model goes through here: the farm, the embedded mode,
+ * the spec schema, the CLI, the benchmarks and the tests. To add a model,
+ * write its folder (kernel with the exact definition in its header, and
+ * descriptor) and add one line to MODELS; DEVELOPERS.md says what else.
  */
-
 import type { GrowthCheckpoint, GrowthKernel, GrowthTask, ModelParams } from '../core/growth-kernel.js';
-import { DEFAULT_DLA_OFFLATTICE_2D, OffLatticeDla2d, checkDlaOffLattice2dTask } from './dla-offlattice-2d/kernel.js';
+import type { ModelDescriptor } from '../core/model-descriptor.js';
+import { checkRange, quoteValue } from '../core/value-range.js';
+import { dlaOffLattice2d } from './dla-offlattice-2d/descriptor.js';
 
-interface ModelEntry {
-  /** Spatial dimension of the clusters. */
-  dimension: 2 | 3;
-  defaults: ModelParams;
-  /** Throws a RangeError naming the first bad field. */
-  check(task: GrowthTask): void;
-  create(task: GrowthTask, checkpoint?: GrowthCheckpoint): GrowthKernel;
+export const MODELS: readonly ModelDescriptor[] = [
+  dlaOffLattice2d,
+];
+
+export const MODEL_KINDS: readonly string[] = MODELS.map((m) => m.kind);
+
+const BY_KIND = new Map(MODELS.map((m) => [m.kind, m]));
+
+/** Limits every task shares, whatever its model. */
+export const PARTICLES_RANGE = { min: 1, max: 100_000_000, integer: true } as const;
+export const RECORDS_PER_DECADE_RANGE = { min: 10, max: 100, integer: true } as const;
+
+/** The descriptor of a model kind; throws a RangeError naming the allowed kinds. */
+export function modelDescriptor(kind: unknown): ModelDescriptor {
+  const d = typeof kind === 'string' ? BY_KIND.get(kind) : undefined;
+  if (d === undefined) throw new RangeError(`model: ${quoteValue(kind)} is not a model; allowed: one of ${MODEL_KINDS.join(', ')}`);
+  return d;
 }
 
-const MODELS: Record<ModelParams['kind'], ModelEntry> = {
-  'dla-offlattice-2d': {
-    dimension: 2,
-    defaults: DEFAULT_DLA_OFFLATTICE_2D,
-    check: checkDlaOffLattice2dTask,
-    create: (task, cp) => new OffLatticeDla2d(task, cp),
-  },
-};
-
-export const MODEL_KINDS = Object.keys(MODELS) as ModelParams['kind'][];
-
-function entry(kind: string): ModelEntry {
-  const e = (MODELS as Record<string, ModelEntry | undefined>)[kind];
-  if (e === undefined) throw new RangeError(`model.kind must be one of ${MODEL_KINDS.join(', ')}, got "${kind}"`);
-  return e;
+/** True when the kind is registered. */
+export function isModelKind(kind: unknown): kind is string {
+  return typeof kind === 'string' && BY_KIND.has(kind);
 }
 
-export function createKernel(task: GrowthTask, checkpoint?: GrowthCheckpoint): GrowthKernel {
-  return entry(task.model.kind).create(task, checkpoint);
+/** The model with every parameter at its default, overridden by `given` (not checked: see checkModelParams). */
+export function modelParams(kind: string, given: Record<string, number> = {}): ModelParams {
+  const d = modelDescriptor(kind);
+  const params: Record<string, number> = {};
+  for (const p of d.params) params[p.name] = p.default;
+  return { kind, params: { ...params, ...given } };
 }
 
-/** Throws a RangeError naming the first bad field of the task. */
+/** The model with every parameter at its default. */
+export function defaultModelParams(kind: string): ModelParams {
+  return modelParams(kind);
+}
+
+/**
+ * Throws a RangeError (one line, naming `params.NAME`, the model and the
+ * allowed range) for an unknown, missing or out-of-range parameter.
+ */
+export function checkModelParams(model: ModelParams): void {
+  const d = modelDescriptor(model.kind);
+  const params = model.params as Record<string, unknown> | undefined;
+  if (typeof params !== 'object' || params === null) throw new RangeError(`params: ${quoteValue(params)} is not allowed; allowed: a table of the parameters of ${d.kind}`);
+  for (const name of Object.keys(params)) {
+    if (!d.params.some((p) => p.name === name)) {
+      const known = d.params.map((p) => p.name).join(', ');
+      throw new RangeError(`params.${name}: not a parameter of ${d.kind}; allowed: ${known || 'none'}`);
+    }
+  }
+  for (const p of d.params) {
+    if (params[p.name] === undefined) throw new RangeError(`params.${p.name}: missing for ${d.kind}`);
+    checkRange(`params.${p.name}`, params[p.name], p, p.unit ? `${p.unit}, for ${d.kind}` : `for ${d.kind}`);
+  }
+}
+
+/** Throws a RangeError naming the first bad field of a task (parameters, size, records, run index, model checks). */
 export function checkTask(task: GrowthTask): void {
-  entry(task.model.kind).check(task);
+  const d = modelDescriptor(task.model?.kind);
+  checkModelParams(task.model);
+  checkRange('particles', task.particles, PARTICLES_RANGE);
+  checkRange('records_per_decade', task.recordsPerDecade, RECORDS_PER_DECADE_RANGE);
+  if (!Number.isSafeInteger(task.runIndex) || task.runIndex < 0) throw new RangeError(`run_index: ${quoteValue(task.runIndex)} is out of range; allowed: a non-negative integer`);
+  d.check?.(task);
 }
 
-export function defaultModelParams(kind: ModelParams['kind']): ModelParams {
-  return structuredClone(entry(kind).defaults);
+/** Build the kernel of a task (checked first), fresh or from a checkpoint. */
+export function createKernel(task: GrowthTask, checkpoint?: GrowthCheckpoint): GrowthKernel {
+  checkTask(task);
+  return modelDescriptor(task.model.kind).create(task, checkpoint);
 }
 
-export function modelDimension(kind: ModelParams['kind']): 2 | 3 {
-  return entry(kind).dimension;
+export function modelDimension(kind: string): 2 | 3 {
+  return modelDescriptor(kind).dimension;
 }

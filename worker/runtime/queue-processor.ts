@@ -110,8 +110,8 @@ export interface CheckpointStore {
 }
 
 export interface ProcessorEvents {
-  /** Particles and walker jumps grown since the last call, for metrics. */
-  onGrowth?: (particles: number, jumps: number) => void;
+  /** Particles grown and counter increments (by the names of the model's descriptor) since the last call, for metrics. */
+  onGrowth?: (model: string, particles: number, counters: Record<string, number>) => void;
   onRunDone?: (result: RunResultData, counted: boolean) => void;
   onRunStarted?: () => void;
   onRunEnded?: () => void;
@@ -287,7 +287,7 @@ export class RunWorker {
     await sink.runStarted(run.ensembleId, run.runIndex, this.workerId);
     this.o.onRunStarted?.();
     let lastCount = -1;
-    let lastJumps = -1;
+    let lastCounters: Record<string, number> = {};
     let reported = -1;
     let writes: Promise<void> = Promise.resolve();
     let cancelled = false;
@@ -295,10 +295,14 @@ export class RunWorker {
       checkpoint,
       workerId: this.workerId,
       onProgress: (p) => {
-        if (lastCount >= 0) this.o.onGrowth?.(Math.max(0, p.count - lastCount), Math.max(0, p.jumps - lastJumps));
+        if (lastCount >= 0) {
+          const deltas: Record<string, number> = {};
+          for (const [k, v] of Object.entries(p.counters)) deltas[k] = Math.max(0, v - (lastCounters[k] ?? 0));
+          this.o.onGrowth?.(run.model.kind, Math.max(0, p.count - lastCount), deltas);
+        }
         else if (reported < 0) reported = p.count;
         lastCount = p.count;
-        lastJumps = p.jumps;
+        lastCounters = p.counters;
       },
       onCheckpoint: (bytes) => {
         writes = writes.then(() => checkpoints.put(key, bytes)).catch((err) => this.o.log?.(`checkpoint of run ${run.runIndex} not stored: ${(err as Error).message}`));

@@ -15,14 +15,15 @@
 import { hostname } from 'node:os';
 import { growthTaskOf, type CheckpointData, type RunResultData, type RunTaskData } from '../../proto/convert.js';
 import { ENGINE_VERSION } from '../core/engine-version.js';
-import type { GrowthCheckpoint } from '../core/growth-kernel.js';
+import type { Counters, GrowthCheckpoint } from '../core/growth-kernel.js';
 import { checkTask, createKernel } from '../models/registry.js';
 
 export interface RunProgress {
   runIndex: number;
   count: number;
   particles: number;
-  jumps: number;
+  /** The kernel's counters so far (names from the model's descriptor). */
+  counters: Counters;
 }
 
 export interface RunOptions {
@@ -101,7 +102,7 @@ export async function runTask(run: RunTaskData, opts: RunOptions = {}): Promise<
     startedAtMs,
     resumes,
   });
-  const report = () => opts.onProgress?.({ runIndex: run.runIndex, count: kernel.count, particles: run.particles, jumps: kernel.counters.jumps });
+  const report = () => opts.onProgress?.({ runIndex: run.runIndex, count: kernel.count, particles: run.particles, counters: { ...kernel.counters } });
 
   report();
   while (!kernel.done) {

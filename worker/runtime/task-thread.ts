@@ -7,7 +7,7 @@
  * Messages (all payloads are protobuf bytes of proto/tendril.proto):
  *   main -> thread  { type: 'run', id, task, checkpoint? }   start a run
  *                   { type: 'stop', id }                      checkpoint and stop
- *   thread -> main  { type: 'progress', id, count, particles, jumps }
+ *   thread -> main  { type: 'progress', id, count, particles, counters }
  *                   { type: 'checkpoint', id, bytes, count }  store it (no reply needed)
  *                   { type: 'done', id, result, final? }      final: the end state when the task keeps positions
  *                   { type: 'stopped', id, checkpoint }
@@ -34,7 +34,7 @@ import { runTask, type RunProgress } from './task-runner.js';
 
 type ToThread = { type: 'run'; id: number; task: Uint8Array; checkpoint?: Uint8Array; workerId: string } | { type: 'stop'; id: number };
 type FromThread =
-  | { type: 'progress'; id: number; count: number; particles: number; jumps: number }
+  | { type: 'progress'; id: number; count: number; particles: number; counters: Record<string, number> }
   | { type: 'checkpoint'; id: number; bytes: Uint8Array; count: number }
   | { type: 'done'; id: number; result: Uint8Array; final?: Uint8Array }
   | { type: 'stopped'; id: number; checkpoint: Uint8Array }
@@ -63,7 +63,7 @@ function threadMain(): void {
             const t = Date.now();
             if (t - lastProgress < 250 && p.count < p.particles) return;
             lastProgress = t;
-            port.postMessage({ type: 'progress', id: m.id, count: p.count, particles: p.particles, jumps: p.jumps } satisfies FromThread);
+            port.postMessage({ type: 'progress', id: m.id, count: p.count, particles: p.particles, counters: p.counters } satisfies FromThread);
           },
           onCheckpoint: (c: CheckpointData) => {
             const bytes = encodeCheckpoint(c).slice();
@@ -155,7 +155,7 @@ export class TaskThreadPool {
           if (m.id !== id) return;
           switch (m.type) {
             case 'progress':
-              h.onProgress?.({ runIndex: task.runIndex, count: m.count, particles: m.particles, jumps: m.jumps });
+              h.onProgress?.({ runIndex: task.runIndex, count: m.count, particles: m.particles, counters: m.counters });
               break;
             case 'checkpoint':
               h.onCheckpoint?.(m.bytes, m.count);

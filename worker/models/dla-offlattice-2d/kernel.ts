@@ -12,7 +12,7 @@
  *
  * How it is simulated
  *  1. Launch: the walker starts uniformly on the circle of radius
- *     R_L = R_max + 1 + launchMargin, where R_max is the largest centre
+ *     R_L = R_max + 1 + launch_margin, where R_max is the largest centre
  *     distance from the origin. The first-hit distribution on any circle
  *     enclosing the cluster of a walker from infinity is uniform, so this is
  *     exact.
@@ -23,20 +23,20 @@
  *  3. Walk-on-spheres: the occupancy index (worker/index/occupancy-index-2d.ts)
  *     gives a lower bound d on the free distance (distance to the nearest
  *     centre, minus 1); the bound r − R_max − 1 from the walker's radius r is
- *     also used. When d >= minStep the walker jumps to a uniform point on the
+ *     also used. When d >= min_step the walker jumps to a uniform point on the
  *     circle of radius d around it: the exact exit law of Brownian motion
  *     from a disk it cannot leave without first crossing that circle.
- *  4. Final approach: when d < minStep (the walker's centre is within
- *     1 + minStep of some centre), the walker instead takes one straight step
- *     of length minStep in a uniform direction, and sticks at the exact first
+ *  4. Final approach: when d < min_step (the walker's centre is within
+ *     1 + min_step of some centre), the walker instead takes one straight step
+ *     of length min_step in a uniform direction, and sticks at the exact first
  *     point along that segment at which its centre is at distance 1 from a
  *     cluster centre, if there is one.
  *
- * The one numerical approximation: within distance minStep of contact the
- * Brownian path is replaced by straight steps of length minStep (step 4).
- * As minStep → 0 the process converges to the model above. The effect is
+ * The one numerical approximation: within distance min_step of contact the
+ * Brownian path is replaced by straight steps of length min_step (step 4).
+ * As min_step → 0 the process converges to the model above. The effect is
  * not small for coarse steps: measured at N = 1000 (300 clusters each, seed
- * 55, engine tendril-engine/2), mean R_g is 25.69 ± 0.06 for minStep = 1,
+ * 55, engine tendril-engine/2), mean R_g is 25.69 ± 0.06 for min_step = 1,
  * 27.68 ± 0.07 for 0.25, 28.45 ± 0.07 for 0.05 and 28.56 ± 0.07 for 0.01
  * — a straight final step
  * acts like a slightly larger capture radius. Hence the default 0.02, which
@@ -53,15 +53,7 @@
  * re-inserting the particles in arrival order.
  */
 
-import type {
-  GrowthCheckpoint,
-  GrowthCounters,
-  GrowthKernel,
-  GrowthResult,
-  GrowthSeries,
-  GrowthTask,
-  OffLatticeDla2dParams,
-} from '../../core/growth-kernel.js';
+import type { Counters, ClusterPositions, GrowthCheckpoint, GrowthKernel, GrowthResult, GrowthSeries, GrowthTask } from '../../core/growth-kernel.js';
 import { ENGINE_VERSION } from '../../core/engine-version.js';
 import { OccupancyIndex2d } from '../../index/occupancy-index-2d.js';
 import { returnToCircle, returned } from '../../walkers/poisson-return-2d.js';
@@ -70,38 +62,26 @@ import { countWithin, massRadiusRadii, recordSizes } from '../../core/record-siz
 import { StateHasher } from '../../core/state-hash.js';
 import { direction, sampleDirection } from '../../walkers/uniform-direction.js';
 import { contact, firstContact } from '../../walkers/segment-contact-2d.js';
-import { canonicalJson } from '../../core/canonical-json.js';
+import { checkCheckpointOf } from '../../core/checkpoint-check.js';
 
-export const DEFAULT_DLA_OFFLATTICE_2D: OffLatticeDla2dParams = {
-  kind: 'dla-offlattice-2d',
-  minStep: 0.02,
-  launchMargin: 2,
-};
-
-/** Throws a RangeError naming the first bad field of a task for this model. */
-export function checkDlaOffLattice2dTask(task: GrowthTask): void {
-  const m = task.model as OffLatticeDla2dParams;
-  if (!(m.minStep > 0 && m.minStep <= 1)) throw new RangeError(`model.minStep must be in (0, 1], got ${m.minStep}`);
-  if (!(m.launchMargin > 0 && m.launchMargin <= 1000)) throw new RangeError(`model.launchMargin must be in (0, 1000], got ${m.launchMargin}`);
-  checkCommonTask(task);
-}
-
-export function checkCommonTask(task: GrowthTask): void {
-  if (!Number.isSafeInteger(task.particles) || task.particles < 1 || task.particles > 1e8)
-    throw new RangeError(`particles must be an integer in [1, 100000000], got ${task.particles}`);
-  if (!Number.isSafeInteger(task.recordsPerDecade) || task.recordsPerDecade < 10 || task.recordsPerDecade > 100)
-    throw new RangeError(`recordsPerDecade must be an integer in [10, 100], got ${task.recordsPerDecade}`);
-  if (!Number.isSafeInteger(task.runIndex) || task.runIndex < 0)
-    throw new RangeError(`runIndex must be a non-negative integer, got ${task.runIndex}`);
+/** The counters of this model (names as declared by its descriptor). */
+export interface OffLatticeDla2dCounters extends Counters {
+  /** Walk-on-spheres jumps (each uniform exit from a free disk). */
+  jumps: number;
+  /** Short straight steps taken next to the cluster. */
+  short_steps: number;
+  /** Returns of far walkers to the launch circle by the exact Poisson kernel. */
+  returns: number;
 }
 
 export class OffLatticeDla2d implements GrowthKernel {
   readonly task: GrowthTask;
-  readonly counters: GrowthCounters;
+  readonly dimension = 2;
+  readonly counters: OffLatticeDla2dCounters;
   private readonly minStep: number;
   private readonly launchMargin: number;
-  private readonly x: Float64Array;
-  private readonly y: Float64Array;
+  /** Centres in arrival order, interleaved: x0, y0, x1, y1, … */
+  private readonly xy: Float64Array;
   private readonly index: OccupancyIndex2d;
   private readonly rng: Random;
   private readonly sizes: number[];
@@ -113,27 +93,28 @@ export class OffLatticeDla2d implements GrowthKernel {
   private sumR2 = 0;
   private nextRecord = 0;
 
+  /** The task must have passed the registry's checks (worker/models/registry.ts checkTask). */
   constructor(task: GrowthTask, checkpoint?: GrowthCheckpoint) {
-    checkDlaOffLattice2dTask(task);
     this.task = structuredClone(task);
-    const m = task.model as OffLatticeDla2dParams;
-    this.minStep = m.minStep;
-    this.launchMargin = m.launchMargin;
-    this.x = new Float64Array(task.particles);
-    this.y = new Float64Array(task.particles);
+    this.minStep = task.model.params.min_step;
+    this.launchMargin = task.model.params.launch_margin;
+    this.xy = new Float64Array(2 * task.particles);
     this.index = new OccupancyIndex2d(task.particles, false);
     this.sizes = recordSizes(task.particles, task.recordsPerDecade);
     if (checkpoint === undefined) {
       this.rng = Random.forRun(task.ensembleSeed, task.runIndex, STREAM_GROWTH);
-      this.counters = { jumps: 0, shortSteps: 0, returns: 0 };
-      this.series = { sizes: [], radiusOfGyration: [], maxRadius: [], centerOffset: [] };
+      this.counters = { jumps: 0, short_steps: 0, returns: 0 };
+      this.series = { sizes: [], radiusOfGyration: [], maxRadius: [], centerOffset: [], extra: {} };
       this.place(0, 0);
     } else {
-      checkCheckpointMatches(task, checkpoint);
+      checkCheckpointOf(task, 2, checkpoint);
+      if (checkpoint.modelState.length !== 0) throw new RangeError(`checkpoint modelState must be empty for ${task.model.kind}, got ${checkpoint.modelState.length} bytes`);
       this.rng = Random.fromState(checkpoint.rngState);
-      this.counters = { ...checkpoint.counters };
+      const c = checkpoint.counters;
+      this.counters = { jumps: c.jumps ?? 0, short_steps: c.short_steps ?? 0, returns: c.returns ?? 0 };
       this.series = structuredClone(checkpoint.series);
-      for (let i = 0; i < checkpoint.count; i++) this.append(checkpoint.x[i], checkpoint.y[i]);
+      const p = checkpoint.positions;
+      for (let i = 0; i < checkpoint.count; i++) this.append(p[2 * i], p[2 * i + 1]);
       while (this.nextRecord < this.sizes.length && this.sizes[this.nextRecord] <= this.n) this.nextRecord++;
     }
   }
@@ -151,8 +132,8 @@ export class OffLatticeDla2d implements GrowthKernel {
     while (this.n < goal) this.addParticle();
   }
 
-  positions(): { x: Float64Array; y: Float64Array; count: number } {
-    return { x: this.x, y: this.y, count: this.n };
+  positions(): ClusterPositions {
+    return { dimension: 2, count: this.n, coords: this.xy };
   }
 
   /** Bytes held by the occupancy index (for benchmarks). */
@@ -164,23 +145,26 @@ export class OffLatticeDla2d implements GrowthKernel {
     return {
       engineVersion: ENGINE_VERSION,
       task: structuredClone(this.task),
+      dimension: 2,
       count: this.n,
-      x: this.x.slice(0, this.n),
-      y: this.y.slice(0, this.n),
+      positions: this.xy.slice(0, 2 * this.n),
       rngState: this.rng.state(),
       counters: { ...this.counters },
       series: structuredClone(this.series),
+      modelState: new Uint8Array(0),
     };
   }
 
   result(): GrowthResult {
     if (!this.done) throw new Error(`run ${this.task.runIndex} is not finished (${this.n} of ${this.task.particles} particles)`);
     const dist = new Float64Array(this.n);
-    for (let i = 0; i < this.n; i++) dist[i] = Math.sqrt(this.x[i] * this.x[i] + this.y[i] * this.y[i]);
+    const xy = this.xy;
+    for (let i = 0; i < this.n; i++) dist[i] = Math.sqrt(xy[2 * i] * xy[2 * i] + xy[2 * i + 1] * xy[2 * i + 1]);
     const radii = massRadiusRadii(this.rMax, this.task.recordsPerDecade);
     return {
       engineVersion: ENGINE_VERSION,
       model: structuredClone(this.task.model),
+      dimension: 2,
       particles: this.task.particles,
       ensembleSeed: this.task.ensembleSeed,
       runIndex: this.task.runIndex,
@@ -194,9 +178,9 @@ export class OffLatticeDla2d implements GrowthKernel {
   /** Digest of positions, generator state, count and counters. */
   stateHash(): string {
     const h = new StateHasher();
-    h.word(2).integer(this.n).float64Array(this.x, this.n).float64Array(this.y, this.n);
+    h.word(2).integer(this.n).float64Strided(this.xy, this.n, 2, 0).float64Strided(this.xy, this.n, 2, 1);
     for (const w of this.rng.state()) h.word(w);
-    h.integer(this.counters.jumps).integer(this.counters.shortSteps).integer(this.counters.returns);
+    h.integer(this.counters.jumps).integer(this.counters.short_steps).integer(this.counters.returns);
     return h.digest();
   }
 
@@ -259,7 +243,7 @@ export class OffLatticeDla2d implements GrowthKernel {
     }
 
     this.counters.jumps += jumps;
-    this.counters.shortSteps += shortSteps;
+    this.counters.short_steps += shortSteps;
     this.counters.returns += returns;
     this.place(wx, wy);
   }
@@ -283,8 +267,8 @@ export class OffLatticeDla2d implements GrowthKernel {
   /** Add a particle to positions, index and running sums (no record). */
   private append(px: number, py: number): void {
     const i = this.n;
-    this.x[i] = px;
-    this.y[i] = py;
+    this.xy[2 * i] = px;
+    this.xy[2 * i + 1] = py;
     this.index.insert(px, py);
     this.n = i + 1;
     const r2 = px * px + py * py;
@@ -294,16 +278,4 @@ export class OffLatticeDla2d implements GrowthKernel {
     this.sumY += py;
     this.sumR2 += r2;
   }
-}
-
-function checkCheckpointMatches(task: GrowthTask, cp: GrowthCheckpoint): void {
-  if (cp.engineVersion !== ENGINE_VERSION)
-    throw new RangeError(`checkpoint engineVersion must be ${ENGINE_VERSION}, got ${cp.engineVersion}`);
-  if (canonicalJson(cp.task) !== canonicalJson(task))
-    throw new RangeError(`checkpoint task does not match the run task (run ${task.runIndex})`);
-  if (!Number.isSafeInteger(cp.count) || cp.count < 1 || cp.count > task.particles)
-    throw new RangeError(`checkpoint count must be an integer in [1, ${task.particles}], got ${cp.count}`);
-  if (cp.x.length < cp.count || cp.y.length < cp.count)
-    throw new RangeError(`checkpoint holds ${Math.min(cp.x.length, cp.y.length)} positions, fewer than its count ${cp.count}`);
-  if (cp.rngState.length !== 4) throw new RangeError(`checkpoint rngState must have 4 words, got ${cp.rngState.length}`);
 }

@@ -1,0 +1,98 @@
+/**
+ * What a growth model is, in one object: its exact definition, parameters,
+ * counters, observables, the probes and pictures that apply, the published
+ * values shown beside its estimates, and how to build its kernel. Every model
+ * lives in worker/models/<kind>/ (kernel + descriptor) and is one line of the
+ * registry (worker/models/registry.ts); the spec schema, the wire contract,
+ * the CLI (`tendril grow --model`, `tendril models`), the metrics and the
+ * summary are built from descriptors, so nothing outside a model's folder
+ * names its kind.
+ */
+import type { GrowthCheckpoint, GrowthKernel, GrowthTask } from './growth-kernel.js';
+import type { ValueRange } from './value-range.js';
+
+/** One numeric model parameter. */
+export interface ParamSpec extends ValueRange {
+  /** snake_case, as in specs (`params.NAME`), on the wire and in `--param NAME=VALUE`. */
+  name: string;
+  /** Unit of the value, e.g. "particle diameters", "lattice spacings", "" for a pure number. */
+  unit: string;
+  default: number;
+  /** One line: what the parameter does. */
+  meaning: string;
+}
+
+/** A counter or observable a model reports: snake_case name and one line of meaning. */
+export interface NamedQuantity {
+  name: string;
+  meaning: string;
+}
+
+/** A published value shown beside an estimate (never used as a fit input). */
+export interface PublishedValue {
+  value: number;
+  /** One-sigma uncertainty as published. */
+  uncertainty: number;
+  source: string;
+}
+
+/** A rigorous bound on the fractal dimension besides D <= embedding dimension. */
+export interface DimensionBound {
+  /** 'lower' means D >= value, 'upper' means D <= value. */
+  side: 'lower' | 'upper';
+  value: number;
+  rule: string;
+  source: string;
+}
+
+/** A value shown for context only (e.g. a mean-field prediction): never a check. */
+export interface ContextValue {
+  label: string;
+  value: number;
+  source: string;
+}
+
+export interface ModelReference {
+  /** Published fractal dimension, if any. */
+  dimension: PublishedValue | null;
+  bounds: DimensionBound[];
+  context: ContextValue[];
+}
+
+/** Probe kernels: how a cluster of this model is probed for its harmonic measure (null: not probed). */
+export type ProbeKind = 'disks-2d';
+/** How a cluster of this model is drawn. */
+export type PictureKind = 'disks-2d';
+
+export interface ModelDescriptor {
+  /** The model's name in specs, on the CLI and on the wire, e.g. "dla-offlattice-2d". */
+  kind: string;
+  /** Spatial dimension of the clusters. */
+  dimension: 2 | 3;
+  /** The lattice, or null off-lattice. */
+  lattice: 'square' | 'triangular' | 'cubic' | null;
+  /** One-line definition of the process (the exact one is in the kernel's file header). */
+  definition: string;
+  /** Where the exact definition is (a repository path). */
+  definitionFile: string;
+  params: readonly ParamSpec[];
+  /** Counters in the results, the runs table and the metrics. */
+  counters: readonly NamedQuantity[];
+  /** The counter that measures walker work (progress lines, metrics), or null when the model has no walkers. */
+  workCounter: string | null;
+  /** Model-specific observables recorded in GrowthSeries.extra (besides R_g, R_max and the centre offset). */
+  observables: readonly NamedQuantity[];
+  /** Harmonic-measure probing that applies, or null. */
+  probe: ProbeKind | null;
+  picture: PictureKind;
+  /** Distance between the centres of two touching particles (the particle diameter or lattice spacing). */
+  contactDistance: number;
+  reference: ModelReference;
+  /**
+   * Checks across parameters or against the task (size-dependent limits)
+   * after every parameter is inside its own range; throws a RangeError whose
+   * message is one line naming `params.NAME`.
+   */
+  check?(task: GrowthTask): void;
+  create(task: GrowthTask, checkpoint?: GrowthCheckpoint): GrowthKernel;
+}

@@ -1,0 +1,64 @@
+/**
+ * Off-lattice DLA in the plane: the descriptor (kernel.ts states the exact
+ * definition and how it is simulated).
+ */
+import type { ModelDescriptor } from '../../core/model-descriptor.js';
+import { OffLatticeDla2d } from './kernel.js';
+
+export const dlaOffLattice2d: ModelDescriptor = {
+  kind: 'dla-offlattice-2d',
+  dimension: 2,
+  lattice: null,
+  definition:
+    'disks of diameter 1; each new disk\'s centre performs planar Brownian motion from infinity and sticks where its disk first touches the cluster',
+  definitionFile: 'worker/models/dla-offlattice-2d/kernel.ts',
+  params: [
+    {
+      name: 'min_step',
+      unit: 'particle diameters',
+      default: 0.02,
+      min: 0,
+      minOpen: true,
+      max: 1,
+      meaning: 'length of the straight final steps within this distance of contact (the one approximation; smaller is more exact)',
+    },
+    {
+      name: 'launch_margin',
+      unit: 'particle diameters',
+      default: 2,
+      min: 0,
+      minOpen: true,
+      max: 1000,
+      meaning: 'launch circle radius minus (maximum radius + 1); any value is exact, it only changes speed',
+    },
+  ],
+  counters: [
+    { name: 'jumps', meaning: 'walk-on-spheres jumps (uniform exits from free disks)' },
+    { name: 'short_steps', meaning: 'straight final steps next to the cluster' },
+    { name: 'returns', meaning: 'returns of far walkers to the launch circle by the exact Poisson kernel' },
+  ],
+  workCounter: 'jumps',
+  observables: [],
+  probe: 'disks-2d',
+  picture: 'disks-2d',
+  contactDistance: 1,
+  reference: {
+    dimension: {
+      value: 1.71,
+      uncertainty: 0.0002,
+      source: 'Menshutin, Shchur & Vinokur 2008, Physica A 387, 6299 (1000 clusters of 5e7 particles)',
+    },
+    bounds: [
+      {
+        side: 'lower',
+        value: 1.5,
+        rule: "Kesten's bound: radius after n particles at most C n^(2/3), so D >= 3/2",
+        source: 'Kesten 1987, Stoch. Proc. Appl. 25, 165',
+      },
+    ],
+    context: [
+      { label: 'mean-field value (d² + 1)/(d + 1)', value: 5 / 3, source: 'Muthukumar 1983, Phys. Rev. Lett. 50, 839 (citation from memory)' },
+    ],
+  },
+  create: (task, checkpoint) => new OffLatticeDla2d(task, checkpoint),
+};
