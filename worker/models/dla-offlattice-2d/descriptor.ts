@@ -4,6 +4,7 @@
  */
 import type { ModelDescriptor } from '../../core/model-descriptor.js';
 import { OffLatticeDla2d } from './kernel.js';
+import { PLANAR_ANISOTROPY_OBSERVABLES } from '../../core/anisotropy.js';
 
 export const dlaOffLattice2d: ModelDescriptor = {
   kind: 'dla-offlattice-2d',
@@ -38,7 +39,7 @@ export const dlaOffLattice2d: ModelDescriptor = {
     { name: 'returns', meaning: 'returns of far walkers to the launch circle by the exact Poisson kernel' },
   ],
   workCounter: 'jumps',
-  observables: [],
+  observables: PLANAR_ANISOTROPY_OBSERVABLES,
   probe: 'disks-2d',
   picture: 'disks-2d',
   contactDistance: 1,

@@ -46,6 +46,10 @@
  * return, walk-on-spheres jumps) samples the Brownian path exactly, up to
  * floating-point rounding.
  *
+ * Observables at each record size: R_g, R_max, the centre-of-mass offset,
+ * and the planar anisotropy measures of worker/core/anisotropy.ts (the
+ * isotropic baseline for lattice models).
+ *
  * Determinism: the result is a function of the task only. The random stream
  * is Random.forRun(ensembleSeed, runIndex, STREAM_GROWTH); per particle it is
  * consumed in a fixed order. Checkpoints are taken between particles and hold
@@ -63,6 +67,7 @@ import { StateHasher } from '../../core/state-hash.js';
 import { direction, sampleDirection } from '../../walkers/uniform-direction.js';
 import { contact, firstContact } from '../../walkers/segment-contact-2d.js';
 import { checkCheckpointOf } from '../../core/checkpoint-check.js';
+import { recordPlanarAnisotropy } from '../../core/anisotropy.js';
 
 /** The counters of this model (names as declared by its descriptor). */
 export interface OffLatticeDla2dCounters extends Counters {
@@ -260,6 +265,7 @@ export class OffLatticeDla2d implements GrowthKernel {
       this.series.radiusOfGyration.push(Math.sqrt(rg2 > 0 ? rg2 : 0));
       this.series.maxRadius.push(this.rMax);
       this.series.centerOffset.push(Math.sqrt(mx * mx + my * my));
+      recordPlanarAnisotropy(this.series.extra, this.xy, 2, n, this.rMax);
       this.nextRecord++;
     }
   }
