@@ -46,7 +46,7 @@ beforeAll(async () => {
   const spec = validateSpec({ name: 'dla-estimators', model: 'dla-offlattice-2d', particles: PARTICLES, clusters: CLUSTERS, seed: 1710, records_per_decade: 20 }, { maxTotalParticles: 1e8 });
   const o = await runEmbedded(spec, { ensembleId: 'dla-estimators', threads: 2 });
   a = analysisOf(o.summary)!;
-}, 600_000);
+});
 
 const iv = (e: { interval: { bca: [number, number] | null; percentile: [number, number] | null } }) => e.interval.bca ?? e.interval.percentile!;
 

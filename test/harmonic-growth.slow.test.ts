@@ -70,7 +70,7 @@ beforeAll(async () => {
     massDimension: { estimator: 'radiusOfGyration (N 500..4000)', value: mass.value, interval: mass.interval },
     seed: '2718', resamples: 2000,
   });
-}, 300_000);
+});
 
 describe('harmonic measures of growing off-lattice DLA clusters', () => {
   it('every cluster is probed at every size; tau(1) = 0 (normalisation); tau(q) converged in the two probe halves', () => {

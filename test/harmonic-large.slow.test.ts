@@ -40,7 +40,7 @@ beforeAll(async () => {
   a = analysisOf(o.summary)!;
   h = harmonicOfSummary(o.summary)!;
   top = h.bySize[h.bySize.length - 1];
-}, 900_000);
+});
 
 const ends = (iv: { bca: [number, number] | null; percentile: [number, number] | null } | null | undefined) => (iv ? iv.bca ?? iv.percentile : null);
 
