@@ -27,6 +27,7 @@ import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
 import { harmonicSection } from '../harmonic/harmonic-section.js';
 import type { HarmonicSection } from '../harmonic/harmonic-section-types.js';
 import { probeSizesOf } from '../spec/index.js';
+import { observableSection } from '../stats/observable-bands.js';
 
 export { analysisOptionsOf, judgeBatch, newAdaptiveHistory, safeAnalysis, type AdaptiveBatch, type AdaptiveHistory, type AdaptiveOutcome } from './adaptive.js';
 
@@ -141,6 +142,10 @@ export function buildSummary(input: SummaryInput, opts: SummaryOptions = default
       )
     : null;
   let statistics = opts.enrich ? opts.enrich(runs, input.spec) : undefined;
+  const observables = runs.length > 0 ? observableSection(runs, { seed: input.spec.seed, resamples: input.spec.analysis.resamples ?? 2000, level: input.spec.analysis.level ?? 0.95 }) : null;
+  if (observables !== null) {
+    statistics = typeof statistics === 'object' && statistics !== null ? { ...statistics, observables } : { observables };
+  }
   if (input.spec.probe) {
     const section = harmonicOf(input, runs, statistics);
     statistics = typeof statistics === 'object' && statistics !== null ? { ...statistics, harmonic: section } : { harmonic: section };
