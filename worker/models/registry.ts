@@ -13,12 +13,14 @@ import { dlaOffLattice2d } from './dla-offlattice-2d/descriptor.js';
 import { edenSquare } from './eden-square/descriptor.js';
 import { edenTriangular } from './eden-triangular/descriptor.js';
 import { edenOffLattice2d } from './eden-offlattice-2d/descriptor.js';
+import { dlaSquare } from './dla-square/descriptor.js';
 
 export const MODELS: readonly ModelDescriptor[] = [
   dlaOffLattice2d,
   edenSquare,
   edenTriangular,
   edenOffLattice2d,
+  dlaSquare,
 ];
 
 export const MODEL_KINDS: readonly string[] = MODELS.map((m) => m.kind);
