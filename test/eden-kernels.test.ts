@@ -4,6 +4,7 @@ import type { GrowthCheckpoint, GrowthKernel, GrowthTask } from '../worker/core/
 import { EdenLatticeKernel } from '../worker/models/eden-lattice/eden-lattice-kernel.js';
 import { OffLatticeEden2d } from '../worker/models/eden-offlattice-2d/kernel.js';
 import { SQUARE, TRIANGULAR, siteOf, toSite, type PlanarLattice } from '../worker/lattice/planar-lattice.js';
+import { anisotropy, anisotropyOf, recordPlanarAnisotropy } from '../worker/core/anisotropy.js';
 
 const EDEN_KINDS = ['eden-square', 'eden-triangular', 'eden-offlattice-2d'] as const;
 
@@ -242,4 +243,23 @@ describe('Eden: mass–radius dimension D = 2 (exact: compact clusters)', () => 
       expect(Math.abs(mean - 2)).toBeLessThan(3 * se + 0.02);
     });
   }
+});
+
+describe('planar anisotropy records: the one-pass recorder equals two anisotropyOf calls bit for bit', () => {
+  it('on Eden, off-lattice Eden and off-lattice DLA clusters of several sizes', () => {
+    for (const kind of ['eden-square', 'eden-offlattice-2d', 'dla-offlattice-2d']) {
+      for (const n of [5, 60, 2500]) {
+        const k = grown({ model: modelParams(kind), particles: n, ensembleSeed: '3', runIndex: 1, recordsPerDecade: 10 });
+        const p = k.positions();
+        const rMax = k.result().series.maxRadius.at(-1)!;
+        const extra: Record<string, number[]> = {};
+        recordPlanarAnisotropy(extra, p.coords, 2, n, rMax);
+        for (const f of [4, 6]) {
+          anisotropyOf(p.coords, 2, n, f, rMax);
+          expect(extra[`fold_amplitude_${f}`][0]).toBe(anisotropy.amplitude);
+          expect(extra[`axis_ratio_${f}`][0]).toBe(anisotropy.axisRatio);
+        }
+      }
+    }
+  });
 });
