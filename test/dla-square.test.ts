@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { createKernel, modelParams } from '../worker/models/registry.js';
 import type { GrowthCheckpoint, GrowthKernel, GrowthTask } from '../worker/core/growth-kernel.js';
 import { Random } from '../worker/core/random.js';
+import { yieldToRunner } from './support/grow.js';
 import { ENGINE_VERSION } from '../worker/core/engine-version.js';
 import { exit, sampleExit, sideExitLaw } from '../worker/lattice/square-exit-tables.js';
 import { harmonicMeasureFromInfinity, potentialKernel } from './support/lattice-potential.js';
@@ -120,12 +121,13 @@ describe('dla-square: growth probabilities on a small fixed cluster equal the di
   const exact = harmonicMeasureFromInfinity(perimeter);
 
   for (const margin of [2, 8]) {
-    it(`launch margin ${margin}: hit frequencies of the ${perimeter.length} perimeter sites agree with H_P`, () => {
+    it(`launch margin ${margin}: hit frequencies of the ${perimeter.length} perimeter sites agree with H_P`, async () => {
       const trials = 40_000;
       const counts = new Array(perimeter.length).fill(0);
       const index = new Map(perimeter.map(([x, y], i) => [`${x},${y}`, i]));
       const task = squareTask(5, 0, '3', { launch_margin: margin });
       for (let t = 0; t < trials; t++) {
+        if (t % 2000 === 0) await yieldToRunner();
         const cp: GrowthCheckpoint = {
           engineVersion: ENGINE_VERSION,
           task,

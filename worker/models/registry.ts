@@ -14,6 +14,7 @@ import { edenSquare } from './eden-square/descriptor.js';
 import { edenTriangular } from './eden-triangular/descriptor.js';
 import { edenOffLattice2d } from './eden-offlattice-2d/descriptor.js';
 import { dlaSquare } from './dla-square/descriptor.js';
+import { dlaTriangular } from './dla-triangular/descriptor.js';
 
 export const MODELS: readonly ModelDescriptor[] = [
   dlaOffLattice2d,
@@ -21,6 +22,7 @@ export const MODELS: readonly ModelDescriptor[] = [
   edenTriangular,
   edenOffLattice2d,
   dlaSquare,
+  dlaTriangular,
 ];
 
 export const MODEL_KINDS: readonly string[] = MODELS.map((m) => m.kind);
