@@ -13,6 +13,7 @@ const SPECS = [
   { model: 'eden-triangular', particles: 6000 },
   { model: 'eden-offlattice-2d', particles: 1500 },
   { model: 'dla-square', particles: 1500, params: { noise_reduction: 2 } },
+  { model: 'dla-triangular', particles: 1500, params: { noise_reduction: 2 } },
 ];
 
 describe('lattice and Eden models: task runner and embedded mode', () => {

@@ -6,8 +6,9 @@
  *
  *   eden     eden-square and eden-triangular at 10^6 and 10^7 (target:
  *            2·10^6 particles/s at 10^7), eden-offlattice-2d at 10^5 and 10^6
- *   lattice  dla-square (m = 1) at 10^5 and 10^6: particles/s, moves
- *            (exact jumps + single steps) per particle, peak RSS
+ *   lattice  dla-square (m = 1) at 10^5 and 10^6, dla-triangular at 10^5:
+ *            particles/s, moves (exact jumps + single steps) per particle,
+ *            peak RSS
  *
  * `--sizes a,b` replaces the sizes of every model of the part. Prints one
  * line for people and one JSON line per cluster.
@@ -44,7 +45,10 @@ export const LATTICE_BENCH_PLAN: Record<'eden' | 'lattice', { model: string; par
     { model: 'eden-triangular', params: {}, sizes: [1_000_000, 10_000_000] },
     { model: 'eden-offlattice-2d', params: {}, sizes: [100_000, 1_000_000] },
   ],
-  lattice: [{ model: 'dla-square', params: {}, sizes: [100_000, 1_000_000] }],
+  lattice: [
+    { model: 'dla-square', params: {}, sizes: [100_000, 1_000_000] },
+    { model: 'dla-triangular', params: {}, sizes: [100_000] },
+  ],
 };
 
 function childMain(model: string, particles: number, paramsJson: string): void {

@@ -17,8 +17,8 @@
  *              (REDIS_URL) against the embedded mode on two threads
  *   eden       test/bench/lattice-bench.ts: Eden models (square and triangular at
  *              10^6 and 10^7, off-lattice at 10^5 and 10^6): particles/s, peak RSS
- *   lattice    test/bench/lattice-bench.ts: square-lattice DLA at 10^5 and 10^6:
- *              particles/s, moves per particle, peak RSS
+ *   lattice    test/bench/lattice-bench.ts: square-lattice DLA at 10^5 and 10^6,
+ *              triangular at 10^5: particles/s, moves per particle, peak RSS
  */
 import { runGrowthBenchmark, sizesFromArgs } from './growth-bench.js';
 import { runAggregateBenchmark } from './aggregate-bench.js';
