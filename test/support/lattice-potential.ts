@@ -54,14 +54,36 @@ export function potentialKernel(x1: number, x2: number): number {
   return (2 / Math.PI) * (Math.PI / 2) * s;
 }
 
+/**
+ * The potential kernel of the triangular lattice in axial coordinates
+ * (neighbours (±1, 0), (0, ±1), (1, −1), (−1, 1)): with
+ * φ(θ) = (cos θ1 + cos θ2 + cos(θ1 − θ2))/3, for fixed θ2 one has
+ * 1 − φ = (ρ/3)(c − cos(θ1 − θ2/2)), ρ = √(2 + 2 cos θ2), c = (3 − cos θ2)/ρ,
+ * so integrating θ1 in closed form (our derivation, as for the square lattice):
+ *   a(x1, x2) = (1/π) ∫_0^π (3/ρ) (1 − cos((x1/2 + x2) θ) e^{−|x1| t}) / sinh t dθ,  cosh t = c.
+ * Δa = δ_0 gives a = 1 at the six neighbours (checked in the tests).
+ */
+export function triangularPotentialKernel(x1: number, x2: number): number {
+  if (x1 === 0 && x2 === 0) return 0;
+  const ax = Math.abs(x1);
+  let s = 0;
+  for (let i = 0; i < GL.x.length; i++) {
+    const th = (Math.PI / 2) * (GL.x[i] + 1);
+    const rho = Math.sqrt(2 + 2 * Math.cos(th));
+    const t = Math.acosh((3 - Math.cos(th)) / rho);
+    s += GL.w[i] * ((3 / rho) * (1 - Math.cos((x1 / 2 + x2) * th) * Math.exp(-ax * t)) / Math.sinh(t));
+  }
+  return (1 / Math.PI) * (Math.PI / 2) * s;
+}
+
 /** Harmonic measure from infinity of the sites of A (given as [x, y] pairs), by solving the equilibrium equations. */
-export function harmonicMeasureFromInfinity(a: [number, number][]): number[] {
+export function harmonicMeasureFromInfinity(a: [number, number][], kernel: (x1: number, x2: number) => number = potentialKernel): number[] {
   const n = a.length;
   // unknowns H_0 … H_{n−1}, C: Σ_z a(x − z) H_z − C = 0 for x ∈ A; Σ H_z = 1
   const m: number[][] = [];
   for (let i = 0; i < n; i++) {
     const row: number[] = [];
-    for (let j = 0; j < n; j++) row.push(potentialKernel(a[i][0] - a[j][0], a[i][1] - a[j][1]));
+    for (let j = 0; j < n; j++) row.push(kernel(a[i][0] - a[j][0], a[i][1] - a[j][1]));
     row.push(-1, 0);
     m.push(row);
   }

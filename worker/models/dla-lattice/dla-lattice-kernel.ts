@@ -33,7 +33,8 @@
  *     on a small fixed square-lattice cluster with its exact discrete
  *     harmonic measure (chi-square at significance 0.001: no detectable
  *     difference with 4·10^4 walkers at margin 2, the smallest allowed, nor
- *     at the default 8).
+ *     at the default 8); test/dla-triangular.test.ts does the same on a
+ *     fixed triangular-lattice domino (3·10^4 walkers, default margin).
  *  2. Return (approximation B, same kind): a walker farther than
  *     R_far = 2 R_L + 64 from the seed is moved to the site nearest (by
  *     rounding) to the point where a planar Brownian motion from its
