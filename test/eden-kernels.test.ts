@@ -137,8 +137,8 @@ describe('Eden: the growth site is uniform over the perimeter sites (exact small
   });
 });
 
-describe('off-lattice Eden: geometry and retired particles', () => {
-  it('no overlaps, each disk touches an earlier one, and every retired disk has no free contact place', () => {
+describe('off-lattice Eden: geometry and free arcs', () => {
+  it('no overlaps, each disk touches an earlier one, and every free arc length matches a fine angular probe', () => {
     const k = grown(edenTask('eden-offlattice-2d', 1500, 2)) as OffLatticeEden2d;
     const c = k.positions().coords;
     const n = k.count;
@@ -154,21 +154,25 @@ describe('off-lattice Eden: geometry and retired particles', () => {
       expect(touches).toBe(true);
     }
     expect(worst).toBeLessThan(1e-9);
-    // active = not retired; every retired disk: 3600 probe angles all blocked (an overlap of > 1e-6 with some disk)
-    const activeSet = new Set<number>(Array.from((k as unknown as { active: Int32Array }).active.subarray(0, k.activeParticles)));
-    expect(k.activeParticles).toBeLessThan(n);
+    // free arc of each disk: the share of 3600 probe angles whose disk overlaps no other, times 2π;
+    // a probe grid of step δ = 2π/3600 misjudges at most one probe per gap end: |error| <= 2δ · (gaps)
+    // <= 2δ · 6 (at most 6 gaps: each gap lies between blocked arcs of touching-distance neighbours)
+    let blocked = 0;
     for (let i = 0; i < n; i++) {
-      if (activeSet.has(i)) continue;
       const near: number[] = [];
       for (let j = 0; j < n; j++) if (j !== i && Math.hypot(c[2 * i] - c[2 * j], c[2 * i + 1] - c[2 * j + 1]) < 2) near.push(j);
+      let free = 0;
       for (let a = 0; a < 3600; a++) {
-        const px = c[2 * i] + Math.cos((a * Math.PI) / 1800);
-        const py = c[2 * i + 1] + Math.sin((a * Math.PI) / 1800);
-        let blocked = false;
-        for (const j of near) if (Math.hypot(px - c[2 * j], py - c[2 * j + 1]) < 1 - 1e-6) blocked = true;
-        if (!blocked) throw new Error(`retired disk ${i} has a free contact place at angle ${a / 10}°`);
+        const px = c[2 * i] + Math.cos(((a + 0.5) * Math.PI) / 1800);
+        const py = c[2 * i + 1] + Math.sin(((a + 0.5) * Math.PI) / 1800);
+        if (near.every((j) => Math.hypot(px - c[2 * j], py - c[2 * j + 1]) >= 1)) free++;
       }
+      const probed = (free / 3600) * 2 * Math.PI;
+      expect(Math.abs(probed - k.freeArcOf(i))).toBeLessThan(12 * ((2 * Math.PI) / 3600));
+      if (k.freeArcOf(i) === 0) blocked++;
     }
+    // the interior is closed: most disks have no free place left
+    expect(blocked).toBeGreaterThan(n / 3);
   });
 });
 

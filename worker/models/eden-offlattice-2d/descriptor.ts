@@ -11,7 +11,7 @@ export const edenOffLattice2d: ModelDescriptor = {
     'disks of diameter 1; each new disk touches the cluster at a place drawn uniformly (in arc length) from the free parts of the unit circles around the centres, overlapping no disk',
   definitionFile: 'worker/models/eden-offlattice-2d/kernel.ts',
   params: [],
-  counters: [{ name: 'rejections', meaning: 'proposed contact places rejected because the new disk would overlap one' }],
+  counters: [{ name: 'redraws', meaning: 'contact places drawn again because rounding at an arc end made the new disk overlap one (a null set; normally 0 or a few)' }],
   workCounter: null,
   observables: EDEN_OBSERVABLES,
   probe: null,

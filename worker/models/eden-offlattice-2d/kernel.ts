@@ -14,29 +14,25 @@
  *    measure zero), and the new disk is centred at c_i + (cos θ, sin θ).
  *
  * How it is simulated (exactly; no approximation beyond floating point)
- *  - Rejection: draw i uniformly, then θ uniformly (one 32-bit draw,
- *    worker/walkers/uniform-direction.ts), accept if no centre other than
- *    c_i is at distance < 1 from the candidate, else draw again. Accepted
- *    pairs are uniform on F in the measure above (uniform proposals on
- *    {1…n} × [0, 2π), conditioned on F).
- *  - i is drawn among the ACTIVE particles only: those not proven fully
- *    blocked. A particle is retired when the open arcs blocked by its
- *    neighbours (centre c_j at distance d < 2 blocks the angles within
- *    arccos(d/2) of the direction to c_j) cover its whole circle, each
- *    junction overlapping by more than 1e-9 rad. A retired particle has an
- *    empty free arc, so it would always be rejected: proposing only among a
- *    superset of the particles with a free arc gives the same accepted law.
- *    (An unproven particle merely stays active.) After each placement the
- *    new particle and the active particles within distance 2 of it are
- *    checked.
- *  - Neighbours come from unit cells (cell (floor x, floor y), sparse tiles,
- *    worker/index/tiled-grids.ts) holding lists of centres in arrival order.
- *
- * Determinism and checkpoints: per attempt one nextBelow(active count) and
- * one direction draw from Random.forRun(ensembleSeed, runIndex,
- * STREAM_GROWTH). The active list is a function of the arrival order, so a
- * checkpoint holds only positions (and generator, counters, records);
- * resuming replays the arrivals.
+ *  - Every particle k carries the length ℓ_k of its free arc: 2π minus the
+ *    length of the union of the open arcs its neighbours block (a centre
+ *    c_j at distance d < 2 blocks the angles within arccos(d/2) of the
+ *    direction to c_j); ℓ_k = 0 for a fully blocked particle. After each
+ *    placement ℓ is recomputed for the new particle and every particle
+ *    within distance 2 of it (no other changes).
+ *  - A pair (i, θ) is drawn by choosing i with probability ℓ_i / Σ ℓ (a
+ *    Fenwick tree of the ℓ_k, one 53-bit uniform) and then θ uniformly on
+ *    i's free arcs (a second 53-bit uniform, mapped through the sorted free
+ *    gaps): exactly the uniform law on F in the measure above.
+ *  - The candidate is still checked against every centre within distance 1
+ *    (unit cells, sparse tiles, worker/index/tiled-grids.ts); a candidate
+ *    that fails only through rounding at an arc end (a null set) is drawn
+ *    again and counted in `redraws`.
+ * Determinism and checkpoints: per attempt two nextDouble draws from
+ * Random.forRun(ensembleSeed, runIndex, STREAM_GROWTH). The free arcs and
+ * the Fenwick tree are functions of the arrival order, so a checkpoint holds
+ * only positions (and generator, counters, records); resuming replays the
+ * arrivals with the same updates in the same order.
  *
  * Observables at each record size: R_g, R_max, the centre offset, the planar
  * anisotropy measures (worker/core/anisotropy.ts; this model is isotropic)
@@ -51,11 +47,9 @@ import { recordPlanarAnisotropy } from '../../core/anisotropy.js';
 import { recordRadialInterface } from '../../core/radial-interface.js';
 import { PlanarCluster } from '../../core/planar-cluster.js';
 import { TiledInt32Grid } from '../../index/tiled-grids.js';
-import { direction, sampleDirection } from '../../walkers/uniform-direction.js';
 
-/** Junctions of blocked arcs must overlap by more than this (radians) to retire a particle. */
-export const COVER_MARGIN = 1e-9;
 const MAX_ARCS = 64;
+const TWO_PI = 2 * Math.PI;
 
 export class OffLatticeEden2d implements GrowthKernel {
   readonly task: GrowthTask;
@@ -65,13 +59,17 @@ export class OffLatticeEden2d implements GrowthKernel {
   /** Unit cell → newest particle in it (-1: none); next[k] is the previous particle of k's cell. */
   private readonly heads: TiledInt32Grid;
   private readonly next: Int32Array;
-  private readonly active: Int32Array;
-  /** Slot of each particle in `active`, or -1 once retired. */
-  private readonly activeSlot: Int32Array;
-  private activeCount = 0;
+  /** Free arc length of each particle. */
+  private readonly freeLength: Float64Array;
+  /** Fenwick tree (1-based) of the free arc lengths. */
+  private readonly tree: Float64Array;
   private readonly rng: Random;
   private readonly arcStart = new Float64Array(2 * MAX_ARCS);
   private readonly arcEnd = new Float64Array(2 * MAX_ARCS);
+  /** Free gaps of the last freeArcs call: [gapStart[g], gapEnd[g]) in [0, 2π). */
+  private readonly gapStart = new Float64Array(2 * MAX_ARCS + 1);
+  private readonly gapEnd = new Float64Array(2 * MAX_ARCS + 1);
+  private gapCount = 0;
   private readonly nearby = new Int32Array(MAX_ARCS);
   private readonly nearNew = new Int32Array(MAX_ARCS);
 
@@ -79,22 +77,22 @@ export class OffLatticeEden2d implements GrowthKernel {
     this.task = structuredClone(task);
     this.heads = new TiledInt32Grid(-1, Math.max(16, task.particles >> 6));
     this.next = new Int32Array(task.particles);
-    this.active = new Int32Array(task.particles);
-    this.activeSlot = new Int32Array(task.particles);
+    this.freeLength = new Float64Array(task.particles);
+    this.tree = new Float64Array(task.particles + 1);
     const recordExtra = (extra: Record<string, number[]>, coords: Float64Array, count: number, rMax: number): void => {
       recordPlanarAnisotropy(extra, coords, 2, count, rMax);
       recordRadialInterface(extra, coords, 2, count, rMax);
     };
     if (checkpoint === undefined) {
       this.rng = Random.forRun(task.ensembleSeed, task.runIndex, STREAM_GROWTH);
-      this.counters = { rejections: 0 };
+      this.counters = { redraws: 0 };
       this.cluster = new PlanarCluster(task.particles, task.recordsPerDecade, recordExtra);
       this.add(0, 0, true);
     } else {
       checkCheckpointOf(task, 2, checkpoint);
       if (checkpoint.modelState.length !== 0) throw new RangeError(`checkpoint modelState must be empty for ${task.model.kind}, got ${checkpoint.modelState.length} bytes`);
       this.rng = Random.fromState(checkpoint.rngState);
-      this.counters = { rejections: checkpoint.counters.rejections ?? 0 };
+      this.counters = { redraws: checkpoint.counters.redraws ?? 0 };
       this.cluster = new PlanarCluster(task.particles, task.recordsPerDecade, recordExtra, checkpoint.series);
       const p = checkpoint.positions;
       for (let k = 0; k < checkpoint.count; k++) this.add(p[2 * k], p[2 * k + 1], false);
@@ -110,30 +108,71 @@ export class OffLatticeEden2d implements GrowthKernel {
     return this.cluster.n >= this.task.particles;
   }
 
-  /** Particles not yet proven fully blocked. */
-  get activeParticles(): number {
-    return this.activeCount;
+  /** Free arc length of particle k (0 when fully blocked). */
+  freeArcOf(k: number): number {
+    return this.freeLength[k];
   }
 
   growTo(target: number): void {
     const goal = Math.min(target, this.task.particles);
     const rng = this.rng;
     const xy = this.cluster.xy;
-    let rejections = 0;
+    let redraws = 0;
     while (this.cluster.n < goal) {
       for (;;) {
-        const i = this.active[rng.nextBelow(this.activeCount)];
-        sampleDirection(rng);
-        const px = xy[2 * i] + direction.x;
-        const py = xy[2 * i + 1] + direction.y;
-        if (this.isFree(px, py, i)) {
-          this.add(px, py, true);
-          break;
+        const i = this.findByWeight(rng.nextDouble() * this.totalWeight());
+        let v = rng.nextDouble() * this.freeLength[i];
+        this.freeArcs(i);
+        let theta = -1;
+        for (let g = 0; g < this.gapCount; g++) {
+          const w = this.gapEnd[g] - this.gapStart[g];
+          if (v < w) {
+            theta = this.gapStart[g] + v;
+            break;
+          }
+          v -= w;
         }
-        rejections++;
+        if (theta >= 0) {
+          const px = xy[2 * i] + Math.cos(theta);
+          const py = xy[2 * i + 1] + Math.sin(theta);
+          if (this.isFree(px, py, i)) {
+            this.add(px, py, true);
+            break;
+          }
+        }
+        redraws++;
       }
     }
-    this.counters.rejections += rejections;
+    this.counters.redraws += redraws;
+  }
+
+  private totalWeight(): number {
+    let s = 0;
+    for (let k = this.cluster.n; k > 0; k -= k & -k) s += this.tree[k];
+    return s;
+  }
+
+  /** The particle i (0-based) with prefix(i) <= u < prefix(i + 1), by Fenwick descent (clamped to the last particle). */
+  private findByWeight(u: number): number {
+    const n = this.cluster.n;
+    let pos = 0;
+    let step = 1;
+    while (step * 2 <= n) step *= 2;
+    for (; step > 0; step >>= 1) {
+      const next = pos + step;
+      if (next <= n && this.tree[next] <= u) {
+        pos = next;
+        u -= this.tree[next];
+      }
+    }
+    return pos < n ? pos : n - 1;
+  }
+
+  private setWeight(k: number, w: number): void {
+    const delta = w - this.freeLength[k];
+    this.freeLength[k] = w;
+    if (delta === 0) return;
+    for (let t = k + 1; t <= this.tree.length - 1; t += t & -t) this.tree[t] += delta;
   }
 
   /** True when no centre other than particle `skip` is at distance < 1 from (px, py). */
@@ -154,7 +193,7 @@ export class OffLatticeEden2d implements GrowthKernel {
     return true;
   }
 
-  /** Add a centre (with a record when `record`), make it active, and retire the particles it blocks completely. */
+  /** Add a centre (with a record when `record`) and update the free arcs it changes. */
   private add(px: number, py: number, record: boolean): void {
     const q = this.cluster.n;
     if (record) this.cluster.place(px, py);
@@ -163,25 +202,15 @@ export class OffLatticeEden2d implements GrowthKernel {
     const cy = Math.floor(py);
     this.next[q] = this.heads.get(cx, cy);
     this.heads.set(cx, cy, q);
-    this.activeSlot[q] = this.activeCount;
-    this.active[this.activeCount++] = q;
-    // the new particle and every active particle within distance 2 of it
+    // the new particle and every particle within distance 2 of it
     const m = this.neighboursWithin2(q);
     const nearby = this.nearNew;
     nearby.set(this.nearby.subarray(0, m));
-    if (this.isCovered(q)) this.retire(q);
+    this.setWeight(q, this.freeArcs(q));
     for (let t = 0; t < m; t++) {
       const k = nearby[t];
-      if (this.activeSlot[k] >= 0 && this.isCovered(k)) this.retire(k);
+      if (this.freeLength[k] > 0) this.setWeight(k, this.freeArcs(k));
     }
-  }
-
-  private retire(k: number): void {
-    const slot = this.activeSlot[k];
-    const last = this.active[--this.activeCount];
-    this.active[slot] = last;
-    this.activeSlot[last] = slot;
-    this.activeSlot[k] = -1;
   }
 
   /** Indices of the centres within distance < 2 of centre q (q excluded) into `nearby`; returns their count. */
@@ -208,15 +237,28 @@ export class OffLatticeEden2d implements GrowthKernel {
     return m;
   }
 
-  /** True when the arcs blocked by the neighbours of particle k cover its contact circle (each junction overlapping by > COVER_MARGIN). */
-  private isCovered(k: number): boolean {
+  /**
+   * The free gaps of particle k's contact circle into gapStart/gapEnd
+   * (sorted, in [0, 2π)); returns their total length.
+   */
+  private freeArcs(k: number): number {
     const m = this.neighboursWithin2(k);
-    if (m < 3) return false; // each blocked arc is shorter than 2π/3 + (overlap): fewer than 3 cannot cover (2·arccos(d/2) <= 2π/3 for d >= 1)
     const xy = this.cluster.xy;
     const px = xy[2 * k];
     const py = xy[2 * k + 1];
     const s = this.arcStart;
     const e = this.arcEnd;
+    let count = 0;
+    const insert = (a: number, b: number): void => {
+      let u = count++;
+      while (u > 0 && s[u - 1] > a) {
+        s[u] = s[u - 1];
+        e[u] = e[u - 1];
+        u--;
+      }
+      s[u] = a;
+      e[u] = b;
+    };
     for (let t = 0; t < m; t++) {
       const j = this.nearby[t];
       const dx = xy[2 * j] - px;
@@ -224,29 +266,35 @@ export class OffLatticeEden2d implements GrowthKernel {
       const d = Math.sqrt(dx * dx + dy * dy);
       const half = Math.acos(Math.min(1, d / 2));
       let a = Math.atan2(dy, dx) - half;
-      if (a < 0) a += 2 * Math.PI;
-      // insertion sort by start
-      let u = t;
-      while (u > 0 && s[u - 1] > a) {
-        s[u] = s[u - 1];
-        e[u] = e[u - 1];
-        u--;
+      if (a < 0) a += TWO_PI;
+      const b = a + 2 * half;
+      // split an arc that wraps past 2π into [a, 2π) and [0, b − 2π)
+      if (b > TWO_PI) {
+        insert(a, TWO_PI);
+        insert(0, b - TWO_PI);
+      } else insert(a, b);
+    }
+    // gaps between the merged blocked intervals
+    let gaps = 0;
+    let total = 0;
+    let reach = 0;
+    for (let t = 0; t < count; t++) {
+      if (s[t] > reach) {
+        this.gapStart[gaps] = reach;
+        this.gapEnd[gaps] = s[t];
+        total += s[t] - reach;
+        gaps++;
       }
-      s[u] = a;
-      e[u] = a + 2 * half;
-    }
-    for (let t = 0; t < m; t++) {
-      s[m + t] = s[t] + 2 * Math.PI;
-      e[m + t] = e[t] + 2 * Math.PI;
-    }
-    const goal = s[0] + 2 * Math.PI + COVER_MARGIN;
-    let reach = e[0];
-    for (let t = 1; t < 2 * m; t++) {
-      if (reach >= goal) return true;
-      if (s[t] > reach - COVER_MARGIN) return false;
       if (e[t] > reach) reach = e[t];
     }
-    return reach >= goal;
+    if (reach < TWO_PI) {
+      this.gapStart[gaps] = reach;
+      this.gapEnd[gaps] = TWO_PI;
+      total += TWO_PI - reach;
+      gaps++;
+    }
+    this.gapCount = gaps;
+    return total;
   }
 
   positions(): ClusterPositions {
@@ -283,12 +331,12 @@ export class OffLatticeEden2d implements GrowthKernel {
     };
   }
 
-  /** Digest of positions, generator state, count and the rejection counter. */
+  /** Digest of positions, generator state, count and the redraw counter. */
   stateHash(): string {
     const h = new StateHasher();
     this.cluster.hashPositions(h);
     for (const w of this.rng.state()) h.word(w);
-    h.integer(this.counters.rejections);
+    h.integer(this.counters.redraws);
     return h.digest();
   }
 }
