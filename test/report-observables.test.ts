@@ -35,7 +35,7 @@ describe('report and summary: model observables', () => {
 
   it('the ensemble summary carries statistics.observables for a lattice model', () => {
     const spec = validateSpec({ name: 'eden-sum', model: 'eden-triangular', particles: 3000, clusters: 5, seed: 9, records_per_decade: 10 });
-    const summary = buildSummary({ ensembleId: 'e1', spec, createdAtMs: 0, results: runs('eden-triangular', 3000, 5).map((r) => ({ ...r, ensembleSeed: '9', ensembleId: 'e1', timings: { growSeconds: 0, startedAtMs: 0, finishedAtMs: 0, resumes: 0, finishedBy: 'test' } })) }, {});
+    const summary = buildSummary({ ensembleId: 'e1', spec, createdAtMs: 0, results: runs('eden-triangular', 3000, 5).map((r) => ({ ...r, ensembleSeed: '9', ensembleId: 'e1', timings: { growSeconds: 0, startedAtMs: 0, finishedAtMs: 0, resumes: 0, finishedBy: 'test' } })) });
     const st = JSON.parse(summary.statisticsJson) as { observables: { schema: string; bands: { name: string }[]; interfaceGrowth: { beta: number } | null } };
     expect(st.observables.schema).toBe('tendril.observables/1');
     expect(st.observables.bands.map((b) => b.name)).toContain('fold_amplitude_6');

@@ -9,7 +9,9 @@
  *
  * The analysis plugs in through `SummaryOptions.enrich`; defaultSummaryOptions()
  * runs analyzeEnsemble with the spec's [analysis] settings (plus any CLI
- * overrides). Its result lands under "statistics" in the JSON and in
+ * overrides) and adds `observables` (coordinator/stats/observable-bands.ts:
+ * the model-specific observables against N with bootstrap bands, and the
+ * Eden interface growth exponent). Its result lands under "statistics" in the JSON and in
  * `statistics_json` of the protobuf summary. A summary of an unfinished
  * ensemble is marked partial and analyses the runs stored so far.
  */
@@ -114,7 +116,15 @@ export function uniqueRuns(results: Iterable<RunResultData>): RunResultData[] {
  * e.g. `return { enrich: (runs) => analyzeEnsemble(runs) };`.
  */
 export function defaultSummaryOptions(overrides: AnalysisSettings = {}): SummaryOptions {
-  return { enrich: (runs, spec) => safeAnalysis(runs, analysisOptionsOf({ ...spec.analysis, ...overrides })) };
+  return {
+    enrich: (runs, spec) => {
+      const analysis = safeAnalysis(runs, analysisOptionsOf({ ...spec.analysis, ...overrides }));
+      const settings = { ...spec.analysis, ...overrides };
+      // model observables against N with bands, and the Eden interface growth exponent (coordinator/stats/observable-bands.ts)
+      const observables = runs.length > 0 ? observableSection(runs, { seed: spec.seed, resamples: settings.resamples ?? 2000, level: settings.level ?? 0.95 }) : null;
+      return observables !== null && typeof analysis === 'object' && analysis !== null ? { ...analysis, observables } : analysis;
+    },
+  };
 }
 
 export function buildSummary(input: SummaryInput, opts: SummaryOptions = defaultSummaryOptions()): EnsembleSummaryData {
@@ -142,10 +152,6 @@ export function buildSummary(input: SummaryInput, opts: SummaryOptions = default
       )
     : null;
   let statistics = opts.enrich ? opts.enrich(runs, input.spec) : undefined;
-  const observables = runs.length > 0 ? observableSection(runs, { seed: input.spec.seed, resamples: input.spec.analysis.resamples ?? 2000, level: input.spec.analysis.level ?? 0.95 }) : null;
-  if (observables !== null) {
-    statistics = typeof statistics === 'object' && statistics !== null ? { ...statistics, observables } : { observables };
-  }
   if (input.spec.probe) {
     const section = harmonicOf(input, runs, statistics);
     statistics = typeof statistics === 'object' && statistics !== null ? { ...statistics, harmonic: section } : { harmonic: section };
