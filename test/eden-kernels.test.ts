@@ -5,6 +5,7 @@ import { EdenLatticeKernel } from '../worker/models/eden-lattice/eden-lattice-ke
 import { OffLatticeEden2d } from '../worker/models/eden-offlattice-2d/kernel.js';
 import { SQUARE, TRIANGULAR, siteOf, toSite, type PlanarLattice } from '../worker/lattice/planar-lattice.js';
 import { anisotropy, anisotropyOf, recordPlanarAnisotropy } from '../worker/core/anisotropy.js';
+import { yieldToRunner } from './support/grow.js';
 
 const EDEN_KINDS = ['eden-square', 'eden-triangular', 'eden-offlattice-2d'] as const;
 
@@ -138,7 +139,7 @@ describe('Eden: the growth site is uniform over the perimeter sites (exact small
 });
 
 describe('off-lattice Eden: geometry and free arcs', () => {
-  it('no overlaps, each disk touches an earlier one, and every free arc length matches a fine angular probe', () => {
+  it('no overlaps, each disk touches an earlier one, and every free arc length matches a fine angular probe', async () => {
     const k = grown(edenTask('eden-offlattice-2d', 1500, 2)) as OffLatticeEden2d;
     const c = k.positions().coords;
     const n = k.count;
@@ -159,6 +160,7 @@ describe('off-lattice Eden: geometry and free arcs', () => {
     // <= 2δ · 6 (at most 6 gaps: each gap lies between blocked arcs of touching-distance neighbours)
     let blocked = 0;
     for (let i = 0; i < n; i++) {
+      if (i % 200 === 0) await yieldToRunner();
       const near: number[] = [];
       for (let j = 0; j < n; j++) if (j !== i && Math.hypot(c[2 * i] - c[2 * j], c[2 * i + 1] - c[2 * j + 1]) < 2) near.push(j);
       let free = 0;
@@ -218,10 +220,11 @@ describe('Eden: mass–radius dimension D = 2 (exact: compact clusters)', () => 
   // lattice discreteness of M(r) at small r (common practice, no source). R_g(N) is not used: the
   // early clusters are elongated, so R_g/√N still drifts by 2% between N = 10^3 and 3·10^4.
   for (const kind of EDEN_KINDS) {
-    it(`${kind}: D from M(r) within error of 2`, () => {
+    it(`${kind}: D from M(r) within error of 2`, async () => {
       const slopes: number[] = [];
       const n = kind === 'eden-offlattice-2d' ? 5000 : 30_000;
       for (let r = 0; r < 8; r++) {
+        await yieldToRunner();
         const res = grown(edenTask(kind, n, r, '2024')).result();
         const rMax = res.series.maxRadius.at(-1)!;
         const xs: number[] = [];
