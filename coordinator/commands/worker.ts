@@ -131,8 +131,8 @@ export function register(program: Command): void {
             void farm.close().finally(resolve);
           });
       };
-      process.once('SIGTERM', () => onSignal('SIGTERM'));
-      process.once('SIGINT', () => onSignal('SIGINT'));
+      process.on('SIGTERM', () => onSignal('SIGTERM'));
+      process.on('SIGINT', () => onSignal('SIGINT'));
       if (opts.exitWhenIdle) stopIdleWatch = watchForIdle(farm.queue, opts.exitWhenIdle * 1000, () => onSignal('idle'));
     });
   });
