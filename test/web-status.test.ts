@@ -106,6 +106,7 @@ describe('web status page (headless chromium)', () => {
     })()`, null, { timeout: 120_000 });
     const figureNames = await page.locator('#figures figure').evaluateAll((fs) => fs.map((f) => f.getAttribute('data-name')));
     expect(figureNames).toContain('radius-of-gyration');
+    expect(await page.locator('#figures figcaption sub').count()).toBeGreaterThan(0); // R_g drawn as R with subscript g
     expect(await page.locator('#cluster p').textContent()).toMatch(/^run 0, 60,000 particles, grown again from its task/);
     const links = (await page.locator('#downloads a').evaluateAll((as) => as.map((x) => x.getAttribute('href') ?? ''))).map((h) => new URL(h, base).href);
     expect(links.some((l) => l.endsWith('format=json'))).toBe(true);
@@ -113,6 +114,14 @@ describe('web status page (headless chromium)', () => {
     for (const l of links) expect((await fetch(l)).status).toBe(200);
     if (shots) await page.screenshot({ path: join(shots, 'view.png'), fullPage: true });
     expect(errors).toEqual([]);
+
+    // routes of the page refuse what they do not serve, with one line
+    const notAsset = await fetch(`${base}/web/secret.js`);
+    expect(notAsset.status).toBe(404);
+    expect(((await notAsset.json()) as { error: string }).error).toMatch(/^GET \/web\/secret\.js: no such file; allowed: index\.html, /);
+    const notFigure = await fetch(`${base}/ensembles/${a}/figures/nope.svg`);
+    expect(notFigure.status).toBe(404);
+    expect(((await notFigure.json()) as { error: string }).error).toMatch(/^figure: "nope\.svg" is not a figure of this ensemble; allowed: .*radius-of-gyration\.svg/);
 
     // B's page: a wrong token is refused, the right one cancels
     await page.goto(`${base}/view/${b}`);

@@ -6,7 +6,8 @@
  *   GET /view/:id                       one ensemble: progress, probes, report plots, cluster picture,
  *                                       summary downloads, cancel (needs the API token)
  *   GET /web/:file                      the page's own scripts and style (no CDN: works on a closed network)
- *   GET /ensembles/:id/figures          {clustersDone, partial, figures: [{name, title, caption, note}], notes}
+ *   GET /ensembles/:id/figures          {clustersDone, partial, figures: [{name, title, titleRuns, caption, note, svg}], notes}
+ *                                       (titleRuns: the title as runs of text, shift -1 subscript, 1 superscript)
  *   GET /ensembles/:id/figures/:name.svg  one report figure (SVG)
  *   GET /ensembles/:id/cluster.png      run 0 grown again (coordinator/http/ensemble-figures.ts)
  *
@@ -19,6 +20,7 @@ import { fileURLToPath } from 'node:url';
 import type { FastifyInstance } from 'fastify';
 import type { EnsembleStore } from '../farm/store.js';
 import { ENSEMBLE_ID_PATTERN } from '../plan.js';
+import { parseRichText } from '../report/index.js';
 import type { SummaryOptions } from '../summary/index.js';
 import { EnsembleFigures } from './ensemble-figures.js';
 
@@ -76,7 +78,7 @@ export function registerWebRoutes(app: FastifyInstance, o: WebOptions): void {
     return {
       clustersDone: set.clustersDone,
       partial: set.partial,
-      figures: set.figures.map((f) => ({ name: f.name, title: f.title, caption: f.caption, note: f.note, svg: `/ensembles/${req.params.id}/figures/${f.name}.svg` })),
+      figures: set.figures.map((f) => ({ name: f.name, title: f.title, titleRuns: parseRichText(f.title), caption: f.caption, note: f.note, svg: `/ensembles/${req.params.id}/figures/${f.name}.svg` })),
       notes: set.notes,
     };
   });

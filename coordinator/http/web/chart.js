@@ -19,11 +19,19 @@ function fmtTick(v) {
   return String(+v.toFixed(1));
 }
 
+/** The time window shown: the time watched so far, between 1 and 10 minutes. */
+export function windowOf(series, now) {
+  let first = now;
+  for (const s of series) if (s.points.length) first = Math.min(first, s.points[0].t);
+  return Math.min(10 * 60_000, Math.max(60_000, now - first));
+}
+
 /**
- * series: [{ label, points: [{ t (ms), v }] }]; draws the last `windowMs`.
+ * series: [{ label, points: [{ t (ms), v }] }]; draws the last `windowMs`
+ * (default: windowOf the series).
  * Returns the number of line segments drawn (for tests and an empty-state note).
  */
-export function drawChart(canvas, series, { windowMs = 5 * 60_000, now = Date.now(), yLabel = 'particles / s' } = {}) {
+export function drawChart(canvas, series, { now = Date.now(), windowMs = windowOf(series, now), yLabel = 'particles / s' } = {}) {
   const dpr = window.devicePixelRatio || 1;
   const w = canvas.clientWidth, h = canvas.clientHeight;
   canvas.width = Math.round(w * dpr);

@@ -51,3 +51,10 @@ export function bar(done, total, label) {
 }
 
 export const POLL_MS = 2000;
+
+/** Text runs [{text, shift}] (shift -1 subscript, 1 superscript) as a fragment, e.g. R_{max}(N). */
+export function richText(runs) {
+  const f = document.createDocumentFragment();
+  for (const r of runs) f.append(r.shift === 0 ? document.createTextNode(r.text) : el(r.shift < 0 ? 'sub' : 'sup', { text: r.text }));
+  return f;
+}

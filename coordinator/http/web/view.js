@@ -1,7 +1,7 @@
 // One ensemble: GET /ensembles/ID (the API the CLI uses) every 2 s, the
 // report figures when the count of finished clusters changes, run 0's
 // picture, summary downloads and a cancel button that sends the API token.
-import { bar, el, fmtDuration, fmtInt, fmtRate, getJson, POLL_MS, stateBadge } from './common.js';
+import { bar, el, fmtDuration, fmtInt, fmtRate, getJson, POLL_MS, richText, stateBadge } from './common.js';
 import { drawChart } from './chart.js';
 
 const id = decodeURIComponent(location.pathname.split('/').pop());
@@ -38,7 +38,7 @@ async function showFigures(s) {
   const grid = document.getElementById('figures');
   grid.replaceChildren(...f.figures.map((x) => {
     const fig = el('figure', { 'data-name': x.name });
-    fig.append(el('img', { src: `${x.svg}?n=${f.clustersDone}`, alt: x.title }), el('figcaption', { text: x.title }));
+    fig.append(el('a', { href: x.svg, target: '_blank', title: 'open full size' }, el('img', { src: `${x.svg}?n=${f.clustersDone}`, alt: x.title })), el('figcaption', {}, richText(x.titleRuns)));
     return fig;
   }));
   document.getElementById('figures-count').textContent = f.partial ? `(partial: ${f.clustersDone} cluster(s) so far)` : `(${f.clustersDone} clusters)`;
