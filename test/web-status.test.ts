@@ -63,6 +63,10 @@ function watchConsole(page: Page): string[] {
     if (m.type() === 'error') errors.push(m.text());
   });
   page.on('pageerror', (e) => errors.push(`page error: ${e.message}`));
+  page.on('request', (r) => {
+    const u = r.url();
+    if (!u.startsWith(`${base}/`) && !u.startsWith('data:') && !u.startsWith('blob:')) errors.push(`request off this server: ${u}`);
+  });
   page.on('response', (r) => {
     if (r.status() >= 400) errors.push(`HTTP ${r.status()} ${new URL(r.url()).pathname}`);
   });
@@ -139,5 +143,5 @@ describe('web status page (headless chromium)', () => {
     // the only console error: the browser's own line for the refused (401) request
     expect(errors.filter((e) => !/status of 401/.test(e) && e !== `HTTP 401 /ensembles/${b}/cancel`)).toEqual([]);
     await page.close();
-  });
+  }, 600_000);
 });
