@@ -7,7 +7,10 @@
  * task (same task, same bits) in a worker thread, off the server's event
  * loop, for clusters up to PICTURE_MAX_PARTICLES; its state hash is compared
  * with the stored result of run 0 when there is one, and the picture says so.
- * Both are kept in memory per ensemble (figures per count of results).
+ * Both are kept in memory per ensemble. The figures are rebuilt when more
+ * results are stored or the state changes, but while the ensemble runs at most
+ * once per max(10 s, 5 × the time the last build took): the analysis runs on
+ * the server's thread, and a big ensemble stores results every few seconds.
  */
 import { decodeCheckpoint } from '../../proto/convert.js';
 import { axisOf } from '../../worker/core/positions.js';
@@ -39,7 +42,7 @@ export interface ClusterPicture {
 }
 
 export class EnsembleFigures {
-  private readonly figureCache = new Map<string, { key: string; set: FigureSet }>();
+  private readonly figureCache = new Map<string, { key: string; state: string; set: FigureSet; builtAt: number; buildMs: number }>();
   private readonly pictures = new Map<string, Promise<ClusterPicture | string>>();
   private pool: TaskThreadPool | null = null;
 
@@ -56,6 +59,8 @@ export class EnsembleFigures {
     const key = `${count}:${status.state}`;
     const hit = this.figureCache.get(id);
     if (hit?.key === key) return hit.set;
+    if (hit && hit.set.figures.length > 0 && hit.state === 'running' && status.state === 'running' && Date.now() - hit.builtAt < Math.max(10_000, 5 * hit.buildMs)) return hit.set;
+    const t0 = Date.now();
     const got = await farmSummary(this.store, id, this.summaryOptions);
     if (!got) return null;
     const analysis = analysisOf(got.summary);
@@ -67,7 +72,7 @@ export class EnsembleFigures {
       const report = buildEnsembleReport({ analysis: { ...analysis, harmonic: harmonicOfSummary(got.summary) }, runs: got.results, spec: got.record.spec, png: false, embedFont: false, ensembleId: id });
       set = { clustersDone: got.summary.clustersDone, partial: got.summary.partial, figures: report.figures, notes: report.notes.filter((n) => !n.startsWith('no sample cluster')) };
     }
-    this.figureCache.set(id, { key, set });
+    this.figureCache.set(id, { key, state: status.state, set, builtAt: Date.now(), buildMs: Date.now() - t0 });
     return set;
   }
 

@@ -8,6 +8,7 @@ const id = decodeURIComponent(location.pathname.split('/').pop());
 const api = `/ensembles/${encodeURIComponent(id)}`;
 const points = [];
 let figuresKey = null;
+let shownClusters = -1;
 let pictureShown = false;
 let pictureBusy = false;
 let polling = false;
@@ -30,11 +31,14 @@ function downloads() {
   p.replaceChildren(...links.map(([text, href]) => el('a', { href, text, download: '' })));
 }
 
+// Asks again on every poll until the figures cover the clusters done (the server rebuilds them at most every few seconds).
 async function showFigures(s) {
   const key = `${s.runs.done}:${s.state}`;
   if (key === figuresKey) return;
-  figuresKey = key;
   const f = await getJson(`${api}/figures`);
+  if (f.clustersDone === s.runs.done && (s.state !== 'running') === !f.partial) figuresKey = key;
+  if (f.clustersDone === shownClusters && document.getElementById('figures').childElementCount === f.figures.length) return;
+  shownClusters = f.clustersDone;
   const grid = document.getElementById('figures');
   grid.replaceChildren(...f.figures.map((x) => {
     const fig = el('figure', { 'data-name': x.name });
