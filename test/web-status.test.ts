@@ -34,7 +34,7 @@ beforeAll(async () => {
   serve.stderr!.on('data', (d) => (out += d));
   await waitFor('serve', async () => out.includes('serving on'), 30_000);
   base = `http://127.0.0.1:${port}`;
-  browser = await chromium.launch({ executablePath: CHROMIUM, args: ['--no-sandbox', '--disable-gpu'] });
+  browser = await chromium.launch({ executablePath: CHROMIUM, args: ['--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage'] });
   if (shots) mkdirSync(shots, { recursive: true });
 });
 
