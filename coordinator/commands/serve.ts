@@ -1,8 +1,7 @@
 /**
  * `tendril serve`: the coordinator's HTTP API, the web status page at / and
- * /metrics. Binds 127.0.0.1
- * by default; refuses any other address unless an API token is configured
- * (TENDRIL_API_TOKEN, or --token-file). Without a token, creating and
+ * /metrics. Binds 127.0.0.1 by default; refuses any other address unless an
+ * API token is configured (TENDRIL_API_TOKEN, or --token-file). Without a token, creating and
  * cancelling are refused; everything else works.
  */
 import { readFile } from 'node:fs/promises';
