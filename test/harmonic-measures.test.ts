@@ -39,6 +39,21 @@ describe('partition function and spectrum on exact measures', () => {
   });
 });
 
+describe('maximum box measure over the four grid offsets', () => {
+  it('is the maximum over all boxes of all four grids, not the average of per-grid maxima (exact)', () => {
+    // Four equal point masses at (±0.01, ±0.01) about the point (1, 1): with anchor (0, 0) and
+    // eps = 0.5 the grid at offset (0, 0) has a corner at (1, 1) and splits them into four boxes
+    // (largest box 1/4); the grids at offsets (eps/2, eps/2), (eps/4, 3eps/4), (3eps/4, eps/4) hold
+    // them in one box (1). Maximum over all boxes: 1; the average of per-grid maxima would be 13/16.
+    const x = [0.99, 1.01, 0.99, 1.01];
+    const y = [0.99, 0.99, 1.01, 1.01];
+    const st = boxStatistics({ count: 4, x, y, w: null }, [0.5, 0.6], [2], 0, 0);
+    expect(st.maxMeasure[0]).toBe(1);
+    // Z is averaged over the four grids: (4 x 1/16 + 1 + 1 + 1)/4 = 13/16
+    expect(st.z[0][0]).toBeCloseTo(13 / 16, 12);
+  });
+});
+
 describe('logarithmic capacity from samples of the harmonic measure', () => {
   const rng = Random.forRun('99', 0, 1);
   const M = 3000;
