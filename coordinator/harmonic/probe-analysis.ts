@@ -165,7 +165,7 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
     tauHalves = [a, b];
     converged = inp.q.map((_, k) => Math.abs(a[k] - b[k]) <= 0.05 + 0.05 * Math.abs(spectrum.tau[k]));
   }
-  const capacity = inp.contactCount >= 3
+  const capacity = inp.contactCount >= 4
     ? { ...logCapacity(inp.contactX, inp.contactY, inp.contactCount), set: 'union of the contact disks' }
     : null;
   return {
