@@ -39,13 +39,17 @@
  * inside the window, an error the fit's own scatter does not show (common
  * practice, no source).
  *
- * Beurling: the maximum box measure M(ε) ~ (ε/R)^a must have a ≥ 1/2 for a
- * connected set (Garnett & Marshall 2005, Harmonic Measure); the check
- * allows 0.05 for finite-size effects (our rule).
+ * Beurling: the maximum box measure M(ε) ~ (ε/R)^a has a ≥ 1/2 for a
+ * connected set as ε → 0 (Garnett & Marshall 2005, Harmonic Measure). A
+ * finite window does not resolve that limit, so the verdict is
+ * 'consistent', 'not resolved at this size' or 'not applicable: the set is
+ * not connected', never a violation; the rule is in beurling-check.ts.
  */
 import { boxStatistics, logSpaced, type BoxStatistics, type WeightedPoints } from './partition-function.js';
 import { spectrumFrom, type Spectrum } from './spectrum.js';
 import { logCapacity, type CapacityEstimate } from './log-capacity.js';
+import { beurlingVerdict, BEURLING_BOUND, type BeurlingVerdict } from './beurling-check.js';
+import { diskUnionConnected } from './disk-union-connected.js';
 
 export const SIGN_CONVENTION =
   'Z(q,eps) = sum over boxes of side eps of mu(box)^q ~ (eps/R)^tau(q); tau(1) = 0, D_q = tau(q)/(q-1), alpha = tau\'(q), f = q alpha - tau';
@@ -82,7 +86,18 @@ export interface HarmonicMeasures {
   /** Half the difference of the fits over the lower and upper half of the window (see the file header). */
   windowSystematic: { tau: number[]; informationDimension: number } | null;
   converged: Array<boolean | null>;
-  maxConcentration: { exponent: number; fitError: number; beurlingBound: number; consistentWithBeurling: boolean };
+  maxConcentration: {
+    exponent: number;
+    fitError: number;
+    /** Half the difference of the fits over the lower and upper half of the window (null with fewer than 4 scales). */
+    windowSystematic: number | null;
+    /** Contact-radius systematic of the exponent (see the file header; 0 until estimated). */
+    resolutionSystematic: number;
+    beurlingBound: number;
+    /** Whether the union of contact disks is connected (Beurling's estimate needs it). */
+    connected: boolean;
+    beurling: BeurlingVerdict;
+  };
   capacity: (CapacityEstimate & { set: string }) | null;
 }
 
@@ -143,6 +158,7 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
   const spectrum = spectrumFrom(stats, radius);
   const ns = stats.eps.length;
   let windowSystematic: HarmonicMeasures['windowSystematic'] = null;
+  let maxConcentrationWindow: number | null = null;
   if (ns >= 4) {
     const h = Math.ceil(ns / 2);
     const part = (from: number, to: number): BoxStatistics => ({
@@ -155,6 +171,7 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
       tau: lower.tau.map((t, k) => Math.abs(t - upper.tau[k]) / 2),
       informationDimension: Math.abs(lower.informationDimension - upper.informationDimension) / 2,
     };
+    maxConcentrationWindow = Math.abs(lower.maxConcentrationExponent - upper.maxConcentrationExponent) / 2;
   }
   const canHalve = source === 'contact-points' ? inp.contactCount >= 200 : inp.halves !== null;
   let tauHalves: [number[], number[]] | null = null;
@@ -168,6 +185,8 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
   const capacity = inp.contactCount >= 4
     ? { ...logCapacity(inp.contactX, inp.contactY, inp.contactCount), set: 'union of the contact disks' }
     : null;
+  const connected = diskUnionConnected(n, inp.x, inp.y, inp.r);
+  const maxResolution = 0;
   return {
     convention: SIGN_CONVENTION,
     walkers,
@@ -183,8 +202,12 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
     maxConcentration: {
       exponent: spectrum.maxConcentrationExponent,
       fitError: spectrum.maxConcentrationFitError,
-      beurlingBound: 0.5,
-      consistentWithBeurling: spectrum.maxConcentrationExponent >= 0.45,
+      windowSystematic: maxConcentrationWindow,
+      resolutionSystematic: maxResolution,
+      beurlingBound: BEURLING_BOUND,
+      connected,
+      beurling: beurlingVerdict(spectrum.maxConcentrationExponent,
+        { fit: spectrum.maxConcentrationFitError, window: maxConcentrationWindow ?? 0, resolution: maxResolution }, connected),
     },
     capacity,
   };
