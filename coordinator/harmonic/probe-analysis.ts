@@ -13,7 +13,14 @@
  * ε_hi = R/2, R = radius of the smallest circle about the bounding-box
  * centre enclosing the disks. ε_lo = max(8 r_med, R/32) for disk centres
  * (r_med = median contact radius; if that leaves less than a factor 8, ε_lo =
- * ε_hi/8), and R/64 for contact points. A user window overrides both.
+ * ε_hi/8), and R/64 for contact points. A user window overrides both:
+ * `relativeWindow` [lo, hi] gives ε_lo = lo·R, ε_hi = hi·R (the CLI's
+ * --window, the API's and the spec's `window`; rule in fit-window.ts).
+ *
+ * Contact-radius systematic (resolution-systematic.ts): κ |q − 1| G, G the
+ * least-squares slope of r_med/ε over the window, reported beside the window
+ * systematic for τ(q), τ′(1) and the maximum-concentration exponent; a
+ * warning is added when ε_lo < 8 r_med.
  *
  * Convergence per q: τ(q) is also fitted from the two halves of the probes
  * (even and odd jobs; first and second half of the contact sample for the
@@ -50,6 +57,8 @@ import { spectrumFrom, type Spectrum } from './spectrum.js';
 import { logCapacity, type CapacityEstimate } from './log-capacity.js';
 import { beurlingVerdict, BEURLING_BOUND, type BeurlingVerdict } from './beurling-check.js';
 import { diskUnionConnected } from './disk-union-connected.js';
+import { resolutionSystematic, resolutionWarning, type ResolutionSystematic } from './resolution-systematic.js';
+import { windowProblem } from './fit-window.js';
 
 export const SIGN_CONVENTION =
   'Z(q,eps) = sum over boxes of side eps of mu(box)^q ~ (eps/R)^tau(q); tau(1) = 0, D_q = tau(q)/(q-1), alpha = tau\'(q), f = q alpha - tau';
@@ -69,6 +78,8 @@ export interface ProbeAnalysisInput {
   q: number[];
   /** Absolute box sides [lo, hi]; default: the rule in the file header. */
   window?: [number, number];
+  /** Box sides relative to R, [lo, hi] (fit-window.ts); overrides the default, not `window`. */
+  relativeWindow?: [number, number] | null;
   scales?: number;
 }
 
@@ -85,13 +96,17 @@ export interface HarmonicMeasures {
   tauHalves: [number[], number[]] | null;
   /** Half the difference of the fits over the lower and upper half of the window (see the file header). */
   windowSystematic: { tau: number[]; informationDimension: number } | null;
+  /** Finite-contact-radius systematic (see the file header). */
+  resolutionSystematic: ResolutionSystematic;
+  /** Warnings for people (e.g. smallest box too close to the contact radius). */
+  warnings: string[];
   converged: Array<boolean | null>;
   maxConcentration: {
     exponent: number;
     fitError: number;
     /** Half the difference of the fits over the lower and upper half of the window (null with fewer than 4 scales). */
     windowSystematic: number | null;
-    /** Contact-radius systematic of the exponent (see the file header; 0 until estimated). */
+    /** Contact-radius systematic of the exponent (see the file header). */
     resolutionSystematic: number;
     beurlingBound: number;
     /** Whether the union of contact disks is connected (Beurling's estimate needs it). */
@@ -132,7 +147,11 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
   const hi0 = radius / 2;
   let lo0 = source === 'disk-centres' ? Math.max(8 * rMed, radius / 32) : radius / 64;
   if (lo0 > hi0 / 8) lo0 = hi0 / 8;
-  const [lo, hi] = inp.window ?? [lo0, hi0];
+  if (inp.relativeWindow) {
+    const bad = windowProblem(inp.relativeWindow);
+    if (bad) throw new RangeError(`window: ${JSON.stringify(inp.relativeWindow)} ${bad}`);
+  }
+  const [lo, hi] = inp.window ?? (inp.relativeWindow ? [inp.relativeWindow[0] * radius, inp.relativeWindow[1] * radius] : [lo0, hi0]);
   const scales = inp.scales ?? 10;
   const eps = logSpaced(lo, hi, scales);
   const ox = cx - radius;
@@ -186,7 +205,11 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
     ? { ...logCapacity(inp.contactX, inp.contactY, inp.contactCount), set: 'union of the contact disks' }
     : null;
   const connected = diskUnionConnected(n, inp.x, inp.y, inp.r);
-  const maxResolution = 0;
+  const resolution = resolutionSystematic(stats.eps, inp.q, rMed);
+  const warnings: string[] = [];
+  const warn = resolutionWarning(stats.eps, rMed);
+  if (warn) warnings.push(warn);
+  const maxResolution = resolution.maxConcentration;
   return {
     convention: SIGN_CONVENTION,
     walkers,
@@ -198,6 +221,8 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
     boxes: { eps: stats.eps, z: stats.z, entropy: stats.entropy, maxMeasure: stats.maxMeasure },
     tauHalves,
     windowSystematic,
+    resolutionSystematic: resolution,
+    warnings,
     converged,
     maxConcentration: {
       exponent: spectrum.maxConcentrationExponent,
