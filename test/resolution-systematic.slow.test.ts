@@ -11,8 +11,8 @@
 //    must lie within the two contact-radius systematics plus 3 statistical errors (the
 //    statistical error of one fit is half the difference of its even-job and odd-job fits).
 import { describe, expect, it } from 'vitest';
-import { ProbeGeometry, addProbeCounts, planProbeJobs, runProbeJob } from '../worker/probe/probe-2d.js';
-import { analyzeProbe } from '../coordinator/harmonic/probe-analysis.js';
+import { ProbeGeometry, addProbeCounts, planProbeJobs, runProbeJob, type ProbeResult } from '../worker/probe/probe-2d.js';
+import { analyzeProbe, type HarmonicMeasures } from '../coordinator/harmonic/probe-analysis.js';
 import { RESOLUTION_KAPPA } from '../coordinator/harmonic/resolution-systematic.js';
 import { yieldToRunner } from './support/grow.js';
 
@@ -22,7 +22,7 @@ const WINDOW: [number, number] = [1 / 32, 1 / 2];
 async function measure(x: number[], y: number[], walkers: number, seed: string) {
   const set = { count: x.length, x, y, r: 1 };
   const g = new ProbeGeometry(set);
-  const results = [];
+  const results: ProbeResult[] = [];
   for (const t of planProbeJobs(g, seed, walkers, 4, 0)) { results.push(runProbeJob(g, t)); await yieldToRunner(); }
   const counts = addProbeCounts(set.count, results);
   const halves = [0, 1].map((h) => addProbeCounts(set.count, results.filter((r) => r.jobIndex % 2 === h))) as [Float64Array, Float64Array];
@@ -49,7 +49,7 @@ function triangle(n: number): [number[], number[]] {
 describe('contact-radius systematic of tau(q)', () => {
   it(`square of disks: |delta tau(q)| <= kappa |q - 1| G for n = 25 ... 800 (kappa = ${RESOLUTION_KAPPA})`, async () => {
     const ns = [25, 50, 100, 200, 400, 800];
-    const m = [];
+    const m: HarmonicMeasures[] = [];
     for (const n of ns) m.push(await measure(...square(n), 1_000_000, '77'));
     const rel = ns.map((_, i) => 32 / m[i].radius); // r/eps_min with r = 1
     const limit = Q.map((_, k) => {
