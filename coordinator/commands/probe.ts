@@ -66,7 +66,7 @@ export function register(program: Command): void {
     .option('--q-grid <a:b:step>', 'q values for tau(q)', '-1:5:0.25')
     .option('--threads <t>', 'worker threads, integer in [1, 64]', '1')
     .option('--contact-sample <m>', 'contact points kept for the capacity, integer in [3, 20000]', '4000')
-    .option('--min-step <h>', 'straight-step length near contact in units of the largest radius, in (0, 1]', String(DEFAULT_PROBE_MIN_STEP))
+    .option('--min-step <h>', 'final approach: straight steps of this length (units of the largest radius, in (0, 1]) where two disks are this close; exact lens steps elsewhere', String(DEFAULT_PROBE_MIN_STEP))
     .option('--window <lo:hi>', 'fit window: smallest and largest box side relative to the set radius R (default: see the README)')
     .action(async (input: string, raw: Record<string, unknown>) => {
       const need = (k: string, what: string): unknown => {

@@ -218,9 +218,15 @@ function atSize(size: number, group: readonly ClusterHarmonic[], q: readonly num
     tau: q.map((_, k) => meanOf(finite(group.map((c) => c.tauSystematic?.[k])))),
     informationDimension: meanOf(finite(group.map((c) => c.informationDimensionSystematic))),
   };
+  // contact-radius systematic: the ensemble mean of the per-cluster values (reported beside the window systematic)
+  const resolutionSystematic = {
+    tau: q.map((_, k) => meanOf(finite(group.map((c) => c.tauResolutionSystematic?.[k])))),
+    informationDimension: meanOf(finite(group.map((c) => c.informationDimensionResolutionSystematic))),
+  };
   const widen = (iv: [number, number] | null, sys: number | null): [number, number] | null => (iv && sys !== null ? [iv[0] - sys, iv[1] + sys] : null);
   return {
     systematic,
+    resolutionSystematic,
     informationDimensionWithSystematic: widen(intervalEnds(informationDimension.interval), systematic.informationDimension),
     tau3WithSystematic: k3 >= 0 ? widen(intervalEnds(tau[k3].interval), systematic.tau[k3]) : null,
     size,
