@@ -105,3 +105,47 @@ export function logCapacity(x: ArrayLike<number>, y: ArrayLike<number>, count: n
     frostmanExcess: zeta2 > 0 ? zeta1 / (zeta2 / m) : 0,
   };
 }
+
+/**
+ * Check of the stated error from the spread of independent jobs (batch
+ * means): each job's contact points are an independent sample, so each job
+ * gives its own Î_g with its own stated variance v_g (the formula above on
+ * that job's points). With calibrated errors χ² = Σ_g (Î_g − Ī)²/v_g, Ī the
+ * 1/v-weighted mean, follows roughly a chi-square law with G − 1 degrees of
+ * freedom (roughly: a degenerate U-statistic is not normal), so
+ * spreadOverStated = sqrt(χ²/(G − 1)) is near 1; test/capacity-calibration.slow.test.ts
+ * checks its mean square over 200 seeds. The pooled Î and its error are
+ * what is reported: they use the pairs across jobs too and are G times more
+ * precise than the mean of the Î_g.
+ */
+export interface CapacityJobCheck {
+  jobs: number;
+  chiSquare: number;
+  degreesOfFreedom: number;
+  spreadOverStated: number;
+}
+
+/** Batch-means check over consecutive groups of the sample (job j holds `sizes[j]` points, in order); null with fewer than 2 groups of at least 4 points. */
+export function capacityJobCheck(x: ArrayLike<number>, y: ArrayLike<number>, sizes: readonly number[]): CapacityJobCheck | null {
+  const est: number[] = [];
+  const vars: number[] = [];
+  let from = 0;
+  for (const m of sizes) {
+    if (m >= 4) {
+      const gx = Array.prototype.slice.call(x, from, from + m) as number[];
+      const gy = Array.prototype.slice.call(y, from, from + m) as number[];
+      const c = logCapacity(gx, gy, m);
+      if (c.logCapacityError > 0) { est.push(c.logCapacity); vars.push(c.logCapacityError ** 2); }
+    }
+    from += m;
+  }
+  if (est.length < 2) return null;
+  let sw = 0;
+  let swx = 0;
+  for (let g = 0; g < est.length; g++) { sw += 1 / vars[g]; swx += est[g] / vars[g]; }
+  const mean = swx / sw;
+  let chi2 = 0;
+  for (let g = 0; g < est.length; g++) chi2 += (est[g] - mean) ** 2 / vars[g];
+  const dof = est.length - 1;
+  return { jobs: est.length, chiSquare: chi2, degreesOfFreedom: dof, spreadOverStated: Math.sqrt(chi2 / dof) };
+}

@@ -54,7 +54,7 @@
  */
 import { boxStatistics, logSpaced, type BoxStatistics, type WeightedPoints } from './partition-function.js';
 import { spectrumFrom, type Spectrum } from './spectrum.js';
-import { logCapacity, type CapacityEstimate } from './log-capacity.js';
+import { capacityJobCheck, logCapacity, type CapacityEstimate, type CapacityJobCheck } from './log-capacity.js';
 import { beurlingVerdict, BEURLING_BOUND, type BeurlingVerdict } from './beurling-check.js';
 import { diskUnionConnected } from './disk-union-connected.js';
 import { resolutionSystematic, resolutionWarning, type ResolutionSystematic } from './resolution-systematic.js';
@@ -75,6 +75,8 @@ export interface ProbeAnalysisInput {
   contactX: ArrayLike<number>;
   contactY: ArrayLike<number>;
   contactCount: number;
+  /** Contact points per job, in order (the contact arrays are the jobs' samples concatenated); for the capacity's job check. */
+  contactJobSizes?: number[];
   q: number[];
   /** Absolute box sides [lo, hi]; default: the rule in the file header. */
   window?: [number, number];
@@ -113,7 +115,8 @@ export interface HarmonicMeasures {
     connected: boolean;
     beurling: BeurlingVerdict;
   };
-  capacity: (CapacityEstimate & { set: string }) | null;
+  /** jobCheck: the stated error checked against the spread of the jobs' own estimates (log-capacity.ts); null with one job. */
+  capacity: (CapacityEstimate & { set: string; jobCheck: CapacityJobCheck | null }) | null;
 }
 
 function radiusAt(r: number | ArrayLike<number>, i: number): number {
@@ -202,7 +205,10 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
     converged = inp.q.map((_, k) => Math.abs(a[k] - b[k]) <= 0.05 + 0.05 * Math.abs(spectrum.tau[k]));
   }
   const capacity = inp.contactCount >= 4
-    ? { ...logCapacity(inp.contactX, inp.contactY, inp.contactCount), set: 'union of the contact disks' }
+    ? {
+      ...logCapacity(inp.contactX, inp.contactY, inp.contactCount), set: 'union of the contact disks',
+      jobCheck: inp.contactJobSizes ? capacityJobCheck(inp.contactX, inp.contactY, inp.contactJobSizes) : null,
+    }
     : null;
   const connected = diskUnionConnected(n, inp.x, inp.y, inp.r);
   const resolution = resolutionSystematic(stats.eps, inp.q, rMed);

@@ -67,7 +67,7 @@ export function analyseResults(set: DiskSet, results: ProbeResult[], q: number[]
   const contactY = results.flatMap((r) => r.contactY);
   const measures = analyzeProbe({
     count: set.count, x: set.x, y: set.y, r: set.r, counts, halves,
-    contactX, contactY, contactCount: contactX.length, q, relativeWindow: window,
+    contactX, contactY, contactCount: contactX.length, contactJobSizes: results.map((r) => r.contactX.length), q, relativeWindow: window,
   });
   return { counts, contactX, contactY, measures };
 }
