@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { boxStatistics, logSpaced } from '../coordinator/harmonic/partition-function.js';
 import { spectrumFrom } from '../coordinator/harmonic/spectrum.js';
-import { logCapacity } from '../coordinator/harmonic/log-capacity.js';
+import { capacityJobCheck, logCapacity } from '../coordinator/harmonic/log-capacity.js';
 import { ensembleMeanInterval } from '../coordinator/harmonic/ensemble-intervals.js';
 import { Random } from '../worker/core/random.js';
 
@@ -84,6 +84,26 @@ describe('logarithmic capacity from samples of the harmonic measure', () => {
     // for the true harmonic measure the excess is noise of order 1 (our rule: beyond 5 is flagged)
     expect(d.frostmanExcess).toBeGreaterThan(10);
     expect(Math.abs(c.frostmanExcess)).toBeLessThan(5);
+  });
+});
+
+describe('capacity job check', () => {
+  it('jobs from the same harmonic measure agree with their stated errors; a job from another set does not', () => {
+    const rng = Random.forRun('17', 0, 3);
+    const circle = (n: number, r: number, x: number[], y: number[]) => {
+      for (let i = 0; i < n; i++) { const t = 2 * Math.PI * rng.nextDouble(); x.push(r * Math.cos(t)); y.push(r * Math.sin(t)); }
+    };
+    const x: number[] = [], y: number[] = [];
+    for (let j = 0; j < 8; j++) circle(300, 1, x, y);
+    const ok = capacityJobCheck(x, y, new Array(8).fill(300))!;
+    expect(ok.jobs).toBe(8);
+    expect(ok.degreesOfFreedom).toBe(7);
+    expect(ok.chiSquare).toBeLessThan(24.3); // chi-square, 7 degrees of freedom, p = 0.001
+    const u: number[] = [], v: number[] = [];
+    circle(300, 1.1, u, v);
+    for (let j = 1; j < 8; j++) circle(300, 1, u, v);
+    expect(capacityJobCheck(u, v, new Array(8).fill(300))!.chiSquare).toBeGreaterThan(24.3);
+    expect(capacityJobCheck(x, y, [2400])).toBeNull();
   });
 });
 
