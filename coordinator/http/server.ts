@@ -8,7 +8,7 @@
  *   POST /ensembles/:id/cancel       cancel; token required
  *   GET  /ensembles/:id/summary?format=json|csv|pb[&table=NAME]
  *   POST /probes                     probe a point set of your own on the farm: body = {csv | points,
- *                                    walkers, seed, jobs?, q?, contact_sample?, min_step?, name?};
+ *                                    walkers, seed, jobs?, q?, contact_sample?, min_step?, window?, name?};
  *                                    token required; 201 {id, status}
  *   GET  /probes/:id                 state, jobs done, and the harmonic measures once analysed
  *   GET  /probes/:id/hits            CSV index,x,y,r,hits,measure per disk (once analysed)
