@@ -94,7 +94,9 @@ describe('tendril grow, end to end', () => {
     }
     expect(worstOverlap).toBeLessThan(1e-9);
     expect(worstGap).toBeLessThan(1e-9);
-    const radii = clusterRadii(s.x, s.y, s.count);
+    const coords = new Float64Array(2 * s.count);
+    for (let i = 0; i < s.count; i++) [coords[2 * i], coords[2 * i + 1]] = [s.x[i], s.y[i]];
+    const radii = clusterRadii({ dimension: 2, count: s.count, coords });
     const summary = first.stdout.trimEnd().split('\n')[3];
     expect(summary).toContain(`R_g = ${radii.radiusOfGyration.toFixed(2)}`);
     expect(summary).toContain(`R_max = ${radii.maxRadius.toFixed(2)}`);

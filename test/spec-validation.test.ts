@@ -146,3 +146,15 @@ describe('example specs', () => {
     }
   });
 });
+
+describe('models without a probe or picture', () => {
+  it('a [probe] table is refused in one line for a model whose descriptor declares no probe', async () => {
+    const { probeProblem } = await import('../coordinator/spec/index.js');
+    const { MODELS } = await import('../worker/models/registry.js');
+    const unprobed = { ...MODELS[0], kind: 'no-probe-model', probe: null };
+    expect(probeProblem(MODELS[0])).toBeNull();
+    expect(probeProblem(unprobed, [...MODELS, unprobed])).toBe(
+      `probe: no-probe-model has no harmonic-measure probe; allowed: a spec without [probe] for this model (probes apply to ${MODELS.filter((m) => m.probe !== null).map((m) => m.kind).join(', ')})`,
+    );
+  });
+});

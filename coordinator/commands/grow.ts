@@ -10,7 +10,8 @@
  *   cluster.snapshot  the particle centres in arrival order, in the binary
  *                     format of coordinator/snapshot/cluster-snapshot.ts
  *   cluster.png       picture of the cluster coloured by arrival order
- *                     (coordinator/render/cluster-picture.ts)
+ *                     (coordinator/render/cluster-picture.ts), for models
+ *                     whose descriptor declares a picture
  *
  * Growth runs as run index 0 of an ensemble whose seed is --seed, so
  * `tendril grow --seed S` grows the same cluster as run 0 of an ensemble with
@@ -23,10 +24,10 @@ import { join, resolve } from 'node:path';
 import type { Command } from 'commander';
 import { UsageError } from '../usage-error.js';
 import { checkModelParams, createKernel, MODEL_KINDS, modelDescriptor, modelParams } from '../../worker/models/registry.js';
-import type { GrowthResult, GrowthTask, ModelParams } from '../../worker/core/growth-kernel.js';
-import { axisOf } from '../../worker/core/positions.js';
-import { encodeSnapshot } from '../snapshot/cluster-snapshot.js';
+import type { ClusterPositions, GrowthResult, GrowthTask, ModelParams } from '../../worker/core/growth-kernel.js';
+import { encodeSnapshot, pointSetOf } from '../snapshot/cluster-snapshot.js';
 import { renderClusterPng, DEFAULT_PICTURE_SIZE } from '../render/cluster-picture.js';
+import { noPictureReason, picturePointsOf } from '../render/model-picture.js';
 import { createProgress, formatRate, type ProgressMode } from '../progress/progress.js';
 
 export const RUN_RESULT_FILE = 'run-result.json';
@@ -66,7 +67,8 @@ export interface GrowSummary {
   timing: GrowTiming;
   radiusOfGyration: number;
   maxRadius: number;
-  files: { runResult: string; snapshot: string; picture: string };
+  /** picture is null when the model declares no picture. */
+  files: { runResult: string; snapshot: string; picture: string | null };
 }
 
 const MAX_SEED = (1n << 64n) - 1n;
@@ -146,6 +148,8 @@ export function parseGrowOptions(raw: Record<string, unknown>): GrowOptions {
   const outRaw = need('out', 'out', 'the output folder');
   if (typeof outRaw !== 'string' || outRaw.trim() === '') throw new UsageError(`--out must name a folder, got ${JSON.stringify(String(outRaw))}`);
   const model = parseModelOptions(raw.model, raw.param);
+  const noPicture = noPictureReason(model.kind);
+  if (noPicture !== null && raw.pictureSize !== undefined) throw new UsageError(`--picture-size: not allowed for this model; ${noPicture}`);
   const pictureSize = raw.pictureSize === undefined ? DEFAULT_PICTURE_SIZE : parseIntegerOption('picture-size', raw.pictureSize, 64, 8192);
   const recordsPerDecade =
     raw.recordsPerDecade === undefined ? DEFAULT_RECORDS_PER_DECADE : parseIntegerOption('records-per-decade', raw.recordsPerDecade, 10, 100);
@@ -162,28 +166,27 @@ export function growTask(o: GrowOptions): GrowthTask {
   };
 }
 
-/** Radius of gyration about the centre of mass, and largest distance from the seed (particle 0). */
-export function clusterRadii(x: Float64Array, y: Float64Array, n: number): { radiusOfGyration: number; maxRadius: number } {
-  let sx = 0;
-  let sy = 0;
-  for (let i = 0; i < n; i++) {
-    sx += x[i];
-    sy += y[i];
-  }
-  const cx = sx / n;
-  const cy = sy / n;
+/** Radius of gyration about the centre of mass, and largest distance from the seed (particle 0), in any dimension. */
+export function clusterRadii(p: ClusterPositions): { radiusOfGyration: number; maxRadius: number } {
+  const n = p.count;
+  const d = p.dimension;
+  const c = p.coords;
+  const centre = new Float64Array(d);
+  for (let i = 0; i < n; i++) for (let k = 0; k < d; k++) centre[k] += c[i * d + k];
+  for (let k = 0; k < d; k++) centre[k] /= n;
   let s2 = 0;
   let m2 = 0;
-  const x0 = x[0];
-  const y0 = y[0];
   for (let i = 0; i < n; i++) {
-    const dx = x[i] - cx;
-    const dy = y[i] - cy;
-    s2 += dx * dx + dy * dy;
-    const ex = x[i] - x0;
-    const ey = y[i] - y0;
-    const d2 = ex * ex + ey * ey;
-    if (d2 > m2) m2 = d2;
+    let r2 = 0;
+    let e2 = 0;
+    for (let k = 0; k < d; k++) {
+      const a = c[i * d + k] - centre[k];
+      const e = c[i * d + k] - c[k];
+      r2 += a * a;
+      e2 += e * e;
+    }
+    s2 += r2;
+    if (e2 > m2) m2 = e2;
   }
   return { radiusOfGyration: Math.sqrt(s2 / n), maxRadius: Math.sqrt(m2) };
 }
@@ -236,19 +239,18 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
   progress.stop();
   const result = kernel.result();
   const pos = kernel.positions();
-  const x = axisOf(pos, 0);
-  const y = axisOf(pos, 1);
-  const radii = clusterRadii(x, y, pos.count);
+  const radii = clusterRadii(pos);
 
   const w0 = performance.now();
-  const points = { dimension: 2 as const, count: pos.count, x, y, diameter: modelDescriptor(task.model.kind).contactDistance, arrivalOrder: true };
+  const d = modelDescriptor(task.model.kind);
   const files = {
     runResult: join(dir, RUN_RESULT_FILE),
     snapshot: join(dir, SNAPSHOT_FILE),
-    picture: join(dir, PICTURE_FILE),
+    picture: d.picture === null ? null : join(dir, PICTURE_FILE),
   };
-  writeFileSync(files.snapshot, encodeSnapshot(points));
-  writeFileSync(files.picture, renderClusterPng(points, { size: o.pictureSize }));
+  writeFileSync(files.snapshot, encodeSnapshot(pointSetOf(pos, d.contactDistance)));
+  const picturePoints = picturePointsOf(task.model.kind, pos);
+  if (files.picture !== null && picturePoints !== null) writeFileSync(files.picture, renderClusterPng(picturePoints, { size: o.pictureSize }));
   const writeSeconds = (performance.now() - w0) / 1000;
   const timing: GrowTiming = {
     startedAt,
@@ -260,7 +262,7 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
   const file: RunResultFile = { ...result, timing };
   writeFileSync(files.runResult, JSON.stringify(file, null, 2) + '\n');
 
-  io.stdout.write(`${files.runResult}\n${files.snapshot}\n${files.picture}\n`);
+  io.stdout.write(`${files.runResult}\n${files.snapshot}\n${files.picture ?? `no ${PICTURE_FILE}: ${noPictureReason(task.model.kind)}`}\n`);
   io.stdout.write(
     `grew ${result.particles} particles (seed ${o.seed}): R_g = ${radii.radiusOfGyration.toFixed(2)}, ` +
       `R_max = ${radii.maxRadius.toFixed(2)}, ${formatRate(timing.particlesPerSecond)} particles/s over ${growSeconds.toFixed(1)} s\n`,

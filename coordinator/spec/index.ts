@@ -9,8 +9,9 @@
  */
 import { Ajv, type ErrorObject } from 'ajv';
 import { parse as parseToml } from 'smol-toml';
-import { checkModelParams, MODEL_KINDS, modelParams } from '../../worker/models/registry.js';
+import { checkModelParams, MODEL_KINDS, MODELS, modelDescriptor, modelParams } from '../../worker/models/registry.js';
 import type { ModelParams } from '../../worker/core/growth-kernel.js';
+import type { ModelDescriptor } from '../../worker/core/model-descriptor.js';
 import {
   DEFAULT_MAX_TOTAL_PARTICLES,
   MAX_RUNS_PER_JOB,
@@ -214,6 +215,8 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
   } catch (err) {
     problems.push((err as Error).message);
   }
+  const noProbe = pr ? probeProblem(modelDescriptor(d.model)) : null;
+  if (noProbe !== null) problems.push(noProbe);
   if (problems.length > 0) throw new SpecError(problems);
 
   const analysis: AnalysisSettings = {};
@@ -251,6 +254,13 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
         }
       : null,
   };
+}
+
+/** The one line refusing a [probe] table for a model whose descriptor declares no probe, or null when it has one. */
+export function probeProblem(d: ModelDescriptor, models: readonly ModelDescriptor[] = MODELS): string | null {
+  if (d.probe !== null) return null;
+  const probed = models.filter((m) => m.probe !== null).map((m) => m.kind);
+  return `probe: ${d.kind} has no harmonic-measure probe; allowed: a spec without [probe] for this model (probes apply to ${probed.join(', ') || 'no model'})`;
 }
 
 /** Parse and validate in one go. */
