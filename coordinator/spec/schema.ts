@@ -7,11 +7,16 @@
  * Limits that depend on the operator (the total-work ceiling) are checked in
  * coordinator/spec/index.ts, not here. The models and their parameters come
  * from the model registry (worker/models/registry.ts): `model` is one of the
- * registered kinds, and `params` holds the numeric parameters of that model
- * (checked against its descriptor in coordinator/spec/index.ts, with one line
- * naming params.NAME, the model and the allowed range).
+ * registered kinds, and `params` holds the numeric parameters of that model:
+ * one `if model = KIND then params is that model's table` clause per
+ * descriptor (paramsSchemaOf), so an unknown, misplaced or out-of-range
+ * parameter fails the schema itself; coordinator/spec/index.ts words those
+ * failures with the registry's one line naming params.NAME, the model and
+ * the allowed range.
  */
-import { MODEL_KINDS } from '../../worker/models/registry.js';
+import { MODEL_KINDS, MODELS } from '../../worker/models/registry.js';
+import type { ModelDescriptor } from '../../worker/core/model-descriptor.js';
+import { describeRange, rangeSchema } from '../../worker/core/value-range.js';
 
 export { MODEL_KINDS };
 
@@ -27,18 +32,35 @@ export const OBSERVABLES = ['radius_of_gyration', 'max_radius', 'center_offset',
 /** Most sizes at which a cluster may be probed besides its final size. */
 export const MAX_PROBE_SIZES = 24;
 
+/** The JSON schema of one model's `params` table, from its descriptor (every parameter optional: absent ones take their defaults). */
+export function paramsSchemaOf(d: ModelDescriptor) {
+  const properties: Record<string, object> = {};
+  for (const p of d.params) {
+    properties[p.name] = { ...rangeSchema(p), default: p.default, description: `${p.meaning}; ${describeRange(p, p.unit)}` };
+  }
+  return { type: 'object', additionalProperties: false, properties, description: `parameters of ${d.kind}` } as const;
+}
+
+/** One clause per model: when `model` is its kind, `params` must be its table. */
+function modelParamsClauses() {
+  return MODELS.map((d) => ({
+    if: { properties: { model: { const: d.kind } }, required: ['model'] },
+    then: { properties: { params: paramsSchemaOf(d) } },
+  }));
+}
+
 export const SPEC_SCHEMA = {
   $id: 'tendril/ensemble-spec',
   title: 'tendril ensemble spec',
   type: 'object',
   additionalProperties: false,
   required: ['model', 'particles', 'seed'],
+  allOf: modelParamsClauses(),
   properties: {
     name: { type: 'string', minLength: 1, maxLength: 100, pattern: '^[A-Za-z0-9][A-Za-z0-9 _.,:()+-]*$', description: 'a label for people' },
     model: { type: 'string', enum: [...MODEL_KINDS], description: 'growth model' },
     params: {
       type: 'object',
-      additionalProperties: { type: 'number' },
       description: 'model parameters by name (see `tendril models`: each model has its own, with defaults and ranges)',
     },
     particles: { type: 'integer', minimum: MIN_PARTICLES, maximum: MAX_PARTICLES, description: 'particles per cluster, seed included' },
