@@ -195,3 +195,16 @@ describe('degenerate and awkward input', () => {
     expect(() => analyzeEnsemble(runs)).toThrow(/run 1 series.sizes\[3\]/);
   });
 });
+
+describe('fitLine, the one least-squares fit', () => {
+  it('gives slope, intercept, standard error and R² of a small worked example (exact, by hand)', () => {
+    // x = 0..3, y = 1, 3, 2, 5: Sxx = 5, Sxy = 5.5, Syy = 8.75, RSS = 2.7
+    const f = fitLine([0, 1, 2, 3], [1, 3, 2, 5]);
+    expect(f.slope).toBeCloseTo(1.1, 14);
+    expect(f.intercept).toBeCloseTo(1.1, 14);
+    expect(f.standardError).toBeCloseTo(Math.sqrt(0.27), 14);
+    expect(f.rSquared).toBeCloseTo(30.25 / 43.75, 14);
+    expect(f.points).toBe(4);
+    expect(Number.isNaN(fitLine([0, 1], [0, 1]).standardError)).toBe(true);
+  });
+});
