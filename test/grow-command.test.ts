@@ -79,7 +79,7 @@ describe('tendril grow, end to end', () => {
     expect(s.diameter).toBe(1);
     expect(s.arrivalOrder).toBe(true);
     expect([s.x[0], s.y[0]]).toEqual([0, 0]); // the seed sits at the origin (worker/models/dla-offlattice-2d/kernel.ts)
-    // Model definition (DESIGN.md, kernel header): each arrival touches an earlier disk and overlaps none.
+    // Model definition (worker/models/dla-offlattice-2d/kernel.ts header): each arrival touches an earlier disk and overlaps none.
     // Tolerance 1e-9 diameters allows for floating-point rounding of the contact point.
     let worstOverlap = 0;
     let worstGap = 0;
