@@ -23,6 +23,8 @@ import { mkdirSync, statSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import type { Command } from 'commander';
 import { UsageError } from '../usage-error.js';
+import { describeRange } from '../../worker/core/value-range.js';
+import { optionNumber, parseRangeOption, parseSeedOption } from './option-values.js';
 import { checkModelParams, createKernel, MODEL_KINDS, modelDescriptor, modelParams } from '../../worker/models/registry.js';
 import type { ClusterPositions, GrowthResult, GrowthTask, ModelParams } from '../../worker/core/growth-kernel.js';
 import { encodeSnapshot, pointSetOf } from '../snapshot/cluster-snapshot.js';
@@ -71,40 +73,10 @@ export interface GrowSummary {
   files: { runResult: string; snapshot: string; picture: string | null };
 }
 
-const MAX_SEED = (1n << 64n) - 1n;
-const NUMBER_RE = /^[+]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
-
-function describeRange(lo: number, hi: number, loOpen: boolean): string {
-  return `${loOpen ? '(' : '['}${lo}, ${hi}]`;
-}
-
-/** An integer option in [lo, hi]; accepts plain and exponent notation ("1e6"). */
-export function parseIntegerOption(name: string, raw: unknown, lo: number, hi: number): number {
-  const s = typeof raw === 'string' ? raw.trim() : String(raw);
-  const v = NUMBER_RE.test(s) ? Number(s) : NaN;
-  if (!Number.isSafeInteger(v) || v < lo || v > hi) {
-    throw new UsageError(`--${name} must be an integer in [${lo}, ${hi}], got ${JSON.stringify(String(raw))}`);
-  }
-  return v;
-}
-
-/** A real option in (lo, hi] (loOpen) or [lo, hi]. */
-export function parseNumberOption(name: string, raw: unknown, lo: number, hi: number, loOpen: boolean): number {
-  const s = typeof raw === 'string' ? raw.trim() : String(raw);
-  const v = NUMBER_RE.test(s) ? Number(s) : NaN;
-  const ok = Number.isFinite(v) && (loOpen ? v > lo : v >= lo) && v <= hi;
-  if (!ok) throw new UsageError(`--${name} must be a number in ${describeRange(lo, hi, loOpen)}, got ${JSON.stringify(String(raw))}`);
-  return v;
-}
-
-/** An unsigned 64-bit integer in decimal; returned normalised (no leading zeros). */
-export function parseSeedOption(name: string, raw: unknown): string {
-  const s = typeof raw === 'string' ? raw.trim() : String(raw);
-  if (!/^\d{1,20}$/.test(s) || BigInt(s) > MAX_SEED) {
-    throw new UsageError(`--${name} must be an unsigned 64-bit integer in [0, ${MAX_SEED}] written in decimal, got ${JSON.stringify(String(raw))}`);
-  }
-  return BigInt(s).toString();
-}
+/** Limits of grow's own options (the model's parameters come from its descriptor). */
+export const GROW_PARTICLES = { min: 2, max: 100_000_000, integer: true } as const;
+export const PICTURE_SIZE = { min: 64, max: 8192, integer: true } as const;
+export const RECORDS_PER_DECADE = { min: 10, max: 100, integer: true } as const;
 
 /**
  * The model of `--model KIND` and `--param NAME=VALUE` options (repeatable):
@@ -124,8 +96,7 @@ export function parseModelOptions(kindRaw: unknown, paramsRaw: unknown): ModelPa
   for (const item of list) {
     const m = /^([A-Za-z0-9_]+)=(.*)$/.exec(String(item));
     if (!m) throw new UsageError(`--param: ${JSON.stringify(String(item))} is not allowed; allowed: NAME=VALUE with NAME one of ${d.params.map((p) => p.name).join(', ') || '(none: ' + kind + ' has no parameters)'}`);
-    const v = NUMBER_RE.test(m[2].trim()) || /^[-+]/.test(m[2].trim()) ? Number(m[2].trim()) : NaN;
-    given[m[1]] = Number.isNaN(v) ? (m[2] as unknown as number) : v;
+    given[m[1]] = optionNumber(m[2]) as number; // text that is no number is refused by the parameter check, quoted
   }
   const model = modelParams(kind, given);
   try {
@@ -143,16 +114,15 @@ export function parseGrowOptions(raw: Record<string, unknown>): GrowOptions {
     if (v === undefined) throw new UsageError(`--${flag} is required (${what})`);
     return v;
   };
-  const particles = parseIntegerOption('particles', need('particles', 'particles', 'an integer in [2, 100000000]'), 2, 100_000_000);
-  const seed = parseSeedOption('seed', need('seed', 'seed', 'an unsigned 64-bit integer in decimal'));
+  const particles = parseRangeOption('--particles', need('particles', 'particles', describeRange(GROW_PARTICLES)), GROW_PARTICLES);
+  const seed = parseSeedOption('--seed', need('seed', 'seed', 'an unsigned 64-bit integer in decimal'));
   const outRaw = need('out', 'out', 'the output folder');
   if (typeof outRaw !== 'string' || outRaw.trim() === '') throw new UsageError(`--out must name a folder, got ${JSON.stringify(String(outRaw))}`);
   const model = parseModelOptions(raw.model, raw.param);
   const noPicture = noPictureReason(model.kind);
   if (noPicture !== null && raw.pictureSize !== undefined) throw new UsageError(`--picture-size: not allowed for this model; ${noPicture}`);
-  const pictureSize = raw.pictureSize === undefined ? DEFAULT_PICTURE_SIZE : parseIntegerOption('picture-size', raw.pictureSize, 64, 8192);
-  const recordsPerDecade =
-    raw.recordsPerDecade === undefined ? DEFAULT_RECORDS_PER_DECADE : parseIntegerOption('records-per-decade', raw.recordsPerDecade, 10, 100);
+  const pictureSize = raw.pictureSize === undefined ? DEFAULT_PICTURE_SIZE : parseRangeOption('--picture-size', raw.pictureSize, PICTURE_SIZE, 'pixels');
+  const recordsPerDecade = raw.recordsPerDecade === undefined ? DEFAULT_RECORDS_PER_DECADE : parseRangeOption('--records-per-decade', raw.recordsPerDecade, RECORDS_PER_DECADE);
   return { particles, seed, out: outRaw, model, pictureSize, recordsPerDecade, quiet: raw.quiet === true };
 }
 

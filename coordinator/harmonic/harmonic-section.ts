@@ -99,6 +99,7 @@
  */
 import { bootstrapRandom, drawResample, weightedColumnMeans } from '../stats/bootstrap.js';
 import { fitLine, slopeWeights } from '../stats/log-log-fit.js';
+import { checkRange } from '../../worker/core/value-range.js';
 import { bootstrapInterval, type IntervalSummary } from '../stats/bca.js';
 import type { ClusterHarmonic } from './cluster-harmonic.js';
 import { ensembleMeanInterval, type EnsembleValue } from './ensemble-intervals.js';
@@ -122,9 +123,7 @@ export interface HarmonicSectionOptions {
 }
 
 function checkOption(field: string, v: number, lo: number, hi: number, integer: boolean): number {
-  if (!Number.isFinite(v) || v < lo || v > hi || (integer && !Number.isInteger(v)))
-    throw new RangeError(`harmonic section ${field}: ${v} is not ${integer ? 'an integer' : 'a number'} in [${lo}, ${hi}]`);
-  return v;
+  return checkRange(`harmonic section ${field}`, v, { min: lo, max: hi, integer });
 }
 
 /** The interval of a summary: BCa when available, else percentile, else null. */

@@ -35,7 +35,7 @@ import { ENSEMBLE_ID_PATTERN } from '../plan.js';
 import { parseSpecText, SpecError, SPEC_SCHEMA, specDocumentProblems, validateSpec, type SpecLimits } from '../spec/index.js';
 import { compileChecker } from '../spec/schema-messages.js';
 import { farmSummary } from '../farm/summary.js';
-import { launchProbeRequest, ProbeRequestError, ProbeRequestStore, validateProbeRequest } from '../farm/probe-requests.js';
+import { launchProbeRequest, PROBE_REQUEST_SCHEMA, probeRequestProblems, ProbeRequestError, ProbeRequestStore, validateProbeRequest } from '../farm/probe-requests.js';
 import { CSV_TABLE_NAMES, defaultSummaryOptions, renderSummary, SUMMARY_FORMATS, type SummaryFormat, type SummaryOptions } from '../summary/index.js';
 
 export interface ApiOptions {
@@ -106,8 +106,9 @@ export function buildApi(o: ApiOptions): FastifyInstance {
   const app = Fastify({ logger: o.logger ?? false, bodyLimit: o.bodyLimit ?? 65536 });
   // Route schemas are validated with our one-line messages; the spec body with the spec's own checker.
   app.setValidatorCompiler(({ schema }) => {
-    const isSpec = (schema as { $id?: string }).$id === SPEC_SCHEMA.$id;
-    const check = isSpec ? specDocumentProblems : compileChecker(schema);
+    const id = (schema as { $id?: string }).$id;
+    const isSpec = id === SPEC_SCHEMA.$id;
+    const check = isSpec ? specDocumentProblems : id === PROBE_REQUEST_SCHEMA.$id ? probeRequestProblems : compileChecker(schema);
     return (data: unknown) => {
       const problems = check(data);
       if (problems.length === 0) return { value: data };
@@ -250,7 +251,7 @@ export function buildApi(o: ApiOptions): FastifyInstance {
 
   app.post(
     '/probes',
-    { onRequest: requireToken, bodyLimit: probeLimit, schema: { response: { 201: { type: 'object', properties: { id: { type: 'string' }, status: { type: 'string' } } }, 400: ERROR_SCHEMA, 401: ERROR_SCHEMA } } },
+    { onRequest: requireToken, bodyLimit: probeLimit, schema: { body: PROBE_REQUEST_SCHEMA, response: { 201: { type: 'object', properties: { id: { type: 'string' }, status: { type: 'string' } } }, 400: ERROR_SCHEMA, 401: ERROR_SCHEMA } } },
     async (req, reply) => {
       let v;
       try {

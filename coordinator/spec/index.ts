@@ -11,6 +11,7 @@ import { parse as parseToml } from 'smol-toml';
 import { isModelKind, MODEL_KINDS, MODELS, modelDescriptor, modelParamProblems, modelParams } from '../../worker/models/registry.js';
 import { compileChecker, type Checker } from './schema-messages.js';
 import { quoteValue } from '../../worker/core/value-range.js';
+import { probeSettingsOf, probeSettingsProblems, type ProbeSettings, type ProbeSettingsDocument } from '../harmonic/probe-settings.js';
 import type { ModelParams } from '../../worker/core/growth-kernel.js';
 import type { ModelDescriptor } from '../../worker/core/model-descriptor.js';
 import {
@@ -48,25 +49,10 @@ export interface TargetSpec {
   minClusters: number;
 }
 
-/** The [probe] table: harmonic-measure probing of every cluster at its end and at chosen sizes. */
-export interface ProbeSpec {
-  walkers: number;
-  jobs: number;
-  q: number[];
-  contactSample: number;
-  minStep: number;
+/** The [probe] table: harmonic-measure probing of every cluster at its end and at chosen sizes (settings as in coordinator/harmonic/probe-settings.ts). */
+export interface ProbeSpec extends ProbeSettings {
   /** Sizes below `particles` at which clusters are also probed, ascending (may be empty). */
   atSizes: number[];
-}
-
-/** Default q grid of probing: -1 to 5 in steps of 0.25 (contains 0, 1, 2 and 3). */
-export const DEFAULT_PROBE_Q: readonly number[] = Array.from({ length: 25 }, (_, k) => -1 + 0.25 * k);
-/** Default probe walkers per job when the spec gives no job count. */
-export const DEFAULT_PROBE_WALKERS_PER_JOB = 250_000;
-
-/** Probe jobs when none are asked for: one per DEFAULT_PROBE_WALKERS_PER_JOB walkers, at least 2 (for the convergence halves), at most 4096 and at most one per walker. */
-export function defaultProbeJobs(walkers: number): number {
-  return Math.min(walkers, 4096, Math.max(2, Math.ceil(walkers / DEFAULT_PROBE_WALKERS_PER_JOB)));
 }
 
 /** Every size at which the clusters of a spec are probed (ascending, the final size last); empty without [probe]. */
@@ -221,7 +207,7 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
     for (const [k, v] of (pr.at_sizes ?? []).entries()) {
       if (v >= d.particles) problems.push(`probe.at_sizes[${k}]: ${v} is out of range; allowed: an integer from 2 to particles - 1 (${d.particles - 1})`);
     }
-    if (pr.jobs !== undefined && pr.jobs > pr.walkers) problems.push(`probe.jobs: ${pr.jobs} is out of range; allowed: an integer from 1 to probe.walkers (${pr.walkers})`);
+    problems.push(...probeSettingsProblems(pr as ProbeSettingsDocument, 'probe.'));
   }
   const seed = String(d.seed);
   if (BigInt(seed) >= 1n << 64n) problems.push(`seed: "${seed}" is out of range; allowed: an integer from 0 to 18446744073709551615`);
@@ -257,11 +243,7 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
       : null,
     probe: pr
       ? {
-          walkers: pr.walkers,
-          jobs: pr.jobs ?? defaultProbeJobs(pr.walkers),
-          q: pr.q ? [...pr.q] : [...DEFAULT_PROBE_Q],
-          contactSample: Math.min(pr.walkers, pr.contact_sample ?? 4000),
-          minStep: pr.min_step ?? 0.02,
+          ...probeSettingsOf(pr as ProbeSettingsDocument),
           atSizes: [...(pr.at_sizes ?? [])].sort((a: number, b: number) => a - b),
         }
       : null,

@@ -1,0 +1,95 @@
+/**
+ * The probe settings, in one place for the three ways of asking for a probe:
+ * the [probe] table of a spec, the body of POST /probes and the options of
+ * `tendril probe`. Same names (snake_case in documents, --kebab-case on the
+ * CLI), same ranges, same defaults and the same words for their units.
+ *
+ *   walkers         probe walkers per cluster and size (per set for a request)
+ *   jobs            independent seeded jobs they are split into; default
+ *                   defaultProbeJobs(walkers), at most walkers
+ *   q               q values of the partition function; default -1 to 5 in
+ *                   steps of 0.25
+ *   contact_sample  contact points kept for the capacity; default 4000 (at
+ *                   most walkers are used)
+ *   min_step        straight-step length near contact, in largest contact
+ *                   radii; default DEFAULT_PROBE_MIN_STEP (worker/probe/probe-2d.ts)
+ */
+import { DEFAULT_PROBE_MIN_STEP } from '../../worker/probe/probe-2d.js';
+import { describeRange, rangeSchema, type ValueRange } from '../../worker/core/value-range.js';
+
+/** A numeric probe setting: its range, unit, default (null: computed or required) and meaning. */
+export interface ProbeSettingSpec extends ValueRange {
+  unit: string;
+  default: number | null;
+  meaning: string;
+}
+
+export const PROBE_WALKERS: ProbeSettingSpec = { min: 100, max: 10_000_000_000, integer: true, unit: 'walkers', default: null, meaning: 'probe walkers per cluster and size' };
+export const PROBE_JOBS: ProbeSettingSpec = { min: 1, max: 4096, integer: true, unit: 'jobs', default: null, meaning: 'independent seeded probe jobs the walkers are split into (default: one per 250000 walkers, at least 2, at most walkers)' };
+export const PROBE_CONTACT_SAMPLE: ProbeSettingSpec = { min: 3, max: 20_000, integer: true, unit: 'contact points', default: 4000, meaning: 'contact points kept for the capacity (at most walkers are used)' };
+export const PROBE_MIN_STEP: ProbeSettingSpec = { min: 0, minOpen: true, max: 1, unit: 'largest contact radii', default: DEFAULT_PROBE_MIN_STEP, meaning: 'straight-step length of the probe walkers near contact' };
+/** Each q value, and how many there may be. */
+export const PROBE_Q_VALUE: ValueRange = { min: -50, max: 50 };
+export const PROBE_Q_MAX_VALUES = 401;
+
+/** Default q grid: -1 to 5 in steps of 0.25 (contains 0, 1, 2 and 3). */
+export const DEFAULT_PROBE_Q: readonly number[] = Array.from({ length: 25 }, (_, k) => -1 + 0.25 * k);
+/** Walkers per job when no job count is given. */
+export const DEFAULT_PROBE_WALKERS_PER_JOB = 250_000;
+
+/** Probe jobs when none are asked for: one per DEFAULT_PROBE_WALKERS_PER_JOB walkers, at least 2 (for the convergence halves), at most 4096 and at most one per walker. */
+export function defaultProbeJobs(walkers: number): number {
+  return Math.min(walkers, PROBE_JOBS.max, Math.max(2, Math.ceil(walkers / DEFAULT_PROBE_WALKERS_PER_JOB)));
+}
+
+function numberSchema(s: ProbeSettingSpec) {
+  return { ...rangeSchema(s), description: `${s.meaning}; ${describeRange(s, s.unit)}${s.default !== null ? `; default ${s.default}` : ''}` };
+}
+
+/** JSON-schema properties of the settings (the spec's [probe] table and the POST /probes body add their own fields). */
+export const PROBE_SETTINGS_PROPERTIES = {
+  walkers: numberSchema(PROBE_WALKERS),
+  jobs: numberSchema(PROBE_JOBS),
+  q: {
+    type: 'array', minItems: 1, maxItems: PROBE_Q_MAX_VALUES, uniqueItems: true,
+    items: { type: 'number', minimum: PROBE_Q_VALUE.min, maximum: PROBE_Q_VALUE.max },
+    description: `q values of the partition function, 1 to ${PROBE_Q_MAX_VALUES} distinct numbers from ${PROBE_Q_VALUE.min} to ${PROBE_Q_VALUE.max} (default -1 to 5 in steps of 0.25)`,
+  },
+  contact_sample: numberSchema(PROBE_CONTACT_SAMPLE),
+  min_step: numberSchema(PROBE_MIN_STEP),
+} as const;
+
+/** Settings with every default filled in. */
+export interface ProbeSettings {
+  walkers: number;
+  jobs: number;
+  q: number[];
+  contactSample: number;
+  minStep: number;
+}
+
+/** The settings document as given (snake_case, schema-checked). */
+export interface ProbeSettingsDocument {
+  walkers: number;
+  jobs?: number;
+  q?: number[];
+  contact_sample?: number;
+  min_step?: number;
+}
+
+/** The problems the schema cannot see (jobs above walkers), one line each; `prefix` is e.g. "probe." in a spec. */
+export function probeSettingsProblems(d: ProbeSettingsDocument, prefix = ''): string[] {
+  if (d.jobs !== undefined && d.jobs > d.walkers) return [`${prefix}jobs: ${d.jobs} is out of range; allowed: an integer from 1 to ${prefix}walkers (${d.walkers})`];
+  return [];
+}
+
+/** Fill in the defaults of a checked settings document. */
+export function probeSettingsOf(d: ProbeSettingsDocument): ProbeSettings {
+  return {
+    walkers: d.walkers,
+    jobs: d.jobs ?? defaultProbeJobs(d.walkers),
+    q: d.q ? [...d.q] : [...DEFAULT_PROBE_Q],
+    contactSample: Math.min(d.walkers, d.contact_sample ?? (PROBE_CONTACT_SAMPLE.default as number)),
+    minStep: d.min_step ?? (PROBE_MIN_STEP.default as number),
+  };
+}
