@@ -28,8 +28,8 @@ import { diskSetDigest, type ProbeResult } from '../../worker/probe/probe-2d.js'
 import { analyseProbedCluster, clusterPrefix, positionsOf, probeTasksOf } from '../harmonic/ensemble-probing.js';
 import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
 import { TaskThreadPool, type ThreadOutcome, type ThreadRun } from '../../worker/runtime/task-thread.js';
-import { checkpointKey, type ArtifactStore } from '../farm/artifacts.js';
-import { finalKey, hitsKey } from '../farm/probe-jobs.js';
+import type { ArtifactStore } from '../farm/artifacts.js';
+import { checkpointKey, finalKey, harmonicKey, hitsKey, resultKey } from '../../worker/runtime/job-contract.js';
 import { planEnsemble, type PlannedJob } from '../plan.js';
 import { maxRunsOf, probeSizesOf, type EnsembleSpec } from '../spec/index.js';
 import { buildSummary, defaultSummaryOptions, judgeBatch, newAdaptiveHistory, type AdaptiveBatch, type AdaptiveHistory, type SummaryOptions } from '../summary/index.js';
@@ -94,8 +94,6 @@ export class EmbeddedAborted extends Error {
   harmonic: ClusterHarmonic[] = [];
 }
 
-const resultKey = (id: string, i: number) => `${id}/run-${i}.result`;
-export const harmonicKey = (id: string, i: number) => `${id}/run-${i}.harmonic.json`;
 
 export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Promise<EmbeddedOutcome> {
   const t0 = Date.now();

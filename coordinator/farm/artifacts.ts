@@ -3,7 +3,8 @@
  * The first implementation is a directory that every worker can reach (local
  * disk or a shared filesystem); an object store can implement the same
  * interface. Writes are atomic (temporary file + rename), so a reader never
- * sees half a checkpoint, even when a worker is killed mid-write.
+ * sees half a checkpoint, even when a worker is killed mid-write. The keys
+ * are listed in the job contract (worker/runtime/job-contract.ts).
  */
 import { mkdir, readFile, rename, rm, writeFile, readdir } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
@@ -72,7 +73,3 @@ export class DirectoryArtifactStore implements ArtifactStore {
   }
 }
 
-/** Key of the newest checkpoint of a run. */
-export function checkpointKey(ensembleId: string, runIndex: number): string {
-  return `${ensembleId}/run-${runIndex}.checkpoint`;
-}

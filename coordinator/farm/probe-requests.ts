@@ -22,7 +22,7 @@ import type { Queue } from 'bullmq';
 import type { Redis } from 'ioredis';
 import { diskSetDigest, planProbeJobs, DEFAULT_PROBE_LAUNCH_MARGIN, type DiskSet } from '../../worker/probe/probe-2d.js';
 import { quoteValue } from '../../worker/core/value-range.js';
-import { JOB_PAYLOAD_VERSION, type ProbeJobData } from '../../worker/runtime/queue-processor.js';
+import { JOB_PAYLOAD_VERSION, type ProbeJobData } from '../../worker/runtime/job-contract.js';
 import { parseDiskCsv } from '../harmonic/probe-input.js';
 import type { HarmonicMeasures } from '../harmonic/probe-analysis.js';
 import { PROBE_SETTINGS_PROPERTIES, probeSettingsOf, probeSettingsProblems, type ProbeSettings, type ProbeSettingsDocument } from '../harmonic/probe-settings.js';

@@ -17,7 +17,8 @@
  * the worker goes on with the next job.
  *
  * Storage is injected (RunSink for results and progress, CheckpointStore for
- * checkpoints), so this file knows no key layout.
+ * checkpoints); the queue name, payloads, their readers and the artifact keys
+ * are the job contract (worker/runtime/job-contract.ts).
  *
  * Probe jobs (name "probe", payload ProbeJobData) share the queue and the
  * concurrency: they are handed to the injected ProbeJobHandler (the
@@ -32,32 +33,8 @@ import { UnrecoverableError, WaitingError, Worker, type ConnectionOptions, type 
 import type { Redis } from 'ioredis';
 import { ContractError, decodeRunTask, type RunResultData, type RunTaskData } from '../../proto/convert.js';
 import { checkRunTask, TaskRejected } from './task-runner.js';
-import { checkProbeTask, type ProbeTask } from '../probe/probe-2d.js';
+import { checkpointKey, QUEUE_NAME, readJobData, readProbeJobData, type ProbeJobData, type RunJobData } from './job-contract.js';
 import { TaskThreadPool, type ThreadRun } from './task-thread.js';
-
-export const QUEUE_NAME = 'runs';
-export const JOB_PAYLOAD_VERSION = 1;
-
-export interface RunJobData {
-  v: number;
-  ensembleId: string;
-  /** Base64 protobuf RunTask messages. */
-  tasks: string[];
-}
-
-/** Payload of a probe job (version 1): one job of the probe of (run, size) of an ensemble. */
-export interface ProbeJobData {
-  v: number;
-  kind: 'probe';
-  /** What is probed: a cluster of an ensemble (default) or the point set of a probe request. */
-  source?: 'cluster' | 'request';
-  /** The ensemble id, or the probe request id. */
-  ensembleId: string;
-  runIndex: number;
-  size: number;
-  /** The probe task (worker/probe/probe-2d.ts ProbeTask), plain JSON. */
-  task: ProbeTask;
-}
 
 export interface ProbeJobHandler {
   /** Run (or skip, when done before) one probe job; throws ProbeJobRefused for a job that can never succeed. */
@@ -68,24 +45,6 @@ export interface ProbeJobHandler {
 
 export class ProbeJobRefused extends Error {
   override name = 'ProbeJobRefused';
-}
-
-/** Read a probe job payload; throws ContractError naming what is wrong. */
-export function readProbeJobData(data: unknown): ProbeJobData {
-  const d = data as Partial<ProbeJobData> | null;
-  if (typeof d !== 'object' || d === null) throw new ContractError('probe job payload is not an object');
-  if (d.v !== JOB_PAYLOAD_VERSION) throw new ContractError(`probe job payload v is ${JSON.stringify(d.v)}, this worker reads only version ${JOB_PAYLOAD_VERSION}`);
-  if (typeof d.ensembleId !== 'string' || d.ensembleId === '') throw new ContractError('probe job payload ensembleId is missing');
-  if (!Number.isSafeInteger(d.runIndex) || (d.runIndex as number) < 0) throw new ContractError(`probe job payload runIndex is ${JSON.stringify(d.runIndex)}, must be a non-negative integer`);
-  if (!Number.isSafeInteger(d.size) || (d.size as number) < 1) throw new ContractError(`probe job payload size is ${JSON.stringify(d.size)}, must be a positive integer`);
-  if (typeof d.task !== 'object' || d.task === null) throw new ContractError('probe job payload task is missing');
-  if (d.source !== undefined && d.source !== 'cluster' && d.source !== 'request') throw new ContractError(`probe job payload source is ${JSON.stringify(d.source)}, must be "cluster" or "request"`);
-  try {
-    checkProbeTask(d.task);
-  } catch (err) {
-    throw new ContractError(`probe job payload task: ${(err as Error).message}`);
-  }
-  return d as ProbeJobData;
 }
 
 export interface RunSink {
@@ -137,26 +96,6 @@ export interface ProcessorOptions extends ProcessorEvents {
   maxStalledCount?: number;
   /** How often progress goes to Redis and cancellation is checked (ms). Default 2 s. */
   progressIntervalMs?: number;
-}
-
-export function checkpointKey(ensembleId: string, runIndex: number): string {
-  return `${ensembleId}/run-${runIndex}.checkpoint`;
-}
-
-/** Read a job payload; throws ContractError naming what is wrong. */
-export function readJobData(data: unknown): { ensembleId: string; tasks: RunTaskData[] } {
-  const d = data as Partial<RunJobData> | null;
-  if (typeof d !== 'object' || d === null) throw new ContractError('job payload is not an object');
-  if (d.v !== JOB_PAYLOAD_VERSION) throw new ContractError(`job payload v is ${JSON.stringify(d.v)}, this worker reads only version ${JOB_PAYLOAD_VERSION}`);
-  if (typeof d.ensembleId !== 'string' || d.ensembleId === '') throw new ContractError('job payload ensembleId is missing');
-  if (!Array.isArray(d.tasks) || d.tasks.length === 0) throw new ContractError('job payload tasks is not a non-empty list');
-  const tasks = d.tasks.map((t, i) => {
-    if (typeof t !== 'string' || !/^[A-Za-z0-9+/]*={0,2}$/.test(t)) throw new ContractError(`job payload tasks[${i}] is not base64 text`);
-    const run = decodeRunTask(Buffer.from(t, 'base64'));
-    if (run.ensembleId !== d.ensembleId) throw new ContractError(`job payload tasks[${i}] belongs to ensemble ${run.ensembleId}, not ${d.ensembleId}`);
-    return run;
-  });
-  return { ensembleId: d.ensembleId, tasks };
 }
 
 export class RunWorker {
