@@ -34,6 +34,7 @@ import { planEnsemble, type PlannedJob } from '../plan.js';
 import { maxRunsOf, probeSizesOf, type EnsembleSpec } from '../spec/index.js';
 import { buildSummary, defaultSummaryOptions, judgeBatch, newAdaptiveHistory, type AdaptiveBatch, type AdaptiveHistory, type SummaryOptions } from '../summary/index.js';
 import type { EnsembleSummaryData } from '../../proto/convert.js';
+import { TendrilError } from '../../proto/errors.js';
 
 export interface EmbeddedProgress {
   runsDone: number;
@@ -85,8 +86,9 @@ export interface EmbeddedOutcome {
   picture: ProbedPicture | null;
 }
 
-export class EmbeddedAborted extends Error {
+export class EmbeddedAborted extends TendrilError {
   override name = 'EmbeddedAborted';
+  readonly kind = 'aborted';
   /** Results finished before the interruption (run-index order) and the clusters planned so far. */
   results: RunResultData[] = [];
   clustersPlanned = 0;

@@ -28,14 +28,16 @@ import type { HarmonicMeasures } from '../harmonic/probe-analysis.js';
 import { PROBE_SETTINGS_PROPERTIES, probeSettingsOf, probeSettingsProblems, type ProbeSettings, type ProbeSettingsDocument } from '../harmonic/probe-settings.js';
 import { NAME_SCHEMA, SEED_SCHEMA } from '../spec/schema.js';
 import { compileChecker, type Checker } from '../spec/schema-messages.js';
+import { TendrilError } from '../../proto/errors.js';
 
 export interface ProbeRequestSettings extends ProbeSettings {
   name: string;
   seed: string;
 }
 
-export class ProbeRequestError extends Error {
+export class ProbeRequestError extends TendrilError {
   override name = 'ProbeRequestError';
+  readonly kind = 'request';
 }
 
 /** Most disks in one request. */

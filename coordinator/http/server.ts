@@ -37,6 +37,7 @@ import { compileChecker } from '../spec/schema-messages.js';
 import { farmSummary } from '../farm/summary.js';
 import { launchProbeRequest, PROBE_REQUEST_SCHEMA, probeRequestProblems, ProbeRequestError, ProbeRequestStore, validateProbeRequest } from '../farm/probe-requests.js';
 import { CSV_TABLE_NAMES, defaultSummaryOptions, renderSummary, SUMMARY_FORMATS, type SummaryFormat, type SummaryOptions } from '../summary/index.js';
+import { messageOf, TendrilError } from '../../proto/errors.js';
 
 export interface ApiOptions {
   store: EnsembleStore;
@@ -54,7 +55,8 @@ export interface ApiOptions {
   logger?: boolean;
 }
 
-class ApiError extends Error {
+class ApiError extends TendrilError {
+  readonly kind = 'request';
   constructor(
     readonly status: number,
     message: string,
@@ -120,7 +122,7 @@ export function buildApi(o: ApiOptions): FastifyInstance {
   app.setErrorHandler((err: Error & { statusCode?: number; code?: string }, _req, reply) => {
     if (err instanceof ApiError) return reply.code(err.status).send(err.problems ? { error: err.message, problems: err.problems } : { error: err.message });
     const status = err.statusCode && err.statusCode >= 400 && err.statusCode < 500 ? err.statusCode : 500;
-    let msg = err.message.split('\n')[0];
+    let msg = messageOf(err);
     if (err.code === 'FST_ERR_CTP_BODY_TOO_LARGE') msg = `body: larger than ${o.bodyLimit ?? 65536} bytes; allowed: at most ${o.bodyLimit ?? 65536} bytes`;
     if (err.code === 'FST_ERR_CTP_INVALID_MEDIA_TYPE') msg = 'content-type: not supported; allowed: application/json or application/toml';
     if (err.code === 'FST_ERR_CTP_EMPTY_JSON_BODY') msg = 'body: empty; allowed: an ensemble spec';

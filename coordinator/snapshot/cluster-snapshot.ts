@@ -29,6 +29,7 @@ import * as zlib from 'node:zlib';
 import { endianness } from 'node:os';
 import type { ClusterPositions } from '../../worker/core/growth-kernel.js';
 import { axisOf } from '../../worker/core/positions.js';
+import { TendrilError } from '../../proto/errors.js';
 
 export const SNAPSHOT_MAGIC = 'TNDRLSNP';
 export const SNAPSHOT_VERSION = 1;
@@ -67,8 +68,9 @@ export function pointSetOf(p: ClusterPositions, diameter: number, count = p.coun
 }
 
 /** Thrown for a malformed snapshot; the message is one line. */
-export class SnapshotError extends Error {
+export class SnapshotError extends TendrilError {
   override name = 'SnapshotError';
+  readonly kind = 'snapshot';
 }
 
 const LITTLE_ENDIAN_HOST = endianness() === 'LE';

@@ -21,6 +21,7 @@ import {
   SPEC_SCHEMA,
   type TARGET_ESTIMATORS,
 } from './schema.js';
+import { messageOf, TendrilError } from '../../proto/errors.js';
 
 export { SPEC_SCHEMA } from './schema.js';
 
@@ -102,8 +103,9 @@ export interface EnsembleSpec {
   probe: ProbeSpec | null;
 }
 
-export class SpecError extends Error {
+export class SpecError extends TendrilError {
   override name = 'SpecError';
+  readonly kind = 'spec';
   constructor(readonly problems: string[]) {
     super(problems.length === 1 ? problems[0] : `${problems.length} problems: ${problems.join('; ')}`);
   }
@@ -333,8 +335,6 @@ export function mergeAnalysisSettings(base: AnalysisSettings, overrideDoc: Recor
   return validateSpec(probe, { maxTotalParticles: Number.MAX_SAFE_INTEGER }).analysis;
 }
 
-function oneLine(err: unknown): string {
-  return (err instanceof Error ? err.message : String(err)).split('\n')[0];
-}
+const oneLine = messageOf;
 
 export { MAX_RUNS_PER_JOB };

@@ -35,6 +35,7 @@ import { ContractError, decodeRunTask, type RunResultData, type RunTaskData } fr
 import { checkRunTask, TaskRejected } from './task-runner.js';
 import { checkpointKey, QUEUE_NAME, readJobData, readProbeJobData, type ProbeJobData, type RunJobData } from './job-contract.js';
 import { TaskThreadPool, type ThreadRun } from './task-thread.js';
+import { kindOf, messageOf, TendrilError } from '../../proto/errors.js';
 
 export interface ProbeJobHandler {
   /** Run (or skip, when done before) one probe job; throws ProbeJobRefused for a job that can never succeed. */
@@ -43,8 +44,9 @@ export interface ProbeJobHandler {
   failed(job: ProbeJobData, reason: string): Promise<void>;
 }
 
-export class ProbeJobRefused extends Error {
+export class ProbeJobRefused extends TendrilError {
   override name = 'ProbeJobRefused';
+  readonly kind = 'probe-refused';
 }
 
 export interface RunSink {
@@ -119,7 +121,7 @@ export class RunWorker {
       maxStalledCount: o.maxStalledCount ?? 20,
     });
     this.worker.on('failed', (job, err) => {
-      if (err instanceof WaitingError || err?.name === 'WaitingError') return;
+      if (err instanceof WaitingError) return;
       o.onJobFailed?.(err.message);
       o.log?.(`job ${job?.id ?? '?'} failed: ${err.message}`);
       if (job?.name === 'probe') {
@@ -136,7 +138,7 @@ export class RunWorker {
         })().catch(() => undefined);
       }
     });
-    this.worker.on('error', (err) => o.log?.(`queue error: ${err.message.split('\n')[0]}`));
+    this.worker.on('error', (err) => o.log?.(`queue error: ${messageOf(err)}`));
   }
 
   start(): void {
@@ -158,7 +160,7 @@ export class RunWorker {
       parsed = readJobData(job.data);
       for (const t of parsed.tasks) checkRunTask(t);
     } catch (err) {
-      const reason = (err as Error).message.split('\n')[0];
+      const reason = messageOf(err);
       if (err instanceof ContractError || err instanceof TaskRejected) {
         const d = job.data as Partial<RunJobData> | null;
         if (typeof d?.ensembleId === 'string' && (await this.o.sink.exists(d.ensembleId).catch(() => false))) {
@@ -205,14 +207,14 @@ export class RunWorker {
     try {
       d = readProbeJobData(job.data);
     } catch (err) {
-      throw new UnrecoverableError((err as Error).message.split('\n')[0]);
+      throw new UnrecoverableError(messageOf(err));
     }
     if (!this.o.probes) throw new UnrecoverableError('this worker has no probe handler');
     this.o.onRunStarted?.();
     try {
       return { outcome: await this.o.probes.run(d) };
     } catch (err) {
-      if (err instanceof ProbeJobRefused || (err as Error)?.name === 'ProbeJobRefused') throw new UnrecoverableError((err as Error).message.split('\n')[0]);
+      if (kindOf(err) === 'probe-refused') throw new UnrecoverableError(messageOf(err));
       throw err;
     } finally {
       this.o.onRunEnded?.();
