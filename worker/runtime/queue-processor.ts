@@ -33,7 +33,10 @@ import { UnrecoverableError, WaitingError, Worker, type ConnectionOptions, type 
 import type { Redis } from 'ioredis';
 import { ContractError, decodeRunTask, type RunResultData, type RunTaskData } from '../../proto/convert.js';
 import { checkRunTask, TaskRejected } from './task-runner.js';
-import { checkpointKey, QUEUE_NAME, readJobData, readProbeJobData, type ProbeJobData, type RunJobData } from './job-contract.js';
+import { QUEUE_NAME, readJobData, readProbeJobData, type ProbeJobData, type RunJobData } from './job-contract.js';
+import { runOne, type CheckpointStore, type ProcessorEvents, type RunOutcome, type RunSink } from './run-lifecycle.js';
+
+export type { CheckpointStore, ProcessorEvents, RunSink };
 import { TaskThreadPool, type ThreadRun } from './task-thread.js';
 import { kindOf, messageOf, TendrilError } from '../../proto/errors.js';
 
@@ -47,37 +50,6 @@ export interface ProbeJobHandler {
 export class ProbeJobRefused extends TendrilError {
   override name = 'ProbeJobRefused';
   readonly kind = 'probe-refused';
-}
-
-export interface RunSink {
-  exists(ensembleId: string): Promise<boolean>;
-  isCancelled(ensembleId: string): Promise<boolean>;
-  hasResult(ensembleId: string, runIndex: number): Promise<boolean>;
-  runStarted(ensembleId: string, runIndex: number, workerId: string): Promise<void>;
-  /** The run was handed back (shutdown or cancel) without a result. */
-  runReleased(ensembleId: string, runIndex: number): Promise<void>;
-  progress(ensembleId: string, runIndex: number, count: number, delta: number): Promise<void>;
-  /** Store a finished run; false when it was stored before. */
-  saveResult(result: RunResultData, bytes: Uint8Array): Promise<boolean>;
-  runFailed(ensembleId: string, runIndex: number, reason: string): Promise<void>;
-  /** Keep the final state of a run that keeps positions (and queue its probes); called before saveResult. */
-  finalPositions?(run: RunTaskData, finalCheckpoint: Uint8Array): Promise<void>;
-}
-
-export interface CheckpointStore {
-  put(key: string, bytes: Uint8Array): Promise<void>;
-  get(key: string): Promise<Uint8Array | null>;
-  delete(key: string): Promise<void>;
-}
-
-export interface ProcessorEvents {
-  /** Particles grown and counter increments (by the names of the model's descriptor) since the last call, for metrics. */
-  onGrowth?: (model: string, particles: number, counters: Record<string, number>) => void;
-  onRunDone?: (result: RunResultData, counted: boolean) => void;
-  onRunStarted?: () => void;
-  onRunEnded?: () => void;
-  onJobFailed?: (reason: string) => void;
-  log?: (line: string) => void;
 }
 
 export interface ProcessorOptions extends ProcessorEvents {
@@ -221,86 +193,24 @@ export class RunWorker {
     }
   }
 
-  private async growOne(run: RunTaskData): Promise<'done' | 'released' | 'cancelled'> {
-    const { sink, checkpoints } = this.o;
-    const key = checkpointKey(run.ensembleId, run.runIndex);
-    const checkpoint = (await checkpoints.get(key)) ?? undefined;
-    await sink.runStarted(run.ensembleId, run.runIndex, this.workerId);
-    this.o.onRunStarted?.();
-    let lastCount = -1;
-    let lastCounters: Record<string, number> = {};
-    let reported = -1;
-    let writes: Promise<void> = Promise.resolve();
-    let cancelled = false;
-    const handle = this.pool.run(run, {
-      checkpoint,
-      workerId: this.workerId,
-      onProgress: (p) => {
-        if (lastCount >= 0) {
-          const deltas: Record<string, number> = {};
-          for (const [k, v] of Object.entries(p.counters)) deltas[k] = Math.max(0, v - (lastCounters[k] ?? 0));
-          this.o.onGrowth?.(run.model.kind, Math.max(0, p.count - lastCount), deltas);
-        }
-        else if (reported < 0) reported = p.count;
-        lastCount = p.count;
-        lastCounters = p.counters;
-      },
-      onCheckpoint: (bytes) => {
-        writes = writes.then(() => checkpoints.put(key, bytes)).catch((err) => this.o.log?.(`checkpoint of run ${run.runIndex} not stored: ${(err as Error).message}`));
-      },
-    });
-    this.active.add(handle);
-    if (this.stopping) handle.stop();
-    let tick: Promise<void> = Promise.resolve();
-    const timer = setInterval(() => {
-      tick = (async () => {
-        if (lastCount >= 0 && lastCount !== reported) {
-          const delta = reported >= 0 ? lastCount - reported : 0;
-          reported = lastCount;
-          await sink.progress(run.ensembleId, run.runIndex, lastCount, delta);
-        }
-        if (!cancelled && (await sink.isCancelled(run.ensembleId))) {
-          cancelled = true;
-          handle.stop();
-        }
-      })().catch((err) => this.o.log?.(`progress of run ${run.runIndex} not stored: ${(err as Error).message}`));
-    }, this.o.progressIntervalMs ?? 2000);
+  private async growOne(run: RunTaskData): Promise<RunOutcome> {
     try {
-      const outcome = await handle.outcome;
-      clearInterval(timer);
-      await tick;
-      await writes;
-      if (outcome.status === 'done') {
-        if (lastCount >= 0 && reported >= 0 && lastCount > reported) await sink.progress(run.ensembleId, run.runIndex, lastCount, lastCount - reported);
-        if (run.keepPositions) {
-          if (!outcome.final) throw new Error(`run ${run.runIndex}: the thread returned no final positions`);
-          if (!sink.finalPositions) throw new UnrecoverableError(`run ${run.runIndex} keeps positions but this worker cannot store them`);
-          await sink.finalPositions(run, outcome.final);
-        }
-        const counted = await sink.saveResult(outcome.result, outcome.resultBytes);
-        await checkpoints.delete(key);
-        this.o.onRunDone?.(outcome.result, counted);
-        return 'done';
-      }
-      if (outcome.status === 'stopped') {
-        if (cancelled) {
-          await checkpoints.delete(key);
-          await sink.runReleased(run.ensembleId, run.runIndex);
-          return 'cancelled';
-        }
-        await checkpoints.put(key, outcome.checkpoint);
-        await sink.runReleased(run.ensembleId, run.runIndex);
-        return 'released';
-      }
-      if (outcome.rejected) {
-        await sink.runFailed(run.ensembleId, run.runIndex, outcome.message);
-        throw new UnrecoverableError(outcome.message);
-      }
-      throw new Error(`run ${run.runIndex}: ${outcome.message}`);
-    } finally {
-      clearInterval(timer);
-      this.active.delete(handle);
-      this.o.onRunEnded?.();
+      return await runOne(run, {
+        pool: this.pool,
+        sink: this.o.sink,
+        checkpoints: this.o.checkpoints,
+        workerId: this.workerId,
+        progressIntervalMs: this.o.progressIntervalMs ?? 2000,
+        events: this.o,
+        onStart: (handle) => {
+          this.active.add(handle);
+          if (this.stopping) handle.stop();
+        },
+        onEnd: (handle) => this.active.delete(handle),
+      });
+    } catch (err) {
+      if (err instanceof TaskRejected) throw new UnrecoverableError(err.message);
+      throw err;
     }
   }
 }
