@@ -1,6 +1,7 @@
 /**
  * `tendril probe INPUT --walkers N --seed S --out DIR [--jobs K]
- *  [--q-grid a:b:step] [--threads T] [--contact-sample M] [--min-step h]`
+ *  [--q-grid a:b:step] [--threads T] [--contact-sample M] [--min-step h]
+ *  [--window lo:hi]`
  * (the settings, their ranges and defaults are those of a spec's [probe]
  * table and of POST /probes: coordinator/harmonic/probe-settings.ts)
  *
@@ -13,6 +14,8 @@
  *                        logarithmic capacity ± error, convergence flags,
  *                        the fit window and the sign convention; plus
  *                        `timing` (wall clock, never compared)
+ *                        (with the fit window, window and contact-radius
+ *                        systematics, and warnings, also printed to stderr)
  *   probe-hits.csv       index,x,y,r,hits,measure per disk
  *   probe-measure.png    the set coloured by log harmonic measure
  */
@@ -26,10 +29,19 @@ import { defaultProbeJobs, PROBE_CONTACT_SAMPLE, PROBE_JOBS, PROBE_MIN_STEP, PRO
 import { readProbeInput } from '../harmonic/probe-input.js';
 import { runProbes } from '../harmonic/probe-run.js';
 import { renderMeasurePng } from '../harmonic/measure-picture.js';
+import { WINDOW_RULE, windowProblem } from '../harmonic/fit-window.js';
 
 export const MEASURES_FILE = 'probe-measures.json';
 export const HITS_FILE = 'probe-hits.csv';
 export const MEASURE_PICTURE_FILE = 'probe-measure.png';
+
+/** Parse --window lo:hi (box sides relative to the set radius R; rule in fit-window.ts). */
+export function parseWindowOption(raw: string): [number, number] {
+  const parts = raw.split(':').map((t) => t.trim());
+  const nums = parts.map((t) => (/^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/.test(t) ? Number(t) : NaN));
+  if (nums.length !== 2 || windowProblem(nums) !== null) throw new UsageError(`--window must be lo:hi, ${WINDOW_RULE}, got ${JSON.stringify(raw)}`);
+  return [nums[0], nums[1]];
+}
 
 /** Parse a:b:step into the grid a, a+step, … ≤ b (at most 401 values, |q| ≤ 50). */
 export function parseQGrid(raw: string): number[] {
@@ -65,6 +77,7 @@ export function register(program: Command): void {
     .option('--threads <t>', `worker threads, ${describeRange(THREADS)}`, '1')
     .option('--contact-sample <m>', helpOf(PROBE_CONTACT_SAMPLE), String(PROBE_CONTACT_SAMPLE.default))
     .option('--min-step <h>', helpOf(PROBE_MIN_STEP), String(PROBE_MIN_STEP.default))
+    .option('--window <lo:hi>', 'fit window: smallest and largest box side relative to the set radius R (default: see the README)')
     .action(async (input: string, raw: Record<string, unknown>) => {
       const need = (k: string, what: string): unknown => {
         if (raw[k] === undefined) throw new UsageError(`--${k} is required (${what})`);
@@ -81,6 +94,7 @@ export function register(program: Command): void {
       const contactSample = Math.min(walkers, parseRangeOption('--contact-sample', raw.contactSample, PROBE_CONTACT_SAMPLE, PROBE_CONTACT_SAMPLE.unit));
       const minStep = parseRangeOption('--min-step', raw.minStep, PROBE_MIN_STEP, PROBE_MIN_STEP.unit);
       const q = parseQGrid(String(raw.qGrid));
+      const window = raw.window === undefined ? null : parseWindowOption(String(raw.window));
       let set;
       try {
         set = readProbeInput(input);
@@ -96,7 +110,7 @@ export function register(program: Command): void {
       }
       let run;
       try {
-        run = await runProbes(set, { walkers, seed, jobs, threads, q, contactSample, minStep });
+        run = await runProbes(set, { walkers, seed, jobs, threads, q, contactSample, minStep, window });
       } catch (e) {
         if (e instanceof RangeError) throw new UsageError(`INPUT ${input}: ${e.message}`);
         throw e;
@@ -115,6 +129,7 @@ export function register(program: Command): void {
       }
       writeFileSync(join(dir, HITS_FILE), lines.join('\n') + '\n');
       writeFileSync(join(dir, MEASURE_PICTURE_FILE), renderMeasurePng(set.count, set.x, set.y, set.drawRadius, run.counts));
+      for (const w of run.measures.warnings) process.stderr.write(`warning: ${w}\n`);
       const cap = run.measures.capacity;
       process.stdout.write(
         `probed ${set.count} disks with ${walkers} walkers in ${run.seconds.toFixed(2)} s; ` +

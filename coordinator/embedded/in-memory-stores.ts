@@ -60,7 +60,7 @@ export class EmbeddedRunSink implements RunSink {
   async runReleased(_ensembleId: string, runIndex: number): Promise<void> {
     this.live.delete(runIndex);
   }
-  async progress(_ensembleId: string, runIndex: number, count: number): Promise<void> {
+  async progress(_ensembleId: string, runIndex: number, count: number, _delta?: number): Promise<void> {
     this.live.set(runIndex, count);
     this.onChange();
   }

@@ -67,7 +67,7 @@ export const probeRequestProblems: Checker = compileChecker(PROBE_REQUEST_SCHEMA
 
 /**
  * Check a request body: { name?, csv? | points?: {x: [...], y: [...], r: number | [...]},
- * walkers, seed, jobs?, q?, contact_sample?, min_step? }. Throws ProbeRequestError with one
+ * walkers, seed, jobs?, q?, contact_sample?, min_step?, window? }. Throws ProbeRequestError with one
  * line naming the field, the value and what is allowed.
  */
 export function validateProbeRequest(body: unknown): { settings: ProbeRequestSettings; set: DiskSet & { x: Float64Array; y: Float64Array; r: Float64Array } } {

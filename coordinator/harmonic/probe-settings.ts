@@ -11,11 +11,14 @@
  *                   steps of 0.25
  *   contact_sample  contact points kept for the capacity; default 4000 (at
  *                   most walkers are used)
- *   min_step        straight-step length near contact, in largest contact
- *                   radii; default DEFAULT_PROBE_MIN_STEP (worker/probe/probe-2d.ts)
+ *   min_step        straight-step length of the final approach, in largest
+ *                   contact radii; default DEFAULT_PROBE_MIN_STEP (worker/probe/probe-2d.ts)
+ *   window          fit window [lo, hi] of box sides relative to the set
+ *                   radius R (coordinator/harmonic/fit-window.ts); default null
  */
 import { DEFAULT_PROBE_MIN_STEP } from '../../worker/probe/probe-2d.js';
-import { describeRange, rangeSchema, type ValueRange } from '../../worker/core/value-range.js';
+import { describeRange, quoteValue, rangeSchema, type ValueRange } from '../../worker/core/value-range.js';
+import { WINDOW_RULE, windowProblem } from './fit-window.js';
 
 /** A numeric probe setting: its range, unit, default (null: computed or required) and meaning. */
 export interface ProbeSettingSpec extends ValueRange {
@@ -27,7 +30,7 @@ export interface ProbeSettingSpec extends ValueRange {
 export const PROBE_WALKERS: ProbeSettingSpec = { min: 100, max: 10_000_000_000, integer: true, unit: 'walkers', default: null, meaning: 'probe walkers per cluster and size' };
 export const PROBE_JOBS: ProbeSettingSpec = { min: 1, max: 4096, integer: true, unit: 'jobs', default: null, meaning: 'independent seeded probe jobs the walkers are split into (default: one per 250000 walkers, at least 2, at most walkers)' };
 export const PROBE_CONTACT_SAMPLE: ProbeSettingSpec = { min: 3, max: 20_000, integer: true, unit: 'contact points', default: 4000, meaning: 'contact points kept for the capacity (at most walkers are used)' };
-export const PROBE_MIN_STEP: ProbeSettingSpec = { min: 0, minOpen: true, max: 1, unit: 'largest contact radii', default: DEFAULT_PROBE_MIN_STEP, meaning: 'straight-step length of the probe walkers near contact' };
+export const PROBE_MIN_STEP: ProbeSettingSpec = { min: 0, minOpen: true, max: 1, unit: 'largest contact radii', default: DEFAULT_PROBE_MIN_STEP, meaning: 'final approach: probes take straight steps of this length where two disks are this close, exact lens steps elsewhere' };
 /** Each q value, and how many there may be. */
 export const PROBE_Q_VALUE: ValueRange = { min: -50, max: 50 };
 export const PROBE_Q_MAX_VALUES = 401;
@@ -57,6 +60,12 @@ export const PROBE_SETTINGS_PROPERTIES = {
   },
   contact_sample: numberSchema(PROBE_CONTACT_SAMPLE),
   min_step: numberSchema(PROBE_MIN_STEP),
+  window: {
+    type: 'array', minItems: 2, maxItems: 2,
+    items: { type: 'number', exclusiveMinimum: 0, maximum: 1 },
+    $comment: WINDOW_RULE,
+    description: `fit window [lo, hi]: ${WINDOW_RULE} (default: see the README)`,
+  },
 } as const;
 
 /** Settings with every default filled in. */
@@ -66,6 +75,8 @@ export interface ProbeSettings {
   q: number[];
   contactSample: number;
   minStep: number;
+  /** Fit window relative to the set radius R (coordinator/harmonic/fit-window.ts); null: the default rule. */
+  window: [number, number] | null;
 }
 
 /** The settings document as given (snake_case, schema-checked). */
@@ -75,12 +86,18 @@ export interface ProbeSettingsDocument {
   q?: number[];
   contact_sample?: number;
   min_step?: number;
+  window?: [number, number];
 }
 
 /** The problems the schema cannot see (jobs above walkers), one line each; `prefix` is e.g. "probe." in a spec. */
 export function probeSettingsProblems(d: ProbeSettingsDocument, prefix = ''): string[] {
-  if (d.jobs !== undefined && d.jobs > d.walkers) return [`${prefix}jobs: ${d.jobs} is out of range; allowed: an integer from 1 to ${prefix}walkers (${d.walkers})`];
-  return [];
+  const out: string[] = [];
+  if (d.window !== undefined) {
+    const bad = windowProblem(d.window);
+    if (bad !== null) out.push(`${prefix}window: ${quoteValue(d.window)} ${bad}`);
+  }
+  if (d.jobs !== undefined && d.jobs > d.walkers) out.push(`${prefix}jobs: ${d.jobs} is out of range; allowed: an integer from 1 to ${prefix}walkers (${d.walkers})`);
+  return out;
 }
 
 /** Fill in the defaults of a checked settings document. */
@@ -91,5 +108,6 @@ export function probeSettingsOf(d: ProbeSettingsDocument): ProbeSettings {
     q: d.q ? [...d.q] : [...DEFAULT_PROBE_Q],
     contactSample: Math.min(d.walkers, d.contact_sample ?? (PROBE_CONTACT_SAMPLE.default as number)),
     minStep: d.min_step ?? (PROBE_MIN_STEP.default as number),
+    window: d.window ? [d.window[0], d.window[1]] : null,
   };
 }

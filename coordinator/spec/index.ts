@@ -312,6 +312,7 @@ export function specToDocument(s: EnsembleSpec): Record<string, unknown> {
             contact_sample: s.probe.contactSample,
             min_step: s.probe.minStep,
             ...(s.probe.atSizes.length > 0 ? { at_sizes: [...s.probe.atSizes] } : {}),
+            ...(s.probe.window ? { window: [...s.probe.window] } : {}),
           },
         }
       : {}),

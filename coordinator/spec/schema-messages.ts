@@ -94,6 +94,7 @@ export function allowedOf(s: any): string {
     return `a string${len}${s.pattern ? ` matching ${s.pattern}` : ''}`;
   }
   if (s.type === 'array') {
+    if (s.$comment) return s.$comment;
     const items = s.items?.enum ? ` of distinct values from ${s.items.enum.map((x: unknown) => JSON.stringify(x)).join(', ')}` : '';
     return `a non-empty list${items}`;
   }
