@@ -19,8 +19,8 @@ describe('probe settings', () => {
       const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 100, clusters: 1, seed: 1, probe: { walkers } }, { maxTotalParticles: 1e12 }).probe!;
       const req = validateProbeRequest({ walkers, seed: 1, csv: '0,0,1\n' }).settings;
       const want = probeSettingsOf({ walkers });
-      expect({ walkers: spec.walkers, jobs: spec.jobs, q: spec.q, contactSample: spec.contactSample, minStep: spec.minStep }).toEqual(want);
-      expect({ walkers: req.walkers, jobs: req.jobs, q: req.q, contactSample: req.contactSample, minStep: req.minStep }).toEqual(want);
+      expect({ walkers: spec.walkers, jobs: spec.jobs, q: spec.q, contactSample: spec.contactSample, minStep: spec.minStep, window: spec.window }).toEqual(want);
+      expect({ walkers: req.walkers, jobs: req.jobs, q: req.q, contactSample: req.contactSample, minStep: req.minStep, window: req.window }).toEqual(want);
       expect(want.jobs).toBe(defaultProbeJobs(walkers));
     }
     expect(probeSettingsOf({ walkers: 1000 }).q).toEqual([...DEFAULT_PROBE_Q]);
@@ -42,5 +42,9 @@ describe('probe settings', () => {
     }
     expect(specMsg).toBe('probe.min_step: 2 is out of range; allowed: a number above 0 up to 1');
     expect(reqMsg).toBe('min_step: 2 is out of range; allowed: a number above 0 up to 1');
+    const rule = 'two numbers lo, hi with 0 < lo < hi <= 1 and hi >= 2 lo (box sides relative to the set radius R)';
+    expect(() => validateSpec({ model: 'dla-offlattice-2d', particles: 100, clusters: 1, seed: 1, probe: { walkers: 1000, window: [0.3, 0.5] } })).toThrow(`probe.window: [0.3,0.5] is out of range; allowed: ${rule}`);
+    expect(() => validateProbeRequest({ walkers: 1000, seed: 1, csv: '0,0,1\n', window: [0.3, 0.5] })).toThrow(`window: [0.3,0.5] is out of range; allowed: ${rule}`);
+    expect(probeSettingsOf({ walkers: 1000, window: [0.1, 0.5] }).window).toEqual([0.1, 0.5]);
   });
 });
