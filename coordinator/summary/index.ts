@@ -9,7 +9,9 @@
  *
  * The analysis plugs in through `SummaryOptions.enrich`; defaultSummaryOptions()
  * runs analyzeEnsemble with the spec's [analysis] settings (plus any CLI
- * overrides). Its result lands under "statistics" in the JSON and in
+ * overrides) and adds `observables` (coordinator/stats/observable-bands.ts:
+ * the model-specific observables against N with bootstrap bands, and the
+ * Eden interface growth exponent). Its result lands under "statistics" in the JSON and in
  * `statistics_json` of the protobuf summary. A summary of an unfinished
  * ensemble is marked partial and analyses the runs stored so far.
  */
@@ -28,6 +30,7 @@ import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
 import { harmonicSection } from '../harmonic/harmonic-section.js';
 import type { HarmonicSection } from '../harmonic/harmonic-section-types.js';
 import { probeSizesOf } from '../spec/index.js';
+import { observableSection } from '../stats/observable-bands.js';
 
 export { analysisOptionsOf, judgeBatch, newAdaptiveHistory, safeAnalysis, type AdaptiveBatch, type AdaptiveHistory, type AdaptiveOutcome } from './adaptive.js';
 
@@ -99,7 +102,15 @@ export function uniqueRuns(results: Iterable<RunResultData>): RunResultData[] {
  * e.g. `return { enrich: (runs) => analyzeEnsemble(runs) };`.
  */
 export function defaultSummaryOptions(overrides: AnalysisSettings = {}): SummaryOptions {
-  return { enrich: (runs, spec) => safeAnalysis(runs, analysisOptionsOf({ ...spec.analysis, ...overrides })) };
+  return {
+    enrich: (runs, spec) => {
+      const analysis = safeAnalysis(runs, analysisOptionsOf({ ...spec.analysis, ...overrides }));
+      const settings = { ...spec.analysis, ...overrides };
+      // model observables against N with bands, and the Eden interface growth exponent (coordinator/stats/observable-bands.ts)
+      const observables = runs.length > 0 ? observableSection(runs, { seed: spec.seed, resamples: settings.resamples ?? 2000, level: settings.level ?? 0.95 }) : null;
+      return observables !== null && typeof analysis === 'object' && analysis !== null ? { ...analysis, observables } : analysis;
+    },
+  };
 }
 
 export function buildSummary(input: SummaryInput, opts: SummaryOptions = defaultSummaryOptions()): EnsembleSummaryData {

@@ -10,9 +10,19 @@ import type { GrowthCheckpoint, GrowthKernel, GrowthTask, ModelParams } from '..
 import type { ModelDescriptor } from '../core/model-descriptor.js';
 import { checkRange, describeRange, quoteValue, rangeProblem } from '../core/value-range.js';
 import { dlaOffLattice2d } from './dla-offlattice-2d/descriptor.js';
+import { edenSquare } from './eden-square/descriptor.js';
+import { edenTriangular } from './eden-triangular/descriptor.js';
+import { edenOffLattice2d } from './eden-offlattice-2d/descriptor.js';
+import { dlaSquare } from './dla-square/descriptor.js';
+import { dlaTriangular } from './dla-triangular/descriptor.js';
 
 export const MODELS: readonly ModelDescriptor[] = [
   dlaOffLattice2d,
+  edenSquare,
+  edenTriangular,
+  edenOffLattice2d,
+  dlaSquare,
+  dlaTriangular,
 ];
 
 export const MODEL_KINDS: readonly string[] = MODELS.map((m) => m.kind);
