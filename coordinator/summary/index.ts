@@ -15,6 +15,7 @@
  * `statistics_json` of the protobuf summary. A summary of an unfinished
  * ensemble is marked partial and analyses the runs stored so far.
  */
+import { fitLine } from '../stats/log-log-fit.js';
 import {
   encodeEnsembleSummary,
   type EnsembleSummaryData,
@@ -61,43 +62,28 @@ export interface SummaryOptions {
   fitMinSize?: number;
 }
 
-/** Ordinary least squares of log y on log x over the points with x >= minX and x, y > 0. */
+/** Ordinary least squares (fitLine) of log y on log x over the points with x >= minX and x, y > 0. */
 export function logLogFit(xs: number[], ys: number[], minX = 0): PowerLawFitData | null {
-  let n = 0;
-  let sx = 0;
-  let sy = 0;
-  let sxx = 0;
-  let sxy = 0;
-  let syy = 0;
+  const lx: number[] = [];
+  const ly: number[] = [];
   let lo = Infinity;
   let hi = -Infinity;
   for (let i = 0; i < xs.length; i++) {
     const x = xs[i];
     const y = ys[i];
     if (!(x >= minX && x > 0 && y > 0) || !Number.isFinite(y)) continue;
-    const lx = Math.log(x);
-    const ly = Math.log(y);
-    n++;
-    sx += lx;
-    sy += ly;
-    sxx += lx * lx;
-    sxy += lx * ly;
-    syy += ly * ly;
+    lx.push(Math.log(x));
+    ly.push(Math.log(y));
     lo = Math.min(lo, x);
     hi = Math.max(hi, x);
   }
-  if (n < 2) return null;
-  const vx = sxx - (sx * sx) / n;
-  if (!(vx > 0)) return null;
-  const cxy = sxy - (sx * sy) / n;
-  const vy = syy - (sy * sy) / n;
-  const slope = cxy / vx;
-  const intercept = (sy - slope * sx) / n;
+  if (lx.length < 2 || !(hi > lo)) return null;
+  const line = fitLine(lx, ly);
   return {
-    exponent: slope,
-    prefactor: Math.exp(intercept),
-    rSquared: vy > 0 ? (cxy * cxy) / (vx * vy) : 1,
-    points: n,
+    exponent: line.slope,
+    prefactor: Math.exp(line.intercept),
+    rSquared: line.rSquared,
+    points: line.points,
     minX: lo,
     maxX: hi,
   };
