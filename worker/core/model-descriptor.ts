@@ -62,7 +62,7 @@ export interface ModelReference {
 /** Probe kernels: how a cluster of this model is probed for its harmonic measure (null: not probed). */
 export type ProbeKind = 'disks-2d';
 /** How a cluster of this model is drawn. */
-export type PictureKind = 'disks-2d';
+export type PictureKind = 'disks-2d' | 'spheres-3d';
 
 export interface ModelDescriptor {
   /** The model's name in specs, on the CLI and on the wire, e.g. "dla-offlattice-2d". */

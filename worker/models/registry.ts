@@ -10,9 +10,11 @@ import type { GrowthCheckpoint, GrowthKernel, GrowthTask, ModelParams } from '..
 import type { ModelDescriptor } from '../core/model-descriptor.js';
 import { checkRange, quoteValue } from '../core/value-range.js';
 import { dlaOffLattice2d } from './dla-offlattice-2d/descriptor.js';
+import { dlaOffLattice3d } from './dla-offlattice-3d/descriptor.js';
 
 export const MODELS: readonly ModelDescriptor[] = [
   dlaOffLattice2d,
+  dlaOffLattice3d,
 ];
 
 export const MODEL_KINDS: readonly string[] = MODELS.map((m) => m.kind);
