@@ -9,8 +9,10 @@
  *                     not deterministic and must never be compared)
  *   cluster.snapshot  the particle centres in arrival order, in the binary
  *                     format of coordinator/snapshot/cluster-snapshot.ts
- *   cluster.png       picture of the cluster coloured by arrival order
- *                     (coordinator/render/cluster-picture.ts)
+ *   cluster.png       picture of the cluster coloured by arrival order, of
+ *                     the kind the model's descriptor names
+ *                     (coordinator/render/model-picture.ts: disks in the
+ *                     plane, or four depth-shaded views of balls in 3D)
  *
  * Growth runs as run index 0 of an ensemble whose seed is --seed, so
  * `tendril grow --seed S` grows the same cluster as run 0 of an ensemble with
@@ -26,7 +28,8 @@ import { checkModelParams, createKernel, MODEL_KINDS, modelDescriptor, modelPara
 import type { GrowthResult, GrowthTask, ModelParams } from '../../worker/core/growth-kernel.js';
 import { axisOf } from '../../worker/core/positions.js';
 import { encodeSnapshot } from '../snapshot/cluster-snapshot.js';
-import { renderClusterPng, DEFAULT_PICTURE_SIZE } from '../render/cluster-picture.js';
+import { DEFAULT_PICTURE_SIZE } from '../render/cluster-picture.js';
+import { pointSetOf, renderModelPicture } from '../render/model-picture.js';
 import { createProgress, formatRate, type ProgressMode } from '../progress/progress.js';
 
 export const RUN_RESULT_FILE = 'run-result.json';
@@ -162,30 +165,40 @@ export function growTask(o: GrowOptions): GrowthTask {
   };
 }
 
-/** Radius of gyration about the centre of mass, and largest distance from the seed (particle 0). */
-export function clusterRadii(x: Float64Array, y: Float64Array, n: number): { radiusOfGyration: number; maxRadius: number } {
-  let sx = 0;
-  let sy = 0;
-  for (let i = 0; i < n; i++) {
-    sx += x[i];
-    sy += y[i];
-  }
-  const cx = sx / n;
-  const cy = sy / n;
+/**
+ * Radius of gyration about the centre of mass, and largest distance from the
+ * seed (particle 0), of dimension-strided centres (any dimension).
+ */
+export function clusterRadiiOf(coords: Float64Array, dimension: number, n: number): { radiusOfGyration: number; maxRadius: number } {
+  const centre = new Float64Array(dimension);
+  for (let i = 0; i < n; i++) for (let k = 0; k < dimension; k++) centre[k] += coords[i * dimension + k];
+  for (let k = 0; k < dimension; k++) centre[k] /= n;
   let s2 = 0;
   let m2 = 0;
-  const x0 = x[0];
-  const y0 = y[0];
   for (let i = 0; i < n; i++) {
-    const dx = x[i] - cx;
-    const dy = y[i] - cy;
-    s2 += dx * dx + dy * dy;
-    const ex = x[i] - x0;
-    const ey = y[i] - y0;
-    const d2 = ex * ex + ey * ey;
-    if (d2 > m2) m2 = d2;
+    let d2c = 0;
+    let d2s = 0;
+    for (let k = 0; k < dimension; k++) {
+      const v = coords[i * dimension + k];
+      const a = v - centre[k];
+      const b = v - coords[k];
+      d2c += a * a;
+      d2s += b * b;
+    }
+    s2 += d2c;
+    if (d2s > m2) m2 = d2s;
   }
   return { radiusOfGyration: Math.sqrt(s2 / n), maxRadius: Math.sqrt(m2) };
+}
+
+/** Radius of gyration and largest distance from the seed of a planar cluster given as two axes. */
+export function clusterRadii(x: Float64Array, y: Float64Array, n: number): { radiusOfGyration: number; maxRadius: number } {
+  const coords = new Float64Array(2 * n);
+  for (let i = 0; i < n; i++) {
+    coords[2 * i] = x[i];
+    coords[2 * i + 1] = y[i];
+  }
+  return clusterRadiiOf(coords, 2, n);
 }
 
 function prepareOutDir(out: string): string {
@@ -236,19 +249,18 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
   progress.stop();
   const result = kernel.result();
   const pos = kernel.positions();
-  const x = axisOf(pos, 0);
-  const y = axisOf(pos, 1);
-  const radii = clusterRadii(x, y, pos.count);
+  const radii = clusterRadiiOf(pos.coords, pos.dimension, pos.count);
+  const descriptor = modelDescriptor(task.model.kind);
 
   const w0 = performance.now();
-  const points = { dimension: 2 as const, count: pos.count, x, y, diameter: modelDescriptor(task.model.kind).contactDistance, arrivalOrder: true };
+  const points = pointSetOf(pos, descriptor.contactDistance);
   const files = {
     runResult: join(dir, RUN_RESULT_FILE),
     snapshot: join(dir, SNAPSHOT_FILE),
     picture: join(dir, PICTURE_FILE),
   };
   writeFileSync(files.snapshot, encodeSnapshot(points));
-  writeFileSync(files.picture, renderClusterPng(points, { size: o.pictureSize }));
+  writeFileSync(files.picture, renderModelPicture(descriptor.picture, points, o.pictureSize));
   const writeSeconds = (performance.now() - w0) / 1000;
   const timing: GrowTiming = {
     startedAt,
