@@ -14,8 +14,8 @@ import { newEnsembleId, runTaskFor } from '../plan.js';
 import type { SampleClusterInput } from '../report/index.js';
 import { specToDocument, type EnsembleSpec } from '../spec/index.js';
 import { growthTaskOf } from '../../proto/convert.js';
-import { createKernel } from '../../worker/models/registry.js';
-import { axisOf } from '../../worker/core/positions.js';
+import { createKernel, modelDescriptor } from '../../worker/models/registry.js';
+import { pointSetOf } from '../render/model-picture.js';
 import { buildSummary, defaultSummaryOptions } from '../summary/index.js';
 import { UsageError } from '../usage-error.js';
 import { renderMeasurePng } from '../harmonic/measure-picture.js';
@@ -33,7 +33,7 @@ function sampleCluster(ensembleId: string, spec: EnsembleSpec): SampleClusterInp
   const k = createKernel(growthTaskOf(runTaskFor(ensembleId, spec, 0)));
   k.growTo(spec.particles);
   const p = k.positions();
-  return { points: { dimension: 2, count: p.count, x: axisOf(p, 0), y: axisOf(p, 1), diameter: 1 }, runIndex: 0 };
+  return { points: pointSetOf(p, modelDescriptor(spec.model.kind).contactDistance), runIndex: 0 };
 }
 
 interface RunOptions extends AnalysisCliOptions {

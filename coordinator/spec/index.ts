@@ -9,7 +9,7 @@
  */
 import { Ajv, type ErrorObject } from 'ajv';
 import { parse as parseToml } from 'smol-toml';
-import { checkModelParams, MODEL_KINDS, modelParams } from '../../worker/models/registry.js';
+import { checkModelParams, isModelKind, MODEL_KINDS, modelDescriptor, modelParams } from '../../worker/models/registry.js';
 import type { ModelParams } from '../../worker/core/growth-kernel.js';
 import {
   DEFAULT_MAX_TOTAL_PARTICLES,
@@ -200,6 +200,9 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
     problems.push(`checkpoint_every_particles: ${every} is out of range; allowed: 0 (off) or an integer from 1 to particles (${d.particles})`);
   }
   const pr = d.probe as Record<string, any> | undefined;
+  if (pr && isModelKind(d.model) && modelDescriptor(d.model).probe === null) {
+    problems.push(`probe: not allowed for model "${d.model}"; allowed: no [probe] table (this model has no harmonic-measure probing)`);
+  }
   if (pr) {
     for (const [k, v] of (pr.at_sizes ?? []).entries()) {
       if (v >= d.particles) problems.push(`probe.at_sizes[${k}]: ${v} is out of range; allowed: an integer from 2 to particles - 1 (${d.particles - 1})`);
