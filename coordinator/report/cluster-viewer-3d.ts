@@ -81,7 +81,7 @@ function viewerHtml(points: PointSet): { html: string; shown: number } {
   const b64 = (a: ArrayBufferView): string => Buffer.from(a.buffer, a.byteOffset, a.byteLength).toString('base64');
   const note =
     step > 1
-      ? `Showing every ${step}th ball in arrival order: ${shown} of ${n} (the view embeds at most ${VIEWER_MAX_BALLS}).`
+      ? `Showing one ball in every ${step}, in arrival order: ${shown} of ${n} (the view embeds at most ${VIEWER_MAX_BALLS}).`
       : `All ${n} balls.`;
   const html = [
     '<div class="viewer3d" id="viewer3d">',
