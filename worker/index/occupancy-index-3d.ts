@@ -19,9 +19,16 @@
  *    does not depend on where the search starts (the previous query's
  *    level): results are independent of the order of queries, and so of
  *    checkpoints.
+ *  - Wide marks at every level: a cell is *widely marked* when a centre lies
+ *    in the 5 × 5 × 5 block of cells centred on it. At the largest unmarked
+ *    level, a cell that is not widely marked has every centre at least
+ *    2s + m away (twice the jump of a plain unmarked cell, so about a
+ *    quarter of the jumps there). This is a refinement between levels k and
+ *    k + 1, read once per query.
  *  - When even level 0 is marked, the 3 × 3 × 3 block of side-2 cells around
  *    the walker is scanned exactly: it holds every centre within 2 + m of
- *    the walker. The centres found are kept (in chain order, so the same
+ *    the walker. The level-0 "holds a centre" bits of the (at most eight)
+ *    bricks over the block say which of its cells to look up. The centres found are kept (in chain order, so the same
  *    set in the same order whatever came before) until the next insert and
  *    reused while the walker stays in the same side-2 cell.
  * Marks are stored as bits in bricks of 4 × 4 × 4 cells (one hash slot:
@@ -64,6 +71,8 @@ export class OccupancyIndex3d {
   private readonly next: Int32Array;
   private readonly heads: CellHashTable3d;
   private readonly marks: CellHashTable3d[] = [];
+  /** Wide marks (5 × 5 × 5 blocks) per level: bits in words v0, v1 of each brick. */
+  private readonly wide: CellHashTable3d[] = [];
   private n = 0;
   /** Level where the last query ended (a starting hint only). */
   private hint = 0;
@@ -78,7 +87,10 @@ export class OccupancyIndex3d {
     this.next = new Int32Array(capacity);
     const expected = Math.min(capacity, 1 << 20);
     this.heads = new CellHashTable3d(expected);
-    for (let k = 0; k <= MAX_LEVEL; k++) this.marks.push(new CellHashTable3d(Math.max(16, expected >> (2 * k + 3))));
+    for (let k = 0; k <= MAX_LEVEL; k++) {
+      this.marks.push(new CellHashTable3d(Math.max(16, expected >> (2 * k + 3))));
+      this.wide.push(new CellHashTable3d(Math.max(16, expected >> (2 * k + 2))));
+    }
   }
 
   /** Particles inserted. */
@@ -90,6 +102,7 @@ export class OccupancyIndex3d {
   get bytes(): number {
     let b = this.xyz.byteLength + this.next.byteLength + this.heads.bytes + this.nearX.byteLength * 3 + this.nearId.byteLength;
     for (const t of this.marks) b += t.bytes;
+    for (const t of this.wide) b += t.bytes;
     return b;
   }
 
@@ -131,12 +144,23 @@ export class OccupancyIndex3d {
             const eo = t.slotFor(ex >> 2, ey >> 2, ez >> 2, 0);
             t.slots[eo + 3 + (eb >> 5)] |= 1 << (eb & 31);
           }
+      const w2 = this.wide[k];
+      for (let dz = -2; dz <= 2; dz++)
+        for (let dy = -2; dy <= 2; dy++)
+          for (let dx = -2; dx <= 2; dx++) {
+            const ex = cx + dx;
+            const ey = cy + dy;
+            const ez = cz + dz;
+            const eb = (ex & 3) | ((ey & 3) << 2) | ((ez & 3) << 4);
+            const eo = w2.slotFor(ex >> 2, ey >> 2, ez >> 2, 0);
+            w2.slots[eo + 3 + (eb >> 5)] |= 1 << (eb & 31);
+          }
     }
   }
 
-  /** True when the level-k cell of (x, y, z) is marked. */
-  private marked(k: number, x: number, y: number, z: number): boolean {
-    const t = this.marks[k];
+  /** True when the level-k cell of (x, y, z) is marked (in `marks`, or in `wide` when given). */
+  private marked(k: number, x: number, y: number, z: number, tables: CellHashTable3d[] = this.marks): boolean {
+    const t = tables[k];
     const sc = SCALES[k];
     const cx = Math.floor(x * sc) | 0;
     const cy = Math.floor(y * sc) | 0;
@@ -166,7 +190,8 @@ export class OccupancyIndex3d {
       const s = SIDES[k];
       const sc = SCALES[k];
       this.nearCount = -1;
-      this.free = s + faceDistance(x, y, z, s, sc) - 1;
+      const reach = this.marked(k, x, y, z, this.wide) ? s : 2 * s;
+      this.free = reach + faceDistance(x, y, z, s, sc) - 1;
       return;
     }
     this.hint = 0;
@@ -191,25 +216,43 @@ export class OccupancyIndex3d {
     this.free = best - 1;
   }
 
-  /** Gather the centres of the 3 × 3 × 3 block of side-2 cells around (cx, cy, cz), in a fixed order. */
+  /**
+   * Gather the centres of the 3 × 3 × 3 block of side-2 cells around
+   * (cx, cy, cz), in a fixed order (bricks, then cells, then chains): the
+   * level-0 hold bits of the bricks over the block pick the cells to look up.
+   */
   private scan(cx: number, cy: number, cz: number): void {
     let c = 0;
     const xyz = this.xyz;
     const next = this.next;
     const heads = this.heads;
-    for (let dz = -1; dz <= 1; dz++)
-      for (let dy = -1; dy <= 1; dy++)
-        for (let dx = -1; dx <= 1; dx++) {
-          const o = heads.find(cx + dx, cy + dy, cz + dz);
+    const t = this.marks[0];
+    for (let bz = (cz - 1) >> 2; bz <= (cz + 1) >> 2; bz++)
+      for (let by = (cy - 1) >> 2; by <= (cy + 1) >> 2; by++)
+        for (let bx = (cx - 1) >> 2; bx <= (cx + 1) >> 2; bx++) {
+          const o = t.find(bx, by, bz);
           if (o < 0) continue;
-          for (let i = heads.slots[o + 3]; i >= 0; i = next[i]) {
-            if (c === this.nearX.length) this.growNear();
-            this.nearX[c] = xyz[3 * i];
-            this.nearY[c] = xyz[3 * i + 1];
-            this.nearZ[c] = xyz[3 * i + 2];
-            this.nearId[c] = i;
-            c++;
-          }
+          const lo = t.slots[o + 5];
+          const hi = t.slots[o + 6];
+          if ((lo | hi) === 0) continue;
+          const z0 = Math.max(cz - 1, bz << 2), z1 = Math.min(cz + 1, (bz << 2) + 3);
+          const y0 = Math.max(cy - 1, by << 2), y1 = Math.min(cy + 1, (by << 2) + 3);
+          const x0 = Math.max(cx - 1, bx << 2), x1 = Math.min(cx + 1, (bx << 2) + 3);
+          for (let z = z0; z <= z1; z++)
+            for (let y = y0; y <= y1; y++)
+              for (let x = x0; x <= x1; x++) {
+                const b = (x & 3) | ((y & 3) << 2) | ((z & 3) << 4);
+                if (((b < 32 ? lo : hi) & (1 << (b & 31))) === 0) continue;
+                const h = heads.find(x, y, z);
+                for (let i = heads.slots[h + 3]; i >= 0; i = next[i]) {
+                  if (c === this.nearX.length) this.growNear();
+                  this.nearX[c] = xyz[3 * i];
+                  this.nearY[c] = xyz[3 * i + 1];
+                  this.nearZ[c] = xyz[3 * i + 2];
+                  this.nearId[c] = i;
+                  c++;
+                }
+              }
         }
     this.scanCount = c;
     this.scanCx = cx;
