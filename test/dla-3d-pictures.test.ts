@@ -64,6 +64,25 @@ describe('tendril grow --model dla-offlattice-3d', () => {
     // every view shows the cluster: a few hundred pixels at least, and none is blank
     for (const c of pic.counts) expect(c).toBeGreaterThan(300);
   });
+
+  it('tendril probe on the 3D snapshot writes the capacity, τ(q) and per-ball hits', () => {
+    const out = join(work, 'probe');
+    const r = tendril('probe', join(work, 'grow', 'cluster.snapshot'), '--walkers', '3000', '--seed', '2', '--out', out, '--jobs', '3');
+    expect(r.status, r.stderr).toBe(0);
+    expect(r.stdout).toMatch(/^probed 1500 balls \(3D\) with 3000 walkers in .* capacity = [\d.]+ \+- [\d.]+/);
+    const m = JSON.parse(readFileSync(join(out, 'probe-measures.json'), 'utf8'));
+    expect(m.dimension).toBe(3);
+    // the capacity of the capture balls lies between that of one capture ball (radius 1) and that of the launch ball (monotone under inclusion; exact)
+    expect(m.capacity.value).toBeGreaterThan(1);
+    expect(m.capacity.value).toBeLessThan(m.capacity.launchRadius);
+    const q1 = m.spectrum.q.indexOf(1);
+    expect(Math.abs(m.spectrum.tau[q1])).toBeLessThan(1e-9); // τ(1) = 0 (normalised measure; exact)
+    const rows = readFileSync(join(out, 'probe-hits.csv'), 'utf8').trim().split('\n');
+    expect(rows[0]).toBe('index,x,y,z,r,hits,measure');
+    expect(rows.length).toBe(1501);
+    const hits = rows.slice(1).reduce((a, row) => a + Number(row.split(',')[5]), 0);
+    expect(hits).toBe(m.hits);
+  });
 });
 
 describe('the 3D view in the HTML report', () => {

@@ -201,7 +201,7 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
   }
   const pr = d.probe as Record<string, any> | undefined;
   if (pr && isModelKind(d.model) && modelDescriptor(d.model).probe === null) {
-    problems.push(`probe: not allowed for model "${d.model}"; allowed: no [probe] table (this model has no harmonic-measure probing)`);
+    problems.push(`probe: not allowed for model "${d.model}"; allowed: no [probe] table (ensemble probing is planar; probe a snapshot of this model with tendril probe)`);
   }
   if (pr) {
     for (const [k, v] of (pr.at_sizes ?? []).entries()) {
