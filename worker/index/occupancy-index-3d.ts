@@ -67,7 +67,8 @@ export class OccupancyIndex3d {
   /** Result of the last `query`: a lower bound on (nearest centre distance) − 1. */
   free = 0;
 
-  private readonly xyz: Float64Array;
+  /** The centres in arrival order, interleaved x, y, z (the kernel's positions are this array). */
+  readonly coords: Float64Array;
   private readonly next: Int32Array;
   private readonly heads: CellHashTable3d;
   private readonly marks: CellHashTable3d[] = [];
@@ -83,10 +84,10 @@ export class OccupancyIndex3d {
   private scanCount = 0;
 
   constructor(capacity: number) {
-    this.xyz = new Float64Array(3 * capacity);
+    this.coords = new Float64Array(3 * capacity);
     this.next = new Int32Array(capacity);
     const expected = Math.min(capacity, 1 << 20);
-    this.heads = new CellHashTable3d(expected);
+    this.heads = new CellHashTable3d(expected >> 1, 1);
     for (let k = 0; k <= MAX_LEVEL; k++) {
       this.marks.push(new CellHashTable3d(Math.max(16, expected >> (2 * k + 3))));
       this.wide.push(new CellHashTable3d(Math.max(16, expected >> (2 * k + 2))));
@@ -100,7 +101,7 @@ export class OccupancyIndex3d {
 
   /** Bytes held by the index. */
   get bytes(): number {
-    let b = this.xyz.byteLength + this.next.byteLength + this.heads.bytes + this.nearX.byteLength * 3 + this.nearId.byteLength;
+    let b = this.coords.byteLength + this.next.byteLength + this.heads.bytes + this.nearX.byteLength * 3 + this.nearId.byteLength;
     for (const t of this.marks) b += t.bytes;
     for (const t of this.wide) b += t.bytes;
     return b;
@@ -110,9 +111,9 @@ export class OccupancyIndex3d {
   insert(x: number, y: number, z: number): void {
     const i = this.n;
     if (i >= this.next.length) throw new RangeError(`occupancy index is full (${this.next.length} particles)`);
-    this.xyz[3 * i] = x;
-    this.xyz[3 * i + 1] = y;
-    this.xyz[3 * i + 2] = z;
+    this.coords[3 * i] = x;
+    this.coords[3 * i + 1] = y;
+    this.coords[3 * i + 2] = z;
     const cx0 = Math.floor(x * 0.5) | 0;
     const cy0 = Math.floor(y * 0.5) | 0;
     const cz0 = Math.floor(z * 0.5) | 0;
@@ -223,7 +224,7 @@ export class OccupancyIndex3d {
    */
   private scan(cx: number, cy: number, cz: number): void {
     let c = 0;
-    const xyz = this.xyz;
+    const xyz = this.coords;
     const next = this.next;
     const heads = this.heads;
     const t = this.marks[0];

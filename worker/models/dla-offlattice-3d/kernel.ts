@@ -89,7 +89,7 @@ export class OffLatticeDla3d implements GrowthKernel {
   readonly counters: OffLatticeDla3dCounters;
   private readonly minStep: number;
   private readonly launchMargin: number;
-  /** Centres in arrival order, interleaved: x0, y0, z0, x1, … */
+  /** Centres in arrival order, interleaved: x0, y0, z0, x1, … (held by the index, which needs them too). */
   private readonly xyz: Float64Array;
   private readonly index: OccupancyIndex3d;
   private readonly rng: Random;
@@ -108,8 +108,8 @@ export class OffLatticeDla3d implements GrowthKernel {
     this.task = structuredClone(task);
     this.minStep = task.model.params.min_step;
     this.launchMargin = task.model.params.launch_margin;
-    this.xyz = new Float64Array(3 * task.particles);
     this.index = new OccupancyIndex3d(task.particles);
+    this.xyz = this.index.coords;
     this.sizes = recordSizes(task.particles, task.recordsPerDecade);
     if (checkpoint === undefined) {
       this.rng = Random.forRun(task.ensembleSeed, task.runIndex, STREAM_GROWTH);
@@ -296,10 +296,7 @@ export class OffLatticeDla3d implements GrowthKernel {
   /** Add a particle to positions, index and running sums (no record). */
   private append(px: number, py: number, pz: number): void {
     const i = this.n;
-    this.xyz[3 * i] = px;
-    this.xyz[3 * i + 1] = py;
-    this.xyz[3 * i + 2] = pz;
-    this.index.insert(px, py, pz);
+    this.index.insert(px, py, pz); // stores the centre in this.xyz
     this.n = i + 1;
     const r2 = px * px + py * py + pz * pz;
     const r = Math.sqrt(r2);
