@@ -99,6 +99,12 @@ describe('off-lattice 3D DLA kernel: determinism and checkpoints', () => {
     }
   });
 
+  it('pinned: the state hash and counters of a 2000-ball cluster (engine tendril-engine/2); a change here changes every 3D result', () => {
+    const r = grown(task3d(2000, 0, '7')).result();
+    expect(r.stateHash).toBe('82ac29ae97fc30fb');
+    expect(r.counters).toEqual({ jumps: 240985, short_steps: 8125, returns: 21215, escapes: 1547 });
+  });
+
   it('refuses a 2D checkpoint and bad parameters with one line naming the field', () => {
     const k2 = createKernel({ ...task3d(50), model: modelParams('dla-offlattice-2d') });
     k2.growTo(20);
