@@ -16,9 +16,11 @@ import { yieldToRunner } from './support/grow.js';
 //    compact one); common practice, no source);
 //  - D <= 3 (embedding dimension; exact): the upper end of the 95% interval
 //    stays below 3;
-//  - Kesten's bound in 3D (radius after n particles at most C n^(1/2) (log n)^(1/4),
-//    so D >= 2; Kesten 1987, Stoch. Proc. Appl. 25, 165; citation from memory):
-//    the lower end of the 95% interval stays above 2.
+//  - the Kesten-type bound in 3D (radius after n particles at most C n^(1/2)
+//    up to a logarithmic factor, so D >= 2; Kesten 1987, Stoch. Proc. Appl.
+//    25, 165, improved by Lawler, as stated by Losev & Smirnov 2025, Commun.
+//    Math. Phys. 406, 93; proved for lattice DLA on Z^3, used here for the
+//    off-lattice model as in 2D): the lower end of the 95% interval stays above 2.
 const CLUSTERS = 16;
 const PARTICLES = 20000;
 

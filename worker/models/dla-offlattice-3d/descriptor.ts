@@ -53,8 +53,8 @@ export const dlaOffLattice3d: ModelDescriptor = {
       {
         side: 'lower',
         value: 2,
-        rule: "Kesten's bound in 3D: radius after n particles at most C n^(1/2) (log n)^(1/4), so D >= 2",
-        source: 'Kesten 1987, Stoch. Proc. Appl. 25, 165 (the d = 3 case; citation from memory)',
+        rule: 'Kesten-type bound in 3D: radius after n particles at most C n^(1/2) up to a logarithmic factor, so D >= 2',
+        source: 'Kesten 1987, Stoch. Proc. Appl. 25, 165, with the 3D logarithmic factor improved by Lawler (as stated by Losev & Smirnov 2025, Commun. Math. Phys. 406, 93; proved on Z^3)',
       },
     ],
     context: [
