@@ -18,7 +18,7 @@ import { yieldToRunner } from './support/grow.js';
 //    stays below 3;
 //  - the Kesten-type bound in 3D (radius after n particles at most C n^(1/2)
 //    up to a logarithmic factor, so D >= 2; Kesten 1987, Stoch. Proc. Appl.
-//    25, 165, improved by Lawler, as stated by Losev & Smirnov 2025, Commun.
+//    25, 165; best known 3D form due to Lawler, as stated by Losev & Smirnov 2025, Commun.
 //    Math. Phys. 406, 93; proved for lattice DLA on Z^3, used here for the
 //    off-lattice model as in 2D): the lower end of the 95% interval stays above 2.
 const CLUSTERS = 16;

@@ -54,7 +54,7 @@ export const dlaOffLattice3d: ModelDescriptor = {
         side: 'lower',
         value: 2,
         rule: 'Kesten-type bound in 3D: radius after n particles at most C n^(1/2) up to a logarithmic factor, so D >= 2',
-        source: 'Kesten 1987, Stoch. Proc. Appl. 25, 165, with the 3D logarithmic factor improved by Lawler (as stated by Losev & Smirnov 2025, Commun. Math. Phys. 406, 93; proved on Z^3)',
+        source: 'Kesten 1987, Stoch. Proc. Appl. 25, 165; the best known 3D form is due to Lawler, as stated by Losev & Smirnov 2025, Commun. Math. Phys. 406, 93 (proved on Z^3; the exponent 1/2 up to logarithms from memory)',
       },
     ],
     context: [
