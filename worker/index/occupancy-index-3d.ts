@@ -89,8 +89,9 @@ export class OccupancyIndex3d {
     const expected = Math.min(capacity, 1 << 20);
     this.heads = new CellHashTable3d(expected >> 1, 1);
     for (let k = 0; k <= MAX_LEVEL; k++) {
-      this.marks.push(new CellHashTable3d(Math.max(16, expected >> (2 * k + 3))));
-      this.wide.push(new CellHashTable3d(Math.max(16, expected >> (2 * k + 2))));
+      // mark bricks are few (each covers 4 × 4 × 4 cells): start small and let them grow
+      this.marks.push(new CellHashTable3d(256));
+      this.wide.push(new CellHashTable3d(256));
     }
   }
 
