@@ -160,17 +160,33 @@ export class OccupancyIndex3d {
     }
   }
 
-  /** True when the level-k cell of (x, y, z) is marked (in `marks`, or in `wide` when given). */
-  private marked(k: number, x: number, y: number, z: number, tables: CellHashTable3d[] = this.marks): boolean {
-    const t = tables[k];
-    const sc = SCALES[k];
-    const cx = Math.floor(x * sc) | 0;
-    const cy = Math.floor(y * sc) | 0;
-    const cz = Math.floor(z * sc) | 0;
-    const o = t.find(cx >> 2, cy >> 2, cz >> 2);
-    if (o < 0) return false;
-    const b = (cx & 3) | ((cy & 3) << 2) | ((cz & 3) << 4);
-    return (t.slots[o + 3 + (b >> 5)] & (1 << (b & 31))) !== 0;
+  /** True when the level-k cell of (x, y, z) is marked. */
+  private marked(k: number, x: number, y: number, z: number): boolean {
+    return markedIn(this.marks[k], SCALES[k], x, y, z);
+  }
+
+  /** True when the level-k cell of (x, y, z) is widely marked. */
+  private widelyMarked(k: number, x: number, y: number, z: number): boolean {
+    return markedIn(this.wide[k], SCALES[k], x, y, z);
+  }
+
+  /**
+   * Set `free` to reach + (distance from (x, y, z) to the nearest face of its
+   * own cell of side s, sc = 1/s) − 1, or to min(that, cap − 1) when cap is
+   * given (a method that stores rather than returns, so that V8 need not box
+   * the double).
+   */
+  private setFree(reach: number, x: number, y: number, z: number, s: number, sc: number, cap: number): void {
+    const fx = x - Math.floor(x * sc) * s;
+    const fy = y - Math.floor(y * sc) * s;
+    const fz = z - Math.floor(z * sc) * s;
+    let m = fx < s - fx ? fx : s - fx;
+    const my = fy < s - fy ? fy : s - fy;
+    if (my < m) m = my;
+    const mz = fz < s - fz ? fz : s - fz;
+    if (mz < m) m = mz;
+    const f = reach + m;
+    this.free = (f < cap ? f : cap) - 1;
   }
 
   /**
@@ -192,8 +208,7 @@ export class OccupancyIndex3d {
       const s = SIDES[k];
       const sc = SCALES[k];
       this.nearCount = -1;
-      const reach = this.marked(k, x, y, z, this.wide) ? s : 2 * s;
-      this.free = reach + faceDistance(x, y, z, s, sc) - 1;
+      this.setFree(this.widelyMarked(k, x, y, z) ? s : 2 * s, x, y, z, s, sc, Infinity);
       return;
     }
     this.hint = 0;
@@ -204,8 +219,7 @@ export class OccupancyIndex3d {
     const nx = this.nearX;
     const ny = this.nearY;
     const nz = this.nearZ;
-    let best = 2 + faceDistance(x, y, z, 2, 0.5);
-    let best2 = best * best;
+    let best2 = Infinity;
     for (let j = 0; j < this.scanCount; j++) {
       const dx = nx[j] - x;
       const dy = ny[j] - y;
@@ -213,9 +227,9 @@ export class OccupancyIndex3d {
       const d2 = dx * dx + dy * dy + dz * dz;
       if (d2 < best2) best2 = d2;
     }
-    best = Math.sqrt(best2);
     this.nearCount = this.scanCount;
-    this.free = best - 1;
+    // the scanned block holds every centre within 2 + m of the walker
+    this.setFree(2, x, y, z, 2, 0.5, Math.sqrt(best2));
   }
 
   /**
@@ -278,15 +292,13 @@ export class OccupancyIndex3d {
   }
 }
 
-/** Distance from (x, y, z) to the nearest face of its own cell of side s (sc = 1 / s). */
-function faceDistance(x: number, y: number, z: number, s: number, sc: number): number {
-  const fx = x - Math.floor(x * sc) * s;
-  const fy = y - Math.floor(y * sc) * s;
-  const fz = z - Math.floor(z * sc) * s;
-  let m = fx < s - fx ? fx : s - fx;
-  const my = fy < s - fy ? fy : s - fy;
-  if (my < m) m = my;
-  const mz = fz < s - fz ? fz : s - fz;
-  if (mz < m) m = mz;
-  return m;
+/** True when the cell of (x, y, z) in a level's table (cells of side 1/sc) is marked. */
+function markedIn(t: CellHashTable3d, sc: number, x: number, y: number, z: number): boolean {
+  const cx = Math.floor(x * sc) | 0;
+  const cy = Math.floor(y * sc) | 0;
+  const cz = Math.floor(z * sc) | 0;
+  const o = t.find(cx >> 2, cy >> 2, cz >> 2);
+  if (o < 0) return false;
+  const b = (cx & 3) | ((cy & 3) << 2) | ((cz & 3) << 4);
+  return (t.slots[o + 3 + (b >> 5)] & (1 << (b & 31))) !== 0;
 }
