@@ -144,6 +144,42 @@ describe('the 3D view in the HTML report', () => {
     expect(problems).toEqual([]);
     await page.close();
   }, 120_000);
+
+  it('a subsampled view of 250,001 balls (every 3rd drawn) loads without errors and draws', async () => {
+    const n = 250_001;
+    const x = new Float64Array(n), y = new Float64Array(n), z = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      // a thick spherical shell of radius about 60, points spread by a fixed low-discrepancy rule
+      const u = ((i * 0.6180339887) % 1) * 2 - 1;
+      const phi = i * 2.399963229728653;
+      const r = 55 + (i % 11);
+      x[i] = r * Math.sqrt(1 - u * u) * Math.cos(phi);
+      y[i] = r * Math.sqrt(1 - u * u) * Math.sin(phi);
+      z[i] = r * u;
+    }
+    const pic = clusterPicture3d({ dimension: 3, count: n, x, y, z, diameter: 1 }, 0, 200);
+    const file = join(work, 'subsample.html');
+    writeFileSync(file, `<!DOCTYPE html><html><head><meta charset="utf-8"><title>viewer</title></head><body>${pic.viewerHtml}</body></html>`);
+    const page = await browser.newPage();
+    const problems: string[] = [];
+    page.on('console', (m) => {
+      if (m.type() === 'error') problems.push(m.text());
+    });
+    page.on('pageerror', (e) => problems.push(e.message));
+    await page.goto(pathToFileURL(file).href);
+    await page.waitForFunction(`Number(document.getElementById('viewer3d-canvas')?.getAttribute('data-frames') ?? 0) >= 1`);
+    const lit = (await page.evaluate(`(() => {
+      const c = document.getElementById('viewer3d-canvas');
+      const d = c.getContext('2d').getImageData(0, 0, c.width, c.height).data;
+      let lit = 0;
+      for (let i = 0; i < d.length; i += 4) if (d[i] + d[i + 1] + d[i + 2] > 80) lit++;
+      return lit;
+    })()`)) as number;
+    expect(lit).toBeGreaterThan(10000);
+    expect(await page.locator('#viewer3d-note').textContent()).toContain('Showing one ball in every 3');
+    expect(problems).toEqual([]);
+    await page.close();
+  }, 120_000);
 });
 
 describe('3D report picture of a large cluster', () => {
