@@ -25,7 +25,7 @@ describe('3D DLA in specs, task runner and embedded mode', () => {
   it('the spec takes the model with its parameters and refuses a [probe] table (no 3D probing)', () => {
     expect(spec.model.kind).toBe('dla-offlattice-3d');
     expect(spec.model.params).toEqual({ min_step: 0.02, launch_margin: 2 });
-    expect(() => validateSpec({ model: 'dla-offlattice-3d', particles: 100, clusters: 2, seed: 1, probe: { walkers: 1000 } })).toThrow(/probe: not allowed for model "dla-offlattice-3d"/);
+    expect(() => validateSpec({ model: 'dla-offlattice-3d', particles: 100, clusters: 2, seed: 1, probe: { walkers: 1000 } })).toThrow(/probe: dla-offlattice-3d has no harmonic-measure probe/);
     expect(() => validateSpec({ model: 'dla-offlattice-3d', particles: 100, clusters: 2, seed: 1, params: { min_step: 3 } })).toThrow(/params\.min_step: 3 is out of range/);
   });
 

@@ -1,30 +1,33 @@
 /**
- * The picture of a cluster as its model's descriptor asks for it
- * (ModelDescriptor.picture): planar disks (cluster-picture.ts) or balls in
- * three dimensions, four depth-shaded views (spheres-picture.ts).
+ * The cluster picture of a model, as its descriptor declares it
+ * (ModelDescriptor.picture): the point set drawn, or one line saying the
+ * model has no picture. grow and run ask here instead of assuming a planar
+ * cluster.
  */
-import type { PictureKind } from '../../worker/core/model-descriptor.js';
 import type { ClusterPositions } from '../../worker/core/growth-kernel.js';
-import { axisOf } from '../../worker/core/positions.js';
-import type { PointSet } from '../snapshot/cluster-snapshot.js';
+import { modelDescriptor } from '../../worker/models/registry.js';
+import { pointSetOf, type PointSet } from '../snapshot/cluster-snapshot.js';
 import { renderClusterPng } from './cluster-picture.js';
 import { renderSpheresPng } from './spheres-picture.js';
 
-/** A point set (arrival order) of the first `count` centres of dimension-strided positions. */
-export function pointSetOf(pos: ClusterPositions, diameter: number, count = pos.count): PointSet {
-  if (pos.dimension !== 2 && pos.dimension !== 3) throw new RangeError(`positions have dimension ${pos.dimension}; pictures need 2 or 3`);
-  const x = axisOf(pos, 0, count);
-  const y = axisOf(pos, 1, count);
-  if (pos.dimension === 2) return { dimension: 2, count: x.length, x, y, diameter, arrivalOrder: true };
-  return { dimension: 3, count: x.length, x, y, z: axisOf(pos, 2, count), diameter, arrivalOrder: true };
+/** The point set of a cluster of `kind`, drawn as its picture kind says; null when the model declares no picture. */
+export function picturePointsOf(kind: string, positions: ClusterPositions): PointSet | null {
+  const d = modelDescriptor(kind);
+  switch (d.picture) {
+    case null:
+      return null;
+    case 'disks':
+    case 'spheres-3d':
+      return pointSetOf(positions, d.contactDistance);
+  }
 }
 
-/** PNG bytes of the picture of the given kind. */
-export function renderModelPicture(kind: PictureKind, points: PointSet, size: number): Buffer {
-  switch (kind) {
-    case 'disks-2d':
-      return renderClusterPng(points, { size });
-    case 'spheres-3d':
-      return renderSpheresPng(points, { size });
-  }
+/** PNG bytes of a model's cluster picture: disks in the plane, or four depth-shaded views of balls in 3D. */
+export function renderModelPicture(kind: string, points: PointSet, size: number): Buffer {
+  return modelDescriptor(kind).picture === 'spheres-3d' ? renderSpheresPng(points, { size }) : renderClusterPng(points, { size });
+}
+
+/** One line for a model without a picture (null when it has one). */
+export function noPictureReason(kind: string): string | null {
+  return modelDescriptor(kind).picture === null ? `${kind} declares no cluster picture (see tendril models)` : null;
 }
