@@ -3,6 +3,7 @@ import type { GrowthCheckpoint, GrowthTask } from '../worker/core/growth-kernel.
 import { createKernel, modelDescriptor, modelParams } from '../worker/models/registry.js';
 import { OccupancyIndex3d } from '../worker/index/occupancy-index-3d.js';
 import { Random } from '../worker/core/random.js';
+import { yieldToRunner } from './support/grow.js';
 
 const KIND = 'dla-offlattice-3d';
 
@@ -22,7 +23,7 @@ const TOL = 1e-9;
 
 describe('off-lattice 3D DLA kernel: geometry', () => {
   for (const runIndex of [0, 1]) {
-    it(`no overlaps and every ball touches an earlier one (run ${runIndex}, 3000 particles; exact model definition)`, () => {
+    it(`no overlaps and every ball touches an earlier one (run ${runIndex}, 3000 particles; exact model definition)`, async () => {
       const k = grown(task3d(3000, runIndex, '42'));
       const p = k.positions();
       expect(p.dimension).toBe(3);
@@ -30,6 +31,7 @@ describe('off-lattice 3D DLA kernel: geometry', () => {
       let minAll = Infinity;
       let worstTouch = 0;
       for (let i = 1; i < p.count; i++) {
+        if (i % 500 === 0) await yieldToRunner(); // let the runner report on a busy machine
         let nearestEarlier = Infinity;
         for (let j = 0; j < i; j++) {
           const dx = c[3 * i] - c[3 * j], dy = c[3 * i + 1] - c[3 * j + 1], dz = c[3 * i + 2] - c[3 * j + 2];
@@ -116,7 +118,7 @@ describe('off-lattice 3D DLA kernel: determinism and checkpoints', () => {
 });
 
 describe('3D occupancy index', () => {
-  it('free is a lower bound on (nearest distance − 1), tight next to the cluster, and the near list holds every centre within 2 (exact geometry)', () => {
+  it('free is a lower bound on (nearest distance − 1), tight next to the cluster, and the near list holds every centre within 2 (exact geometry)', async () => {
     const k = grown(task3d(2000, 0, '3'));
     const p = k.positions();
     const index = new OccupancyIndex3d(p.count);
@@ -124,6 +126,7 @@ describe('3D occupancy index', () => {
     const rng = Random.forRun(5, 0);
     let exactScans = 0;
     for (let q = 0; q < 4000; q++) {
+      if (q % 500 === 0) await yieldToRunner();
       // query points near random particles and far away
       const j = rng.nextBelow(p.count);
       const spread = q % 4 === 0 ? 60 : 3;

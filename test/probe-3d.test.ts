@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { ProbeGeometry3d, capacityFromProbes, runProbe3d } from '../worker/probe/probe-3d.js';
+import { ProbeGeometry3d, capacityFromProbes, runProbe3d, runProbe3dJob, type Probe3dResult } from '../worker/probe/probe-3d.js';
+import { yieldToRunner } from './support/grow.js';
 import { boxSpectrum3d } from '../worker/probe/box-spectrum-3d.js';
 import { createKernel, modelParams } from '../worker/models/registry.js';
 import { axisOf } from '../worker/core/positions.js';
@@ -23,7 +24,7 @@ describe('3D probing: Newtonian capacity (a ball of radius a has capacity a)', (
     expect(r.hits[0]).toBe(r.hitTotal);
   });
 
-  it('a thin disk of radius a made of small overlapping balls: capacity between 2a/π (exact, the disk it contains) and that of an enclosing oblate spheroid', () => {
+  it('a thin disk of radius a made of small overlapping balls: capacity between 2a/π (exact, the disk it contains) and that of an enclosing oblate spheroid', async () => {
     // hexagonal grid of spacing ρ√3 in the plane z = 0: balls of radius ρ cover every point of the plane (covering radius of the grid)
     const a = 1, rho = 0.02, s = rho * Math.sqrt(3);
     const xs: number[] = [], ys: number[] = [];
@@ -38,7 +39,15 @@ describe('3D probing: Newtonian capacity (a ball of radius a has capacity a)', (
       }
     const n = xs.length;
     const g = new ProbeGeometry3d({ count: n, x: Float64Array.from(xs), y: Float64Array.from(ys), z: new Float64Array(n), radius: rho });
-    const r = runProbe3d(g, { seed: '16', walkers: 20000, jobs: 4 });
+    // four jobs of 5000, with a pause between them so that the runner can report on a busy machine
+    let hitTotal = 0;
+    let last: Probe3dResult | null = null;
+    for (let j = 0; j < 4; j++) {
+      last = runProbe3dJob(g, { seed: '16', jobIndex: j, walkers: 5000, minStep: 0.02, launchMargin: 0 });
+      hitTotal += last.hitTotal;
+      await yieldToRunner();
+    }
+    const r = { hitTotal, walkers: 20000, launchRadius: last!.launchRadius };
     const { capacity, error } = capacityFromProbes(r.hitTotal, r.walkers, r.launchRadius);
     // capacity is monotone under inclusion (exact): the set contains the disk of radius a (capacity 2a/π, exact) and lies in the
     // cylinder of radius a + 2ρ and half-height ρ, inside the oblate spheroid through its rim corners with semi-axes ((a + 2ρ)/cos t, ρ/sin t), sin t = 0.2
