@@ -3,6 +3,7 @@ import { returnToSphere, returned3 } from '../worker/walkers/poisson-return-3d.j
 import { direction3, sampleDirection3d } from '../worker/walkers/uniform-direction-3d.js';
 import { Random } from '../worker/core/random.js';
 import { ksOneSample, ksTwoSample } from './support/ks.js';
+import { yieldToRunner } from './support/grow.js';
 
 // Significance level for the distribution tests below: each must fail only
 // once in 10^4 runs by chance (common practice, no source).
@@ -44,7 +45,7 @@ const DIRECTIONS: [number, number, number][] = [unit(0.3, 1.1), unit(2.0, -2.5),
 
 describe('3D far walkers: escape with probability 1 − R/r, else return by the exterior Poisson kernel', () => {
   for (const [r, R] of [[1.05, 1], [2, 1], [10, 1], [300, 250]] as const) {
-    it(`from distance ${r} to the sphere of radius ${R}: return frequency R/r and hit polar angle (KS)`, () => {
+    it(`from distance ${r} to the sphere of radius ${R}: return frequency R/r and hit polar angle (KS)`, async () => {
       const rng = Random.forRun(77, Math.round(r * 100));
       const n = 60000;
       const us: number[] = [];
@@ -52,6 +53,7 @@ describe('3D far walkers: escape with probability 1 − R/r, else return by the 
       let returnedCount = 0;
       let offSphere = 0;
       for (let i = 0; i < n; i++) {
+        if (i % 10000 === 0) await yieldToRunner(); // let the runner report on a busy machine
         const [dx, dy, dz] = DIRECTIONS[i % DIRECTIONS.length];
         if (!returnToSphere(r * dx, r * dy, r * dz, R, rng)) continue;
         returnedCount++;
@@ -72,7 +74,7 @@ describe('3D far walkers: escape with probability 1 − R/r, else return by the 
     });
   }
 
-  it('composes: returning to R via an intermediate sphere R2 gives the same hit law and the same total probability (strong Markov property; exact)', () => {
+  it('composes: returning to R via an intermediate sphere R2 gives the same hit law and the same total probability (strong Markov property; exact)', async () => {
     const r = 6, R2 = 3, R = 1;
     const rng = Random.forRun(78, 0);
     const n = 60000;
@@ -80,6 +82,7 @@ describe('3D far walkers: escape with probability 1 − R/r, else return by the 
     const twoStage: number[] = [];
     let twoStageCount = 0;
     for (let i = 0; i < n; i++) {
+      if (i % 10000 === 0) await yieldToRunner();
       if (returnToSphere(r, 0, 0, R, rng)) direct.push(returned3.x / R);
       if (!returnToSphere(r, 0, 0, R2, rng)) continue;
       const { x, y, z } = returned3;
