@@ -10,8 +10,9 @@
  *   cluster.snapshot  the particle centres in arrival order, in the binary
  *                     format of coordinator/snapshot/cluster-snapshot.ts
  *   cluster.png       picture of the cluster coloured by arrival order
- *                     (coordinator/render/cluster-picture.ts), for models
- *                     whose descriptor declares a picture
+ *                     (coordinator/render/model-picture.ts: disks, or four
+ *                     depth-shaded views of balls in 3D), for models whose
+ *                     descriptor declares a picture
  *
  * Growth runs as run index 0 of an ensemble whose seed is --seed, so
  * `tendril grow --seed S` grows the same cluster as run 0 of an ensemble with
@@ -28,8 +29,8 @@ import { optionNumber, parseRangeOption, parseSeedOption } from './option-values
 import { checkModelParams, createKernel, MODEL_KINDS, modelDescriptor, modelParams } from '../../worker/models/registry.js';
 import type { ClusterPositions, GrowthResult, GrowthTask, ModelParams } from '../../worker/core/growth-kernel.js';
 import { encodeSnapshot, pointSetOf } from '../snapshot/cluster-snapshot.js';
-import { renderClusterPng, DEFAULT_PICTURE_SIZE } from '../render/cluster-picture.js';
-import { noPictureReason, picturePointsOf } from '../render/model-picture.js';
+import { DEFAULT_PICTURE_SIZE } from '../render/cluster-picture.js';
+import { noPictureReason, picturePointsOf, renderModelPicture } from '../render/model-picture.js';
 import { createProgress, formatRate, type ProgressMode } from '../progress/progress.js';
 
 export const RUN_RESULT_FILE = 'run-result.json';
@@ -220,7 +221,7 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
   };
   writeFileSync(files.snapshot, encodeSnapshot(pointSetOf(pos, d.contactDistance)));
   const picturePoints = picturePointsOf(task.model.kind, pos);
-  if (files.picture !== null && picturePoints !== null) writeFileSync(files.picture, renderClusterPng(picturePoints, { size: o.pictureSize }));
+  if (files.picture !== null && picturePoints !== null) writeFileSync(files.picture, renderModelPicture(task.model.kind, picturePoints, o.pictureSize));
   const writeSeconds = (performance.now() - w0) / 1000;
   const timing: GrowTiming = {
     startedAt,

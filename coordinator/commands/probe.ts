@@ -18,6 +18,11 @@
  *                        systematics, and warnings, also printed to stderr)
  *   probe-hits.csv       index,x,y,r,hits,measure per disk
  *   probe-measure.png    the set coloured by log harmonic measure
+ *
+ * A 3D snapshot (e.g. of dla-offlattice-3d) is probed as balls of radius =
+ * its contact distance (worker/probe/probe-3d.ts), in this process, and
+ * writes probe-measures.json (Newtonian capacity ± error, τ(q) from boxes)
+ * and probe-hits.csv (index,x,y,z,r,hits,measure); no picture.
  */
 import { mkdirSync, statSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
@@ -29,6 +34,11 @@ import { defaultProbeJobs, PROBE_CONTACT_SAMPLE, PROBE_JOBS, PROBE_MIN_STEP, PRO
 import { readProbeInput } from '../harmonic/probe-input.js';
 import { runProbes } from '../harmonic/probe-run.js';
 import { renderMeasurePng } from '../harmonic/measure-picture.js';
+import { DEFAULT_PROBE_MIN_STEP } from '../../worker/probe/probe-2d.js';
+import { readFileSync } from 'node:fs';
+import { decodeSnapshot, type PointSet } from '../snapshot/cluster-snapshot.js';
+import { ProbeGeometry3d, capacityFromProbes, runProbe3d } from '../../worker/probe/probe-3d.js';
+import { boxSpectrum3d } from '../../worker/probe/box-spectrum-3d.js';
 import { WINDOW_RULE, windowProblem } from '../harmonic/fit-window.js';
 
 export const MEASURES_FILE = 'probe-measures.json';
@@ -94,6 +104,11 @@ export function register(program: Command): void {
       const contactSample = Math.min(walkers, parseRangeOption('--contact-sample', raw.contactSample, PROBE_CONTACT_SAMPLE, PROBE_CONTACT_SAMPLE.unit));
       const minStep = parseRangeOption('--min-step', raw.minStep, PROBE_MIN_STEP, PROBE_MIN_STEP.unit);
       const q = parseQGrid(String(raw.qGrid));
+      const snapshot3d = readSnapshot3d(input);
+      if (snapshot3d !== null) {
+        writeProbe3d(input, snapshot3d, { walkers, seed, jobs, minStep, q, outRaw });
+        return;
+      }
       const window = raw.window === undefined ? null : parseWindowOption(String(raw.window));
       let set;
       try {
@@ -137,4 +152,72 @@ export function register(program: Command): void {
         (cap ? `, capacity = ${cap.capacity.toPrecision(5)} +- ${cap.capacityError.toPrecision(2)}` : '') + `; wrote ${dir}\n`,
       );
     });
+}
+
+/** The point set of INPUT when it is a 3D snapshot, else null (2D inputs go the planar way). */
+function readSnapshot3d(path: string): PointSet | null {
+  let bytes: Buffer;
+  try {
+    bytes = readFileSync(path);
+  } catch {
+    return null; // the planar reader reports unreadable inputs
+  }
+  if (bytes.length < 8 || bytes.subarray(0, 8).toString('latin1') !== 'TNDRLSNP') return null;
+  try {
+    const s = decodeSnapshot(bytes);
+    return s.dimension === 3 ? s : null;
+  } catch (e) {
+    throw new UsageError(`INPUT ${path}: ${(e as Error).message}`);
+  }
+}
+
+/**
+ * Probe a 3D snapshot: capacity of the capture balls (radius = contact
+ * distance), τ(q) from boxes of side 2^k contact distances (k = 1 … up to a
+ * quarter of the cluster's extent, at least three sides), per-ball hits.
+ */
+function writeProbe3d(input: string, s: PointSet, o: { walkers: number; seed: string; jobs: number; minStep: number; q: number[]; outRaw: string }): void {
+  const dir = resolve(o.outRaw);
+  mkdirSync(dir, { recursive: true });
+  const t0 = performance.now();
+  const set = { count: s.count, x: s.x, y: s.y, z: s.z!, radius: s.diameter };
+  const g = new ProbeGeometry3d(set);
+  const run = runProbe3d(g, { seed: o.seed, walkers: o.walkers, jobs: o.jobs, minStep: o.minStep });
+  const seconds = (performance.now() - t0) / 1000;
+  const cap = capacityFromProbes(run.hitTotal, run.walkers, run.launchRadius);
+  const sides: number[] = [];
+  for (let e = 2 * s.diameter; e <= (g.extent * s.diameter) / 2 || sides.length < 3; e *= 2) sides.push(e);
+  const spectrum = run.hitTotal > 0 ? boxSpectrum3d(s.x, s.y, s.z!, run.hits, o.q, sides) : null;
+  const json = {
+    input: { path: input, kind: 'snapshot-3d', balls: s.count, radius: s.diameter },
+    dimension: 3,
+    seed: o.seed,
+    jobs: o.jobs,
+    minStep: o.minStep,
+    walkers: o.walkers,
+    hits: run.hitTotal,
+    capacity: {
+      value: cap.capacity,
+      error: cap.error,
+      units: 'Newtonian capacity in units where a ball of radius a has capacity a (a thin disk of radius a has 2a/pi), in the snapshot\'s length units',
+      launchRadius: run.launchRadius,
+      rule: 'capacity = R_L * (probes that touch the set) / (probes launched uniformly on the sphere of radius R_L); error: binomial standard error',
+    },
+    spectrum: spectrum && {
+      convention: 'Z(q, eps) = sum over boxes of side eps of mu_B^q ~ eps^tau(q); tau(q) = (q - 1) D_q',
+      q: o.q,
+      tau: spectrum.tau,
+      boxSides: sides,
+    },
+    timing: { probeSeconds: seconds, walkersPerSecond: o.walkers / seconds },
+  };
+  writeFileSync(join(dir, MEASURES_FILE), JSON.stringify(json, null, 2) + '\n');
+  const lines = ['index,x,y,z,r,hits,measure'];
+  for (let i = 0; i < s.count; i++) lines.push(`${i},${s.x[i]},${s.y[i]},${s.z![i]},${s.diameter},${run.hits[i]},${run.hitTotal > 0 ? run.hits[i] / run.hitTotal : 0}`);
+  writeFileSync(join(dir, HITS_FILE), lines.join('\n') + '\n');
+  process.stdout.write(
+    `probed ${s.count} balls (3D) with ${o.walkers} walkers in ${seconds.toFixed(2)} s; capacity = ${cap.capacity.toPrecision(5)} +- ${cap.error.toPrecision(2)}` +
+      (spectrum ? `, tau(0) = ${(spectrum.tau[o.q.indexOf(0)] ?? NaN).toFixed(3)}` : '') +
+      `; no picture for 3D sets; wrote ${dir}\n`,
+  );
 }

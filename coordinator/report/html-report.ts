@@ -26,6 +26,7 @@ import { fmt, fmtAbscissa, fmtRange, isFiniteNumber, labelOf, levelPercent, show
 import { clusterFigure, comparisonFigure, correctionsFigure, estimatorFigure, localSlopesFigure, type Figure } from './plots.js';
 import { evRange, harmonicFigures, measurePictureFigure, sizesLargestFirst, type MeasurePictureInput } from './harmonic-plots.js';
 import { embeddableFonts, pngRenderer } from './png-plot.js';
+import { clusterPicture3d } from './cluster-viewer-3d.js';
 import { observableFigures } from './observable-plots.js';
 import type { ObservableSection } from '../stats/observable-bands.js';
 import { escapeXml, FONT_FAMILY, parseRichText } from './svg-plot.js';
@@ -368,13 +369,21 @@ export function buildEnsembleReport(input: ReportInput): { html: string; figures
   if (a.options.corrections) figures.push(correctionsFigure(a, data));
   figures.push(...observableFigures(a.observables));
   const extraPngs: { name: string; png: Buffer }[] = [];
+  let viewer3d: string | null = null;
   if (input.sampleCluster !== undefined) {
     try {
       const s = resolveSample(input.sampleCluster);
       if (s.points.count === 0) throw new Error('the sample cluster has no particles');
-      const pic = clusterFigure(s.points, s.runIndex);
-      figures.push(pic.figure);
-      extraPngs.push({ name: 'sample-cluster-raster', png: pic.png });
+      if (s.points.dimension === 3) {
+        const pic = clusterPicture3d(s.points, s.runIndex);
+        figures.push(pic.figure);
+        extraPngs.push({ name: 'sample-cluster-raster', png: pic.png });
+        viewer3d = pic.viewerHtml;
+      } else {
+        const pic = clusterFigure(s.points, s.runIndex);
+        figures.push(pic.figure);
+        extraPngs.push({ name: 'sample-cluster-raster', png: pic.png });
+      }
     } catch (e) {
       notes.push(`no sample cluster picture: ${(e as Error).message}`);
     }
@@ -412,6 +421,7 @@ export function buildEnsembleReport(input: ReportInput): { html: string; figures
     notesSection(a, notes),
     '<h2 id="section-figures">Figures</h2>',
     ...figures.map((f) => figureHtml(f, hasPng)),
+    ...(viewer3d !== null ? ['<h2 id="section-cluster-3d">The sample cluster in 3D</h2>', viewer3d] : []),
     ...(harmonic ? ['<h2 id="section-harmonic">Harmonic measure</h2>', harmonicSection(harmonic, harmonicFigs, hasPng)] : []),
     '<h2 id="section-options">Analysis options</h2>',
     `<pre id="options">${escapeHtml(JSON.stringify(a.options, null, 2))}</pre>`,

@@ -1,22 +1,23 @@
 /**
- * Growth benchmark: for each cluster size, grow one off-lattice 2D DLA cluster
- * (default model parameters, ensemble seed 1, run 0) in a fresh child process,
+ * Growth benchmark: for each cluster size, grow one cluster of a model
+ * (off-lattice 2D DLA unless told otherwise; default model parameters,
+ * ensemble seed 1, run 0) in a fresh child process,
  * so that the peak resident memory (process.resourceUsage().maxRSS) belongs
  * to that size alone and covers the whole process.
  *
  * Usage (after `npx tsc`):
- *   node dist/test/bench/growth-bench.js [--sizes 10000,100000,1000000] [--seed S]
+ *   node dist/test/bench/growth-bench.js [--sizes 10000,100000,1000000] [--seed S] [--model KIND]
  * or env TENDRIL_BENCH_SIZES=10000,100000. Default sizes: 10^4, 10^5, 10^6.
  *
  * Prints a table, then one JSON line per size:
- *   {"bench":"growth","particles":...,"particlesPerSecond":...,"jumpsPerParticle":...,
+ *   {"bench":"growth","model":...,"particles":...,"particlesPerSecond":...,"jumpsPerParticle":...,
  *    "shortStepsPerParticle":...,"returnsPerParticle":...,"wallSeconds":...,"peakRssMB":...,...}
  * wallSeconds is the growth time inside the child (kernel construction
  * included, process start-up excluded).
  */
 import { spawn } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
-import { createKernel, defaultModelParams } from '../../worker/models/registry.js';
+import { createKernel, defaultModelParams, modelDescriptor } from '../../worker/models/registry.js';
 import type { GrowthTask } from '../../worker/core/growth-kernel.js';
 import { ENGINE_VERSION } from '../../worker/core/engine-version.js';
 import { createProgress } from '../../coordinator/progress/progress.js';
@@ -26,6 +27,7 @@ export const DEFAULT_GROWTH_SIZES = [10_000, 100_000, 1_000_000];
 
 export interface GrowthBenchRow {
   bench: 'growth';
+  model: string;
   engineVersion: string;
   particles: number;
   seed: string;
@@ -52,9 +54,9 @@ export function parseSizes(text: string): number[] {
 }
 
 /** Runs inside the child: grow one cluster and print one JSON row on stdout. */
-function childMain(particles: number, seed: string): void {
+function childMain(particles: number, seed: string, model: string): void {
   const task: GrowthTask = {
-    model: defaultModelParams('dla-offlattice-2d'),
+    model: defaultModelParams(model),
     particles,
     ensembleSeed: seed,
     runIndex: 0,
@@ -74,13 +76,14 @@ function childMain(particles: number, seed: string): void {
   const c = result.counters;
   const row: GrowthBenchRow = {
     bench: 'growth',
+    model,
     engineVersion: ENGINE_VERSION,
     particles,
     seed,
     particlesPerSecond: particles / seconds,
-    jumpsPerParticle: c.jumps / particles,
-    shortStepsPerParticle: c.shortSteps / particles,
-    returnsPerParticle: c.returns / particles,
+    jumpsPerParticle: (c.jumps ?? 0) / particles,
+    shortStepsPerParticle: (c.short_steps ?? 0) / particles,
+    returnsPerParticle: (c.returns ?? 0) / particles,
     wallSeconds: seconds,
     peakRssMB: process.resourceUsage().maxRSS / 1024, // maxRSS is in kilobytes
     stateHash: result.stateHash,
@@ -89,9 +92,9 @@ function childMain(particles: number, seed: string): void {
   process.stdout.write(JSON.stringify(row) + '\n');
 }
 
-function runChild(particles: number, seed: string): Promise<GrowthBenchRow> {
+function runChild(particles: number, seed: string, model: string): Promise<GrowthBenchRow> {
   return new Promise((resolvePromise, reject) => {
-    const child = spawn(process.execPath, [THIS_FILE, CHILD_FLAG, String(particles), seed], { stdio: ['ignore', 'pipe', 'inherit'] });
+    const child = spawn(process.execPath, [THIS_FILE, CHILD_FLAG, String(particles), seed, model], { stdio: ['ignore', 'pipe', 'inherit'] });
     let out = '';
     child.stdout.setEncoding('utf8');
     child.stdout.on('data', (s: string) => (out += s));
@@ -130,6 +133,8 @@ export function formatTable(rows: GrowthBenchRow[]): string {
 export interface GrowthBenchOptions {
   sizes?: number[];
   seed?: string;
+  /** Model kind; default dla-offlattice-2d. */
+  model?: string;
   /** Where the table and JSON lines go; default stdout. */
   write?: (text: string) => void;
 }
@@ -139,9 +144,10 @@ export async function runGrowthBenchmark(opts: GrowthBenchOptions = {}): Promise
   const sizes = opts.sizes ?? DEFAULT_GROWTH_SIZES;
   const seed = opts.seed ?? '1';
   const write = opts.write ?? ((s: string) => void process.stdout.write(s));
+  const model = opts.model ?? 'dla-offlattice-2d';
   const rows: GrowthBenchRow[] = [];
-  write(`growth benchmark (dla-offlattice-2d, default parameters, seed ${seed}, one fresh process per size)\n`);
-  for (const n of sizes) rows.push(await runChild(n, seed));
+  write(`growth benchmark (${model}, default parameters, seed ${seed}, one fresh process per size)\n`);
+  for (const n of sizes) rows.push(await runChild(n, seed, model));
   write(formatTable(rows) + '\n');
   for (const r of rows) write(JSON.stringify(r) + '\n');
   return rows;
@@ -167,10 +173,11 @@ function seedFromArgs(argv: string[]): string {
 if (isEntryPoint(import.meta.url)) {
   const argv = process.argv.slice(2);
   if (argv[0] === CHILD_FLAG) {
-    childMain(Number(argv[1]), argv[2] ?? '1');
+    childMain(Number(argv[1]), argv[2] ?? '1', argv[3] ?? 'dla-offlattice-2d');
   } else {
     try {
-      await runGrowthBenchmark({ sizes: sizesFromArgs(argv), seed: seedFromArgs(argv) });
+      const m = argv.indexOf('--model');
+      await runGrowthBenchmark({ sizes: sizesFromArgs(argv), seed: seedFromArgs(argv), model: m >= 0 ? modelDescriptor(argv[m + 1]).kind : undefined });
     } catch (err) {
       process.stderr.write(`growth bench: ${err instanceof Error ? err.message : String(err)}\n`);
       process.exit(1);

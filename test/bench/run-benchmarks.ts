@@ -2,11 +2,13 @@
  * `npm run bench`: runs the benchmark parts in turn and prints, for each, a
  * human-readable block followed by one JSON line per measurement.
  *
- *   node dist/test/bench/run-benchmarks.js [--only growth|aggregate[,..]] [--sizes 10000,100000]
+ *   node dist/test/bench/run-benchmarks.js [--only growth|dla3d|aggregate[,..]] [--sizes 10000,100000]
  *
  * Parts:
  *   growth     test/bench/growth-bench.ts: one cluster per size, each in a fresh
  *              process (--sizes or env TENDRIL_BENCH_SIZES; default 10^4, 10^5, 10^6)
+ *   dla3d      the same growth benchmark for off-lattice DLA in 3D
+ *              (dla-offlattice-3d; --sizes, default 10^5 and 10^6)
  *   aggregate  test/bench/aggregate-bench.ts: runAggregateBenchmark()
  *   probe      test/bench/probe-bench.ts: runProbeBenchmark() — probe walkers per
  *              second on a grown cluster (10^6 particles, 10^6 walkers, one core)
@@ -27,7 +29,9 @@ import { runProbeBenchmark } from './probe-bench.js';
 import { runProbeScalingBenchmark } from './probe-scaling-bench.js';
 import { runLatticeBenchmark } from './lattice-bench.js';
 
-const PARTS = ['growth', 'aggregate', 'probe', 'probe-scaling', 'farm', 'eden', 'lattice'] as const;
+const PARTS = ['growth', 'dla3d', 'aggregate', 'probe', 'probe-scaling', 'farm', 'eden', 'lattice'] as const;
+/** Default sizes of the dla3d part. */
+const DLA3D_SIZES = [100_000, 1_000_000];
 type Part = (typeof PARTS)[number];
 
 export function partsFromArgs(argv: string[]): Part[] {
@@ -53,6 +57,10 @@ async function main(argv: string[]): Promise<number> {
   for (const part of parts) {
     try {
       if (part === 'growth') await runGrowthBenchmark({ sizes: sizesFromArgs(argv) });
+      else if (part === 'dla3d') {
+        const given = argv.some((a) => a === '--sizes' || a.startsWith('--sizes='));
+        await runGrowthBenchmark({ sizes: given ? sizesFromArgs(argv) : DLA3D_SIZES, model: 'dla-offlattice-3d' });
+      }
       else if (part === 'eden' || part === 'lattice') await runLatticeBenchmark(part, argv.some((a) => a === '--sizes' || a.startsWith('--sizes=')) ? sizesFromArgs(argv) : undefined);
       else if (part === 'aggregate') runAggregate();
       else if (part === 'probe') {

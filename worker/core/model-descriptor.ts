@@ -68,9 +68,10 @@ export type ProbeKind = 'disks-2d';
 /**
  * How a cluster of this model is drawn: 'disks' = every particle as a disk
  * of its diameter coloured by arrival order (coordinator/render/cluster-picture.ts;
- * 3D clusters projected onto the x-y plane).
+ * 3D clusters projected onto the x-y plane); 'spheres-3d' = balls in 3D,
+ * four depth-shaded views (coordinator/render/spheres-picture.ts).
  */
-export type PictureKind = 'disks';
+export type PictureKind = 'disks' | 'spheres-3d';
 
 export interface ModelDescriptor {
   /** The model's name in specs, on the CLI and on the wire, e.g. "dla-offlattice-2d". */

@@ -15,6 +15,7 @@ import { edenTriangular } from './eden-triangular/descriptor.js';
 import { edenOffLattice2d } from './eden-offlattice-2d/descriptor.js';
 import { dlaSquare } from './dla-square/descriptor.js';
 import { dlaTriangular } from './dla-triangular/descriptor.js';
+import { dlaOffLattice3d } from './dla-offlattice-3d/descriptor.js';
 
 export const MODELS: readonly ModelDescriptor[] = [
   dlaOffLattice2d,
@@ -23,6 +24,7 @@ export const MODELS: readonly ModelDescriptor[] = [
   edenOffLattice2d,
   dlaSquare,
   dlaTriangular,
+  dlaOffLattice3d,
 ];
 
 export const MODEL_KINDS: readonly string[] = MODELS.map((m) => m.kind);

@@ -1,0 +1,93 @@
+import { rmSync } from 'node:fs';
+import { Redis } from 'ioredis';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { runEmbedded } from '../coordinator/embedded/index.js';
+import { launchEnsemble, runQueue } from '../coordinator/farm/queue.js';
+import { EnsembleStore } from '../coordinator/farm/store.js';
+import { runTaskFor } from '../coordinator/plan.js';
+import { validateSpec } from '../coordinator/spec/index.js';
+import { decodeCheckpoint, encodeCheckpoint, growthTaskOf, type CheckpointData } from '../proto/convert.js';
+import { createKernel } from '../worker/models/registry.js';
+import { runTask } from '../worker/runtime/task-runner.js';
+import { deleteKeys, REDIS_URL, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
+
+// 3D DLA through every path a model takes: the spec, the task runner with
+// checkpoints over the wire format, the embedded mode and the Redis farm.
+const spec = validateSpec({ name: '3d test', model: 'dla-offlattice-3d', particles: 1200, clusters: 4, seed: '31415', runs_per_job: 1, checkpoint_every_particles: 500 });
+
+function directHash(i: number): string {
+  const k = createKernel(growthTaskOf(runTaskFor('x', spec, i)));
+  k.growTo(spec.particles);
+  return k.result().stateHash;
+}
+
+describe('3D DLA in specs, task runner and embedded mode', () => {
+  it('the spec takes the model with its parameters and refuses a [probe] table (no 3D probing)', () => {
+    expect(spec.model.kind).toBe('dla-offlattice-3d');
+    expect(spec.model.params).toEqual({ min_step: 0.02, launch_margin: 2 });
+    expect(() => validateSpec({ model: 'dla-offlattice-3d', particles: 100, clusters: 2, seed: 1, probe: { walkers: 1000 } })).toThrow(/probe: dla-offlattice-3d has no harmonic-measure probe/);
+    expect(() => validateSpec({ model: 'dla-offlattice-3d', particles: 100, clusters: 2, seed: 1, params: { min_step: 3 } })).toThrow(/params\.min_step: 3 is out of range/);
+  });
+
+  it('checkpoints go through the wire format with dimension 3 and resume to the uninterrupted hash', async () => {
+    const run = runTaskFor('e3', spec, 2);
+    const checkpoints: CheckpointData[] = [];
+    const full = await runTask(run, { onCheckpoint: (c) => void checkpoints.push(c) });
+    expect(full.status).toBe('done');
+    const hash = full.status === 'done' ? full.result.stateHash : '';
+    expect(hash).toBe(directHash(2));
+    expect(checkpoints.map((c) => c.state.count)).toEqual([500, 1000]);
+    for (const c of checkpoints) {
+      const wire = decodeCheckpoint(encodeCheckpoint(c));
+      expect(wire.state.dimension).toBe(3);
+      const resumed = await runTask(run, { checkpoint: wire });
+      expect(resumed.status === 'done' && resumed.result.stateHash).toBe(hash);
+    }
+  });
+
+  it('the embedded mode grows every run on worker threads with the same hashes as the kernel run directly', async () => {
+    const out = await runEmbedded(spec, { ensembleId: 'emb3d', threads: 2 });
+    expect(out.results.map((r) => r.runIndex)).toEqual([0, 1, 2, 3]);
+    for (const r of out.results) {
+      expect(r.stateHash).toBe(directHash(r.runIndex));
+      expect(r.dimension).toBe(3);
+    }
+  });
+});
+
+describe('3D DLA on the farm (real Redis, one worker process)', () => {
+  const prefix = uniquePrefix('dla3d');
+  const artifacts = tempDir('dla3d-artifacts');
+  let redis: Redis;
+  let store: EnsembleStore;
+  let queue: ReturnType<typeof runQueue>;
+  const workers: WorkerProc[] = [];
+
+  beforeAll(async () => {
+    redis = new Redis(REDIS_URL, { maxRetriesPerRequest: null });
+    store = new EnsembleStore(redis, prefix);
+    queue = runQueue(redis, prefix);
+    workers.push(await startWorker({ prefix, artifacts }));
+  });
+
+  afterAll(async () => {
+    for (const w of workers) await stopWorker(w);
+    await queue?.close();
+    if (redis) {
+      await deleteKeys(redis, prefix);
+      redis.disconnect();
+    }
+    rmSync(artifacts, { recursive: true, force: true });
+  });
+
+  it('a worker grows the runs with the same hashes as the kernel run directly', async () => {
+    const id = await launchEnsemble(store, queue, spec);
+    const status = await waitFor('ensemble done', async () => {
+      const s = await store.status(id);
+      return s?.state === 'done' ? s : undefined;
+    });
+    expect(status.runs.done).toBe(4);
+    const farm = await store.results(id);
+    expect(farm.map((r) => r.stateHash)).toEqual([0, 1, 2, 3].map(directHash));
+  });
+});

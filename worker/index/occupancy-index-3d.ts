@@ -1,0 +1,304 @@
+/**
+ * Multi-resolution occupancy index of a cluster of unit-diameter balls in
+ * three dimensions. It answers one question: a lower bound on how far a
+ * walker's centre can move in any direction before its ball touches a ball of
+ * the cluster, i.e. on (distance from the walker to the nearest centre) − 1;
+ * and, next to the cluster, the exact list of the centres around the walker.
+ *
+ * All cell sides are powers of two, so cell coordinates floor(x · 2^-(k+1))
+ * are exact in floating point (kept as int32; exact for |x| < 2^31).
+ *  - Chains (cells of side 2): each occupied cell holds the newest particle's
+ *    arrival index; `next` links it to the previous particle of the same cell.
+ *  - Marks at every level k = 0 … MAX_LEVEL, cells of side s = 2^(k+1): a cell
+ *    is *marked* when a centre lies in the 3 × 3 × 3 block of cells centred
+ *    on it. If the walker's cell is unmarked, every centre is outside that
+ *    block, so at least s + m away, where m is the walker's distance to the
+ *    nearest face of its own cell. Marks are monotone in k (an unmarked
+ *    cell's level-(k − 1) sub-cells are unmarked: their blocks lie inside
+ *    its block), so the largest unmarked level is unique and the answer
+ *    does not depend on where the search starts (the previous query's
+ *    level): results are independent of the order of queries, and so of
+ *    checkpoints.
+ *  - Wide marks at every level: a cell is *widely marked* when a centre lies
+ *    in the 5 × 5 × 5 block of cells centred on it. At the largest unmarked
+ *    level, a cell that is not widely marked has every centre at least
+ *    2s + m away (twice the jump of a plain unmarked cell, so about a
+ *    quarter of the jumps there). This is a refinement between levels k and
+ *    k + 1, read once per query.
+ *  - When even level 0 is marked, the 3 × 3 × 3 block of side-2 cells around
+ *    the walker is scanned exactly: it holds every centre within 2 + m of
+ *    the walker. The level-0 "holds a centre" bits of the (at most eight)
+ *    bricks over the block say which of its cells to look up. The centres found are kept (in chain order, so the same
+ *    set in the same order whatever came before) until the next insert and
+ *    reused while the walker stays in the same side-2 cell.
+ * Marks are stored as bits in bricks of 4 × 4 × 4 cells (one hash slot:
+ * two words of mark bits and two words of "holds a centre" bits); every
+ * table is a sparse hash (worker/index/cell-hash-table-3d.ts), so memory
+ * grows with the number of particles, not with the volume. A particle whose
+ * level-k cell already holds a centre needs no marks at levels >= k (they
+ * were set by the earlier one), so inserts are cheap.
+ */
+
+import { CellHashTable3d } from './cell-hash-table-3d.js';
+
+/** Mark levels 0..MAX_LEVEL; the coarsest cell has side 2^(MAX_LEVEL+1) = 2^23 diameters. */
+const MAX_LEVEL = 22;
+/** SCALES[k] = 2^-(k+1) (1 / cell side at level k); SIDES[k] = 2^(k+1). */
+const SCALES = new Float64Array(MAX_LEVEL + 1);
+const SIDES = new Float64Array(MAX_LEVEL + 1);
+for (let k = 0; k <= MAX_LEVEL; k++) {
+  SIDES[k] = 2 ** (k + 1);
+  SCALES[k] = 2 ** -(k + 1);
+}
+/** Initial room for the centres of one exact scan (grown when a scan finds more). */
+const NEAR_START = 512;
+/** A cell coordinate no centre can have. */
+const NO_CELL = -2147483648;
+
+export class OccupancyIndex3d {
+  /** Centres found by the last exact scan (valid when nearCount >= 0): every centre within 2 of the walker. */
+  nearX: Float64Array = new Float64Array(NEAR_START);
+  nearY: Float64Array = new Float64Array(NEAR_START);
+  nearZ: Float64Array = new Float64Array(NEAR_START);
+  /** Arrival indices of the centres in nearX/Y/Z. */
+  nearId: Int32Array = new Int32Array(NEAR_START);
+  /** Number of entries in nearX/Y/Z, or -1 when the last query did not scan exactly. */
+  nearCount = -1;
+  /** Result of the last `query`: a lower bound on (nearest centre distance) − 1. */
+  free = 0;
+
+  /** The centres in arrival order, interleaved x, y, z (the kernel's positions are this array). */
+  readonly coords: Float64Array;
+  private readonly next: Int32Array;
+  private readonly heads: CellHashTable3d;
+  private readonly marks: CellHashTable3d[] = [];
+  /** Wide marks (5 × 5 × 5 blocks) per level: bits in words v0, v1 of each brick. */
+  private readonly wide: CellHashTable3d[] = [];
+  private n = 0;
+  /** Level where the last query ended (a starting hint only). */
+  private hint = 0;
+  /** Side-2 cell of the cached exact scan (NO_CELL: none). */
+  private scanCx = NO_CELL;
+  private scanCy = NO_CELL;
+  private scanCz = NO_CELL;
+  private scanCount = 0;
+
+  constructor(capacity: number) {
+    this.coords = new Float64Array(3 * capacity);
+    this.next = new Int32Array(capacity);
+    const expected = Math.min(capacity, 1 << 20);
+    this.heads = new CellHashTable3d(expected >> 1, 1);
+    for (let k = 0; k <= MAX_LEVEL; k++) {
+      // mark bricks are few (each covers 4 × 4 × 4 cells): start small and let them grow
+      this.marks.push(new CellHashTable3d(256));
+      this.wide.push(new CellHashTable3d(256));
+    }
+  }
+
+  /** Particles inserted. */
+  get count(): number {
+    return this.n;
+  }
+
+  /** Bytes held by the index. */
+  get bytes(): number {
+    let b = this.coords.byteLength + this.next.byteLength + this.heads.bytes + this.nearX.byteLength * 3 + this.nearId.byteLength;
+    for (const t of this.marks) b += t.bytes;
+    for (const t of this.wide) b += t.bytes;
+    return b;
+  }
+
+  /** Add a centre (arrival index = number inserted before it). */
+  insert(x: number, y: number, z: number): void {
+    const i = this.n;
+    if (i >= this.next.length) throw new RangeError(`occupancy index is full (${this.next.length} particles)`);
+    this.coords[3 * i] = x;
+    this.coords[3 * i + 1] = y;
+    this.coords[3 * i + 2] = z;
+    const cx0 = Math.floor(x * 0.5) | 0;
+    const cy0 = Math.floor(y * 0.5) | 0;
+    const cz0 = Math.floor(z * 0.5) | 0;
+    const h = this.heads.slotFor(cx0, cy0, cz0, -1);
+    this.next[i] = this.heads.slots[h + 3];
+    this.heads.slots[h + 3] = i;
+    this.n = i + 1;
+    this.scanCx = NO_CELL;
+
+    for (let k = 0; k <= MAX_LEVEL; k++) {
+      const t = this.marks[k];
+      const sc = SCALES[k];
+      const cx = Math.floor(x * sc) | 0;
+      const cy = Math.floor(y * sc) | 0;
+      const cz = Math.floor(z * sc) | 0;
+      const b = (cx & 3) | ((cy & 3) << 2) | ((cz & 3) << 4);
+      const o = t.slotFor(cx >> 2, cy >> 2, cz >> 2, 0);
+      const w = o + 5 + (b >> 5);
+      const bit = 1 << (b & 31);
+      if ((t.slots[w] & bit) !== 0) break; // an earlier centre shares this cell: levels >= k are marked
+      t.slots[w] |= bit;
+      for (let dz = -1; dz <= 1; dz++)
+        for (let dy = -1; dy <= 1; dy++)
+          for (let dx = -1; dx <= 1; dx++) {
+            const ex = cx + dx;
+            const ey = cy + dy;
+            const ez = cz + dz;
+            const eb = (ex & 3) | ((ey & 3) << 2) | ((ez & 3) << 4);
+            const eo = t.slotFor(ex >> 2, ey >> 2, ez >> 2, 0);
+            t.slots[eo + 3 + (eb >> 5)] |= 1 << (eb & 31);
+          }
+      const w2 = this.wide[k];
+      for (let dz = -2; dz <= 2; dz++)
+        for (let dy = -2; dy <= 2; dy++)
+          for (let dx = -2; dx <= 2; dx++) {
+            const ex = cx + dx;
+            const ey = cy + dy;
+            const ez = cz + dz;
+            const eb = (ex & 3) | ((ey & 3) << 2) | ((ez & 3) << 4);
+            const eo = w2.slotFor(ex >> 2, ey >> 2, ez >> 2, 0);
+            w2.slots[eo + 3 + (eb >> 5)] |= 1 << (eb & 31);
+          }
+    }
+  }
+
+  /** True when the level-k cell of (x, y, z) is marked. */
+  private marked(k: number, x: number, y: number, z: number): boolean {
+    return markedIn(this.marks[k], SCALES[k], x, y, z);
+  }
+
+  /** True when the level-k cell of (x, y, z) is widely marked. */
+  private widelyMarked(k: number, x: number, y: number, z: number): boolean {
+    return markedIn(this.wide[k], SCALES[k], x, y, z);
+  }
+
+  /**
+   * Set `free` to reach + (distance from (x, y, z) to the nearest face of its
+   * own cell of side s, sc = 1/s) − 1, or to min(that, cap − 1) when cap is
+   * given (a method that stores rather than returns, so that V8 need not box
+   * the double).
+   */
+  private setFree(reach: number, x: number, y: number, z: number, s: number, sc: number, cap: number): void {
+    const fx = x - Math.floor(x * sc) * s;
+    const fy = y - Math.floor(y * sc) * s;
+    const fz = z - Math.floor(z * sc) * s;
+    let m = fx < s - fx ? fx : s - fx;
+    const my = fy < s - fy ? fy : s - fy;
+    if (my < m) m = my;
+    const mz = fz < s - fz ? fz : s - fz;
+    if (mz < m) m = mz;
+    const f = reach + m;
+    this.free = (f < cap ? f : cap) - 1;
+  }
+
+  /**
+   * Set `free` to a lower bound on (distance to the nearest centre) − 1 for a
+   * walker at (x, y, z). When the walker is next to the cluster (level 0
+   * marked) the bound is exact up to 2 + m and nearX/Y/Z hold every centre
+   * within 2 of the walker (nearCount >= 0); otherwise nearCount is -1.
+   */
+  query(x: number, y: number, z: number): void {
+    let k = this.hint;
+    if (!this.marked(k, x, y, z)) {
+      while (k < MAX_LEVEL && !this.marked(k + 1, x, y, z)) k++;
+    } else {
+      k--;
+      while (k >= 0 && this.marked(k, x, y, z)) k--;
+    }
+    if (k >= 0) {
+      this.hint = k;
+      const s = SIDES[k];
+      const sc = SCALES[k];
+      this.nearCount = -1;
+      this.setFree(this.widelyMarked(k, x, y, z) ? s : 2 * s, x, y, z, s, sc, Infinity);
+      return;
+    }
+    this.hint = 0;
+    const cx = Math.floor(x * 0.5) | 0;
+    const cy = Math.floor(y * 0.5) | 0;
+    const cz = Math.floor(z * 0.5) | 0;
+    if (cx !== this.scanCx || cy !== this.scanCy || cz !== this.scanCz) this.scan(cx, cy, cz);
+    const nx = this.nearX;
+    const ny = this.nearY;
+    const nz = this.nearZ;
+    let best2 = Infinity;
+    for (let j = 0; j < this.scanCount; j++) {
+      const dx = nx[j] - x;
+      const dy = ny[j] - y;
+      const dz = nz[j] - z;
+      const d2 = dx * dx + dy * dy + dz * dz;
+      if (d2 < best2) best2 = d2;
+    }
+    this.nearCount = this.scanCount;
+    // the scanned block holds every centre within 2 + m of the walker
+    this.setFree(2, x, y, z, 2, 0.5, Math.sqrt(best2));
+  }
+
+  /**
+   * Gather the centres of the 3 × 3 × 3 block of side-2 cells around
+   * (cx, cy, cz), in a fixed order (bricks, then cells, then chains): the
+   * level-0 hold bits of the bricks over the block pick the cells to look up.
+   */
+  private scan(cx: number, cy: number, cz: number): void {
+    let c = 0;
+    const xyz = this.coords;
+    const next = this.next;
+    const heads = this.heads;
+    const t = this.marks[0];
+    for (let bz = (cz - 1) >> 2; bz <= (cz + 1) >> 2; bz++)
+      for (let by = (cy - 1) >> 2; by <= (cy + 1) >> 2; by++)
+        for (let bx = (cx - 1) >> 2; bx <= (cx + 1) >> 2; bx++) {
+          const o = t.find(bx, by, bz);
+          if (o < 0) continue;
+          const lo = t.slots[o + 5];
+          const hi = t.slots[o + 6];
+          if ((lo | hi) === 0) continue;
+          const z0 = Math.max(cz - 1, bz << 2), z1 = Math.min(cz + 1, (bz << 2) + 3);
+          const y0 = Math.max(cy - 1, by << 2), y1 = Math.min(cy + 1, (by << 2) + 3);
+          const x0 = Math.max(cx - 1, bx << 2), x1 = Math.min(cx + 1, (bx << 2) + 3);
+          for (let z = z0; z <= z1; z++)
+            for (let y = y0; y <= y1; y++)
+              for (let x = x0; x <= x1; x++) {
+                const b = (x & 3) | ((y & 3) << 2) | ((z & 3) << 4);
+                if (((b < 32 ? lo : hi) & (1 << (b & 31))) === 0) continue;
+                const h = heads.find(x, y, z);
+                for (let i = heads.slots[h + 3]; i >= 0; i = next[i]) {
+                  if (c === this.nearX.length) this.growNear();
+                  this.nearX[c] = xyz[3 * i];
+                  this.nearY[c] = xyz[3 * i + 1];
+                  this.nearZ[c] = xyz[3 * i + 2];
+                  this.nearId[c] = i;
+                  c++;
+                }
+              }
+        }
+    this.scanCount = c;
+    this.scanCx = cx;
+    this.scanCy = cy;
+    this.scanCz = cz;
+  }
+
+  private growNear(): void {
+    const m = 2 * this.nearX.length;
+    const grow = (a: Float64Array): Float64Array => {
+      const b = new Float64Array(m);
+      b.set(a);
+      return b;
+    };
+    this.nearX = grow(this.nearX);
+    this.nearY = grow(this.nearY);
+    this.nearZ = grow(this.nearZ);
+    const id = new Int32Array(m);
+    id.set(this.nearId);
+    this.nearId = id;
+  }
+}
+
+/** True when the cell of (x, y, z) in a level's table (cells of side 1/sc) is marked. */
+function markedIn(t: CellHashTable3d, sc: number, x: number, y: number, z: number): boolean {
+  const cx = Math.floor(x * sc) | 0;
+  const cy = Math.floor(y * sc) | 0;
+  const cz = Math.floor(z * sc) | 0;
+  const o = t.find(cx >> 2, cy >> 2, cz >> 2);
+  if (o < 0) return false;
+  const b = (cx & 3) | ((cy & 3) << 2) | ((cz & 3) << 4);
+  return (t.slots[o + 3 + (b >> 5)] & (1 << (b & 31))) !== 0;
+}
