@@ -71,7 +71,7 @@ describe('ensemble report from a real small DLA ensemble', () => {
   beforeAll(async () => {
     const grown = Array.from({ length: CLUSTERS }, (_, i) => grow(PARTICLES, i));
     const runs = grown.map((g) => g.result);
-    analysis = analyzeEnsemble(runs, { resamples: 400 });
+    analysis = analyzeEnsemble(runs, { resamples: 400, corrections: true });
     const spec = validateSpec({ name: 'report test', model: 'dla-offlattice-2d', particles: PARTICLES, clusters: CLUSTERS, seed: SEED });
     dir = mkdtempSync(join(tmpdir(), 'tendril-report-'));
     files = await writeEnsembleReport(dir, {
@@ -92,7 +92,10 @@ describe('ensemble report from a real small DLA ensemble', () => {
       expect(present).toContain(`${f}.png`);
     }
     expect(present).toContain('sample-cluster-raster.png');
-    expect(files.notes).toEqual([]);
+    // a small real ensemble does not determine omega: the corrections figure says so instead of drawing a fit
+    expect(analysis.corrections.radiusOfGyration!.determined).toBe(false);
+    expect(files.notes).toHaveLength(1);
+    expect(files.notes[0]).toMatch(/corrections-to-scaling.*no determined corrections fit: R_g\(N\)[^:]*: not determined \(/);
   });
 
   it('is well-formed, self-contained and escapes text', () => {
@@ -149,7 +152,8 @@ describe('ensemble report from a real small DLA ensemble', () => {
       expect(row.cells).toContain(`${e.fitWindow!.points} points`);
     }
     const c = analysis.corrections.radiusOfGyration!;
-    if (c.available) expect(tableRow(html, 'radiusOfGyrationCorrected').values).toEqual([String(c.D.value)]);
+    if (c.determined) expect(tableRow(html, 'radiusOfGyrationCorrected').values).toEqual([String(c.D.value)]);
+    else expect(html).toMatch(new RegExp(`data-estimator="radiusOfGyrationCorrected"><th>[^]*?</th><td colspan="3" class="warn">not determined: ${c.reason!.replace(/[.*+?^${}()|[\]\\]/g, '\\$&').slice(0, 20)}`));
     // the published value sits in the consistency panel, with its source
     expect(html).toContain('D = 1.71 ± 0.0002');
     expect(html).toContain('Menshutin');

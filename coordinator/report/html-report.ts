@@ -16,7 +16,7 @@ import { mkdir, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import type { GrowthResult } from '../../worker/core/growth-kernel.js';
 import { ENGINE_VERSION } from '../../worker/core/engine-version.js';
-import type { EnsembleAnalysis } from '../stats/analyze-ensemble.js';
+import { CORRECTIONS_DETERMINED_RULES, type EnsembleAnalysis } from '../stats/analyze-ensemble.js';
 import type { HarmonicAtSize, HarmonicSection } from '../harmonic/harmonic-section-types.js';
 import type { IntervalSummary } from '../stats/bca.js';
 import { extractEnsembleData, type EnsembleData } from '../stats/ensemble-data.js';
@@ -113,8 +113,9 @@ function estimatesTable(a: EnsembleAnalysis): string {
     if (!c) continue;
     const key = `${n}Corrected`;
     const win = c.window ? `N = ${fmtAbscissa(c.window.from)} to ${fmtAbscissa(c.window.to)} (${c.window.points} points; ${c.window.source})` : '–';
-    if (!c.available) {
-      rows.push(`<tr data-estimator="${key}"><th>${richHtml(labelOf(key).rich)}</th><td colspan="3" class="warn">not available: ${escapeHtml(c.reason ?? 'unknown reason')}</td><td>${escapeHtml(c.method)}</td><td>${escapeHtml(win)}</td><td class="warn" data-status="unavailable">unavailable</td></tr>`);
+    if (!c.determined) {
+      const what = c.available ? 'not determined' : 'not available';
+      rows.push(`<tr data-estimator="${key}"><th>${richHtml(labelOf(key).rich)}</th><td colspan="3" class="warn">${what}: ${escapeHtml(c.reason ?? 'unknown reason')}</td><td>${escapeHtml(c.method)}</td><td>${escapeHtml(win)}</td><td class="warn" data-status="${c.available ? 'not-determined' : 'unavailable'}">${what}</td></tr>`);
       continue;
     }
     rows.push(`<tr data-estimator="${key}"><th>${richHtml(labelOf(key).rich)}</th>${num(c.D.value)}${range(c.D.interval.percentile)}${range(c.D.interval.bca)}<td>${escapeHtml(c.method)}</td><td>${escapeHtml(win)}</td>${statusCell(c.D.interval)}</tr>`);
@@ -155,16 +156,17 @@ function correctionsSection(a: EnsembleAnalysis): string {
   for (const n of ['radiusOfGyration', 'maxRadius'] as const) {
     const c = a.corrections[n];
     if (!c) continue;
-    if (!c.available) { rows.push(`<tr><th>${richHtml(labelOf(n).rich)}</th><td colspan="7" class="warn">not available: ${escapeHtml(c.reason ?? '')}</td></tr>`); continue; }
+    const win = c.window ? `N = ${fmtAbscissa(c.window.from)} to ${fmtAbscissa(c.window.to)}, ${c.window.points} points (${c.window.source})` : '–';
+    if (!c.determined) { rows.push(`<tr data-estimator="${n}"><th>${richHtml(labelOf(n).rich)}</th><td colspan="5" class="warn">${c.available ? 'not determined' : 'not available'}: ${escapeHtml(c.reason ?? '')}</td><td>${escapeHtml(win)}</td><td class="num">${escapeHtml(c.rss === null ? '–' : c.rss.toExponential(3))} / ${escapeHtml(c.rssPowerLaw === null ? '–' : c.rssPowerLaw.toExponential(3))}</td></tr>`); continue; }
     const cell = (v: { value: number | null; interval: IntervalSummary }, d = 4) => {
       const sh = shownInterval(v.interval);
       return v.value === null ? '<td class="na">–</td>' : `<td class="num" data-value="${escapeHtml(String(v.value))}">${escapeHtml(fmt(v.value, d))}${sh.range ? ` <span class="iv">${escapeHtml(fmtRange(sh.range, d))} ${escapeHtml(sh.kind ?? '')}</span>` : ''}</td>`;
     };
-    const omega = c.omegaStatus === 'resolved' ? cell(c.omega, 3) : `<td class="warn">undetermined: ${escapeHtml(c.omegaReason ?? '')}</td>`;
-    rows.push(`<tr><th>${richHtml(labelOf(n).rich)}</th>${cell(c.D)}${omega}${cell(c.amplitude)}${cell(c.correctionAmplitude)}${cell(c.relativeCorrection)}<td>${escapeHtml(c.window ? `N = ${fmtAbscissa(c.window.from)} to ${fmtAbscissa(c.window.to)}, ${c.points} points (${c.window.source})` : '–')}</td><td class="num">${escapeHtml(c.rss === null ? '–' : c.rss.toExponential(3))} / ${escapeHtml(c.rssPowerLaw === null ? '–' : c.rssPowerLaw.toExponential(3))}</td></tr>`);
+    rows.push(`<tr data-estimator="${n}"><th>${richHtml(labelOf(n).rich)}</th>${cell(c.D)}${cell(c.omega, 3)}${cell(c.amplitude)}${cell(c.correctionAmplitude)}${cell(c.relativeCorrection)}<td>${escapeHtml(win)}</td><td class="num">${escapeHtml(c.rss === null ? '–' : c.rss.toExponential(3))} / ${escapeHtml(c.rssPowerLaw === null ? '–' : c.rssPowerLaw.toExponential(3))}</td></tr>`);
   }
   const method = a.corrections.radiusOfGyration?.method ?? a.corrections.maxRadius?.method ?? '';
-  return `<table id="corrections"><thead><tr><th>curve</th><th>D</th><th>ω</th><th>A</th><th>B</th><th>B N<sub>min</sub><sup>−ω</sup></th><th>window</th><th>residual sum of squares: with correction / pure power law</th></tr></thead><tbody>${rows.join('') || '<tr><td colspan="8" class="na">no corrections fit</td></tr>'}</tbody></table><p class="method">${escapeHtml(method)}</p>`;
+  return `<table id="corrections"><thead><tr><th>curve</th><th>D</th><th>ω</th><th>A</th><th>B</th><th>B N<sub>min</sub><sup>−ω</sup></th><th>window</th><th>residual sum of squares: with correction / pure power law</th></tr></thead><tbody>${rows.join('') || '<tr><td colspan="8" class="na">no corrections fit</td></tr>'}</tbody></table><p class="method">${escapeHtml(method)}</p>` +
+    `<p class="rules-head">A fit gives D, ω, A and B only when every rule holds; otherwise it is reported as not determined, with the first rule that failed, and it stays out of the consistency panel:</p><ul class="rules">${CORRECTIONS_DETERMINED_RULES.map((r) => `<li>${escapeHtml(r)}</li>`).join('')}</ul>`;
 }
 
 function evCell(v: { mean: number; interval: IntervalSummary } | null | undefined, digits = 4): string {

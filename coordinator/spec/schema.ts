@@ -72,7 +72,7 @@ export const SPEC_SCHEMA = {
         mass_radius_max_radius: { type: 'number', minimum: 0, maximum: 1e6, description: 'largest r of the M(r) fit, in particle diameters' },
         resamples: { type: 'integer', minimum: 10, maximum: 1_000_000, description: 'bootstrap resamples' },
         level: { type: 'number', minimum: 0.5, maximum: 0.999, description: 'confidence level of the intervals' },
-        corrections: { type: 'boolean', description: 'run the corrections-to-scaling fit' },
+        corrections: { type: 'boolean', description: 'run the corrections-to-scaling fit (default false)' },
         local_slope_width: { type: 'number', minimum: 0.05, maximum: 3, description: 'full width of the local-slope window in decades' },
       },
     },

@@ -327,9 +327,9 @@ export function estimatorsToCsv(s: EnsembleSummaryData): string {
       const iv = c.D.interval;
       lines.push(
         [
-          `${c.estimator}Corrected`, `${c.estimator === 'radiusOfGyration' ? 'R_g' : 'R_max'}(N) with corrections to scaling`, c.available, opt(c.D.value),
+          `${c.estimator}Corrected`, `${c.estimator === 'radiusOfGyration' ? 'R_g' : 'R_max'}(N) with corrections to scaling`, c.determined, opt(c.D.value),
           opt(iv.percentile?.[0]), opt(iv.percentile?.[1]), opt(iv.bca?.[0]), opt(iv.bca?.[1]), iv.level, iv.status,
-          'N', opt(c.window?.from), opt(c.window?.to), '', '', c.points, c.window?.source ?? '', a.clusters, s.partial, csvText(c.reason ?? c.omegaReason ?? ''),
+          'N', opt(c.window?.from), opt(c.window?.to), '', '', c.points, c.window?.source ?? '', a.clusters, s.partial, csvText(c.reason ?? ''),
         ].join(','),
       );
     }
