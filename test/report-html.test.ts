@@ -158,6 +158,15 @@ describe('ensemble report from a real small DLA ensemble', () => {
     expect(html).toContain('D = 1.71 ± 0.0002');
     expect(html).toContain('Menshutin');
     expect(html).toContain('never used as a fit input');
+    // every verdict column states its rule beside its table; "computed" is an interval status, not a verdict
+    expect(html).toContain('Rule: pair agrees: the interval (BCa, else percentile) of the paired bootstrap difference');
+    expect(html).toContain('Rule: published value inside our interval: yes when');
+    expect(html).toContain('Rule: bound: satisfied if');
+    expect(html).toContain('it is not a verdict on D');
+    // small clusters: if anything disagrees, the note under the estimates table says why
+    const disagrees = analysis.consistency.pairs.some((q) => q.agree === false) || analysis.consistency.rows.some((r) => r.referenceInsideInterval === false);
+    expect(analysis.consistency.finiteSizeNote !== null).toBe(disagrees);
+    if (disagrees) expect(html).toMatch(/<p class="note" id="finite-size-note"><b>Why the estimates differ:<\/b> These clusters have N = \d+ particles/);
   });
 
   it('renders PNGs at twice the SVG size, with text and data drawn', () => {

@@ -48,6 +48,20 @@ describe('consistency panel', () => {
     expect(pair('radiusOfGyration', 'massRadius').agree).toBe(false);
     expect(pair('maxRadius', 'massRadius').agree).toBe(false);
     expect(pair('radiusOfGyration', 'massRadius').difference!).toBeLessThan(-0.05);
+    // clusters of under 10^5 particles, below the DLA finite-size range: the disagreement is explained
+    expect(p.finiteSizeNote).toMatch(/^These clusters have N = \d+ particles, below about 1000000: .*not expected to agree/);
+  });
+
+  it('explains disagreement by finite size only below the model\'s finite-size range and only when something disagrees', () => {
+    const agreeing = analyzeEnsemble(ensemble(1.71), { resamples: 400, level: 0.999, localSlopes: false }).consistency;
+    expect(agreeing.pairs.every((q) => q.agree) && agreeing.rows.every((r) => r.referenceInsideInterval)).toBe(true);
+    expect(agreeing.finiteSizeNote).toBeNull();
+    const big = syntheticEnsemble({ clusters: 30, sizes: sizes.map((n) => n * 100), radii, dimension: 1.3, seed: 2, walkSigma: 0.05 });
+    const p = analyzeEnsemble(big, { resamples: 200, localSlopes: false }).consistency;
+    expect(p.rows.some((r) => r.referenceInsideInterval === false)).toBe(true);
+    expect(p.finiteSizeNote).toBeNull();
+    // every verdict column has its rule
+    expect(p.rules.map((r) => r.split(':')[0])).toEqual(['pair agrees', 'bound', 'published value inside our interval', 'individual intervals overlap']);
   });
 
   it('never uses the reference value as input: estimates are identical for a model kind without a reference', () => {

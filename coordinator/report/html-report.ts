@@ -75,7 +75,7 @@ export function richHtml(s: string): string {
 }
 
 const STATUS_TEXT: Record<IntervalSummary['status'], string> = {
-  ok: 'ok',
+  ok: 'computed',
   degenerate: 'degenerate (all replicates equal)',
   'too-few-clusters': 'too few clusters for an interval',
   unstable: 'unstable (too many non-finite replicates)',
@@ -121,7 +121,10 @@ function estimatesTable(a: EnsembleAnalysis): string {
     rows.push(`<tr data-estimator="${key}"><th>${richHtml(labelOf(key).rich)}</th>${num(c.D.value)}${range(c.D.interval.percentile)}${range(c.D.interval.bca)}<td>${escapeHtml(c.method)}</td><td>${escapeHtml(win)}</td>${statusCell(c.D.interval)}</tr>`);
   }
   const lvl = `${Number((a.options.level * 100).toFixed(1))}%`;
-  return `<table id="estimates"><thead><tr><th>estimator</th><th>D</th><th>${lvl} percentile interval</th><th>${lvl} BCa interval</th><th>method</th><th>fit window</th><th>interval status</th></tr></thead><tbody>${rows.join('')}</tbody></table>`;
+  const fs = a.consistency.finiteSizeNote;
+  return `<table id="estimates"><thead><tr><th>estimator</th><th>D</th><th>${lvl} percentile interval</th><th>${lvl} BCa interval</th><th>method</th><th>fit window</th><th>interval</th></tr></thead><tbody>${rows.join('')}</tbody></table>` +
+    '<p class="rule" id="estimates-rule">Column “interval”: <i>computed</i> when the bootstrap gave an interval (enough clusters, finite and not all equal replicates); it is not a verdict on D. Whether estimates agree with each other or with the published value is judged in the consistency panel, by the rules stated there.</p>' +
+    (fs ? `<p class="note" id="finite-size-note"><b>Why the estimates differ:</b> ${escapeHtml(fs)}</p>` : '');
 }
 
 function yesNo(v: boolean | null, yes = 'yes', no = 'no'): string {
@@ -136,17 +139,18 @@ function consistencySection(a: EnsembleAnalysis): string {
   } else {
     out.push(`<p class="reference">No published value is on record for model ${escapeHtml(p.modelKind ?? '(unknown)')}.</p>`);
   }
+  const rule = (prefix: string) => p.rules.filter((r) => r.startsWith(prefix)).map((r) => `<p class="rule">Rule: ${escapeHtml(r)}.</p>`).join('');
+  const seeNote = p.finiteSizeNote ? '<p class="note" data-note="finite-size">Disagreement on clusters this small is expected: see “Why the estimates differ” under the estimates table.</p>' : '';
   const rows = p.rows.map((r) => `<tr><th>${richHtml(labelOf(r.name).rich)}</th>${num(r.D)}${range(r.interval)}<td>${escapeHtml(r.intervalKind ?? '–')}</td>${num(r.differenceFromReference)}${yesNo(r.referenceInsideInterval)}</tr>`);
-  out.push(`<h3>Estimates beside the published value</h3><table id="panel-rows"><thead><tr><th>estimator</th><th>D</th><th>interval used</th><th>kind</th><th>D − published</th><th>published value inside our interval</th></tr></thead><tbody>${rows.join('') || '<tr><td colspan="6" class="na">no estimate</td></tr>'}</tbody></table>`);
+  out.push(`<h3>Estimates beside the published value</h3><table id="panel-rows"><thead><tr><th>estimator</th><th>D</th><th>interval used</th><th>kind</th><th>D − published</th><th>published value inside our interval</th></tr></thead><tbody>${rows.join('') || '<tr><td colspan="6" class="na">no estimate</td></tr>'}</tbody></table>` + rule('published value inside') + (p.rows.some((r) => r.referenceInsideInterval === false) ? seeNote : ''));
   const pairs = p.pairs.map((q) => {
     const sh = shownInterval(q.differenceInterval);
     return `<tr><th>${richHtml(labelOf(q.a).rich)} − ${richHtml(labelOf(q.b).rich)}</th>${num(q.difference)}${range(sh.range)}<td>${escapeHtml(sh.kind ?? '–')}</td>${yesNo(q.intervalsOverlap)}${yesNo(q.agree, 'agree', 'disagree')}</tr>`;
   });
-  out.push(`<h3>Agreement of pairs</h3><table id="panel-pairs"><thead><tr><th>pair</th><th>difference</th><th>interval of the paired difference</th><th>kind</th><th>individual intervals overlap</th><th>verdict (0 inside the difference interval)</th></tr></thead><tbody>${pairs.join('') || '<tr><td colspan="6" class="na">fewer than two estimators: no pairs</td></tr>'}</tbody></table>`);
+  out.push(`<h3>Agreement of pairs</h3><table id="panel-pairs"><thead><tr><th>pair</th><th>difference</th><th>interval of the paired difference</th><th>kind</th><th>individual intervals overlap</th><th>verdict (0 inside the difference interval)</th></tr></thead><tbody>${pairs.join('') || '<tr><td colspan="6" class="na">fewer than two estimators: no pairs</td></tr>'}</tbody></table>` + rule('pair agrees') + rule('individual intervals') + (p.pairs.some((q) => q.agree === false) ? seeNote : ''));
   const names = p.rows.map((r) => r.name);
   const bounds = p.bounds.map((b) => `<tr><th>${escapeHtml(b.rule)}</th><td>${escapeHtml(b.source)}</td>${names.map((n) => { const s = b.status[n] ?? 'unknown'; return `<td class="${s === 'satisfied' ? 'ok' : s === 'unknown' ? 'na' : 'warn'}">${escapeHtml(s)}</td>`; }).join('')}</tr>`);
-  out.push(`<h3>Bounds</h3><table id="panel-bounds"><thead><tr><th>bound</th><th>source</th>${names.map((n) => `<th>${richHtml(labelOf(n).rich)}</th>`).join('')}</tr></thead><tbody>${bounds.join('') || `<tr><td colspan="${2 + names.length}" class="na">no bounds known for this model</td></tr>`}</tbody></table>`);
-  out.push(`<ul class="rules">${p.rules.map((r) => `<li>${escapeHtml(r)}</li>`).join('')}</ul>`);
+  out.push(`<h3>Bounds</h3><table id="panel-bounds"><thead><tr><th>bound</th><th>source</th>${names.map((n) => `<th>${richHtml(labelOf(n).rich)}</th>`).join('')}</tr></thead><tbody>${bounds.join('') || `<tr><td colspan="${2 + names.length}" class="na">no bounds known for this model</td></tr>`}</tbody></table>` + rule('bound:'));
   return out.join('\n');
 }
 
@@ -324,6 +328,7 @@ table { border-collapse: collapse; margin: 8px 0 14px; font-size: 14px; }
 th, td { border: 1px solid #d0d0d0; padding: 4px 8px; text-align: left; vertical-align: top; }
 thead th { background: #f2f2f2; } td.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
 td.ok { color: #05620f; } .warn { color: #a00000; } .na { color: #777; }
+.rule { color: #444; font-size: 13px; margin: -8px 0 12px; } .note { background: #fff8e1; border-left: 3px solid #e0a800; padding: 6px 10px; font-size: 14px; }
 .headline { font-size: 19px; } .iv { color: #555; font-size: 12px; } .method { color: #444; font-size: 13px; }
 figure { margin: 18px 0 28px; } figure svg { max-width: 100%; height: auto; border: 1px solid #eee; }
 figcaption { font-size: 14px; color: #333; max-width: 860px; } figcaption a { margin-right: 10px; }

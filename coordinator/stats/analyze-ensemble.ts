@@ -506,7 +506,7 @@ export function analyzeEnsemble(runs: readonly GrowthResult[], options: Analysis
       pairs.push({ a: ea.name, b: eb.name, difference: diff, interval: iv });
     }
   }
-  const consistency = buildConsistencyPanel(data.modelKind, reference, embeddingDimension, panelEstimates, pairs);
+  const consistency = buildConsistencyPanel(data.modelKind, reference, embeddingDimension, panelEstimates, pairs, data.finalSize);
 
   return {
     schema: 'tendril.ensemble-statistics/1',
