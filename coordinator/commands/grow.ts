@@ -220,6 +220,7 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
     mode: o.quiet ? 'none' : io.progressMode ?? 'auto',
     stream: io.stderr,
   });
+  progress.update(kernel.count); // the starting count: the baseline of the rate
   const t0 = performance.now();
   let chunk = 256;
   while (!kernel.done) {

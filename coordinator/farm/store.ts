@@ -307,9 +307,10 @@ export class EnsembleStore implements RunSink {
       name: rec.name,
       state,
       createdAt: new Date(rec.createdAtMs).toISOString(),
-      runs: { planned, queued: Math.max(0, planned - doneN - runningN - failedN), running: runningN, done: doneN, failed: failedN },
+      // a cancelled or finished ensemble has nothing queued (its jobs were dropped), and grows nothing
+      runs: { planned, queued: state === 'running' ? Math.max(0, planned - doneN - runningN - failedN) : 0, running: runningN, done: doneN, failed: failedN },
       particles: { done: particlesDone, total },
-      throughput,
+      throughput: state === 'running' ? throughput : 0,
       etaSeconds: state !== 'running' ? (state === 'done' ? 0 : null) : throughput > 0 ? remaining / throughput : null,
       failures: Object.entries(failed)
         .map(([i, reason]) => ({ runIndex: Number(i), reason }))

@@ -184,11 +184,16 @@ export function buildApi(o: ApiOptions): FastifyInstance {
 
   app.post<{ Params: { id: string } }>(
     '/ensembles/:id/cancel',
-    { preHandler: requireToken, schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA, 401: ERROR_SCHEMA } } },
+    { preHandler: requireToken, schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA, 401: ERROR_SCHEMA, 409: ERROR_SCHEMA } } },
     async (req) => {
       checkId(req.params.id);
-      if (!(await cancelEnsemble(o.store, o.queue, req.params.id))) throw new ApiError(404, `id: "${req.params.id}" is not an ensemble of this farm`);
-      return { id: req.params.id, cancelled: true };
+      const outcome = await cancelEnsemble(o.store, o.queue, req.params.id);
+      if (outcome === 'unknown') throw new ApiError(404, `id: "${req.params.id}" is not an ensemble of this farm`);
+      if (outcome === 'finished') {
+        const st = await o.store.status(req.params.id);
+        throw new ApiError(409, `id: "${req.params.id}" has already finished (state ${st?.state ?? 'done'}); there is nothing to cancel`);
+      }
+      return { id: req.params.id, cancelled: true, alreadyCancelled: outcome === 'already-cancelled' };
     },
   );
 
