@@ -47,7 +47,7 @@ describe('tendril grow, end to end', () => {
   });
 
   it('succeeds and prints the three paths and a summary line', () => {
-    expect(first.stderr).toMatch(/^grow: 2000\/2000 particles \(100\.0%\), .* particles\/s, .* elapsed\n$/);
+    expect(first.stderr).toMatch(/^grow: 2000\/2000 particles \(100\.0%\), .* particles\/s on average, .* elapsed\n$/);
     expect(first.status).toBe(0);
     const lines = first.stdout.trimEnd().split('\n');
     expect(lines.slice(0, 3)).toEqual([join(dirA, 'run-result.json'), join(dirA, 'cluster.snapshot'), join(dirA, 'cluster.png')]);
