@@ -92,7 +92,8 @@ export interface RunSink {
   exists(ensembleId: string): Promise<boolean>;
   isCancelled(ensembleId: string): Promise<boolean>;
   hasResult(ensembleId: string, runIndex: number): Promise<boolean>;
-  runStarted(ensembleId: string, runIndex: number, workerId: string): Promise<void>;
+  /** Mark the run running; false when its result is already stored (then it is not grown). */
+  runStarted(ensembleId: string, runIndex: number, workerId: string): Promise<boolean>;
   /** The run was handed back (shutdown or cancel) without a result. */
   runReleased(ensembleId: string, runIndex: number): Promise<void>;
   progress(ensembleId: string, runIndex: number, count: number, delta: number): Promise<void>;
@@ -243,6 +244,8 @@ export class RunWorker {
     for (const run of tasks) {
       if (await sink.isCancelled(ensembleId)) return { done, skipped, cancelled: true };
       if (await sink.hasResult(ensembleId, run.runIndex)) {
+        // a retry after its result was stored: make sure no running mark of it is left behind
+        await sink.runReleased(ensembleId, run.runIndex);
         skipped++;
         continue;
       }
@@ -251,6 +254,10 @@ export class RunWorker {
         throw new WaitingError();
       }
       const outcome = await this.growOne(run);
+      if (outcome === 'skipped') {
+        skipped++;
+        continue;
+      }
       if (outcome === 'released') {
         await job.moveToWait(token);
         throw new WaitingError();
@@ -280,11 +287,12 @@ export class RunWorker {
     }
   }
 
-  private async growOne(run: RunTaskData): Promise<'done' | 'released' | 'cancelled'> {
+  private async growOne(run: RunTaskData): Promise<'done' | 'released' | 'cancelled' | 'skipped'> {
     const { sink, checkpoints } = this.o;
     const key = checkpointKey(run.ensembleId, run.runIndex);
+    // atomic with the result check: a run another worker has just finished is not marked running nor grown again
+    if (!(await sink.runStarted(run.ensembleId, run.runIndex, this.workerId))) return 'skipped';
     const checkpoint = (await checkpoints.get(key)) ?? undefined;
-    await sink.runStarted(run.ensembleId, run.runIndex, this.workerId);
     this.o.onRunStarted?.();
     let lastCount = -1;
     let lastCounters: Record<string, number> = {};
