@@ -110,7 +110,26 @@ export interface CheckpointStore {
   delete(key: string): Promise<void>;
 }
 
+/** One event in the life of a run on this worker (for structured logs: one line each). */
+export interface RunEvent {
+  event: 'run started' | 'run checkpointed' | 'run finished' | 'run handed back' | 'run cancelled' | 'run failed';
+  ensembleId: string;
+  runIndex: number;
+  /** Particles of the run at the event (for 'run started': where it starts, 0 or its checkpoint's count when known). */
+  particles: number | null;
+  /** 'run started': whether it resumes from a checkpoint. */
+  resumed?: boolean;
+  /** 'run finished': state hash, whether it was counted (false: stored before by another worker), wall seconds. */
+  stateHash?: string;
+  counted?: boolean;
+  seconds?: number;
+  /** 'run failed': why. */
+  reason?: string;
+}
+
 export interface ProcessorEvents {
+  /** Each start, checkpoint, finish, hand-back, cancel and failure of a run. */
+  onRunEvent?: (e: RunEvent) => void;
   /** Particles grown and counter increments (by the names of the model's descriptor) since the last call, for metrics. */
   onGrowth?: (model: string, particles: number, counters: Record<string, number>) => void;
   onRunDone?: (result: RunResultData, counted: boolean) => void;
@@ -293,6 +312,9 @@ export class RunWorker {
     // atomic with the result check: a run another worker has just finished is not marked running nor grown again
     if (!(await sink.runStarted(run.ensembleId, run.runIndex, this.workerId))) return 'skipped';
     const checkpoint = (await checkpoints.get(key)) ?? undefined;
+    const event = (e: Omit<RunEvent, 'ensembleId' | 'runIndex'>) => this.o.onRunEvent?.({ ensembleId: run.ensembleId, runIndex: run.runIndex, ...e });
+    const t0 = Date.now();
+    event({ event: 'run started', particles: checkpoint ? null : 0, resumed: checkpoint !== undefined });
     this.o.onRunStarted?.();
     let lastCount = -1;
     let lastCounters: Record<string, number> = {};
@@ -313,7 +335,11 @@ export class RunWorker {
         lastCounters = p.counters;
       },
       onCheckpoint: (bytes) => {
-        writes = writes.then(() => checkpoints.put(key, bytes)).catch((err) => this.o.log?.(`checkpoint of run ${run.runIndex} not stored: ${(err as Error).message}`));
+        const at = lastCount >= 0 ? lastCount : null;
+        writes = writes
+          .then(() => checkpoints.put(key, bytes))
+          .then(() => event({ event: 'run checkpointed', particles: at }))
+          .catch((err) => this.o.log?.(`checkpoint of run ${run.runIndex} not stored: ${(err as Error).message}`));
       },
     });
     this.active.add(handle);
@@ -347,18 +373,22 @@ export class RunWorker {
         const counted = await sink.saveResult(outcome.result, outcome.resultBytes);
         await checkpoints.delete(key);
         this.o.onRunDone?.(outcome.result, counted);
+        event({ event: 'run finished', particles: outcome.result.particles, stateHash: outcome.result.stateHash, counted, seconds: (Date.now() - t0) / 1000 });
         return 'done';
       }
       if (outcome.status === 'stopped') {
         if (cancelled) {
           await checkpoints.delete(key);
           await sink.runReleased(run.ensembleId, run.runIndex);
+          event({ event: 'run cancelled', particles: lastCount >= 0 ? lastCount : null });
           return 'cancelled';
         }
         await checkpoints.put(key, outcome.checkpoint);
         await sink.runReleased(run.ensembleId, run.runIndex);
+        event({ event: 'run handed back', particles: lastCount >= 0 ? lastCount : null });
         return 'released';
       }
+      event({ event: 'run failed', particles: lastCount >= 0 ? lastCount : null, reason: outcome.message.split('\n')[0] });
       if (outcome.rejected) {
         await sink.runFailed(run.ensembleId, run.runIndex, outcome.message);
         throw new UnrecoverableError(outcome.message);
