@@ -22,6 +22,7 @@ const COMMANDS: Array<() => Promise<{ register: Register }>> = [
   () => import('./commands/worker.js'),
   () => import('./commands/serve.js'),
   () => import('./commands/probe.js'),
+  () => import('./commands/export.js'),
 ];
 
 export async function main(argv: string[]): Promise<number> {

@@ -210,6 +210,10 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
           await writes;
           live.delete(run.runIndex);
           if (outcome.status === 'done') {
+            if (!probe && spec.positions && store) {
+              if (!outcome.final) throw new Error(`run ${run.runIndex}: the thread returned no final positions to keep`);
+              await store.put(finalKey(opts.ensembleId, run.runIndex), outcome.final);
+            }
             if (probe) {
               if (!outcome.final) throw new Error(`run ${run.runIndex}: the thread returned no final positions to probe`);
               if (store) {

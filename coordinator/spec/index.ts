@@ -59,6 +59,16 @@ export interface ProbeSpec {
 
 /** Default q grid of probing: -1 to 5 in steps of 0.25 (contains 0, 1, 2 and 3). */
 export const DEFAULT_PROBE_Q: readonly number[] = Array.from({ length: 25 }, (_, k) => -1 + 0.25 * k);
+/** The [positions] table: keep every cluster's final positions; `atSizes` are the smaller sizes exported too (prefixes). */
+export interface PositionsSpec {
+  atSizes: number[];
+}
+
+/** Every size at which the positions of a spec's clusters are exported (ascending, the final size last); empty without [positions]. */
+export function positionSizesOf(s: EnsembleSpec): number[] {
+  return s.positions ? [...s.positions.atSizes, s.particles] : [];
+}
+
 /** Default probe walkers per job when the spec gives no job count. */
 export const DEFAULT_PROBE_WALKERS_PER_JOB = 250_000;
 
@@ -112,6 +122,8 @@ export interface EnsembleSpec {
   target: TargetSpec | null;
   /** Harmonic-measure probing, or null. */
   probe: ProbeSpec | null;
+  /** Keep final positions of every cluster ([positions]), or null. */
+  positions: PositionsSpec | null;
 }
 
 export class SpecError extends Error {
@@ -206,6 +218,12 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
     }
     if (pr.jobs !== undefined && pr.jobs > pr.walkers) problems.push(`probe.jobs: ${pr.jobs} is out of range; allowed: an integer from 1 to probe.walkers (${pr.walkers})`);
   }
+  const po = d.positions as Record<string, any> | undefined;
+  if (po) {
+    for (const [k, v] of (po.at_sizes ?? []).entries()) {
+      if (v >= d.particles) problems.push(`positions.at_sizes[${k}]: ${v} is out of range; allowed: an integer from 2 to particles - 1 (${d.particles - 1})`);
+    }
+  }
   const seed = String(d.seed);
   if (BigInt(seed) >= 1n << 64n) problems.push(`seed: "${seed}" is out of range; allowed: an integer from 0 to 18446744073709551615`);
   const model: ModelParams = modelParams(d.model, (d.params ?? {}) as Record<string, number>);
@@ -250,6 +268,7 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
           atSizes: [...(pr.at_sizes ?? [])].sort((a: number, b: number) => a - b),
         }
       : null,
+    positions: po ? { atSizes: [...(po.at_sizes ?? [])].sort((a: number, b: number) => a - b) } : null,
   };
 }
 
@@ -309,6 +328,7 @@ export function specToDocument(s: EnsembleSpec): Record<string, unknown> {
           },
         }
       : {}),
+    ...(s.positions ? { positions: s.positions.atSizes.length > 0 ? { at_sizes: [...s.positions.atSizes] } : {} } : {}),
   };
 }
 

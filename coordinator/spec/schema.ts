@@ -98,6 +98,18 @@ export const SPEC_SCHEMA = {
         },
       },
     },
+    positions: {
+      type: 'object',
+      additionalProperties: false,
+      description: 'keep the final particle positions of every cluster (the cluster at any smaller size is the first n of them), for tendril export and the HTTP snapshot download',
+      properties: {
+        at_sizes: {
+          type: 'array', minItems: 1, maxItems: MAX_PROBE_SIZES, uniqueItems: true,
+          items: { type: 'integer', minimum: 2, maximum: MAX_PARTICLES },
+          description: 'also export each cluster at these sizes (each below particles): the first n positions',
+        },
+      },
+    },
     target: {
       type: 'object',
       additionalProperties: false,
