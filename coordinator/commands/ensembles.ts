@@ -1,15 +1,13 @@
 /** `tendril list`, `tendril status ID`, `tendril cancel ID`, `tendril summary ID`. */
 import { writeFile } from 'node:fs/promises';
 import type { Command } from 'commander';
-import { cancelEnsemble } from '../farm/queue.js';
 import type { EnsembleStatus, EnsembleStore } from '../farm/store.js';
 import { formatDuration, formatRate } from '../progress/index.js';
-import { farmSummary } from '../farm/summary.js';
-import { CSV_TABLE_NAMES, defaultSummaryOptions, renderSummary, SUMMARY_FORMATS, type SummaryFormat } from '../summary/index.js';
+import { CSV_TABLE_NAMES, SUMMARY_FORMATS, type SummaryFormat } from '../summary/formats.js';
 import { UsageError } from '../usage-error.js';
-import { addAnalysisOptions, analysisSettingsFromCli, type AnalysisCliOptions } from './analysis-options.js';
-import { describeAnalysis, writeSummaryFiles } from './summary-files.js';
+import { addAnalysisOptions, type AnalysisCliOptions } from './analysis-options.js';
 import { addFarmOptions, openFarm, type FarmCliOptions } from './farm-options.js';
+// the queue, the statistics and the report load only in the commands that use them (start-up time of list/status)
 
 /**
  * One line of an ensemble's state. Parts are joined with "; " and only
@@ -75,6 +73,7 @@ export function register(program: Command): void {
     async (id: string, opts: FarmCliOptions) => {
       const farm = await openFarm(opts);
       try {
+        const { cancelEnsemble } = await import('../farm/queue.js');
         const outcome = await cancelEnsemble(farm.store, farm.queue, id);
         if (outcome === 'unknown') throw new UsageError(`ensemble id: "${id}" is not known to this farm`);
         if (outcome === 'finished') {
@@ -108,6 +107,9 @@ export function register(program: Command): void {
     if (!CSV_TABLE_NAMES.includes(opts.table)) throw new UsageError(`--table: "${opts.table}" is not allowed; allowed: ${CSV_TABLE_NAMES.join(', ')}`);
     if (opts.format === 'pb' && !opts.out && process.stdout.isTTY) throw new UsageError('--out: missing; allowed: a file name (protobuf is not written to a terminal)');
     if ((opts.format === 'tables' || opts.format === 'html') && !opts.out) throw new UsageError(`--out: missing; allowed: a folder name (--format ${opts.format} writes several files)`);
+    const [{ farmSummary }, { defaultSummaryOptions, renderSummary }, { describeAnalysis, writeSummaryFiles }, { analysisSettingsFromCli }] = await Promise.all([
+      import('../farm/summary.js'), import('../summary/index.js'), import('./summary-files.js'), import('./analysis-options.js'),
+    ]);
     const farm = await openFarm(opts);
     try {
       const rec = await farm.store.get(id);
