@@ -199,7 +199,7 @@ describe('tendril grow, bad options', () => {
     const file = join(work, 'a-file');
     writeFileSync(file, 'x');
     const onFile = tendril('grow', '--particles', '10', '--seed', '1', '--out', file);
-    expect(onFile.stderr).toBe(`tendril: --out must name a folder, but "${file}" is an existing file\n`);
+    expect(onFile.stderr).toBe(`tendril: --out: "${file}" is an existing file; allowed: a folder, or a path that does not exist yet\n`);
     expect(onFile.status).toBe(2);
   });
 

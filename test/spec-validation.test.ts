@@ -130,7 +130,7 @@ describe('ensemble spec', () => {
     expect(problems(() => parseSpecText('particles = = 3', 'toml'))[0]).toMatch(/^spec is not valid TOML \(line 1, column \d+\): invalid value$/);
     expect(problems(() => parseSpecText('{"a":', 'json'))[0]).toMatch(/^spec is not valid JSON: /);
     expect(problems(() => parseSpecText('seed = 9007199254740993', 'toml'))[0]).toMatch(/cannot be represented losslessly/);
-    expect(problems(() => formatOf('spec.yaml'))).toEqual(['spec file "spec.yaml": unknown format; allowed: a name ending in .toml or .json']);
+    expect(problems(() => formatOf('spec.yaml'))).toEqual(['unknown format; allowed: a name ending in .toml or .json']);
   });
 });
 

@@ -18,10 +18,11 @@
  * of about a quarter of a second so that the progress display stays live;
  * the chunking does not change the result (the kernel contract).
  */
-import { mkdirSync, statSync, writeFileSync } from 'node:fs';
+import { writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import type { Command } from 'commander';
 import { UsageError } from '../usage-error.js';
+import { checkOutFolder, makeOutFolder } from './out-folder.js';
 import { checkModelParams, createKernel, MODEL_KINDS, modelDescriptor, modelParams } from '../../worker/models/registry.js';
 import type { GrowthResult, GrowthTask, ModelParams } from '../../worker/core/growth-kernel.js';
 import { axisOf } from '../../worker/core/positions.js';
@@ -188,19 +189,6 @@ export function clusterRadii(x: Float64Array, y: Float64Array, n: number): { rad
   return { radiusOfGyration: Math.sqrt(s2 / n), maxRadius: Math.sqrt(m2) };
 }
 
-function prepareOutDir(out: string): string {
-  const dir = resolve(out);
-  let isDir = false;
-  try {
-    isDir = statSync(dir).isDirectory();
-  } catch {
-    mkdirSync(dir, { recursive: true });
-    isDir = true;
-  }
-  if (!isDir) throw new UsageError(`--out must name a folder, but "${out}" is an existing file`);
-  return dir;
-}
-
 export interface GrowIo {
   stdout: NodeJS.WritableStream;
   stderr: NodeJS.WritableStream & { isTTY?: boolean };
@@ -209,7 +197,9 @@ export interface GrowIo {
 
 /** Grow, write the three files, and return what was written. */
 export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, stderr: process.stderr }): GrowSummary {
-  const dir = prepareOutDir(o.out);
+  // checked now (an unwritable --out is refused before growing), created only when the files are written,
+  // so Ctrl-C during growth leaves no empty folder
+  const dir = checkOutFolder(o.out);
   const task = growTask(o);
   const kernel = createKernel(task);
   const startedAt = new Date().toISOString();
@@ -241,6 +231,7 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
   const y = axisOf(pos, 1);
   const radii = clusterRadii(x, y, pos.count);
 
+  makeOutFolder(dir, o.out);
   const w0 = performance.now();
   const points = { dimension: 2 as const, count: pos.count, x, y, diameter: modelDescriptor(task.model.kind).contactDistance, arrivalOrder: true };
   const files = {

@@ -23,6 +23,7 @@ import { CLUSTER_CONTACT_RADIUS } from '../harmonic/ensemble-probing.js';
 import { addAnalysisOptions, analysisSettingsFromCli, type AnalysisCliOptions } from './analysis-options.js';
 import { describeAnalysis, writeSummaryFiles } from './summary-files.js';
 import { loadSpecFile, positiveInt } from './spec-file.js';
+import { checkOutFolder, makeOutFolder } from './out-folder.js';
 
 /** Largest cluster regrown for the report's picture (results hold no positions; regrowing run 0 is cheap below this). */
 const PICTURE_MAX_PARTICLES = 200_000;
@@ -60,7 +61,8 @@ export function register(program: Command): void {
       }
       const spec = await loadSpecFile(specPath, opts.maxTotalParticles);
       const analysis = analysisSettingsFromCli(spec.analysis, opts);
-      await mkdir(opts.out, { recursive: true });
+      // refused before any growth when unusable (a file, an unwritable parent); never a raw EEXIST/ENOTDIR
+      makeOutFolder(checkOutFolder(opts.out), opts.out);
       const doc = specToDocument(spec);
       const metaPath = join(opts.out, 'ensemble.json');
       let ensembleId = newEnsembleId();

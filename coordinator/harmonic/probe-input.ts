@@ -50,8 +50,15 @@ export function readProbeInput(path: string): ProbeInput {
   } catch (e) {
     throw new RangeError(`INPUT "${path}" cannot be read: ${(e as NodeJS.ErrnoException).code ?? String(e)}`);
   }
-  if (bytes.length >= 8 && bytes.subarray(0, 8).toString('latin1') === 'TNDRLSNP') {
-    const s = decodeSnapshot(bytes);
+  const named = path.toLowerCase().endsWith('.snapshot');
+  if (named || (bytes.length >= 8 && bytes.subarray(0, 8).toString('latin1') === 'TNDRLSNP')) {
+    // a file named .snapshot is read as one, so a damaged one says what is wrong with it (not "wrong extension")
+    let s;
+    try {
+      s = decodeSnapshot(bytes);
+    } catch (e) {
+      throw new RangeError(`INPUT "${path}" is not a valid snapshot: ${(e as Error).message.split('\n')[0]}`);
+    }
     if (s.dimension !== 2) throw new RangeError(`INPUT "${path}" is a ${s.dimension}D snapshot; probing needs dimension 2`);
     return { kind: 'snapshot', count: s.count, x: s.x, y: s.y, r: s.diameter, drawRadius: s.diameter / 2 };
   }

@@ -169,14 +169,18 @@ export function parseSpecText(text: string, format: 'toml' | 'json'): unknown {
   } catch (err) {
     const e = err as { line?: number; column?: number };
     const where = e.line !== undefined ? ` (line ${e.line}, column ${e.column ?? 0})` : '';
-    throw new SpecError([`spec is not valid TOML${where}: ${oneLine(err).replace(/^Invalid TOML document: /, '')}`]);
+    const msg = oneLine(err).replace(/^Invalid TOML document: /, '');
+    // TOML integers are signed 64-bit: a seed of 2^63 or more must be written as a string
+    const hint = /cannot be represented losslessly|integer .*(large|range)/i.test(msg) ? '; an integer of 2^63 or more (e.g. a seed up to 18446744073709551615) must be quoted: seed = "18446744073709551615"' : '';
+    throw new SpecError([`spec is not valid TOML${where}: ${msg}${hint}`]);
   }
 }
 
 export function formatOf(fileName: string): 'toml' | 'json' {
   if (/\.json$/i.test(fileName)) return 'json';
   if (/\.toml$/i.test(fileName)) return 'toml';
-  throw new SpecError([`spec file "${fileName}": unknown format; allowed: a name ending in .toml or .json`]);
+  // the caller names the file (no doubled 'spec file "…": spec file "…"')
+  throw new SpecError(['unknown format; allowed: a name ending in .toml or .json']);
 }
 
 /** Validate a parsed document and fill in defaults; throws SpecError listing every problem. */
@@ -184,8 +188,13 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
   if (typeof doc !== 'object' || doc === null || Array.isArray(doc)) {
     throw new SpecError([`spec: ${describe(doc)} is not allowed; allowed: a table (object) of fields`]);
   }
-  if (!validateDoc(doc)) throw new SpecError(problemsOf(validateDoc.errors ?? [], doc));
   const d = doc as Record<string, any>;
+  if (!validateDoc(doc)) {
+    // every problem in one round: the schema's, and a missing cluster count (which the schema cannot require, as [target] may stand in for it)
+    const first = problemsOf(validateDoc.errors ?? [], doc);
+    if (d.clusters === undefined && d.target === undefined) first.push(`clusters: missing; allowed: an integer from 1 to ${SPEC_SCHEMA.properties.clusters.maximum} (or a [target] table with max_clusters)`);
+    throw new SpecError(first);
+  }
   const problems: string[] = [];
   const t = d.target as Record<string, any> | undefined;
   if (d.clusters === undefined && !t) problems.push(`clusters: missing; allowed: an integer from 1 to ${SPEC_SCHEMA.properties.clusters.maximum} (or a [target] table with max_clusters)`);
