@@ -26,6 +26,7 @@ import { checkOutFolder, makeOutFolder } from './out-folder.js';
 import { checkModelParams, createKernel, MODEL_KINDS, modelDescriptor, modelParams } from '../../worker/models/registry.js';
 import type { GrowthResult, GrowthTask, ModelParams } from '../../worker/core/growth-kernel.js';
 import { axisOf } from '../../worker/core/positions.js';
+import { RECORDS_PER_DECADE } from '../../worker/core/record-sizes.js';
 import { encodeSnapshot } from '../snapshot/cluster-snapshot.js';
 import { renderClusterPng, DEFAULT_PICTURE_SIZE } from '../render/cluster-picture.js';
 import { createProgress, formatRate, type ProgressMode } from '../progress/progress.js';
@@ -33,7 +34,8 @@ import { createProgress, formatRate, type ProgressMode } from '../progress/progr
 export const RUN_RESULT_FILE = 'run-result.json';
 export const SNAPSHOT_FILE = 'cluster.snapshot';
 export const PICTURE_FILE = 'cluster.png';
-export const DEFAULT_RECORDS_PER_DECADE = 20;
+/** The same range and default as a spec's records_per_decade (one source: worker/core/record-sizes.ts). */
+export const DEFAULT_RECORDS_PER_DECADE = RECORDS_PER_DECADE.default;
 
 export interface GrowOptions {
   particles: number;
@@ -149,7 +151,7 @@ export function parseGrowOptions(raw: Record<string, unknown>): GrowOptions {
   const model = parseModelOptions(raw.model, raw.param);
   const pictureSize = raw.pictureSize === undefined ? DEFAULT_PICTURE_SIZE : parseIntegerOption('picture-size', raw.pictureSize, 64, 8192);
   const recordsPerDecade =
-    raw.recordsPerDecade === undefined ? DEFAULT_RECORDS_PER_DECADE : parseIntegerOption('records-per-decade', raw.recordsPerDecade, 10, 100);
+    raw.recordsPerDecade === undefined ? DEFAULT_RECORDS_PER_DECADE : parseIntegerOption('records-per-decade', raw.recordsPerDecade, RECORDS_PER_DECADE.min, RECORDS_PER_DECADE.max);
   return { particles, seed, out: outRaw, model, pictureSize, recordsPerDecade, quiet: raw.quiet === true };
 }
 
@@ -270,7 +272,7 @@ export function register(program: Command): void {
     .option('--model <kind>', `growth model, one of ${MODEL_KINDS.join(', ')} (default ${MODEL_KINDS[0]})`)
     .option('--param <name=value>', 'a model parameter (repeatable); every other one takes its default (see tendril models)', (v: string, prev: string[] = []) => [...prev, v])
     .option('--picture-size <px>', `side of cluster.png in pixels, in [64, 8192] (default ${DEFAULT_PICTURE_SIZE})`)
-    .option('--records-per-decade <k>', `observable records per decade of size, in [10, 100] (default ${DEFAULT_RECORDS_PER_DECADE})`)
+    .option('--records-per-decade <k>', `observable records per decade of size, in [${RECORDS_PER_DECADE.min}, ${RECORDS_PER_DECADE.max}] (default ${DEFAULT_RECORDS_PER_DECADE}, as in a spec)`)
     .option('--quiet', 'no progress display')
     .action((raw: Record<string, unknown>) => {
       runGrow(parseGrowOptions(raw));

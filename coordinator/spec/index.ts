@@ -7,6 +7,7 @@
  *   particles: 0 is out of range; allowed: an integer from 2 to 100000000
  * A SpecError carries all problems of a document at once.
  */
+import { RECORDS_PER_DECADE } from '../../worker/core/record-sizes.js';
 import { Ajv, type ErrorObject } from 'ajv';
 import { parse as parseToml } from 'smol-toml';
 import { checkModelParams, MODEL_KINDS, modelParams } from '../../worker/models/registry.js';
@@ -251,7 +252,7 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
     particles: d.particles,
     clusters,
     seed: BigInt(seed).toString(),
-    recordsPerDecade: d.records_per_decade ?? 10,
+    recordsPerDecade: d.records_per_decade ?? RECORDS_PER_DECADE.default,
     observables: d.observables ?? [...OBSERVABLES],
     checkpointIntervalSeconds: d.checkpoint_interval_seconds ?? 300,
     checkpointEveryParticles: every,

@@ -11,6 +11,7 @@
  * (checked against its descriptor in coordinator/spec/index.ts, with one line
  * naming params.NAME, the model and the allowed range).
  */
+import { RECORDS_PER_DECADE } from '../../worker/core/record-sizes.js';
 import { MODEL_KINDS } from '../../worker/models/registry.js';
 
 export { MODEL_KINDS };
@@ -50,7 +51,7 @@ export const SPEC_SCHEMA = {
         { type: 'string', pattern: '^[0-9]{1,20}$' },
       ],
     },
-    records_per_decade: { type: 'integer', minimum: 10, maximum: 100, description: 'observables recorded at this many sizes per decade' },
+    records_per_decade: { type: 'integer', minimum: RECORDS_PER_DECADE.min, maximum: RECORDS_PER_DECADE.max, description: `observables recorded at this many sizes per decade (default ${RECORDS_PER_DECADE.default})` },
     observables: {
       type: 'array',
       minItems: 1,
