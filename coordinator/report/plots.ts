@@ -176,7 +176,7 @@ export function localSlopesFigure(analysis: EnsembleAnalysis, variable: 'N' | 'r
   const caption = `Effective dimension from OLS fits over a sliding window of ${width ?? '?'} decade(s) of ${variable === 'N' ? 'N' : 'r'}, centred at each point` +
     (bandKind ? `; shaded: ${bandKind} bootstrap band over clusters` : '') +
     '. Dotted coloured segments: D of the global fit, drawn over its fit window.' +
-    (ref ? ` Dashed black: the published value ${ref.D} (${ref.source}), shown for comparison and not used in any fit.` : '') +
+    (ref ? ` Dashed black: the published value ${ref.D}, source: ${ref.source}; shown for comparison and not used in any fit.` : '') +
     (analysis.consistency.bounds.length ? ' Grey dotted (lower) and dash-dotted (upper): rigorous bounds.' : '') + ' A curve that has levelled off at large sizes means D has settled.';
   return { name: file, title, caption, svg: p.toSvg(), note: null };
 }
@@ -232,7 +232,7 @@ export function comparisonFigure(analysis: EnsembleAnalysis): Figure {
   const off = boundLines(p, analysis, [lo, hi], false);
   for (const t of off) p.note(t);
   const caption = `Each row: the point estimate (marker, value above it), its ${pct} percentile interval (grey, upper whisker) and BCa interval (coloured, lower whisker) from the bootstrap over whole clusters.` +
-    (ref ? ` Dashed: published value ${ref.D} ± ${ref.uncertainty} (${ref.source}), not a fit input.` : '') +
+    (ref ? ` Dashed: published value ${ref.D} ± ${ref.uncertainty}, source: ${ref.source}; not a fit input.` : '') +
     (off.length ? ` ${off.join('; ')}.` : '') + (analysis.consistency.bounds.length ? ' Grey dotted (lower) and dash-dotted (upper): rigorous bounds that fall inside the range.' : '');
   return { name: file, title, caption, svg: p.toSvg(), note: null };
 }
