@@ -1,6 +1,7 @@
 /**
  * `tendril probe INPUT --walkers N --seed S --out DIR [--jobs K]
- *  [--q-grid a:b:step] [--threads T] [--contact-sample M] [--min-step h]`
+ *  [--q-grid a:b:step] [--threads T] [--contact-sample M] [--min-step h]
+ *  [--window lo:hi]`
  *
  * Probes the harmonic measure of INPUT (a 2D .snapshot, probed as disks of
  * radius = its contact distance around the centres, or a CSV of x,y,r
@@ -11,6 +12,8 @@
  *                        logarithmic capacity ± error, convergence flags,
  *                        the fit window and the sign convention; plus
  *                        `timing` (wall clock, never compared)
+ *                        (with the fit window, window and contact-radius
+ *                        systematics, and warnings, also printed to stderr)
  *   probe-hits.csv       index,x,y,r,hits,measure per disk
  *   probe-measure.png    the set coloured by log harmonic measure
  */
@@ -23,10 +26,19 @@ import { readProbeInput } from '../harmonic/probe-input.js';
 import { runProbes } from '../harmonic/probe-run.js';
 import { renderMeasurePng } from '../harmonic/measure-picture.js';
 import { DEFAULT_PROBE_MIN_STEP } from '../../worker/probe/probe-2d.js';
+import { WINDOW_RULE, windowProblem } from '../harmonic/fit-window.js';
 
 export const MEASURES_FILE = 'probe-measures.json';
 export const HITS_FILE = 'probe-hits.csv';
 export const MEASURE_PICTURE_FILE = 'probe-measure.png';
+
+/** Parse --window lo:hi (box sides relative to the set radius R; rule in fit-window.ts). */
+export function parseWindowOption(raw: string): [number, number] {
+  const parts = raw.split(':').map((t) => t.trim());
+  const nums = parts.map((t) => (/^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/.test(t) ? Number(t) : NaN));
+  if (nums.length !== 2 || windowProblem(nums) !== null) throw new UsageError(`--window must be lo:hi, ${WINDOW_RULE}, got ${JSON.stringify(raw)}`);
+  return [nums[0], nums[1]];
+}
 
 /** Parse a:b:step into the grid a, a+step, … ≤ b (at most 401 values, |q| ≤ 50). */
 export function parseQGrid(raw: string): number[] {
@@ -54,7 +66,8 @@ export function register(program: Command): void {
     .option('--q-grid <a:b:step>', 'q values for tau(q)', '-1:5:0.25')
     .option('--threads <t>', 'worker threads, integer in [1, 64]', '1')
     .option('--contact-sample <m>', 'contact points kept for the capacity, integer in [3, 20000]', '4000')
-    .option('--min-step <h>', 'straight-step length near contact in units of the largest radius, in (0, 1]', String(DEFAULT_PROBE_MIN_STEP))
+    .option('--min-step <h>', 'final approach: straight steps of this length (units of the largest radius, in (0, 1]) where two disks are this close; exact lens steps elsewhere', String(DEFAULT_PROBE_MIN_STEP))
+    .option('--window <lo:hi>', 'fit window: smallest and largest box side relative to the set radius R (default: see the README)')
     .action(async (input: string, raw: Record<string, unknown>) => {
       const need = (k: string, what: string): unknown => {
         if (raw[k] === undefined) throw new UsageError(`--${k} is required (${what})`);
@@ -70,6 +83,7 @@ export function register(program: Command): void {
       const contactSample = Math.min(walkers, parseIntegerOption('contact-sample', raw.contactSample, 3, 20000));
       const minStep = parseNumberOption('min-step', raw.minStep, 0, 1, true);
       const q = parseQGrid(String(raw.qGrid));
+      const window = raw.window === undefined ? null : parseWindowOption(String(raw.window));
       let set;
       try {
         set = readProbeInput(input);
@@ -85,7 +99,7 @@ export function register(program: Command): void {
       }
       let run;
       try {
-        run = await runProbes(set, { walkers, seed, jobs, threads, q, contactSample, minStep });
+        run = await runProbes(set, { walkers, seed, jobs, threads, q, contactSample, minStep, window });
       } catch (e) {
         if (e instanceof RangeError) throw new UsageError(`INPUT ${input}: ${e.message}`);
         throw e;
@@ -104,6 +118,7 @@ export function register(program: Command): void {
       }
       writeFileSync(join(dir, HITS_FILE), lines.join('\n') + '\n');
       writeFileSync(join(dir, MEASURE_PICTURE_FILE), renderMeasurePng(set.count, set.x, set.y, set.drawRadius, run.counts));
+      for (const w of run.measures.warnings) process.stderr.write(`warning: ${w}\n`);
       const cap = run.measures.capacity;
       process.stdout.write(
         `probed ${set.count} disks with ${walkers} walkers in ${run.seconds.toFixed(2)} s; ` +

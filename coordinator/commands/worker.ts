@@ -8,12 +8,20 @@
  * checkpoint, finish, hand-back, cancel and failure at info (failures at
  * warn), with ensembleId, runIndex, particles and workerId; other remarks
  * (queue errors, shutdown) as msg lines.
+ *
+ * At start the artifact folder must be writable (else one line, exit code 2);
+ * temporary files that dead writers left there are removed. With
+ * --exit-when-idle S the worker ends by itself (exit code 0) once the run
+ * queue has held no pending job for S seconds, as a Slurm array task should
+ * (deploy/slurm/tendril-worker.sbatch).
  */
 import { availableParallelism } from 'node:os';
 import { Option, type Command } from 'commander';
 import { pino } from 'pino';
 import { advanceAdaptive, startAdaptiveSweeps } from '../farm/adaptive.js';
-import { DirectoryArtifactStore } from '../farm/artifacts.js';
+import { artifactFolderProblem, DirectoryArtifactStore, removeOrphanTemporaries } from '../farm/artifacts.js';
+import { watchForIdle } from '../farm/idle-watch.js';
+import { UsageError } from '../usage-error.js';
 import { FarmProbeHandler, keepFinalAndQueueProbes } from '../farm/probe-jobs.js';
 import { ProbeRequestStore } from '../farm/probe-requests.js';
 import type { RunSink } from '../../worker/runtime/queue-processor.js';
@@ -21,7 +29,6 @@ import { newRegistry, serveMetrics, workerMetrics } from '../metrics/index.js';
 import { RunWorker } from '../../worker/runtime/queue-processor.js';
 import { addFarmOptions, openFarm, type FarmCliOptions } from './farm-options.js';
 import { positiveInt } from './spec-file.js';
-import { UsageError } from '../usage-error.js';
 
 interface WorkerOptions extends FarmCliOptions {
   concurrency?: number;
@@ -33,9 +40,13 @@ interface WorkerOptions extends FarmCliOptions {
   progressMs?: number;
   adaptiveSweepMs: number;
   logLevel: string;
+  exitWhenIdle?: number;
 }
 
 export const LOG_LEVELS = ['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent'] as const;
+
+/** Temporary files older than this are orphans of dead writers (a live write takes seconds). */
+const ORPHAN_TMP_AGE_MS = 15 * 60_000;
 
 const SHUTDOWN_LIMIT_MS = 9_000;
 
@@ -49,11 +60,16 @@ export function register(program: Command): void {
       .option('--metrics-port <port>', 'serve Prometheus /metrics on this port (default: TENDRIL_WORKER_METRICS_PORT, else off)', positiveInt('--metrics-port', 65535))
       .option('--metrics-host <host>', 'address for /metrics', '127.0.0.1')
       .addOption(new Option('--log-level <level>', 'structured log level on stderr (JSON lines)').choices(LOG_LEVELS).default(process.env.TENDRIL_LOG_LEVEL ?? 'info', 'TENDRIL_LOG_LEVEL or info'))
+      .option('--exit-when-idle <seconds>', 'exit once the run queue has had no pending job for this long (batch-system array tasks)', positiveInt('--exit-when-idle', 86_400))
       .addOption(new Option('--lock-ms <ms>', 'queue lock duration').argParser(positiveInt('--lock-ms', 3_600_000)).hideHelp())
       .addOption(new Option('--stalled-ms <ms>', 'stalled-job check interval').argParser(positiveInt('--stalled-ms', 3_600_000)).hideHelp())
       .addOption(new Option('--progress-ms <ms>', 'progress report interval').argParser(positiveInt('--progress-ms', 600_000)).hideHelp())
       .addOption(new Option('--adaptive-sweep-ms <ms>', 'how often to check adaptive ensembles for a finished batch').argParser(positiveInt('--adaptive-sweep-ms', 3_600_000)).default(30_000).hideHelp()),
   ).action(async (opts: WorkerOptions) => {
+    const artifactRoot = opts.artifacts ?? process.env.TENDRIL_ARTIFACTS ?? 'tendril-artifacts';
+    const problem = await artifactFolderProblem(artifactRoot);
+    if (problem) throw new UsageError(problem);
+    const orphans = await removeOrphanTemporaries(artifactRoot, ORPHAN_TMP_AGE_MS);
     const farm = await openFarm(opts);
     const registry = newRegistry();
     const metrics = workerMetrics(registry);
@@ -64,7 +80,8 @@ export function register(program: Command): void {
     // adaptive ensembles: the worker that stores the last result of a batch judges it and queues the next
     // batch (coordinator/farm/adaptive.ts: an atomic Redis step, so a batch is never added twice)
     const store = farm.store;
-    const artifacts = new DirectoryArtifactStore(opts.artifacts ?? process.env.TENDRIL_ARTIFACTS ?? 'tendril-artifacts');
+    const artifacts = new DirectoryArtifactStore(artifactRoot);
+    if (orphans > 0) log(`removed ${orphans} temporary file(s) left in ${artifacts.root} by writers that died`);
     const probes = new FarmProbeHandler(store, artifacts, concurrency, { onProbed: metrics.onProbed, log }, new ProbeRequestStore(farm.redis, farm.prefix));
     const sink: RunSink = {
       finalPositions: (run, bytes) => keepFinalAndQueueProbes(store, artifacts, farm.queue, run, bytes),
@@ -110,8 +127,13 @@ export function register(program: Command): void {
     worker.start();
     process.stdout.write(`worker ${worker.workerId} ready: ${concurrency} thread(s), prefix ${farm.prefix}${server ? `, metrics on http://${opts.metricsHost}:${port}/metrics` : ''}\n`);
     await new Promise<void>((resolve) => {
+      let stopping = false;
+      let stopIdleWatch = () => undefined as void;
       const onSignal = (sig: string) => {
-        log(`${sig}: checkpointing active runs and handing them back`);
+        if (stopping) return;
+        stopping = true;
+        stopIdleWatch();
+        log(sig === 'idle' ? `the run queue had no pending job for ${opts.exitWhenIdle} s: exiting` : `${sig}: checkpointing active runs and handing them back`);
         const hard = setTimeout(() => {
           log('shutdown took too long; exiting');
           process.exit(1);
@@ -127,8 +149,9 @@ export function register(program: Command): void {
             void farm.close().finally(resolve);
           });
       };
-      process.once('SIGTERM', () => onSignal('SIGTERM'));
-      process.once('SIGINT', () => onSignal('SIGINT'));
+      process.on('SIGTERM', () => onSignal('SIGTERM'));
+      process.on('SIGINT', () => onSignal('SIGINT'));
+      if (opts.exitWhenIdle) stopIdleWatch = watchForIdle(farm.queue, opts.exitWhenIdle * 1000, () => onSignal('idle'));
     });
   });
 }

@@ -131,7 +131,7 @@ export class FarmProbeHandler implements ProbeJobHandler {
         results.push(JSON.parse(Buffer.from(b).toString('utf8')) as ProbeResult);
       }
       const set = await this.requestSet(id);
-      const a = analyseResults(set, results.sort((x, y) => x.jobIndex - y.jobIndex), s.q);
+      const a = analyseResults(set, results.sort((x, y) => x.jobIndex - y.jobIndex), s.q, s.window ?? null);
       if (await req.saveMeasures(id, a.measures, a.counts)) this.events.log?.(`probe request ${id}: analysed`);
     }
     return 'done';

@@ -25,6 +25,7 @@ import { JOB_PAYLOAD_VERSION, type ProbeJobData } from '../../worker/runtime/que
 import { parseDiskCsv } from '../harmonic/probe-input.js';
 import type { HarmonicMeasures } from '../harmonic/probe-analysis.js';
 import { DEFAULT_PROBE_Q, defaultProbeJobs } from '../spec/index.js';
+import { windowProblem } from '../harmonic/fit-window.js';
 
 export interface ProbeRequestSettings {
   name: string;
@@ -34,6 +35,8 @@ export interface ProbeRequestSettings {
   q: number[];
   contactSample: number;
   minStep: number;
+  /** Fit window relative to R (coordinator/harmonic/fit-window.ts); null: the default rule. Absent in requests stored before it existed. */
+  window?: [number, number] | null;
 }
 
 export class ProbeRequestError extends Error {
@@ -47,7 +50,7 @@ const isInt = (v: unknown, lo: number, hi: number): v is number => typeof v === 
 
 /**
  * Check a request body: { name?, csv? | points?: {x: [...], y: [...], r: number | [...]},
- * walkers, seed, jobs?, q?, contact_sample?, min_step? }. Throws ProbeRequestError with one
+ * walkers, seed, jobs?, q?, contact_sample?, min_step?, window? }. Throws ProbeRequestError with one
  * line naming the field, the value and what is allowed.
  */
 export function validateProbeRequest(body: unknown): { settings: ProbeRequestSettings; set: DiskSet & { x: Float64Array; y: Float64Array; r: Float64Array } } {
@@ -60,7 +63,7 @@ export function validateProbeRequest(body: unknown): { settings: ProbeRequestSet
   };
   if (typeof body !== 'object' || body === null || Array.isArray(body)) fail('body: not allowed; allowed: a JSON object with walkers, seed and csv or points');
   const b = body as Record<string, unknown>;
-  const known = ['name', 'csv', 'points', 'walkers', 'seed', 'jobs', 'q', 'contact_sample', 'min_step'];
+  const known = ['name', 'csv', 'points', 'walkers', 'seed', 'jobs', 'q', 'contact_sample', 'min_step', 'window'];
   for (const k of Object.keys(b)) if (!known.includes(k)) fail(`${k}: unknown field; allowed fields: ${known.join(', ')}`);
   if (b.name !== undefined && (typeof b.name !== 'string' || !/^[A-Za-z0-9][A-Za-z0-9 _.,:()+-]{0,99}$/.test(b.name))) fail(`name: ${show(b.name)} is not allowed; allowed: 1 to 100 letters, digits, spaces or _.,:()+-`);
   if (!isInt(b.walkers, 100, 1e10)) fail(`walkers: ${show(b.walkers)} is out of range; allowed: an integer from 100 to 10000000000`);
@@ -76,6 +79,10 @@ export function validateProbeRequest(body: unknown): { settings: ProbeRequestSet
   if (!isInt(cs, 3, 20000)) fail(`contact_sample: ${show(b.contact_sample)} is out of range; allowed: an integer from 3 to 20000`);
   const minStep = b.min_step ?? DEFAULT_PROBE_MIN_STEP;
   if (typeof minStep !== 'number' || !(minStep > 0 && minStep <= 1)) fail(`min_step: ${show(b.min_step)} is out of range; allowed: a number above 0 up to 1`);
+  if (b.window !== undefined) {
+    const bad = windowProblem(b.window);
+    if (bad) fail(`window: ${show(b.window)} ${bad}`);
+  }
   if ((b.csv === undefined) === (b.points === undefined)) fail('csv, points: exactly one must be given; allowed: csv (text of x,y,r rows) or points ({x: [...], y: [...], r: number or [...]})');
   let x: Float64Array, y: Float64Array, r: Float64Array;
   if (b.csv !== undefined) {
@@ -104,7 +111,7 @@ export function validateProbeRequest(body: unknown): { settings: ProbeRequestSet
   }
   if (x!.length > MAX_REQUEST_DISKS) fail(`points: ${x!.length} disks is out of range; allowed: at most ${MAX_REQUEST_DISKS}`);
   return {
-    settings: { name: (b.name as string | undefined) ?? 'probe', walkers, seed: BigInt(b.seed as string | number).toString(), jobs: jobs as number, q: [...(q as number[])], contactSample: Math.min(walkers, cs as number), minStep: minStep as number },
+    settings: { name: (b.name as string | undefined) ?? 'probe', walkers, seed: BigInt(b.seed as string | number).toString(), jobs: jobs as number, q: [...(q as number[])], contactSample: Math.min(walkers, cs as number), minStep: minStep as number, window: b.window === undefined ? null : [...(b.window as [number, number])] },
     set: { count: x!.length, x: x!, y: y!, r: r! },
   };
 }

@@ -8,10 +8,12 @@
  *   POST /ensembles/:id/cancel       cancel; token required
  *   GET  /ensembles/:id/summary?format=json|csv|pb[&table=NAME]
  *   POST /probes                     probe a point set of your own on the farm: body = {csv | points,
- *                                    walkers, seed, jobs?, q?, contact_sample?, min_step?, name?};
+ *                                    walkers, seed, jobs?, q?, contact_sample?, min_step?, window?, name?};
  *                                    token required; 201 {id, status}
  *   GET  /probes/:id                 state, jobs done, and the harmonic measures once analysed
  *   GET  /probes/:id/hits            CSV index,x,y,r,hits,measure per disk (once analysed)
+ *   GET  /, /view/:id, /web/*, /ensembles/:id/figures[/NAME.svg], /ensembles/:id/cluster.png
+ *                                    the web status page (coordinator/http/web-routes.ts)
  *   GET  /metrics                    Prometheus text format
  *   GET  /health
  *
@@ -35,6 +37,7 @@ import { ENSEMBLE_ID_PATTERN } from '../plan.js';
 import { parseSpecText, SpecError, SPEC_SCHEMA, validateSpec, type SpecLimits } from '../spec/index.js';
 import { farmSummary } from '../farm/summary.js';
 import { launchProbeRequest, ProbeRequestError, ProbeRequestStore, validateProbeRequest } from '../farm/probe-requests.js';
+import { registerWebRoutes } from './web-routes.js';
 import { CSV_TABLE_NAMES, defaultSummaryOptions, renderSummary, SUMMARY_FORMATS, type SummaryFormat, type SummaryOptions } from '../summary/index.js';
 
 export interface ApiOptions {
@@ -295,6 +298,8 @@ export function buildApi(o: ApiOptions): FastifyInstance {
     for (let i = 0; i < set.count; i++) lines.push(`${i},${set.x[i]},${set.y[i]},${typeof set.r === 'number' ? set.r : set.r[i]},${hits[i]},${hits[i] / s.walkers}`);
     return reply.header('content-type', 'text/csv; charset=utf-8').header('content-disposition', `attachment; filename="${s.id}-hits.csv"`).send(lines.join('\n') + '\n');
   });
+
+  registerWebRoutes(app, { store: o.store, summary: o.summary });
 
   app.get('/metrics', async (_req, reply) => {
     if (!o.registry) throw new ApiError(404, 'GET /metrics: metrics are not enabled');

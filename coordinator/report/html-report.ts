@@ -218,7 +218,7 @@ function harmonicPanel(h: HarmonicSection, top: HarmonicAtSize | undefined): str
       items.push(verdictItem('makarov-sys', `With the fit-window systematic (half the difference of the fits over the two halves of the ε window, ±${fmt(top.systematic.informationDimension, 3)}): τ′(1) in ${fmtRange(ws)}.`, ws[0] <= 1 && ws[1] >= 1, 'agrees with 1', 'disagrees with 1', 'not judged'));
     }
     const mc = top.maxConcentrationExponent;
-    items.push(verdictItem('beurling', `Maximum concentration (max μ(B) scales as (ε/R) to the power α_{min}): ${valueText('α_{min}', mc?.mean, mc?.interval)}; Beurling: α_{min} ≥ 1/2 for a connected set.`, top.beurlingRespected ?? null, 'respected', 'violated', 'not judged'));
+    items.push(verdictItem('beurling', `Maximum concentration (max μ(B) scales as (ε/R) to the power α_{min}): ${valueText('α_{min}', mc?.mean, mc?.interval)}; Beurling: α_{min} ≥ 1/2 for a connected set as ε → 0, which a finite window does not resolve (coordinator/harmonic/beurling-check.ts).`, top.beurlingRespected ?? null, 'respected', 'not resolved at this size', 'not judged'));
   } else items.push('<li class="na">No probed size with a q grid.</li>');
   const g = h.capacityGrowth;
   if (g && isFiniteNumber(g.exponent)) {

@@ -8,6 +8,7 @@
  * A SpecError carries all problems of a document at once.
  */
 import { RECORDS_PER_DECADE } from '../../worker/core/record-sizes.js';
+import { WINDOW_RULE } from '../harmonic/fit-window.js';
 import { Ajv, type ErrorObject } from 'ajv';
 import { parse as parseToml } from 'smol-toml';
 import { checkModelParams, MODEL_KINDS, modelParams } from '../../worker/models/registry.js';
@@ -56,6 +57,8 @@ export interface ProbeSpec {
   minStep: number;
   /** Sizes below `particles` at which clusters are also probed, ascending (may be empty). */
   atSizes: number[];
+  /** Fit window relative to the set radius R (coordinator/harmonic/fit-window.ts); null: the default rule. */
+  window: [number, number] | null;
 }
 
 /** Default q grid of probing: -1 to 5 in steps of 0.25 (contains 0, 1, 2 and 3). */
@@ -226,6 +229,7 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
     for (const [k, v] of (pr.at_sizes ?? []).entries()) {
       if (v >= d.particles) problems.push(`probe.at_sizes[${k}]: ${v} is out of range; allowed: an integer from 2 to particles - 1 (${d.particles - 1})`);
     }
+    if (pr.window !== undefined && pr.window[0] > pr.window[1] / 2) problems.push(`probe.window: ${JSON.stringify(pr.window)} is out of range; allowed: ${WINDOW_RULE}`);
     if (pr.jobs !== undefined && pr.jobs > pr.walkers) problems.push(`probe.jobs: ${pr.jobs} is out of range; allowed: an integer from 1 to probe.walkers (${pr.walkers})`);
   }
   const po = d.positions as Record<string, any> | undefined;
@@ -276,6 +280,7 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
           contactSample: Math.min(pr.walkers, pr.contact_sample ?? 4000),
           minStep: pr.min_step ?? 0.02,
           atSizes: [...(pr.at_sizes ?? [])].sort((a: number, b: number) => a - b),
+          window: pr.window ? [pr.window[0], pr.window[1]] : null,
         }
       : null,
     positions: po ? { atSizes: [...(po.at_sizes ?? [])].sort((a: number, b: number) => a - b) } : null,
@@ -335,6 +340,7 @@ export function specToDocument(s: EnsembleSpec): Record<string, unknown> {
             contact_sample: s.probe.contactSample,
             min_step: s.probe.minStep,
             ...(s.probe.atSizes.length > 0 ? { at_sizes: [...s.probe.atSizes] } : {}),
+            ...(s.probe.window ? { window: [...s.probe.window] } : {}),
           },
         }
       : {}),

@@ -91,7 +91,12 @@ export const SPEC_SCHEMA = {
           description: 'q values of the partition function (default -1 to 5 in steps of 0.25)',
         },
         contact_sample: { type: 'integer', minimum: 3, maximum: 20_000, description: 'contact points kept for the capacity (default 4000)' },
-        min_step: { type: 'number', exclusiveMinimum: 0, maximum: 1, description: 'straight-step length of the probes near contact, in contact radii (default 0.02)' },
+        min_step: { type: 'number', exclusiveMinimum: 0, maximum: 1, description: 'probes take straight steps of this length (in contact radii) where two disks are this close, exact lens steps elsewhere (default 0.02)' },
+        window: {
+          type: 'array', minItems: 2, maxItems: 2,
+          items: { type: 'number', exclusiveMinimum: 0, maximum: 1 },
+          description: 'fit window [lo, hi]: smallest and largest box side relative to the set radius R, hi >= 2 lo (default: see the README)',
+        },
         at_sizes: {
           type: 'array', minItems: 1, maxItems: MAX_PROBE_SIZES, uniqueItems: true,
           items: { type: 'integer', minimum: 2, maximum: MAX_PARTICLES },
