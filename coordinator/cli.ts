@@ -40,7 +40,7 @@ export const COMMANDS: CommandEntry[] = [
   },
   { term: 'watch [options] <id>', description: 'show a live progress bar (particles per second, time left) until the ensemble ends', load: () => import('./commands/watch.js') },
   { term: 'worker [options]', description: 'grow queued runs: one job per core, checkpoints to the artifact folder, /metrics on request', load: () => import('./commands/worker.js') },
-  { term: 'serve [options]', description: 'run the HTTP API (create, list, status, cancel, summary downloads) and /metrics', load: () => import('./commands/serve.js') },
+  { term: 'serve [options]', description: 'run the HTTP API (create, list, status, cancel, summary downloads), the web status page at / and /metrics', load: () => import('./commands/serve.js') },
   { term: 'probe [options] <input>', description: 'measure the harmonic measure of a cluster snapshot or a CSV of x,y,r disks with probe walkers', load: () => import('./commands/probe.js') },
   {
     term: 'export [options] <source>',
