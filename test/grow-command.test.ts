@@ -50,8 +50,15 @@ describe('tendril grow, end to end', () => {
     expect(first.stderr).toMatch(/^grow: 2000\/2000 particles \(100\.0%\), .* particles\/s on average, .* elapsed\n$/);
     expect(first.status).toBe(0);
     const lines = first.stdout.trimEnd().split('\n');
-    expect(lines.slice(0, 3)).toEqual([join(dirA, 'run-result.json'), join(dirA, 'cluster.snapshot'), join(dirA, 'cluster.png')]);
-    expect(lines[3]).toMatch(/^grew 2000 particles \(seed 42\): R_g = \d+\.\d\d, R_max = \d+\.\d\d, [\d,.]+ particles\/s over \d+\.\d s$/);
+    expect(lines.slice(0, 4)).toEqual([join(dirA, 'run-result.json'), join(dirA, 'cluster.snapshot'), join(dirA, 'cluster.png'), join(dirA, 'cluster-figure.png')]);
+    expect(lines[4]).toMatch(/^grew 2000 particles \(seed 42\): R_g = \d+\.\d\d, R_max = \d+\.\d\d, [\d,.]+ particles\/s over \d+\.\d s$/);
+  });
+
+  it('writes a figure of the cluster with a scale bar and a colour key beside the bare picture', () => {
+    const fig = PNG.sync.read(readFileSync(join(dirA, 'cluster-figure.png')));
+    // the figure is the report's sample-cluster SVG (760 wide, at twice its size): title, picture, scale bar, key
+    expect(fig.width).toBe(2 * 760);
+    expect(fig.height).toBeGreaterThan(fig.width);
   });
 
   it('writes a run result with the GrowthResult and a separate timing field', () => {
@@ -95,7 +102,7 @@ describe('tendril grow, end to end', () => {
     expect(worstOverlap).toBeLessThan(1e-9);
     expect(worstGap).toBeLessThan(1e-9);
     const radii = clusterRadii(s.x, s.y, s.count);
-    const summary = first.stdout.trimEnd().split('\n')[3];
+    const summary = first.stdout.trimEnd().split('\n')[4];
     expect(summary).toContain(`R_g = ${radii.radiusOfGyration.toFixed(2)}`);
     expect(summary).toContain(`R_max = ${radii.maxRadius.toFixed(2)}`);
   });

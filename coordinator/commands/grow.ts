@@ -29,11 +29,15 @@ import { axisOf } from '../../worker/core/positions.js';
 import { RECORDS_PER_DECADE } from '../../worker/core/record-sizes.js';
 import { encodeSnapshot } from '../snapshot/cluster-snapshot.js';
 import { renderClusterPng, DEFAULT_PICTURE_SIZE } from '../render/cluster-picture.js';
+import { clusterFigure } from '../report/plots.js';
+import { pngRenderer } from '../report/png-plot.js';
 import { createProgress, formatRate, type ProgressMode } from '../progress/progress.js';
 
 export const RUN_RESULT_FILE = 'run-result.json';
 export const SNAPSHOT_FILE = 'cluster.snapshot';
 export const PICTURE_FILE = 'cluster.png';
+/** The same picture with a title, a scale bar and a colour key (rendered from SVG; absent without the PNG renderer). */
+export const FIGURE_FILE = 'cluster-figure.png';
 /** The same range and default as a spec's records_per_decade (one source: worker/core/record-sizes.ts). */
 export const DEFAULT_RECORDS_PER_DECADE = RECORDS_PER_DECADE.default;
 
@@ -69,7 +73,7 @@ export interface GrowSummary {
   timing: GrowTiming;
   radiusOfGyration: number;
   maxRadius: number;
-  files: { runResult: string; snapshot: string; picture: string };
+  files: { runResult: string; snapshot: string; picture: string; figure: string | null };
 }
 
 const MAX_SEED = (1n << 64n) - 1n;
@@ -240,9 +244,15 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
     runResult: join(dir, RUN_RESULT_FILE),
     snapshot: join(dir, SNAPSHOT_FILE),
     picture: join(dir, PICTURE_FILE),
+    figure: null as string | null,
   };
   writeFileSync(files.snapshot, encodeSnapshot(points));
   writeFileSync(files.picture, renderClusterPng(points, { size: o.pictureSize }));
+  const { renderer } = pngRenderer();
+  if (renderer) {
+    files.figure = join(dir, FIGURE_FILE);
+    writeFileSync(files.figure, renderer.render(clusterFigure(points, null, Math.min(o.pictureSize, 1400)).figure.svg, 2));
+  }
   const writeSeconds = (performance.now() - w0) / 1000;
   const timing: GrowTiming = {
     startedAt,
@@ -254,7 +264,7 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
   const file: RunResultFile = { ...result, timing };
   writeFileSync(files.runResult, JSON.stringify(file, null, 2) + '\n');
 
-  io.stdout.write(`${files.runResult}\n${files.snapshot}\n${files.picture}\n`);
+  io.stdout.write(`${files.runResult}\n${files.snapshot}\n${files.picture}\n${files.figure ? `${files.figure}\n` : ''}`);
   io.stdout.write(
     `grew ${result.particles} particles (seed ${o.seed}): R_g = ${radii.radiusOfGyration.toFixed(2)}, ` +
       `R_max = ${radii.maxRadius.toFixed(2)}, ${formatRate(timing.particlesPerSecond)} particles/s over ${growSeconds.toFixed(1)} s\n`,
