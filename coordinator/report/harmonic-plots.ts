@@ -368,7 +368,7 @@ export function electrostaticFigure(h: HarmonicSection): Figure {
 
 // ---------------------------------------------------------------- (f) the measure picture
 
-export interface MeasurePictureInput { runIndex: number; size: number; png: Uint8Array }
+export interface MeasurePictureInput { runIndex: number; size: number; png: Uint8Array; /** Overrides the title (a point set that is not a run of an ensemble). */ title?: string }
 
 /** Width and height from a PNG's IHDR chunk, or null when the bytes are not a PNG. */
 export function pngSize(png: Uint8Array): [number, number] | null {
@@ -382,7 +382,7 @@ export function pngSize(png: Uint8Array): [number, number] | null {
 /** The picture of renderMeasurePng (coordinator/harmonic/measure-picture.ts) inside an SVG with a colour key. */
 export function measurePictureFigure(pic: MeasurePictureInput): Figure {
   const file = 'harmonic-measure';
-  const title = `Harmonic measure on cluster run ${pic.runIndex} at N = ${fmtAbscissa(pic.size)} particles`;
+  const title = pic.title ?? `Harmonic measure on cluster run ${pic.runIndex} at N = ${fmtAbscissa(pic.size)} particles`;
   const dims = pngSize(pic.png);
   if (!dims) return emptyFigure(file, title, 'the harmonic measure picture is not a PNG');
   const W = 760, top = 34, img = 660, keyH = 100;
