@@ -2,9 +2,9 @@
 /**
  * Build (npm run build) only when a source changed since the last build: a
  * stamp in dist/ records the path, size and modification time of every file
- * the build reads (the TypeScript sources under coordinator/, worker/, proto/
- * and test/, the generated protobuf code, tsconfig.json, package.json and
- * package-lock.json). `npm start` and `npm test` call this, so a second run
+ * the build reads or copies (every file under coordinator/, worker/, proto/
+ * and test/ — sources, the generated protobuf code, the web page's files —
+ * and tsconfig.json, package.json, package-lock.json). `npm start` and `npm test` call this, so a second run
  * starts at once. Delete dist/ (or run npm run build) to force a build.
  */
 import { spawnSync } from 'node:child_process';
@@ -20,7 +20,7 @@ function walk(dir, out) {
   for (const e of readdirSync(dir, { withFileTypes: true })) {
     const p = join(dir, e.name);
     if (e.isDirectory()) walk(p, out);
-    else if (/\.(ts|js|cjs|mjs|json|proto)$/.test(e.name)) out.push(p);
+    else out.push(p); // every file: sources, and assets the build copies (proto/generated, coordinator/http/web)
   }
 }
 
