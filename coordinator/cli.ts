@@ -10,6 +10,7 @@ import { fileURLToPath } from 'node:url';
 import { Command, CommanderError, Help } from 'commander';
 import { UsageError } from './usage-error.js';
 import { ENGINE_VERSION } from '../worker/core/engine-version.js';
+import { messageOf } from '../proto/errors.js';
 
 type Register = (program: Command) => void;
 
@@ -47,6 +48,11 @@ export const COMMANDS: CommandEntry[] = [
     description: 'write particle positions (a run folder of a spec with [positions], or a .snapshot file) as CSV or HDF5',
     load: () => import('./commands/export.js'),
   },
+  {
+    term: 'models [options]',
+    description: 'list every growth model: definition, parameters (unit, default, range, meaning), reference values',
+    load: () => import('./commands/models.js'),
+  },
 ];
 
 const nameOf = (e: CommandEntry) => e.term.split(' ')[0];
@@ -77,7 +83,9 @@ export async function main(argv: string[]): Promise<number> {
     // top-level help or an unknown command: the list, without loading any command module
     const terms = new Map(COMMANDS.map((e) => [nameOf(e), e.term]));
     program.configureHelp({ subcommandTerm: (cmd) => terms.get(cmd.name()) ?? new Help().subcommandTerm(cmd) });
-    for (const e of COMMANDS) program.command(nameOf(e)).description(e.description);
+    // the models module is loaded too: it adds the list of models to the top-level help
+    (await import('./commands/models.js')).register(program);
+    for (const e of COMMANDS) if (nameOf(e) !== 'models') program.command(nameOf(e)).description(e.description);
   }
   try {
     await program.parseAsync(argv, { from: 'node' });
@@ -91,8 +99,7 @@ export async function main(argv: string[]): Promise<number> {
       process.stderr.write(`tendril: ${err.message}\n`);
       return 2;
     }
-    const msg = err instanceof Error ? err.message : String(err);
-    process.stderr.write(`tendril: ${msg.split('\n')[0]}\n`);
+    process.stderr.write(`tendril: ${messageOf(err)}\n`);
     return 1;
   }
 }

@@ -6,7 +6,7 @@ import h5wasm from 'h5wasm/node';
 import { Redis } from 'ioredis';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DirectoryArtifactStore } from '../coordinator/farm/artifacts.js';
-import { finalKey } from '../coordinator/farm/probe-jobs.js';
+import { finalKey } from '../worker/runtime/job-contract.js';
 import { runQueue } from '../coordinator/farm/queue.js';
 import { EnsembleStore } from '../coordinator/farm/store.js';
 import { buildApi } from '../coordinator/http/server.js';

@@ -8,7 +8,7 @@ import { EnsembleStore } from '../coordinator/farm/store.js';
 import { runTaskFor } from '../coordinator/plan.js';
 import { validateSpec } from '../coordinator/spec/index.js';
 import { buildSummary } from '../coordinator/summary/index.js';
-import { checkpointKey } from '../worker/runtime/queue-processor.js';
+import { checkpointKey } from '../worker/runtime/job-contract.js';
 import { growInThreads } from './support/grow-in-thread.js';
 import { deleteKeys, REDIS_URL, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
 

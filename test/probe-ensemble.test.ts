@@ -13,7 +13,7 @@ import { Redis } from 'ioredis';
 import { afterAll, describe, expect, it } from 'vitest';
 import { EmbeddedAborted, runEmbedded, type EmbeddedProgress } from '../coordinator/embedded/index.js';
 import { DirectoryArtifactStore } from '../coordinator/farm/artifacts.js';
-import { probeResultKey } from '../coordinator/farm/probe-jobs.js';
+import { probeResultKey } from '../worker/runtime/job-contract.js';
 import { launchEnsemble, runQueue } from '../coordinator/farm/queue.js';
 import { EnsembleStore } from '../coordinator/farm/store.js';
 import { farmSummary } from '../coordinator/farm/summary.js';

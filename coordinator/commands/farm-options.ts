@@ -4,6 +4,7 @@ import type { Queue } from 'bullmq';
 import type { Redis } from 'ioredis';
 import { connectRedis, DEFAULT_PREFIX, EnsembleStore } from '../farm/store.js';
 import { UsageError } from '../usage-error.js';
+import { messageOf } from '../../proto/errors.js';
 
 export interface FarmCliOptions {
   redis?: string;
@@ -44,7 +45,7 @@ export async function openFarm(o: FarmCliOptions): Promise<Farm> {
     ]);
   } catch (err) {
     redis.disconnect();
-    throw new UsageError(`--redis: cannot reach ${url.replace(/\/\/[^@]*@/, '//***@')}: ${(err as Error).message.split('\n')[0]}`);
+    throw new UsageError(`--redis: cannot reach ${url.replace(/\/\/[^@]*@/, '//***@')}: ${messageOf(err)}`);
   }
   const store = new EnsembleStore(redis, prefix);
   const { runQueue } = await import('../farm/queue.js');

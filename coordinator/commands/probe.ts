@@ -2,6 +2,8 @@
  * `tendril probe INPUT --walkers N --seed S --out DIR [--jobs K]
  *  [--q-grid a:b:step] [--threads T] [--contact-sample M] [--min-step h]
  *  [--window lo:hi]`
+ * (the settings, their ranges and defaults are those of a spec's [probe]
+ * table and of POST /probes: coordinator/harmonic/probe-settings.ts)
  *
  * Probes the harmonic measure of INPUT (a 2D .snapshot, probed as disks of
  * radius = its contact distance around the centres, or a CSV of x,y,r
@@ -24,11 +26,12 @@ import { mkdirSync, statSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import type { Command } from 'commander';
 import { UsageError } from '../usage-error.js';
-import { parseIntegerOption, parseNumberOption, parseSeedOption } from './grow.js';
+import { parseRangeOption, parseSeedOption } from './option-values.js';
+import { describeRange } from '../../worker/core/value-range.js';
+import { defaultProbeJobs, PROBE_CONTACT_SAMPLE, PROBE_JOBS, PROBE_MIN_STEP, PROBE_Q_MAX_VALUES, PROBE_Q_VALUE, PROBE_WALKERS, probeSettingsProblems, type ProbeSettingSpec } from '../harmonic/probe-settings.js';
 import { readProbeInput } from '../harmonic/probe-input.js';
 import { runProbes } from '../harmonic/probe-run.js';
 import { renderMeasurePng } from '../harmonic/measure-picture.js';
-import { DEFAULT_PROBE_MIN_STEP } from '../../worker/probe/probe-2d.js';
 import { WINDOW_RULE, windowProblem } from '../harmonic/fit-window.js';
 
 export const MEASURES_FILE = 'probe-measures.json';
@@ -48,44 +51,52 @@ export function parseWindowOption(raw: string): [number, number] {
 export function parseQGrid(raw: string): number[] {
   const parts = raw.split(':').map((s) => s.trim());
   const nums = parts.map((s) => (/^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/.test(s) ? Number(s) : NaN));
-  const bad = `--q-grid must be a:b:step with -50 <= a < b <= 50, step > 0 and at most 401 values, got ${JSON.stringify(raw)}`;
+  const bad = `--q-grid: ${JSON.stringify(raw)} is not allowed; allowed: a:b:step with ${PROBE_Q_VALUE.min} <= a < b <= ${PROBE_Q_VALUE.max}, step > 0 and at most ${PROBE_Q_MAX_VALUES} values`;
   if (nums.length !== 3 || nums.some((v) => !Number.isFinite(v))) throw new UsageError(bad);
   const [a, b, step] = nums;
-  if (!(a >= -50 && b <= 50 && a < b && step > 0) || (b - a) / step > 400) throw new UsageError(bad);
+  if (!(a >= PROBE_Q_VALUE.min && b <= PROBE_Q_VALUE.max && a < b && step > 0) || (b - a) / step > PROBE_Q_MAX_VALUES - 1) throw new UsageError(bad);
   const out: number[] = [];
   const n = Math.floor((b - a) / step + 1e-9);
   for (let k = 0; k <= n; k++) out.push(Math.round((a + k * step) * 1e12) / 1e12);
   return out;
 }
 
+/** Help text of a shared probe setting: meaning, range with unit, default. */
+function helpOf(s: ProbeSettingSpec): string {
+  return `${s.meaning}; ${describeRange(s, s.unit)}`;
+}
+
+export const THREADS = { min: 1, max: 64, integer: true } as const;
+
 export function register(program: Command): void {
   program
     .command('probe')
     .description('measure the harmonic measure of a cluster snapshot or a CSV of x,y,r disks with probe walkers')
     .argument('<input>', '.snapshot file or .csv of x,y,r rows')
-    .option('--walkers <n>', 'probe walkers in total, integer in [100, 10000000000]')
+    .option('--walkers <n>', helpOf(PROBE_WALKERS))
     .option('--seed <s>', 'unsigned 64-bit seed in decimal')
     .option('--out <dir>', 'output folder')
-    .option('--jobs <k>', 'independent probe jobs, integer in [1, 4096]', '8')
+    .option('--jobs <k>', helpOf(PROBE_JOBS))
     .option('--q-grid <a:b:step>', 'q values for tau(q)', '-1:5:0.25')
-    .option('--threads <t>', 'worker threads, integer in [1, 64]', '1')
-    .option('--contact-sample <m>', 'contact points kept for the capacity, integer in [3, 20000]', '4000')
-    .option('--min-step <h>', 'final approach: straight steps of this length (units of the largest radius, in (0, 1]) where two disks are this close; exact lens steps elsewhere', String(DEFAULT_PROBE_MIN_STEP))
+    .option('--threads <t>', `worker threads, ${describeRange(THREADS)}`, '1')
+    .option('--contact-sample <m>', helpOf(PROBE_CONTACT_SAMPLE), String(PROBE_CONTACT_SAMPLE.default))
+    .option('--min-step <h>', helpOf(PROBE_MIN_STEP), String(PROBE_MIN_STEP.default))
     .option('--window <lo:hi>', 'fit window: smallest and largest box side relative to the set radius R (default: see the README)')
     .action(async (input: string, raw: Record<string, unknown>) => {
       const need = (k: string, what: string): unknown => {
         if (raw[k] === undefined) throw new UsageError(`--${k} is required (${what})`);
         return raw[k];
       };
-      const walkers = parseIntegerOption('walkers', need('walkers', 'an integer in [100, 10000000000]'), 100, 1e10);
-      const seed = parseSeedOption('seed', need('seed', 'an unsigned 64-bit integer in decimal'));
+      const walkers = parseRangeOption('--walkers', need('walkers', describeRange(PROBE_WALKERS, PROBE_WALKERS.unit)), PROBE_WALKERS, PROBE_WALKERS.unit);
+      const seed = parseSeedOption('--seed', need('seed', 'an unsigned 64-bit integer in decimal'));
       const outRaw = need('out', 'the output folder');
       if (typeof outRaw !== 'string' || outRaw.trim() === '') throw new UsageError(`--out must name a folder, got ${JSON.stringify(String(outRaw))}`);
-      const jobs = parseIntegerOption('jobs', raw.jobs, 1, 4096);
-      if (jobs > walkers) throw new UsageError(`--jobs must be at most --walkers (${walkers}), got ${jobs}`);
-      const threads = parseIntegerOption('threads', raw.threads, 1, 64);
-      const contactSample = Math.min(walkers, parseIntegerOption('contact-sample', raw.contactSample, 3, 20000));
-      const minStep = parseNumberOption('min-step', raw.minStep, 0, 1, true);
+      const jobs = raw.jobs === undefined ? defaultProbeJobs(walkers) : parseRangeOption('--jobs', raw.jobs, PROBE_JOBS, PROBE_JOBS.unit);
+      const tooMany = probeSettingsProblems({ walkers, jobs }, '--');
+      if (tooMany.length > 0) throw new UsageError(tooMany[0]);
+      const threads = parseRangeOption('--threads', raw.threads, THREADS);
+      const contactSample = Math.min(walkers, parseRangeOption('--contact-sample', raw.contactSample, PROBE_CONTACT_SAMPLE, PROBE_CONTACT_SAMPLE.unit));
+      const minStep = parseRangeOption('--min-step', raw.minStep, PROBE_MIN_STEP, PROBE_MIN_STEP.unit);
       const q = parseQGrid(String(raw.qGrid));
       const window = raw.window === undefined ? null : parseWindowOption(String(raw.window));
       let set;

@@ -29,6 +29,7 @@ import { newRegistry, serveMetrics, workerMetrics } from '../metrics/index.js';
 import { RunWorker } from '../../worker/runtime/queue-processor.js';
 import { addFarmOptions, openFarm, type FarmCliOptions } from './farm-options.js';
 import { positiveInt } from './spec-file.js';
+import { messageOf } from '../../proto/errors.js';
 
 interface WorkerOptions extends FarmCliOptions {
   concurrency?: number;
@@ -98,7 +99,7 @@ export function register(program: Command): void {
           const step = await advanceAdaptive(store, farm.queue, result.ensembleId);
           if (step === 'extended' || step === 'finished') log(`adaptive ensemble ${result.ensembleId}: batch judged, ${step === 'extended' ? 'next batch queued' : 'stopped'}`);
         } catch (err) {
-          log(`adaptive ensemble ${result.ensembleId}: ${(err as Error).message.split('\n')[0]} (the periodic sweep retries)`);
+          log(`adaptive ensemble ${result.ensembleId}: ${messageOf(err)} (the periodic sweep retries)`);
         }
         return counted;
       },

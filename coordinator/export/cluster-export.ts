@@ -15,7 +15,7 @@ import type { ClusterPositions } from '../../worker/core/growth-kernel.js';
 import { axisOf, prefixOf } from '../../worker/core/positions.js';
 import { modelDescriptor } from '../../worker/models/registry.js';
 import { DirectoryArtifactStore, type ArtifactStore } from '../farm/artifacts.js';
-import { finalKey } from '../farm/probe-jobs.js';
+import { finalKey } from '../../worker/runtime/job-contract.js';
 import { decodeSnapshot, encodeSnapshot, type PointSet } from '../snapshot/cluster-snapshot.js';
 import { positionSizesOf, validateSpec, type EnsembleSpec } from '../spec/index.js';
 import { UsageError } from '../usage-error.js';

@@ -3,12 +3,14 @@
  * The first implementation is a directory that every worker can reach (local
  * disk or a shared filesystem); an object store can implement the same
  * interface. Writes are atomic (temporary file + rename), so a reader never
- * sees half a checkpoint, even when a worker is killed mid-write.
+ * sees half a checkpoint, even when a worker is killed mid-write. The keys
+ * are listed in the job contract (worker/runtime/job-contract.ts).
  */
 import { mkdir, readFile, rename, rm, stat, writeFile, readdir } from 'node:fs/promises';
 import { hostname } from 'node:os';
 import { join, resolve } from 'node:path';
 import { randomBytes } from 'node:crypto';
+import { messageOf } from '../../proto/errors.js';
 
 export interface ArtifactStore {
   put(key: string, bytes: Uint8Array): Promise<void>;
@@ -90,7 +92,7 @@ export async function artifactFolderProblem(root: string): Promise<string | null
     return null;
   } catch (err) {
     await rm(probe, { force: true }).catch(() => undefined);
-    const code = (err as NodeJS.ErrnoException).code ?? (err as Error).message.split('\n')[0];
+    const code = (err as NodeJS.ErrnoException).code ?? messageOf(err);
     return `--artifacts: "${dir}" is not writable by this worker (${code}); allowed: a folder this user can create files in, on a filesystem every worker mounts at the same path`;
   }
 }
@@ -128,9 +130,4 @@ export async function removeOrphanTemporaries(root: string, olderThanMs: number,
   };
   await sweep(dir, 1);
   return removed;
-}
-
-/** Key of the newest checkpoint of a run. */
-export function checkpointKey(ensembleId: string, runIndex: number): string {
-  return `${ensembleId}/run-${runIndex}.checkpoint`;
 }

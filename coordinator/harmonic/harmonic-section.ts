@@ -100,6 +100,8 @@
  * percentile, for τ(3)); null when either is missing.
  */
 import { bootstrapRandom, drawResample, weightedColumnMeans } from '../stats/bootstrap.js';
+import { fitLine, slopeWeights } from '../stats/log-log-fit.js';
+import { checkRange } from '../../worker/core/value-range.js';
 import { bootstrapInterval, type IntervalSummary } from '../stats/bca.js';
 import type { ClusterHarmonic } from './cluster-harmonic.js';
 import { ensembleMeanInterval, type EnsembleValue } from './ensemble-intervals.js';
@@ -123,9 +125,7 @@ export interface HarmonicSectionOptions {
 }
 
 function checkOption(field: string, v: number, lo: number, hi: number, integer: boolean): number {
-  if (!Number.isFinite(v) || v < lo || v > hi || (integer && !Number.isInteger(v)))
-    throw new RangeError(`harmonic section ${field}: ${v} is not ${integer ? 'an integer' : 'a number'} in [${lo}, ${hi}]`);
-  return v;
+  return checkRange(`harmonic section ${field}`, v, { min: lo, max: hi, integer });
 }
 
 /** The interval of a summary: BCa when available, else percentile, else null. */
@@ -139,25 +139,6 @@ function sameGrid(a: readonly number[], b: readonly number[]): boolean {
 }
 
 const isOne = (q: number): boolean => Math.abs(q - 1) < 1e-12;
-
-/** OLS slope of y against x (both length ≥ 2, x with spread). */
-function olsSlope(x: ArrayLike<number>, y: ArrayLike<number>): number {
-  const n = x.length;
-  let xm = 0, ym = 0;
-  for (let i = 0; i < n; i++) { xm += x[i]; ym += y[i]; }
-  xm /= n; ym /= n;
-  let sxx = 0, sxy = 0;
-  for (let i = 0; i < n; i++) { sxx += (x[i] - xm) * (x[i] - xm); sxy += (x[i] - xm) * (y[i] - ym); }
-  return sxy / sxx;
-}
-
-/** OLS slope weights w_i with slope = Σ w_i y_i. */
-function olsWeights(x: readonly number[]): number[] {
-  const n = x.length;
-  const xm = x.reduce((s, v) => s + v, 0) / n;
-  const sxx = x.reduce((s, v) => s + (v - xm) * (v - xm), 0);
-  return x.map((v) => (v - xm) / sxx);
-}
 
 function finite(values: Array<number | null | undefined>): number[] {
   const out: number[] = [];
@@ -283,7 +264,8 @@ function capacityGrowthOf(sizes: number[], groups: ReadonlyArray<readonly Cluste
   if (k === 0) return empty('no cluster has a log capacity at every probed size');
   const meanLogCapacity = sizes.map((_, j) => rows.reduce((s, r) => s + r[j], 0) / k);
   if (k < 3) return empty(`${k} cluster${k === 1 ? '' : 's'} with a log capacity at every probed size; at least 3 are needed`, meanLogCapacity);
-  const w = olsWeights(sizes.map((n) => Math.log(n)));
+  const w = slopeWeights(Float64Array.from(sizes, Math.log), 0, sizes.length);
+  if (w === null) return empty('the probed sizes have no spread', meanLogCapacity);
   const perCluster = rows.map((r) => r.reduce((s, v, j) => s + w[j] * v, 0));
   const ev = ensembleMeanInterval(perCluster, seed, resamples, level);
   const exponent = ev.mean; // = the OLS slope of meanLogCapacity (linearity of OLS)
@@ -342,7 +324,7 @@ function capacityIncrementOf(sizes: number[], groups: ReadonlyArray<readonly Clu
       lx[j] = Math.log(zz);
       ly[j] = Math.log(inc);
     }
-    return olsSlope(lx, ly);
+    return fitLine(lx, ly).slope;
   };
   const slope = slopeOf(means);
   if (!Number.isFinite(slope)) {
@@ -387,7 +369,8 @@ function particleScaleOf(sizes: number[], groups: ReadonlyArray<readonly Cluster
   const { rows } = completeRows(groups, (c) => [c.z3 !== null && c.z3 > 0 ? Math.log(c.z3) : null]);
   const k = rows.length;
   if (k < 3) return empty(`${k} cluster${k === 1 ? '' : 's'} with a positive Z(3) at every probed size; at least 3 are needed`, k);
-  const w = olsWeights(sizes.map((n) => Math.log(n)));
+  const w = slopeWeights(Float64Array.from(sizes, Math.log), 0, sizes.length);
+  if (w === null) return empty('the probed sizes have no spread', k);
   const perCluster = rows.map((r) => -r.reduce((s, v, j) => s + w[j] * v, 0));
   const ev = ensembleMeanInterval(perCluster, seed, resamples, level);
   const ends = intervalEnds(ev.interval);

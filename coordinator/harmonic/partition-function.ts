@@ -101,18 +101,3 @@ export function logSpaced(lo: number, hi: number, n: number): number[] {
   return out;
 }
 
-/** Least-squares slope and its standard error of y against x. */
-export function slope(x: readonly number[], y: readonly number[]): { slope: number; intercept: number; standardError: number } {
-  const n = x.length;
-  let mx = 0, my = 0;
-  for (let i = 0; i < n; i++) { mx += x[i]; my += y[i]; }
-  mx /= n; my /= n;
-  let sxx = 0, sxy = 0;
-  for (let i = 0; i < n; i++) { sxx += (x[i] - mx) ** 2; sxy += (x[i] - mx) * (y[i] - my); }
-  const b = sxy / sxx;
-  const a = my - b * mx;
-  let rss = 0;
-  for (let i = 0; i < n; i++) rss += (y[i] - a - b * x[i]) ** 2;
-  const se = n > 2 ? Math.sqrt(rss / (n - 2) / sxx) : NaN;
-  return { slope: b, intercept: a, standardError: se };
-}

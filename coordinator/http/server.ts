@@ -20,9 +20,12 @@
  * Errors: 4xx with {error: "<one line naming the field, value and what is allowed>"};
  * a bad spec also carries {problems: [...]}, one line per bad field.
  *
- * The route schemas document the API (OpenAPI style); the spec body is checked
- * by coordinator/spec/ itself so that the CLI and the API give the very same
- * messages.
+ * The route schemas document the API (OpenAPI style) and are what fastify
+ * validates requests with: every schema is checked by
+ * coordinator/spec/schema-messages.ts, and the spec body by the very checker
+ * of `tendril run`/`launch` (built from the model descriptors), so the CLI and
+ * the API give the same one-line messages. The bearer token is checked when
+ * the request arrives, before its body is read.
  */
 import { timingSafeEqual, createHash } from 'node:crypto';
 import Fastify, { type FastifyInstance, type FastifyReply, type FastifyRequest } from 'fastify';
@@ -34,11 +37,13 @@ import { keptPositions, snapshotOf } from '../export/cluster-export.js';
 import { modelDescriptor } from '../../worker/models/registry.js';
 import type { EnsembleStore } from '../farm/store.js';
 import { ENSEMBLE_ID_PATTERN } from '../plan.js';
-import { parseSpecText, SpecError, SPEC_SCHEMA, validateSpec, type SpecLimits } from '../spec/index.js';
+import { parseSpecText, SpecError, SPEC_SCHEMA, specDocumentProblems, validateSpec, type SpecLimits } from '../spec/index.js';
+import { compileChecker } from '../spec/schema-messages.js';
 import { farmSummary } from '../farm/summary.js';
-import { launchProbeRequest, ProbeRequestError, ProbeRequestStore, validateProbeRequest } from '../farm/probe-requests.js';
+import { launchProbeRequest, PROBE_REQUEST_SCHEMA, probeRequestProblems, ProbeRequestError, ProbeRequestStore, validateProbeRequest } from '../farm/probe-requests.js';
 import { registerWebRoutes } from './web-routes.js';
 import { CSV_TABLE_NAMES, defaultSummaryOptions, renderSummary, SUMMARY_FORMATS, type SummaryFormat, type SummaryOptions } from '../summary/index.js';
+import { messageOf, TendrilError } from '../../proto/errors.js';
 
 export interface ApiOptions {
   store: EnsembleStore;
@@ -58,7 +63,8 @@ export interface ApiOptions {
   artifacts?: ArtifactStore;
 }
 
-class ApiError extends Error {
+class ApiError extends TendrilError {
+  readonly kind = 'request';
   constructor(
     readonly status: number,
     message: string,
@@ -100,7 +106,7 @@ const STATUS_SCHEMA = {
 } as const;
 
 const ERROR_SCHEMA = { type: 'object', properties: { error: { type: 'string' }, problems: { type: 'array', items: { type: 'string' } } } } as const;
-const ID_PARAMS = { type: 'object', required: ['id'], properties: { id: { type: 'string', pattern: ENSEMBLE_ID_PATTERN.source } } } as const;
+const ID_PARAMS = { type: 'object', required: ['id'], properties: { id: { type: 'string', pattern: ENSEMBLE_ID_PATTERN.source, $comment: '1 to 64 letters, digits, _ or -' } } } as const;
 
 function digest(s: string): Buffer {
   return createHash('sha256').update(s).digest();
@@ -108,14 +114,23 @@ function digest(s: string): Buffer {
 
 export function buildApi(o: ApiOptions): FastifyInstance {
   const app = Fastify({ logger: o.logger ?? false, bodyLimit: o.bodyLimit ?? 65536 });
-  // Schemas document the routes; checking is done below, with our own messages.
-  app.setValidatorCompiler(() => () => true);
+  // Route schemas are validated with our one-line messages; the spec body with the spec's own checker.
+  app.setValidatorCompiler(({ schema }) => {
+    const id = (schema as { $id?: string }).$id;
+    const isSpec = id === SPEC_SCHEMA.$id;
+    const check = isSpec ? specDocumentProblems : id === PROBE_REQUEST_SCHEMA.$id ? probeRequestProblems : compileChecker(schema);
+    return (data: unknown) => {
+      const problems = check(data);
+      if (problems.length === 0) return { value: data };
+      return { error: new ApiError(400, problems.length === 1 ? problems[0] : `${isSpec ? 'spec' : 'request'} has ${problems.length} problems`, problems) };
+    };
+  });
   app.addContentTypeParser(['application/toml', 'text/toml'], { parseAs: 'string' }, (_req, body, done) => done(null, { toml: body as string }));
 
   app.setErrorHandler((err: Error & { statusCode?: number; code?: string }, _req, reply) => {
     if (err instanceof ApiError) return reply.code(err.status).send(err.problems ? { error: err.message, problems: err.problems } : { error: err.message });
     const status = err.statusCode && err.statusCode >= 400 && err.statusCode < 500 ? err.statusCode : 500;
-    let msg = err.message.split('\n')[0];
+    let msg = messageOf(err);
     if (err.code === 'FST_ERR_CTP_BODY_TOO_LARGE') msg = `body: larger than ${o.bodyLimit ?? 65536} bytes; allowed: at most ${o.bodyLimit ?? 65536} bytes`;
     if (err.code === 'FST_ERR_CTP_INVALID_MEDIA_TYPE') msg = 'content-type: not supported; allowed: application/json or application/toml';
     if (err.code === 'FST_ERR_CTP_EMPTY_JSON_BODY') msg = 'body: empty; allowed: an ensemble spec';
@@ -154,18 +169,26 @@ export function buildApi(o: ApiOptions): FastifyInstance {
   app.post(
     '/ensembles',
     {
-      preHandler: requireToken,
+      onRequest: requireToken,
+      // a TOML body becomes the spec document before it is validated
+      preValidation: async (req) => {
+        const doc: unknown = req.body;
+        if (!(doc && typeof doc === 'object' && 'toml' in doc && typeof (doc as { toml: unknown }).toml === 'string')) return;
+        try {
+          req.body = parseSpecText((doc as { toml: string }).toml, 'toml');
+        } catch (err) {
+          if (err instanceof SpecError) throw new ApiError(400, err.problems[0], err.problems);
+          throw err;
+        }
+      },
       schema: {
-       
         body: SPEC_SCHEMA,
         response: { 201: { type: 'object', properties: { id: { type: 'string' }, status: { type: 'string' } } }, 400: ERROR_SCHEMA, 401: ERROR_SCHEMA },
       },
     },
     async (req, reply) => {
-      let doc: unknown = req.body;
       try {
-        if (doc && typeof doc === 'object' && 'toml' in doc && typeof (doc as { toml: unknown }).toml === 'string') doc = parseSpecText((doc as { toml: string }).toml, 'toml');
-        const spec = validateSpec(doc, o.limits);
+        const spec = validateSpec(req.body, o.limits);
         const id = await launchEnsemble(o.store, o.queue, spec);
         return reply.code(201).send({ id, status: `/ensembles/${id}` });
       } catch (err) {
@@ -192,7 +215,7 @@ export function buildApi(o: ApiOptions): FastifyInstance {
 
   app.post<{ Params: { id: string } }>(
     '/ensembles/:id/cancel',
-    { preHandler: requireToken, schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA, 401: ERROR_SCHEMA, 409: ERROR_SCHEMA } } },
+    { onRequest: requireToken, schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA, 401: ERROR_SCHEMA, 409: ERROR_SCHEMA } } },
     async (req) => {
       checkId(req.params.id);
       const outcome = await cancelEnsemble(o.store, o.queue, req.params.id);
@@ -274,7 +297,7 @@ export function buildApi(o: ApiOptions): FastifyInstance {
 
   app.post(
     '/probes',
-    { preHandler: requireToken, bodyLimit: probeLimit, schema: { response: { 201: { type: 'object', properties: { id: { type: 'string' }, status: { type: 'string' } } }, 400: ERROR_SCHEMA, 401: ERROR_SCHEMA } } },
+    { onRequest: requireToken, bodyLimit: probeLimit, schema: { body: PROBE_REQUEST_SCHEMA, response: { 201: { type: 'object', properties: { id: { type: 'string' }, status: { type: 'string' } } }, 400: ERROR_SCHEMA, 401: ERROR_SCHEMA } } },
     async (req, reply) => {
       let v;
       try {

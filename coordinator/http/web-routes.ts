@@ -23,6 +23,7 @@ import { ENSEMBLE_ID_PATTERN } from '../plan.js';
 import { parseRichText } from '../report/index.js';
 import type { SummaryOptions } from '../summary/index.js';
 import { EnsembleFigures } from './ensemble-figures.js';
+import { TendrilError } from '../../proto/errors.js';
 
 const WEB_DIR = join(dirname(fileURLToPath(import.meta.url)), 'web');
 const ASSETS: Record<string, string> = {
@@ -40,7 +41,8 @@ export interface WebOptions {
   summary?: SummaryOptions;
 }
 
-class NotFound extends Error {
+class NotFound extends TendrilError {
+  readonly kind = 'request';
   readonly statusCode = 404;
 }
 

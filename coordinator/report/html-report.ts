@@ -26,12 +26,14 @@ import { fmt, fmtAbscissa, fmtRange, isFiniteNumber, labelOf, levelPercent, show
 import { clusterFigure, comparisonFigure, correctionsFigure, estimatorFigure, localSlopesFigure, type Figure } from './plots.js';
 import { evRange, harmonicFigures, measurePictureFigure, sizesLargestFirst, type MeasurePictureInput } from './harmonic-plots.js';
 import { embeddableFonts, pngRenderer } from './png-plot.js';
+import { observableFigures } from './observable-plots.js';
+import type { ObservableSection } from '../stats/observable-bands.js';
 import { escapeXml, FONT_FAMILY, parseRichText } from './svg-plot.js';
 
 export type SampleClusterInput = PointSet | Uint8Array | { points: PointSet | Uint8Array; runIndex?: number };
 
 /** The statistics of a summary: the ensemble analysis, with the harmonic section when clusters were probed. */
-export type ReportAnalysis = EnsembleAnalysis & { harmonic?: HarmonicSection | null };
+export type ReportAnalysis = EnsembleAnalysis & { harmonic?: HarmonicSection | null; observables?: ObservableSection | null };
 
 export interface ReportInput {
   analysis: ReportAnalysis;
@@ -372,6 +374,7 @@ export function buildEnsembleReport(input: ReportInput): { html: string; figures
   figures.push(localSlopesFigure(a, 'N'));
   if (a.estimators.massRadius.reason !== 'not requested') figures.push(localSlopesFigure(a, 'r'));
   if (a.options.corrections) figures.push(correctionsFigure(a, data));
+  figures.push(...observableFigures(a.observables));
   const extraPngs: { name: string; png: Buffer }[] = [];
   if (input.sampleCluster !== undefined) {
     try {

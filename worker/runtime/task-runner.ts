@@ -17,6 +17,7 @@ import { growthTaskOf, type CheckpointData, type RunResultData, type RunTaskData
 import { ENGINE_VERSION } from '../core/engine-version.js';
 import type { Counters, GrowthCheckpoint } from '../core/growth-kernel.js';
 import { checkTask, createKernel } from '../models/registry.js';
+import { TendrilError } from '../../proto/errors.js';
 
 export interface RunProgress {
   runIndex: number;
@@ -47,8 +48,9 @@ export type RunOutcome =
   | { status: 'done'; result: RunResultData; /** The final state, when the task asks to keep positions. */ final?: CheckpointData }
   | { status: 'stopped'; checkpoint: CheckpointData };
 
-export class TaskRejected extends Error {
+export class TaskRejected extends TendrilError {
   override name = 'TaskRejected';
+  readonly kind = 'task-rejected';
 }
 
 /** Check that a task can be run by this engine; throws TaskRejected with a one-line reason. */

@@ -31,6 +31,7 @@ import {
   type RunTaskData,
 } from '../../proto/convert.js';
 import { runTask, type RunProgress } from './task-runner.js';
+import { kindOf, messageOf } from '../../proto/errors.js';
 
 type ToThread = { type: 'run'; id: number; task: Uint8Array; checkpoint?: Uint8Array; workerId: string } | { type: 'stop'; id: number };
 type FromThread =
@@ -79,9 +80,10 @@ function threadMain(): void {
           port.postMessage({ type: 'stopped', id: m.id, checkpoint: cp } satisfies FromThread, [cp.buffer]);
         }
       } catch (err) {
-        const e = err as Error;
-        const rejected = e?.name === 'TaskRejected' || e?.name === 'ContractError';
-        port.postMessage({ type: 'failed', id: m.id, message: (e?.message ?? String(err)).split('\n')[0], rejected } satisfies FromThread);
+        // a refused task (other engine, invalid task, unreadable message) fails for good; anything else may be retried
+        const kind = kindOf(err);
+        const rejected = kind === 'task-rejected' || kind === 'contract';
+        port.postMessage({ type: 'failed', id: m.id, message: messageOf(err), rejected } satisfies FromThread);
       } finally {
         stops.delete(m.id);
       }
@@ -175,7 +177,7 @@ export class TaskThreadPool {
               break;
           }
         };
-        const onError = (err: Error) => finish({ status: 'failed', message: `thread crashed: ${err.message.split('\n')[0]}`, rejected: false }, true);
+        const onError = (err: Error) => finish({ status: 'failed', message: `thread crashed: ${messageOf(err)}`, rejected: false }, true);
         const onExit = (code: number) => finish({ status: 'failed', message: `thread exited with code ${code}`, rejected: false }, true);
         w.on('message', onMessage);
         w.once('error', onError);
