@@ -5,6 +5,7 @@
  * final size), or a `.snapshot` file (from `tendril grow`). Layouts:
  * docs/snapshot-format.md.
  */
+import { messageOf } from '../../proto/errors.js';
 import { stat, writeFile } from 'node:fs/promises';
 import type { Command } from 'commander';
 import { UsageError } from '../usage-error.js';
@@ -26,7 +27,7 @@ export function register(program: Command): void {
         src = info.isDirectory() ? await ex.runFolderSource(source) : await ex.snapshotSource(source);
       } catch (err) {
         if (err instanceof UsageError) throw err;
-        throw new UsageError(`source: "${source}": ${(err as Error).message.split('\n')[0]}`);
+        throw new UsageError(`source: "${source}": ${messageOf(err)}`);
       }
       if (opts.format === 'csv') await writeFile(opts.out, ex.positionsCsv(src));
       else await ex.writePositionsHdf5(opts.out, src);

@@ -16,7 +16,7 @@
  * other failure throws an Error with the thread's one-line reason.
  */
 import type { RunResultData, RunTaskData } from '../../proto/convert.js';
-import { messageOf } from '../../proto/errors.js';
+import { firstLine, messageOf } from '../../proto/errors.js';
 import { checkpointKey } from './job-contract.js';
 import { TaskRejected } from './task-runner.js';
 import type { TaskThreadPool, ThreadRun } from './task-thread.js';
@@ -171,7 +171,7 @@ export async function runOne(run: RunTaskData, o: RunLifecycleOptions): Promise<
       event({ event: 'run handed back', particles: lastCount >= 0 ? lastCount : null });
       return 'released';
     }
-    event({ event: 'run failed', particles: lastCount >= 0 ? lastCount : null, reason: outcome.message.split('\n')[0] });
+    event({ event: 'run failed', particles: lastCount >= 0 ? lastCount : null, reason: firstLine(outcome.message) });
     if (outcome.rejected) {
       await sink.runFailed(run.ensembleId, run.runIndex, outcome.message);
       throw new TaskRejected(outcome.message);
