@@ -45,7 +45,7 @@ export function runTaskFor(ensembleId: string, spec: EnsembleSpec, runIndex: num
     checkpointIntervalSeconds: spec.checkpointIntervalSeconds,
     checkpointEveryParticles: spec.checkpointEveryParticles,
     engineVersion: ENGINE_VERSION,
-    ...(spec.probe ? { keepPositions: true } : {}),
+    ...(spec.probe || spec.positions ? { keepPositions: true } : {}),
   };
 }
 

@@ -29,7 +29,7 @@ describe('cancel', () => {
     const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 600000, clusters: 3, seed: 8, runs_per_job: 1, checkpoint_every_particles: 50000 });
     const id = await launchEnsemble(store, queue, spec);
     await waitFor('a run in progress', async () => ((await store.status(id))?.particles.done ?? 0) > 3000);
-    expect(await cancelEnsemble(store, queue, id)).toBe(true);
+    expect(await cancelEnsemble(store, queue, id)).toBe('cancelled');
     const s = await waitFor('the run stopped', async () => {
       const st = await store.status(id);
       return st && st.runs.running === 0 ? st : undefined;
@@ -42,5 +42,11 @@ describe('cancel', () => {
     // the worker still serves new ensembles
     const next = await launchEnsemble(store, queue, validateSpec({ model: 'dla-offlattice-2d', particles: 500, clusters: 1, seed: 9 }));
     await waitFor('next ensemble done', async () => (await store.status(next))?.state === 'done');
+    // a cancelled ensemble lists nothing queued; cancelling twice says so; a finished one is left alone
+    expect((await store.status(id))!.runs.queued).toBe(0);
+    expect(await cancelEnsemble(store, queue, id)).toBe('already-cancelled');
+    expect(await cancelEnsemble(store, queue, next)).toBe('finished');
+    expect((await store.status(next))!.state).toBe('done');
+    expect(await cancelEnsemble(store, queue, 'enothere')).toBe('unknown');
   });
 });

@@ -86,8 +86,10 @@ describe('tendril CLI (farm and embedded commands)', () => {
     const csvFile = join(dir, 'summary.csv');
     expect((await cli('summary', id, '--prefix', prefix, '--format', 'csv', '--out', csvFile)).code).toBe(0);
     expect(readFileSync(csvFile, 'utf8').split('\n')[0]).toBe('run_index,state_hash,size,radius_of_gyration,max_radius,center_offset,fold_amplitude_4,axis_ratio_4,fold_amplitude_6,axis_ratio_6');
-    const watch = await cli('watch', id, '--prefix', prefix, '--progress', 'none');
-    expect(watch.stdout).toMatch(new RegExp(`^${id}  done +.*runs 3/3 done`));
+    const watch = await cli('watch', id, '--prefix', prefix, '--progress', 'lines');
+    expect(watch.stdout).toMatch(new RegExp(`^${id}  done +.*runs 3/3 done, 0 running, 0 queued, 0 failed; 2400/2400 particles\n$`));
+    // a finished ensemble grows nothing while watched: no rate, no time left
+    expect(watch.stderr).toMatch(/^.*: 2400\/2400 particles \(100\.0%\), \d+ s elapsed\n$/);
     const list = await cli('list', '--prefix', prefix);
     expect(list.stdout).toContain(id);
     const unknown = await cli('status', 'enope', '--prefix', prefix);
@@ -99,7 +101,10 @@ describe('tendril CLI (farm and embedded commands)', () => {
     expect(noRedis.code).toBe(2);
     expect(noRedis.stderr).toMatch(/^tendril: --redis: cannot reach redis:\/\/127\.0\.0\.1:1: .*\n$/);
     const cancel = await cli('cancel', id, '--prefix', prefix);
-    expect(cancel.stdout).toBe(`cancelled ${id}\n`);
+    expect(cancel.code).toBe(1);
+    expect(cancel.stdout).toBe('');
+    expect(cancel.stderr).toBe(`tendril: ensemble ${id} has already finished (state done); nothing was cancelled\n`);
+    expect(JSON.parse((await cli('status', id, '--prefix', prefix, '--json')).stdout).state).toBe('done');
   }, 120_000);
 
   it('a Redis URL with a password works; a wrong password is one line', async () => {

@@ -8,9 +8,8 @@ import { EnsembleStore } from '../coordinator/farm/store.js';
 import { runTaskFor } from '../coordinator/plan.js';
 import { validateSpec } from '../coordinator/spec/index.js';
 import { buildSummary } from '../coordinator/summary/index.js';
-import { growthTaskOf } from '../proto/convert.js';
-import { createKernel } from '../worker/models/registry.js';
 import { checkpointKey } from '../worker/runtime/job-contract.js';
+import { growInThreads } from './support/grow-in-thread.js';
 import { deleteKeys, REDIS_URL, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
 
 const prefix = uniquePrefix('e2e');
@@ -28,10 +27,10 @@ afterAll(async () => {
   rmSync(artifacts, { recursive: true, force: true });
 });
 
-function directHash(spec: ReturnType<typeof validateSpec>, i: number): string {
-  const k = createKernel(growthTaskOf(runTaskFor('x', spec, i)));
-  k.growTo(spec.particles);
-  return k.result().stateHash;
+/** The hash of run i grown directly (on a worker thread: never blocking the test runner). */
+async function directHash(spec: ReturnType<typeof validateSpec>, i: number): Promise<string> {
+  const [r] = await growInThreads([runTaskFor('x', spec, i)], 1);
+  return r.stateHash;
 }
 
 describe('farm end to end (real Redis, two worker processes)', () => {
@@ -76,7 +75,7 @@ describe('farm end to end (real Redis, two worker processes)', () => {
     expect(s.runs.done).toBe(1);
     const [r] = await store.results(id);
     expect(r.timings.resumes).toBeGreaterThanOrEqual(1);
-    expect(r.stateHash).toBe(directHash(spec, 0));
+    expect(r.stateHash).toBe(await directHash(spec, 0));
     expect(await cps.get(checkpointKey(id, 0))).toBeNull();
   });
 
@@ -100,7 +99,7 @@ describe('farm end to end (real Redis, two worker processes)', () => {
     await waitFor('ensemble done after release', async () => (await store.status(id))?.state === 'done', 120_000);
     const [r] = await store.results(id);
     expect(r.timings.resumes).toBe(1);
-    expect(r.stateHash).toBe(directHash(spec, 0));
+    expect(r.stateHash).toBe(await directHash(spec, 0));
   });
 
   it('a corrupt job payload fails only that job, with a reason; the worker goes on', async () => {

@@ -8,7 +8,7 @@ import { fileURLToPath } from 'node:url';
 import { PNG } from 'pngjs';
 import { decodeSnapshot } from '../coordinator/snapshot/index.js';
 import { DARK_BACKGROUND, parseHex } from '../coordinator/render/index.js';
-import { createProgress, formatDuration, formatRate } from '../coordinator/progress/index.js';
+import { createProgress, formatDuration, formatRate, rateText, ThroughputWindow } from '../coordinator/progress/index.js';
 import { clusterRadii } from '../coordinator/commands/grow.js';
 
 // The command is tested as users run it: the compiled CLI (`npx tsc` first).
@@ -47,11 +47,18 @@ describe('tendril grow, end to end', () => {
   });
 
   it('succeeds and prints the three paths and a summary line', () => {
-    expect(first.stderr).toMatch(/^grow: 2000\/2000 particles \(100\.0%\), .* particles\/s, .* elapsed\n$/);
+    expect(first.stderr).toMatch(/^grow: 2000\/2000 particles \(100\.0%\), .* particles\/s on average, .* elapsed\n$/);
     expect(first.status).toBe(0);
     const lines = first.stdout.trimEnd().split('\n');
-    expect(lines.slice(0, 3)).toEqual([join(dirA, 'run-result.json'), join(dirA, 'cluster.snapshot'), join(dirA, 'cluster.png')]);
-    expect(lines[3]).toMatch(/^grew 2000 particles \(seed 42\): R_g = \d+\.\d\d, R_max = \d+\.\d\d, [\d,.]+ particles\/s over \d+\.\d s$/);
+    expect(lines.slice(0, 4)).toEqual([join(dirA, 'run-result.json'), join(dirA, 'cluster.snapshot'), join(dirA, 'cluster.png'), join(dirA, 'cluster-figure.png')]);
+    expect(lines[4]).toMatch(/^grew 2000 particles \(seed 42\): R_g = \d+\.\d\d, R_max = \d+\.\d\d, [\d,.]+ particles\/s over \d+\.\d s$/);
+  });
+
+  it('writes a figure of the cluster with a scale bar and a colour key beside the bare picture', () => {
+    const fig = PNG.sync.read(readFileSync(join(dirA, 'cluster-figure.png')));
+    // the figure is the report's sample-cluster SVG (760 wide, at twice its size): title, picture, scale bar, key
+    expect(fig.width).toBe(2 * 760);
+    expect(fig.height).toBeGreaterThan(fig.width);
   });
 
   it('writes a run result with the GrowthResult and a separate timing field', () => {
@@ -97,7 +104,7 @@ describe('tendril grow, end to end', () => {
     const coords = new Float64Array(2 * s.count);
     for (let i = 0; i < s.count; i++) [coords[2 * i], coords[2 * i + 1]] = [s.x[i], s.y[i]];
     const radii = clusterRadii({ dimension: 2, count: s.count, coords });
-    const summary = first.stdout.trimEnd().split('\n')[3];
+    const summary = first.stdout.trimEnd().split('\n')[4];
     expect(summary).toContain(`R_g = ${radii.radiusOfGyration.toFixed(2)}`);
     expect(summary).toContain(`R_max = ${radii.maxRadius.toFixed(2)}`);
   });
@@ -201,7 +208,7 @@ describe('tendril grow, bad options', () => {
     const file = join(work, 'a-file');
     writeFileSync(file, 'x');
     const onFile = tendril('grow', '--particles', '10', '--seed', '1', '--out', file);
-    expect(onFile.stderr).toBe(`tendril: --out must name a folder, but "${file}" is an existing file\n`);
+    expect(onFile.stderr).toBe(`tendril: --out: "${file}" is an existing file; allowed: a folder, or a path that does not exist yet\n`);
     expect(onFile.status).toBe(2);
   });
 
@@ -238,11 +245,49 @@ describe('progress display without a terminal', () => {
     p.stop();
     p.stop();
     expect(out.text().split('\n')).toEqual([
-      'grow: 200/1000 particles (20.0%), 20.0 particles/s, 40 s left',
-      'grow: 400/1000 particles (40.0%), 20.0 particles/s, 30 s left',
-      'grow: 1000/1000 particles (100.0%), 40.0 particles/s, 25 s elapsed',
+      // the first update is the baseline; the rate is over the samples since (30 s window)
+      'grow: 200/1000 particles (20.0%), 20.0 particles/s, about 40 s left',
+      'grow: 400/1000 particles (40.0%), 20.0 particles/s, about 30 s left',
+      'grow: 1000/1000 particles (100.0%), 36.0 particles/s on average, 25 s elapsed',
       '',
     ]);
+  });
+
+  it('rates: work done before the start and replayed work never count; the rate is over a recent window; nothing is guessed before it is known', () => {
+    let t = 0;
+    // watching a finished ensemble: the whole count was there at the start
+    const out = fakeStream();
+    const w = createProgress({ total: 320000, unit: 'particles', label: 'demo', stream: out.stream, now: () => t });
+    w.update(320000);
+    t = 40;
+    w.update(320000);
+    w.stop();
+    expect(out.text()).toBe('demo: 320000/320000 particles (100.0%), 0 s elapsed\n');
+
+    // a resumed run: 6000 particles of results reused and 1000 from a checkpoint, then 100 particles/s grown
+    t = 0;
+    const out2 = fakeStream();
+    const r = createProgress({ total: 20000, unit: 'particles', label: 'run', stream: out2.stream, lineIntervalSeconds: 12, now: () => t });
+    r.update(6000, { replayed: 6000 }); // reused results appear at once
+    t = 1000; r.update(7100, { replayed: 7000 }); // a run resumes from its checkpoint at 1000 and grows 100 in the first second
+    for (let s = 2; s <= 12; s++) { t = s * 1000; r.update(7100 + (s - 1) * 100, { replayed: 7000 }); }
+    expect(out2.text()).toBe('run: 8200/20000 particles (41.0%), 100 particles/s, about 1 min 58 s left\n');
+
+    // the window: 1000/s for a minute, then 10/s; after 30 s more the rate is the recent one
+    expect(new ThroughputWindow(30_000).rate()).toBeNull();
+    const win = new ThroughputWindow(30_000);
+    for (let s = 0; s <= 95; s++) win.add(s * 1000, s <= 60 ? s * 1000 : 60000 + (s - 60) * 10);
+    expect(win.rate()).toBeCloseTo(10, 10);
+
+    // before a rate is known: no "?", no "0 s left", no stray separators
+    expect(rateText(null, 500, 'particles')).toBe('');
+    t = 0;
+    const out4 = fakeStream();
+    const e = createProgress({ total: 100, unit: 'particles', label: 'e', stream: out4.stream, lineIntervalSeconds: 0, now: () => t });
+    e.update(0);
+    t = 1000; e.update(0);
+    expect(out4.text()).toBe('e: 0/100 particles (0.0%)\ne: 0/100 particles (0.0%)\n');
+    expect(out4.text()).not.toMatch(/\?|0 s left|;/);
   });
 
   it('prints nothing in none mode and formats durations and rates', () => {

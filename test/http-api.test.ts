@@ -142,7 +142,22 @@ describe('HTTP API', () => {
     const created = (await app.inject({ method: 'POST', url: '/ensembles', headers: auth, payload: { ...good, seed: 12 } })).json();
     const res = await app.inject({ method: 'POST', url: `/ensembles/${created.id}/cancel`, headers: auth });
     expect(res.statusCode).toBe(200);
-    expect((await app.inject({ url: `/ensembles/${created.id}` })).json().state).toBe('cancelled');
+    expect(res.json()).toEqual({ id: created.id, cancelled: true, alreadyCancelled: false });
+    const st = (await app.inject({ url: `/ensembles/${created.id}` })).json();
+    expect(st.state).toBe('cancelled');
+    // its jobs were dropped: nothing is queued any more, and nothing grows
+    expect(st.runs.queued).toBe(0);
+    expect(st.throughput).toBe(0);
+    const again = await app.inject({ method: 'POST', url: `/ensembles/${created.id}/cancel`, headers: auth });
+    expect(again.json()).toEqual({ id: created.id, cancelled: true, alreadyCancelled: true });
+  });
+
+  it('refuses to cancel a finished ensemble with 409, leaving it done', async () => {
+    expect((await app.inject({ url: `/ensembles/${id}` })).json().state).toBe('done');
+    const res = await app.inject({ method: 'POST', url: `/ensembles/${id}/cancel`, headers: auth });
+    expect(res.statusCode).toBe(409);
+    expect(res.json().error).toBe(`id: "${id}" has already finished (state done); there is nothing to cancel`);
+    expect((await app.inject({ url: `/ensembles/${id}` })).json().state).toBe('done');
   });
 
   it('exposes Prometheus metrics with conventional names', async () => {

@@ -40,6 +40,8 @@ describe('tendril probe', () => {
     expect(typeof m.maxConcentration.exponent).toBe('number');
     expect(m.boxes.maxMeasure.length).toBe(m.window.scales);
     expect(readFileSync(join(dir, 'a', 'probe-measure.png')).subarray(1, 4).toString()).toBe('PNG');
+    // the same picture with a title and its colour key (quantiles of log ω)
+    expect(readFileSync(join(dir, 'a', 'probe-measure-figure.png')).subarray(1, 4).toString()).toBe('PNG');
   });
 
   it('--window sets the fit window relative to R; the contact-radius systematic and its warning are reported', () => {

@@ -11,7 +11,7 @@ import { axisOf } from '../worker/core/positions.js';
 import { rmSync } from 'node:fs';
 import { Redis } from 'ioredis';
 import { afterAll, describe, expect, it } from 'vitest';
-import { EmbeddedAborted, runEmbedded } from '../coordinator/embedded/index.js';
+import { EmbeddedAborted, runEmbedded, type EmbeddedProgress } from '../coordinator/embedded/index.js';
 import { DirectoryArtifactStore } from '../coordinator/farm/artifacts.js';
 import { probeResultKey } from '../worker/runtime/job-contract.js';
 import { launchEnsemble, runQueue } from '../coordinator/farm/queue.js';
@@ -96,8 +96,18 @@ describe('[probe] in the spec', () => {
 describe('embedded probing', () => {
   it('gives the direct records bit for bit, with one thread or two, and reuses them when resumed', async () => {
     const direct = [0, 1, 2].flatMap((i) => directRecords(i));
-    const one = await runEmbedded(spec, { ensembleId: 'p1', threads: 1 });
+    const events: EmbeddedProgress[] = [];
+    const one = await runEmbedded(spec, { ensembleId: 'p1', threads: 1, onProgress: (p) => events.push({ ...p }) });
     expect(one.harmonic).toEqual(direct);
+    // growth, then the probing pass as its own phase with its own count of jobs
+    const firstProbe = events.findIndex((e) => e.phase === 'probing');
+    expect(firstProbe).toBeGreaterThan(0);
+    expect(events.slice(0, firstProbe).every((e) => e.phase === 'growing')).toBe(true);
+    expect(events[firstProbe - 1].particlesDone).toBe(events[firstProbe - 1].particlesTotal);
+    const probing = events.slice(firstProbe).filter((e) => e.phase === 'probing');
+    expect(probing[0].probePassDone).toBe(0);
+    expect(probing[probing.length - 1].probePassDone).toBe(probing[0].probePassTotal);
+    expect(events.every((e) => e.particlesReplayed === 0)).toBe(true);
     const dir = tempDir('probe-embedded');
     dirs.push(dir);
     const store = new DirectoryArtifactStore(dir);
@@ -106,8 +116,12 @@ describe('embedded probing', () => {
     expect(two.picture?.runIndex).toBe(0);
     expect(two.picture?.counts.reduce((a, b) => a + b, 0)).toBe(3000);
     // a second invocation on the same store grows and probes nothing
-    const again = await runEmbedded(spec, { ensembleId: 'p2', threads: 2, store });
+    const againEvents: EmbeddedProgress[] = [];
+    const again = await runEmbedded(spec, { ensembleId: 'p2', threads: 2, store, onProgress: (p) => againEvents.push({ ...p }) });
     expect(again.reused).toBe(3);
+    // every particle of a reused run is replayed, not grown; nothing left to probe, so no probing phase
+    expect(againEvents.at(-1)!.particlesReplayed).toBe(againEvents.at(-1)!.particlesDone);
+    expect(againEvents.some((e) => e.phase === 'probing')).toBe(false);
     expect(again.harmonic).toEqual(direct);
     expect(again.picture?.counts).toEqual(two.picture?.counts);
     // interrupted while probing: the next invocation probes only what is missing, same records

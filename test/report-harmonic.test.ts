@@ -151,7 +151,7 @@ describe('report: harmonic measure section', () => {
   beforeAll(() => {
     const grown = Array.from({ length: 4 }, (_, i) => grow(500, i, '31'));
     runs = grown.map((g) => g.result);
-    analysis = analyzeEnsemble(runs, { resamples: 60 });
+    analysis = analyzeEnsemble(runs, { resamples: 60, corrections: true });
     // hit counts made up from the distance to the seed (rendering data, not a probe)
     const g = grown[0];
     const counts = Array.from({ length: g.n }, (_, i) => Math.floor(Math.hypot(g.x[i], g.y[i]) ** 2 / 40));

@@ -71,7 +71,7 @@ describe('ensemble report from a real small DLA ensemble', () => {
   beforeAll(async () => {
     const grown = Array.from({ length: CLUSTERS }, (_, i) => grow(PARTICLES, i));
     const runs = grown.map((g) => g.result);
-    analysis = analyzeEnsemble(runs, { resamples: 400 });
+    analysis = analyzeEnsemble(runs, { resamples: 400, corrections: true });
     const spec = validateSpec({ name: 'report test', model: 'dla-offlattice-2d', particles: PARTICLES, clusters: CLUSTERS, seed: SEED });
     dir = mkdtempSync(join(tmpdir(), 'tendril-report-'));
     files = await writeEnsembleReport(dir, {
@@ -92,7 +92,10 @@ describe('ensemble report from a real small DLA ensemble', () => {
       expect(present).toContain(`${f}.png`);
     }
     expect(present).toContain('sample-cluster-raster.png');
-    expect(files.notes).toEqual([]);
+    // a small real ensemble does not determine omega: the corrections figure says so instead of drawing a fit
+    expect(analysis.corrections.radiusOfGyration!.determined).toBe(false);
+    expect(files.notes).toHaveLength(1);
+    expect(files.notes[0]).toMatch(/corrections-to-scaling.*no determined corrections fit: R_g\(N\)[^:]*: not determined \(/);
   });
 
   it('is well-formed, self-contained and escapes text', () => {
@@ -149,11 +152,21 @@ describe('ensemble report from a real small DLA ensemble', () => {
       expect(row.cells).toContain(`${e.fitWindow!.points} points`);
     }
     const c = analysis.corrections.radiusOfGyration!;
-    if (c.available) expect(tableRow(html, 'radiusOfGyrationCorrected').values).toEqual([String(c.D.value)]);
+    if (c.determined) expect(tableRow(html, 'radiusOfGyrationCorrected').values).toEqual([String(c.D.value)]);
+    else expect(html).toMatch(new RegExp(`data-estimator="radiusOfGyrationCorrected"><th>[^]*?</th><td colspan="3" class="warn">not determined: ${c.reason!.replace(/[.*+?^${}()|[\]\\]/g, '\\$&').slice(0, 20)}`));
     // the published value sits in the consistency panel, with its source
     expect(html).toContain('D = 1.71 ± 0.0002');
     expect(html).toContain('Menshutin');
     expect(html).toContain('never used as a fit input');
+    // every verdict column states its rule beside its table; "computed" is an interval status, not a verdict
+    expect(html).toContain('Rule: pair agrees: the interval (BCa, else percentile) of the paired bootstrap difference');
+    expect(html).toContain('Rule: published value inside our interval: yes when');
+    expect(html).toContain('Rule: bound: satisfied if');
+    expect(html).toContain('it is not a verdict on D');
+    // small clusters: if anything disagrees, the note under the estimates table says why
+    const disagrees = analysis.consistency.pairs.some((q) => q.agree === false) || analysis.consistency.rows.some((r) => r.referenceInsideInterval === false);
+    expect(analysis.consistency.finiteSizeNote !== null).toBe(disagrees);
+    if (disagrees) expect(html).toMatch(/<p class="note" id="finite-size-note"><b>Why the estimates differ:<\/b> These clusters have N = \d+ particles/);
   });
 
   it('renders PNGs at twice the SVG size, with text and data drawn', () => {

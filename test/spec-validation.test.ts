@@ -80,7 +80,7 @@ describe('ensemble spec', () => {
     ['missing seed', { model: 'dla-offlattice-2d', particles: 10, clusters: 1 }, 'seed: missing; allowed: ensemble seed: an unsigned 64-bit integer (a string of decimal digits, or an integer below 2^53)'],
     ['negative seed', { ...base, seed: -1 }, 'seed: -1 is not allowed; allowed: ensemble seed: an unsigned 64-bit integer (a string of decimal digits, or an integer below 2^53)'],
     ['seed above 2^64', { ...base, seed: '18446744073709551616' }, 'seed: "18446744073709551616" is out of range; allowed: an integer from 0 to 18446744073709551615'],
-    ['unknown field', { ...base, particels: 5 }, 'particels: unknown field; allowed fields: name, model, params, particles, clusters, seed, records_per_decade, observables, checkpoint_interval_seconds, checkpoint_every_particles, runs_per_job, analysis, probe, target'],
+    ['unknown field', { ...base, particels: 5 }, 'particels: unknown field; allowed fields: name, model, params, particles, clusters, seed, records_per_decade, observables, checkpoint_interval_seconds, checkpoint_every_particles, runs_per_job, analysis, probe, positions, target'],
     ['bad min_step', { ...base, params: { min_step: 0 } }, 'params.min_step: 0 is out of range; allowed: a number above 0 and at most 1 (particle diameters, for dla-offlattice-2d)'],
     ['unknown param', { ...base, params: { step: 1 } }, 'params.step: not a parameter of dla-offlattice-2d; allowed: min_step, launch_margin'],
     ['records per decade', { ...base, records_per_decade: 5 }, 'records_per_decade: 5 is out of range; allowed: an integer from 10 to 100'],
@@ -92,6 +92,7 @@ describe('ensemble spec', () => {
     ['too few resamples', { ...base, analysis: { resamples: 5 } }, 'analysis.resamples: 5 is out of range; allowed: an integer from 10 to 1000000'],
     ['level of 1', { ...base, analysis: { level: 1 } }, 'analysis.level: 1 is out of range; allowed: a number from 0.5 to 0.999'],
     ['empty fit window', { ...base, analysis: { fit_min_size: 1000, fit_max_size: 100 } }, 'analysis.fit_min_size: 1000 is not allowed; allowed: a number below analysis.fit_max_size (100)'],
+    ['positions.at_sizes not below particles', { ...base, positions: { at_sizes: [100, 100000] } }, 'positions.at_sizes[1]: 100000 is out of range; allowed: an integer from 2 to particles - 1 (999)'],
     ['corrections not a boolean', { ...base, analysis: { corrections: 'no' } }, 'analysis.corrections: "no" is not allowed; allowed: true or false'],
     ['unknown analysis field', { ...base, analysis: { window: 3 } }, 'analysis.window: unknown field; allowed fields: fit_min_size, fit_max_size, mass_radius_min_radius, mass_radius_max_radius, resamples, level, corrections, local_slope_width'],
     ['target without half-width', { ...base, target: { max_clusters: 100 } }, 'target.half_width: missing; allowed: a number above 0 up to 1'],
@@ -129,7 +130,7 @@ describe('ensemble spec', () => {
     expect(problems(() => parseSpecText('particles = = 3', 'toml'))[0]).toMatch(/^spec is not valid TOML \(line 1, column \d+\): invalid value$/);
     expect(problems(() => parseSpecText('{"a":', 'json'))[0]).toMatch(/^spec is not valid JSON: /);
     expect(problems(() => parseSpecText('seed = 9007199254740993', 'toml'))[0]).toMatch(/cannot be represented losslessly/);
-    expect(problems(() => formatOf('spec.yaml'))).toEqual(['spec file "spec.yaml": unknown format; allowed: a name ending in .toml or .json']);
+    expect(problems(() => formatOf('spec.yaml'))).toEqual(['unknown format; allowed: a name ending in .toml or .json']);
   });
 });
 

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { analyzeEnsemble } from '../coordinator/stats/analyze-ensemble.js';
 import { syntheticEnsemble } from '../coordinator/stats/synthetic-ensemble.js';
+import { yieldToRunner } from './support/grow.js';
 
 // Coverage of nominal 95% bootstrap intervals (percentile and BCa) on
 // synthetic ensembles with a known exponent. Each cluster is a power law with
@@ -16,7 +17,7 @@ import { syntheticEnsemble } from '../coordinator/stats/synthetic-ensemble.js';
 // standard deviations (sqrt(0.95 * 0.05 / 2000) = 0.0049).
 
 describe('bootstrap interval coverage on synthetic power laws', () => {
-  it('95% percentile and BCa intervals cover the true D in 95% +- 2.5% of 2000 ensembles, for all three estimators', () => {
+  it('95% percentile and BCa intervals cover the true D in 95% +- 2.5% of 2000 ensembles, for all three estimators', async () => {
     const replicates = 2000;
     const K = 40;
     const D = 1.71;
@@ -26,6 +27,8 @@ describe('bootstrap interval coverage on synthetic power laws', () => {
     const cover = { percentile: { radiusOfGyration: 0, maxRadius: 0, massRadius: 0 }, bca: { radiusOfGyration: 0, maxRadius: 0, massRadius: 0 } };
     let failed = 0;
     for (let rep = 0; rep < replicates; rep++) {
+      // let the runner report between chunks: 2000 analyses in one synchronous stretch would block its worker
+      if (rep % 25 === 0) await yieldToRunner();
       const runs = syntheticEnsemble({ clusters: K, sizes, radii, dimension: D, seed: 1000 + rep, walkSigma: 0.08, offsetSigma: 0.05 });
       const a = analyzeEnsemble(runs, {
         resamples: 500, seed: rep, localSlopes: false, corrections: false,

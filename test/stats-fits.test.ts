@@ -133,35 +133,73 @@ describe('corrections-to-scaling fit', () => {
     expect(f.omegaAtBound).toBe(false);
   });
 
-  it('through analyzeEnsemble: recovers D and omega, and marks omega undetermined (no crash) for a pure power law', () => {
-    const corrected = analyzeEnsemble(exactRuns({ clusters: 10, D: 1.71, sizes, radii, correction: { B: 0.9, omega: 0.8 } }), { resamples: 100, localSlopes: false });
+  it('through analyzeEnsemble: recovers D, omega and B from an exact corrected law, and refuses a headline D for a pure power law', () => {
+    const corrected = analyzeEnsemble(exactRuns({ clusters: 10, D: 1.71, sizes, radii, correction: { B: 0.9, omega: 0.8 } }), { resamples: 100, localSlopes: false, corrections: true });
     const c = corrected.corrections.radiusOfGyration!;
     expect(c.available).toBe(true);
+    expect(c.reason).toBeNull();
+    expect(c.determined).toBe(true);
     expect(c.D.value!).toBeCloseTo(1.71, 5);
-    expect(c.omegaStatus).toBe('resolved');
     expect(c.omega.value!).toBeCloseTo(0.8, 4);
     expect(c.correctionAmplitude.value!).toBeCloseTo(0.9, 3);
-    const pure = analyzeEnsemble(exactRuns({ clusters: 10, D: 1.71, sizes, radii }), { resamples: 100, localSlopes: false });
+    expect(corrected.consistency.rows.map((r) => r.name)).toContain('radiusOfGyrationCorrected');
+    const pure = analyzeEnsemble(exactRuns({ clusters: 10, D: 1.71, sizes, radii }), { resamples: 100, localSlopes: false, corrections: true });
     const p = pure.corrections.maxRadius!;
-    expect(p.D.value!).toBeCloseTo(1.71, 8);
-    expect(p.omegaStatus).toBe('undetermined');
+    expect(p.available).toBe(true);
+    expect(p.determined).toBe(false);
+    expect(p.D.value).toBeNull();
     expect(p.omega.value).toBeNull();
-    expect(p.omegaReason).toMatch(/not determined/);
+    expect(p.correctionAmplitude.value).toBeNull();
+    expect(p.reason).toMatch(/zero within rounding/);
+    // a fit that is not determined stays out of the consistency panel
+    expect(pure.consistency.rows.map((r) => r.name)).toEqual(['radiusOfGyration', 'maxRadius', 'massRadius']);
     expect(JSON.stringify(pure)).not.toMatch(/NaN|Infinity/);
   });
 
-  it('on noisy synthetic data with a correction term, the bootstrap interval of D covers the truth', () => {
+  it('is off unless asked for', () => {
+    const a = analyzeEnsemble(exactRuns({ clusters: 6, D: 1.71, sizes, radii, correction: { B: 0.9, omega: 0.8 } }), { resamples: 50, localSlopes: false });
+    expect(a.options.corrections).toBe(false);
+    expect(a.corrections).toEqual({ radiusOfGyration: null, maxRadius: null });
+  });
+
+  it('on noisy synthetic data with known D, B and omega, recovers all three within their bootstrap intervals', () => {
     const runs = syntheticEnsemble({ clusters: 200, sizes: logSpacedSizes(10, 20, 80), dimension: 1.71, seed: 3, correction: { amplitude: -1.5, omega: 0.5 }, walkSigma: 0.03 });
-    const a = analyzeEnsemble(runs, { resamples: 400, localSlopes: false, estimators: ['radiusOfGyration'] });
+    const a = analyzeEnsemble(runs, { resamples: 400, localSlopes: false, estimators: ['radiusOfGyration'], corrections: true });
     const c = a.corrections.radiusOfGyration!;
-    expect(c.omegaStatus).toBe('resolved');
-    const iv = c.D.interval.bca!;
-    // a single 95% interval: fails by chance in 1 of 20 seeds; seed fixed, so the outcome is fixed
-    expect(iv[0]).toBeLessThanOrEqual(1.71);
-    expect(iv[1]).toBeGreaterThanOrEqual(1.71);
-    const ivo = c.omega.interval.bca!;
-    expect(ivo[0]).toBeLessThanOrEqual(0.5);
-    expect(ivo[1]).toBeGreaterThanOrEqual(0.5);
+    expect(c.reason).toBeNull();
+    expect(c.determined).toBe(true);
+    // single 95% intervals: each fails by chance for 1 seed in 20; the seed is fixed, so the outcome is fixed
+    const cover = (iv: [number, number] | null, truth: number) => { expect(iv).not.toBeNull(); expect(iv![0]).toBeLessThanOrEqual(truth); expect(iv![1]).toBeGreaterThanOrEqual(truth); };
+    cover(c.D.interval.bca, 1.71);
+    cover(c.omega.interval.bca, 0.5);
+    cover(c.correctionAmplitude.interval.bca, -1.5);
+    expect(Math.abs(c.D.value! - 1.71)).toBeLessThan(0.02);
+    expect(a.consistency.rows.map((r) => r.name)).toContain('radiusOfGyrationCorrected');
+  });
+
+  it('noisy data whose correction has died out before the window: not determined, no D, out of the panel', () => {
+    // omega = 3 and B = 0.2: the correction is below 1e-3 relative from N = 10 on, far under the noise
+    const runs = syntheticEnsemble({ clusters: 40, sizes: logSpacedSizes(10, 20, 80), dimension: 1.71, seed: 8, correction: { amplitude: 0.2, omega: 3 }, walkSigma: 0.03 });
+    const a = analyzeEnsemble(runs, { resamples: 200, localSlopes: false, estimators: ['radiusOfGyration'], corrections: true });
+    const c = a.corrections.radiusOfGyration!;
+    expect(c.available).toBe(true);
+    expect(c.determined).toBe(false);
+    expect(c.D.value).toBeNull();
+    expect(c.reason).toMatch(/search range|unbounded|contains 0|identifiable/);
+    expect(a.consistency.rows.map((r) => r.name)).not.toContain('radiusOfGyrationCorrected');
+  });
+
+  it('refuses a series shorter than two decades, and gives no headline D without intervals', () => {
+    const short = exactRuns({ clusters: 10, D: 1.71, sizes: sizes.filter((n) => n >= 1000 && n <= 50000), radii, correction: { B: 0.9, omega: 0.8 } });
+    const a = analyzeEnsemble(short, { resamples: 50, localSlopes: false, corrections: true });
+    const c = a.corrections.radiusOfGyration!;
+    expect(c.available).toBe(false);
+    expect(c.determined).toBe(false);
+    expect(c.D.value).toBeNull();
+    expect(c.reason).toMatch(/series too short for a corrections fit: its window holds \d+ size\(s\) over 1\.\d\d decade\(s\) of N; it needs at least 8 sizes over 2 decades/);
+    const few = analyzeEnsemble(exactRuns({ clusters: 3, D: 1.71, sizes, radii, correction: { B: 0.9, omega: 0.8 } }), { resamples: 50, localSlopes: false, corrections: true });
+    expect(few.corrections.radiusOfGyration!.determined).toBe(false);
+    expect(few.corrections.radiusOfGyration!.reason).toMatch(/no bootstrap intervals/);
   });
 });
 

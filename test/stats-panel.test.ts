@@ -11,12 +11,14 @@ const ensemble = (D: number, seed = 4): GrowthResult[] => syntheticEnsemble({ cl
 describe('consistency panel', () => {
   it('shows the published 2D off-lattice DLA value (Menshutin, Shchur & Vinokur 2008, Physica A 387, 6299) and checks the bounds', () => {
     // level 0.999: estimators with the same true D then disagree by chance in only ~0.1% of cases per pair
-    const a = analyzeEnsemble(ensemble(1.71), { resamples: 2000, level: 0.999, localSlopes: false });
+    const a = analyzeEnsemble(ensemble(1.71), { resamples: 2000, level: 0.999, localSlopes: false, corrections: true });
     const p = a.consistency;
     expect(p.reference!.D).toBe(1.71);
     expect(p.reference!.uncertainty).toBe(0.0002);
     expect(p.reference!.source).toMatch(/Menshutin, Shchur & Vinokur 2008, Physica A 387, 6299/);
-    expect(p.rows.map((r) => r.name)).toEqual(['radiusOfGyration', 'maxRadius', 'massRadius', 'radiusOfGyrationCorrected', 'maxRadiusCorrected']);
+    // a pure power law over under two decades: the corrections fits are refused, so they stay out of the panel
+    expect(a.corrections.radiusOfGyration!.determined).toBe(false);
+    expect(p.rows.map((r) => r.name)).toEqual(['radiusOfGyration', 'maxRadius', 'massRadius']);
     for (const r of p.rows) expect(r.differenceFromReference!).toBeCloseTo(r.D! - 1.71, 12);
     // Kesten 1987, Stoch. Proc. Appl. 25, 165: D >= 3/2; and D <= d = 2
     expect(p.bounds.map((b) => b.value)).toEqual([1.5, 2]);
@@ -46,6 +48,20 @@ describe('consistency panel', () => {
     expect(pair('radiusOfGyration', 'massRadius').agree).toBe(false);
     expect(pair('maxRadius', 'massRadius').agree).toBe(false);
     expect(pair('radiusOfGyration', 'massRadius').difference!).toBeLessThan(-0.05);
+    // clusters of under 10^5 particles, below the DLA finite-size range: the disagreement is explained
+    expect(p.finiteSizeNote).toMatch(/^These clusters have N = \d+ particles, below about 1000000: .*not expected to agree/);
+  });
+
+  it('explains disagreement by finite size only below the model\'s finite-size range and only when something disagrees', () => {
+    const agreeing = analyzeEnsemble(ensemble(1.71), { resamples: 400, level: 0.999, localSlopes: false }).consistency;
+    expect(agreeing.pairs.every((q) => q.agree) && agreeing.rows.every((r) => r.referenceInsideInterval)).toBe(true);
+    expect(agreeing.finiteSizeNote).toBeNull();
+    const big = syntheticEnsemble({ clusters: 30, sizes: sizes.map((n) => n * 100), radii, dimension: 1.3, seed: 2, walkSigma: 0.05 });
+    const p = analyzeEnsemble(big, { resamples: 200, localSlopes: false }).consistency;
+    expect(p.rows.some((r) => r.referenceInsideInterval === false)).toBe(true);
+    expect(p.finiteSizeNote).toBeNull();
+    // every verdict column has its rule
+    expect(p.rules.map((r) => r.split(':')[0])).toEqual(['pair agrees', 'bound', 'published value inside our interval', 'individual intervals overlap']);
   });
 
   it('never uses the reference value as input: estimates are identical for a model kind without a reference', () => {

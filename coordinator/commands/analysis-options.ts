@@ -22,7 +22,8 @@ export function addAnalysisOptions(cmd: Command): Command {
     .option('--mass-radius-window <from:to>', 'window in r (particle diameters) of the M(r) fit, e.g. 10:60')
     .option('--resamples <n>', 'bootstrap resamples (10 to 1000000)')
     .option('--level <p>', 'confidence level of the intervals (0.5 to 0.999)')
-    .option('--no-corrections', 'skip the corrections-to-scaling fit')
+    .option('--corrections', 'also run the corrections-to-scaling fit R = A N^{1/D}(1 + B N^-omega) (off by default; it reports "not determined" unless the data fix omega)')
+    .option('--no-corrections', 'skip the corrections-to-scaling fit even if the spec asks for it')
     .option('--local-slope-width <decades>', 'full width of the local-slope window in decades (0.05 to 3)');
 }
 
@@ -50,7 +51,7 @@ export function analysisSettingsFromCli(base: AnalysisSettings, o: AnalysisCliOp
   if (o.massRadiusWindow !== undefined) window('--mass-radius-window', o.massRadiusWindow, 'mass_radius_min_radius', 'mass_radius_max_radius', doc);
   if (o.resamples !== undefined) doc.resamples = number('--resamples', o.resamples);
   if (o.level !== undefined) doc.level = number('--level', o.level);
-  if (o.corrections === false) doc.corrections = false;
+  if (o.corrections !== undefined) doc.corrections = o.corrections;
   if (o.localSlopeWidth !== undefined) doc.local_slope_width = number('--local-slope-width', o.localSlopeWidth);
   if (Object.keys(doc).length === 0) return base;
   try {

@@ -1,25 +1,34 @@
 /** `tendril list`, `tendril status ID`, `tendril cancel ID`, `tendril summary ID`. */
 import { writeFile } from 'node:fs/promises';
 import type { Command } from 'commander';
-import { cancelEnsemble } from '../farm/queue.js';
 import type { EnsembleStatus, EnsembleStore } from '../farm/store.js';
-import { formatDuration } from '../progress/index.js';
-import { farmSummary } from '../farm/summary.js';
-import { CSV_TABLE_NAMES, defaultSummaryOptions, renderSummary, SUMMARY_FORMATS, type SummaryFormat } from '../summary/index.js';
+import { formatDuration, formatRate } from '../progress/index.js';
+import { CSV_TABLE_NAMES, SUMMARY_FORMATS, type SummaryFormat } from '../summary/formats.js';
 import { UsageError } from '../usage-error.js';
-import { addAnalysisOptions, analysisSettingsFromCli, type AnalysisCliOptions } from './analysis-options.js';
-import { describeAnalysis, writeSummaryFiles } from './summary-files.js';
+import { addAnalysisOptions, type AnalysisCliOptions } from './analysis-options.js';
 import { addFarmOptions, openFarm, type FarmCliOptions } from './farm-options.js';
+// the queue, the statistics and the report load only in the commands that use them (start-up time of list/status)
 
+/**
+ * One line of an ensemble's state. Parts are joined with "; " and only
+ * present when they mean something: throughput and time left only while it
+ * runs and once a rate is known (particles grown per wall second over the
+ * store's recent window; finished and replayed work never count).
+ */
 export function statusLine(s: EnsembleStatus): string {
   const r = s.runs;
-  const eta = s.etaSeconds === null ? '?' : formatDuration(s.etaSeconds);
-  return (
-    `${s.id}  ${s.state.padEnd(9)} ${s.name}  runs ${r.done}/${r.planned} done, ${r.running} running, ${r.queued} queued, ${r.failed} failed; ` +
-    `${s.particles.done}/${s.particles.total} particles; ${Math.round(s.throughput)} particles/s; ${s.state === 'running' ? `about ${eta} left` : ''}`.trimEnd() +
-    (s.adaptive ? `; adaptive: ${s.adaptive.outcome} after ${s.adaptive.batches} batch(es), cap ${s.adaptive.maxClusters} clusters` : '') +
-    (s.probes ? `; probes ${s.probes.done}/${s.probes.planned} analysed${s.probes.failed > 0 ? `, ${s.probes.failed} failed (first: run ${s.probes.failures[0].runIndex} at N = ${s.probes.failures[0].size}: ${s.probes.failures[0].reason})` : ''}` : '')
-  );
+  const parts = [
+    `${s.id}  ${s.state.padEnd(9)} ${s.name}  runs ${r.done}/${r.planned} done, ${r.running} running, ${r.queued} queued, ${r.failed} failed`,
+    `${s.particles.done}/${s.particles.total} particles`,
+  ];
+  if (s.state === 'running' && s.throughput > 0) {
+    parts.push(`${formatRate(s.throughput)} particles/s${s.etaSeconds !== null ? `, about ${formatDuration(s.etaSeconds)} left` : ''}`);
+  }
+  if (s.adaptive) parts.push(`adaptive: ${s.adaptive.outcome} after ${s.adaptive.batches} batch(es), cap ${s.adaptive.maxClusters} clusters`);
+  if (s.probes) {
+    parts.push(`probes ${s.probes.done}/${s.probes.planned} analysed${s.probes.failed > 0 ? `, ${s.probes.failed} failed (first: run ${s.probes.failures[0].runIndex} at N = ${s.probes.failures[0].size}: ${s.probes.failures[0].reason})` : ''}`);
+  }
+  return parts.join('; ');
 }
 
 async function requireStatus(store: EnsembleStore, id: string): Promise<EnsembleStatus> {
@@ -64,8 +73,16 @@ export function register(program: Command): void {
     async (id: string, opts: FarmCliOptions) => {
       const farm = await openFarm(opts);
       try {
-        if (!(await cancelEnsemble(farm.store, farm.queue, id))) throw new UsageError(`ensemble id: "${id}" is not known to this farm`);
-        process.stdout.write(`cancelled ${id}\n`);
+        const { cancelEnsemble } = await import('../farm/queue.js');
+        const outcome = await cancelEnsemble(farm.store, farm.queue, id);
+        if (outcome === 'unknown') throw new UsageError(`ensemble id: "${id}" is not known to this farm`);
+        if (outcome === 'finished') {
+          const st = await farm.store.status(id);
+          process.stderr.write(`tendril: ensemble ${id} has already finished (state ${st?.state ?? 'done'}); nothing was cancelled\n`);
+          process.exitCode = 1;
+          return;
+        }
+        process.stdout.write(outcome === 'already-cancelled' ? `${id} was already cancelled\n` : `cancelled ${id}\n`);
       } finally {
         await farm.close();
       }
@@ -90,6 +107,9 @@ export function register(program: Command): void {
     if (!CSV_TABLE_NAMES.includes(opts.table)) throw new UsageError(`--table: "${opts.table}" is not allowed; allowed: ${CSV_TABLE_NAMES.join(', ')}`);
     if (opts.format === 'pb' && !opts.out && process.stdout.isTTY) throw new UsageError('--out: missing; allowed: a file name (protobuf is not written to a terminal)');
     if ((opts.format === 'tables' || opts.format === 'html') && !opts.out) throw new UsageError(`--out: missing; allowed: a folder name (--format ${opts.format} writes several files)`);
+    const [{ farmSummary }, { defaultSummaryOptions, renderSummary }, { describeAnalysis, writeSummaryFiles }, { analysisSettingsFromCli }] = await Promise.all([
+      import('../farm/summary.js'), import('../summary/index.js'), import('./summary-files.js'), import('./analysis-options.js'),
+    ]);
     const farm = await openFarm(opts);
     try {
       const rec = await farm.store.get(id);

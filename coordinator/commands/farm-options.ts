@@ -3,7 +3,6 @@ import type { Command } from 'commander';
 import type { Queue } from 'bullmq';
 import type { Redis } from 'ioredis';
 import { connectRedis, DEFAULT_PREFIX, EnsembleStore } from '../farm/store.js';
-import { runQueue } from '../farm/queue.js';
 import { UsageError } from '../usage-error.js';
 import { messageOf } from '../../proto/errors.js';
 
@@ -49,6 +48,7 @@ export async function openFarm(o: FarmCliOptions): Promise<Farm> {
     throw new UsageError(`--redis: cannot reach ${url.replace(/\/\/[^@]*@/, '//***@')}: ${messageOf(err)}`);
   }
   const store = new EnsembleStore(redis, prefix);
+  const { runQueue } = await import('../farm/queue.js');
   const queue = runQueue(redis, prefix);
   return {
     redis,

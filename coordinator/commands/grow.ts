@@ -30,13 +30,20 @@ import { checkModelParams, createKernel, MODEL_KINDS, modelDescriptor, modelPara
 import type { ClusterPositions, GrowthResult, GrowthTask, ModelParams } from '../../worker/core/growth-kernel.js';
 import { encodeSnapshot, pointSetOf } from '../snapshot/cluster-snapshot.js';
 import { DEFAULT_PICTURE_SIZE } from '../render/cluster-picture.js';
+import { clusterFigure } from '../report/plots.js';
+import { pngRenderer } from '../report/png-plot.js';
+import { RECORDS_PER_DECADE as SHARED_RECORDS_PER_DECADE } from '../../worker/core/record-sizes.js';
+import { checkOutFolder, makeOutFolder } from './out-folder.js';
 import { noPictureReason, picturePointsOf, renderModelPicture } from '../render/model-picture.js';
 import { createProgress, formatRate, type ProgressMode } from '../progress/progress.js';
 
 export const RUN_RESULT_FILE = 'run-result.json';
 export const SNAPSHOT_FILE = 'cluster.snapshot';
 export const PICTURE_FILE = 'cluster.png';
-export const DEFAULT_RECORDS_PER_DECADE = 20;
+/** The picture with a title, a scale bar and a colour key (rendered from SVG; absent without the PNG renderer). */
+export const FIGURE_FILE = 'cluster-figure.png';
+/** The same default as a spec's records_per_decade (one source: worker/core/record-sizes.ts). */
+export const DEFAULT_RECORDS_PER_DECADE = SHARED_RECORDS_PER_DECADE.default;
 
 export interface GrowOptions {
   particles: number;
@@ -71,13 +78,13 @@ export interface GrowSummary {
   radiusOfGyration: number;
   maxRadius: number;
   /** picture is null when the model declares no picture. */
-  files: { runResult: string; snapshot: string; picture: string | null };
+  files: { runResult: string; snapshot: string; picture: string | null; figure: string | null };
 }
 
 /** Limits of grow's own options (the model's parameters come from its descriptor). */
 export const GROW_PARTICLES = { min: 2, max: 100_000_000, integer: true } as const;
 export const PICTURE_SIZE = { min: 64, max: 8192, integer: true } as const;
-export const RECORDS_PER_DECADE = { min: 10, max: 100, integer: true } as const;
+export const RECORDS_PER_DECADE = { min: SHARED_RECORDS_PER_DECADE.min, max: SHARED_RECORDS_PER_DECADE.max, integer: true } as const;
 
 /**
  * The model of `--model KIND` and `--param NAME=VALUE` options (repeatable):
@@ -162,19 +169,6 @@ export function clusterRadii(p: ClusterPositions): { radiusOfGyration: number; m
   return { radiusOfGyration: Math.sqrt(s2 / n), maxRadius: Math.sqrt(m2) };
 }
 
-function prepareOutDir(out: string): string {
-  const dir = resolve(out);
-  let isDir = false;
-  try {
-    isDir = statSync(dir).isDirectory();
-  } catch {
-    mkdirSync(dir, { recursive: true });
-    isDir = true;
-  }
-  if (!isDir) throw new UsageError(`--out must name a folder, but "${out}" is an existing file`);
-  return dir;
-}
-
 export interface GrowIo {
   stdout: NodeJS.WritableStream;
   stderr: NodeJS.WritableStream & { isTTY?: boolean };
@@ -183,7 +177,9 @@ export interface GrowIo {
 
 /** Grow, write the three files, and return what was written. */
 export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, stderr: process.stderr }): GrowSummary {
-  const dir = prepareOutDir(o.out);
+  // checked now (an unusable --out is refused before growing), created only when the files are written,
+  // so Ctrl-C during growth leaves no empty folder
+  const dir = checkOutFolder(o.out);
   const task = growTask(o);
   const kernel = createKernel(task);
   const startedAt = new Date().toISOString();
@@ -194,6 +190,7 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
     mode: o.quiet ? 'none' : io.progressMode ?? 'auto',
     stream: io.stderr,
   });
+  progress.update(kernel.count); // the starting count: the baseline of the rate
   const t0 = performance.now();
   let chunk = 256;
   while (!kernel.done) {
@@ -212,16 +209,26 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
   const pos = kernel.positions();
   const radii = clusterRadii(pos);
 
+  makeOutFolder(dir, o.out);
   const w0 = performance.now();
   const d = modelDescriptor(task.model.kind);
   const files = {
     runResult: join(dir, RUN_RESULT_FILE),
     snapshot: join(dir, SNAPSHOT_FILE),
     picture: d.picture === null ? null : join(dir, PICTURE_FILE),
+    figure: null as string | null,
   };
   writeFileSync(files.snapshot, encodeSnapshot(pointSetOf(pos, d.contactDistance)));
   const picturePoints = picturePointsOf(task.model.kind, pos);
-  if (files.picture !== null && picturePoints !== null) writeFileSync(files.picture, renderModelPicture(task.model.kind, picturePoints, o.pictureSize));
+  if (files.picture !== null && picturePoints !== null) {
+    writeFileSync(files.picture, renderModelPicture(task.model.kind, picturePoints, o.pictureSize));
+    // planar clusters: the same picture with a title, a scale bar in particle diameters and a colour key
+    const { renderer } = pngRenderer();
+    if (renderer && d.picture === 'disks') {
+      files.figure = join(dir, FIGURE_FILE);
+      writeFileSync(files.figure, renderer.render(clusterFigure(picturePoints, null, Math.min(o.pictureSize, 1400)).figure.svg, 2));
+    }
+  }
   const writeSeconds = (performance.now() - w0) / 1000;
   const timing: GrowTiming = {
     startedAt,
@@ -233,7 +240,7 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
   const file: RunResultFile = { ...result, timing };
   writeFileSync(files.runResult, JSON.stringify(file, null, 2) + '\n');
 
-  io.stdout.write(`${files.runResult}\n${files.snapshot}\n${files.picture ?? `no ${PICTURE_FILE}: ${noPictureReason(task.model.kind)}`}\n`);
+  io.stdout.write(`${files.runResult}\n${files.snapshot}\n${files.picture ?? `no ${PICTURE_FILE}: ${noPictureReason(task.model.kind)}`}\n${files.figure ? `${files.figure}\n` : ''}`);
   io.stdout.write(
     `grew ${result.particles} particles (seed ${o.seed}): R_g = ${radii.radiusOfGyration.toFixed(2)}, ` +
       `R_max = ${radii.maxRadius.toFixed(2)}, ${formatRate(timing.particlesPerSecond)} particles/s over ${growSeconds.toFixed(1)} s\n`,
@@ -251,7 +258,7 @@ export function register(program: Command): void {
     .option('--model <kind>', `growth model, one of ${MODEL_KINDS.join(', ')} (default ${MODEL_KINDS[0]})`)
     .option('--param <name=value>', 'a model parameter (repeatable); every other one takes its default (see tendril models)', (v: string, prev: string[] = []) => [...prev, v])
     .option('--picture-size <px>', `side of cluster.png in pixels, in [64, 8192] (default ${DEFAULT_PICTURE_SIZE})`)
-    .option('--records-per-decade <k>', `observable records per decade of size, in [10, 100] (default ${DEFAULT_RECORDS_PER_DECADE})`)
+    .option('--records-per-decade <k>', `observable records per decade of size, in [${RECORDS_PER_DECADE.min}, ${RECORDS_PER_DECADE.max}] (default ${DEFAULT_RECORDS_PER_DECADE}, as in a spec)`)
     .option('--quiet', 'no progress display')
     .action((raw: Record<string, unknown>) => {
       runGrow(parseGrowOptions(raw));

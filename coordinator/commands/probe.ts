@@ -17,13 +17,16 @@
  *                        (with the fit window, window and contact-radius
  *                        systematics, and warnings, also printed to stderr)
  *   probe-hits.csv       index,x,y,r,hits,measure per disk
- *   probe-measure.png    the set coloured by log harmonic measure
+ *   probe-measure.png    the set coloured by harmonic measure (quantiles of log ω)
+ *   probe-measure-figure.png  the same with a title and its colour key
  *
  * A 3D snapshot (e.g. of dla-offlattice-3d) is probed as balls of radius =
  * its contact distance (worker/probe/probe-3d.ts), in this process, and
  * writes probe-measures.json (Newtonian capacity ± error, τ(q) from boxes)
  * and probe-hits.csv (index,x,y,z,r,hits,measure); no picture.
  */
+import { measurePictureFigure } from '../report/harmonic-plots.js';
+import { pngRenderer } from '../report/png-plot.js';
 import { mkdirSync, statSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import type { Command } from 'commander';
@@ -44,6 +47,7 @@ import { WINDOW_RULE, windowProblem } from '../harmonic/fit-window.js';
 export const MEASURES_FILE = 'probe-measures.json';
 export const HITS_FILE = 'probe-hits.csv';
 export const MEASURE_PICTURE_FILE = 'probe-measure.png';
+export const MEASURE_FIGURE_FILE = 'probe-measure-figure.png';
 
 /** Parse --window lo:hi (box sides relative to the set radius R; rule in fit-window.ts). */
 export function parseWindowOption(raw: string): [number, number] {
@@ -143,7 +147,13 @@ export function register(program: Command): void {
         lines.push(`${i},${set.x[i]},${set.y[i]},${r},${run.counts[i]},${run.counts[i] / walkers}`);
       }
       writeFileSync(join(dir, HITS_FILE), lines.join('\n') + '\n');
-      writeFileSync(join(dir, MEASURE_PICTURE_FILE), renderMeasurePng(set.count, set.x, set.y, set.drawRadius, run.counts));
+      const picture = renderMeasurePng(set.count, set.x, set.y, set.drawRadius, run.counts);
+      writeFileSync(join(dir, MEASURE_PICTURE_FILE), picture);
+      const { renderer } = pngRenderer();
+      if (renderer) {
+        const fig = measurePictureFigure({ runIndex: 0, size: set.count, png: picture, title: `Harmonic measure on ${set.count} disks (${walkers} walkers)` });
+        writeFileSync(join(dir, MEASURE_FIGURE_FILE), renderer.render(fig.svg, 2));
+      }
       for (const w of run.measures.warnings) process.stderr.write(`warning: ${w}\n`);
       const cap = run.measures.capacity;
       process.stdout.write(

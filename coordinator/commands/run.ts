@@ -7,8 +7,8 @@
 import { mkdir, readFile, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import type { Command } from 'commander';
-import { createProgress, type ProgressMode } from '../progress/index.js';
-import { runEmbedded, EmbeddedAborted } from '../embedded/index.js';
+import { createProgress, type Progress, type ProgressMode } from '../progress/index.js';
+import { runEmbedded, EmbeddedAborted, type EmbeddedProgress } from '../embedded/index.js';
 import { DirectoryArtifactStore } from '../farm/artifacts.js';
 import { newEnsembleId, runTaskFor } from '../plan.js';
 import type { SampleClusterInput } from '../report/index.js';
@@ -23,6 +23,7 @@ import { CLUSTER_CONTACT_RADIUS } from '../harmonic/ensemble-probing.js';
 import { addAnalysisOptions, analysisSettingsFromCli, type AnalysisCliOptions } from './analysis-options.js';
 import { describeAnalysis, writeSummaryFiles } from './summary-files.js';
 import { loadSpecFile, positiveInt } from './spec-file.js';
+import { checkOutFolder, makeOutFolder } from './out-folder.js';
 
 /** Largest cluster regrown for the report's picture (results hold no positions; regrowing run 0 is cheap below this). */
 const PICTURE_MAX_PARTICLES = 200_000;
@@ -60,7 +61,8 @@ export function register(program: Command): void {
       }
       const spec = await loadSpecFile(specPath, opts.maxTotalParticles);
       const analysis = analysisSettingsFromCli(spec.analysis, opts);
-      await mkdir(opts.out, { recursive: true });
+      // refused before any growth when unusable (a file, an unwritable parent); never a raw EEXIST/ENOTDIR
+      makeOutFolder(checkOutFolder(opts.out), opts.out);
       const doc = specToDocument(spec);
       const metaPath = join(opts.out, 'ensemble.json');
       let ensembleId = newEnsembleId();
@@ -76,12 +78,7 @@ export function register(program: Command): void {
         if (err instanceof UsageError) throw err;
         await writeFile(metaPath, JSON.stringify({ ensemble_id: ensembleId, created_at_ms: createdAtMs, spec: doc }, null, 2) + '\n');
       }
-      const progress = createProgress({
-        total: spec.particles * (spec.target ? spec.target.maxClusters : spec.clusters),
-        unit: 'particles',
-        label: spec.name,
-        mode: opts.progress as ProgressMode,
-      });
+      const progress = new PhasedProgress(spec.name, spec.particles * spec.clusters, opts.progress as ProgressMode);
       const abort = new AbortController();
       const onSignal = () => abort.abort();
       process.once('SIGINT', onSignal);
@@ -93,7 +90,7 @@ export function register(program: Command): void {
           threads: opts.threads,
           store: new DirectoryArtifactStore(join(opts.out, 'state')),
           signal: abort.signal,
-          onProgress: (p) => progress.update(p.particlesDone),
+          onProgress: (p) => progress.update(p),
           summary: defaultSummaryOptions(analysis),
         });
         progress.stop();
@@ -138,4 +135,35 @@ export function register(program: Command): void {
         process.off('SIGTERM', onSignal);
       }
     });
+}
+
+/**
+ * Progress of `tendril run`: growth (particles, replays excluded from the
+ * rate) and, for specs with [probe], each probing pass as its own progress
+ * (probe jobs), so the growth bar never sits at 100% while probes run.
+ */
+class PhasedProgress {
+  private growth: Progress | null = null;
+  private probing: Progress | null = null;
+  constructor(private readonly label: string, private readonly firstTotal: number, private readonly mode: ProgressMode) {}
+
+  update(p: EmbeddedProgress): void {
+    if (p.phase === 'probing') {
+      if (!this.probing) {
+        this.growth?.stop();
+        this.growth = null;
+        this.probing = createProgress({ total: p.probePassTotal, unit: 'probe jobs', label: `${this.label} (probing)`, mode: this.mode });
+      }
+      this.probing.update(p.probePassDone, { total: p.probePassTotal });
+      return;
+    }
+    if (this.probing) { this.probing.stop(); this.probing = null; }
+    this.growth ??= createProgress({ total: p.particlesTotal || this.firstTotal, unit: 'particles', label: this.label, mode: this.mode });
+    this.growth.update(p.particlesDone, { replayed: p.particlesReplayed, total: p.particlesTotal });
+  }
+
+  stop(): void {
+    this.probing?.stop();
+    this.growth?.stop();
+  }
 }

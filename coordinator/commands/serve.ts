@@ -8,6 +8,7 @@ import { readFile } from 'node:fs/promises';
 import type { Command } from 'commander';
 import { startAdaptiveSweeps } from '../farm/adaptive.js';
 import { buildApi, isLoopback } from '../http/server.js';
+import { DirectoryArtifactStore } from '../farm/artifacts.js';
 import { coordinatorMetrics, newRegistry } from '../metrics/index.js';
 import { limitsFromEnv } from '../spec/index.js';
 import { UsageError } from '../usage-error.js';
@@ -18,6 +19,7 @@ interface ServeOptions extends FarmCliOptions {
   host: string;
   port: number;
   tokenFile?: string;
+  artifacts?: string;
   bodyLimit: number;
   maxTotalParticles?: number;
 }
@@ -44,6 +46,7 @@ export function register(program: Command): void {
       .description('run the HTTP API (create, list, status, cancel, summary downloads), the web status page at / and /metrics')
       .option('--host <address>', 'address to bind (non-loopback needs an API token)', '127.0.0.1')
       .option('--port <port>', 'port', positiveInt('--port', 65535), 8740)
+      .option('--artifacts <dir>', 'the workers\' artifact folder, for snapshot downloads (default: TENDRIL_ARTIFACTS or ./tendril-artifacts)')
       .option('--token-file <file>', 'file holding the API bearer token (default: TENDRIL_API_TOKEN)')
       .option('--body-limit <bytes>', 'largest request body', positiveInt('--body-limit', 16 * 1024 * 1024), 65536)
       .option('--max-total-particles <n>', 'raise the ceiling on particles × clusters', positiveInt('--max-total-particles', Number.MAX_SAFE_INTEGER)),
@@ -56,7 +59,8 @@ export function register(program: Command): void {
     const farm = await openFarm(opts);
     const registry = newRegistry();
     coordinatorMetrics(registry, farm.store, farm.queue);
-    const app = buildApi({ store: farm.store, queue: farm.queue, token, limits, registry, bodyLimit: opts.bodyLimit });
+    const artifacts = new DirectoryArtifactStore(opts.artifacts ?? process.env.TENDRIL_ARTIFACTS ?? 'tendril-artifacts');
+    const app = buildApi({ store: farm.store, queue: farm.queue, token, limits, registry, bodyLimit: opts.bodyLimit, artifacts });
     const address = await app.listen({ host: opts.host, port: opts.port });
     // adaptive ensembles: a sweep judges finished batches that no worker judged (e.g. it died right after storing the last result)
     const stopSweeps = startAdaptiveSweeps(farm.store, farm.queue, 30_000, (line) => process.stderr.write(`tendril serve: ${line}\n`));

@@ -3,6 +3,12 @@
  * threads), checkpointing to the artifact directory. SIGTERM/SIGINT:
  * checkpoint active runs, hand them back to the queue, exit within 10 s.
  *
+ * Logs: one JSON line per event on stderr (pino), at the level of
+ * --log-level (default info, or TENDRIL_LOG_LEVEL): each run's start,
+ * checkpoint, finish, hand-back, cancel and failure at info (failures at
+ * warn), with ensembleId, runIndex, particles and workerId; other remarks
+ * (queue errors, shutdown) as msg lines.
+ *
  * At start the artifact folder must be writable (else one line, exit code 2);
  * temporary files that dead writers left there are removed. With
  * --exit-when-idle S the worker ends by itself (exit code 0) once the run
@@ -11,6 +17,7 @@
  */
 import { availableParallelism } from 'node:os';
 import { Option, type Command } from 'commander';
+import { pino } from 'pino';
 import { advanceAdaptive, startAdaptiveSweeps } from '../farm/adaptive.js';
 import { artifactFolderProblem, DirectoryArtifactStore, removeOrphanTemporaries } from '../farm/artifacts.js';
 import { watchForIdle } from '../farm/idle-watch.js';
@@ -33,8 +40,11 @@ interface WorkerOptions extends FarmCliOptions {
   stalledMs?: number;
   progressMs?: number;
   adaptiveSweepMs: number;
+  logLevel: string;
   exitWhenIdle?: number;
 }
+
+export const LOG_LEVELS = ['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent'] as const;
 
 /** Temporary files older than this are orphans of dead writers (a live write takes seconds). */
 const ORPHAN_TMP_AGE_MS = 15 * 60_000;
@@ -50,6 +60,7 @@ export function register(program: Command): void {
       .option('--artifacts <dir>', 'checkpoint folder shared by all workers (default: TENDRIL_ARTIFACTS or ./tendril-artifacts)')
       .option('--metrics-port <port>', 'serve Prometheus /metrics on this port (default: TENDRIL_WORKER_METRICS_PORT, else off)', positiveInt('--metrics-port', 65535))
       .option('--metrics-host <host>', 'address for /metrics', '127.0.0.1')
+      .addOption(new Option('--log-level <level>', 'structured log level on stderr (JSON lines)').choices(LOG_LEVELS).default(process.env.TENDRIL_LOG_LEVEL ?? 'info', 'TENDRIL_LOG_LEVEL or info'))
       .option('--exit-when-idle <seconds>', 'exit once the run queue has had no pending job for this long (batch-system array tasks)', positiveInt('--exit-when-idle', 86_400))
       .addOption(new Option('--lock-ms <ms>', 'queue lock duration').argParser(positiveInt('--lock-ms', 3_600_000)).hideHelp())
       .addOption(new Option('--stalled-ms <ms>', 'stalled-job check interval').argParser(positiveInt('--stalled-ms', 3_600_000)).hideHelp())
@@ -64,7 +75,9 @@ export function register(program: Command): void {
     const registry = newRegistry();
     const metrics = workerMetrics(registry);
     const concurrency = opts.concurrency ?? availableParallelism();
-    const log = (line: string) => process.stderr.write(`tendril worker: ${line}\n`);
+    if (!(LOG_LEVELS as readonly string[]).includes(opts.logLevel)) throw new UsageError(`--log-level: "${opts.logLevel}" is not allowed; allowed: ${LOG_LEVELS.join(', ')}`);
+    const logger = pino({ level: opts.logLevel, base: { pid: process.pid } }, pino.destination({ fd: 2, sync: true }));
+    const log = (line: string) => logger.info(line);
     // adaptive ensembles: the worker that stores the last result of a batch judges it and queues the next
     // batch (coordinator/farm/adaptive.ts: an atomic Redis step, so a batch is never added twice)
     const store = farm.store;
@@ -103,6 +116,11 @@ export function register(program: Command): void {
       stalledInterval: opts.stalledMs,
       progressIntervalMs: opts.progressMs,
       log,
+      onRunEvent: (e) => {
+        const { event, ...fields } = e;
+        if (event === 'run failed') logger.warn({ workerId: worker.workerId, ...fields }, event);
+        else logger.info({ workerId: worker.workerId, ...fields }, event);
+      },
       ...metrics,
     });
     const port = opts.metricsPort ?? (process.env.TENDRIL_WORKER_METRICS_PORT ? Number(process.env.TENDRIL_WORKER_METRICS_PORT) : undefined);

@@ -56,7 +56,9 @@ export class EmbeddedRunSink implements RunSink {
   async hasResult(_ensembleId: string, runIndex: number): Promise<boolean> {
     return this.results.has(runIndex);
   }
-  async runStarted(): Promise<void> {}
+  async runStarted(): Promise<boolean> {
+    return true;
+  }
   async runReleased(_ensembleId: string, runIndex: number): Promise<void> {
     this.live.delete(runIndex);
   }

@@ -36,7 +36,7 @@ import { runOne } from '../../worker/runtime/run-lifecycle.js';
 import { TaskRejected } from '../../worker/runtime/task-runner.js';
 import { EmbeddedRunSink, MemoryCheckpointStore } from './in-memory-stores.js';
 import type { ArtifactStore } from '../farm/artifacts.js';
-import { finalKey, harmonicKey, hitsKey, resultKey } from '../../worker/runtime/job-contract.js';
+import { checkpointKey, finalKey, harmonicKey, hitsKey, resultKey } from '../../worker/runtime/job-contract.js';
 import { planEnsemble, type PlannedJob } from '../plan.js';
 import { maxRunsOf, probeSizesOf, type EnsembleSpec } from '../spec/index.js';
 import { buildSummary, defaultSummaryOptions, judgeBatch, newAdaptiveHistory, type AdaptiveBatch, type AdaptiveHistory, type SummaryOptions } from '../summary/index.js';
@@ -44,13 +44,20 @@ import type { EnsembleSummaryData } from '../../proto/convert.js';
 import { messageOf, TendrilError } from '../../proto/errors.js';
 
 export interface EmbeddedProgress {
+  /** 'growing' while clusters grow, 'probing' while the probe jobs of a batch run. */
+  phase: 'growing' | 'probing';
   runsDone: number;
   runsTotal: number;
   particlesDone: number;
   particlesTotal: number;
+  /** Of particlesDone, the particles not grown by this call: results reused from an earlier invocation and the part of resumed runs before their checkpoints. */
+  particlesReplayed: number;
   /** Probe jobs finished and planned so far (0 without [probe]). */
   probeJobsDone: number;
   probeJobsTotal: number;
+  /** Probe jobs of the current probing pass (the clusters not probed yet): finished and planned. */
+  probePassDone: number;
+  probePassTotal: number;
 }
 
 /** The hit counts of one probed cluster at its final size, for the report's picture. */
@@ -122,12 +129,18 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
   let probeJobsDone = 0;
   let planned = spec.clusters;
   let reused = 0;
+  let replayed = 0;
+  let phase: EmbeddedProgress['phase'] = 'growing';
+  let probePassDone = 0, probePassTotal = 0;
   const report = () => {
     let p = 0;
     for (const r of results.values()) p += r.particles;
     for (const c of live.values()) p += c;
     const probeJobsTotal = probe ? planned * probeSizes.length * probe.jobs : 0;
-    opts.onProgress?.({ runsDone: results.size, runsTotal: planned, particlesDone: p, particlesTotal: planned * spec.particles, probeJobsDone, probeJobsTotal });
+    opts.onProgress?.({
+      phase, runsDone: results.size, runsTotal: planned, particlesDone: p, particlesTotal: planned * spec.particles, particlesReplayed: replayed,
+      probeJobsDone, probeJobsTotal, probePassDone, probePassTotal,
+    });
   };
 
   /** Results of earlier (interrupted) invocations, from the store. */
@@ -150,6 +163,7 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
           }
           results.set(run.runIndex, r);
           reused++;
+          replayed += r.particles;
         }
       } catch {
         // an unreadable stored result is grown again
@@ -182,6 +196,10 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
         .filter((run) => !results.has(run.runIndex))
         .map(async (run) => {
           if (opts.signal?.aborted) return;
+          const held = await checkpoints.get(checkpointKey(opts.ensembleId, run.runIndex));
+          if (held) {
+            try { replayed += decodeCheckpoint(held).state.count; } catch { /* the thread reports an unreadable checkpoint */ }
+          }
           try {
             await runOne(run, {
               pool,
@@ -225,6 +243,7 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
         try {
           const r = await probePool!.run(`${opts.ensembleId}:${runIndex}:${size}`, () => set, t);
           probeJobsDone++;
+          probePassDone++;
           report();
           return r;
         } catch (err) {
@@ -260,9 +279,15 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
     if (!probe || !probePool) return;
     const todo = [...finals.keys()].filter((i) => !harmonic.has(i)).sort((a, b) => a - b);
     const failures: string[] = [];
+    if (todo.length === 0) return;
+    phase = 'probing';
+    probePassDone = 0;
+    probePassTotal = todo.length * probeSizes.length * probe.jobs;
+    report();
     for (let w = 0; w < todo.length && !opts.signal?.aborted; w += probePool.size) {
       await Promise.all(todo.slice(w, w + probePool.size).map((i) => probeCluster(i, failures)));
     }
+    phase = 'growing';
     if (opts.signal?.aborted) throw abortedError();
     if (failures.length > 0) throw new Error(`${failures.length} probe job(s) failed; first: ${failures[0]}`);
   };

@@ -53,8 +53,9 @@ export function probeJobsOf(id: string, spec: EnsembleSpec, runIndex: number, fi
 /** RunSink.finalPositions of a farm worker: keep the final state, then queue the run's probes. */
 export async function keepFinalAndQueueProbes(store: EnsembleStore, artifacts: ArtifactStore, queue: Queue, run: RunTaskData, finalBytes: Uint8Array): Promise<void> {
   const rec = await store.get(run.ensembleId);
-  if (!rec?.spec.probe) return;
+  if (!rec?.spec.probe && !rec?.spec.positions) return;
   await artifacts.put(finalKey(run.ensembleId, run.runIndex), finalBytes);
+  if (!rec.spec.probe) return; // [positions] only: kept for export and download
   const jobs = probeJobsOf(run.ensembleId, rec.spec, run.runIndex, positionsOf(decodeCheckpoint(finalBytes)));
   for (let i = 0; i < jobs.length; i += 500) await queue.addBulk(jobs.slice(i, i + 500));
 }

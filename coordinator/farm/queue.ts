@@ -56,10 +56,20 @@ export async function launchEnsemble(store: EnsembleStore, queue: Queue, spec: E
   return id;
 }
 
-/** Mark an ensemble cancelled and drop its jobs that no worker holds; workers stop the rest within seconds. */
-export async function cancelEnsemble(store: EnsembleStore, queue: Queue, id: string): Promise<boolean> {
+/** What cancelEnsemble did: cancelled now, was cancelled before, had already finished (done or failed: nothing changed), or no such ensemble. */
+export type CancelOutcome = 'cancelled' | 'already-cancelled' | 'finished' | 'unknown';
+
+/**
+ * Mark an ensemble cancelled and drop its jobs that no worker holds; workers
+ * stop the rest within seconds. A finished ensemble (done or failed) is left
+ * as it is.
+ */
+export async function cancelEnsemble(store: EnsembleStore, queue: Queue, id: string): Promise<CancelOutcome> {
   const rec = await store.get(id);
-  if (!rec) return false;
+  if (!rec) return 'unknown';
+  const before = await store.status(id);
+  if (before && (before.state === 'done' || before.state === 'failed')) return 'finished';
+  if (before?.state === 'cancelled') return 'already-cancelled';
   await store.cancel(id);
   for (let j = 0; j < rec.jobs; j++) {
     try {
@@ -68,5 +78,5 @@ export async function cancelEnsemble(store: EnsembleStore, queue: Queue, id: str
       // held by a worker: it sees the cancel flag and finishes the job itself
     }
   }
-  return true;
+  return 'cancelled';
 }

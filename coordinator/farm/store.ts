@@ -75,6 +75,17 @@ if tonumber(ARGV[1]) > q then redis.call('HSET', KEYS[1], 'queued_through', ARGV
 return 1
 `;
 
+/**
+ * Mark a run running, unless its result is already stored (another worker
+ * finished it, or this job is a retry after its result was saved).
+ * KEYS[1] results hash, KEYS[2] running hash; ARGV run index, worker id. 1: marked, 0: has a result.
+ */
+const RUN_STARTED_SCRIPT = `
+if redis.call('HEXISTS', KEYS[1], ARGV[1]) == 1 then return 0 end
+redis.call('HSET', KEYS[2], ARGV[1], ARGV[2])
+return 1
+`;
+
 export type EnsembleState = 'running' | 'done' | 'failed' | 'cancelled';
 
 export interface EnsembleStatus {
@@ -188,8 +199,10 @@ export class EnsembleStore implements RunSink {
     return (await this.redis.hexists(this.k(ensembleId, 'results'), String(runIndex))) === 1;
   }
 
-  async runStarted(ensembleId: string, runIndex: number, workerId: string): Promise<void> {
-    await this.redis.hset(this.k(ensembleId, 'running'), String(runIndex), workerId);
+  /** Mark a run running; false (and nothing marked) when its result is already stored: it must not be grown again. */
+  async runStarted(ensembleId: string, runIndex: number, workerId: string): Promise<boolean> {
+    const r = await this.redis.eval(RUN_STARTED_SCRIPT, 2, this.k(ensembleId, 'results'), this.k(ensembleId, 'running'), String(runIndex), workerId);
+    return Number(r) === 1;
   }
 
   async runReleased(ensembleId: string, runIndex: number): Promise<void> {
@@ -206,14 +219,17 @@ export class EnsembleStore implements RunSink {
   /** Store a finished run; false when this run index was stored before (a retry), which then changes nothing. */
   async saveResult(result: RunResultData, bytes: Uint8Array): Promise<boolean> {
     const id = result.ensembleId;
-    const ok = await this.redis.hsetnx(this.k(id, 'results'), String(result.runIndex), Buffer.from(bytes));
-    await this.redis
+    // one transaction: a stored result and a cleared running mark go together (a connection lost between
+    // two separate commands used to leave the run marked running after its result was stored)
+    const r = await this.redis
       .multi()
+      .hsetnx(this.k(id, 'results'), String(result.runIndex), Buffer.from(bytes))
       .hdel(this.k(id, 'running'), String(result.runIndex))
       .hdel(this.k(id, 'progress'), String(result.runIndex))
       .hdel(this.k(id, 'failed'), String(result.runIndex))
       .exec();
-    return ok === 1;
+    if (!r || r[0][0]) throw r?.[0][0] ?? new Error(`run ${result.runIndex}: storing the result failed`);
+    return Number(r[0][1]) === 1;
   }
 
   async runFailed(ensembleId: string, runIndex: number, reason: string): Promise<void> {
@@ -280,6 +296,12 @@ export class EnsembleStore implements RunSink {
       this.redis.hlen(this.k(id, 'harmonic')),
       this.redis.hgetall(this.k(id, 'probe-failed')),
     ]);
+    // a run whose result is stored is never running, whatever a stale mark says
+    const marked = Object.keys(running);
+    if (marked.length > 0) {
+      const stored = await this.redis.hmget(this.k(id, 'results'), ...marked);
+      marked.forEach((i, j) => { if (stored[j] !== null) delete running[i]; });
+    }
     const probeSizes = probeSizesOf(rec.spec).length;
     const planned = rec.plannedClusters;
     const runningN = Object.keys(running).length;
@@ -307,9 +329,10 @@ export class EnsembleStore implements RunSink {
       name: rec.name,
       state,
       createdAt: new Date(rec.createdAtMs).toISOString(),
-      runs: { planned, queued: Math.max(0, planned - doneN - runningN - failedN), running: runningN, done: doneN, failed: failedN },
+      // a cancelled or finished ensemble has nothing queued (its jobs were dropped), and grows nothing
+      runs: { planned, queued: state === 'running' ? Math.max(0, planned - doneN - runningN - failedN) : 0, running: runningN, done: doneN, failed: failedN },
       particles: { done: particlesDone, total },
-      throughput,
+      throughput: state === 'running' ? throughput : 0,
       etaSeconds: state !== 'running' ? (state === 'done' ? 0 : null) : throughput > 0 ? remaining / throughput : null,
       failures: Object.entries(failed)
         .map(([i, reason]) => ({ runIndex: Number(i), reason }))

@@ -1,8 +1,11 @@
 /**
- * Picture of a set coloured by harmonic measure on a log scale: each disk
- * drawn at its physical radius, colour from the "ember" map
- * (coordinator/render/palette.ts) by log10 of its share of hits between the
- * smallest positive share and the largest; disks never hit are dark grey.
+ * Picture of a set coloured by harmonic measure: each disk drawn at its
+ * physical radius, colour from the "ember" map (coordinator/render/palette.ts)
+ * by the quantile (mid-rank) of its share of hits among the disks hit at
+ * least once, i.e. by quantiles of log ω: every colour of the map covers the
+ * same number of hit disks, so the measure's whole range shows even when it
+ * spans many decades (a linear scale in log ω left a 10^5-particle cluster
+ * almost uniformly dark); disks never hit are dark grey.
  * Disks are painted in order of increasing measure, so the most exposed
  * ones stay visible. Geometry as in coordinator/render/cluster-picture.ts
  * (bounding box grown by one radius, 3 % margin, +y up); disks smaller than
@@ -32,13 +35,24 @@ export function renderMeasurePng(
   const data = Buffer.alloc(size * size * 4);
   for (let p = 0; p < data.length; p += 4) { data[p] = bg.r; data[p + 1] = bg.g; data[p + 2] = bg.b; data[p + 3] = 255; }
   const lut = buildPalette(PALETTE_SIZE, 0, 1);
-  const lo = Math.log(cMin === Infinity ? 1 : cMin);
-  const span = Math.max(1e-12, Math.log(Math.max(cMax, 1)) - lo);
+  const hit: number[] = [];
+  for (let i = 0; i < n; i++) if (counts[i] > 0) hit.push(counts[i]);
+  const sorted = Float64Array.from(hit).sort();
+  const m = sorted.length;
+  /** Mid-rank quantile in [0, 1] of a positive count among the hit disks (ties share one colour). */
+  const quantile = (c: number): number => {
+    if (m <= 1) return 1;
+    let a = 0, b = m;
+    while (a < b) { const h = (a + b) >>> 1; if (sorted[h] < c) a = h + 1; else b = h; }
+    let e = a, f = m;
+    while (e < f) { const h = (e + f) >>> 1; if (sorted[h] <= c) e = h + 1; else f = h; }
+    return (a + e - 1) / 2 / (m - 1);
+  };
   const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => counts[a] - counts[b]);
   for (const i of order) {
     let cr = 60, cg = 60, cb = 66;
     if (counts[i] > 0) {
-      const c = 3 * Math.min(PALETTE_SIZE - 1, Math.floor(((Math.log(counts[i]) - lo) / span) * (PALETTE_SIZE - 1)));
+      const c = 3 * Math.min(PALETTE_SIZE - 1, Math.floor(quantile(counts[i]) * (PALETTE_SIZE - 1) + 0.5));
       cr = lut[c]; cg = lut[c + 1]; cb = lut[c + 2];
     }
     const fx = originX + scale * x[i];

@@ -5,6 +5,7 @@
  * `x,y,r` rows (disk centre and contact radius; an optional header line
  * naming x,y,r; blank lines and lines starting with # are skipped).
  */
+import { messageOf } from '../../proto/errors.js';
 import { readFileSync } from 'node:fs';
 import { decodeSnapshot } from '../snapshot/cluster-snapshot.js';
 import type { DiskSet } from '../../worker/probe/probe-2d.js';
@@ -50,8 +51,15 @@ export function readProbeInput(path: string): ProbeInput {
   } catch (e) {
     throw new RangeError(`INPUT "${path}" cannot be read: ${(e as NodeJS.ErrnoException).code ?? String(e)}`);
   }
-  if (bytes.length >= 8 && bytes.subarray(0, 8).toString('latin1') === 'TNDRLSNP') {
-    const s = decodeSnapshot(bytes);
+  const named = path.toLowerCase().endsWith('.snapshot');
+  if (named || (bytes.length >= 8 && bytes.subarray(0, 8).toString('latin1') === 'TNDRLSNP')) {
+    // a file named .snapshot is read as one, so a damaged one says what is wrong with it (not "wrong extension")
+    let s;
+    try {
+      s = decodeSnapshot(bytes);
+    } catch (e) {
+      throw new RangeError(`INPUT "${path}" is not a valid snapshot: ${messageOf(e)}`);
+    }
     if (s.dimension !== 2) throw new RangeError(`INPUT "${path}" is a ${s.dimension}D snapshot; probing needs dimension 2`);
     return { kind: 'snapshot', count: s.count, x: s.x, y: s.y, r: s.diameter, drawRadius: s.diameter / 2 };
   }

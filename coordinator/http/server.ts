@@ -32,6 +32,9 @@ import Fastify, { type FastifyInstance, type FastifyReply, type FastifyRequest }
 import type { Queue } from 'bullmq';
 import type { Registry } from 'prom-client';
 import { cancelEnsemble, launchEnsemble } from '../farm/queue.js';
+import type { ArtifactStore } from '../farm/artifacts.js';
+import { keptPositions, snapshotOf } from '../export/cluster-export.js';
+import { modelDescriptor } from '../../worker/models/registry.js';
 import type { EnsembleStore } from '../farm/store.js';
 import { ENSEMBLE_ID_PATTERN } from '../plan.js';
 import { parseSpecText, SpecError, SPEC_SCHEMA, specDocumentProblems, validateSpec, type SpecLimits } from '../spec/index.js';
@@ -56,6 +59,8 @@ export interface ApiOptions {
   /** Summary options; default defaultSummaryOptions() (the full analysis, with the spec's [analysis] settings). */
   summary?: SummaryOptions;
   logger?: boolean;
+  /** The workers' artifact store (final positions of specs with [positions] or [probe]); without it snapshot downloads answer 404. */
+  artifacts?: ArtifactStore;
 }
 
 class ApiError extends TendrilError {
@@ -210,11 +215,16 @@ export function buildApi(o: ApiOptions): FastifyInstance {
 
   app.post<{ Params: { id: string } }>(
     '/ensembles/:id/cancel',
-    { onRequest: requireToken, schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA, 401: ERROR_SCHEMA } } },
+    { onRequest: requireToken, schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA, 401: ERROR_SCHEMA, 409: ERROR_SCHEMA } } },
     async (req) => {
       checkId(req.params.id);
-      if (!(await cancelEnsemble(o.store, o.queue, req.params.id))) throw new ApiError(404, `id: "${req.params.id}" is not an ensemble of this farm`);
-      return { id: req.params.id, cancelled: true };
+      const outcome = await cancelEnsemble(o.store, o.queue, req.params.id);
+      if (outcome === 'unknown') throw new ApiError(404, `id: "${req.params.id}" is not an ensemble of this farm`);
+      if (outcome === 'finished') {
+        const st = await o.store.status(req.params.id);
+        throw new ApiError(409, `id: "${req.params.id}" has already finished (state ${st?.state ?? 'done'}); there is nothing to cancel`);
+      }
+      return { id: req.params.id, cancelled: true, alreadyCancelled: outcome === 'already-cancelled' };
     },
   );
 
@@ -242,6 +252,37 @@ export function buildApi(o: ApiOptions): FastifyInstance {
         .header('content-disposition', `attachment; filename="${name}"`)
         .header('x-summary-partial', got.summary.partial ? 'true' : 'false')
         .send(Buffer.from(renderSummary(got.summary, format as SummaryFormat, table)));
+    },
+  );
+
+  app.get<{ Params: { id: string; run: string }; Querystring: { size?: string } }>(
+    '/ensembles/:id/runs/:run/snapshot',
+    {
+      schema: {
+        params: { type: 'object', required: ['id', 'run'], properties: { id: ID_PARAMS.properties.id, run: { type: 'string', pattern: '^[0-9]{1,9}$' } } },
+        querystring: { type: 'object', properties: { size: { type: 'string', description: 'the cluster at this many particles (a prefix of the final one); default the final size' } } },
+      },
+    },
+    async (req, reply) => {
+      checkId(req.params.id);
+      const rec = await o.store.get(req.params.id);
+      if (!rec) throw new ApiError(404, `id: "${req.params.id}" is not an ensemble of this farm`);
+      const run = Number(req.params.run);
+      if (!/^[0-9]{1,9}$/.test(req.params.run) || run >= rec.plannedClusters) {
+        throw new ApiError(404, `run: ${JSON.stringify(req.params.run.slice(0, 20))} is not a run of ${req.params.id}; allowed: an integer from 0 to ${rec.plannedClusters - 1}`);
+      }
+      if (!rec.spec.positions && !rec.spec.probe) throw new ApiError(404, `run ${run}: its ensemble keeps no positions; allowed: ensembles whose spec has a [positions] table`);
+      const pos = o.artifacts ? await keptPositions(o.artifacts, req.params.id, run) : null;
+      if (!pos) throw new ApiError(404, `run ${run}: no positions are kept for it${o.artifacts ? ' (not finished yet)' : ' (this server was started without the artifact folder)'}`);
+      let size = pos.count;
+      if (req.query.size !== undefined) {
+        size = Number(req.query.size);
+        if (!/^[0-9]{1,12}$/.test(req.query.size) || size < 1 || size > pos.count) throw new ApiError(400, `size: ${JSON.stringify(req.query.size.slice(0, 20))} is not allowed; allowed: an integer from 1 to ${pos.count}`);
+      }
+      return reply
+        .header('content-type', 'application/octet-stream')
+        .header('content-disposition', `attachment; filename="${req.params.id}-run-${run}${size === pos.count ? '' : `-n${size}`}.snapshot"`)
+        .send(snapshotOf(pos, modelDescriptor(rec.spec.model.kind).contactDistance, size));
     },
   );
 

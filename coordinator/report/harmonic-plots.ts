@@ -368,7 +368,7 @@ export function electrostaticFigure(h: HarmonicSection): Figure {
 
 // ---------------------------------------------------------------- (f) the measure picture
 
-export interface MeasurePictureInput { runIndex: number; size: number; png: Uint8Array }
+export interface MeasurePictureInput { runIndex: number; size: number; png: Uint8Array; /** Overrides the title (a point set that is not a run of an ensemble). */ title?: string }
 
 /** Width and height from a PNG's IHDR chunk, or null when the bytes are not a PNG. */
 export function pngSize(png: Uint8Array): [number, number] | null {
@@ -382,10 +382,10 @@ export function pngSize(png: Uint8Array): [number, number] | null {
 /** The picture of renderMeasurePng (coordinator/harmonic/measure-picture.ts) inside an SVG with a colour key. */
 export function measurePictureFigure(pic: MeasurePictureInput): Figure {
   const file = 'harmonic-measure';
-  const title = `Harmonic measure on cluster run ${pic.runIndex} at N = ${fmtAbscissa(pic.size)} particles`;
+  const title = pic.title ?? `Harmonic measure on cluster run ${pic.runIndex} at N = ${fmtAbscissa(pic.size)} particles`;
   const dims = pngSize(pic.png);
   if (!dims) return emptyFigure(file, title, 'the harmonic measure picture is not a PNG');
-  const W = 760, top = 34, img = 660, keyH = 92;
+  const W = 760, top = 34, img = 660, keyH = 100;
   const iw = dims[0] >= dims[1] ? img : (img * dims[0]) / dims[1];
   const ih = dims[0] >= dims[1] ? (img * dims[1]) / dims[0] : img;
   const H = top + ih + keyH;
@@ -396,7 +396,7 @@ export function measurePictureFigure(pic: MeasurePictureInput): Figure {
   parts.push(`<rect x="0" y="0" width="${W}" height="${H.toFixed(0)}" fill="#ffffff"/>`);
   parts.push(svgText((W - img) / 2, 24, title, { size: 17, weight: 'bold' }));
   parts.push(`<image x="${x0.toFixed(2)}" y="${top}" width="${iw.toFixed(2)}" height="${ih.toFixed(2)}" href="data:image/png;base64,${b64}"/>`);
-  // colour key: the same palette and log mapping as renderMeasurePng
+  // colour key: the same palette and quantile mapping as renderMeasurePng
   const lut = buildPalette(64, 0, 1);
   const ky = top + ih + 16, kw = 360, kx = (W - kw) / 2;
   for (let i = 0; i < 64; i++) {
@@ -404,13 +404,17 @@ export function measurePictureFigure(pic: MeasurePictureInput): Figure {
     parts.push(`<rect x="${(kx + (i * kw) / 64).toFixed(2)}" y="${ky.toFixed(2)}" width="${(kw / 64 + 0.6).toFixed(2)}" height="14" fill="${col}"/>`);
   }
   parts.push(`<rect x="${kx}" y="${ky.toFixed(2)}" width="${kw}" height="14" fill="none" stroke="#555" stroke-width="0.8"/>`);
-  parts.push(svgText(kx - 8, ky + 12, 'fewest hits (≥ 1)', { size: 13.5, anchor: 'end' }));
-  parts.push(svgText(kx + kw + 8, ky + 12, 'most hits', { size: 13.5 }));
-  parts.push(`<rect x="${(W / 2 - 150).toFixed(2)}" y="${(ky + 26).toFixed(2)}" width="14" height="14" fill="#3c3c42" stroke="#555" stroke-width="0.8"/>`);
-  parts.push(svgText(W / 2 - 130, ky + 38, 'never hit by a probe walker', { size: 13.5 }));
-  parts.push(svgText(W / 2, ky + 62, 'colour: logarithm of the share of walkers whose first contact is the particle', { size: 13.5, anchor: 'middle', colour: '#333' }));
+  parts.push(svgText(kx - 8, ky + 12, 'lowest share (≥ 1 hit)', { size: 13.5, anchor: 'end' }));
+  parts.push(svgText(kx + kw + 8, ky + 12, 'highest share', { size: 13.5 }));
+  for (const [f, t] of [[0.25, '25%'], [0.5, 'median'], [0.75, '75%']] as const) {
+    parts.push(`<line x1="${(kx + f * kw).toFixed(2)}" y1="${(ky + 14).toFixed(2)}" x2="${(kx + f * kw).toFixed(2)}" y2="${(ky + 19).toFixed(2)}" stroke="#333" stroke-width="1"/>`);
+    parts.push(svgText(kx + f * kw, ky + 30, t, { size: 11.5, anchor: 'middle', colour: '#333' }));
+  }
+  parts.push(`<rect x="${(W / 2 - 150).toFixed(2)}" y="${(ky + 36).toFixed(2)}" width="14" height="14" fill="#3c3c42" stroke="#555" stroke-width="0.8"/>`);
+  parts.push(svgText(W / 2 - 130, ky + 48, 'never hit by a probe walker', { size: 13.5 }));
+  parts.push(svgText(W / 2, ky + 70, 'colour: quantile of the share of walkers whose first contact is the particle (quantiles of log ω)', { size: 13.5, anchor: 'middle', colour: '#333' }));
   parts.push('</svg>');
-  const caption = `Cluster of run ${pic.runIndex} at N = ${fmtAbscissa(pic.size)} particles, each particle coloured by its harmonic measure (the share of probe walkers from far away whose first contact is that particle) on a logarithmic colour scale from the smallest non-zero share (dark) to the largest (bright); dark grey particles were never hit.`;
+  const caption = `Cluster of run ${pic.runIndex} at N = ${fmtAbscissa(pic.size)} particles, each particle coloured by its harmonic measure (the share of probe walkers from far away whose first contact is that particle) by quantiles: the particles hit at least once are ranked by their share, and equal stretches of the colour key hold equal numbers of them, from the smallest share (dark) through the median to the largest (bright), so the measure's whole range of decades shows; dark grey particles were never hit.`;
   return { name: file, title, caption, svg: parts.join('\n'), note: null };
 }
 

@@ -16,7 +16,7 @@ import { mkdir, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import type { GrowthResult } from '../../worker/core/growth-kernel.js';
 import { ENGINE_VERSION } from '../../worker/core/engine-version.js';
-import type { EnsembleAnalysis } from '../stats/analyze-ensemble.js';
+import { CORRECTIONS_DETERMINED_RULES, type EnsembleAnalysis } from '../stats/analyze-ensemble.js';
 import type { HarmonicAtSize, HarmonicSection } from '../harmonic/harmonic-section-types.js';
 import type { IntervalSummary } from '../stats/bca.js';
 import { extractEnsembleData, type EnsembleData } from '../stats/ensemble-data.js';
@@ -78,7 +78,7 @@ export function richHtml(s: string): string {
 }
 
 const STATUS_TEXT: Record<IntervalSummary['status'], string> = {
-  ok: 'ok',
+  ok: 'computed',
   degenerate: 'degenerate (all replicates equal)',
   'too-few-clusters': 'too few clusters for an interval',
   unstable: 'unstable (too many non-finite replicates)',
@@ -116,14 +116,18 @@ function estimatesTable(a: EnsembleAnalysis): string {
     if (!c) continue;
     const key = `${n}Corrected`;
     const win = c.window ? `N = ${fmtAbscissa(c.window.from)} to ${fmtAbscissa(c.window.to)} (${c.window.points} points; ${c.window.source})` : '–';
-    if (!c.available) {
-      rows.push(`<tr data-estimator="${key}"><th>${richHtml(labelOf(key).rich)}</th><td colspan="3" class="warn">not available: ${escapeHtml(c.reason ?? 'unknown reason')}</td><td>${escapeHtml(c.method)}</td><td>${escapeHtml(win)}</td><td class="warn" data-status="unavailable">unavailable</td></tr>`);
+    if (!c.determined) {
+      const what = c.available ? 'not determined' : 'not available';
+      rows.push(`<tr data-estimator="${key}"><th>${richHtml(labelOf(key).rich)}</th><td colspan="3" class="warn">${what}: ${escapeHtml(c.reason ?? 'unknown reason')}</td><td>${escapeHtml(c.method)}</td><td>${escapeHtml(win)}</td><td class="warn" data-status="${c.available ? 'not-determined' : 'unavailable'}">${what}</td></tr>`);
       continue;
     }
     rows.push(`<tr data-estimator="${key}"><th>${richHtml(labelOf(key).rich)}</th>${num(c.D.value)}${range(c.D.interval.percentile)}${range(c.D.interval.bca)}<td>${escapeHtml(c.method)}</td><td>${escapeHtml(win)}</td>${statusCell(c.D.interval)}</tr>`);
   }
   const lvl = `${Number((a.options.level * 100).toFixed(1))}%`;
-  return `<table id="estimates"><thead><tr><th>estimator</th><th>D</th><th>${lvl} percentile interval</th><th>${lvl} BCa interval</th><th>method</th><th>fit window</th><th>interval status</th></tr></thead><tbody>${rows.join('')}</tbody></table>`;
+  const fs = a.consistency.finiteSizeNote;
+  return `<table id="estimates"><thead><tr><th>estimator</th><th>D</th><th>${lvl} percentile interval</th><th>${lvl} BCa interval</th><th>method</th><th>fit window</th><th>interval</th></tr></thead><tbody>${rows.join('')}</tbody></table>` +
+    '<p class="rule" id="estimates-rule">Column “interval”: <i>computed</i> when the bootstrap gave an interval (enough clusters, finite and not all equal replicates); it is not a verdict on D. Whether estimates agree with each other or with the published value is judged in the consistency panel, by the rules stated there.</p>' +
+    (fs ? `<p class="note" id="finite-size-note"><b>Why the estimates differ:</b> ${escapeHtml(fs)}</p>` : '');
 }
 
 function yesNo(v: boolean | null, yes = 'yes', no = 'no'): string {
@@ -134,21 +138,22 @@ function consistencySection(a: EnsembleAnalysis): string {
   const p = a.consistency;
   const out: string[] = [];
   if (p.reference) {
-    out.push(`<p class="reference">Published value for ${escapeHtml(p.modelKind ?? '')}: <b>D = ${escapeHtml(String(p.reference.D))} ± ${escapeHtml(String(p.reference.uncertainty))}</b> (${escapeHtml(p.reference.source)}); ${escapeHtml(p.reference.note)}.</p>`);
+    out.push(`<p class="reference">Published value for ${escapeHtml(p.modelKind ?? '')}: <b>D = ${escapeHtml(String(p.reference.D))} ± ${escapeHtml(String(p.reference.uncertainty))}</b>, source: ${escapeHtml(p.reference.source)}; ${escapeHtml(p.reference.note)}.</p>`);
   } else {
     out.push(`<p class="reference">No published value is on record for model ${escapeHtml(p.modelKind ?? '(unknown)')}.</p>`);
   }
+  const rule = (prefix: string) => p.rules.filter((r) => r.startsWith(prefix)).map((r) => `<p class="rule">Rule: ${escapeHtml(r)}.</p>`).join('');
+  const seeNote = p.finiteSizeNote ? '<p class="note" data-note="finite-size">Disagreement on clusters this small is expected: see “Why the estimates differ” under the estimates table.</p>' : '';
   const rows = p.rows.map((r) => `<tr><th>${richHtml(labelOf(r.name).rich)}</th>${num(r.D)}${range(r.interval)}<td>${escapeHtml(r.intervalKind ?? '–')}</td>${num(r.differenceFromReference)}${yesNo(r.referenceInsideInterval)}</tr>`);
-  out.push(`<h3>Estimates beside the published value</h3><table id="panel-rows"><thead><tr><th>estimator</th><th>D</th><th>interval used</th><th>kind</th><th>D − published</th><th>published value inside our interval</th></tr></thead><tbody>${rows.join('') || '<tr><td colspan="6" class="na">no estimate</td></tr>'}</tbody></table>`);
+  out.push(`<h3>Estimates beside the published value</h3><table id="panel-rows"><thead><tr><th>estimator</th><th>D</th><th>interval used</th><th>kind</th><th>D − published</th><th>published value inside our interval</th></tr></thead><tbody>${rows.join('') || '<tr><td colspan="6" class="na">no estimate</td></tr>'}</tbody></table>` + rule('published value inside') + (p.rows.some((r) => r.referenceInsideInterval === false) ? seeNote : ''));
   const pairs = p.pairs.map((q) => {
     const sh = shownInterval(q.differenceInterval);
     return `<tr><th>${richHtml(labelOf(q.a).rich)} − ${richHtml(labelOf(q.b).rich)}</th>${num(q.difference)}${range(sh.range)}<td>${escapeHtml(sh.kind ?? '–')}</td>${yesNo(q.intervalsOverlap)}${yesNo(q.agree, 'agree', 'disagree')}</tr>`;
   });
-  out.push(`<h3>Agreement of pairs</h3><table id="panel-pairs"><thead><tr><th>pair</th><th>difference</th><th>interval of the paired difference</th><th>kind</th><th>individual intervals overlap</th><th>verdict (0 inside the difference interval)</th></tr></thead><tbody>${pairs.join('') || '<tr><td colspan="6" class="na">fewer than two estimators: no pairs</td></tr>'}</tbody></table>`);
+  out.push(`<h3>Agreement of pairs</h3><table id="panel-pairs"><thead><tr><th>pair</th><th>difference</th><th>interval of the paired difference</th><th>kind</th><th>individual intervals overlap</th><th>verdict (0 inside the difference interval)</th></tr></thead><tbody>${pairs.join('') || '<tr><td colspan="6" class="na">fewer than two estimators: no pairs</td></tr>'}</tbody></table>` + rule('pair agrees') + rule('individual intervals') + (p.pairs.some((q) => q.agree === false) ? seeNote : ''));
   const names = p.rows.map((r) => r.name);
   const bounds = p.bounds.map((b) => `<tr><th>${escapeHtml(b.rule)}</th><td>${escapeHtml(b.source)}</td>${names.map((n) => { const s = b.status[n] ?? 'unknown'; return `<td class="${s === 'satisfied' ? 'ok' : s === 'unknown' ? 'na' : 'warn'}">${escapeHtml(s)}</td>`; }).join('')}</tr>`);
-  out.push(`<h3>Bounds</h3><table id="panel-bounds"><thead><tr><th>bound</th><th>source</th>${names.map((n) => `<th>${richHtml(labelOf(n).rich)}</th>`).join('')}</tr></thead><tbody>${bounds.join('') || `<tr><td colspan="${2 + names.length}" class="na">no bounds known for this model</td></tr>`}</tbody></table>`);
-  out.push(`<ul class="rules">${p.rules.map((r) => `<li>${escapeHtml(r)}</li>`).join('')}</ul>`);
+  out.push(`<h3>Bounds</h3><table id="panel-bounds"><thead><tr><th>bound</th><th>source</th>${names.map((n) => `<th>${richHtml(labelOf(n).rich)}</th>`).join('')}</tr></thead><tbody>${bounds.join('') || `<tr><td colspan="${2 + names.length}" class="na">no bounds known for this model</td></tr>`}</tbody></table>` + rule('bound:'));
   return out.join('\n');
 }
 
@@ -158,16 +163,17 @@ function correctionsSection(a: EnsembleAnalysis): string {
   for (const n of ['radiusOfGyration', 'maxRadius'] as const) {
     const c = a.corrections[n];
     if (!c) continue;
-    if (!c.available) { rows.push(`<tr><th>${richHtml(labelOf(n).rich)}</th><td colspan="7" class="warn">not available: ${escapeHtml(c.reason ?? '')}</td></tr>`); continue; }
+    const win = c.window ? `N = ${fmtAbscissa(c.window.from)} to ${fmtAbscissa(c.window.to)}, ${c.window.points} points (${c.window.source})` : '–';
+    if (!c.determined) { rows.push(`<tr data-estimator="${n}"><th>${richHtml(labelOf(n).rich)}</th><td colspan="5" class="warn">${c.available ? 'not determined' : 'not available'}: ${escapeHtml(c.reason ?? '')}</td><td>${escapeHtml(win)}</td><td class="num">${escapeHtml(c.rss === null ? '–' : c.rss.toExponential(3))} / ${escapeHtml(c.rssPowerLaw === null ? '–' : c.rssPowerLaw.toExponential(3))}</td></tr>`); continue; }
     const cell = (v: { value: number | null; interval: IntervalSummary }, d = 4) => {
       const sh = shownInterval(v.interval);
       return v.value === null ? '<td class="na">–</td>' : `<td class="num" data-value="${escapeHtml(String(v.value))}">${escapeHtml(fmt(v.value, d))}${sh.range ? ` <span class="iv">${escapeHtml(fmtRange(sh.range, d))} ${escapeHtml(sh.kind ?? '')}</span>` : ''}</td>`;
     };
-    const omega = c.omegaStatus === 'resolved' ? cell(c.omega, 3) : `<td class="warn">undetermined: ${escapeHtml(c.omegaReason ?? '')}</td>`;
-    rows.push(`<tr><th>${richHtml(labelOf(n).rich)}</th>${cell(c.D)}${omega}${cell(c.amplitude)}${cell(c.correctionAmplitude)}${cell(c.relativeCorrection)}<td>${escapeHtml(c.window ? `N = ${fmtAbscissa(c.window.from)} to ${fmtAbscissa(c.window.to)}, ${c.points} points (${c.window.source})` : '–')}</td><td class="num">${escapeHtml(c.rss === null ? '–' : c.rss.toExponential(3))} / ${escapeHtml(c.rssPowerLaw === null ? '–' : c.rssPowerLaw.toExponential(3))}</td></tr>`);
+    rows.push(`<tr data-estimator="${n}"><th>${richHtml(labelOf(n).rich)}</th>${cell(c.D)}${cell(c.omega, 3)}${cell(c.amplitude)}${cell(c.correctionAmplitude)}${cell(c.relativeCorrection)}<td>${escapeHtml(win)}</td><td class="num">${escapeHtml(c.rss === null ? '–' : c.rss.toExponential(3))} / ${escapeHtml(c.rssPowerLaw === null ? '–' : c.rssPowerLaw.toExponential(3))}</td></tr>`);
   }
   const method = a.corrections.radiusOfGyration?.method ?? a.corrections.maxRadius?.method ?? '';
-  return `<table id="corrections"><thead><tr><th>curve</th><th>D</th><th>ω</th><th>A</th><th>B</th><th>B N<sub>min</sub><sup>−ω</sup></th><th>window</th><th>residual sum of squares: with correction / pure power law</th></tr></thead><tbody>${rows.join('') || '<tr><td colspan="8" class="na">no corrections fit</td></tr>'}</tbody></table><p class="method">${escapeHtml(method)}</p>`;
+  return `<table id="corrections"><thead><tr><th>curve</th><th>D</th><th>ω</th><th>A</th><th>B</th><th>B N<sub>min</sub><sup>−ω</sup></th><th>window</th><th>residual sum of squares: with correction / pure power law</th></tr></thead><tbody>${rows.join('') || '<tr><td colspan="8" class="na">no corrections fit</td></tr>'}</tbody></table><p class="method">${escapeHtml(method)}</p>` +
+    `<p class="rules-head">A fit gives D, ω, A and B only when every rule holds; otherwise it is reported as not determined, with the first rule that failed, and it stays out of the consistency panel:</p><ul class="rules">${CORRECTIONS_DETERMINED_RULES.map((r) => `<li>${escapeHtml(r)}</li>`).join('')}</ul>`;
 }
 
 function evCell(v: { mean: number; interval: IntervalSummary } | null | undefined, digits = 4): string {
@@ -321,10 +327,12 @@ function headerSection(input: ReportInput, title: string): string {
 const CSS = `
 body { font-family: ${FONT_FAMILY}; margin: 24px auto; max-width: 1120px; padding: 0 16px; color: #111; line-height: 1.4; }
 h1 { font-size: 26px; margin-bottom: 6px; } h2 { margin-top: 34px; border-bottom: 1px solid #ccc; padding-bottom: 4px; } h3 { margin-bottom: 6px; }
-table { border-collapse: collapse; margin: 8px 0 14px; font-size: 14px; }
+table { border-collapse: collapse; margin: 8px 0 14px; font-size: 14px; display: block; max-width: 100%; overflow-x: auto; }
+td:not(.num) { overflow-wrap: anywhere; } td code { white-space: pre-wrap; overflow-wrap: anywhere; }
 th, td { border: 1px solid #d0d0d0; padding: 4px 8px; text-align: left; vertical-align: top; }
 thead th { background: #f2f2f2; } td.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
 td.ok { color: #05620f; } .warn { color: #a00000; } .na { color: #777; }
+.rule { color: #444; font-size: 13px; margin: -8px 0 12px; } .note { background: #fff8e1; border-left: 3px solid #e0a800; padding: 6px 10px; font-size: 14px; }
 .headline { font-size: 19px; } .iv { color: #555; font-size: 12px; } .method { color: #444; font-size: 13px; }
 figure { margin: 18px 0 28px; } figure svg { max-width: 100%; height: auto; border: 1px solid #eee; }
 figcaption { font-size: 14px; color: #333; max-width: 860px; } figcaption a { margin-right: 10px; }

@@ -176,7 +176,7 @@ export function localSlopesFigure(analysis: EnsembleAnalysis, variable: 'N' | 'r
   const caption = `Effective dimension from OLS fits over a sliding window of ${width ?? '?'} decade(s) of ${variable === 'N' ? 'N' : 'r'}, centred at each point` +
     (bandKind ? `; shaded: ${bandKind} bootstrap band over clusters` : '') +
     '. Dotted coloured segments: D of the global fit, drawn over its fit window.' +
-    (ref ? ` Dashed black: the published value ${ref.D} (${ref.source}), shown for comparison and not used in any fit.` : '') +
+    (ref ? ` Dashed black: the published value ${ref.D}, source: ${ref.source}; shown for comparison and not used in any fit.` : '') +
     (analysis.consistency.bounds.length ? ' Grey dotted (lower) and dash-dotted (upper): rigorous bounds.' : '') + ' A curve that has levelled off at large sizes means D has settled.';
   return { name: file, title, caption, svg: p.toSvg(), note: null };
 }
@@ -196,7 +196,7 @@ export function comparisonFigure(analysis: EnsembleAnalysis): Figure {
   for (const n of ['radiusOfGyration', 'maxRadius'] as const) {
     const c = analysis.corrections[n];
     if (!c) continue;
-    rows.push({ name: `${n}Corrected`, D: c.D.value, percentile: c.D.interval.percentile, bca: c.D.interval.bca, why: c.available ? (c.D.interval.percentile || c.D.interval.bca ? null : `no interval: ${c.D.interval.status.replace(/-/g, ' ')}`) : `not available: ${c.reason}` });
+    rows.push({ name: `${n}Corrected`, D: c.D.value, percentile: c.D.interval.percentile, bca: c.D.interval.bca, why: c.determined ? (c.D.interval.percentile || c.D.interval.bca ? null : `no interval: ${c.D.interval.status.replace(/-/g, ' ')}`) : `${c.available ? 'not determined' : 'not available'}: ${c.reason}` });
   }
   if (rows.length === 0) return emptyFigure(file, title, 'no estimator was requested');
   const values: number[] = [];
@@ -232,29 +232,37 @@ export function comparisonFigure(analysis: EnsembleAnalysis): Figure {
   const off = boundLines(p, analysis, [lo, hi], false);
   for (const t of off) p.note(t);
   const caption = `Each row: the point estimate (marker, value above it), its ${pct} percentile interval (grey, upper whisker) and BCa interval (coloured, lower whisker) from the bootstrap over whole clusters.` +
-    (ref ? ` Dashed: published value ${ref.D} ± ${ref.uncertainty} (${ref.source}), not a fit input.` : '') +
+    (ref ? ` Dashed: published value ${ref.D} ± ${ref.uncertainty}, source: ${ref.source}; not a fit input.` : '') +
     (off.length ? ` ${off.join('; ')}.` : '') + (analysis.consistency.bounds.length ? ' Grey dotted (lower) and dash-dotted (upper): rigorous bounds that fall inside the range.' : '');
   return { name: file, title, caption, svg: p.toSvg(), note: null };
 }
 
-/** Compensated plot R / (A N^{1/D}) of the corrections-to-scaling fit, with 1 + B N^-omega. */
+/**
+ * Compensated plot R / (A N^{1/D}) of the corrections-to-scaling fits that
+ * are determined: the points (ensemble geometric mean divided by the fitted
+ * leading power law) should follow the fitted correction 1 + B N^{-omega}
+ * (line) and approach the reference 1 at large N. Fits that are not
+ * determined are not drawn (their A and D are not trusted); they are named
+ * with the reason.
+ */
 export function correctionsFigure(analysis: EnsembleAnalysis, data: EnsembleData | null): Figure {
   const file = 'corrections-to-scaling';
   const title = 'Corrections to scaling: R = A N^{1/D} (1 + B N^{−ω})';
-  const avail = (['radiusOfGyration', 'maxRadius'] as const).filter((n) => analysis.corrections[n]?.available && analysis.corrections[n]!.D.value !== null && analysis.corrections[n]!.amplitude.value !== null);
+  const names = ['radiusOfGyration', 'maxRadius'] as const;
   if (!analysis.options.corrections) return emptyFigure(file, title, 'the corrections-to-scaling fit was switched off');
-  if (avail.length === 0 || !data) {
-    const why = (['radiusOfGyration', 'maxRadius'] as const).map((n) => `${labelOf(n).plain}: ${analysis.corrections[n]?.reason ?? 'not fitted'}`).join('; ');
-    return emptyFigure(file, title, data ? `no corrections fit: ${why}` : 'the run results could not be read');
-  }
+  const drawn = names.filter((n) => {
+    const c = analysis.corrections[n];
+    return c?.determined && c.D.value !== null && c.amplitude.value !== null && c.omega.value !== null && c.correctionAmplitude.value !== null && c.window;
+  });
+  const why = names.filter((n) => !drawn.includes(n)).map((n) => `${labelOf(n).plain}: ${analysis.corrections[n]?.available ? 'not determined' : 'not available'} (${analysis.corrections[n]?.reason ?? 'not fitted'})`);
+  if (drawn.length === 0 || !data) return emptyFigure(file, title, data ? `no determined corrections fit: ${why.join('; ')}` : 'the run results could not be read');
   const p = new Plot({ idPrefix: file, title, x: { label: AXIS.size, kind: 'log' }, y: { label: 'R / (A N^{1/D}) (dimensionless)', kind: 'linear' }, legend: 'below' });
-  p.hline(1, { colour: COLOURS.grey, width: 1 });
-  const texts: string[] = [];
-  for (const n of avail) {
+  let xMin = Infinity, xMax = -Infinity;
+  for (const n of drawn) {
     const c = analysis.corrections[n]!;
     const d = data[n];
     const lab = labelOf(n);
-    const D = c.D.value!, A = c.amplitude.value!;
+    const D = c.D.value!, A = c.amplitude.value!, om = c.omega.value!, B = c.correctionAmplitude.value!;
     const w = c.window!;
     const xs: number[] = [], ys: number[] = [];
     for (let j = 0; j < d.columns; j++) {
@@ -262,20 +270,18 @@ export function correctionsFigure(analysis: EnsembleAnalysis, data: EnsembleData
       if (N < w.from * (1 - 1e-9) || N > w.to * (1 + 1e-9)) continue;
       xs.push(N); ys.push(Math.exp(d.mean[j]) / (A * Math.pow(N, 1 / D)));
     }
-    p.points(xs, ys, lab.colour, `${labelOf(n).rich}: ensemble geometric mean / (A N^{1/D})`, lab.marker, 2.6);
-    const om = c.omega.value, B = c.correctionAmplitude.value;
+    if (xs.length === 0) continue;
+    xMin = Math.min(xMin, xs[0]); xMax = Math.max(xMax, xs[xs.length - 1]);
+    p.points(xs, ys, lab.colour, `${lab.rich}: ensemble geometric mean / (A N^{1/D})`, lab.marker, 2.6);
     const omIv = shownInterval(c.omega.interval);
-    if (om !== null && B !== null && c.omegaStatus === 'resolved') {
-      const curve = xs.map((N) => 1 + B * Math.pow(N, -om));
-      p.line(xs, curve, { colour: lab.colour, width: 2 }, `fit: ${estimateText(D, c.D.interval)}; ω = ${fmt(om, 3)}${omIv.range ? ` [${fmt(omIv.range[0], 3)}, ${fmt(omIv.range[1], 3)}]` : ''}`);
-    } else {
-      p.legendOnly(`fit: ${estimateText(D, c.D.interval)}; ω undetermined`, 'line', { colour: lab.colour, width: 2, dash: '4 3' });
-      texts.push(`${lab.plain}: ${c.omegaReason ?? 'ω undetermined'}`);
-    }
+    const curve = xs.map((N) => 1 + B * Math.pow(N, -om));
+    p.line(xs, curve, { colour: lab.colour, width: 2 }, `${lab.rich} fit 1 + B N^{−ω}: ${estimateText(D, c.D.interval)}; ω = ${fmt(om, 3)}${omIv.range ? ` [${fmt(omIv.range[0], 3)}, ${fmt(omIv.range[1], 3)}]` : ''}`);
   }
-  for (const t of texts) p.note(t.length > 95 ? t.slice(0, 92) + '...' : t);
-  const caption = 'Each curve divided by the fitted leading power law A N^{1/D}: the points should follow the fitted correction 1 + B N^{−ω} (line) and approach 1 at large N. ' +
-    avail.map((n) => { const c = analysis.corrections[n]!; return `${labelOf(n).plain}: ${estimateText(c.D.value, c.D.interval)}, ω ${c.omegaStatus === 'resolved' ? `= ${fmt(c.omega.value, 3)}` : `undetermined (${c.omegaReason})`}, over N = ${fmtAbscissa(c.window?.from)} to ${fmtAbscissa(c.window?.to)}`; }).join('; ') + '.';
+  if (xMin < xMax) p.line([xMin, xMax], [1, 1], { colour: COLOURS.grey, width: 1, dash: '6 4' }, 'reference 1: the pure power law A N^{1/D}');
+  for (const t of why) p.note(t.length > 95 ? t.slice(0, 92) + '...' : t);
+  const caption = 'Each curve divided by its fitted leading power law A N^{1/D}: the points should follow the fitted correction 1 + B N^{−ω} (solid line) and approach the dashed reference 1 at large N. ' +
+    drawn.map((n) => { const c = analysis.corrections[n]!; return `${labelOf(n).plain}: ${estimateText(c.D.value, c.D.interval)}, ω = ${fmt(c.omega.value, 3)}, over N = ${fmtAbscissa(c.window?.from)} to ${fmtAbscissa(c.window?.to)}`; }).join('; ') + '.' +
+    (why.length ? ` Not drawn: ${why.join('; ')}.` : '');
   return { name: file, title, caption, svg: p.toSvg(), note: null };
 }
 

@@ -7,6 +7,7 @@
  *   particles: 0 is out of range; allowed: an integer from 2 to 100000000
  * A SpecError carries all problems of a document at once.
  */
+import { RECORDS_PER_DECADE } from '../../worker/core/record-sizes.js';
 import { parse as parseToml } from 'smol-toml';
 import { isModelKind, MODEL_KINDS, MODELS, modelDescriptor, modelParamProblems, modelParams } from '../../worker/models/registry.js';
 import { compileChecker, type Checker } from './schema-messages.js';
@@ -101,6 +102,8 @@ export interface EnsembleSpec {
   target: TargetSpec | null;
   /** Harmonic-measure probing, or null. */
   probe: ProbeSpec | null;
+  /** Keep final positions of every cluster ([positions]), or null. */
+  positions: PositionsSpec | null;
 }
 
 export class SpecError extends TendrilError {
@@ -161,14 +164,18 @@ export function parseSpecText(text: string, format: 'toml' | 'json'): unknown {
   } catch (err) {
     const e = err as { line?: number; column?: number };
     const where = e.line !== undefined ? ` (line ${e.line}, column ${e.column ?? 0})` : '';
-    throw new SpecError([`spec is not valid TOML${where}: ${oneLine(err).replace(/^Invalid TOML document: /, '')}`]);
+    const msg = oneLine(err).replace(/^Invalid TOML document: /, '');
+    // TOML integers are signed 64-bit: a seed of 2^63 or more must be written as a string
+    const hint = /cannot be represented losslessly|integer .*(large|range)/i.test(msg) ? '; an integer of 2^63 or more (e.g. a seed up to 18446744073709551615) must be quoted: seed = "18446744073709551615"' : '';
+    throw new SpecError([`spec is not valid TOML${where}: ${msg}${hint}`]);
   }
 }
 
 export function formatOf(fileName: string): 'toml' | 'json' {
   if (/\.json$/i.test(fileName)) return 'json';
   if (/\.toml$/i.test(fileName)) return 'toml';
-  throw new SpecError([`spec file "${fileName}": unknown format; allowed: a name ending in .toml or .json`]);
+  // the caller names the file (no doubled 'spec file "…": spec file "…"')
+  throw new SpecError(['unknown format; allowed: a name ending in .toml or .json']);
 }
 
 /** Validate a parsed document and fill in defaults; throws SpecError listing every problem. */
@@ -176,9 +183,13 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
   if (typeof doc !== 'object' || doc === null || Array.isArray(doc)) {
     throw new SpecError([`spec: ${quoteValue(doc)} is not allowed; allowed: a table (object) of fields`]);
   }
-  const schemaProblems = specDocumentProblems(doc);
-  if (schemaProblems.length > 0) throw new SpecError(schemaProblems);
   const d = doc as Record<string, any>;
+  const schemaProblems = specDocumentProblems(doc);
+  if (schemaProblems.length > 0) {
+    // every problem in one round: the schema's, and a missing cluster count (which the schema cannot require, as [target] may stand in for it)
+    if (d.clusters === undefined && d.target === undefined) schemaProblems.push(`clusters: missing; allowed: an integer from 1 to ${SPEC_SCHEMA.properties.clusters.maximum} (or a [target] table with max_clusters)`);
+    throw new SpecError(schemaProblems);
+  }
   const problems: string[] = [];
   const t = d.target as Record<string, any> | undefined;
   if (d.clusters === undefined && !t) problems.push(`clusters: missing; allowed: an integer from 1 to ${SPEC_SCHEMA.properties.clusters.maximum} (or a [target] table with max_clusters)`);
@@ -204,6 +215,12 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
   if (every > d.particles) {
     problems.push(`checkpoint_every_particles: ${every} is out of range; allowed: 0 (off) or an integer from 1 to particles (${d.particles})`);
   }
+  const po = d.positions as Record<string, any> | undefined;
+  if (po) {
+    for (const [k, v] of (po.at_sizes ?? []).entries()) {
+      if (v >= d.particles) problems.push(`positions.at_sizes[${k}]: ${v} is out of range; allowed: an integer from 2 to particles - 1 (${d.particles - 1})`);
+    }
+  }
   const pr = d.probe as Record<string, any> | undefined;
   if (pr) {
     for (const [k, v] of (pr.at_sizes ?? []).entries()) {
@@ -227,7 +244,7 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
     particles: d.particles,
     clusters,
     seed: BigInt(seed).toString(),
-    recordsPerDecade: d.records_per_decade ?? 10,
+    recordsPerDecade: d.records_per_decade ?? RECORDS_PER_DECADE.default,
     observables: d.observables ?? [...OBSERVABLES],
     checkpointIntervalSeconds: d.checkpoint_interval_seconds ?? 300,
     checkpointEveryParticles: every,
@@ -249,7 +266,18 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
           atSizes: [...(pr.at_sizes ?? [])].sort((a: number, b: number) => a - b),
         }
       : null,
+    positions: po ? { atSizes: [...(po.at_sizes ?? [])].sort((a: number, b: number) => a - b) } : null,
   };
+}
+
+/** The [positions] table: keep every cluster's final positions; `atSizes` are the smaller sizes exported too (prefixes). */
+export interface PositionsSpec {
+  atSizes: number[];
+}
+
+/** Every size at which the positions of a spec's clusters are exported (ascending, the final size last); empty without [positions]. */
+export function positionSizesOf(s: EnsembleSpec): number[] {
+  return s.positions ? [...s.positions.atSizes, s.particles] : [];
 }
 
 /** The one line refusing a [probe] table for a model whose descriptor declares no probe, or null when it has one. */
@@ -316,6 +344,7 @@ export function specToDocument(s: EnsembleSpec): Record<string, unknown> {
           },
         }
       : {}),
+    ...(s.positions ? { positions: s.positions.atSizes.length > 0 ? { at_sizes: [...s.positions.atSizes] } : {} } : {}),
   };
 }
 

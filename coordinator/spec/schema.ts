@@ -14,6 +14,7 @@
  * failures with the registry's one line naming params.NAME, the model and
  * the allowed range.
  */
+import { RECORDS_PER_DECADE } from '../../worker/core/record-sizes.js';
 import { MODEL_KINDS, MODELS } from '../../worker/models/registry.js';
 import type { ModelDescriptor } from '../../worker/core/model-descriptor.js';
 import { describeRange, rangeSchema } from '../../worker/core/value-range.js';
@@ -82,7 +83,7 @@ export const SPEC_SCHEMA = {
     particles: { type: 'integer', minimum: MIN_PARTICLES, maximum: MAX_PARTICLES, description: 'particles per cluster, seed included' },
     clusters: { type: 'integer', minimum: 1, maximum: MAX_CLUSTERS, description: 'number of clusters (runs); with [target], the size of the first batch' },
     seed: { ...SEED_SCHEMA, description: `ensemble seed: ${SEED_SCHEMA.description}` },
-    records_per_decade: { type: 'integer', minimum: 10, maximum: 100, description: 'observables recorded at this many sizes per decade' },
+    records_per_decade: { type: 'integer', minimum: RECORDS_PER_DECADE.min, maximum: RECORDS_PER_DECADE.max, description: `observables recorded at this many sizes per decade (default ${RECORDS_PER_DECADE.default})` },
     observables: {
       type: 'array',
       minItems: 1,
@@ -119,6 +120,18 @@ export const SPEC_SCHEMA = {
           type: 'array', minItems: 1, maxItems: MAX_PROBE_SIZES, uniqueItems: true,
           items: { type: 'integer', minimum: 2, maximum: MAX_PARTICLES },
           description: 'also probe each cluster when it had these many particles (each below particles)',
+        },
+      },
+    },
+    positions: {
+      type: 'object',
+      additionalProperties: false,
+      description: 'keep the final particle positions of every cluster (the cluster at any smaller size is the first n of them), for tendril export and the HTTP snapshot download',
+      properties: {
+        at_sizes: {
+          type: 'array', minItems: 1, maxItems: 64, uniqueItems: true,
+          items: { type: 'integer', minimum: 2, maximum: MAX_PARTICLES },
+          description: 'also export each cluster at these sizes (each below particles): the first n positions',
         },
       },
     },

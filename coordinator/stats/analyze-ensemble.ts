@@ -27,10 +27,11 @@
  *       .localSlopes     null, or { method, widthDecades, points: [{ at, D, percentile, bca, status }] }:
  *                        effective D from a sliding OLS window of widthDecades (full width) centred at `at`
  *   corrections       { radiusOfGyration, maxRadius }: CorrectionsSummary or null (disabled)
- *       .available, .reason, .method, .window { from, to, points, source, rule }
+ *       .available (fit attempted), .determined (every rule of CORRECTIONS_DETERMINED_RULES holds),
+ *       .reason (why unavailable / not determined), .method, .window { from, to, points, source, rule }
  *       .D, .omega, .amplitude, .correctionAmplitude (B), .relativeCorrection (B N_min^-omega):
- *                        each { value, interval } (value null when undetermined)
- *       .omegaStatus     'resolved' | 'undetermined'; .omegaReason says why when undetermined
+ *                        each { value, interval }; all null unless determined (no headline D
+ *                        from a fit whose omega or parameters the data do not fix)
  *       .rss, .rssPowerLaw, .points
  *   consistency       ConsistencyPanel (see consistency-panel.ts): rows (estimators side by side, with the
  *                     published value's difference), pairs (paired-bootstrap difference intervals and
@@ -51,6 +52,7 @@ import { extractEnsembleData, StatsInputError, type EnsembleData, type LogLogDat
 import { applyWeights, fitLine, rowSlopes, slopeWeights } from './log-log-fit.js';
 import { localWindows, type LocalWindow } from './local-slopes.js';
 import { referenceFor } from './reference-values.js';
+import { normalQuantile } from './special-functions.js';
 import { CorrectionsFitter, DEFAULT_CORRECTIONS_FIT, type CorrectionsFit } from './scaling-corrections-fit.js';
 
 export type EstimatorName = 'radiusOfGyration' | 'maxRadius' | 'massRadius';
@@ -76,7 +78,7 @@ export interface AnalysisOptions {
   localSlopes?: boolean;
   /** Full width of the local-slope window in decades; default 0.5, allowed 0.05..3. */
   localSlopeWidthDecades?: number;
-  /** Run the corrections-to-scaling fit; default true. */
+  /** Run the corrections-to-scaling fit; default false (opt-in: it rarely determines omega on ensembles of modest size). */
   corrections?: boolean;
   /** Window in N of the corrections fit; default see DEFAULT_CORRECTIONS_WINDOW_RULE. */
   correctionsWindow?: SizeWindow;
@@ -152,14 +154,16 @@ export interface ValueWithInterval { value: number | null; interval: IntervalSum
 
 export interface CorrectionsSummary {
   estimator: 'radiusOfGyration' | 'maxRadius';
+  /** The fit was attempted (enough sizes over enough decades in its window). */
   available: boolean;
+  /** The fit passed every rule of CORRECTIONS_DETERMINED_RULES: only then are D, omega, A, B given. */
+  determined: boolean;
+  /** Why the fit is unavailable or not determined; null when determined. */
   reason: string | null;
   method: string;
   window: { from: number; to: number; points: number; source: 'default' | 'user'; rule: string } | null;
   D: ValueWithInterval;
   omega: ValueWithInterval;
-  omegaStatus: 'resolved' | 'undetermined';
-  omegaReason: string | null;
   amplitude: ValueWithInterval;
   correctionAmplitude: ValueWithInterval;
   relativeCorrection: ValueWithInterval;
@@ -297,13 +301,14 @@ export function analyzeEnsemble(runs: readonly GrowthResult[], options: Analysis
     ? checkNumber('embeddingDimension', options.embeddingDimension, 1, 3, true)
     : reference?.embeddingDimension ?? null;
   const doLocal = options.localSlopes ?? true;
-  const doCorrections = options.corrections ?? true;
+  const doCorrections = options.corrections ?? false;
   const bootstrapOn = k >= minClusters;
   const tooFew = `${k} cluster(s): intervals need at least ${minClusters}`;
   if (!bootstrapOn) notes.push(tooFew);
 
   // --- set up the estimators
   const setups: Setup[] = [];
+  const refusedCorrections = new Map<string, { why: string; window: NonNullable<CorrectionsSummary['window']> }>();
   const summaries = {} as Record<EstimatorName, EstimatorSummary>;
   let minFinalRg = Infinity;
   for (let c = 0; c < k; c++) if (data.finalRadiusOfGyration[c] < minFinalRg) minFinalRg = data.finalRadiusOfGyration[c];
@@ -372,13 +377,16 @@ export function analyzeEnsemble(runs: readonly GrowthResult[], options: Analysis
       }
       const [cf, ct] = indexRange(ab, clo, chi);
       const cwin = { from: finiteOrNull(clo) ?? 0, to: finiteOrNull(chi) ?? ab[ab.length - 1], points: ct - cf, source: csrc, rule: crule };
-      if (ct - cf >= 6) {
+      const decades = ct > cf ? (d.x[ct - 1] - d.x[cf]) / Math.LN10 : 0;
+      if (ct - cf >= CORRECTIONS_MIN_SIZES && decades >= CORRECTIONS_MIN_DECADES - 1e-9) {
         const fitter = new CorrectionsFitter(d.x.subarray(cf, ct), { ...DEFAULT_CORRECTIONS_FIT, omegaMin: omegaRange[0], omegaMax: omegaRange[1] });
         const point = fitter.fit(d.mean.subarray(cf, ct));
         const mk = () => new Float64Array(bootstrapOn ? resamples : 0);
         corr = { from: cf, to: ct, fitter, point, window: cwin, repD: mk(), repOmega: mk(), repA: mk(), repB: mk(), repRel: mk() };
       } else {
-        notes.push(`${name}: corrections fit needs at least 6 sizes in its window, found ${ct - cf}`);
+        const why = `series too short for a corrections fit: its window holds ${ct - cf} size(s) over ${decades.toFixed(2)} decade(s) of N; it needs at least ${CORRECTIONS_MIN_SIZES} sizes over ${CORRECTIONS_MIN_DECADES} decades`;
+        refusedCorrections.set(name, { why, window: cwin });
+        notes.push(`${name}: ${why}`);
       }
     }
     const needMean = bootstrapOn && (local.length > 0 || corr !== null);
@@ -467,7 +475,8 @@ export function analyzeEnsemble(runs: readonly GrowthResult[], options: Analysis
   }
   if (doCorrections) {
     for (const n of ['radiusOfGyration', 'maxRadius'] as const) {
-      if (!corrections[n]) corrections[n] = unavailableCorrections(n, summaries[n].available ? 'too few sizes in the corrections window' : summaries[n].reason ?? 'unavailable', level);
+      const refused = refusedCorrections.get(n);
+      if (!corrections[n]) corrections[n] = unavailableCorrections(n, refused?.why ?? (summaries[n].available ? 'no corrections fit' : summaries[n].reason ?? 'unavailable'), level, refused?.window ?? null);
     }
   }
 
@@ -475,7 +484,7 @@ export function analyzeEnsemble(runs: readonly GrowthResult[], options: Analysis
   const panelEstimates = setups.map((e) => ({ name: e.name as string, D: summaries[e.name].D, interval: summaries[e.name].interval }));
   for (const n of ['radiusOfGyration', 'maxRadius'] as const) {
     const c = corrections[n];
-    if (c && c.available) panelEstimates.push({ name: `${n}Corrected`, D: c.D.value, interval: c.D.interval });
+    if (c && c.determined) panelEstimates.push({ name: `${n}Corrected`, D: c.D.value, interval: c.D.interval });
   }
   const pairs: { a: string; b: string; difference: number | null; interval: IntervalSummary }[] = [];
   for (let i = 0; i < setups.length; i++) {
@@ -497,7 +506,7 @@ export function analyzeEnsemble(runs: readonly GrowthResult[], options: Analysis
       pairs.push({ a: ea.name, b: eb.name, difference: diff, interval: iv });
     }
   }
-  const consistency = buildConsistencyPanel(data.modelKind, reference, embeddingDimension, panelEstimates, pairs);
+  const consistency = buildConsistencyPanel(data.modelKind, reference, embeddingDimension, panelEstimates, pairs, data.finalSize);
 
   return {
     schema: 'tendril.ensemble-statistics/1',
@@ -525,13 +534,51 @@ export function analyzeEnsemble(runs: readonly GrowthResult[], options: Analysis
   };
 }
 
-function unavailableCorrections(name: 'radiusOfGyration' | 'maxRadius', reason: string, level: number): CorrectionsSummary {
+function unavailableCorrections(name: 'radiusOfGyration' | 'maxRadius', reason: string, level: number, window: CorrectionsSummary['window'] = null): CorrectionsSummary {
   const none = (): ValueWithInterval => ({ value: null, interval: unavailableInterval(level, 'unavailable', reason) });
   return {
-    estimator: name, available: false, reason, method: CORRECTIONS_METHOD, window: null,
-    D: none(), omega: none(), omegaStatus: 'undetermined', omegaReason: reason, amplitude: none(), correctionAmplitude: none(), relativeCorrection: none(),
+    estimator: name, available: false, determined: false, reason, method: CORRECTIONS_METHOD, window,
+    D: none(), omega: none(), amplitude: none(), correctionAmplitude: none(), relativeCorrection: none(),
     rss: null, rssPowerLaw: null, points: 0,
   };
+}
+
+/** Fewest sizes, and fewest decades of N, in the window of a corrections fit: below that the series is refused. */
+export const CORRECTIONS_MIN_SIZES = 8;
+export const CORRECTIONS_MIN_DECADES = 2;
+
+/**
+ * When a corrections fit gives a headline D (common practice for nonlinear
+ * least squares, no single source; the rules are ours and stated in the output).
+ */
+export const CORRECTIONS_DETERMINED_RULES: readonly string[] = [
+  `the window holds at least ${CORRECTIONS_MIN_SIZES} sizes over at least ${CORRECTIONS_MIN_DECADES} decades of N`,
+  'bootstrap intervals exist (enough clusters), so the rules below can be checked',
+  'the correction term is not zero within rounding',
+  'the best omega is not at an end of the search range',
+  'the profile of the residual sum of squares is not flat: at both ends of the omega range it exceeds its minimum by more than chi2_1(level) * RSS_min / (n - 4)',
+  "omega's bootstrap interval lies inside the search range (an interval reaching an end is unbounded)",
+  'the interval of the relative correction B N_min^-omega excludes 0 (a correction is resolved, so B and omega are identifiable)',
+];
+
+/** The first rule of CORRECTIONS_DETERMINED_RULES (after the window rule) that fails, as a reason; null if all hold. */
+function correctionsUndeterminedReason(p: CorrectionsFit, ivs: IntervalSummary[], noIntervals: string | null, omegaRange: [number, number], level: number): string | null {
+  if (noIntervals !== null) return `no bootstrap intervals (${noIntervals}), so whether omega is determined cannot be checked`;
+  if (p.correctionNegligible) return 'the correction term is zero within rounding (a pure power law): omega is not determined by the data';
+  if (p.omegaAtBound) return `the best omega lies at an end of the search range [${omegaRange[0]}, ${omegaRange[1]}]`;
+  const z = normalQuantile(0.5 + level / 2);
+  const rise = z * z * p.rss / Math.max(1, p.points - 4);
+  const flatEnd = p.rssAtOmegaMin - p.rss <= rise ? omegaRange[0] : p.rssAtOmegaMax - p.rss <= rise ? omegaRange[1] : null;
+  if (flatEnd !== null) return `the residual sum of squares is flat in omega up to the end ${flatEnd} of the search range: omega's interval is unbounded`;
+  const om = ivs[1].bca ?? ivs[1].percentile;
+  if (!om) return `omega has no bootstrap interval (${ivs[1].status})`;
+  if (om[0] <= omegaRange[0] * (1 + 1e-6) || om[1] >= omegaRange[1] * (1 - 1e-6)) {
+    return `omega's interval [${om[0].toPrecision(3)}, ${om[1].toPrecision(3)}] reaches an end of the search range [${omegaRange[0]}, ${omegaRange[1]}]: unbounded`;
+  }
+  const rel = ivs[4].bca ?? ivs[4].percentile;
+  if (!rel) return `the correction amplitude has no bootstrap interval (${ivs[4].status})`;
+  if (rel[0] <= 0 && rel[1] >= 0) return 'the interval of the correction amplitude contains 0: no correction resolved, so B and omega are not identifiable';
+  return null;
 }
 
 const CORRECTIONS_METHOD =
@@ -568,22 +615,15 @@ function summarizeCorrections(
   } else {
     for (let q = 0; q < names.length; q++) ivs.push(unavailableInterval(level, 'too-few-clusters', tooFew));
   }
-  let omegaReason: string | null = null;
-  if (p.correctionNegligible) omegaReason = 'the correction term is zero within rounding (pure power law): omega is not determined by the data';
-  else if (p.omegaAtBound) omegaReason = `the best omega lies at an end of the search range [${omegaRange[0]}, ${omegaRange[1]}]`;
-  else {
-    const rel = ivs[4].bca ?? ivs[4].percentile;
-    if (rel && rel[0] <= 0 && rel[1] >= 0) omegaReason = 'the interval of the correction amplitude contains 0: no correction resolved, omega undetermined';
-  }
-  const status = omegaReason ? 'undetermined' : 'resolved';
-  const vi = (q: number, hide = false): ValueWithInterval => ({
-    value: hide ? null : finiteOrNull(pointVals[q]),
-    interval: hide ? unavailableInterval(level, 'unavailable', omegaReason ?? 'undetermined') : ivs[q],
+  const reason = correctionsUndeterminedReason(p, ivs, bootstrapOn ? null : tooFew, omegaRange, level);
+  const determined = reason === null;
+  const vi = (q: number): ValueWithInterval => ({
+    value: determined ? finiteOrNull(pointVals[q]) : null,
+    interval: determined ? ivs[q] : unavailableInterval(level, 'unavailable', reason!),
   });
   return {
-    estimator: e.name as 'radiusOfGyration' | 'maxRadius', available: true, reason: null, method: CORRECTIONS_METHOD, window: c.window,
-    D: vi(0), omega: vi(1, status === 'undetermined'), omegaStatus: status, omegaReason,
-    amplitude: vi(2), correctionAmplitude: vi(3), relativeCorrection: vi(4),
+    estimator: e.name as 'radiusOfGyration' | 'maxRadius', available: true, determined, reason, method: CORRECTIONS_METHOD, window: c.window,
+    D: vi(0), omega: vi(1), amplitude: vi(2), correctionAmplitude: vi(3), relativeCorrection: vi(4),
     rss: finiteOrNull(p.rss), rssPowerLaw: finiteOrNull(p.rssPowerLaw), points: p.points,
   };
 }

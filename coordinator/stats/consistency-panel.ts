@@ -12,7 +12,13 @@
  *    'marginal' if the interval contains the bound; without an interval the
  *    point estimate decides (satisfied / violated);
  *  - the published value is displayed with the difference to each estimate
- *    and whether it falls inside our interval. It is not a fit input.
+ *    and whether it falls inside our interval (the interval used, BCa else
+ *    percentile; the published uncertainty is not added). It is not a fit input;
+ *  - two individual intervals overlap when they share a point (shown for
+ *    information only: the pair verdict uses the paired difference);
+ *  - when the clusters are smaller than the model's known finite-size range
+ *    and some estimate disagrees (a pair, or the published value outside an
+ *    interval), the model's finite-size note says why that is expected.
  */
 
 import type { IntervalSummary } from './bca.js';
@@ -65,6 +71,8 @@ export interface ConsistencyPanel {
   pairs: PanelPair[];
   bounds: PanelBound[];
   rules: string[];
+  /** Why estimates disagree on clusters this small (the model's finite-size note), or null when not applicable. */
+  finiteSizeNote: string | null;
 }
 
 export function chosenInterval(iv: IntervalSummary): { range: [number, number] | null; kind: 'bca' | 'percentile' | null } {
@@ -93,6 +101,7 @@ export function buildConsistencyPanel(
   embeddingDimension: number | null,
   estimates: PanelEstimate[],
   pairs: { a: string; b: string; difference: number | null; interval: IntervalSummary }[],
+  finalSize: number | null = null,
 ): ConsistencyPanel {
   const ref = reference?.dimension ?? null;
   const rows: PanelRow[] = estimates.map((e) => {
@@ -123,13 +132,21 @@ export function buildConsistencyPanel(
     for (const r of rows) status[r.name] = boundStatus(b.side, b.value, r.D, r.interval);
     bounds.push({ rule: b.rule, source: b.source, side: b.side, value: b.value, status });
   }
+  const disagreement = panelPairs.some((p) => p.agree === false) || rows.some((r) => r.referenceInsideInterval === false);
+  const fs = reference?.finiteSize ?? null;
+  const finiteSizeNote = fs && finalSize !== null && finalSize < fs.belowSize && disagreement
+    ? `These clusters have N = ${finalSize} particles, below about ${fs.belowSize}: ${fs.note}`
+    : null;
   return {
     modelKind,
+    finiteSizeNote,
     reference: ref ? { D: ref.value, uncertainty: ref.uncertainty, source: ref.source, note: 'shown for comparison only; never used as a fit input' } : null,
     rows, pairs: panelPairs, bounds,
     rules: [
       'pair agrees: the interval (BCa, else percentile) of the paired bootstrap difference D_a - D_b contains 0',
       'bound: satisfied if the whole interval is on the allowed side, violated if wholly on the wrong side, marginal otherwise',
+      'published value inside our interval: yes when the published D lies within the interval used (BCa, else percentile), its own uncertainty not added; the published value is never a fit input',
+      'individual intervals overlap: yes when the two intervals share a point (information only; the pair verdict is the paired-difference rule)',
     ],
   };
 }

@@ -18,11 +18,13 @@ export interface ModelReference {
   bounds: DimensionBound[];
   /** Values shown for context only, never checked. */
   context: ContextValue[];
+  /** Below this size the estimators are not expected to agree (and why), or null. */
+  finiteSize: { belowSize: number; note: string } | null;
 }
 
 /** The reference entry for a model kind, or null for an unknown kind. */
 export function referenceFor(modelKind: string | null | undefined): ModelReference | null {
   if (!isModelKind(modelKind)) return null;
   const d = modelDescriptor(modelKind);
-  return { modelKind, embeddingDimension: d.dimension, dimension: d.reference.dimension, bounds: [...d.reference.bounds], context: [...d.reference.context] };
+  return { modelKind, embeddingDimension: d.dimension, dimension: d.reference.dimension, bounds: [...d.reference.bounds], context: [...d.reference.context], finiteSize: d.reference.finiteSize ?? null };
 }

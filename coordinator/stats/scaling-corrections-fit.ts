@@ -46,6 +46,9 @@ export interface CorrectionsFit {
   omegaAtBound: boolean;
   /** True if the correction is zero within rounding (omega then meaningless). */
   correctionNegligible: boolean;
+  /** Profile RSS at the lower and upper end of the omega search range (for the flat-profile check). */
+  rssAtOmegaMin: number;
+  rssAtOmegaMax: number;
   points: number;
 }
 
@@ -210,7 +213,8 @@ export class CorrectionsFitter {
     const B = b * Math.exp(omega * this.xMin);
     return {
       inverseDimension: s, dimension: 1 / s, amplitude: Math.exp(lnA), correctionAmplitude: B, relativeCorrection: b,
-      omega, rss: bestRss, rssPowerLaw: rss0, omegaAtBound: atBound, correctionNegligible: negligible, points: n,
+      omega, rss: bestRss, rssPowerLaw: rss0, omegaAtBound: atBound, correctionNegligible: negligible,
+      rssAtOmegaMin: fk[0], rssAtOmegaMax: fk[ks.length - 1], points: n,
     };
   }
 }

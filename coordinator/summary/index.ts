@@ -15,6 +15,7 @@
  * `statistics_json` of the protobuf summary. A summary of an unfinished
  * ensemble is marked partial and analyses the runs stored so far.
  */
+import { CSV_TABLE_NAMES, type CsvTableName, type SummaryFormat } from './formats.js';
 import { fitLine } from '../stats/log-log-fit.js';
 import {
   encodeEnsembleSummary,
@@ -324,9 +325,9 @@ export function estimatorsToCsv(s: EnsembleSummaryData): string {
       const iv = c.D.interval;
       lines.push(
         [
-          `${c.estimator}Corrected`, `${c.estimator === 'radiusOfGyration' ? 'R_g' : 'R_max'}(N) with corrections to scaling`, c.available, opt(c.D.value),
+          `${c.estimator}Corrected`, `${c.estimator === 'radiusOfGyration' ? 'R_g' : 'R_max'}(N) with corrections to scaling`, c.determined, opt(c.D.value),
           opt(iv.percentile?.[0]), opt(iv.percentile?.[1]), opt(iv.bca?.[0]), opt(iv.bca?.[1]), iv.level, iv.status,
-          'N', opt(c.window?.from), opt(c.window?.to), '', '', c.points, c.window?.source ?? '', a.clusters, s.partial, csvText(c.reason ?? c.omegaReason ?? ''),
+          'N', opt(c.window?.from), opt(c.window?.to), '', '', c.points, c.window?.source ?? '', a.clusters, s.partial, csvText(c.reason ?? ''),
         ].join(','),
       );
     }
@@ -380,7 +381,7 @@ export function harmonicToCsv(s: EnsembleSummaryData): string {
 }
 
 /** Every CSV table of a summary, by file name; each is one plain table with a header row. */
-export const CSV_TABLES: Record<string, (s: EnsembleSummaryData) => string> = {
+export const CSV_TABLES: Record<CsvTableName, (s: EnsembleSummaryData) => string> = {
   series: summaryToCsv,
   runs: runsToCsv,
   'mass-radius': massRadiusToCsv,
@@ -389,20 +390,18 @@ export const CSV_TABLES: Record<string, (s: EnsembleSummaryData) => string> = {
   batches: batchesToCsv,
   harmonic: harmonicToCsv,
 };
-export const CSV_TABLE_NAMES = Object.keys(CSV_TABLES);
+export { CSV_TABLE_NAMES, SUMMARY_FORMATS, type CsvTableName, type SummaryFormat } from './formats.js';
 
 export function summaryToProtobuf(s: EnsembleSummaryData): Uint8Array {
   return encodeEnsembleSummary(s);
 }
 
-export type SummaryFormat = 'json' | 'csv' | 'pb';
-export const SUMMARY_FORMATS: SummaryFormat[] = ['json', 'csv', 'pb'];
 
 /** One download: JSON, protobuf, or one CSV table (default the per-run series). */
 export function renderSummary(s: EnsembleSummaryData, format: SummaryFormat, table = 'series'): Uint8Array {
   if (format === 'pb') return summaryToProtobuf(s);
   if (format === 'json') return Buffer.from(summaryToJson(s), 'utf8');
-  const t = CSV_TABLES[table];
+  const t = (CSV_TABLES as Record<string, ((s: EnsembleSummaryData) => string) | undefined>)[table];
   if (!t) throw new RangeError(`table: "${table}" is not allowed; allowed: ${CSV_TABLE_NAMES.join(', ')}`);
   return Buffer.from(t(s), 'utf8');
 }

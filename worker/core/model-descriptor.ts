@@ -57,6 +57,12 @@ export interface ModelReference {
   dimension: PublishedValue | null;
   bounds: DimensionBound[];
   context: ContextValue[];
+  /**
+   * Known finite-size behaviour: below `belowSize` particles the estimators of D
+   * are not expected to agree with each other or with the published asymptotic
+   * value; `note` says why (printed under the consistency panel when they disagree).
+   */
+  finiteSize?: { belowSize: number; note: string };
 }
 
 /**

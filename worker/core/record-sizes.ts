@@ -4,6 +4,12 @@
  */
 
 /**
+ * Records per decade of size: the one source of the allowed range and the
+ * default, for specs and for `tendril grow` alike.
+ */
+export const RECORDS_PER_DECADE = { min: 10, max: 100, default: 10 } as const;
+
+/**
  * Sizes round(10^(j/perDecade)) for j = perDecade, perDecade + 1, ... (that
  * is from N = 10), without repeats, below `final`, followed by `final`.
  */

@@ -156,6 +156,8 @@ export class RunWorker {
     for (const run of tasks) {
       if (await sink.isCancelled(ensembleId)) return { done, skipped, cancelled: true };
       if (await sink.hasResult(ensembleId, run.runIndex)) {
+        // a retry after its result was stored: make sure no running mark of it is left behind
+        await sink.runReleased(ensembleId, run.runIndex);
         skipped++;
         continue;
       }
@@ -164,6 +166,10 @@ export class RunWorker {
         throw new WaitingError();
       }
       const outcome = await this.growOne(run);
+      if (outcome === 'skipped') {
+        skipped++;
+        continue;
+      }
       if (outcome === 'released') {
         await job.moveToWait(token);
         throw new WaitingError();

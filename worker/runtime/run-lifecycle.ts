@@ -16,7 +16,7 @@
  * other failure throws an Error with the thread's one-line reason.
  */
 import type { RunResultData, RunTaskData } from '../../proto/convert.js';
-import { messageOf } from '../../proto/errors.js';
+import { firstLine, messageOf } from '../../proto/errors.js';
 import { checkpointKey } from './job-contract.js';
 import { TaskRejected } from './task-runner.js';
 import type { TaskThreadPool, ThreadRun } from './task-thread.js';
@@ -25,7 +25,8 @@ export interface RunSink {
   exists(ensembleId: string): Promise<boolean>;
   isCancelled(ensembleId: string): Promise<boolean>;
   hasResult(ensembleId: string, runIndex: number): Promise<boolean>;
-  runStarted(ensembleId: string, runIndex: number, workerId: string): Promise<void>;
+  /** Mark the run running; false when its result is already stored (then it is not grown). */
+  runStarted(ensembleId: string, runIndex: number, workerId: string): Promise<boolean>;
   /** The run was handed back (shutdown or cancel) without a result. */
   runReleased(ensembleId: string, runIndex: number): Promise<void>;
   progress(ensembleId: string, runIndex: number, count: number, delta: number): Promise<void>;
@@ -42,7 +43,26 @@ export interface CheckpointStore {
   delete(key: string): Promise<void>;
 }
 
+/** One event in the life of a run on this worker (for structured logs: one line each). */
+export interface RunEvent {
+  event: 'run started' | 'run checkpointed' | 'run finished' | 'run handed back' | 'run cancelled' | 'run failed';
+  ensembleId: string;
+  runIndex: number;
+  /** Particles of the run at the event (for 'run started': 0, or null when it resumes from a checkpoint). */
+  particles: number | null;
+  /** 'run started': whether it resumes from a checkpoint. */
+  resumed?: boolean;
+  /** 'run finished': state hash, whether it was counted (false: stored before by another worker), wall seconds. */
+  stateHash?: string;
+  counted?: boolean;
+  seconds?: number;
+  /** 'run failed': why. */
+  reason?: string;
+}
+
 export interface ProcessorEvents {
+  /** Each start, checkpoint, finish, hand-back, cancel and failure of a run. */
+  onRunEvent?: (e: RunEvent) => void;
   /** Particles grown and counter increments (by the names of the model's descriptor) since the last call, for metrics. */
   onGrowth?: (model: string, particles: number, counters: Record<string, number>) => void;
   onRunDone?: (result: RunResultData, counted: boolean) => void;
@@ -65,16 +85,20 @@ export interface RunLifecycleOptions {
   onEnd?: (handle: ThreadRun) => void;
 }
 
-/** 'done': result stored; 'released': stopped with its checkpoint kept; 'cancelled': its ensemble was cancelled. */
-export type RunOutcome = 'done' | 'released' | 'cancelled';
+/** 'done': result stored; 'released': stopped with its checkpoint kept; 'cancelled': its ensemble was cancelled; 'skipped': its result was already stored (not grown again). */
+export type RunOutcome = 'done' | 'released' | 'cancelled' | 'skipped';
 
 /** Run one task through its whole life (see the file header). */
 export async function runOne(run: RunTaskData, o: RunLifecycleOptions): Promise<RunOutcome> {
   const { sink, checkpoints } = o;
   const ev = o.events ?? {};
   const key = checkpointKey(run.ensembleId, run.runIndex);
+  // atomic with the result check: a run another worker has just finished is not marked running nor grown again
+  if (!(await sink.runStarted(run.ensembleId, run.runIndex, o.workerId))) return 'skipped';
   const checkpoint = (await checkpoints.get(key)) ?? undefined;
-  await sink.runStarted(run.ensembleId, run.runIndex, o.workerId);
+  const event = (e: Omit<RunEvent, 'ensembleId' | 'runIndex'>) => ev.onRunEvent?.({ ensembleId: run.ensembleId, runIndex: run.runIndex, ...e });
+  const t0 = Date.now();
+  event({ event: 'run started', particles: checkpoint ? null : 0, resumed: checkpoint !== undefined });
   ev.onRunStarted?.();
   let lastCount = -1;
   let lastCounters: Record<string, number> = {};
@@ -95,7 +119,11 @@ export async function runOne(run: RunTaskData, o: RunLifecycleOptions): Promise<
       lastCounters = p.counters;
     },
     onCheckpoint: (bytes) => {
-      writes = writes.then(() => checkpoints.put(key, bytes)).catch((err) => ev.log?.(`checkpoint of run ${run.runIndex} not stored: ${messageOf(err)}`));
+      const at = lastCount >= 0 ? lastCount : null;
+      writes = writes
+        .then(() => checkpoints.put(key, bytes))
+        .then(() => event({ event: 'run checkpointed', particles: at }))
+        .catch((err) => ev.log?.(`checkpoint of run ${run.runIndex} not stored: ${messageOf(err)}`));
     },
   });
   o.onStart?.(handle);
@@ -128,18 +156,22 @@ export async function runOne(run: RunTaskData, o: RunLifecycleOptions): Promise<
       const counted = await sink.saveResult(outcome.result, outcome.resultBytes);
       await checkpoints.delete(key);
       ev.onRunDone?.(outcome.result, counted);
+      event({ event: 'run finished', particles: outcome.result.particles, stateHash: outcome.result.stateHash, counted, seconds: (Date.now() - t0) / 1000 });
       return 'done';
     }
     if (outcome.status === 'stopped') {
       if (cancelled) {
         await checkpoints.delete(key);
         await sink.runReleased(run.ensembleId, run.runIndex);
+        event({ event: 'run cancelled', particles: lastCount >= 0 ? lastCount : null });
         return 'cancelled';
       }
       await checkpoints.put(key, outcome.checkpoint);
       await sink.runReleased(run.ensembleId, run.runIndex);
+      event({ event: 'run handed back', particles: lastCount >= 0 ? lastCount : null });
       return 'released';
     }
+    event({ event: 'run failed', particles: lastCount >= 0 ? lastCount : null, reason: firstLine(outcome.message) });
     if (outcome.rejected) {
       await sink.runFailed(run.ensembleId, run.runIndex, outcome.message);
       throw new TaskRejected(outcome.message);

@@ -1,0 +1,36 @@
+import { PNG } from 'pngjs';
+import { describe, expect, it } from 'vitest';
+import { renderMeasurePng } from '../coordinator/harmonic/measure-picture.js';
+import { buildPalette, PALETTE_SIZE } from '../coordinator/render/palette.js';
+
+// The harmonic-measure picture colours hit disks by the quantile of their
+// share (quantiles of log ω), so a measure spanning many decades still uses
+// the whole colour map: the median disk gets the middle colour, whatever the
+// largest share is (exact, by construction of the mapping).
+
+describe('harmonic-measure picture colours', () => {
+  it('maps the median share to the middle of the colour map, even beside one huge share', () => {
+    const n = 52, size = 512, r = 4;
+    const x = Float64Array.from({ length: n }, (_, i) => 10 * i);
+    const y = new Float64Array(n);
+    // 50 disks with 1..50 hits, one with 10^9 hits, one never hit
+    const counts = Float64Array.from({ length: n }, (_, i) => (i < 50 ? i + 1 : i === 50 ? 1e9 : 0));
+    const png = PNG.sync.read(renderMeasurePng(n, x, y, r, counts, size));
+    const extent = 10 * (n - 1) + 2 * r;
+    const scale = (size * 0.94) / extent;
+    const pixel = (i: number) => {
+      const px = Math.floor(size / 2 + scale * (x[i] - 0.5 * 10 * (n - 1))), py = Math.floor(size / 2);
+      const o = 4 * (py * size + px);
+      return [png.data[o], png.data[o + 1], png.data[o + 2]];
+    };
+    const lut = buildPalette(PALETTE_SIZE, 0, 1);
+    const colour = (q: number) => { const c = 3 * Math.floor(q * (PALETTE_SIZE - 1) + 0.5); return [lut[c], lut[c + 1], lut[c + 2]]; };
+    // 51 hit disks: the one with 26 hits has mid-rank 25 of 0..50, quantile 0.5
+    expect(pixel(25)).toEqual(colour(0.5));
+    expect(pixel(0)).toEqual(colour(0));
+    expect(pixel(50)).toEqual(colour(1));
+    expect(pixel(51)).toEqual([60, 60, 66]); // never hit: dark grey
+    // the 50 ordinary disks use most of the map (a log-linear scale squeezed them into its bottom fifth)
+    expect(new Set(Array.from({ length: 50 }, (_, i) => pixel(i).join(','))).size).toBeGreaterThan(40);
+  });
+});
