@@ -9,7 +9,7 @@
  */
 import { Ajv, type ErrorObject } from 'ajv';
 import { parse as parseToml } from 'smol-toml';
-import { checkModelParams, MODEL_KINDS, modelParams } from '../../worker/models/registry.js';
+import { checkModelForSize, MODEL_KINDS, modelParams } from '../../worker/models/registry.js';
 import type { ModelParams } from '../../worker/core/growth-kernel.js';
 import {
   DEFAULT_MAX_TOTAL_PARTICLES,
@@ -210,7 +210,7 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
   if (BigInt(seed) >= 1n << 64n) problems.push(`seed: "${seed}" is out of range; allowed: an integer from 0 to 18446744073709551615`);
   const model: ModelParams = modelParams(d.model, (d.params ?? {}) as Record<string, number>);
   try {
-    checkModelParams(model);
+    if (Number.isSafeInteger(d.particles)) checkModelForSize(model, d.particles);
   } catch (err) {
     problems.push((err as Error).message);
   }

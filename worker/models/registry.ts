@@ -68,6 +68,16 @@ export function checkModelParams(model: ModelParams): void {
   }
 }
 
+/**
+ * checkModelParams, then the model's own checks against the cluster size
+ * (e.g. a step floor set by the float spacing at the largest radius); for
+ * specs and the CLI, before any task exists.
+ */
+export function checkModelForSize(model: ModelParams, particles: number): void {
+  checkModelParams(model);
+  modelDescriptor(model.kind).check?.({ model, particles, ensembleSeed: '0', runIndex: 0, recordsPerDecade: RECORDS_PER_DECADE_RANGE.min });
+}
+
 /** Throws a RangeError naming the first bad field of a task (parameters, size, records, run index, model checks). */
 export function checkTask(task: GrowthTask): void {
   const d = modelDescriptor(task.model?.kind);

@@ -5,7 +5,8 @@
  * worker/runtime/task-runner.ts.
  *
  * Messages (all payloads are protobuf bytes of proto/tendril.proto):
- *   main -> thread  { type: 'run', id, task, checkpoint? }   start a run
+ *   main -> thread  { type: 'run', id, task, checkpoint?, stop }   start a run (stop: the shared
+ *                                                             flag of worker/core/stop-signal.ts)
  *                   { type: 'stop', id }                      checkpoint and stop
  *   thread -> main  { type: 'progress', id, count, particles, counters }
  *                   { type: 'checkpoint', id, bytes, count }  store it (no reply needed)
@@ -31,8 +32,9 @@ import {
   type RunTaskData,
 } from '../../proto/convert.js';
 import { runTask, type RunProgress } from './task-runner.js';
+import { createStopSignal, raiseStop, type StopSignal } from '../core/stop-signal.js';
 
-type ToThread = { type: 'run'; id: number; task: Uint8Array; checkpoint?: Uint8Array; workerId: string } | { type: 'stop'; id: number };
+type ToThread = { type: 'run'; id: number; task: Uint8Array; checkpoint?: Uint8Array; workerId: string; stop: StopSignal } | { type: 'stop'; id: number };
 type FromThread =
   | { type: 'progress'; id: number; count: number; particles: number; counters: Record<string, number> }
   | { type: 'checkpoint'; id: number; bytes: Uint8Array; count: number }
@@ -59,6 +61,7 @@ function threadMain(): void {
           checkpoint,
           workerId: m.workerId,
           shouldStop: () => stops.has(m.id),
+          stopSignal: m.stop,
           onProgress: (p: RunProgress) => {
             const t = Date.now();
             if (t - lastProgress < 250 && p.count < p.particles) return;
@@ -80,7 +83,7 @@ function threadMain(): void {
         }
       } catch (err) {
         const e = err as Error;
-        const rejected = e?.name === 'TaskRejected' || e?.name === 'ContractError';
+        const rejected = e?.name === 'TaskRejected' || e?.name === 'ContractError' || e?.name === 'WalkerStuck';
         port.postMessage({ type: 'failed', id: m.id, message: (e?.message ?? String(err)).split('\n')[0], rejected } satisfies FromThread);
       } finally {
         stops.delete(m.id);
@@ -139,6 +142,8 @@ export class TaskThreadPool {
     const id = this.nextId++;
     let stopRequested = false;
     let slotRef: ThreadSlot | undefined;
+    // raised by stop(): the kernel reads it inside its walker loop, so a stop lands within milliseconds however long a particle takes
+    const stopSignal = createStopSignal();
     const outcome = (async (): Promise<ThreadOutcome> => {
       const slot = await this.acquire();
       slotRef = slot;
@@ -186,6 +191,7 @@ export class TaskThreadPool {
           task: encodeRunTask(task),
           checkpoint: h.checkpoint instanceof Uint8Array ? h.checkpoint : h.checkpoint ? encodeCheckpoint(h.checkpoint) : undefined,
           workerId: h.workerId ?? 'embedded',
+          stop: stopSignal,
         };
         w.postMessage(msg);
         if (stopRequested) w.postMessage({ type: 'stop', id } satisfies ToThread);
@@ -195,6 +201,7 @@ export class TaskThreadPool {
       outcome,
       stop: () => {
         stopRequested = true;
+        raiseStop(stopSignal);
         slotRef?.worker.postMessage({ type: 'stop', id } satisfies ToThread);
       },
     };
