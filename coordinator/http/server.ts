@@ -12,6 +12,8 @@
  *                                    token required; 201 {id, status}
  *   GET  /probes/:id                 state, jobs done, and the harmonic measures once analysed
  *   GET  /probes/:id/hits            CSV index,x,y,r,hits,measure per disk (once analysed)
+ *   POST /probes/:id/cancel          cancel a probe request (also DELETE /probes/:id); token required:
+ *                                    its queued jobs are skipped and running ones stopped within seconds
  *   GET  /metrics                    Prometheus text format
  *   GET  /health
  *
@@ -146,7 +148,7 @@ export function buildApi(o: ApiOptions): FastifyInstance {
   app.post(
     '/ensembles',
     {
-      preHandler: requireToken,
+      onRequest: requireToken,
       schema: {
        
         body: SPEC_SCHEMA,
@@ -184,7 +186,7 @@ export function buildApi(o: ApiOptions): FastifyInstance {
 
   app.post<{ Params: { id: string } }>(
     '/ensembles/:id/cancel',
-    { preHandler: requireToken, schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA, 401: ERROR_SCHEMA } } },
+    { onRequest: requireToken, schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA, 401: ERROR_SCHEMA } } },
     async (req) => {
       checkId(req.params.id);
       if (!(await cancelEnsemble(o.store, o.queue, req.params.id))) throw new ApiError(404, `id: "${req.params.id}" is not an ensemble of this farm`);
@@ -230,7 +232,7 @@ export function buildApi(o: ApiOptions): FastifyInstance {
 
   app.post(
     '/probes',
-    { preHandler: requireToken, bodyLimit: probeLimit, schema: { response: { 201: { type: 'object', properties: { id: { type: 'string' }, status: { type: 'string' } } }, 400: ERROR_SCHEMA, 401: ERROR_SCHEMA } } },
+    { onRequest: requireToken, bodyLimit: probeLimit, schema: { response: { 201: { type: 'object', properties: { id: { type: 'string' }, status: { type: 'string' } } }, 400: ERROR_SCHEMA, 401: ERROR_SCHEMA } } },
     async (req, reply) => {
       let v;
       try {
@@ -245,6 +247,14 @@ export function buildApi(o: ApiOptions): FastifyInstance {
   );
 
   app.get<{ Params: { id: string } }>('/probes/:id', { schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA } } }, async (req) => probeStatus(req.params.id));
+
+  const cancelProbe = async (req: FastifyRequest<{ Params: { id: string } }>) => {
+    checkId(req.params.id);
+    if (!(await probeStore.cancel(req.params.id))) throw new ApiError(404, `id: "${req.params.id}" is not a probe request of this farm`);
+    return { id: req.params.id, cancelled: true };
+  };
+  app.post<{ Params: { id: string } }>('/probes/:id/cancel', { onRequest: requireToken, schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA, 401: ERROR_SCHEMA } } }, cancelProbe);
+  app.delete<{ Params: { id: string } }>('/probes/:id', { onRequest: requireToken, schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA, 401: ERROR_SCHEMA } } }, cancelProbe);
 
   app.get<{ Params: { id: string } }>('/probes/:id/hits', { schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA } } }, async (req, reply) => {
     const s = await probeStatus(req.params.id);

@@ -11,6 +11,7 @@ import { Ajv, type ErrorObject } from 'ajv';
 import { parse as parseToml } from 'smol-toml';
 import { checkModelForSize, MODEL_KINDS, modelParams } from '../../worker/models/registry.js';
 import type { ModelParams } from '../../worker/core/growth-kernel.js';
+import { probeMinStepFloor } from '../../worker/probe/probe-limits.js';
 import {
   DEFAULT_MAX_TOTAL_PARTICLES,
   MAX_RUNS_PER_JOB,
@@ -204,6 +205,9 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
     for (const [k, v] of (pr.at_sizes ?? []).entries()) {
       if (v >= d.particles) problems.push(`probe.at_sizes[${k}]: ${v} is out of range; allowed: an integer from 2 to particles - 1 (${d.particles - 1})`);
     }
+    // a cluster of N unit-diameter disks spans at most N contact radii from its middle
+    const stepFloor = probeMinStepFloor(d.particles + 1);
+    if (pr.min_step !== undefined && pr.min_step < stepFloor) problems.push(`probe.min_step: ${pr.min_step} is out of range; allowed: a number from ${stepFloor} to 1 for ${d.particles} particles (a smaller step is lost in the float spacing)`);
     if (pr.jobs !== undefined && pr.jobs > pr.walkers) problems.push(`probe.jobs: ${pr.jobs} is out of range; allowed: an integer from 1 to probe.walkers (${pr.walkers})`);
   }
   const seed = String(d.seed);

@@ -25,6 +25,11 @@ export class ProbeJobFailed extends Error {
   }
 }
 
+/** The job was stopped by its caller's signal. */
+export class ProbeJobCancelled extends Error {
+  override name = 'ProbeJobCancelled';
+}
+
 export class ProbeThreadPool {
   private readonly pool: ThreadSlots<Slot>;
   private nextId = 1;
@@ -51,9 +56,12 @@ export class ProbeThreadPool {
   /**
    * Run one probe job on the set named `key`; `load` is called only when the
    * chosen thread does not hold that set yet. Rejects with ProbeJobFailed
-   * (one-line reason) when the job is refused or the thread dies.
+   * (one-line reason) when the job is refused or the thread dies. When
+   * `signal` aborts, the thread is terminated at once (a probe job keeps no
+   * state worth saving) and the call rejects with ProbeJobCancelled.
    */
-  async run(key: string, load: () => DiskSet | Promise<DiskSet>, task: ProbeTask): Promise<ProbeResult> {
+  async run(key: string, load: () => DiskSet | Promise<DiskSet>, task: ProbeTask, signal?: AbortSignal): Promise<ProbeResult> {
+    if (signal?.aborted) throw new ProbeJobCancelled('probe job cancelled');
     const slot = await this.acquire(key);
     let set: DiskSet | undefined;
     try {
@@ -69,7 +77,13 @@ export class ProbeThreadPool {
         w.off('message', onMessage);
         w.off('error', onError);
         w.off('exit', onExit);
+        signal?.removeEventListener('abort', onAbort);
         this.release(slot, broken);
+      };
+      const onAbort = () => {
+        slot.key = null;
+        finish(true);
+        reject(new ProbeJobCancelled('probe job cancelled'));
       };
       const onMessage = (m: FromProbeThread) => {
         if (m.id !== id) return;
@@ -91,6 +105,7 @@ export class ProbeThreadPool {
       w.on('message', onMessage);
       w.once('error', onError);
       w.once('exit', onExit);
+      signal?.addEventListener('abort', onAbort, { once: true });
       if (set) slot.key = key;
       w.postMessage({ type: 'probe', id, key, set, task } satisfies ToProbeThread);
     });
