@@ -25,6 +25,7 @@ import { diskSetDigest, planProbeJobs, DEFAULT_PROBE_LAUNCH_MARGIN, DEFAULT_PROB
 import { JOB_PAYLOAD_VERSION, type ProbeJobData } from '../../worker/runtime/queue-processor.js';
 import { parseDiskCsv } from '../harmonic/probe-input.js';
 import { probeGeometryProblem } from '../../worker/probe/probe-limits.js';
+import { excerpt, fieldKey, nestingProblem } from '../spec/document-limits.js';
 import type { HarmonicMeasures } from '../harmonic/probe-analysis.js';
 import { DEFAULT_PROBE_Q, defaultProbeJobs } from '../spec/index.js';
 
@@ -56,14 +57,13 @@ export function validateProbeRequest(body: unknown): { settings: ProbeRequestSet
   const fail = (m: string): never => {
     throw new ProbeRequestError(m);
   };
-  const show = (v: unknown) => {
-    const s = JSON.stringify(v);
-    return s === undefined ? 'nothing' : s.length > 60 ? s.slice(0, 57) + '...' : s;
-  };
+  const show = (v: unknown) => excerpt(v, 60);
   if (typeof body !== 'object' || body === null || Array.isArray(body)) fail('body: not allowed; allowed: a JSON object with walkers, seed and csv or points');
+  const tooDeep = nestingProblem(body, 'body');
+  if (tooDeep !== null) fail(tooDeep);
   const b = body as Record<string, unknown>;
   const known = ['name', 'csv', 'points', 'walkers', 'seed', 'jobs', 'q', 'contact_sample', 'min_step'];
-  for (const k of Object.keys(b)) if (!known.includes(k)) fail(`${k}: unknown field; allowed fields: ${known.join(', ')}`);
+  for (const k in b) if (Object.prototype.hasOwnProperty.call(b, k) && !known.includes(k)) fail(`${fieldKey(k)}: unknown field; allowed fields: ${known.join(', ')}`);
   if (b.name !== undefined && (typeof b.name !== 'string' || !/^[A-Za-z0-9][A-Za-z0-9 _.,:()+-]{0,99}$/.test(b.name))) fail(`name: ${show(b.name)} is not allowed; allowed: 1 to 100 letters, digits, spaces or _.,:()+-`);
   if (!isInt(b.walkers, 100, 1e10)) fail(`walkers: ${show(b.walkers)} is out of range; allowed: an integer from 100 to 10000000000`);
   const walkers = b.walkers as number;

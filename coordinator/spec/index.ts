@@ -12,6 +12,7 @@ import { parse as parseToml } from 'smol-toml';
 import { checkModelForSize, MODEL_KINDS, modelParams } from '../../worker/models/registry.js';
 import type { ModelParams } from '../../worker/core/growth-kernel.js';
 import { probeMinStepFloor } from '../../worker/probe/probe-limits.js';
+import { excerpt, fieldKey, MAX_LISTED_PROBLEMS, nestingProblem } from './document-limits.js';
 import {
   DEFAULT_MAX_TOTAL_PARTICLES,
   MAX_RUNS_PER_JOB,
@@ -173,6 +174,8 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
   if (typeof doc !== 'object' || doc === null || Array.isArray(doc)) {
     throw new SpecError([`spec: ${describe(doc)} is not allowed; allowed: a table (object) of fields`]);
   }
+  const tooDeep = nestingProblem(doc, 'spec');
+  if (tooDeep !== null) throw new SpecError([tooDeep]);
   if (!validateDoc(doc)) throw new SpecError(problemsOf(validateDoc.errors ?? [], doc));
   const d = doc as Record<string, any>;
   const problems: string[] = [];
@@ -341,6 +344,10 @@ function problemsOf(errors: ErrorObject[], doc: unknown): string[] {
   // anyOf failures (the seed) produce one error per branch plus the anyOf itself; keep the anyOf one.
   const anyOfPaths = new Set(errors.filter((e) => e.keyword === 'anyOf').map((e) => e.instancePath));
   for (const e of errors) {
+    if (out.length >= MAX_LISTED_PROBLEMS) {
+      out.push(`and more problems (only the first ${MAX_LISTED_PROBLEMS} are listed)`);
+      break;
+    }
     if (e.keyword !== 'anyOf' && [...anyOfPaths].some((p) => e.schemaPath.includes('/anyOf/') && e.instancePath === p)) continue;
     const msg = messageOf(e, doc);
     if (!seen.has(msg)) {
@@ -357,7 +364,7 @@ function fieldOf(instancePath: string): string {
     .slice(1)
     .split('/')
     .map((s) => s.replace(/~1/g, '/').replace(/~0/g, '~'))
-    .map((s, i) => (/^\d+$/.test(s) ? `[${s}]` : i === 0 ? s : `.${s}`))
+    .map((s, i) => (/^\d+$/.test(s) ? `[${s}]` : i === 0 ? fieldKey(s) : `.${fieldKey(s)}`))
     .join('');
 }
 
@@ -407,12 +414,12 @@ function messageOf(e: ErrorObject, doc: unknown): string {
     case 'required': {
       const name = (e.params as { missingProperty: string }).missingProperty;
       const s = (schemaAt(e.schemaPath)?.properties as Record<string, unknown> | undefined)?.[name];
-      return `${e.instancePath === '' ? '' : field + '.'}${name}: missing; allowed: ${allowedOf(s)}`;
+      return `${e.instancePath === '' ? '' : field + '.'}${fieldKey(name)}: missing; allowed: ${allowedOf(s)}`;
     }
     case 'additionalProperties': {
       const name = (e.params as { additionalProperty: string }).additionalProperty;
       const parent = schemaAt(e.schemaPath);
-      return `${e.instancePath === '' ? '' : field + '.'}${name}: unknown field; allowed fields: ${Object.keys(parent?.properties ?? {}).join(', ')}`;
+      return `${e.instancePath === '' ? '' : field + '.'}${fieldKey(name)}: unknown field; allowed fields: ${Object.keys(parent?.properties ?? {}).join(', ')}`;
     }
     case 'minimum':
     case 'maximum':
@@ -429,10 +436,7 @@ function messageOf(e: ErrorObject, doc: unknown): string {
 }
 
 function describe(v: unknown): string {
-  if (v === undefined) return 'nothing';
-  const s = typeof v === 'bigint' ? v.toString() : JSON.stringify(v);
-  if (s === undefined) return String(v);
-  return s.length > 60 ? s.slice(0, 57) + '...' : s;
+  return excerpt(v, 60);
 }
 
 function oneLine(err: unknown): string {

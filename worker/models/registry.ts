@@ -59,7 +59,9 @@ export function checkModelParams(model: ModelParams): void {
   for (const name of Object.keys(params)) {
     if (!d.params.some((p) => p.name === name)) {
       const known = d.params.map((p) => p.name).join(', ');
-      throw new RangeError(`params.${name}: not a parameter of ${d.kind}; allowed: ${known || 'none'}`);
+      // a key name is printed escaped and bounded: no raw newlines or terminal escapes in messages
+      const shown = /^[A-Za-z0-9_]{1,64}$/.test(name) ? name : JSON.stringify(name.slice(0, 40)).replace(/[\u007f-\uffff]/g, (c) => `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`);
+      throw new RangeError(`params.${shown}: not a parameter of ${d.kind}; allowed: ${known || 'none'}`);
     }
   }
   for (const p of d.params) {
