@@ -32,9 +32,9 @@ import { cancelEnsemble, launchEnsemble } from '../farm/queue.js';
 import type { EnsembleStore } from '../farm/store.js';
 import { ENSEMBLE_ID_PATTERN } from '../plan.js';
 import { parseSpecText, SpecError, SPEC_SCHEMA, validateSpec, type SpecLimits } from '../spec/index.js';
-import { farmSummary } from '../farm/summary.js';
+import { SummaryCache } from './summary-cache.js';
 import { launchProbeRequest, ProbeRequestError, ProbeRequestStore, validateProbeRequest } from '../farm/probe-requests.js';
-import { CSV_TABLE_NAMES, defaultSummaryOptions, renderSummary, SUMMARY_FORMATS, type SummaryFormat, type SummaryOptions } from '../summary/index.js';
+import { CSV_TABLE_NAMES, renderSummary, SUMMARY_FORMATS, type SummaryFormat, type SummaryOptions } from '../summary/index.js';
 
 export interface ApiOptions {
   store: EnsembleStore;
@@ -47,7 +47,10 @@ export interface ApiOptions {
   bodyLimit?: number;
   /** Largest probe-request body in bytes (default 128 MiB: point sets are large). */
   probeBodyLimit?: number;
-  /** Summary options; default defaultSummaryOptions() (the full analysis, with the spec's [analysis] settings). */
+  /**
+   * Summary options; default defaultSummaryOptions() (the full analysis, with the spec's [analysis] settings),
+   * computed on a thread. Options given here are applied on the main thread.
+   */
   summary?: SummaryOptions;
   logger?: boolean;
 }
@@ -145,6 +148,10 @@ export function buildApi(o: ApiOptions): FastifyInstance {
 
   app.get('/health', async () => ({ ok: true }));
 
+  // summaries: once per ensemble state, computed on a thread (see summary-cache.ts)
+  const summaries = new SummaryCache(o.store, o.summary);
+  app.addHook('onClose', async () => summaries.close());
+
   app.post(
     '/ensembles',
     {
@@ -209,7 +216,7 @@ export function buildApi(o: ApiOptions): FastifyInstance {
       const table = req.query.table ?? 'series';
       if (!CSV_TABLE_NAMES.includes(table)) throw new ApiError(400, `table: ${JSON.stringify(table.slice(0, 40))} is not allowed; allowed: one of ${CSV_TABLE_NAMES.map((t) => JSON.stringify(t)).join(', ')}`);
       checkId(req.params.id);
-      const got = await farmSummary(o.store, req.params.id, o.summary ?? defaultSummaryOptions());
+      const got = await summaries.get(req.params.id);
       if (!got) throw new ApiError(404, `id: "${req.params.id}" is not an ensemble of this farm`);
       const type = format === 'pb' ? 'application/x-protobuf' : format === 'csv' ? 'text/csv; charset=utf-8' : 'application/json; charset=utf-8';
       const name = format === 'csv' ? `${got.record.id}-${table}.csv` : `${got.record.id}-summary.${format}`;

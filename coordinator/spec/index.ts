@@ -74,6 +74,16 @@ export function probeSizesOf(s: EnsembleSpec): number[] {
   return s.probe ? [...s.probe.atSizes, s.particles] : [];
 }
 
+/** Bootstrap resamples when the spec gives none (coordinator/stats/analyze-ensemble.ts). */
+export const DEFAULT_BOOTSTRAP_RESAMPLES = 2000;
+/**
+ * Ceiling on analysis.resamples × clusters above the default: one summary of
+ * 10^6 resamples over 40 clusters (4·10^7) took 354 s in the audit of issue
+ * #11, and 10^5 resamples over 10 clusters of 300 particles (10^6) about
+ * 90 s on a busy shared machine; 2·10^6 keeps one summary within minutes.
+ */
+export const MAX_BOOTSTRAP_DRAWS = 2_000_000;
+
 /** Default fewest clusters before an adaptive target may count as reached (a bootstrap interval of fewer is too noisy to trust). */
 export const DEFAULT_TARGET_MIN_CLUSTERS = 20;
 /** Default smallest batch of an adaptive ensemble. */
@@ -193,6 +203,11 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
     if (a[lo] !== undefined && a[hi] !== undefined && !(a[lo] < a[hi])) problems.push(`analysis.${lo}: ${a[lo]} is not allowed; allowed: a number below analysis.${hi} (${a[hi]})`);
   }
   const runsMax = t ? t.max_clusters : clusters;
+  // the bootstrap's work grows as resamples × clusters: the default is always allowed, more only up to the ceiling
+  if (a.resamples !== undefined && a.resamples > DEFAULT_BOOTSTRAP_RESAMPLES && a.resamples * runsMax > MAX_BOOTSTRAP_DRAWS) {
+    const most = Math.max(DEFAULT_BOOTSTRAP_RESAMPLES, Math.floor(MAX_BOOTSTRAP_DRAWS / runsMax));
+    problems.push(`analysis.resamples: ${a.resamples} is out of range for ${runsMax} clusters; allowed: an integer from 10 to ${most} (resamples × clusters at most ${MAX_BOOTSTRAP_DRAWS}, or the default ${DEFAULT_BOOTSTRAP_RESAMPLES})`);
+  }
   const total = d.particles * runsMax;
   if (total > limits.maxTotalParticles) {
     problems.push(
