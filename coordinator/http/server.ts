@@ -244,6 +244,9 @@ export function buildApi(o: ApiOptions): FastifyInstance {
       let v;
       try {
         v = validateProbeRequest(req.body);
+        if (v.settings.walkers > o.limits.maxTotalParticles) {
+          throw new ProbeRequestError(`walkers: ${v.settings.walkers} is above the total-work ceiling; allowed: at most ${o.limits.maxTotalParticles} (a walker counts as one particle; the operator may raise it with TENDRIL_MAX_TOTAL_PARTICLES)`);
+        }
       } catch (err) {
         if (err instanceof ProbeRequestError) throw new ApiError(400, err.message);
         throw err;

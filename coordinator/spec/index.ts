@@ -74,6 +74,9 @@ export function probeSizesOf(s: EnsembleSpec): number[] {
   return s.probe ? [...s.probe.atSizes, s.particles] : [];
 }
 
+/** Most probe jobs one ensemble may queue (probe.jobs × probe sizes × clusters): each is a queue entry. */
+export const MAX_PROBE_JOBS_PER_ENSEMBLE = 100_000;
+
 /** Bootstrap resamples when the spec gives none (coordinator/stats/analyze-ensemble.ts). */
 export const DEFAULT_BOOTSTRAP_RESAMPLES = 2000;
 /**
@@ -213,6 +216,21 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
     problems.push(
       `particles × ${t ? 'target.max_clusters' : 'clusters'}: ${d.particles} × ${runsMax} = ${total} is above the total-work ceiling; allowed: at most ${limits.maxTotalParticles} (the operator may raise it with TENDRIL_MAX_TOTAL_PARTICLES)`,
     );
+  }
+  const pw = d.probe as Record<string, any> | undefined;
+  if (pw && typeof pw.walkers === 'number') {
+    // probe walkers count in the total work (one walker costs about as much as one particle's walk), and queued probe jobs are bounded
+    const sizes = (Array.isArray(pw.at_sizes) ? pw.at_sizes.length : 0) + 1;
+    const walkersTotal = pw.walkers * sizes * runsMax;
+    if (total + walkersTotal > limits.maxTotalParticles) {
+      problems.push(
+        `probe.walkers: ${pw.walkers} × ${sizes} size${sizes > 1 ? 's' : ''} × ${runsMax} clusters = ${walkersTotal} walkers, plus ${total} particles, is above the total-work ceiling; allowed: at most ${limits.maxTotalParticles} walkers and particles together (the operator may raise it with TENDRIL_MAX_TOTAL_PARTICLES)`,
+      );
+    }
+    const jobsTotal = (pw.jobs ?? defaultProbeJobs(pw.walkers)) * sizes * runsMax;
+    if (jobsTotal > MAX_PROBE_JOBS_PER_ENSEMBLE) {
+      problems.push(`probe.jobs: ${pw.jobs ?? defaultProbeJobs(pw.walkers)} per size × ${sizes} size${sizes > 1 ? 's' : ''} × ${runsMax} clusters = ${jobsTotal} probe jobs; allowed: at most ${MAX_PROBE_JOBS_PER_ENSEMBLE} probe jobs per ensemble`);
+    }
   }
   const every = d.checkpoint_every_particles ?? 0;
   if (every > d.particles) {
