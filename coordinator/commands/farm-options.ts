@@ -34,9 +34,9 @@ export function farmSettings(o: FarmCliOptions): { url: string; prefix: string }
 }
 
 /** Connect to Redis (failing with one line after a few seconds if it does not answer). */
-export async function openFarm(o: FarmCliOptions): Promise<Farm> {
+export async function openFarm(o: FarmCliOptions, failFastMs?: number): Promise<Farm> {
   const { url, prefix } = farmSettings(o);
-  const redis = connectRedis(url, { lazy: true });
+  const redis = connectRedis(url, { lazy: true, failFast: failFastMs });
   redis.on('error', () => undefined);
   try {
     await Promise.race([

@@ -33,8 +33,19 @@ export const DEFAULT_PREFIX = 'tendril';
 const RATE_BUCKET_MS = 10_000;
 const RATE_WINDOW_MS = 60_000;
 
-export function connectRedis(url: string, opts: { lazy?: boolean } = {}): Redis {
-  return new Redis(url, { maxRetriesPerRequest: null, lazyConnect: opts.lazy ?? false, enableReadyCheck: true });
+/**
+ * A Redis connection. `failFast` (the HTTP API): commands fail at once while
+ * Redis is unreachable instead of waiting in the offline queue (where a
+ * request whose client gave up would still run once Redis is back), and any
+ * command fails after `failFast` ms.
+ */
+export function connectRedis(url: string, opts: { lazy?: boolean; failFast?: number } = {}): Redis {
+  return new Redis(url, {
+    maxRetriesPerRequest: null,
+    lazyConnect: opts.lazy ?? false,
+    enableReadyCheck: true,
+    ...(opts.failFast ? { enableOfflineQueue: false, commandTimeout: opts.failFast } : {}),
+  });
 }
 
 export interface EnsembleRecord {
@@ -120,6 +131,20 @@ export class EnsembleStore implements RunSink {
       .hset(this.k(id), fields)
       .zadd(`${this.prefix}:ensembles`, createdAtMs, id)
       .exec();
+  }
+
+  /** The stored spec document of an ensemble as JSON text (null when there is none), for comparing a repeated launch. */
+  async specText(id: string): Promise<string | null> {
+    return this.redis.hget(this.k(id), 'spec');
+  }
+
+  /** Mark an ensemble's jobs all queued (a launch interrupted before this is completed by its retry). */
+  async markLaunched(id: string): Promise<void> {
+    await this.redis.hset(this.k(id), 'launched', '1');
+  }
+
+  async launched(id: string): Promise<boolean> {
+    return (await this.redis.hexists(this.k(id), 'launched')) === 1;
   }
 
   async get(id: string): Promise<EnsembleRecord | null> {

@@ -15,7 +15,15 @@
  *   POST /probes/:id/cancel          cancel a probe request (also DELETE /probes/:id); token required:
  *                                    its queued jobs are skipped and running ones stopped within seconds
  *   GET  /metrics                    Prometheus text format
- *   GET  /health
+ *   GET  /health                     liveness: the process answers (never touches Redis)
+ *   GET  /ready                      readiness: 200 {ok, redis: "ok"} when Redis answers within 2 s, else 503
+ *
+ * POST /ensembles accepts an Idempotency-Key header (1 to 128 printable characters): repeating the
+ * request with the same key and spec returns the same ensemble (200) instead of creating another;
+ * the same key with another spec is a 422 (coordinator/farm/idempotent-launch.ts).
+ *
+ * While Redis is unreachable, routes that need it answer 503 at once (the connection of `tendril serve`
+ * fails fast: no offline queue, commands time out after 5 s).
  *
  * Errors: 4xx with {error: "<one line naming the field, value and what is allowed>"};
  * a bad spec also carries {problems: [...]}, one line per bad field.
@@ -33,6 +41,7 @@ import type { EnsembleStore } from '../farm/store.js';
 import { ENSEMBLE_ID_PATTERN } from '../plan.js';
 import { parseSpecText, SpecError, SPEC_SCHEMA, validateSpec, type SpecLimits } from '../spec/index.js';
 import { SummaryCache } from './summary-cache.js';
+import { IDEMPOTENCY_KEY_PATTERN, IdempotencyConflict, launchIdempotent } from '../farm/idempotent-launch.js';
 import { launchProbeRequest, ProbeRequestError, ProbeRequestStore, validateProbeRequest } from '../farm/probe-requests.js';
 import { CSV_TABLE_NAMES, renderSummary, SUMMARY_FORMATS, type SummaryFormat, type SummaryOptions } from '../summary/index.js';
 
@@ -111,6 +120,7 @@ export function buildApi(o: ApiOptions): FastifyInstance {
 
   app.setErrorHandler((err: Error & { statusCode?: number; code?: string }, _req, reply) => {
     if (err instanceof ApiError) return reply.code(err.status).send(err.problems ? { error: err.message, problems: err.problems } : { error: err.message });
+    if (isRedisUnavailable(err)) return reply.code(503).header('retry-after', '5').send({ error: `redis: unavailable (${err.message.split('\n')[0].slice(0, 120)}); allowed: retry once GET /ready answers 200` });
     const status = err.statusCode && err.statusCode >= 400 && err.statusCode < 500 ? err.statusCode : 500;
     let msg = err.message.split('\n')[0];
     if (err.code === 'FST_ERR_CTP_BODY_TOO_LARGE') msg = `body: larger than ${o.bodyLimit ?? 65536} bytes; allowed: at most ${o.bodyLimit ?? 65536} bytes`;
@@ -148,6 +158,24 @@ export function buildApi(o: ApiOptions): FastifyInstance {
 
   app.get('/health', async () => ({ ok: true }));
 
+  app.get('/ready', async (_req, reply) => {
+    let timer: NodeJS.Timeout | undefined;
+    try {
+      const pong = await Promise.race([
+        o.store.redis.ping(),
+        new Promise<never>((_, reject) => {
+          timer = setTimeout(() => reject(new Error('no answer within 2 s')), 2000);
+        }),
+      ]);
+      if (pong !== 'PONG') throw new Error(`unexpected answer ${JSON.stringify(String(pong).slice(0, 40))}`);
+      return { ok: true, redis: 'ok' };
+    } catch (err) {
+      return reply.code(503).send({ error: `redis: not ready (${(err as Error).message.split('\n')[0].slice(0, 120)})`, redis: 'unavailable' });
+    } finally {
+      clearTimeout(timer);
+    }
+  });
+
   // summaries: once per ensemble state, computed on a thread (see summary-cache.ts)
   const summaries = new SummaryCache(o.store, o.summary);
   app.addHook('onClose', async () => summaries.close());
@@ -159,17 +187,31 @@ export function buildApi(o: ApiOptions): FastifyInstance {
       schema: {
        
         body: SPEC_SCHEMA,
-        response: { 201: { type: 'object', properties: { id: { type: 'string' }, status: { type: 'string' } } }, 400: ERROR_SCHEMA, 401: ERROR_SCHEMA },
+        headers: { type: 'object', properties: { 'idempotency-key': { type: 'string', description: 'repeat-safe creation: the same key and spec give the same ensemble (200 on a repeat)' } } },
+        response: {
+          200: { type: 'object', properties: { id: { type: 'string' }, status: { type: 'string' } } },
+          201: { type: 'object', properties: { id: { type: 'string' }, status: { type: 'string' } } },
+          400: ERROR_SCHEMA, 401: ERROR_SCHEMA, 422: ERROR_SCHEMA, 503: ERROR_SCHEMA,
+        },
       },
     },
     async (req, reply) => {
       let doc: unknown = req.body;
       try {
         if (doc && typeof doc === 'object' && 'toml' in doc && typeof (doc as { toml: unknown }).toml === 'string') doc = parseSpecText((doc as { toml: string }).toml, 'toml');
+        const key = req.headers['idempotency-key'];
+        if (key !== undefined && (typeof key !== 'string' || !IDEMPOTENCY_KEY_PATTERN.test(key))) {
+          throw new ApiError(400, `idempotency-key: ${JSON.stringify(String(key).slice(0, 40))} is not allowed; allowed: 1 to 128 printable characters without spaces`);
+        }
         const spec = validateSpec(doc, o.limits);
+        if (typeof key === 'string') {
+          const got = await launchIdempotent(o.store, o.queue, spec, key);
+          return reply.code(got.created ? 201 : 200).send({ id: got.id, status: `/ensembles/${got.id}` });
+        }
         const id = await launchEnsemble(o.store, o.queue, spec);
         return reply.code(201).send({ id, status: `/ensembles/${id}` });
       } catch (err) {
+        if (err instanceof IdempotencyConflict) throw new ApiError(422, err.message);
         if (err instanceof SpecError) throw new ApiError(400, err.problems.length === 1 ? err.problems[0] : `spec has ${err.problems.length} problems`, err.problems);
         throw err;
       }
@@ -281,6 +323,15 @@ export function buildApi(o: ApiOptions): FastifyInstance {
   });
 
   return app;
+}
+
+/** Errors of a Redis that is down or too slow (ioredis and its fail-fast options), answered 503. */
+export function isRedisUnavailable(err: Error & { code?: string }): boolean {
+  return (
+    err.name === 'MaxRetriesPerRequestError' ||
+    /Stream isn't writeable|Command timed out|Connection is closed|enableOfflineQueue|ECONNREFUSED|ECONNRESET|EPIPE|ETIMEDOUT|LOADING Redis is loading/.test(err.message ?? '') ||
+    ['ECONNREFUSED', 'ECONNRESET', 'EPIPE', 'ETIMEDOUT'].includes(err.code ?? '')
+  );
 }
 
 /** True for addresses that only this machine can reach. */
