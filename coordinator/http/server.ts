@@ -113,7 +113,8 @@ function digest(s: string): Buffer {
 }
 
 export function buildApi(o: ApiOptions): FastifyInstance {
-  const app = Fastify({ logger: o.logger ?? false, bodyLimit: o.bodyLimit ?? 65536 });
+  // ids longer than find-my-way's default 100 characters reach checkId, which says what is allowed
+  const app = Fastify({ logger: o.logger ?? false, bodyLimit: o.bodyLimit ?? 65536, maxParamLength: 2048 });
   // Schemas document the routes; checking is done below, with our own messages.
   app.setValidatorCompiler(() => () => true);
   app.addContentTypeParser(['application/toml', 'text/toml'], { parseAs: 'string' }, (_req, body, done) => done(null, { toml: body as string }));
@@ -129,7 +130,10 @@ export function buildApi(o: ApiOptions): FastifyInstance {
     if (err.code === 'FST_ERR_CTP_INVALID_JSON_BODY' || err instanceof SyntaxError) msg = `body: not valid JSON (${msg})`;
     return reply.code(status).send({ error: status === 500 ? `internal error: ${msg}` : msg });
   });
-  app.setNotFoundHandler((req, reply) => reply.code(404).send({ error: `${req.method} ${req.url.split('?')[0]}: no such route` }));
+  app.setNotFoundHandler((req, reply) => {
+    const path = req.url.split('?')[0];
+    return reply.code(404).send({ error: `${req.method} ${path.length > 80 ? `${path.slice(0, 77)}...` : path}: no such route` });
+  });
 
   const expected = o.token ? digest(o.token) : undefined;
   const requireToken = async (req: FastifyRequest, reply: FastifyReply) => {
@@ -212,7 +216,7 @@ export function buildApi(o: ApiOptions): FastifyInstance {
         return reply.code(201).send({ id, status: `/ensembles/${id}` });
       } catch (err) {
         if (err instanceof IdempotencyConflict) throw new ApiError(422, err.message);
-        if (err instanceof SpecError) throw new ApiError(400, err.problems.length === 1 ? err.problems[0] : `spec has ${err.problems.length} problems`, err.problems);
+        if (err instanceof SpecError) throw new ApiError(400, err.problems.length === 1 ? err.problems[0] : `${err.problems[0]} (and ${err.problems.length - 1} more, listed in "problems")`, err.problems);
         throw err;
       }
     },

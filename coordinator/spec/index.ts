@@ -378,7 +378,7 @@ function problemsOf(errors: ErrorObject[], doc: unknown): string[] {
   const anyOfPaths = new Set(errors.filter((e) => e.keyword === 'anyOf').map((e) => e.instancePath));
   for (const e of errors) {
     if (out.length >= MAX_LISTED_PROBLEMS) {
-      out.push(`and more problems (only the first ${MAX_LISTED_PROBLEMS} are listed)`);
+      out.push(`spec: more problems than these ${MAX_LISTED_PROBLEMS}; allowed: fix these and submit again to see the rest`);
       break;
     }
     if (e.keyword !== 'anyOf' && [...anyOfPaths].some((p) => e.schemaPath.includes('/anyOf/') && e.instancePath === p)) continue;
