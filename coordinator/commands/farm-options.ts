@@ -37,7 +37,11 @@ export function farmSettings(o: FarmCliOptions): { url: string; prefix: string }
 export async function openFarm(o: FarmCliOptions, failFastMs?: number): Promise<Farm> {
   const { url, prefix } = farmSettings(o);
   const redis = connectRedis(url, { lazy: true, failFast: failFastMs });
-  redis.on('error', () => undefined);
+  // the connection's own error (a wrong password, an untrusted certificate) says more than "Connection is closed"
+  let lastError: Error | undefined;
+  redis.on('error', (err: Error) => {
+    lastError = err;
+  });
   try {
     await Promise.race([
       redis.connect(),
@@ -45,7 +49,8 @@ export async function openFarm(o: FarmCliOptions, failFastMs?: number): Promise<
     ]);
   } catch (err) {
     redis.disconnect();
-    throw new UsageError(`--redis: cannot reach ${url.replace(/\/\/[^@]*@/, '//***@')}: ${(err as Error).message.split('\n')[0]}`);
+    const reason = /Connection is closed/.test((err as Error).message) && lastError ? lastError.message : (err as Error).message;
+    throw new UsageError(`--redis: cannot reach ${url.replace(/\/\/[^@]*@/, '//***@')}: ${reason.split('\n')[0]}`);
   }
   const store = new EnsembleStore(redis, prefix);
   const queue = runQueue(redis, prefix);

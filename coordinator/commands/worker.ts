@@ -51,6 +51,8 @@ export function register(program: Command): void {
     // batch (coordinator/farm/adaptive.ts: an atomic Redis step, so a batch is never added twice)
     const store = farm.store;
     const artifacts = new DirectoryArtifactStore(opts.artifacts ?? process.env.TENDRIL_ARTIFACTS ?? 'tendril-artifacts');
+    // temporaries of processes killed mid-write (an hour old: no live writer holds them)
+    void artifacts.sweepTemporaries().then((n) => n > 0 && log(`removed ${n} orphaned temporary file(s) from the artifact folder`), () => undefined);
     const probes = new FarmProbeHandler(store, artifacts, concurrency, { onProbed: metrics.onProbed, log }, new ProbeRequestStore(farm.redis, farm.prefix));
     const sink: RunSink = {
       finalPositions: (run, bytes) => keepFinalAndQueueProbes(store, artifacts, farm.queue, run, bytes),

@@ -5,7 +5,7 @@
  * interface. Writes are atomic (temporary file + rename), so a reader never
  * sees half a checkpoint, even when a worker is killed mid-write.
  */
-import { mkdir, readFile, rename, rm, writeFile, readdir } from 'node:fs/promises';
+import { mkdir, readFile, rename, rm, writeFile, readdir, stat } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import { randomBytes } from 'node:crypto';
 
@@ -39,8 +39,47 @@ export class DirectoryArtifactStore implements ArtifactStore {
     const p = this.path(key);
     await mkdir(join(p, '..'), { recursive: true });
     const tmp = `${p}.${randomBytes(4).toString('hex')}.tmp`;
-    await writeFile(tmp, bytes);
-    await rename(tmp, p);
+    try {
+      await writeFile(tmp, bytes);
+      await rename(tmp, p);
+    } catch (err) {
+      await rm(tmp, { force: true });
+      throw err;
+    }
+  }
+
+  /**
+   * Remove temporaries (`*.tmp`) older than `olderThanMs` left by a process
+   * killed between writing and renaming; returns how many were removed.
+   * Workers call it when they start (a temporary that young may still be
+   * being written by another worker, so it is kept).
+   */
+  async sweepTemporaries(olderThanMs = 3_600_000, now = Date.now()): Promise<number> {
+    let removed = 0;
+    const walk = async (dir: string): Promise<void> => {
+      let entries;
+      try {
+        entries = await readdir(dir, { withFileTypes: true });
+      } catch {
+        return;
+      }
+      for (const e of entries) {
+        const p = join(dir, e.name);
+        if (e.isDirectory()) await walk(p);
+        else if (e.name.endsWith('.tmp')) {
+          try {
+            if (now - (await stat(p)).mtimeMs >= olderThanMs) {
+              await rm(p, { force: true });
+              removed++;
+            }
+          } catch {
+            // gone meanwhile
+          }
+        }
+      }
+    };
+    await walk(this.root);
+    return removed;
   }
 
   async get(key: string): Promise<Uint8Array | null> {

@@ -62,6 +62,9 @@ export function validateProbeRequest(body: unknown): { settings: ProbeRequestSet
   const tooDeep = nestingProblem(body, 'body');
   if (tooDeep !== null) fail(tooDeep);
   const b = body as Record<string, unknown>;
+  for (const k of ['name', 'csv', 'points', 'walkers', 'seed', 'jobs', 'q', 'contact_sample', 'min_step']) {
+    if (b[k] === null) fail(`${k}: null is not allowed; allowed: leave the field out to take its default`);
+  }
   const known = ['name', 'csv', 'points', 'walkers', 'seed', 'jobs', 'q', 'contact_sample', 'min_step'];
   for (const k in b) if (Object.prototype.hasOwnProperty.call(b, k) && !known.includes(k)) fail(`${fieldKey(k)}: unknown field; allowed fields: ${known.join(', ')}`);
   if (b.name !== undefined && (typeof b.name !== 'string' || !/^[A-Za-z0-9][A-Za-z0-9 _.,:()+-]{0,99}$/.test(b.name))) fail(`name: ${show(b.name)} is not allowed; allowed: 1 to 100 letters, digits, spaces or _.,:()+-`);

@@ -332,7 +332,8 @@ export class EnsembleStore implements RunSink {
       name: rec.name,
       state,
       createdAt: new Date(rec.createdAtMs).toISOString(),
-      runs: { planned, queued: Math.max(0, planned - doneN - runningN - failedN), running: runningN, done: doneN, failed: failedN },
+      // a cancelled ensemble's jobs are dropped: nothing is queued any more
+      runs: { planned, queued: state === 'cancelled' ? 0 : Math.max(0, planned - doneN - runningN - failedN), running: runningN, done: doneN, failed: failedN },
       particles: { done: particlesDone, total },
       throughput,
       etaSeconds: state !== 'running' ? (state === 'done' ? 0 : null) : throughput > 0 ? remaining / throughput : null,

@@ -64,6 +64,21 @@ export interface ApiOptions {
   logger?: boolean;
 }
 
+/** A "__proto__" key, or a "constructor" key holding "prototype", in a JSON body. */
+class PrototypeKey extends Error {}
+
+function refusePrototypeKeys(this: unknown, key: string, value: unknown): unknown {
+  if (key === '__proto__' || (key === 'constructor' && typeof value === 'object' && value !== null && Object.prototype.hasOwnProperty.call(value, 'prototype'))) {
+    throw new PrototypeKey('body: a "__proto__" or "constructor" key is not allowed; allowed: a JSON object of the documented fields');
+  }
+  return value;
+}
+
+/** A request body sent as TOML (content type application/toml or text/toml). */
+class TomlBody {
+  constructor(readonly text: string) {}
+}
+
 class ApiError extends Error {
   constructor(
     readonly status: number,
@@ -117,7 +132,23 @@ export function buildApi(o: ApiOptions): FastifyInstance {
   const app = Fastify({ logger: o.logger ?? false, bodyLimit: o.bodyLimit ?? 65536, maxParamLength: 2048 });
   // Schemas document the routes; checking is done below, with our own messages.
   app.setValidatorCompiler(() => () => true);
-  app.addContentTypeParser(['application/toml', 'text/toml'], { parseAs: 'string' }, (_req, body, done) => done(null, { toml: body as string }));
+  // JSON bodies: parsed natively; a "__proto__" key, or "constructor" holding "prototype", is refused by name
+  // (escaped keys too: the reviver sees decoded keys; it only runs when the text could hold such a key)
+  app.addContentTypeParser('application/json', { parseAs: 'string' }, (_req, body, done) => {
+    const text = body as string;
+    if (text.trim() === '') return done(Object.assign(new Error('body: empty; allowed: a JSON object'), { statusCode: 400 }), undefined);
+    try {
+      const suspicious = /\\u|proto|constructor/.test(text);
+      done(null, suspicious ? JSON.parse(text, refusePrototypeKeys) : JSON.parse(text));
+    } catch (err) {
+      if (err instanceof PrototypeKey) return done(Object.assign(new Error(err.message), { statusCode: 400 }), undefined);
+      const e = err as Error & { statusCode?: number };
+      e.statusCode = 400;
+      done(e, undefined);
+    }
+  });
+  // a TOML body arrives as a TomlBody (a JSON body {"toml": ...} is an ordinary, invalid, spec)
+  app.addContentTypeParser(['application/toml', 'text/toml'], { parseAs: 'string' }, (_req, body, done) => done(null, new TomlBody(body as string)));
 
   app.setErrorHandler((err: Error & { statusCode?: number; code?: string }, _req, reply) => {
     if (err instanceof ApiError) return reply.code(err.status).send(err.problems ? { error: err.message, problems: err.problems } : { error: err.message });
@@ -128,6 +159,7 @@ export function buildApi(o: ApiOptions): FastifyInstance {
     if (err.code === 'FST_ERR_CTP_INVALID_MEDIA_TYPE') msg = 'content-type: not supported; allowed: application/json or application/toml';
     if (err.code === 'FST_ERR_CTP_EMPTY_JSON_BODY') msg = 'body: empty; allowed: an ensemble spec';
     if (err.code === 'FST_ERR_CTP_INVALID_JSON_BODY' || err instanceof SyntaxError) msg = `body: not valid JSON (${msg})`;
+
     return reply.code(status).send({ error: status === 500 ? `internal error: ${msg}` : msg });
   });
   app.setNotFoundHandler((req, reply) => {
@@ -202,7 +234,7 @@ export function buildApi(o: ApiOptions): FastifyInstance {
     async (req, reply) => {
       let doc: unknown = req.body;
       try {
-        if (doc && typeof doc === 'object' && 'toml' in doc && typeof (doc as { toml: unknown }).toml === 'string') doc = parseSpecText((doc as { toml: string }).toml, 'toml');
+        if (doc instanceof TomlBody) doc = parseSpecText(doc.text, 'toml');
         const key = req.headers['idempotency-key'];
         if (key !== undefined && (typeof key !== 'string' || !IDEMPOTENCY_KEY_PATTERN.test(key))) {
           throw new ApiError(400, `idempotency-key: ${JSON.stringify(String(key).slice(0, 40))} is not allowed; allowed: 1 to 128 printable characters without spaces`);

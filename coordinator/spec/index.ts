@@ -201,7 +201,12 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
   if (t && d.clusters !== undefined && d.clusters > t.max_clusters) {
     problems.push(`clusters: ${d.clusters} is out of range; allowed: an integer from 1 to target.max_clusters (${t.max_clusters})`);
   }
+  if (t && t.min_clusters !== undefined && t.min_clusters > t.max_clusters) {
+    problems.push(`target.min_clusters: ${t.min_clusters} is out of range; allowed: an integer from 2 to target.max_clusters (${t.max_clusters})`);
+  }
   const a = (d.analysis ?? {}) as Record<string, any>;
+  // a fit window that misses the grown sizes would end in "no statistics" after all the work
+  if (a.fit_min_size !== undefined && a.fit_min_size >= d.particles) problems.push(`analysis.fit_min_size: ${a.fit_min_size} is out of range; allowed: a number from 1 to below particles (${d.particles})`);
   for (const [lo, hi] of [['fit_min_size', 'fit_max_size'], ['mass_radius_min_radius', 'mass_radius_max_radius']]) {
     if (a[lo] !== undefined && a[hi] !== undefined && !(a[lo] < a[hi])) problems.push(`analysis.${lo}: ${a[lo]} is not allowed; allowed: a number below analysis.${hi} (${a[hi]})`);
   }

@@ -43,7 +43,7 @@ export class ProbeThreadPool {
   private async acquire(key: string): Promise<Slot> {
     const slot = await this.pool.acquire(
       (free, canSpawn) => free.find((s) => s.key === key) ?? (canSpawn ? 'spawn' : free.length > 0 ? free.reduce((a, b) => (a.lastUsed <= b.lastUsed ? a : b)) : undefined),
-      () => ({ worker: new Worker(compiledWorkerEntry(import.meta.url, 'probe-thread')), busy: false, key: null, lastUsed: 0 }),
+      () => ({ worker: new Worker(compiledWorkerEntry(import.meta.url, 'probe-thread'), { workerData: { role: 'tendril-probe' } }), busy: false, key: null, lastUsed: 0 }),
     );
     slot.lastUsed = ++this.tick;
     return slot;

@@ -17,7 +17,7 @@
  * This one file is both the pool (imported on the main thread) and the
  * thread's entry point (when loaded as a Worker).
  */
-import { isMainThread, parentPort, Worker } from 'node:worker_threads';
+import { isMainThread, parentPort, Worker, workerData } from 'node:worker_threads';
 import { compiledWorkerEntry } from './thread-entry.js';
 import { ThreadSlots, type ThreadSlot } from './thread-slots.js';
 import {
@@ -92,7 +92,9 @@ function threadMain(): void {
   });
 }
 
-if (!isMainThread && parentPort) threadMain();
+/** workerData of task threads: a thread of any other kind (summary, probe) that imports this file stays what it is. */
+const TASK_THREAD_ROLE = 'tendril-task';
+if (!isMainThread && parentPort && (workerData as { role?: string } | null)?.role === TASK_THREAD_ROLE) threadMain();
 
 // ------------------------------------------------------------ main side
 
@@ -129,7 +131,7 @@ export class TaskThreadPool {
   private acquire(): Promise<ThreadSlot> {
     return this.pool.acquire(
       (free, canSpawn) => free[0] ?? (canSpawn ? 'spawn' : undefined),
-      () => ({ worker: new Worker(compiledWorkerEntry(import.meta.url, 'task-thread')), busy: false }),
+      () => ({ worker: new Worker(compiledWorkerEntry(import.meta.url, 'task-thread'), { workerData: { role: TASK_THREAD_ROLE } }), busy: false }),
     );
   }
 
