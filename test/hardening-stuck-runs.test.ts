@@ -112,4 +112,21 @@ describe('the stop signal is read inside the walk', () => {
       await pool.close();
     }
   }, 120_000);
+
+  it('runs stopped while waiting for a thread never start: no checkpoint, no resume counted', async () => {
+    const pool = new TaskThreadPool(1);
+    try {
+      const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 20000, clusters: 3, seed: 6 });
+      let firstProgress: () => void = () => undefined;
+      const progressed = new Promise<void>((r) => (firstProgress = r));
+      const handles = [0, 1, 2].map((i) => pool.run(runTaskFor('unstarted-e1', spec, i), { onProgress: i === 0 ? () => firstProgress() : undefined }));
+      await progressed;
+      for (const h of handles) h.stop();
+      const outcomes = await Promise.all(handles.map((h) => h.outcome));
+      expect(['stopped', 'done']).toContain(outcomes[0].status);
+      expect(outcomes.slice(1).map((o) => o.status)).toEqual(['unstarted', 'unstarted']);
+    } finally {
+      await pool.close();
+    }
+  }, 120_000);
 });

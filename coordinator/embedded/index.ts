@@ -206,6 +206,8 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
               await store.delete(key);
             }
             report();
+          } else if (outcome.status === 'unstarted') {
+            // never ran: nothing to keep
           } else if (outcome.status === 'stopped') {
             if (store) await store.put(key, outcome.checkpoint);
           } else {

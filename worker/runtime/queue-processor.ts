@@ -341,6 +341,10 @@ export class RunWorker {
         this.o.onRunDone?.(outcome.result, counted);
         return 'done';
       }
+      if (outcome.status === 'unstarted') {
+        await sink.runReleased(run.ensembleId, run.runIndex);
+        return cancelled ? 'cancelled' : 'released';
+      }
       if (outcome.status === 'stopped') {
         if (cancelled) {
           await checkpoints.delete(key);

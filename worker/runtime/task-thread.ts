@@ -110,6 +110,8 @@ export interface ThreadRunHandlers {
 export type ThreadOutcome =
   | { status: 'done'; result: RunResultData; resultBytes: Uint8Array; /** Final state (Checkpoint protobuf) when the task keeps positions. */ final?: Uint8Array }
   | { status: 'stopped'; checkpoint: Uint8Array }
+  /** Stopped before it got a thread: nothing ran and nothing changed (keep any earlier checkpoint as it is). */
+  | { status: 'unstarted' }
   | { status: 'failed'; message: string; rejected: boolean };
 
 /** A handle on a run in a thread. */
@@ -148,6 +150,11 @@ export class TaskThreadPool {
     const stopSignal = createStopSignal();
     const outcome = (async (): Promise<ThreadOutcome> => {
       const slot = await this.acquire();
+      if (stopRequested) {
+        // stopped while waiting for a thread: no checkpoint to write, no resume to count
+        this.release(slot, false);
+        return { status: 'unstarted' };
+      }
       slotRef = slot;
       return await new Promise<ThreadOutcome>((resolve) => {
         const w = slot.worker;
