@@ -206,7 +206,8 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
   }
   const a = (d.analysis ?? {}) as Record<string, any>;
   // a fit window that misses the grown sizes would end in "no statistics" after all the work
-  if (a.fit_min_size !== undefined && a.fit_min_size >= d.particles) problems.push(`analysis.fit_min_size: ${a.fit_min_size} is out of range; allowed: a number from 1 to below particles (${d.particles})`);
+  const windowReversed = a.fit_max_size !== undefined && a.fit_min_size !== undefined && !(a.fit_min_size < a.fit_max_size);
+  if (a.fit_min_size !== undefined && a.fit_min_size >= d.particles && !windowReversed) problems.push(`analysis.fit_min_size: ${a.fit_min_size} is out of range; allowed: a number from 1 to below particles (${d.particles})`);
   for (const [lo, hi] of [['fit_min_size', 'fit_max_size'], ['mass_radius_min_radius', 'mass_radius_max_radius']]) {
     if (a[lo] !== undefined && a[hi] !== undefined && !(a[lo] < a[hi])) problems.push(`analysis.${lo}: ${a[lo]} is not allowed; allowed: a number below analysis.${hi} (${a[hi]})`);
   }
