@@ -7,11 +7,11 @@ import { Worker } from 'node:worker_threads';
 import { Redis } from 'ioredis';
 import { afterAll, describe, expect, it } from 'vitest';
 import { cancelEnsemble, launchEnsemble, runQueue } from '../coordinator/farm/queue.js';
-import { EnsembleStore } from '../coordinator/farm/store.js';
+import { EnsembleStore, STALE_RUN_MS } from '../coordinator/farm/store.js';
 import { DirectoryArtifactStore } from '../coordinator/farm/artifacts.js';
 import { validateProbeRequest } from '../coordinator/farm/probe-requests.js';
 import { buildApi } from '../coordinator/http/server.js';
-import { SpecError, validateSpec } from '../coordinator/spec/index.js';
+import { parseSpecText, SpecError, validateSpec } from '../coordinator/spec/index.js';
 import { openFarm } from '../coordinator/commands/farm-options.js';
 import { deleteKeys, privateRedis, REDIS_URL, ROOT, tempDir, uniquePrefix } from './farm-helpers.js';
 
@@ -75,6 +75,12 @@ describe('smaller findings', () => {
     ]);
   });
 
+  it('NaN and infinities are quoted as such, not as null', () => {
+    expect(problems(parseSpecText('model = "dla-offlattice-2d"\nparticles = inf\nclusters = 1\nseed = 1', 'toml'))).toEqual(['particles: Infinity is not allowed; allowed: an integer from 2 to 100000000']);
+    expect(problems(parseSpecText('model = "dla-offlattice-2d"\nparticles = 10\nclusters = 1\nseed = 1\n[analysis]\nlevel = -inf', 'toml'))).toEqual(['analysis.level: -Infinity is not allowed; allowed: a number from 0.5 to 0.999']);
+    expect(problems(parseSpecText('model = "dla-offlattice-2d"\nparticles = 10\nclusters = 1\nseed = 1\n[params]\nmin_step = nan', 'toml'))[0]).toMatch(/^params\.min_step: NaN /);
+  });
+
   it('a cancelled ensemble lists nothing queued', async () => {
     const id = await launchEnsemble(store, queue, validateSpec({ model: 'dla-offlattice-2d', particles: 100, clusters: 50, seed: 1 }));
     expect((await store.status(id))!.runs.queued).toBe(50);
@@ -82,6 +88,17 @@ describe('smaller findings', () => {
     const s = (await store.status(id))!;
     expect(s.state).toBe('cancelled');
     expect(s.runs.queued).toBe(0);
+  });
+
+  it('a run whose worker was killed stops counting as running once it gives no sign of life', async () => {
+    const id = await launchEnsemble(store, queue, validateSpec({ model: 'dla-offlattice-2d', particles: 100, clusters: 4, seed: 2 }));
+    await store.runStarted(id, 0, 'killed-worker');
+    await store.runStarted(id, 1, 'live-worker');
+    const t = Date.now();
+    expect((await store.status(id, t))!.runs).toEqual({ planned: 4, queued: 2, running: 2, done: 0, failed: 0 });
+    // within the staleness window both count as running; past it, with no tick since, neither does
+    expect((await store.status(id, t + STALE_RUN_MS / 2))!.runs.running).toBe(2);
+    expect((await store.status(id, Date.now() + STALE_RUN_MS + 1000))!.runs).toEqual({ planned: 4, queued: 4, running: 0, done: 0, failed: 0 });
   });
 
   it('orphaned temporaries of the artifact store are swept, young ones kept', async () => {

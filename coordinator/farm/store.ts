@@ -11,6 +11,9 @@
  *                                  HSETNX, so a run executed twice is stored (and counted) once
  *   P:ensemble:ID:running          hash: run index -> worker id, while a worker grows it
  *   P:ensemble:ID:progress         hash: run index -> particles placed so far (running runs)
+ *   P:ensemble:ID:seen             hash: run index -> last sign of life of its worker (ms; start and
+ *                                  every progress tick); a running run unseen for STALE_RUN_MS
+ *                                  (its worker was killed) counts as queued, not running
  *   P:ensemble:ID:failed           hash: run index -> reason, for runs that failed for good
  *   P:ensemble:ID:rate             hash: 10-second bucket number -> particles grown in it
  *   P:ensemble:ID:harmonic         hash: "RUN:SIZE" -> ClusterHarmonic JSON of a probed cluster (HSETNX:
@@ -32,6 +35,8 @@ import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
 export const DEFAULT_PREFIX = 'tendril';
 const RATE_BUCKET_MS = 10_000;
 const RATE_WINDOW_MS = 60_000;
+/** A running run whose worker gave no sign of life for this long is counted as queued (workers tick every 2 s by default). */
+export const STALE_RUN_MS = 60_000;
 
 /**
  * A Redis connection. `failFast` (the HTTP API): commands fail at once while
@@ -214,16 +219,16 @@ export class EnsembleStore implements RunSink {
   }
 
   async runStarted(ensembleId: string, runIndex: number, workerId: string): Promise<void> {
-    await this.redis.hset(this.k(ensembleId, 'running'), String(runIndex), workerId);
+    await this.redis.multi().hset(this.k(ensembleId, 'running'), String(runIndex), workerId).hset(this.k(ensembleId, 'seen'), String(runIndex), String(Date.now())).exec();
   }
 
   async runReleased(ensembleId: string, runIndex: number): Promise<void> {
-    await this.redis.multi().hdel(this.k(ensembleId, 'running'), String(runIndex)).hdel(this.k(ensembleId, 'progress'), String(runIndex)).exec();
+    await this.redis.multi().hdel(this.k(ensembleId, 'running'), String(runIndex)).hdel(this.k(ensembleId, 'progress'), String(runIndex)).hdel(this.k(ensembleId, 'seen'), String(runIndex)).exec();
   }
 
   async progress(ensembleId: string, runIndex: number, count: number, delta: number): Promise<void> {
     const bucket = Math.floor(Date.now() / RATE_BUCKET_MS);
-    const m = this.redis.multi().hset(this.k(ensembleId, 'progress'), String(runIndex), String(count));
+    const m = this.redis.multi().hset(this.k(ensembleId, 'progress'), String(runIndex), String(count)).hset(this.k(ensembleId, 'seen'), String(runIndex), String(Date.now()));
     if (delta > 0) m.hincrby(this.k(ensembleId, 'rate'), String(bucket), delta);
     await m.exec();
   }
@@ -235,6 +240,7 @@ export class EnsembleStore implements RunSink {
     await this.redis
       .multi()
       .hdel(this.k(id, 'running'), String(result.runIndex))
+      .hdel(this.k(id, 'seen'), String(result.runIndex))
       .hdel(this.k(id, 'progress'), String(result.runIndex))
       .hdel(this.k(id, 'failed'), String(result.runIndex))
       .exec();
@@ -246,6 +252,7 @@ export class EnsembleStore implements RunSink {
       .multi()
       .hset(this.k(ensembleId, 'failed'), String(runIndex), reason.slice(0, 500))
       .hdel(this.k(ensembleId, 'running'), String(runIndex))
+      .hdel(this.k(ensembleId, 'seen'), String(runIndex))
       .hdel(this.k(ensembleId, 'progress'), String(runIndex))
       .exec();
   }
@@ -296,7 +303,7 @@ export class EnsembleStore implements RunSink {
   async status(id: string, now = Date.now()): Promise<EnsembleStatus | null> {
     const rec = await this.get(id);
     if (!rec) return null;
-    const [doneN, running, progress, failed, rate, harmonicN, probeFailed] = await Promise.all([
+    const [doneN, marked, progress, failed, rate, harmonicN, probeFailed, seen] = await Promise.all([
       this.redis.hlen(this.k(id, 'results')),
       this.redis.hgetall(this.k(id, 'running')),
       this.redis.hgetall(this.k(id, 'progress')),
@@ -304,7 +311,11 @@ export class EnsembleStore implements RunSink {
       this.redis.hgetall(this.k(id, 'rate')),
       this.redis.hlen(this.k(id, 'harmonic')),
       this.redis.hgetall(this.k(id, 'probe-failed')),
+      this.redis.hgetall(this.k(id, 'seen')),
     ]);
+    // runs whose worker stopped giving signs of life (killed) are waiting to be taken up again, not running
+    const running: Record<string, string> = {};
+    for (const [i, w] of Object.entries(marked)) if (seen[i] === undefined || now - Number(seen[i]) < STALE_RUN_MS) running[i] = w;
     const probeSizes = probeSizesOf(rec.spec).length;
     const planned = rec.plannedClusters;
     const runningN = Object.keys(running).length;
@@ -367,7 +378,7 @@ export class EnsembleStore implements RunSink {
     } while (cursor !== '0');
     await this.redis
       .multi()
-      .del(this.k(id), this.k(id, 'results'), this.k(id, 'running'), this.k(id, 'progress'), this.k(id, 'failed'), this.k(id, 'rate'), this.k(id, 'harmonic'), this.k(id, 'probe-failed'), ...probed)
+      .del(this.k(id), this.k(id, 'results'), this.k(id, 'running'), this.k(id, 'seen'), this.k(id, 'progress'), this.k(id, 'failed'), this.k(id, 'rate'), this.k(id, 'harmonic'), this.k(id, 'probe-failed'), ...probed)
       .zrem(`${this.prefix}:ensembles`, id)
       .exec();
   }

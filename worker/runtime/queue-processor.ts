@@ -313,7 +313,8 @@ export class RunWorker {
     let tick: Promise<void> = Promise.resolve();
     const timer = setInterval(() => {
       tick = (async () => {
-        if (lastCount >= 0 && lastCount !== reported) {
+        // every tick, changed or not: the progress write is also the run's sign of life (store.ts, STALE_RUN_MS)
+        if (lastCount >= 0) {
           const delta = reported >= 0 ? lastCount - reported : 0;
           reported = lastCount;
           await sink.progress(run.ensembleId, run.runIndex, lastCount, delta);
