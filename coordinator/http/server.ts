@@ -255,12 +255,9 @@ export function buildApi(o: ApiOptions): FastifyInstance {
   );
 
   app.get('/ensembles', { schema: { response: { 200: { type: 'object', properties: { ensembles: { type: 'array', items: STATUS_SCHEMA } } } } } }, async () => {
-    const ensembles = [];
-    for (const id of await o.store.ids(100)) {
-      const s = await o.store.status(id);
-      if (s) ensembles.push(s);
-    }
-    return { ensembles };
+    // all statuses at once: their Redis commands go out together instead of one ensemble after another
+    const all = await Promise.all((await o.store.ids(100)).map((id) => o.store.status(id)));
+    return { ensembles: all.filter((s) => s !== null) };
   });
 
   app.get<{ Params: { id: string } }>(
