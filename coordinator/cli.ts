@@ -10,6 +10,7 @@ import { fileURLToPath } from 'node:url';
 import { Command, CommanderError } from 'commander';
 import { UsageError } from './usage-error.js';
 import { ENGINE_VERSION } from '../worker/core/engine-version.js';
+import { messageOf } from '../proto/errors.js';
 
 type Register = (program: Command) => void;
 
@@ -22,6 +23,7 @@ const COMMANDS: Array<() => Promise<{ register: Register }>> = [
   () => import('./commands/worker.js'),
   () => import('./commands/serve.js'),
   () => import('./commands/probe.js'),
+  () => import('./commands/models.js'),
 ];
 
 export async function main(argv: string[]): Promise<number> {
@@ -46,8 +48,7 @@ export async function main(argv: string[]): Promise<number> {
       process.stderr.write(`tendril: ${err.message}\n`);
       return 2;
     }
-    const msg = err instanceof Error ? err.message : String(err);
-    process.stderr.write(`tendril: ${msg.split('\n')[0]}\n`);
+    process.stderr.write(`tendril: ${messageOf(err)}\n`);
     return 1;
   }
 }

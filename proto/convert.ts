@@ -12,6 +12,7 @@
  * reason instead of crashing a process.
  */
 import { tendril } from './generated/tendril.js';
+import { TendrilError } from './errors.js';
 
 export { tendril };
 
@@ -25,8 +26,9 @@ export { tendril };
 export const CONTRACT_VERSION = 2;
 export const READABLE_CONTRACT_VERSIONS: readonly number[] = [1, 2];
 
-export class ContractError extends Error {
+export class ContractError extends TendrilError {
   override name = 'ContractError';
+  readonly kind = 'contract';
 }
 
 /** A model and its numeric parameters by name (mirrors ModelParams of worker/core/growth-kernel.ts). */

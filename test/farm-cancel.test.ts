@@ -5,7 +5,7 @@ import { DirectoryArtifactStore } from '../coordinator/farm/artifacts.js';
 import { cancelEnsemble, launchEnsemble, runQueue } from '../coordinator/farm/queue.js';
 import { EnsembleStore } from '../coordinator/farm/store.js';
 import { validateSpec } from '../coordinator/spec/index.js';
-import { checkpointKey } from '../worker/runtime/queue-processor.js';
+import { checkpointKey } from '../worker/runtime/job-contract.js';
 import { deleteKeys, REDIS_URL, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
 
 const prefix = uniquePrefix('cancel');

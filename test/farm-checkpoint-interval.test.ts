@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import { promisify } from 'node:util';
 import { Redis } from 'ioredis';
 import { afterAll, describe, expect, it } from 'vitest';
-import { checkpointKey } from '../coordinator/farm/artifacts.js';
+import { checkpointKey } from '../worker/runtime/job-contract.js';
 import { CLI, REDIS_URL, ROOT, deleteKeys, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
 
 const run = promisify(execFile);

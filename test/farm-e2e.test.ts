@@ -10,7 +10,7 @@ import { validateSpec } from '../coordinator/spec/index.js';
 import { buildSummary } from '../coordinator/summary/index.js';
 import { growthTaskOf } from '../proto/convert.js';
 import { createKernel } from '../worker/models/registry.js';
-import { checkpointKey } from '../worker/runtime/queue-processor.js';
+import { checkpointKey } from '../worker/runtime/job-contract.js';
 import { deleteKeys, REDIS_URL, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
 
 const prefix = uniquePrefix('e2e');

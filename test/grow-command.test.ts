@@ -79,7 +79,7 @@ describe('tendril grow, end to end', () => {
     expect(s.diameter).toBe(1);
     expect(s.arrivalOrder).toBe(true);
     expect([s.x[0], s.y[0]]).toEqual([0, 0]); // the seed sits at the origin (worker/models/dla-offlattice-2d/kernel.ts)
-    // Model definition (DESIGN.md, kernel header): each arrival touches an earlier disk and overlaps none.
+    // Model definition (worker/models/dla-offlattice-2d/kernel.ts header): each arrival touches an earlier disk and overlaps none.
     // Tolerance 1e-9 diameters allows for floating-point rounding of the contact point.
     let worstOverlap = 0;
     let worstGap = 0;
@@ -94,7 +94,9 @@ describe('tendril grow, end to end', () => {
     }
     expect(worstOverlap).toBeLessThan(1e-9);
     expect(worstGap).toBeLessThan(1e-9);
-    const radii = clusterRadii(s.x, s.y, s.count);
+    const coords = new Float64Array(2 * s.count);
+    for (let i = 0; i < s.count; i++) [coords[2 * i], coords[2 * i + 1]] = [s.x[i], s.y[i]];
+    const radii = clusterRadii({ dimension: 2, count: s.count, coords });
     const summary = first.stdout.trimEnd().split('\n')[3];
     expect(summary).toContain(`R_g = ${radii.radiusOfGyration.toFixed(2)}`);
     expect(summary).toContain(`R_max = ${radii.maxRadius.toFixed(2)}`);
@@ -157,16 +159,16 @@ describe('tendril grow, end to end', () => {
 
 describe('tendril grow, bad options', () => {
   const ok = ['--seed', '1', '--out'];
-  const R = 'must be an integer in';
+  const R = 'an integer from';
   const cases: Array<[string, string[], string]> = [
-    ['particles not a number', ['--particles', 'abc'], `tendril: --particles ${R} [2, 100000000], got "abc"`],
-    ['particles too small', ['--particles', '1'], `tendril: --particles ${R} [2, 100000000], got "1"`],
-    ['particles too large', ['--particles', '100000001'], `tendril: --particles ${R} [2, 100000000], got "100000001"`],
-    ['particles fractional', ['--particles', '2.5'], `tendril: --particles ${R} [2, 100000000], got "2.5"`],
-    ['particles missing', [], 'tendril: --particles is required (an integer in [2, 100000000])'],
-    ['seed negative', ['--particles', '10', '--seed', '-1'], 'tendril: --seed must be an unsigned 64-bit integer in [0, 18446744073709551615] written in decimal, got "-1"'],
-    ['seed 2^64', ['--particles', '10', '--seed', '18446744073709551616'], 'tendril: --seed must be an unsigned 64-bit integer in [0, 18446744073709551615] written in decimal, got "18446744073709551616"'],
-    ['seed hex', ['--particles', '10', '--seed', '0x10'], 'tendril: --seed must be an unsigned 64-bit integer in [0, 18446744073709551615] written in decimal, got "0x10"'],
+    ['particles not a number', ['--particles', 'abc'], `tendril: --particles: "abc" is not a number; allowed: ${R} 2 to 100000000`],
+    ['particles too small', ['--particles', '1'], `tendril: --particles: 1 is out of range; allowed: ${R} 2 to 100000000`],
+    ['particles too large', ['--particles', '100000001'], `tendril: --particles: 100000001 is out of range; allowed: ${R} 2 to 100000000`],
+    ['particles fractional', ['--particles', '2.5'], `tendril: --particles: 2.5 is out of range; allowed: ${R} 2 to 100000000`],
+    ['particles missing', [], 'tendril: --particles is required (an integer from 2 to 100000000)'],
+    ['seed negative', ['--particles', '10', '--seed', '-1'], 'tendril: --seed: "-1" is not allowed; allowed: an unsigned 64-bit integer from 0 to 18446744073709551615 in decimal'],
+    ['seed 2^64', ['--particles', '10', '--seed', '18446744073709551616'], 'tendril: --seed: "18446744073709551616" is not allowed; allowed: an unsigned 64-bit integer from 0 to 18446744073709551615 in decimal'],
+    ['seed hex', ['--particles', '10', '--seed', '0x10'], 'tendril: --seed: "0x10" is not allowed; allowed: an unsigned 64-bit integer from 0 to 18446744073709551615 in decimal'],
     ['min_step zero', ['--particles', '10', '--param', 'min_step=0'], 'tendril: --param min_step: 0 is out of range; allowed: a number above 0 and at most 1 (particle diameters, for dla-offlattice-2d)'],
     ['min_step above 1', ['--particles', '10', '--param', 'min_step=1.01'], 'tendril: --param min_step: 1.01 is out of range; allowed: a number above 0 and at most 1 (particle diameters, for dla-offlattice-2d)'],
     ['min_step not a number', ['--particles', '10', '--param', 'min_step=NaN'], 'tendril: --param min_step: "NaN" is not a number; allowed: a number above 0 and at most 1 (particle diameters, for dla-offlattice-2d)'],
@@ -174,12 +176,12 @@ describe('tendril grow, bad options', () => {
     ['launch_margin too large', ['--particles', '10', '--param', 'launch_margin=1e4'], 'tendril: --param launch_margin: 10000 is out of range; allowed: a number above 0 and at most 1000 (particle diameters, for dla-offlattice-2d)'],
     ['unknown parameter', ['--particles', '10', '--param', 'eta=2'], 'tendril: --param eta: not a parameter of dla-offlattice-2d; allowed: min_step, launch_margin'],
     ['parameter without a value', ['--particles', '10', '--param', 'min_step'], 'tendril: --param: "min_step" is not allowed; allowed: NAME=VALUE with NAME one of min_step, launch_margin'],
-    ['unknown model', ['--particles', '10', '--model', 'dla-3d-foo'], 'tendril: --model: "dla-3d-foo" is not a model; allowed: one of dla-offlattice-2d (see tendril models)'],
-    ['picture-size too small', ['--particles', '10', '--picture-size', '63'], `tendril: --picture-size ${R} [64, 8192], got "63"`],
-    ['picture-size too large', ['--particles', '10', '--picture-size', '8193'], `tendril: --picture-size ${R} [64, 8192], got "8193"`],
-    ['records-per-decade too small', ['--particles', '10', '--records-per-decade', '9'], `tendril: --records-per-decade ${R} [10, 100], got "9"`],
-    ['records-per-decade too large', ['--particles', '10', '--records-per-decade', '101'], `tendril: --records-per-decade ${R} [10, 100], got "101"`],
-    ['records-per-decade empty', ['--particles', '10', '--records-per-decade', ''], `tendril: --records-per-decade ${R} [10, 100], got ""`],
+    ['unknown model', ['--particles', '10', '--model', 'dla-3d-foo'], 'tendril: --model: "dla-3d-foo" is not a model; allowed: one of dla-offlattice-2d, eden-square, eden-triangular, eden-offlattice-2d, dla-square, dla-triangular (see tendril models)'],
+    ['picture-size too small', ['--particles', '10', '--picture-size', '63'], `tendril: --picture-size: 63 is out of range; allowed: ${R} 64 to 8192 (pixels)`],
+    ['picture-size too large', ['--particles', '10', '--picture-size', '8193'], `tendril: --picture-size: 8193 is out of range; allowed: ${R} 64 to 8192 (pixels)`],
+    ['records-per-decade too small', ['--particles', '10', '--records-per-decade', '9'], `tendril: --records-per-decade: 9 is out of range; allowed: ${R} 10 to 100`],
+    ['records-per-decade too large', ['--particles', '10', '--records-per-decade', '101'], `tendril: --records-per-decade: 101 is out of range; allowed: ${R} 10 to 100`],
+    ['records-per-decade empty', ['--particles', '10', '--records-per-decade', ''], `tendril: --records-per-decade: "" is not a number; allowed: ${R} 10 to 100`],
   ];
 
   it.each(cases)('%s', (_name, args, expected) => {

@@ -16,7 +16,7 @@ import { DirectoryArtifactStore } from '../coordinator/farm/artifacts.js';
 import { buildApi } from '../coordinator/http/server.js';
 import { validateSpec, SpecError } from '../coordinator/spec/index.js';
 import { ProbeGeometry } from '../worker/probe/probe-2d.js';
-import type { ProbeJobData } from '../worker/runtime/queue-processor.js';
+import type { ProbeJobData } from '../worker/runtime/job-contract.js';
 import { deleteKeys, REDIS_URL, tempDir, uniquePrefix } from './farm-helpers.js';
 
 const TOKEN = 'hardening-probe-token';

@@ -1,14 +1,13 @@
 /**
  * Issue #11 item 10, the smaller findings: each with the input that showed it.
  */
-import { mkdirSync, utimesSync, writeFileSync, existsSync, rmSync } from 'node:fs';
+import { rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { Worker } from 'node:worker_threads';
 import { Redis } from 'ioredis';
 import { afterAll, describe, expect, it } from 'vitest';
 import { cancelEnsemble, launchEnsemble, runQueue } from '../coordinator/farm/queue.js';
 import { EnsembleStore, STALE_RUN_MS } from '../coordinator/farm/store.js';
-import { DirectoryArtifactStore } from '../coordinator/farm/artifacts.js';
 import { validateProbeRequest } from '../coordinator/farm/probe-requests.js';
 import { buildApi } from '../coordinator/http/server.js';
 import { parseSpecText, SpecError, validateSpec } from '../coordinator/spec/index.js';
@@ -99,23 +98,6 @@ describe('smaller findings', () => {
     // within the staleness window both count as running; past it, with no tick since, neither does
     expect((await store.status(id, t + STALE_RUN_MS / 2))!.runs.running).toBe(2);
     expect((await store.status(id, Date.now() + STALE_RUN_MS + 1000))!.runs).toEqual({ planned: 4, queued: 4, running: 0, done: 0, failed: 0 });
-  });
-
-  it('orphaned temporaries of the artifact store are swept, young ones kept', async () => {
-    const root = join(dir, 'artifacts');
-    mkdirSync(join(root, 'e1'), { recursive: true });
-    const old = join(root, 'e1', 'run-0.checkpoint.ab12cd34.tmp');
-    const young = join(root, 'e1', 'run-1.checkpoint.ef56ab78.tmp');
-    writeFileSync(old, 'x');
-    writeFileSync(young, 'y');
-    const twoHoursAgo = new Date(Date.now() - 2 * 3_600_000);
-    utimesSync(old, twoHoursAgo, twoHoursAgo);
-    const s = new DirectoryArtifactStore(root);
-    await s.put('e1/run-2.checkpoint', new Uint8Array([1]));
-    expect(await s.sweepTemporaries()).toBe(1);
-    expect(existsSync(old)).toBe(false);
-    expect(existsSync(young)).toBe(true);
-    expect(Array.from((await s.get('e1/run-2.checkpoint'))!)).toEqual([1]);
   });
 
   it('a thread of another kind that imports the task thread module is not turned into a task thread', async () => {

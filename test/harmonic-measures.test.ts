@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { boxStatistics, logSpaced } from '../coordinator/harmonic/partition-function.js';
 import { spectrumFrom } from '../coordinator/harmonic/spectrum.js';
-import { logCapacity } from '../coordinator/harmonic/log-capacity.js';
+import { capacityJobCheck, logCapacity } from '../coordinator/harmonic/log-capacity.js';
 import { ensembleMeanInterval } from '../coordinator/harmonic/ensemble-intervals.js';
 import { Random } from '../worker/core/random.js';
 
@@ -39,6 +39,21 @@ describe('partition function and spectrum on exact measures', () => {
   });
 });
 
+describe('maximum box measure over the four grid offsets', () => {
+  it('is the maximum over all boxes of all four grids, not the average of per-grid maxima (exact)', () => {
+    // Four equal point masses at (±0.01, ±0.01) about the point (1, 1): with anchor (0, 0) and
+    // eps = 0.5 the grid at offset (0, 0) has a corner at (1, 1) and splits them into four boxes
+    // (largest box 1/4); the grids at offsets (eps/2, eps/2), (eps/4, 3eps/4), (3eps/4, eps/4) hold
+    // them in one box (1). Maximum over all boxes: 1; the average of per-grid maxima would be 13/16.
+    const x = [0.99, 1.01, 0.99, 1.01];
+    const y = [0.99, 0.99, 1.01, 1.01];
+    const st = boxStatistics({ count: 4, x, y, w: null }, [0.5, 0.6], [2], 0, 0);
+    expect(st.maxMeasure[0]).toBe(1);
+    // Z is averaged over the four grids: (4 x 1/16 + 1 + 1 + 1)/4 = 13/16
+    expect(st.z[0][0]).toBeCloseTo(13 / 16, 12);
+  });
+});
+
 describe('logarithmic capacity from samples of the harmonic measure', () => {
   const rng = Random.forRun('99', 0, 1);
   const M = 3000;
@@ -65,6 +80,30 @@ describe('logarithmic capacity from samples of the harmonic measure', () => {
     while (u.length < M) { const t = 2 * Math.PI * rng.nextDouble(); const w = Math.hypot(3 * Math.sin(t), Math.cos(t)) / 3; if (rng.nextDouble() < w) { u.push(3 * Math.cos(t)); v.push(Math.sin(t)); } }
     const d = logCapacity(u, v, M);
     expect(Math.abs(d.capacity - 2)).toBeGreaterThan(4 * d.capacityError);
+    // and flagged: the row means of log|z - w| vary (zeta1 > 0, Frostman's theorem fails for it);
+    // for the true harmonic measure the excess is noise of order 1 (our rule: beyond 5 is flagged)
+    expect(d.frostmanExcess).toBeGreaterThan(10);
+    expect(Math.abs(c.frostmanExcess)).toBeLessThan(5);
+  });
+});
+
+describe('capacity job check', () => {
+  it('jobs from the same harmonic measure agree with their stated errors; a job from another set does not', () => {
+    const rng = Random.forRun('17', 0, 3);
+    const circle = (n: number, r: number, x: number[], y: number[]) => {
+      for (let i = 0; i < n; i++) { const t = 2 * Math.PI * rng.nextDouble(); x.push(r * Math.cos(t)); y.push(r * Math.sin(t)); }
+    };
+    const x: number[] = [], y: number[] = [];
+    for (let j = 0; j < 8; j++) circle(300, 1, x, y);
+    const ok = capacityJobCheck(x, y, new Array(8).fill(300))!;
+    expect(ok.jobs).toBe(8);
+    expect(ok.degreesOfFreedom).toBe(7);
+    expect(ok.chiSquare).toBeLessThan(24.3); // chi-square, 7 degrees of freedom, p = 0.001
+    const u: number[] = [], v: number[] = [];
+    circle(300, 1.1, u, v);
+    for (let j = 1; j < 8; j++) circle(300, 1, u, v);
+    expect(capacityJobCheck(u, v, new Array(8).fill(300))!.chiSquare).toBeGreaterThan(24.3);
+    expect(capacityJobCheck(x, y, [2400])).toBeNull();
   });
 });
 

@@ -72,6 +72,10 @@ describe('HTTP API', () => {
     ['cancel of an unknown ensemble', { method: 'POST', url: '/ensembles/enothere/cancel', headers: auth }, 404, 'id: "enothere" is not an ensemble of this farm'],
     ['summary in an unknown format', { url: '/ensembles/enothere/summary?format=xlsx' }, 400, 'format: "xlsx" is not allowed; allowed: one of "json", "csv", "pb"'],
     ['an unknown route', { url: '/nothing' }, 404, 'GET /nothing: no such route'],
+    ['a parameter of no model', { method: 'POST', url: '/ensembles', headers: auth, payload: { ...good, params: { eta: 2 } } }, 400, 'params.eta: not a parameter of dla-offlattice-2d; allowed: min_step, launch_margin'],
+    ['a parameter out of range', { method: 'POST', url: '/ensembles', headers: auth, payload: { ...good, params: { launch_margin: 0 } } }, 400, 'params.launch_margin: 0 is out of range; allowed: a number above 0 and at most 1000 (particle diameters, for dla-offlattice-2d)'],
+    ['a TOML spec with a misplaced parameter', { method: 'POST', url: '/ensembles', headers: { ...auth, 'content-type': 'application/toml' }, payload: 'model = "dla-offlattice-2d"\nparticles = 100\nclusters = 1\nseed = 5\n[params]\nmin_stp = 0.1\n' }, 400, 'params.min_stp: not a parameter of dla-offlattice-2d; allowed: min_step, launch_margin'],
+    ['a bad body without a token (the token is checked first)', { method: 'POST', url: '/ensembles', payload: { particles: 1 } }, 401, 'authorization: missing'],
   ];
   for (const [name, req, code, msg] of table) {
     it(`answers ${code} to ${name}`, async () => {

@@ -42,6 +42,20 @@ describe('tendril probe', () => {
     expect(readFileSync(join(dir, 'a', 'probe-measure.png')).subarray(1, 4).toString()).toBe('PNG');
   });
 
+  it('--window sets the fit window relative to R; the contact-radius systematic and its warning are reported', () => {
+    const a = tendril(['probe', csv, '--walkers', '2000', '--seed', '3', '--out', join(dir, 'w'), '--window', '0.05:0.5', '--q-grid', '0:4:1']);
+    expect(a.status, a.stderr).toBe(0);
+    const m = JSON.parse(readFileSync(join(dir, 'w', 'probe-measures.json'), 'utf8'));
+    expect(m.window.relativeMin).toBeCloseTo(0.05, 12);
+    expect(m.window.relativeMax).toBeCloseTo(0.5, 12);
+    // R is about 23, so the smallest box (about 1.2) is below 8 contact radii (4): warned, on stderr too
+    expect(m.warnings.length).toBe(1);
+    expect(a.stderr).toMatch(/warning: smallest box side .* is below 8 contact radii/);
+    expect(m.resolutionSystematic.tau[1]).toBe(0); // q = 1: tau(1) = 0 exactly
+    expect(m.resolutionSystematic.tau[4]).toBeCloseTo(3 * m.resolutionSystematic.tau[2], 12);
+    expect(m.resolutionSystematic.tau[2]).toBeGreaterThan(0.05);
+  });
+
   it('probes a grown snapshot', () => {
     const g = tendril(['grow', '--particles', '300', '--seed', '2', '--out', join(dir, 'g'), '--quiet']);
     expect(g.status, g.stderr).toBe(0);
@@ -49,15 +63,20 @@ describe('tendril probe', () => {
     expect(p.status, p.stderr).toBe(0);
     const m = JSON.parse(readFileSync(join(dir, 'gp', 'probe-measures.json'), 'utf8'));
     expect(m.input.kind).toBe('snapshot');
+    // no --jobs: the default of a spec's [probe] table and of POST /probes (coordinator/harmonic/probe-settings.ts)
+    expect(m.jobs).toBe(2);
     expect(m.spectrum.q).toEqual([0, 1, 2, 3]);
   });
 
   it.each([
-    [['--walkers', '5'], /--walkers must be an integer in \[100, 10000000000\], got "5"/],
-    [['--walkers', '1000', '--jobs', '0'], /--jobs must be an integer in \[1, 4096\], got "0"/],
-    [['--walkers', '1000', '--q-grid', '3:1:1'], /--q-grid must be a:b:step .* got "3:1:1"/],
-    [['--walkers', '1000', '--threads', '99'], /--threads must be an integer in \[1, 64\], got "99"/],
-    [['--walkers', '1000', '--min-step', '2'], /--min-step must be a number in \(0, 1\], got "2"/],
+    [['--walkers', '5'], /^tendril: --walkers: 5 is out of range; allowed: an integer from 100 to 10000000000 \(walkers\)$/m],
+    [['--walkers', '1000', '--jobs', '0'], /^tendril: --jobs: 0 is out of range; allowed: an integer from 1 to 4096 \(jobs\)$/m],
+    [['--walkers', '1000', '--jobs', '2000'], /^tendril: --jobs: 2000 is out of range; allowed: an integer from 1 to --walkers \(1000\)$/m],
+    [['--walkers', '1000', '--q-grid', '3:1:1'], /^tendril: --q-grid: "3:1:1" is not allowed; allowed: a:b:step with/m],
+    [['--walkers', '1000', '--threads', '99'], /^tendril: --threads: 99 is out of range; allowed: an integer from 1 to 64$/m],
+    [['--walkers', '1000', '--min-step', '2'], /^tendril: --min-step: 2 is out of range; allowed: a number above 0 and at most 1 \(largest contact radii\)$/m],
+    [['--walkers', '1000', '--window', '0.3:0.5'], /--window must be lo:hi, two numbers lo, hi with 0 < lo < hi <= 1 and hi >= 2 lo .*got "0.3:0.5"/],
+    [['--walkers', '1000', '--window', '0.1'], /--window must be lo:hi, .*got "0.1"/],
   ])('refuses %j with one line naming the option', (extra, re) => {
     const r = tendril(['probe', csv, '--seed', '1', '--out', join(dir, 'bad'), ...(extra as string[])]);
     expect(r.status).toBe(2);

@@ -13,7 +13,7 @@ import { Redis } from 'ioredis';
 import { afterAll, describe, expect, it } from 'vitest';
 import { EmbeddedAborted, runEmbedded } from '../coordinator/embedded/index.js';
 import { DirectoryArtifactStore } from '../coordinator/farm/artifacts.js';
-import { probeResultKey } from '../coordinator/farm/probe-jobs.js';
+import { probeResultKey } from '../worker/runtime/job-contract.js';
 import { launchEnsemble, runQueue } from '../coordinator/farm/queue.js';
 import { EnsembleStore } from '../coordinator/farm/store.js';
 import { farmSummary } from '../coordinator/farm/summary.js';
@@ -55,7 +55,7 @@ function directRecords(runIndex: number) {
 
 describe('[probe] in the spec', () => {
   it('fills in defaults and keeps the sizes sorted; the canonical document re-validates to the same spec', () => {
-    expect(spec.probe).toEqual({ walkers: 3000, jobs: 3, q: [-1, 0, 1, 2, 3], contactSample: 600, minStep: 0.02, atSizes: [175, 350] });
+    expect(spec.probe).toEqual({ walkers: 3000, jobs: 3, q: [-1, 0, 1, 2, 3], contactSample: 600, minStep: 0.02, atSizes: [175, 350], window: null });
     expect(probeSizesOf(spec)).toEqual([175, 350, 700]);
     const d = validateSpec({ model: 'dla-offlattice-2d', particles: 1000, clusters: 1, seed: 1, probe: { walkers: 600_000 } });
     expect(d.probe).toMatchObject({ jobs: 3, contactSample: 4000, atSizes: [] });
@@ -80,7 +80,10 @@ describe('[probe] in the spec', () => {
     expect(bad({ walkers: 1000, at_sizes: [10, 1000] })).toEqual(['probe.at_sizes[1]: 1000 is out of range; allowed: an integer from 2 to particles - 1 (999)']);
     expect(bad({ walkers: 1000, jobs: 2000 })).toEqual(['probe.jobs: 2000 is out of range; allowed: an integer from 1 to probe.walkers (1000)']);
     expect(bad({ walkers: 1000, q: [] })[0]).toMatch(/^probe\.q: \[\] is empty/);
-    expect(bad({ walkers: 1000, colour: 'red' })[0]).toMatch(/^probe\.colour: unknown field; allowed fields: walkers, jobs, q, contact_sample, min_step, at_sizes$/);
+    expect(bad({ walkers: 1000, colour: 'red' })[0]).toMatch(/^probe\.colour: unknown field; allowed fields: walkers, jobs, q, contact_sample, min_step, window, at_sizes$/);
+    expect(bad({ walkers: 1000, window: [0.3, 0.5] })).toEqual(['probe.window: [0.3,0.5] is out of range; allowed: two numbers lo, hi with 0 < lo < hi <= 1 and hi >= 2 lo (box sides relative to the set radius R)']);
+    expect(bad({ walkers: 1000, window: [0, 0.5] }).length).toBe(1);
+    expect(validateSpec({ model: 'dla-offlattice-2d', particles: 1000, clusters: 1, seed: 1, probe: { walkers: 1000, window: [0.05, 0.5] } }).probe?.window).toEqual([0.05, 0.5]);
   });
 
   it('gives every (run, size) its own probe seed', () => {

@@ -38,16 +38,21 @@ describe('POST /probes', () => {
     const post = async (body: unknown, headers: Record<string, string> = auth) => app.inject({ method: 'POST', url: '/probes', payload: body as object, headers });
     expect((await post({ walkers: 1000, seed: 1, csv: '0,0,1\n' }, {})).statusCode).toBe(401);
     const cases: Array<[unknown, string]> = [
-      [{ seed: 1, csv: '0,0,1\n' }, 'walkers: nothing is out of range; allowed: an integer from 100 to 10000000000'],
-      [{ walkers: 1000, seed: -3, csv: '0,0,1\n' }, 'seed: -3 is not allowed; allowed: an unsigned 64-bit integer (decimal string, or an integer below 2^53)'],
+      [{ seed: 1, csv: '0,0,1\n' }, 'walkers: missing; allowed: an integer from 100 to 10000000000'],
+      [{ walkers: 1000, seed: -3, csv: '0,0,1\n' }, 'seed: -3 is not allowed; allowed: an unsigned 64-bit integer (a string of decimal digits, or an integer below 2^53)'],
       [{ walkers: 1000, seed: 1 }, 'csv, points: exactly one must be given; allowed: csv (text of x,y,r rows) or points ({x: [...], y: [...], r: number or [...]})'],
       [{ walkers: 1000, seed: 1, csv: '0,0,1\n1,2\n' }, 'csv line 2: expected 3 values x,y,r, got 2'],
       [{ walkers: 1000, seed: 1, points: { x: [0, 1], y: [0, 1], r: -1 } }, 'points.r: -1 is not allowed; allowed: a finite number > 0 (one for all, or one per point)'],
-      [{ walkers: 1000, seed: 1, csv: '0,0,1\n', jobs: 5000 }, 'jobs: 5000 is out of range; allowed: an integer from 1 to 1000'],
-      [{ walkers: 1000, seed: 1, csv: '0,0,1\n', colour: 'red' }, 'colour: unknown field; allowed fields: name, csv, points, walkers, seed, jobs, q, contact_sample, min_step'],
+      [{ walkers: 1000, seed: 1, csv: '0,0,1\n', jobs: 5000 }, 'jobs: 5000 is out of range; allowed: an integer from 1 to 4096'],
+      [{ walkers: 1000, seed: 1, csv: '0,0,1\n', jobs: 2000 }, 'jobs: 2000 is out of range; allowed: an integer from 1 to walkers (1000)'],
+      [{ walkers: 1000, seed: 1, csv: '0,0,1\n', colour: 'red' }, 'colour: unknown field; allowed fields: name, csv, points, walkers, jobs, q, contact_sample, min_step, window, seed'],
+      [{ walkers: 1000, seed: 1, csv: '0,0,1\n', window: [0.3, 0.5] }, 'window: [0.3,0.5] is out of range; allowed: two numbers lo, hi with 0 < lo < hi <= 1 and hi >= 2 lo (box sides relative to the set radius R)'],
+      [{ walkers: 1000, seed: 1, csv: '0,0,1\n', window: 'wide' }, 'window: "wide" is not allowed; allowed: two numbers lo, hi with 0 < lo < hi <= 1 and hi >= 2 lo (box sides relative to the set radius R)'],
     ];
     // the default job count follows the spec's rule (capped at 4096), so a huge walker count is accepted
     expect(validateProbeRequest({ walkers: 1e10, seed: 1, csv: '0,0,1\n' }).settings.jobs).toBe(4096);
+    expect(validateProbeRequest({ walkers: 1000, seed: 1, csv: '0,0,1\n', window: [0.05, 0.5] }).settings.window).toEqual([0.05, 0.5]);
+    expect(validateProbeRequest({ walkers: 1000, seed: 1, csv: '0,0,1\n' }).settings.window).toBeNull();
     for (const [body, msg] of cases) {
       const r = await post(body);
       expect(r.statusCode).toBe(400);

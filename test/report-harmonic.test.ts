@@ -69,6 +69,7 @@ function atSize(size: number, q: number[], b: number, o: { clusters?: number; wi
     converged: conv,
     convergedRange: rangeAround1(q, conv),
     systematic: { tau: q.map(() => 0.01), informationDimension: 0.02 },
+    resolutionSystematic: { tau: q.map(() => 0.005), informationDimension: 0.005 },
     informationDimensionWithSystematic: null,
     tau3WithSystematic: null,
     informationDimension: ev(1.004, o.withIntervals === false ? null : 0.012, clusters),

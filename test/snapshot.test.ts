@@ -153,3 +153,21 @@ describe('cluster snapshot', () => {
     });
   });
 });
+
+describe('snapshots of dimension-strided positions', () => {
+  it('pointSetOf keeps every axis, in 2 and 3 dimensions, and the snapshot records the dimension', async () => {
+    const { pointSetOf, encodeSnapshot, decodeSnapshot } = await import('../coordinator/snapshot/cluster-snapshot.js');
+    const coords = Float64Array.from([0, 0, 0, 1, 2, 3, -4, 5, 6]);
+    const p3 = pointSetOf({ dimension: 3, count: 3, coords }, 1);
+    expect([...p3.z!]).toEqual([0, 3, 6]);
+    const back = decodeSnapshot(encodeSnapshot(p3));
+    expect(back.dimension).toBe(3);
+    expect([...back.x]).toEqual([0, 1, -4]);
+    expect([...back.y]).toEqual([0, 2, 5]);
+    expect([...back.z!]).toEqual([0, 3, 6]);
+    const p2 = pointSetOf({ dimension: 2, count: 2, coords: coords.subarray(0, 6) }, 2);
+    expect(decodeSnapshot(encodeSnapshot(p2))).toMatchObject({ dimension: 2, count: 2, diameter: 2 });
+    expect([...p2.y]).toEqual([0, 1]);
+    expect(() => pointSetOf({ dimension: 4, count: 1, coords }, 1)).toThrow('snapshot dimension must be 2 or 3, got 4');
+  });
+});

@@ -76,7 +76,7 @@ describe('ensemble spec', () => {
     ['particles not an integer', { ...base, particles: 10.5 }, 'particles: 10.5 is not allowed; allowed: an integer from 2 to 100000000'],
     ['particles a string', { ...base, particles: '1000' }, 'particles: "1000" is not allowed; allowed: an integer from 2 to 100000000'],
     ['clusters too many', { ...base, clusters: 100001 }, 'clusters: 100001 is out of range; allowed: an integer from 1 to 100000'],
-    ['unknown model', { ...base, model: 'dla-3d' }, 'model: "dla-3d" is not allowed; allowed: one of "dla-offlattice-2d"'],
+    ['unknown model', { ...base, model: 'dla-3d' }, 'model: "dla-3d" is not allowed; allowed: one of "dla-offlattice-2d", "eden-square", "eden-triangular", "eden-offlattice-2d", "dla-square", "dla-triangular"'],
     ['missing seed', { model: 'dla-offlattice-2d', particles: 10, clusters: 1 }, 'seed: missing; allowed: ensemble seed: an unsigned 64-bit integer (a string of decimal digits, or an integer below 2^53)'],
     ['negative seed', { ...base, seed: -1 }, 'seed: -1 is not allowed; allowed: ensemble seed: an unsigned 64-bit integer (a string of decimal digits, or an integer below 2^53)'],
     ['seed above 2^64', { ...base, seed: '18446744073709551616' }, 'seed: "18446744073709551616" is out of range; allowed: an integer from 0 to 18446744073709551615'],
@@ -144,5 +144,46 @@ describe('example specs', () => {
       const s = parseSpec(readFileSync(join(dir, f), 'utf8'), formatOf(f));
       expect(s.particles * s.clusters).toBeLessThanOrEqual(1e10);
     }
+  });
+});
+
+describe('models without a probe or picture', () => {
+  it('a [probe] table is refused in one line for a model whose descriptor declares no probe', async () => {
+    const { probeProblem } = await import('../coordinator/spec/index.js');
+    const { MODELS } = await import('../worker/models/registry.js');
+    const unprobed = { ...MODELS[0], kind: 'no-probe-model', probe: null };
+    expect(probeProblem(MODELS[0])).toBeNull();
+    expect(probeProblem(unprobed, [...MODELS, unprobed])).toBe(
+      `probe: no-probe-model has no harmonic-measure probe; allowed: a spec without [probe] for this model (probes apply to ${MODELS.filter((m) => m.probe !== null).map((m) => m.kind).join(', ')})`,
+    );
+  });
+});
+
+describe('the spec schema is built from the model descriptors', () => {
+  it('has one params clause per registered model, with each parameter range and default', async () => {
+    const { SPEC_SCHEMA } = await import('../coordinator/spec/index.js');
+    const { MODELS } = await import('../worker/models/registry.js');
+    const clauses = SPEC_SCHEMA.allOf as unknown as Array<{ if: { properties: { model: { const: string } } }; then: { properties: { params: { additionalProperties: boolean; properties: Record<string, Record<string, unknown>> } } } }>;
+    expect(clauses.map((c) => c.if.properties.model.const)).toEqual(MODELS.map((m) => m.kind));
+    for (const [i, m] of MODELS.entries()) {
+      const params = clauses[i].then.properties.params;
+      expect(params.additionalProperties).toBe(false);
+      expect(Object.keys(params.properties)).toEqual(m.params.map((p) => p.name));
+      for (const p of m.params) expect(params.properties[p.name].default).toBe(p.default);
+    }
+  });
+
+  it('reports every bad parameter at once, each in one line naming params.NAME and the model', () => {
+    const p = problems(() => validateSpec({ model: 'dla-offlattice-2d', particles: 100, clusters: 1, seed: 1, params: { min_step: 2, eta: 1 } }));
+    expect(p).toEqual([
+      'params.eta: not a parameter of dla-offlattice-2d; allowed: min_step, launch_margin',
+      'params.min_step: 2 is out of range; allowed: a number above 0 and at most 1 (particle diameters, for dla-offlattice-2d)',
+    ]);
+  });
+
+  it('params that are not a table are refused in one line', () => {
+    expect(problems(() => validateSpec({ model: 'dla-offlattice-2d', particles: 100, clusters: 1, seed: 1, params: 'fast' }))).toEqual([
+      'params: "fast" is not allowed; allowed: a table of the parameters of dla-offlattice-2d',
+    ]);
   });
 });

@@ -21,8 +21,8 @@ describe('decideStopping (pure rule)', () => {
     expect(decideStopping({ halfWidth: null, targetHalfWidth: 0.01, clustersDone: 0, cap: 1000, minClusters: 20 })).toMatchObject({ nextBatch: 20 });
     // a narrow interval from very few clusters is not trusted
     expect(decideStopping({ halfWidth: 0.001, targetHalfWidth: 0.01, clustersDone: 5, cap: 1000, minClusters: 20 }).action).toBe('continue');
-    expect(() => decideStopping({ halfWidth: 0.1, targetHalfWidth: 0, clustersDone: 5, cap: 10 })).toThrow(/targetHalfWidth: 0 is not a number in/);
-    expect(() => decideStopping({ halfWidth: 0.1, targetHalfWidth: 0.1, clustersDone: 5, cap: 2.5 })).toThrow(/cap: 2.5 is not an integer/);
+    expect(() => decideStopping({ halfWidth: 0.1, targetHalfWidth: 0, clustersDone: 5, cap: 10 })).toThrow(/targetHalfWidth: 0 is out of range; allowed: a number from/);
+    expect(() => decideStopping({ halfWidth: 0.1, targetHalfWidth: 0.1, clustersDone: 5, cap: 2.5 })).toThrow(/cap: 2.5 is out of range; allowed: an integer from/);
   });
 });
 

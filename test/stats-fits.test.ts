@@ -103,7 +103,7 @@ describe('log-log fits on exact power laws', () => {
     expect(w.points).toBe(21);
     expect(a.estimators.maxRadius.D!).toBeCloseTo(1.6, 10);
     expect(() => analyzeEnsemble(runs, { fitWindow: { minSize: 1000, maxSize: 1050 } })).toThrow(/fitWindow: \[1000, 1050\] holds 1 usable point/);
-    expect(() => analyzeEnsemble(runs, { resamples: 3 })).toThrow(/resamples: 3 is not an integer in \[10, 1000000\]/);
+    expect(() => analyzeEnsemble(runs, { resamples: 3 })).toThrow('resamples: 3 is out of range; allowed: an integer from 10 to 1000000');
     expect(() => analyzeEnsemble(runs, { level: 1.5 })).toThrow(StatsInputError);
   });
 
@@ -193,5 +193,18 @@ describe('degenerate and awkward input', () => {
     const runs = exactRuns({ clusters: 4, D: 1.71, sizes, radii });
     runs[1].series.sizes[3] += 1;
     expect(() => analyzeEnsemble(runs)).toThrow(/run 1 series.sizes\[3\]/);
+  });
+});
+
+describe('fitLine, the one least-squares fit', () => {
+  it('gives slope, intercept, standard error and R² of a small worked example (exact, by hand)', () => {
+    // x = 0..3, y = 1, 3, 2, 5: Sxx = 5, Sxy = 5.5, Syy = 8.75, RSS = 2.7
+    const f = fitLine([0, 1, 2, 3], [1, 3, 2, 5]);
+    expect(f.slope).toBeCloseTo(1.1, 14);
+    expect(f.intercept).toBeCloseTo(1.1, 14);
+    expect(f.standardError).toBeCloseTo(Math.sqrt(0.27), 14);
+    expect(f.rSquared).toBeCloseTo(30.25 / 43.75, 14);
+    expect(f.points).toBe(4);
+    expect(Number.isNaN(fitLine([0, 1], [0, 1]).standardError)).toBe(true);
   });
 });

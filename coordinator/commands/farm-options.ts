@@ -5,6 +5,7 @@ import type { Redis } from 'ioredis';
 import { connectRedis, DEFAULT_PREFIX, EnsembleStore } from '../farm/store.js';
 import { runQueue } from '../farm/queue.js';
 import { UsageError } from '../usage-error.js';
+import { messageOf } from '../../proto/errors.js';
 
 export interface FarmCliOptions {
   redis?: string;
@@ -49,8 +50,8 @@ export async function openFarm(o: FarmCliOptions, failFastMs?: number): Promise<
     ]);
   } catch (err) {
     redis.disconnect();
-    const reason = /Connection is closed/.test((err as Error).message) && lastError ? lastError.message : (err as Error).message;
-    throw new UsageError(`--redis: cannot reach ${url.replace(/\/\/[^@]*@/, '//***@')}: ${reason.split('\n')[0]}`);
+    const reason = /Connection is closed/.test(messageOf(err)) && lastError ? lastError.message.split('\n')[0] : messageOf(err);
+    throw new UsageError(`--redis: cannot reach ${url.replace(/\/\/[^@]*@/, '//***@')}: ${reason}`);
   }
   const store = new EnsembleStore(redis, prefix);
   const queue = runQueue(redis, prefix);

@@ -10,7 +10,8 @@
  *   cluster.snapshot  the particle centres in arrival order, in the binary
  *                     format of coordinator/snapshot/cluster-snapshot.ts
  *   cluster.png       picture of the cluster coloured by arrival order
- *                     (coordinator/render/cluster-picture.ts)
+ *                     (coordinator/render/cluster-picture.ts), for models
+ *                     whose descriptor declares a picture
  *
  * Growth runs as run index 0 of an ensemble whose seed is --seed, so
  * `tendril grow --seed S` grows the same cluster as run 0 of an ensemble with
@@ -22,11 +23,13 @@ import { mkdirSync, statSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import type { Command } from 'commander';
 import { UsageError } from '../usage-error.js';
+import { describeRange } from '../../worker/core/value-range.js';
+import { optionNumber, parseRangeOption, parseSeedOption } from './option-values.js';
 import { checkModelParams, createKernel, MODEL_KINDS, modelDescriptor, modelParams } from '../../worker/models/registry.js';
-import type { GrowthResult, GrowthTask, ModelParams } from '../../worker/core/growth-kernel.js';
-import { axisOf } from '../../worker/core/positions.js';
-import { encodeSnapshot } from '../snapshot/cluster-snapshot.js';
+import type { ClusterPositions, GrowthResult, GrowthTask, ModelParams } from '../../worker/core/growth-kernel.js';
+import { encodeSnapshot, pointSetOf } from '../snapshot/cluster-snapshot.js';
 import { renderClusterPng, DEFAULT_PICTURE_SIZE } from '../render/cluster-picture.js';
+import { noPictureReason, picturePointsOf } from '../render/model-picture.js';
 import { createProgress, formatRate, type ProgressMode } from '../progress/progress.js';
 
 export const RUN_RESULT_FILE = 'run-result.json';
@@ -66,43 +69,14 @@ export interface GrowSummary {
   timing: GrowTiming;
   radiusOfGyration: number;
   maxRadius: number;
-  files: { runResult: string; snapshot: string; picture: string };
+  /** picture is null when the model declares no picture. */
+  files: { runResult: string; snapshot: string; picture: string | null };
 }
 
-const MAX_SEED = (1n << 64n) - 1n;
-const NUMBER_RE = /^[+]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
-
-function describeRange(lo: number, hi: number, loOpen: boolean): string {
-  return `${loOpen ? '(' : '['}${lo}, ${hi}]`;
-}
-
-/** An integer option in [lo, hi]; accepts plain and exponent notation ("1e6"). */
-export function parseIntegerOption(name: string, raw: unknown, lo: number, hi: number): number {
-  const s = typeof raw === 'string' ? raw.trim() : String(raw);
-  const v = NUMBER_RE.test(s) ? Number(s) : NaN;
-  if (!Number.isSafeInteger(v) || v < lo || v > hi) {
-    throw new UsageError(`--${name} must be an integer in [${lo}, ${hi}], got ${JSON.stringify(String(raw))}`);
-  }
-  return v;
-}
-
-/** A real option in (lo, hi] (loOpen) or [lo, hi]. */
-export function parseNumberOption(name: string, raw: unknown, lo: number, hi: number, loOpen: boolean): number {
-  const s = typeof raw === 'string' ? raw.trim() : String(raw);
-  const v = NUMBER_RE.test(s) ? Number(s) : NaN;
-  const ok = Number.isFinite(v) && (loOpen ? v > lo : v >= lo) && v <= hi;
-  if (!ok) throw new UsageError(`--${name} must be a number in ${describeRange(lo, hi, loOpen)}, got ${JSON.stringify(String(raw))}`);
-  return v;
-}
-
-/** An unsigned 64-bit integer in decimal; returned normalised (no leading zeros). */
-export function parseSeedOption(name: string, raw: unknown): string {
-  const s = typeof raw === 'string' ? raw.trim() : String(raw);
-  if (!/^\d{1,20}$/.test(s) || BigInt(s) > MAX_SEED) {
-    throw new UsageError(`--${name} must be an unsigned 64-bit integer in [0, ${MAX_SEED}] written in decimal, got ${JSON.stringify(String(raw))}`);
-  }
-  return BigInt(s).toString();
-}
+/** Limits of grow's own options (the model's parameters come from its descriptor). */
+export const GROW_PARTICLES = { min: 2, max: 100_000_000, integer: true } as const;
+export const PICTURE_SIZE = { min: 64, max: 8192, integer: true } as const;
+export const RECORDS_PER_DECADE = { min: 10, max: 100, integer: true } as const;
 
 /**
  * The model of `--model KIND` and `--param NAME=VALUE` options (repeatable):
@@ -122,8 +96,7 @@ export function parseModelOptions(kindRaw: unknown, paramsRaw: unknown): ModelPa
   for (const item of list) {
     const m = /^([A-Za-z0-9_]+)=(.*)$/.exec(String(item));
     if (!m) throw new UsageError(`--param: ${JSON.stringify(String(item))} is not allowed; allowed: NAME=VALUE with NAME one of ${d.params.map((p) => p.name).join(', ') || '(none: ' + kind + ' has no parameters)'}`);
-    const v = NUMBER_RE.test(m[2].trim()) || /^[-+]/.test(m[2].trim()) ? Number(m[2].trim()) : NaN;
-    given[m[1]] = Number.isNaN(v) ? (m[2] as unknown as number) : v;
+    given[m[1]] = optionNumber(m[2]) as number; // text that is no number is refused by the parameter check, quoted
   }
   const model = modelParams(kind, given);
   try {
@@ -141,14 +114,15 @@ export function parseGrowOptions(raw: Record<string, unknown>): GrowOptions {
     if (v === undefined) throw new UsageError(`--${flag} is required (${what})`);
     return v;
   };
-  const particles = parseIntegerOption('particles', need('particles', 'particles', 'an integer in [2, 100000000]'), 2, 100_000_000);
-  const seed = parseSeedOption('seed', need('seed', 'seed', 'an unsigned 64-bit integer in decimal'));
+  const particles = parseRangeOption('--particles', need('particles', 'particles', describeRange(GROW_PARTICLES)), GROW_PARTICLES);
+  const seed = parseSeedOption('--seed', need('seed', 'seed', 'an unsigned 64-bit integer in decimal'));
   const outRaw = need('out', 'out', 'the output folder');
   if (typeof outRaw !== 'string' || outRaw.trim() === '') throw new UsageError(`--out must name a folder, got ${JSON.stringify(String(outRaw))}`);
   const model = parseModelOptions(raw.model, raw.param);
-  const pictureSize = raw.pictureSize === undefined ? DEFAULT_PICTURE_SIZE : parseIntegerOption('picture-size', raw.pictureSize, 64, 8192);
-  const recordsPerDecade =
-    raw.recordsPerDecade === undefined ? DEFAULT_RECORDS_PER_DECADE : parseIntegerOption('records-per-decade', raw.recordsPerDecade, 10, 100);
+  const noPicture = noPictureReason(model.kind);
+  if (noPicture !== null && raw.pictureSize !== undefined) throw new UsageError(`--picture-size: not allowed for this model; ${noPicture}`);
+  const pictureSize = raw.pictureSize === undefined ? DEFAULT_PICTURE_SIZE : parseRangeOption('--picture-size', raw.pictureSize, PICTURE_SIZE, 'pixels');
+  const recordsPerDecade = raw.recordsPerDecade === undefined ? DEFAULT_RECORDS_PER_DECADE : parseRangeOption('--records-per-decade', raw.recordsPerDecade, RECORDS_PER_DECADE);
   return { particles, seed, out: outRaw, model, pictureSize, recordsPerDecade, quiet: raw.quiet === true };
 }
 
@@ -162,28 +136,27 @@ export function growTask(o: GrowOptions): GrowthTask {
   };
 }
 
-/** Radius of gyration about the centre of mass, and largest distance from the seed (particle 0). */
-export function clusterRadii(x: Float64Array, y: Float64Array, n: number): { radiusOfGyration: number; maxRadius: number } {
-  let sx = 0;
-  let sy = 0;
-  for (let i = 0; i < n; i++) {
-    sx += x[i];
-    sy += y[i];
-  }
-  const cx = sx / n;
-  const cy = sy / n;
+/** Radius of gyration about the centre of mass, and largest distance from the seed (particle 0), in any dimension. */
+export function clusterRadii(p: ClusterPositions): { radiusOfGyration: number; maxRadius: number } {
+  const n = p.count;
+  const d = p.dimension;
+  const c = p.coords;
+  const centre = new Float64Array(d);
+  for (let i = 0; i < n; i++) for (let k = 0; k < d; k++) centre[k] += c[i * d + k];
+  for (let k = 0; k < d; k++) centre[k] /= n;
   let s2 = 0;
   let m2 = 0;
-  const x0 = x[0];
-  const y0 = y[0];
   for (let i = 0; i < n; i++) {
-    const dx = x[i] - cx;
-    const dy = y[i] - cy;
-    s2 += dx * dx + dy * dy;
-    const ex = x[i] - x0;
-    const ey = y[i] - y0;
-    const d2 = ex * ex + ey * ey;
-    if (d2 > m2) m2 = d2;
+    let r2 = 0;
+    let e2 = 0;
+    for (let k = 0; k < d; k++) {
+      const a = c[i * d + k] - centre[k];
+      const e = c[i * d + k] - c[k];
+      r2 += a * a;
+      e2 += e * e;
+    }
+    s2 += r2;
+    if (e2 > m2) m2 = e2;
   }
   return { radiusOfGyration: Math.sqrt(s2 / n), maxRadius: Math.sqrt(m2) };
 }
@@ -236,19 +209,18 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
   progress.stop();
   const result = kernel.result();
   const pos = kernel.positions();
-  const x = axisOf(pos, 0);
-  const y = axisOf(pos, 1);
-  const radii = clusterRadii(x, y, pos.count);
+  const radii = clusterRadii(pos);
 
   const w0 = performance.now();
-  const points = { dimension: 2 as const, count: pos.count, x, y, diameter: modelDescriptor(task.model.kind).contactDistance, arrivalOrder: true };
+  const d = modelDescriptor(task.model.kind);
   const files = {
     runResult: join(dir, RUN_RESULT_FILE),
     snapshot: join(dir, SNAPSHOT_FILE),
-    picture: join(dir, PICTURE_FILE),
+    picture: d.picture === null ? null : join(dir, PICTURE_FILE),
   };
-  writeFileSync(files.snapshot, encodeSnapshot(points));
-  writeFileSync(files.picture, renderClusterPng(points, { size: o.pictureSize }));
+  writeFileSync(files.snapshot, encodeSnapshot(pointSetOf(pos, d.contactDistance)));
+  const picturePoints = picturePointsOf(task.model.kind, pos);
+  if (files.picture !== null && picturePoints !== null) writeFileSync(files.picture, renderClusterPng(picturePoints, { size: o.pictureSize }));
   const writeSeconds = (performance.now() - w0) / 1000;
   const timing: GrowTiming = {
     startedAt,
@@ -260,7 +232,7 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
   const file: RunResultFile = { ...result, timing };
   writeFileSync(files.runResult, JSON.stringify(file, null, 2) + '\n');
 
-  io.stdout.write(`${files.runResult}\n${files.snapshot}\n${files.picture}\n`);
+  io.stdout.write(`${files.runResult}\n${files.snapshot}\n${files.picture ?? `no ${PICTURE_FILE}: ${noPictureReason(task.model.kind)}`}\n`);
   io.stdout.write(
     `grew ${result.particles} particles (seed ${o.seed}): R_g = ${radii.radiusOfGyration.toFixed(2)}, ` +
       `R_max = ${radii.maxRadius.toFixed(2)}, ${formatRate(timing.particlesPerSecond)} particles/s over ${growSeconds.toFixed(1)} s\n`,

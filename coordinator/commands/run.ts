@@ -15,7 +15,7 @@ import type { SampleClusterInput } from '../report/index.js';
 import { specToDocument, type EnsembleSpec } from '../spec/index.js';
 import { growthTaskOf } from '../../proto/convert.js';
 import { createKernel } from '../../worker/models/registry.js';
-import { axisOf } from '../../worker/core/positions.js';
+import { noPictureReason, picturePointsOf } from '../render/model-picture.js';
 import { buildSummary, defaultSummaryOptions } from '../summary/index.js';
 import { UsageError } from '../usage-error.js';
 import { renderMeasurePng } from '../harmonic/measure-picture.js';
@@ -27,13 +27,13 @@ import { loadSpecFile, positiveInt } from './spec-file.js';
 /** Largest cluster regrown for the report's picture (results hold no positions; regrowing run 0 is cheap below this). */
 const PICTURE_MAX_PARTICLES = 200_000;
 
-/** Run 0 grown again in this thread (same task, same result) for the report's cluster picture. */
+/** Run 0 grown again in this thread (same task, same result) for the report's cluster picture (none when the model declares no picture). */
 function sampleCluster(ensembleId: string, spec: EnsembleSpec): SampleClusterInput | undefined {
-  if (spec.particles > PICTURE_MAX_PARTICLES) return undefined;
+  if (spec.particles > PICTURE_MAX_PARTICLES || noPictureReason(spec.model.kind) !== null) return undefined;
   const k = createKernel(growthTaskOf(runTaskFor(ensembleId, spec, 0)));
   k.growTo(spec.particles);
-  const p = k.positions();
-  return { points: { dimension: 2, count: p.count, x: axisOf(p, 0), y: axisOf(p, 1), diameter: 1 }, runIndex: 0 };
+  const points = picturePointsOf(spec.model.kind, k.positions());
+  return points === null ? undefined : { points, runIndex: 0 };
 }
 
 interface RunOptions extends AnalysisCliOptions {

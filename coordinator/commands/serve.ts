@@ -1,7 +1,7 @@
 /**
- * `tendril serve`: the coordinator's HTTP API and /metrics. Binds 127.0.0.1
- * by default; refuses any other address unless an API token is configured
- * (TENDRIL_API_TOKEN, or --token-file). Without a token, creating and
+ * `tendril serve`: the coordinator's HTTP API, the web status page at / and
+ * /metrics. Binds 127.0.0.1 by default; refuses any other address unless an
+ * API token is configured (TENDRIL_API_TOKEN, or --token-file). Without a token, creating and
  * cancelling are refused; everything else works.
  */
 import { readFile } from 'node:fs/promises';
@@ -44,7 +44,7 @@ export function register(program: Command): void {
   addFarmOptions(
     program
       .command('serve')
-      .description('run the HTTP API (create, list, status, cancel, summary downloads) and /metrics')
+      .description('run the HTTP API (create, list, status, cancel, summary downloads), the web status page at / and /metrics')
       .option('--host <address>', 'address to bind (non-loopback needs an API token)', '127.0.0.1')
       .option('--port <port>', 'port', positiveInt('--port', 65535), 8740)
       .option('--token-file <file>', 'file holding the API bearer token (default: TENDRIL_API_TOKEN)')

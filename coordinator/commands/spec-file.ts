@@ -19,10 +19,4 @@ export async function loadSpecFile(path: string, maxTotalParticles?: number): Pr
   }
 }
 
-export function positiveInt(name: string, max = 1_000_000): (v: string) => number {
-  return (v: string) => {
-    const n = Number(v);
-    if (!Number.isInteger(n) || n < 1 || n > max) throw new UsageError(`${name}: "${v}" is not allowed; allowed: an integer from 1 to ${max}`);
-    return n;
-  };
-}
+export { positiveInt } from './option-values.js';

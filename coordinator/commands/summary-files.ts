@@ -10,6 +10,7 @@ import type { EnsembleSummaryData, RunResultData } from '../../proto/convert.js'
 import { writeEnsembleReport, type SampleClusterInput } from '../report/index.js';
 import type { EnsembleSpec } from '../spec/index.js';
 import { analysisOf, CSV_TABLES, harmonicOfSummary, summaryToJson, summaryToProtobuf, type AdaptiveHistory } from '../summary/index.js';
+import type { ObservableSection } from '../stats/observable-bands.js';
 
 export interface SummaryFilesOptions {
   /** Write report.html and plots/ (default true). */
@@ -74,6 +75,27 @@ export function describeAnalysis(s: EnsembleSummaryData): string {
     const x = JSON.parse(s.statisticsJson) as { reason?: string };
     if (x.reason) lines.push(`no statistics: ${x.reason}`);
   }
+  const obs = observablesOfSummary(s);
+  if (obs) {
+    const at = (name: string) => {
+      const b = obs.bands.find((x) => x.name === name);
+      if (!b || b.sizes.length === 0) return null;
+      const i = b.sizes.length - 1;
+      return `${b.mean[i].toFixed(4)} [${b.lo[i].toFixed(4)}, ${b.hi[i].toFixed(4)}]`;
+    };
+    const parts = ['fold_amplitude_4', 'axis_ratio_4', 'fold_amplitude_6', 'axis_ratio_6'].map((n) => [n, at(n)]).filter(([, v]) => v !== null);
+    const last = obs.bands[0]?.sizes.at(-1);
+    if (parts.length > 0) lines.push(`anisotropy at N = ${last} (mean [${Math.round(obs.level * 100)}% percentile band]): ${parts.map(([n, v]) => `${n} ${v}`).join(', ')}`);
+    const g = obs.interfaceGrowth;
+    if (g) {
+      const iv = g.interval.bca ?? g.interval.percentile;
+      lines.push(
+        `interface growth exponent beta (w ~ R^beta, fit over N = ${short(g.window.fromSize)}..${short(g.window.toSize)}): ${g.beta.toFixed(4)}` +
+          (iv ? ` [${iv[0].toFixed(4)}, ${iv[1].toFixed(4)}] (${Math.round(g.interval.level * 100)}% ${g.interval.bca ? 'BCa' : 'percentile'})` : ` (no interval: ${g.interval.status})`) +
+          `; KPZ 1/3: ${g.verdict} (rule: 1/3 inside the interval)`,
+      );
+    }
+  }
   const hm = harmonicOfSummary(s);
   if (hm) {
     const last = hm.bySize[hm.bySize.length - 1];
@@ -112,4 +134,11 @@ export function describeAnalysis(s: EnsembleSummaryData): string {
 
 function short(v: number): string {
   return Number.isInteger(v) ? String(v) : v.toPrecision(4);
+}
+
+/** The model-observable section of a summary's statistics, or null. */
+export function observablesOfSummary(s: EnsembleSummaryData): ObservableSection | null {
+  if (s.statisticsJson === '') return null;
+  const x = JSON.parse(s.statisticsJson) as { observables?: ObservableSection };
+  return x.observables?.schema === 'tendril.observables/1' ? x.observables : null;
 }

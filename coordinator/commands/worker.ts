@@ -2,11 +2,19 @@
  * `tendril worker`: serve the farm's run queue with one job per core (worker
  * threads), checkpointing to the artifact directory. SIGTERM/SIGINT:
  * checkpoint active runs, hand them back to the queue, exit within 10 s.
+ *
+ * At start the artifact folder must be writable (else one line, exit code 2);
+ * temporary files that dead writers left there are removed. With
+ * --exit-when-idle S the worker ends by itself (exit code 0) once the run
+ * queue has held no pending job for S seconds, as a Slurm array task should
+ * (deploy/slurm/tendril-worker.sbatch).
  */
 import { availableParallelism } from 'node:os';
 import { Option, type Command } from 'commander';
 import { advanceAdaptive, startAdaptiveSweeps } from '../farm/adaptive.js';
-import { DirectoryArtifactStore } from '../farm/artifacts.js';
+import { artifactFolderProblem, DirectoryArtifactStore, removeOrphanTemporaries } from '../farm/artifacts.js';
+import { watchForIdle } from '../farm/idle-watch.js';
+import { UsageError } from '../usage-error.js';
 import { FarmProbeHandler, keepFinalAndQueueProbes } from '../farm/probe-jobs.js';
 import { ProbeRequestStore } from '../farm/probe-requests.js';
 import type { RunSink } from '../../worker/runtime/queue-processor.js';
@@ -14,6 +22,7 @@ import { newRegistry, serveMetrics, workerMetrics } from '../metrics/index.js';
 import { RunWorker } from '../../worker/runtime/queue-processor.js';
 import { addFarmOptions, openFarm, type FarmCliOptions } from './farm-options.js';
 import { positiveInt } from './spec-file.js';
+import { messageOf } from '../../proto/errors.js';
 
 interface WorkerOptions extends FarmCliOptions {
   concurrency?: number;
@@ -24,7 +33,11 @@ interface WorkerOptions extends FarmCliOptions {
   stalledMs?: number;
   progressMs?: number;
   adaptiveSweepMs: number;
+  exitWhenIdle?: number;
 }
+
+/** Temporary files older than this are orphans of dead writers (a live write takes seconds). */
+const ORPHAN_TMP_AGE_MS = 15 * 60_000;
 
 const SHUTDOWN_LIMIT_MS = 9_000;
 
@@ -37,11 +50,16 @@ export function register(program: Command): void {
       .option('--artifacts <dir>', 'checkpoint folder shared by all workers (default: TENDRIL_ARTIFACTS or ./tendril-artifacts)')
       .option('--metrics-port <port>', 'serve Prometheus /metrics on this port (default: TENDRIL_WORKER_METRICS_PORT, else off)', positiveInt('--metrics-port', 65535))
       .option('--metrics-host <host>', 'address for /metrics', '127.0.0.1')
+      .option('--exit-when-idle <seconds>', 'exit once the run queue has had no pending job for this long (batch-system array tasks)', positiveInt('--exit-when-idle', 86_400))
       .addOption(new Option('--lock-ms <ms>', 'queue lock duration').argParser(positiveInt('--lock-ms', 3_600_000)).hideHelp())
       .addOption(new Option('--stalled-ms <ms>', 'stalled-job check interval').argParser(positiveInt('--stalled-ms', 3_600_000)).hideHelp())
       .addOption(new Option('--progress-ms <ms>', 'progress report interval').argParser(positiveInt('--progress-ms', 600_000)).hideHelp())
       .addOption(new Option('--adaptive-sweep-ms <ms>', 'how often to check adaptive ensembles for a finished batch').argParser(positiveInt('--adaptive-sweep-ms', 3_600_000)).default(30_000).hideHelp()),
   ).action(async (opts: WorkerOptions) => {
+    const artifactRoot = opts.artifacts ?? process.env.TENDRIL_ARTIFACTS ?? 'tendril-artifacts';
+    const problem = await artifactFolderProblem(artifactRoot);
+    if (problem) throw new UsageError(problem);
+    const orphans = await removeOrphanTemporaries(artifactRoot, ORPHAN_TMP_AGE_MS);
     const farm = await openFarm(opts);
     const registry = newRegistry();
     const metrics = workerMetrics(registry);
@@ -50,9 +68,8 @@ export function register(program: Command): void {
     // adaptive ensembles: the worker that stores the last result of a batch judges it and queues the next
     // batch (coordinator/farm/adaptive.ts: an atomic Redis step, so a batch is never added twice)
     const store = farm.store;
-    const artifacts = new DirectoryArtifactStore(opts.artifacts ?? process.env.TENDRIL_ARTIFACTS ?? 'tendril-artifacts');
-    // temporaries of processes killed mid-write (an hour old: no live writer holds them)
-    void artifacts.sweepTemporaries().then((n) => n > 0 && log(`removed ${n} orphaned temporary file(s) from the artifact folder`), () => undefined);
+    const artifacts = new DirectoryArtifactStore(artifactRoot);
+    if (orphans > 0) log(`removed ${orphans} temporary file(s) left in ${artifacts.root} by writers that died`);
     const probes = new FarmProbeHandler(store, artifacts, concurrency, { onProbed: metrics.onProbed, log }, new ProbeRequestStore(farm.redis, farm.prefix));
     const sink: RunSink = {
       finalPositions: (run, bytes) => keepFinalAndQueueProbes(store, artifacts, farm.queue, run, bytes),
@@ -69,7 +86,7 @@ export function register(program: Command): void {
           const step = await advanceAdaptive(store, farm.queue, result.ensembleId);
           if (step === 'extended' || step === 'finished') log(`adaptive ensemble ${result.ensembleId}: batch judged, ${step === 'extended' ? 'next batch queued' : 'stopped'}`);
         } catch (err) {
-          log(`adaptive ensemble ${result.ensembleId}: ${(err as Error).message.split('\n')[0]} (the periodic sweep retries)`);
+          log(`adaptive ensemble ${result.ensembleId}: ${messageOf(err)} (the periodic sweep retries)`);
         }
         return counted;
       },
@@ -93,8 +110,13 @@ export function register(program: Command): void {
     worker.start();
     process.stdout.write(`worker ${worker.workerId} ready: ${concurrency} thread(s), prefix ${farm.prefix}${server ? `, metrics on http://${opts.metricsHost}:${port}/metrics` : ''}\n`);
     await new Promise<void>((resolve) => {
+      let stopping = false;
+      let stopIdleWatch = () => undefined as void;
       const onSignal = (sig: string) => {
-        log(`${sig}: checkpointing active runs and handing them back`);
+        if (stopping) return;
+        stopping = true;
+        stopIdleWatch();
+        log(sig === 'idle' ? `the run queue had no pending job for ${opts.exitWhenIdle} s: exiting` : `${sig}: checkpointing active runs and handing them back`);
         const hard = setTimeout(() => {
           log('shutdown took too long; exiting');
           process.exit(1);
@@ -110,8 +132,9 @@ export function register(program: Command): void {
             void farm.close().finally(resolve);
           });
       };
-      process.once('SIGTERM', () => onSignal('SIGTERM'));
-      process.once('SIGINT', () => onSignal('SIGINT'));
+      process.on('SIGTERM', () => onSignal('SIGTERM'));
+      process.on('SIGINT', () => onSignal('SIGINT'));
+      if (opts.exitWhenIdle) stopIdleWatch = watchForIdle(farm.queue, opts.exitWhenIdle * 1000, () => onSignal('idle'));
     });
   });
 }

@@ -1,6 +1,11 @@
 /**
- * Embedded mode: the same plan, kernel, task runner and summary as the farm,
- * with an in-process pool of worker threads instead of BullMQ and Redis.
+ * Embedded mode: the same plan, kernel, task runner, run lifecycle and
+ * summary as the farm, with an in-process pool of worker threads instead of
+ * BullMQ and Redis. Every cluster goes through the farm's runOne
+ * (worker/runtime/run-lifecycle.ts) with in-process implementations of its
+ * storage interfaces (coordinator/embedded/in-memory-stores.ts: results in
+ * memory and, given an artifact store, under the farm's keys; checkpoints in
+ * the artifact store or in memory).
  *
  * An adaptive spec ([target]) grows batch after batch: after each complete
  * batch the stopping rule (coordinator/summary/adaptive.ts) judges all
@@ -20,20 +25,23 @@
  * are kept, so an interrupted run probes only what is missing.
  */
 import { availableParallelism } from 'node:os';
-import { decodeCheckpoint, decodeRunResult, encodeRunResult, type RunResultData, type RunTaskData } from '../../proto/convert.js';
-import type { ClusterPositions } from '../../worker/core/growth-kernel.js';
+import { decodeCheckpoint, decodeRunResult, type RunResultData, type RunTaskData } from '../../proto/convert.js';
 import { axisOf } from '../../worker/core/positions.js';
 import { ProbeThreadPool } from '../../worker/runtime/probe-thread-pool.js';
 import { diskSetDigest, type ProbeResult } from '../../worker/probe/probe-2d.js';
 import { analyseProbedCluster, clusterPrefix, positionsOf, probeTasksOf } from '../harmonic/ensemble-probing.js';
 import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
-import { TaskThreadPool, type ThreadOutcome, type ThreadRun } from '../../worker/runtime/task-thread.js';
-import { checkpointKey, type ArtifactStore } from '../farm/artifacts.js';
-import { finalKey, hitsKey } from '../farm/probe-jobs.js';
+import { TaskThreadPool, type ThreadRun } from '../../worker/runtime/task-thread.js';
+import { runOne } from '../../worker/runtime/run-lifecycle.js';
+import { TaskRejected } from '../../worker/runtime/task-runner.js';
+import { EmbeddedRunSink, MemoryCheckpointStore } from './in-memory-stores.js';
+import type { ArtifactStore } from '../farm/artifacts.js';
+import { finalKey, harmonicKey, hitsKey, resultKey } from '../../worker/runtime/job-contract.js';
 import { planEnsemble, type PlannedJob } from '../plan.js';
 import { maxRunsOf, probeSizesOf, type EnsembleSpec } from '../spec/index.js';
 import { buildSummary, defaultSummaryOptions, judgeBatch, newAdaptiveHistory, type AdaptiveBatch, type AdaptiveHistory, type SummaryOptions } from '../summary/index.js';
 import type { EnsembleSummaryData } from '../../proto/convert.js';
+import { messageOf, TendrilError } from '../../proto/errors.js';
 
 export interface EmbeddedProgress {
   runsDone: number;
@@ -85,8 +93,9 @@ export interface EmbeddedOutcome {
   picture: ProbedPicture | null;
 }
 
-export class EmbeddedAborted extends Error {
+export class EmbeddedAborted extends TendrilError {
   override name = 'EmbeddedAborted';
+  readonly kind = 'aborted';
   /** Results finished before the interruption (run-index order) and the clusters planned so far. */
   results: RunResultData[] = [];
   clustersPlanned = 0;
@@ -94,21 +103,20 @@ export class EmbeddedAborted extends Error {
   harmonic: ClusterHarmonic[] = [];
 }
 
-const resultKey = (id: string, i: number) => `${id}/run-${i}.result`;
-export const harmonicKey = (id: string, i: number) => `${id}/run-${i}.harmonic.json`;
 
 export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Promise<EmbeddedOutcome> {
   const t0 = Date.now();
   const maxRuns = maxRunsOf(spec);
   const pool = new TaskThreadPool(Math.max(1, Math.min(opts.threads ?? availableParallelism(), maxRuns)));
   const store = opts.store;
-  const results = new Map<number, RunResultData>();
-  const live = new Map<number, number>();
   const probe = spec.probe;
   const probeSizes = probeSizesOf(spec);
   const probePool = probe ? new ProbeThreadPool(pool.size) : null;
+  const sink = new EmbeddedRunSink(opts.ensembleId, store, () => report());
+  const checkpoints = store ?? new MemoryCheckpointStore();
+  const { results, live } = sink;
   /** Clusters not yet probed: their final positions, or null when they wait in the store. */
-  const finals = new Map<number, ClusterPositions | null>();
+  const finals = sink.finals;
   const harmonic = new Map<number, ClusterHarmonic[]>();
   let picture: ProbedPicture | null = null;
   let probeJobsDone = 0;
@@ -165,53 +173,30 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
     return e;
   };
 
+  /** Grow the runs of a batch that have no result yet, each through the farm's run lifecycle (runOne). */
   const grow = async (runs: RunTaskData[]) => {
-    const failures: string[] = [];
+    const failures = sink.failures;
+    failures.length = 0;
     await Promise.all(
       runs
         .filter((run) => !results.has(run.runIndex))
         .map(async (run) => {
           if (opts.signal?.aborted) return;
-          const key = checkpointKey(opts.ensembleId, run.runIndex);
-          const checkpoint = store ? ((await store.get(key)) ?? undefined) : undefined;
-          let writes = Promise.resolve();
-          const handle = pool.run(run, {
-            checkpoint,
-            workerId: 'embedded',
-            onProgress: (p) => {
-              live.set(run.runIndex, p.count);
-              report();
-            },
-            onCheckpoint: (bytes) => {
-              if (store) writes = writes.then(() => store.put(key, bytes));
-            },
-          });
-          active.add(handle);
-          if (opts.signal?.aborted) handle.stop();
-          const outcome: ThreadOutcome = await handle.outcome;
-          active.delete(handle);
-          await writes;
-          live.delete(run.runIndex);
-          if (outcome.status === 'done') {
-            if (probe) {
-              if (!outcome.final) throw new Error(`run ${run.runIndex}: the thread returned no final positions to probe`);
-              if (store) {
-                await store.put(finalKey(opts.ensembleId, run.runIndex), outcome.final);
-                finals.set(run.runIndex, null);
-              } else finals.set(run.runIndex, positionsOf(decodeCheckpoint(outcome.final)));
-            }
-            results.set(run.runIndex, outcome.result);
-            if (store) {
-              await store.put(resultKey(opts.ensembleId, run.runIndex), encodeRunResult(outcome.result));
-              await store.delete(key);
-            }
-            report();
-          } else if (outcome.status === 'unstarted') {
-            // never ran: nothing to keep
-          } else if (outcome.status === 'stopped') {
-            if (store) await store.put(key, outcome.checkpoint);
-          } else {
-            failures.push(`run ${run.runIndex}: ${outcome.message}`);
+          try {
+            await runOne(run, {
+              pool,
+              sink,
+              checkpoints,
+              workerId: 'embedded',
+              progressIntervalMs: 250,
+              onStart: (handle) => {
+                active.add(handle);
+                if (opts.signal?.aborted) handle.stop();
+              },
+              onEnd: (handle) => active.delete(handle),
+            });
+          } catch (err) {
+            if (!(err instanceof TaskRejected)) failures.push(messageOf(err));
           }
         }),
     );

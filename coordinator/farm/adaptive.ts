@@ -29,6 +29,7 @@ import { planEnsemble } from '../plan.js';
 import { judgeBatch, type AdaptiveHistory } from '../summary/adaptive.js';
 import { jobsOfPlan } from './queue.js';
 import type { EnsembleStore } from './store.js';
+import { messageOf } from '../../proto/errors.js';
 
 export type AdvanceResult = 'not-adaptive' | 'unknown' | 'stopped' | 'waiting' | 'extended' | 'lost-race' | 'finished';
 
@@ -92,7 +93,7 @@ export async function sweepAdaptive(store: EnsembleStore, queue: Queue, log?: (l
     try {
       await advanceAdaptive(store, queue, id);
     } catch (err) {
-      log?.(`adaptive ensemble ${id}: ${(err as Error).message.split('\n')[0]}`);
+      log?.(`adaptive ensemble ${id}: ${messageOf(err)}`);
     }
   }
 }

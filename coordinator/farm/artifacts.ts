@@ -3,11 +3,14 @@
  * The first implementation is a directory that every worker can reach (local
  * disk or a shared filesystem); an object store can implement the same
  * interface. Writes are atomic (temporary file + rename), so a reader never
- * sees half a checkpoint, even when a worker is killed mid-write.
+ * sees half a checkpoint, even when a worker is killed mid-write. The keys
+ * are listed in the job contract (worker/runtime/job-contract.ts).
  */
-import { mkdir, readFile, rename, rm, writeFile, readdir, stat } from 'node:fs/promises';
+import { mkdir, readFile, rename, rm, stat, writeFile, readdir } from 'node:fs/promises';
+import { hostname } from 'node:os';
 import { join, resolve } from 'node:path';
 import { randomBytes } from 'node:crypto';
+import { messageOf } from '../../proto/errors.js';
 
 export interface ArtifactStore {
   put(key: string, bytes: Uint8Array): Promise<void>;
@@ -48,40 +51,6 @@ export class DirectoryArtifactStore implements ArtifactStore {
     }
   }
 
-  /**
-   * Remove temporaries (`*.tmp`) older than `olderThanMs` left by a process
-   * killed between writing and renaming; returns how many were removed.
-   * Workers call it when they start (a temporary that young may still be
-   * being written by another worker, so it is kept).
-   */
-  async sweepTemporaries(olderThanMs = 3_600_000, now = Date.now()): Promise<number> {
-    let removed = 0;
-    const walk = async (dir: string): Promise<void> => {
-      let entries;
-      try {
-        entries = await readdir(dir, { withFileTypes: true });
-      } catch {
-        return;
-      }
-      for (const e of entries) {
-        const p = join(dir, e.name);
-        if (e.isDirectory()) await walk(p);
-        else if (e.name.endsWith('.tmp')) {
-          try {
-            if (now - (await stat(p)).mtimeMs >= olderThanMs) {
-              await rm(p, { force: true });
-              removed++;
-            }
-          } catch {
-            // gone meanwhile
-          }
-        }
-      }
-    };
-    await walk(this.root);
-    return removed;
-  }
-
   async get(key: string): Promise<Uint8Array | null> {
     try {
       return await readFile(this.path(key));
@@ -111,7 +80,59 @@ export class DirectoryArtifactStore implements ArtifactStore {
   }
 }
 
-/** Key of the newest checkpoint of a run. */
-export function checkpointKey(ensembleId: string, runIndex: number): string {
-  return `${ensembleId}/run-${runIndex}.checkpoint`;
+/**
+ * Check that a worker can create, rename and delete files in the artifact
+ * folder (creating the folder if needed). Returns null when it can, else one
+ * line saying why not. A multi-host farm needs this folder on a filesystem
+ * that every worker mounts at the same path (e.g. a cluster's shared /scratch).
+ */
+export async function artifactFolderProblem(root: string): Promise<string | null> {
+  const dir = resolve(root);
+  const probe = join(dir, `.write-check-${hostname()}-${process.pid}-${randomBytes(4).toString('hex')}.tmp`);
+  try {
+    await mkdir(dir, { recursive: true });
+    await writeFile(probe, 'tendril');
+    await rename(probe, `${probe}.renamed`);
+    await rm(`${probe}.renamed`);
+    return null;
+  } catch (err) {
+    await rm(probe, { force: true }).catch(() => undefined);
+    const code = (err as NodeJS.ErrnoException).code ?? messageOf(err);
+    return `--artifacts: "${dir}" is not writable by this worker (${code}); allowed: a folder this user can create files in, on a filesystem every worker mounts at the same path`;
+  }
+}
+
+/**
+ * Delete temporary files (`*.tmp`) left by writers that died between write and
+ * rename, in the folder and one level of subfolders (one per ensemble). Only
+ * files older than `olderThanMs` go: a live writer on another host may be
+ * between its write and its rename right now. Returns the count removed.
+ */
+export async function removeOrphanTemporaries(root: string, olderThanMs: number, now = Date.now()): Promise<number> {
+  const dir = resolve(root);
+  let removed = 0;
+  const sweep = async (folder: string, depth: number) => {
+    let entries;
+    try {
+      entries = await readdir(folder, { withFileTypes: true });
+    } catch {
+      return;
+    }
+    for (const e of entries) {
+      const p = join(folder, e.name);
+      if (e.isDirectory() && depth > 0) await sweep(p, depth - 1);
+      else if (e.isFile() && e.name.endsWith('.tmp')) {
+        try {
+          if (now - (await stat(p)).mtimeMs > olderThanMs) {
+            await rm(p, { force: true });
+            removed++;
+          }
+        } catch {
+          // removed meanwhile by another worker
+        }
+      }
+    }
+  };
+  await sweep(dir, 1);
+  return removed;
 }

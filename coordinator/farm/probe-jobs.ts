@@ -19,7 +19,8 @@ import type { Queue } from 'bullmq';
 import { decodeCheckpoint, type RunTaskData } from '../../proto/convert.js';
 import type { ProbeResult } from '../../worker/probe/probe-2d.js';
 import { ProbeJobCancelled, ProbeJobFailed, ProbeThreadPool } from '../../worker/runtime/probe-thread-pool.js';
-import { JOB_PAYLOAD_VERSION, ProbeJobRefused, type ProbeJobData, type ProbeJobHandler } from '../../worker/runtime/queue-processor.js';
+import { ProbeJobRefused, type ProbeJobHandler } from '../../worker/runtime/queue-processor.js';
+import { finalKey, hitsKey, JOB_PAYLOAD_VERSION, probeResultKey, requestResultKey, type ProbeJobData } from '../../worker/runtime/job-contract.js';
 import { analyseProbedCluster, clusterPrefix, positionsOf, prefixDigest, probeTasksOf } from '../harmonic/ensemble-probing.js';
 import { probeSizesOf, type EnsembleSpec } from '../spec/index.js';
 import type { ArtifactStore } from './artifacts.js';
@@ -29,10 +30,6 @@ import { analyseResults } from '../harmonic/probe-run.js';
 import type { DiskSet } from '../../worker/probe/probe-2d.js';
 import type { ClusterPositions } from '../../worker/core/growth-kernel.js';
 
-export const finalKey = (id: string, run: number) => `${id}/run-${run}.final`;
-export const hitsKey = (id: string, run: number) => `${id}/run-${run}.hits`;
-export const probeResultKey = (id: string, run: number, size: number, job: number) => `${id}/probe/run-${run}-size-${size}/job-${job}.json`;
-export const requestResultKey = (id: string, job: number) => `${id}/request/job-${job}.json`;
 
 /** BullMQ job descriptions of the probes of one finished run. */
 export function probeJobsOf(id: string, spec: EnsembleSpec, runIndex: number, final: ClusterPositions, attempts = 5) {
@@ -146,7 +143,7 @@ export class FarmProbeHandler implements ProbeJobHandler {
         results.push(JSON.parse(Buffer.from(b).toString('utf8')) as ProbeResult);
       }
       const set = await this.requestSet(id);
-      const a = analyseResults(set, results.sort((x, y) => x.jobIndex - y.jobIndex), s.q);
+      const a = analyseResults(set, results.sort((x, y) => x.jobIndex - y.jobIndex), s.q, s.window ?? null);
       if (await req.saveMeasures(id, a.measures, a.counts)) this.events.log?.(`probe request ${id}: analysed`);
     }
     return 'done';

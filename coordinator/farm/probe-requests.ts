@@ -21,70 +21,79 @@
 import { randomBytes } from 'node:crypto';
 import type { Queue } from 'bullmq';
 import type { Redis } from 'ioredis';
-import { diskSetDigest, planProbeJobs, DEFAULT_PROBE_LAUNCH_MARGIN, DEFAULT_PROBE_MIN_STEP, type DiskSet } from '../../worker/probe/probe-2d.js';
-import { JOB_PAYLOAD_VERSION, type ProbeJobData } from '../../worker/runtime/queue-processor.js';
+import { diskSetDigest, planProbeJobs, DEFAULT_PROBE_LAUNCH_MARGIN, type DiskSet } from '../../worker/probe/probe-2d.js';
+import { quoteValue } from '../../worker/core/value-range.js';
+import { JOB_PAYLOAD_VERSION, type ProbeJobData } from '../../worker/runtime/job-contract.js';
 import { parseDiskCsv } from '../harmonic/probe-input.js';
 import { probeGeometryProblem } from '../../worker/probe/probe-limits.js';
 import { excerpt, fieldKey, nestingProblem } from '../spec/document-limits.js';
 import type { HarmonicMeasures } from '../harmonic/probe-analysis.js';
-import { DEFAULT_PROBE_Q, defaultProbeJobs } from '../spec/index.js';
+import { PROBE_SETTINGS_PROPERTIES, probeSettingsOf, probeSettingsProblems, type ProbeSettings, type ProbeSettingsDocument } from '../harmonic/probe-settings.js';
+import { NAME_SCHEMA, SEED_SCHEMA } from '../spec/schema.js';
+import { compileChecker, type Checker } from '../spec/schema-messages.js';
+import { TendrilError } from '../../proto/errors.js';
 
-export interface ProbeRequestSettings {
+export interface ProbeRequestSettings extends ProbeSettings {
   name: string;
-  walkers: number;
   seed: string;
-  jobs: number;
-  q: number[];
-  contactSample: number;
-  minStep: number;
 }
 
-export class ProbeRequestError extends Error {
+export class ProbeRequestError extends TendrilError {
   override name = 'ProbeRequestError';
+  readonly kind = 'request';
 }
 
 /** Most disks in one request. */
 export const MAX_REQUEST_DISKS = 2_000_000;
 
-const isInt = (v: unknown, lo: number, hi: number): v is number => typeof v === 'number' && Number.isSafeInteger(v) && v >= lo && v <= hi;
+/**
+ * The JSON schema of a POST /probes body: the shared probe settings
+ * (coordinator/harmonic/probe-settings.ts), a seed, an optional name, and the
+ * set as csv text or points (their contents are checked by validateProbeRequest).
+ */
+export const PROBE_REQUEST_SCHEMA = {
+  $id: 'tendril/probe-request',
+  type: 'object',
+  additionalProperties: false,
+  required: ['walkers', 'seed'],
+  properties: {
+    name: NAME_SCHEMA,
+    csv: { type: 'string', description: 'text of x,y,r rows' },
+    points: { type: 'object', description: '{x: [...], y: [...], r: number or [...]} with x and y of equal length' },
+    ...PROBE_SETTINGS_PROPERTIES,
+    seed: SEED_SCHEMA,
+  },
+} as const;
+
+/** The schema-level problems of a probe request body, one line each. */
+export const probeRequestProblems: Checker = compileChecker(PROBE_REQUEST_SCHEMA);
 
 /**
  * Check a request body: { name?, csv? | points?: {x: [...], y: [...], r: number | [...]},
- * walkers, seed, jobs?, q?, contact_sample?, min_step? }. Throws ProbeRequestError with one
+ * walkers, seed, jobs?, q?, contact_sample?, min_step?, window? }. Throws ProbeRequestError with one
  * line naming the field, the value and what is allowed.
  */
 export function validateProbeRequest(body: unknown): { settings: ProbeRequestSettings; set: DiskSet & { x: Float64Array; y: Float64Array; r: Float64Array } } {
   const fail = (m: string): never => {
     throw new ProbeRequestError(m);
   };
-  const show = (v: unknown) => excerpt(v, 60);
+  const show = quoteValue;
   if (typeof body !== 'object' || body === null || Array.isArray(body)) fail('body: not allowed; allowed: a JSON object with walkers, seed and csv or points');
   const tooDeep = nestingProblem(body, 'body');
   if (tooDeep !== null) fail(tooDeep);
-  const b = body as Record<string, unknown>;
   for (const k of ['name', 'csv', 'points', 'walkers', 'seed', 'jobs', 'q', 'contact_sample', 'min_step']) {
-    if (b[k] === null) fail(`${k}: null is not allowed; allowed: leave the field out to take its default`);
+    if ((body as Record<string, unknown>)[k] === null) fail(`${k}: null is not allowed; allowed: leave the field out to take its default`);
   }
-  const known = ['name', 'csv', 'points', 'walkers', 'seed', 'jobs', 'q', 'contact_sample', 'min_step'];
-  for (const k in b) if (Object.prototype.hasOwnProperty.call(b, k) && !known.includes(k)) fail(`${fieldKey(k)}: unknown field; allowed fields: ${known.join(', ')}`);
-  if (b.name !== undefined && (typeof b.name !== 'string' || !/^[A-Za-z0-9][A-Za-z0-9 _.,:()+-]{0,99}$/.test(b.name))) fail(`name: ${show(b.name)} is not allowed; allowed: 1 to 100 letters, digits, spaces or _.,:()+-`);
-  if (!isInt(b.walkers, 100, 1e10)) fail(`walkers: ${show(b.walkers)} is out of range; allowed: an integer from 100 to 10000000000`);
-  const walkers = b.walkers as number;
-  const seedOk = (typeof b.seed === 'string' && /^[0-9]{1,20}$/.test(b.seed) && BigInt(b.seed) < 1n << 64n) || isInt(b.seed, 0, Number.MAX_SAFE_INTEGER);
-  if (!seedOk) fail(`seed: ${show(b.seed)} is not allowed; allowed: an unsigned 64-bit integer (decimal string, or an integer below 2^53)`);
-  const jobs = b.jobs ?? defaultProbeJobs(walkers);
-  if (!isInt(jobs, 1, Math.min(4096, walkers))) fail(`jobs: ${show(b.jobs)} is out of range; allowed: an integer from 1 to ${Math.min(4096, walkers)}`);
-  const q = b.q ?? [...DEFAULT_PROBE_Q];
-  if (!Array.isArray(q) || q.length < 1 || q.length > 401 || q.some((v) => typeof v !== 'number' || !(v >= -50 && v <= 50)) || new Set(q).size !== q.length)
-    fail(`q: ${show(b.q)} is not allowed; allowed: 1 to 401 distinct numbers from -50 to 50`);
-  const cs = b.contact_sample ?? 4000;
-  if (!isInt(cs, 3, 20000)) fail(`contact_sample: ${show(b.contact_sample)} is out of range; allowed: an integer from 3 to 20000`);
-  const minStep = b.min_step ?? DEFAULT_PROBE_MIN_STEP;
-  if (typeof minStep !== 'number' || !(minStep > 0 && minStep <= 1)) fail(`min_step: ${show(b.min_step)} is out of range; allowed: a number above 0 up to 1`);
+  const schemaProblems = probeRequestProblems(body);
+  if (schemaProblems.length > 0) fail(schemaProblems[0]);
+  const b = body as Record<string, unknown>;
+  if (BigInt(b.seed as string | number) >= 1n << 64n) fail(`seed: ${show(b.seed)} is out of range; allowed: an integer from 0 to 18446744073709551615`);
+  const doc = b as unknown as ProbeSettingsDocument;
+  const settingsProblems = probeSettingsProblems(doc);
+  if (settingsProblems.length > 0) fail(settingsProblems[0]);
   if ((b.csv === undefined) === (b.points === undefined)) fail('csv, points: exactly one must be given; allowed: csv (text of x,y,r rows) or points ({x: [...], y: [...], r: number or [...]})');
   let x: Float64Array, y: Float64Array, r: Float64Array;
   if (b.csv !== undefined) {
-    if (typeof b.csv !== 'string') fail(`csv: ${show(b.csv)} is not allowed; allowed: text of x,y,r rows`);
     try {
       const s = parseDiskCsv(b.csv as string, 'csv');
       x = s.x; y = s.y; r = s.r as Float64Array;
@@ -93,7 +102,7 @@ export function validateProbeRequest(body: unknown): { settings: ProbeRequestSet
     }
   } else {
     const p = b.points as Record<string, unknown>;
-    if (typeof p !== 'object' || p === null || !Array.isArray(p.x) || !Array.isArray(p.y)) return fail(`points: ${show(b.points)} is not allowed; allowed: {x: [...], y: [...], r: number or [...]} with x and y of equal length`);
+    if (!Array.isArray(p.x) || !Array.isArray(p.y)) return fail(`points: ${show(b.points)} is not allowed; allowed: {x: [...], y: [...], r: number or [...]} with x and y of equal length`);
     const n = p.x.length;
     if (n > MAX_REQUEST_DISKS) fail(`points.x: ${n} values is out of range; allowed: at most ${MAX_REQUEST_DISKS}`);
     if (n < 1 || p.y.length !== n) fail(`points.y: ${p.y.length} values is not allowed; allowed: as many as points.x (${n}), at least 1`);
@@ -109,10 +118,10 @@ export function validateProbeRequest(body: unknown): { settings: ProbeRequestSet
     if (Array.isArray(p.r) && p.r.length !== n) fail(`points.r: ${p.r.length} values is not allowed; allowed: one number, or as many as points.x (${n})`);
   }
   if (x!.length > MAX_REQUEST_DISKS) fail(`points: ${x!.length} disks is out of range; allowed: at most ${MAX_REQUEST_DISKS}`);
-  const shape = probeGeometryProblem({ count: x!.length, x: x!, y: y!, r: r! }, minStep as number, b.csv !== undefined ? 'csv' : 'points');
+  const shape = probeGeometryProblem({ count: x!.length, x: x!, y: y!, r: r! }, probeSettingsOf(doc).minStep, b.csv !== undefined ? 'csv' : 'points');
   if (shape !== null) fail(shape);
   return {
-    settings: { name: (b.name as string | undefined) ?? 'probe', walkers, seed: BigInt(b.seed as string | number).toString(), jobs: jobs as number, q: [...(q as number[])], contactSample: Math.min(walkers, cs as number), minStep: minStep as number },
+    settings: { name: (b.name as string | undefined) ?? 'probe', seed: BigInt(b.seed as string | number).toString(), ...probeSettingsOf(doc) },
     set: { count: x!.length, x: x!, y: y!, r: r! },
   };
 }

@@ -8,7 +8,7 @@
 import { Queue, type ConnectionOptions } from 'bullmq';
 import type { Redis } from 'ioredis';
 import { encodeRunTask } from '../../proto/convert.js';
-import { JOB_PAYLOAD_VERSION, QUEUE_NAME, type RunJobData } from '../../worker/runtime/queue-processor.js';
+import { JOB_PAYLOAD_VERSION, QUEUE_NAME, type RunJobData } from '../../worker/runtime/job-contract.js';
 import { newEnsembleId, planEnsemble, type PlannedJob } from '../plan.js';
 import type { EnsembleSpec } from '../spec/index.js';
 import { newAdaptiveHistory } from '../summary/adaptive.js';

@@ -38,6 +38,9 @@ export interface ClusterHarmonic {
   /** Fit-window systematic of τ(q) and τ'(1) (probe-analysis.ts); null with fewer than 4 box sides. */
   tauSystematic: number[] | null;
   informationDimensionSystematic: number | null;
+  /** Contact-radius systematic of τ(q) and τ'(1) (resolution-systematic.ts); absent in records made before it existed. */
+  tauResolutionSystematic?: number[];
+  informationDimensionResolutionSystematic?: number;
   maxConcentrationExponent: number;
   /** Fit window of τ(q), as fractions of the set's radius. */
   window: { relativeMin: number; relativeMax: number };
@@ -87,6 +90,8 @@ export function clusterHarmonicOf(runIndex: number, size: number, m: HarmonicMea
     informationDimension: m.spectrum.informationDimension,
     tauSystematic: m.windowSystematic ? [...m.windowSystematic.tau] : null,
     informationDimensionSystematic: m.windowSystematic ? m.windowSystematic.informationDimension : null,
+    tauResolutionSystematic: [...m.resolutionSystematic.tau],
+    informationDimensionResolutionSystematic: m.resolutionSystematic.informationDimension,
     maxConcentrationExponent: m.maxConcentration.exponent,
     window: { relativeMin: m.window.relativeMin, relativeMax: m.window.relativeMax },
     radius: m.radius,

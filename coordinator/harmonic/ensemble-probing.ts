@@ -72,7 +72,7 @@ export function analyseProbedCluster(
     throw new RangeError(`probe of run ${runIndex} at size ${size}: expected job results 0..${p.jobs - 1}, got ${sorted.map((r) => r.jobIndex).join(',')}`);
   const digest = diskSetDigest(set);
   for (const r of sorted) if (r.geometryDigest !== digest) throw new RangeError(`probe of run ${runIndex} at size ${size}: job ${r.jobIndex} ran on set ${r.geometryDigest}, not ${digest}`);
-  const a = analyseResults(set, sorted, p.q);
+  const a = analyseResults(set, sorted, p.q, p.window);
   return { record: clusterHarmonicOf(runIndex, size, a.measures, a.counts), counts: a.counts };
 }
 

@@ -31,6 +31,8 @@ export interface HarmonicAtSize {
   informationDimension: EnsembleValue;
   /** Fit-window systematic (ensemble mean of the per-cluster half-differences of the fits over the two halves of the ε window). */
   systematic: { tau: Array<number | null>; informationDimension: number | null };
+  /** Contact-radius systematic (ensemble mean of the per-cluster values; coordinator/harmonic/resolution-systematic.ts). */
+  resolutionSystematic: { tau: Array<number | null>; informationDimension: number | null };
   /** The statistical interval of τ'(1) (BCa, else percentile) widened by the systematic on both sides; null without either. */
   informationDimensionWithSystematic: [number, number] | null;
   /** The same for τ(3), when 3 is on the grid. */

@@ -40,7 +40,9 @@
  *    a ≥ 1/2 (Beurling's estimate; Garnett & Marshall 2005, Harmonic
  *    Measure). beurlingRespected: the upper end of the 95% interval of the
  *    ensemble-mean exponent (BCa, else percentile) is at least 1/2; null
- *    without an interval.
+ *    without an interval. false is reported as "not resolved at this size",
+ *    never as a violation: the estimate bounds the ε → 0 limit only (see
+ *    beurling-check.ts).
  *  - Growth relations use the clusters probed at every size present in the
  *    records ("complete" clusters) with a finite log capacity (and, for the
  *    increments, a Z(3)) at every size; sizes are all sizes present.
@@ -98,6 +100,8 @@
  * percentile, for τ(3)); null when either is missing.
  */
 import { bootstrapRandom, drawResample, weightedColumnMeans } from '../stats/bootstrap.js';
+import { fitLine, slopeWeights } from '../stats/log-log-fit.js';
+import { checkRange } from '../../worker/core/value-range.js';
 import { bootstrapInterval, type IntervalSummary } from '../stats/bca.js';
 import type { ClusterHarmonic } from './cluster-harmonic.js';
 import { ensembleMeanInterval, type EnsembleValue } from './ensemble-intervals.js';
@@ -121,9 +125,7 @@ export interface HarmonicSectionOptions {
 }
 
 function checkOption(field: string, v: number, lo: number, hi: number, integer: boolean): number {
-  if (!Number.isFinite(v) || v < lo || v > hi || (integer && !Number.isInteger(v)))
-    throw new RangeError(`harmonic section ${field}: ${v} is not ${integer ? 'an integer' : 'a number'} in [${lo}, ${hi}]`);
-  return v;
+  return checkRange(`harmonic section ${field}`, v, { min: lo, max: hi, integer });
 }
 
 /** The interval of a summary: BCa when available, else percentile, else null. */
@@ -137,25 +139,6 @@ function sameGrid(a: readonly number[], b: readonly number[]): boolean {
 }
 
 const isOne = (q: number): boolean => Math.abs(q - 1) < 1e-12;
-
-/** OLS slope of y against x (both length ≥ 2, x with spread). */
-function olsSlope(x: ArrayLike<number>, y: ArrayLike<number>): number {
-  const n = x.length;
-  let xm = 0, ym = 0;
-  for (let i = 0; i < n; i++) { xm += x[i]; ym += y[i]; }
-  xm /= n; ym /= n;
-  let sxx = 0, sxy = 0;
-  for (let i = 0; i < n; i++) { sxx += (x[i] - xm) * (x[i] - xm); sxy += (x[i] - xm) * (y[i] - ym); }
-  return sxy / sxx;
-}
-
-/** OLS slope weights w_i with slope = Σ w_i y_i. */
-function olsWeights(x: readonly number[]): number[] {
-  const n = x.length;
-  const xm = x.reduce((s, v) => s + v, 0) / n;
-  const sxx = x.reduce((s, v) => s + (v - xm) * (v - xm), 0);
-  return x.map((v) => (v - xm) / sxx);
-}
 
 function finite(values: Array<number | null | undefined>): number[] {
   const out: number[] = [];
@@ -216,9 +199,15 @@ function atSize(size: number, group: readonly ClusterHarmonic[], q: readonly num
     tau: q.map((_, k) => meanOf(finite(group.map((c) => c.tauSystematic?.[k])))),
     informationDimension: meanOf(finite(group.map((c) => c.informationDimensionSystematic))),
   };
+  // contact-radius systematic: the ensemble mean of the per-cluster values (reported beside the window systematic)
+  const resolutionSystematic = {
+    tau: q.map((_, k) => meanOf(finite(group.map((c) => c.tauResolutionSystematic?.[k])))),
+    informationDimension: meanOf(finite(group.map((c) => c.informationDimensionResolutionSystematic))),
+  };
   const widen = (iv: [number, number] | null, sys: number | null): [number, number] | null => (iv && sys !== null ? [iv[0] - sys, iv[1] + sys] : null);
   return {
     systematic,
+    resolutionSystematic,
     informationDimensionWithSystematic: widen(intervalEnds(informationDimension.interval), systematic.informationDimension),
     tau3WithSystematic: k3 >= 0 ? widen(intervalEnds(tau[k3].interval), systematic.tau[k3]) : null,
     size,
@@ -275,7 +264,8 @@ function capacityGrowthOf(sizes: number[], groups: ReadonlyArray<readonly Cluste
   if (k === 0) return empty('no cluster has a log capacity at every probed size');
   const meanLogCapacity = sizes.map((_, j) => rows.reduce((s, r) => s + r[j], 0) / k);
   if (k < 3) return empty(`${k} cluster${k === 1 ? '' : 's'} with a log capacity at every probed size; at least 3 are needed`, meanLogCapacity);
-  const w = olsWeights(sizes.map((n) => Math.log(n)));
+  const w = slopeWeights(Float64Array.from(sizes, Math.log), 0, sizes.length);
+  if (w === null) return empty('the probed sizes have no spread', meanLogCapacity);
   const perCluster = rows.map((r) => r.reduce((s, v, j) => s + w[j] * v, 0));
   const ev = ensembleMeanInterval(perCluster, seed, resamples, level);
   const exponent = ev.mean; // = the OLS slope of meanLogCapacity (linearity of OLS)
@@ -334,7 +324,7 @@ function capacityIncrementOf(sizes: number[], groups: ReadonlyArray<readonly Clu
       lx[j] = Math.log(zz);
       ly[j] = Math.log(inc);
     }
-    return olsSlope(lx, ly);
+    return fitLine(lx, ly).slope;
   };
   const slope = slopeOf(means);
   if (!Number.isFinite(slope)) {
@@ -379,7 +369,8 @@ function particleScaleOf(sizes: number[], groups: ReadonlyArray<readonly Cluster
   const { rows } = completeRows(groups, (c) => [c.z3 !== null && c.z3 > 0 ? Math.log(c.z3) : null]);
   const k = rows.length;
   if (k < 3) return empty(`${k} cluster${k === 1 ? '' : 's'} with a positive Z(3) at every probed size; at least 3 are needed`, k);
-  const w = olsWeights(sizes.map((n) => Math.log(n)));
+  const w = slopeWeights(Float64Array.from(sizes, Math.log), 0, sizes.length);
+  if (w === null) return empty('the probed sizes have no spread', k);
   const perCluster = rows.map((r) => -r.reduce((s, v, j) => s + w[j] * v, 0));
   const ev = ensembleMeanInterval(perCluster, seed, resamples, level);
   const ends = intervalEnds(ev.interval);

@@ -9,3 +9,7 @@ export * from './probe-run.js';
 export * from './cluster-harmonic.js';
 export * from './harmonic-section-types.js';
 export * from './harmonic-section.js';
+export * from './fit-window.js';
+export * from './resolution-systematic.js';
+export * from './beurling-check.js';
+export * from './disk-union-connected.js';

@@ -13,7 +13,14 @@
  * ε_hi = R/2, R = radius of the smallest circle about the bounding-box
  * centre enclosing the disks. ε_lo = max(8 r_med, R/32) for disk centres
  * (r_med = median contact radius; if that leaves less than a factor 8, ε_lo =
- * ε_hi/8), and R/64 for contact points. A user window overrides both.
+ * ε_hi/8), and R/64 for contact points. A user window overrides both:
+ * `relativeWindow` [lo, hi] gives ε_lo = lo·R, ε_hi = hi·R (the CLI's
+ * --window, the API's and the spec's `window`; rule in fit-window.ts).
+ *
+ * Contact-radius systematic (resolution-systematic.ts): κ |q − 1| G, G the
+ * least-squares slope of r_med/ε over the window, reported beside the window
+ * systematic for τ(q), τ′(1) and the maximum-concentration exponent; a
+ * warning is added when ε_lo < 8 r_med.
  *
  * Convergence per q: τ(q) is also fitted from the two halves of the probes
  * (even and odd jobs; first and second half of the contact sample for the
@@ -39,13 +46,19 @@
  * inside the window, an error the fit's own scatter does not show (common
  * practice, no source).
  *
- * Beurling: the maximum box measure M(ε) ~ (ε/R)^a must have a ≥ 1/2 for a
- * connected set (Garnett & Marshall 2005, Harmonic Measure); the check
- * allows 0.05 for finite-size effects (our rule).
+ * Beurling: the maximum box measure M(ε) ~ (ε/R)^a has a ≥ 1/2 for a
+ * connected set as ε → 0 (Garnett & Marshall 2005, Harmonic Measure). A
+ * finite window does not resolve that limit, so the verdict is
+ * 'consistent', 'not resolved at this size' or 'not applicable: the set is
+ * not connected', never a violation; the rule is in beurling-check.ts.
  */
 import { boxStatistics, logSpaced, type BoxStatistics, type WeightedPoints } from './partition-function.js';
 import { spectrumFrom, type Spectrum } from './spectrum.js';
-import { logCapacity, type CapacityEstimate } from './log-capacity.js';
+import { capacityJobCheck, logCapacity, type CapacityEstimate, type CapacityJobCheck } from './log-capacity.js';
+import { beurlingVerdict, BEURLING_BOUND, type BeurlingVerdict } from './beurling-check.js';
+import { diskUnionConnected } from './disk-union-connected.js';
+import { resolutionSystematic, resolutionWarning, type ResolutionSystematic } from './resolution-systematic.js';
+import { windowProblem } from './fit-window.js';
 
 export const SIGN_CONVENTION =
   'Z(q,eps) = sum over boxes of side eps of mu(box)^q ~ (eps/R)^tau(q); tau(1) = 0, D_q = tau(q)/(q-1), alpha = tau\'(q), f = q alpha - tau';
@@ -62,9 +75,13 @@ export interface ProbeAnalysisInput {
   contactX: ArrayLike<number>;
   contactY: ArrayLike<number>;
   contactCount: number;
+  /** Contact points per job, in order (the contact arrays are the jobs' samples concatenated); for the capacity's job check. */
+  contactJobSizes?: number[];
   q: number[];
   /** Absolute box sides [lo, hi]; default: the rule in the file header. */
   window?: [number, number];
+  /** Box sides relative to R, [lo, hi] (fit-window.ts); overrides the default, not `window`. */
+  relativeWindow?: [number, number] | null;
   scales?: number;
 }
 
@@ -81,9 +98,25 @@ export interface HarmonicMeasures {
   tauHalves: [number[], number[]] | null;
   /** Half the difference of the fits over the lower and upper half of the window (see the file header). */
   windowSystematic: { tau: number[]; informationDimension: number } | null;
+  /** Finite-contact-radius systematic (see the file header). */
+  resolutionSystematic: ResolutionSystematic;
+  /** Warnings for people (e.g. smallest box too close to the contact radius). */
+  warnings: string[];
   converged: Array<boolean | null>;
-  maxConcentration: { exponent: number; fitError: number; beurlingBound: number; consistentWithBeurling: boolean };
-  capacity: (CapacityEstimate & { set: string }) | null;
+  maxConcentration: {
+    exponent: number;
+    fitError: number;
+    /** Half the difference of the fits over the lower and upper half of the window (null with fewer than 4 scales). */
+    windowSystematic: number | null;
+    /** Contact-radius systematic of the exponent (see the file header). */
+    resolutionSystematic: number;
+    beurlingBound: number;
+    /** Whether the union of contact disks is connected (Beurling's estimate needs it). */
+    connected: boolean;
+    beurling: BeurlingVerdict;
+  };
+  /** jobCheck: the stated error checked against the spread of the jobs' own estimates (log-capacity.ts); null with one job. */
+  capacity: (CapacityEstimate & { set: string; jobCheck: CapacityJobCheck | null }) | null;
 }
 
 function radiusAt(r: number | ArrayLike<number>, i: number): number {
@@ -117,7 +150,11 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
   const hi0 = radius / 2;
   let lo0 = source === 'disk-centres' ? Math.max(8 * rMed, radius / 32) : radius / 64;
   if (lo0 > hi0 / 8) lo0 = hi0 / 8;
-  const [lo, hi] = inp.window ?? [lo0, hi0];
+  if (inp.relativeWindow) {
+    const bad = windowProblem(inp.relativeWindow);
+    if (bad) throw new RangeError(`window: ${JSON.stringify(inp.relativeWindow)} ${bad}`);
+  }
+  const [lo, hi] = inp.window ?? (inp.relativeWindow ? [inp.relativeWindow[0] * radius, inp.relativeWindow[1] * radius] : [lo0, hi0]);
   const scales = inp.scales ?? 10;
   const eps = logSpaced(lo, hi, scales);
   const ox = cx - radius;
@@ -143,6 +180,7 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
   const spectrum = spectrumFrom(stats, radius);
   const ns = stats.eps.length;
   let windowSystematic: HarmonicMeasures['windowSystematic'] = null;
+  let maxConcentrationWindow: number | null = null;
   if (ns >= 4) {
     const h = Math.ceil(ns / 2);
     const part = (from: number, to: number): BoxStatistics => ({
@@ -155,6 +193,7 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
       tau: lower.tau.map((t, k) => Math.abs(t - upper.tau[k]) / 2),
       informationDimension: Math.abs(lower.informationDimension - upper.informationDimension) / 2,
     };
+    maxConcentrationWindow = Math.abs(lower.maxConcentrationExponent - upper.maxConcentrationExponent) / 2;
   }
   const canHalve = source === 'contact-points' ? inp.contactCount >= 200 : inp.halves !== null;
   let tauHalves: [number[], number[]] | null = null;
@@ -165,9 +204,18 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
     tauHalves = [a, b];
     converged = inp.q.map((_, k) => Math.abs(a[k] - b[k]) <= 0.05 + 0.05 * Math.abs(spectrum.tau[k]));
   }
-  const capacity = inp.contactCount >= 3
-    ? { ...logCapacity(inp.contactX, inp.contactY, inp.contactCount), set: 'union of the contact disks' }
+  const capacity = inp.contactCount >= 4
+    ? {
+      ...logCapacity(inp.contactX, inp.contactY, inp.contactCount), set: 'union of the contact disks',
+      jobCheck: inp.contactJobSizes ? capacityJobCheck(inp.contactX, inp.contactY, inp.contactJobSizes) : null,
+    }
     : null;
+  const connected = diskUnionConnected(n, inp.x, inp.y, inp.r);
+  const resolution = resolutionSystematic(stats.eps, inp.q, rMed);
+  const warnings: string[] = [];
+  const warn = resolutionWarning(stats.eps, rMed);
+  if (warn) warnings.push(warn);
+  const maxResolution = resolution.maxConcentration;
   return {
     convention: SIGN_CONVENTION,
     walkers,
@@ -179,12 +227,18 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
     boxes: { eps: stats.eps, z: stats.z, entropy: stats.entropy, maxMeasure: stats.maxMeasure },
     tauHalves,
     windowSystematic,
+    resolutionSystematic: resolution,
+    warnings,
     converged,
     maxConcentration: {
       exponent: spectrum.maxConcentrationExponent,
       fitError: spectrum.maxConcentrationFitError,
-      beurlingBound: 0.5,
-      consistentWithBeurling: spectrum.maxConcentrationExponent >= 0.45,
+      windowSystematic: maxConcentrationWindow,
+      resolutionSystematic: maxResolution,
+      beurlingBound: BEURLING_BOUND,
+      connected,
+      beurling: beurlingVerdict(spectrum.maxConcentrationExponent,
+        { fit: spectrum.maxConcentrationFitError, window: maxConcentrationWindow ?? 0, resolution: maxResolution }, connected),
     },
     capacity,
   };

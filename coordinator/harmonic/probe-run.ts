@@ -21,6 +21,8 @@ export interface ProbeRunOptions {
   contactSample: number;
   minStep?: number;
   launchMargin?: number;
+  /** Fit window relative to R (fit-window.ts); null or absent: the default rule. */
+  window?: [number, number] | null;
 }
 
 export interface ProbeRun {
@@ -52,11 +54,11 @@ export async function runProbes(set: DiskSet, o: ProbeRunOptions): Promise<Probe
     }
   }
   const seconds = (performance.now() - t0) / 1000;
-  return { tasks, results, ...analyseResults(set, results, o.q), seconds };
+  return { tasks, results, ...analyseResults(set, results, o.q, o.window ?? null), seconds };
 }
 
 /** Add job results and analyse them (also usable on results gathered from a queue). */
-export function analyseResults(set: DiskSet, results: ProbeResult[], q: number[]): Omit<ProbeRun, 'tasks' | 'results' | 'seconds'> {
+export function analyseResults(set: DiskSet, results: ProbeResult[], q: number[], window: [number, number] | null = null): Omit<ProbeRun, 'tasks' | 'results' | 'seconds'> {
   const counts = addProbeCounts(set.count, results);
   const halves: [Float64Array, Float64Array] | null = results.length >= 2
     ? [addProbeCounts(set.count, results.filter((r) => r.jobIndex % 2 === 0)), addProbeCounts(set.count, results.filter((r) => r.jobIndex % 2 === 1))]
@@ -65,7 +67,7 @@ export function analyseResults(set: DiskSet, results: ProbeResult[], q: number[]
   const contactY = results.flatMap((r) => r.contactY);
   const measures = analyzeProbe({
     count: set.count, x: set.x, y: set.y, r: set.r, counts, halves,
-    contactX, contactY, contactCount: contactX.length, q,
+    contactX, contactY, contactCount: contactX.length, contactJobSizes: results.map((r) => r.contactX.length), q, relativeWindow: window,
   });
   return { counts, contactX, contactY, measures };
 }

@@ -14,7 +14,8 @@
  * estimate bounds α_min ≥ 1/2 for a connected set (Garnett & Marshall 2005,
  * Harmonic Measure).
  */
-import { slope, type BoxStatistics } from './partition-function.js';
+import type { BoxStatistics } from './partition-function.js';
+import { fitLine } from '../stats/log-log-fit.js';
 
 export interface Spectrum {
   q: number[];
@@ -37,12 +38,12 @@ export function spectrumFrom(stats: BoxStatistics, radius: number): Spectrum {
   const tau: number[] = [];
   const err: number[] = [];
   for (let k = 0; k < q.length; k++) {
-    const fit = slope(xs, stats.z.map((row) => Math.log(row[k])));
+    const fit = fitLine(xs, stats.z.map((row) => Math.log(row[k])));
     tau.push(fit.slope);
     err.push(fit.standardError);
   }
-  const info = slope(xs, stats.entropy);
-  const mx = slope(xs, stats.maxMeasure.map((m) => Math.log(m)));
+  const info = fitLine(xs, stats.entropy);
+  const mx = fitLine(xs, stats.maxMeasure.map((m) => Math.log(m)));
   const alpha: number[] = [];
   for (let k = 0; k < q.length; k++) {
     if (Math.abs(q[k] - 1) < 1e-12) { alpha.push(info.slope); continue; }

@@ -8,12 +8,14 @@
  *   POST /ensembles/:id/cancel       cancel; token required
  *   GET  /ensembles/:id/summary?format=json|csv|pb[&table=NAME]
  *   POST /probes                     probe a point set of your own on the farm: body = {csv | points,
- *                                    walkers, seed, jobs?, q?, contact_sample?, min_step?, name?};
+ *                                    walkers, seed, jobs?, q?, contact_sample?, min_step?, window?, name?};
  *                                    token required; 201 {id, status}
  *   GET  /probes/:id                 state, jobs done, and the harmonic measures once analysed
  *   GET  /probes/:id/hits            CSV index,x,y,r,hits,measure per disk (once analysed)
  *   POST /probes/:id/cancel          cancel a probe request (also DELETE /probes/:id); token required:
  *                                    its queued jobs are skipped and running ones stopped within seconds
+ *   GET  /, /view/:id, /web/*, /ensembles/:id/figures[/NAME.svg], /ensembles/:id/cluster.png
+ *                                    the web status page (coordinator/http/web-routes.ts)
  *   GET  /metrics                    Prometheus text format
  *   GET  /health                     liveness: the process answers (never touches Redis)
  *   GET  /ready                      readiness: 200 {ok, redis: "ok"} when Redis answers within 2 s, else 503
@@ -28,9 +30,12 @@
  * Errors: 4xx with {error: "<one line naming the field, value and what is allowed>"};
  * a bad spec also carries {problems: [...]}, one line per bad field.
  *
- * The route schemas document the API (OpenAPI style); the spec body is checked
- * by coordinator/spec/ itself so that the CLI and the API give the very same
- * messages.
+ * The route schemas document the API (OpenAPI style) and are what fastify
+ * validates requests with: every schema is checked by
+ * coordinator/spec/schema-messages.ts, and the spec body by the very checker
+ * of `tendril run`/`launch` (built from the model descriptors), so the CLI and
+ * the API give the same one-line messages. The bearer token is checked when
+ * the request arrives, before its body is read.
  */
 import { timingSafeEqual, createHash } from 'node:crypto';
 import Fastify, { type FastifyInstance, type FastifyReply, type FastifyRequest } from 'fastify';
@@ -39,11 +44,15 @@ import type { Registry } from 'prom-client';
 import { cancelEnsemble, launchEnsemble } from '../farm/queue.js';
 import type { EnsembleStore } from '../farm/store.js';
 import { ENSEMBLE_ID_PATTERN } from '../plan.js';
-import { parseSpecText, SpecError, SPEC_SCHEMA, validateSpec, type SpecLimits } from '../spec/index.js';
+import { parseSpecText, SpecError, SPEC_SCHEMA, specDocumentProblems, validateSpec, type SpecLimits } from '../spec/index.js';
+import { compileChecker } from '../spec/schema-messages.js';
+import { nestingProblem } from '../spec/document-limits.js';
 import { SummaryCache } from './summary-cache.js';
 import { IDEMPOTENCY_KEY_PATTERN, IdempotencyConflict, launchIdempotent } from '../farm/idempotent-launch.js';
-import { launchProbeRequest, ProbeRequestError, ProbeRequestStore, validateProbeRequest } from '../farm/probe-requests.js';
+import { launchProbeRequest, PROBE_REQUEST_SCHEMA, probeRequestProblems, ProbeRequestError, ProbeRequestStore, validateProbeRequest } from '../farm/probe-requests.js';
+import { registerWebRoutes } from './web-routes.js';
 import { CSV_TABLE_NAMES, renderSummary, SUMMARY_FORMATS, type SummaryFormat, type SummaryOptions } from '../summary/index.js';
+import { messageOf, TendrilError } from '../../proto/errors.js';
 
 export interface ApiOptions {
   store: EnsembleStore;
@@ -79,7 +88,8 @@ class TomlBody {
   constructor(readonly text: string) {}
 }
 
-class ApiError extends Error {
+class ApiError extends TendrilError {
+  readonly kind = 'request';
   constructor(
     readonly status: number,
     message: string,
@@ -121,7 +131,7 @@ const STATUS_SCHEMA = {
 } as const;
 
 const ERROR_SCHEMA = { type: 'object', properties: { error: { type: 'string' }, problems: { type: 'array', items: { type: 'string' } } } } as const;
-const ID_PARAMS = { type: 'object', required: ['id'], properties: { id: { type: 'string', pattern: ENSEMBLE_ID_PATTERN.source } } } as const;
+const ID_PARAMS = { type: 'object', required: ['id'], properties: { id: { type: 'string', pattern: ENSEMBLE_ID_PATTERN.source, $comment: '1 to 64 letters, digits, _ or -' } } } as const;
 
 function digest(s: string): Buffer {
   return createHash('sha256').update(s).digest();
@@ -130,8 +140,20 @@ function digest(s: string): Buffer {
 export function buildApi(o: ApiOptions): FastifyInstance {
   // ids longer than find-my-way's default 100 characters reach checkId, which says what is allowed
   const app = Fastify({ logger: o.logger ?? false, bodyLimit: o.bodyLimit ?? 65536, maxParamLength: 2048 });
-  // Schemas document the routes; checking is done below, with our own messages.
-  app.setValidatorCompiler(() => () => true);
+  // Route schemas are validated with our one-line messages; the spec body with the spec's own checker.
+  // Documents nested too deep are refused first (no checker ever walks them).
+  app.setValidatorCompiler(({ schema }) => {
+    const id = (schema as { $id?: string }).$id;
+    const isSpec = id === SPEC_SCHEMA.$id;
+    const isBody = isSpec || id === PROBE_REQUEST_SCHEMA.$id;
+    const check = isSpec ? specDocumentProblems : id === PROBE_REQUEST_SCHEMA.$id ? probeRequestProblems : compileChecker(schema);
+    return (data: unknown) => {
+      const deep = isBody ? nestingProblem(data, isSpec ? 'spec' : 'body') : null;
+      const problems = deep !== null ? [deep] : check(data);
+      if (problems.length === 0) return { value: data };
+      return { error: new ApiError(400, problems.length === 1 ? problems[0] : `${problems[0]} (and ${problems.length - 1} more, listed in "problems")`, problems) };
+    };
+  });
   // JSON bodies: parsed natively; a "__proto__" key, or "constructor" holding "prototype", is refused by name
   // (escaped keys too: the reviver sees decoded keys; it only runs when the text could hold such a key)
   app.addContentTypeParser('application/json', { parseAs: 'string' }, (_req, body, done) => {
@@ -154,7 +176,7 @@ export function buildApi(o: ApiOptions): FastifyInstance {
     if (err instanceof ApiError) return reply.code(err.status).send(err.problems ? { error: err.message, problems: err.problems } : { error: err.message });
     if (isRedisUnavailable(err)) return reply.code(503).header('retry-after', '5').send({ error: `redis: unavailable (${err.message.split('\n')[0].slice(0, 120)}); allowed: retry once GET /ready answers 200` });
     const status = err.statusCode && err.statusCode >= 400 && err.statusCode < 500 ? err.statusCode : 500;
-    let msg = err.message.split('\n')[0];
+    let msg = messageOf(err);
     if (err.code === 'FST_ERR_CTP_BODY_TOO_LARGE') msg = `body: larger than ${o.bodyLimit ?? 65536} bytes; allowed: at most ${o.bodyLimit ?? 65536} bytes`;
     if (err.code === 'FST_ERR_CTP_INVALID_MEDIA_TYPE') msg = 'content-type: not supported; allowed: application/json or application/toml';
     if (err.code === 'FST_ERR_CTP_EMPTY_JSON_BODY') msg = 'body: empty; allowed: an ensemble spec';
@@ -220,8 +242,18 @@ export function buildApi(o: ApiOptions): FastifyInstance {
     '/ensembles',
     {
       onRequest: requireToken,
+      // a TOML body becomes the spec document before it is validated
+      preValidation: async (req) => {
+        const doc: unknown = req.body;
+        if (!(doc instanceof TomlBody)) return;
+        try {
+          req.body = parseSpecText(doc.text, 'toml');
+        } catch (err) {
+          if (err instanceof SpecError) throw new ApiError(400, err.problems[0], err.problems);
+          throw err;
+        }
+      },
       schema: {
-       
         body: SPEC_SCHEMA,
         headers: { type: 'object', properties: { 'idempotency-key': { type: 'string', description: 'repeat-safe creation: the same key and spec give the same ensemble (200 on a repeat)' } } },
         response: {
@@ -232,14 +264,12 @@ export function buildApi(o: ApiOptions): FastifyInstance {
       },
     },
     async (req, reply) => {
-      let doc: unknown = req.body;
       try {
-        if (doc instanceof TomlBody) doc = parseSpecText(doc.text, 'toml');
         const key = req.headers['idempotency-key'];
         if (key !== undefined && (typeof key !== 'string' || !IDEMPOTENCY_KEY_PATTERN.test(key))) {
           throw new ApiError(400, `idempotency-key: ${JSON.stringify(String(key).slice(0, 40))} is not allowed; allowed: 1 to 128 printable characters without spaces`);
         }
-        const spec = validateSpec(doc, o.limits);
+        const spec = validateSpec(req.body, o.limits);
         if (typeof key === 'string') {
           const got = await launchIdempotent(o.store, o.queue, spec, key);
           return reply.code(got.created ? 201 : 200).send({ id: got.id, status: `/ensembles/${got.id}` });
@@ -314,7 +344,7 @@ export function buildApi(o: ApiOptions): FastifyInstance {
 
   app.post(
     '/probes',
-    { onRequest: requireToken, bodyLimit: probeLimit, schema: { response: { 201: { type: 'object', properties: { id: { type: 'string' }, status: { type: 'string' } } }, 400: ERROR_SCHEMA, 401: ERROR_SCHEMA } } },
+    { onRequest: requireToken, bodyLimit: probeLimit, schema: { body: PROBE_REQUEST_SCHEMA, response: { 201: { type: 'object', properties: { id: { type: 'string' }, status: { type: 'string' } } }, 400: ERROR_SCHEMA, 401: ERROR_SCHEMA } } },
     async (req, reply) => {
       let v;
       try {
@@ -349,6 +379,8 @@ export function buildApi(o: ApiOptions): FastifyInstance {
     for (let i = 0; i < set.count; i++) lines.push(`${i},${set.x[i]},${set.y[i]},${typeof set.r === 'number' ? set.r : set.r[i]},${hits[i]},${hits[i] / s.walkers}`);
     return reply.header('content-type', 'text/csv; charset=utf-8').header('content-disposition', `attachment; filename="${s.id}-hits.csv"`).send(lines.join('\n') + '\n');
   });
+
+  registerWebRoutes(app, { store: o.store, summary: o.summary });
 
   app.get('/metrics', async (_req, reply) => {
     if (!o.registry) throw new ApiError(404, 'GET /metrics: metrics are not enabled');

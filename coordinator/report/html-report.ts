@@ -26,12 +26,14 @@ import { fmt, fmtAbscissa, fmtRange, isFiniteNumber, labelOf, levelPercent, show
 import { clusterFigure, comparisonFigure, correctionsFigure, estimatorFigure, localSlopesFigure, type Figure } from './plots.js';
 import { evRange, harmonicFigures, measurePictureFigure, sizesLargestFirst, type MeasurePictureInput } from './harmonic-plots.js';
 import { embeddableFonts, pngRenderer } from './png-plot.js';
+import { observableFigures } from './observable-plots.js';
+import type { ObservableSection } from '../stats/observable-bands.js';
 import { escapeXml, FONT_FAMILY, parseRichText } from './svg-plot.js';
 
 export type SampleClusterInput = PointSet | Uint8Array | { points: PointSet | Uint8Array; runIndex?: number };
 
 /** The statistics of a summary: the ensemble analysis, with the harmonic section when clusters were probed. */
-export type ReportAnalysis = EnsembleAnalysis & { harmonic?: HarmonicSection | null };
+export type ReportAnalysis = EnsembleAnalysis & { harmonic?: HarmonicSection | null; observables?: ObservableSection | null };
 
 export interface ReportInput {
   analysis: ReportAnalysis;
@@ -212,7 +214,7 @@ function harmonicPanel(h: HarmonicSection, top: HarmonicAtSize | undefined): str
       items.push(verdictItem('makarov-sys', `With the fit-window systematic (half the difference of the fits over the two halves of the ε window, ±${fmt(top.systematic.informationDimension, 3)}): τ′(1) in ${fmtRange(ws)}.`, ws[0] <= 1 && ws[1] >= 1, 'agrees with 1', 'disagrees with 1', 'not judged'));
     }
     const mc = top.maxConcentrationExponent;
-    items.push(verdictItem('beurling', `Maximum concentration (max μ(B) scales as (ε/R) to the power α_{min}): ${valueText('α_{min}', mc?.mean, mc?.interval)}; Beurling: α_{min} ≥ 1/2 for a connected set.`, top.beurlingRespected ?? null, 'respected', 'violated', 'not judged'));
+    items.push(verdictItem('beurling', `Maximum concentration (max μ(B) scales as (ε/R) to the power α_{min}): ${valueText('α_{min}', mc?.mean, mc?.interval)}; Beurling: α_{min} ≥ 1/2 for a connected set as ε → 0, which a finite window does not resolve (coordinator/harmonic/beurling-check.ts).`, top.beurlingRespected ?? null, 'respected', 'not resolved at this size', 'not judged'));
   } else items.push('<li class="na">No probed size with a q grid.</li>');
   const g = h.capacityGrowth;
   if (g && isFiniteNumber(g.exponent)) {
@@ -364,6 +366,7 @@ export function buildEnsembleReport(input: ReportInput): { html: string; figures
   figures.push(localSlopesFigure(a, 'N'));
   if (a.estimators.massRadius.reason !== 'not requested') figures.push(localSlopesFigure(a, 'r'));
   if (a.options.corrections) figures.push(correctionsFigure(a, data));
+  figures.push(...observableFigures(a.observables));
   const extraPngs: { name: string; png: Buffer }[] = [];
   if (input.sampleCluster !== undefined) {
     try {

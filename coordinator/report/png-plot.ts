@@ -12,6 +12,7 @@
 import { createRequire } from 'node:module';
 import { existsSync, readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
+import { messageOf } from '../../proto/errors.js';
 
 const require = createRequire(import.meta.url);
 
@@ -55,7 +56,7 @@ export function pngRenderer(): { renderer: PngRenderer | null; reason: string | 
   try {
     mod = require('@resvg/resvg-js') as ResvgModule;
   } catch (e) {
-    cached = { renderer: null, reason: `PNG renderer @resvg/resvg-js could not be loaded: ${(e as Error).message.split('\n')[0]}` };
+    cached = { renderer: null, reason: `PNG renderer @resvg/resvg-js could not be loaded: ${messageOf(e)}` };
     return cached;
   }
   const fonts = fontFiles();

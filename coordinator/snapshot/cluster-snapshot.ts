@@ -27,6 +27,9 @@
  */
 import * as zlib from 'node:zlib';
 import { endianness } from 'node:os';
+import type { ClusterPositions } from '../../worker/core/growth-kernel.js';
+import { axisOf } from '../../worker/core/positions.js';
+import { TendrilError } from '../../proto/errors.js';
 
 export const SNAPSHOT_MAGIC = 'TNDRLSNP';
 export const SNAPSHOT_VERSION = 1;
@@ -55,9 +58,19 @@ export interface DecodedPointSet extends PointSet {
   version: number;
 }
 
+/** The point set of dimension-strided positions (2 or 3 axes), in arrival order, with contact distance `diameter`. */
+export function pointSetOf(p: ClusterPositions, diameter: number, count = p.count): PointSet {
+  if (p.dimension !== 2 && p.dimension !== 3) throw new RangeError(`snapshot dimension must be 2 or 3, got ${String(p.dimension)}`);
+  const n = Math.min(count, p.count);
+  const out: PointSet = { dimension: p.dimension, count: n, x: axisOf(p, 0, n), y: axisOf(p, 1, n), diameter, arrivalOrder: true };
+  if (p.dimension === 3) out.z = axisOf(p, 2, n);
+  return out;
+}
+
 /** Thrown for a malformed snapshot; the message is one line. */
-export class SnapshotError extends Error {
+export class SnapshotError extends TendrilError {
   override name = 'SnapshotError';
+  readonly kind = 'snapshot';
 }
 
 const LITTLE_ENDIAN_HOST = endianness() === 'LE';

@@ -7,12 +7,15 @@
  *   particles: 0 is out of range; allowed: an integer from 2 to 100000000
  * A SpecError carries all problems of a document at once.
  */
-import { Ajv, type ErrorObject } from 'ajv';
 import { parse as parseToml } from 'smol-toml';
-import { checkModelForSize, MODEL_KINDS, modelParams } from '../../worker/models/registry.js';
+import { checkModelForSize, isModelKind, MODEL_KINDS, MODELS, modelDescriptor, modelParamProblems, modelParams } from '../../worker/models/registry.js';
+import { compileChecker, type Checker } from './schema-messages.js';
+import { quoteValue } from '../../worker/core/value-range.js';
+import { defaultProbeJobs, probeSettingsOf, probeSettingsProblems, type ProbeSettings, type ProbeSettingsDocument } from '../harmonic/probe-settings.js';
 import type { ModelParams } from '../../worker/core/growth-kernel.js';
+import type { ModelDescriptor } from '../../worker/core/model-descriptor.js';
 import { probeMinStepFloor } from '../../worker/probe/probe-limits.js';
-import { excerpt, fieldKey, MAX_LISTED_PROBLEMS, nestingProblem } from './document-limits.js';
+import { nestingProblem } from './document-limits.js';
 import {
   DEFAULT_MAX_TOTAL_PARTICLES,
   MAX_RUNS_PER_JOB,
@@ -20,6 +23,7 @@ import {
   SPEC_SCHEMA,
   type TARGET_ESTIMATORS,
 } from './schema.js';
+import { messageOf, TendrilError } from '../../proto/errors.js';
 
 export { SPEC_SCHEMA } from './schema.js';
 
@@ -48,25 +52,10 @@ export interface TargetSpec {
   minClusters: number;
 }
 
-/** The [probe] table: harmonic-measure probing of every cluster at its end and at chosen sizes. */
-export interface ProbeSpec {
-  walkers: number;
-  jobs: number;
-  q: number[];
-  contactSample: number;
-  minStep: number;
+/** The [probe] table: harmonic-measure probing of every cluster at its end and at chosen sizes (settings as in coordinator/harmonic/probe-settings.ts). */
+export interface ProbeSpec extends ProbeSettings {
   /** Sizes below `particles` at which clusters are also probed, ascending (may be empty). */
   atSizes: number[];
-}
-
-/** Default q grid of probing: -1 to 5 in steps of 0.25 (contains 0, 1, 2 and 3). */
-export const DEFAULT_PROBE_Q: readonly number[] = Array.from({ length: 25 }, (_, k) => -1 + 0.25 * k);
-/** Default probe walkers per job when the spec gives no job count. */
-export const DEFAULT_PROBE_WALKERS_PER_JOB = 250_000;
-
-/** Probe jobs when none are asked for: one per DEFAULT_PROBE_WALKERS_PER_JOB walkers, at least 2 (for the convergence halves), at most 4096 and at most one per walker. */
-export function defaultProbeJobs(walkers: number): number {
-  return Math.min(walkers, 4096, Math.max(2, Math.ceil(walkers / DEFAULT_PROBE_WALKERS_PER_JOB)));
 }
 
 /** Every size at which the clusters of a spec are probed (ascending, the final size last); empty without [probe]. */
@@ -129,8 +118,9 @@ export interface EnsembleSpec {
   probe: ProbeSpec | null;
 }
 
-export class SpecError extends Error {
+export class SpecError extends TendrilError {
   override name = 'SpecError';
+  readonly kind = 'spec';
   constructor(readonly problems: string[]) {
     super(problems.length === 1 ? problems[0] : `${problems.length} problems: ${problems.join('; ')}`);
   }
@@ -155,8 +145,22 @@ function checkCeiling(what: string, raw: string): number {
   return v;
 }
 
-const ajv = new Ajv({ allErrors: true, strict: true, strictTypes: false });
-const validateDoc = ajv.compile(SPEC_SCHEMA);
+/**
+ * The schema-level problems of a spec document, one line each: the schema is
+ * built from the model descriptors (coordinator/spec/schema.ts), and the
+ * lines about `params` come from the model registry, so they name
+ * `params.NAME`, the model and the allowed range.
+ */
+export const specDocumentProblems: Checker = compileChecker(SPEC_SCHEMA, {
+  path: '/params',
+  problems: (doc) => {
+    const d = doc as Record<string, unknown>;
+    if (!isModelKind(d.model)) return [];
+    const given = d.params ?? {};
+    const isTable = typeof given === 'object' && given !== null && !Array.isArray(given);
+    return modelParamProblems(isTable ? modelParams(d.model, given as Record<string, number>) : { kind: d.model, params: given as Record<string, number> });
+  },
+});
 
 /** Parse a spec file's text; `format` from the file name (.toml / .json) or given. */
 export function parseSpecText(text: string, format: 'toml' | 'json'): unknown {
@@ -185,11 +189,12 @@ export function formatOf(fileName: string): 'toml' | 'json' {
 /** Validate a parsed document and fill in defaults; throws SpecError listing every problem. */
 export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv()): EnsembleSpec {
   if (typeof doc !== 'object' || doc === null || Array.isArray(doc)) {
-    throw new SpecError([`spec: ${describe(doc)} is not allowed; allowed: a table (object) of fields`]);
+    throw new SpecError([`spec: ${quoteValue(doc)} is not allowed; allowed: a table (object) of fields`]);
   }
   const tooDeep = nestingProblem(doc, 'spec');
   if (tooDeep !== null) throw new SpecError([tooDeep]);
-  if (!validateDoc(doc)) throw new SpecError(problemsOf(validateDoc.errors ?? [], doc));
+  const schemaProblems = specDocumentProblems(doc);
+  if (schemaProblems.length > 0) throw new SpecError(schemaProblems);
   const d = doc as Record<string, any>;
   const problems: string[] = [];
   const t = d.target as Record<string, any> | undefined;
@@ -247,19 +252,26 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
     for (const [k, v] of (pr.at_sizes ?? []).entries()) {
       if (v >= d.particles) problems.push(`probe.at_sizes[${k}]: ${v} is out of range; allowed: an integer from 2 to particles - 1 (${d.particles - 1})`);
     }
+    problems.push(...probeSettingsProblems(pr as ProbeSettingsDocument, 'probe.'));
     // a cluster of N unit-diameter disks spans at most N contact radii from its middle
     const stepFloor = probeMinStepFloor(d.particles + 1);
-    if (pr.min_step !== undefined && pr.min_step < stepFloor) problems.push(`probe.min_step: ${pr.min_step} is out of range; allowed: a number from ${stepFloor} to 1 for ${d.particles} particles (a smaller step is lost in the float spacing)`);
-    if (pr.jobs !== undefined && pr.jobs > pr.walkers) problems.push(`probe.jobs: ${pr.jobs} is out of range; allowed: an integer from 1 to probe.walkers (${pr.walkers})`);
+    if (typeof pr.min_step === 'number' && pr.min_step < stepFloor) problems.push(`probe.min_step: ${pr.min_step} is out of range; allowed: a number from ${stepFloor} to 1 for ${d.particles} particles (a smaller step is lost in the float spacing)`);
   }
   const seed = String(d.seed);
   if (BigInt(seed) >= 1n << 64n) problems.push(`seed: "${seed}" is out of range; allowed: an integer from 0 to 18446744073709551615`);
   const model: ModelParams = modelParams(d.model, (d.params ?? {}) as Record<string, number>);
-  try {
-    if (Number.isSafeInteger(d.particles)) checkModelForSize(model, d.particles);
-  } catch (err) {
-    problems.push((err as Error).message);
+  const paramProblems = modelParamProblems(model);
+  problems.push(...paramProblems);
+  // the model's own checks against the cluster size (e.g. the min_step floor set by the float spacing)
+  if (paramProblems.length === 0 && Number.isSafeInteger(d.particles)) {
+    try {
+      checkModelForSize(model, d.particles);
+    } catch (err) {
+      problems.push((err as Error).message);
+    }
   }
+  const noProbe = pr ? probeProblem(modelDescriptor(d.model)) : null;
+  if (noProbe !== null) problems.push(noProbe);
   if (problems.length > 0) throw new SpecError(problems);
 
   const analysis: AnalysisSettings = {};
@@ -288,15 +300,18 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
       : null,
     probe: pr
       ? {
-          walkers: pr.walkers,
-          jobs: pr.jobs ?? defaultProbeJobs(pr.walkers),
-          q: pr.q ? [...pr.q] : [...DEFAULT_PROBE_Q],
-          contactSample: Math.min(pr.walkers, pr.contact_sample ?? 4000),
-          minStep: pr.min_step ?? 0.02,
+          ...probeSettingsOf(pr as ProbeSettingsDocument),
           atSizes: [...(pr.at_sizes ?? [])].sort((a: number, b: number) => a - b),
         }
       : null,
   };
+}
+
+/** The one line refusing a [probe] table for a model whose descriptor declares no probe, or null when it has one. */
+export function probeProblem(d: ModelDescriptor, models: readonly ModelDescriptor[] = MODELS): string | null {
+  if (d.probe !== null) return null;
+  const probed = models.filter((m) => m.probe !== null).map((m) => m.kind);
+  return `probe: ${d.kind} has no harmonic-measure probe; allowed: a spec without [probe] for this model (probes apply to ${probed.join(', ') || 'no model'})`;
 }
 
 /** Parse and validate in one go. */
@@ -352,6 +367,7 @@ export function specToDocument(s: EnsembleSpec): Record<string, unknown> {
             contact_sample: s.probe.contactSample,
             min_step: s.probe.minStep,
             ...(s.probe.atSizes.length > 0 ? { at_sizes: [...s.probe.atSizes] } : {}),
+            ...(s.probe.window ? { window: [...s.probe.window] } : {}),
           },
         }
       : {}),
@@ -375,111 +391,6 @@ export function mergeAnalysisSettings(base: AnalysisSettings, overrideDoc: Recor
   return validateSpec(probe, { maxTotalParticles: Number.MAX_SAFE_INTEGER }).analysis;
 }
 
-// ---------------------------------------------------------------- messages
-
-function problemsOf(errors: ErrorObject[], doc: unknown): string[] {
-  const out: string[] = [];
-  const seen = new Set<string>();
-  // anyOf failures (the seed) produce one error per branch plus the anyOf itself; keep the anyOf one.
-  const anyOfPaths = new Set(errors.filter((e) => e.keyword === 'anyOf').map((e) => e.instancePath));
-  for (const e of errors) {
-    if (out.length >= MAX_LISTED_PROBLEMS) {
-      out.push(`spec: more problems than these ${MAX_LISTED_PROBLEMS}; allowed: fix these and submit again to see the rest`);
-      break;
-    }
-    if (e.keyword !== 'anyOf' && [...anyOfPaths].some((p) => e.schemaPath.includes('/anyOf/') && e.instancePath === p)) continue;
-    const msg = messageOf(e, doc);
-    if (!seen.has(msg)) {
-      seen.add(msg);
-      out.push(msg);
-    }
-  }
-  return out;
-}
-
-function fieldOf(instancePath: string): string {
-  if (instancePath === '') return 'spec';
-  return instancePath
-    .slice(1)
-    .split('/')
-    .map((s) => s.replace(/~1/g, '/').replace(/~0/g, '~'))
-    .map((s, i) => (/^\d+$/.test(s) ? `[${s}]` : i === 0 ? fieldKey(s) : `.${fieldKey(s)}`))
-    .join('');
-}
-
-function valueAt(doc: unknown, instancePath: string): unknown {
-  let v: any = doc;
-  if (instancePath === '') return v;
-  for (const part of instancePath.slice(1).split('/')) v = v?.[part.replace(/~1/g, '/').replace(/~0/g, '~')];
-  return v;
-}
-
-function schemaAt(schemaPath: string): any {
-  // "#/properties/particles/maximum" -> the schema of the property
-  const parts = schemaPath.replace(/^#\/?/, '').split('/');
-  parts.pop();
-  let s: any = SPEC_SCHEMA;
-  for (const p of parts) s = s?.[p];
-  return s;
-}
-
-function allowedOf(s: any): string {
-  if (!s) return 'see the spec schema';
-  if (s.anyOf) return s.description ?? s.anyOf.map(allowedOf).join(' or ');
-  if (s.enum) return `one of ${s.enum.map((x: unknown) => JSON.stringify(x)).join(', ')}`;
-  if (s.type === 'integer' || s.type === 'number') {
-    const kind = s.type === 'integer' ? 'an integer' : 'a number';
-    const lo = s.minimum !== undefined ? `from ${s.minimum}` : s.exclusiveMinimum !== undefined ? `above ${s.exclusiveMinimum}` : '';
-    const hi = s.maximum !== undefined ? `${lo ? ' ' : ''}${lo.startsWith('from') ? 'to' : 'up to'} ${s.maximum}` : '';
-    return `${kind}${lo || hi ? ' ' : ''}${lo}${hi}`;
-  }
-  if (s.type === 'string') {
-    const len = s.maxLength !== undefined ? ` of ${s.minLength ?? 0} to ${s.maxLength} characters` : '';
-    return `a string${len}${s.pattern ? ` matching ${s.pattern}` : ''}`;
-  }
-  if (s.type === 'array') {
-    const items = s.items?.enum ? ` of distinct values from ${s.items.enum.map((x: unknown) => JSON.stringify(x)).join(', ')}` : '';
-    return `a non-empty list${items}`;
-  }
-  if (s.type === 'boolean') return 'true or false';
-  if (s.type === 'object') return `a table with the fields ${Object.keys(s.properties ?? {}).join(', ')}`;
-  return 'see the spec schema';
-}
-
-function messageOf(e: ErrorObject, doc: unknown): string {
-  const field = fieldOf(e.instancePath);
-  const value = describe(valueAt(doc, e.instancePath));
-  switch (e.keyword) {
-    case 'required': {
-      const name = (e.params as { missingProperty: string }).missingProperty;
-      const s = (schemaAt(e.schemaPath)?.properties as Record<string, unknown> | undefined)?.[name];
-      return `${e.instancePath === '' ? '' : field + '.'}${fieldKey(name)}: missing; allowed: ${allowedOf(s)}`;
-    }
-    case 'additionalProperties': {
-      const name = (e.params as { additionalProperty: string }).additionalProperty;
-      const parent = schemaAt(e.schemaPath);
-      return `${e.instancePath === '' ? '' : field + '.'}${fieldKey(name)}: unknown field; allowed fields: ${Object.keys(parent?.properties ?? {}).join(', ')}`;
-    }
-    case 'minimum':
-    case 'maximum':
-    case 'exclusiveMinimum':
-    case 'exclusiveMaximum':
-      return `${field}: ${value} is out of range; allowed: ${allowedOf(schemaAt(e.schemaPath))}`;
-    case 'uniqueItems':
-      return `${field}: ${value} repeats an entry; allowed: ${allowedOf(schemaAt(e.schemaPath))}`;
-    case 'minItems':
-      return `${field}: ${value} is empty; allowed: ${allowedOf(schemaAt(e.schemaPath))}`;
-    default:
-      return `${field}: ${value} is not allowed; allowed: ${allowedOf(schemaAt(e.schemaPath))}`;
-  }
-}
-
-function describe(v: unknown): string {
-  return excerpt(v, 60);
-}
-
-function oneLine(err: unknown): string {
-  return (err instanceof Error ? err.message : String(err)).split('\n')[0];
-}
+const oneLine = messageOf;
 
 export { MAX_RUNS_PER_JOB };

@@ -7,11 +7,17 @@
  * Limits that depend on the operator (the total-work ceiling) are checked in
  * coordinator/spec/index.ts, not here. The models and their parameters come
  * from the model registry (worker/models/registry.ts): `model` is one of the
- * registered kinds, and `params` holds the numeric parameters of that model
- * (checked against its descriptor in coordinator/spec/index.ts, with one line
- * naming params.NAME, the model and the allowed range).
+ * registered kinds, and `params` holds the numeric parameters of that model:
+ * one `if model = KIND then params is that model's table` clause per
+ * descriptor (paramsSchemaOf), so an unknown, misplaced or out-of-range
+ * parameter fails the schema itself; coordinator/spec/index.ts words those
+ * failures with the registry's one line naming params.NAME, the model and
+ * the allowed range.
  */
-import { MODEL_KINDS } from '../../worker/models/registry.js';
+import { MODEL_KINDS, MODELS } from '../../worker/models/registry.js';
+import type { ModelDescriptor } from '../../worker/core/model-descriptor.js';
+import { describeRange, rangeSchema } from '../../worker/core/value-range.js';
+import { PROBE_SETTINGS_PROPERTIES } from '../harmonic/probe-settings.js';
 
 export { MODEL_KINDS };
 
@@ -27,29 +33,55 @@ export const OBSERVABLES = ['radius_of_gyration', 'max_radius', 'center_offset',
 /** Most sizes at which a cluster may be probed besides its final size. */
 export const MAX_PROBE_SIZES = 24;
 
+/** The JSON schema of one model's `params` table, from its descriptor (every parameter optional: absent ones take their defaults). */
+export function paramsSchemaOf(d: ModelDescriptor) {
+  const properties: Record<string, object> = {};
+  for (const p of d.params) {
+    properties[p.name] = { ...rangeSchema(p), default: p.default, description: `${p.meaning}; ${describeRange(p, p.unit)}` };
+  }
+  return { type: 'object', additionalProperties: false, properties, description: `parameters of ${d.kind}` } as const;
+}
+
+/** One clause per model: when `model` is its kind, `params` must be its table. */
+function modelParamsClauses() {
+  return MODELS.map((d) => ({
+    if: { properties: { model: { const: d.kind } }, required: ['model'] },
+    then: { properties: { params: paramsSchemaOf(d) } },
+  }));
+}
+
+/** A label for people (specs and probe requests). */
+export const NAME_SCHEMA = {
+  type: 'string', minLength: 1, maxLength: 100, pattern: '^[A-Za-z0-9][A-Za-z0-9 _.,:()+-]*$',
+  $comment: '1 to 100 letters, digits, spaces or _.,:()+-, starting with a letter or digit',
+  description: 'a label for people',
+} as const;
+/** A 64-bit seed (specs and probe requests); values from 2^64 up are refused after the schema. */
+export const SEED_SCHEMA = {
+  description: 'an unsigned 64-bit integer (a string of decimal digits, or an integer below 2^53)',
+  anyOf: [
+    { type: 'integer', minimum: 0, maximum: Number.MAX_SAFE_INTEGER },
+    { type: 'string', pattern: '^[0-9]{1,20}$' },
+  ],
+} as const;
+
 export const SPEC_SCHEMA = {
   $id: 'tendril/ensemble-spec',
   title: 'tendril ensemble spec',
   type: 'object',
   additionalProperties: false,
   required: ['model', 'particles', 'seed'],
+  allOf: modelParamsClauses(),
   properties: {
-    name: { type: 'string', minLength: 1, maxLength: 100, pattern: '^[A-Za-z0-9][A-Za-z0-9 _.,:()+-]*$', description: 'a label for people' },
+    name: NAME_SCHEMA,
     model: { type: 'string', enum: [...MODEL_KINDS], description: 'growth model' },
     params: {
       type: 'object',
-      additionalProperties: { type: 'number' },
       description: 'model parameters by name (see `tendril models`: each model has its own, with defaults and ranges)',
     },
     particles: { type: 'integer', minimum: MIN_PARTICLES, maximum: MAX_PARTICLES, description: 'particles per cluster, seed included' },
     clusters: { type: 'integer', minimum: 1, maximum: MAX_CLUSTERS, description: 'number of clusters (runs); with [target], the size of the first batch' },
-    seed: {
-      description: 'ensemble seed: an unsigned 64-bit integer (a string of decimal digits, or an integer below 2^53)',
-      anyOf: [
-        { type: 'integer', minimum: 0, maximum: Number.MAX_SAFE_INTEGER },
-        { type: 'string', pattern: '^[0-9]{1,20}$' },
-      ],
-    },
+    seed: { ...SEED_SCHEMA, description: `ensemble seed: ${SEED_SCHEMA.description}` },
     records_per_decade: { type: 'integer', minimum: 10, maximum: 100, description: 'observables recorded at this many sizes per decade' },
     observables: {
       type: 'array',
@@ -82,15 +114,7 @@ export const SPEC_SCHEMA = {
       required: ['walkers'],
       description: 'probe every cluster with walkers at its end (and at at_sizes) to measure its harmonic measure',
       properties: {
-        walkers: { type: 'integer', minimum: 100, maximum: 10_000_000_000, description: 'probe walkers per cluster and size' },
-        jobs: { type: 'integer', minimum: 1, maximum: 4096, description: 'independent probe jobs per cluster and size (default: one per 250000 walkers, at least 2)' },
-        q: {
-          type: 'array', minItems: 1, maxItems: 401, uniqueItems: true,
-          items: { type: 'number', minimum: -50, maximum: 50 },
-          description: 'q values of the partition function (default -1 to 5 in steps of 0.25)',
-        },
-        contact_sample: { type: 'integer', minimum: 3, maximum: 20_000, description: 'contact points kept for the capacity (default 4000)' },
-        min_step: { type: 'number', exclusiveMinimum: 0, maximum: 1, description: 'straight-step length of the probes near contact, in contact radii (default 0.02)' },
+        ...PROBE_SETTINGS_PROPERTIES,
         at_sizes: {
           type: 'array', minItems: 1, maxItems: MAX_PROBE_SIZES, uniqueItems: true,
           items: { type: 'integer', minimum: 2, maximum: MAX_PARTICLES },

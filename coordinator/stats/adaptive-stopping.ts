@@ -17,6 +17,7 @@
  * gets the decision plus the estimate it was based on.
  */
 
+import { rangeProblem } from '../../worker/core/value-range.js';
 import type { GrowthResult } from '../../worker/core/growth-kernel.js';
 import { analyzeEnsemble, type AnalysisOptions, type EstimatorName } from './analyze-ensemble.js';
 import { StatsInputError } from './ensemble-data.js';
@@ -43,10 +44,9 @@ export type StoppingDecision =
   | { action: 'cap-reached'; reason: string };
 
 function need(field: string, v: unknown, lo: number, hi: number, integer: boolean): number {
-  if (typeof v !== 'number' || !Number.isFinite(v) || v < lo || v > hi || (integer && !Number.isInteger(v))) {
-    throw new StatsInputError(`${field}: ${String(v)} is not ${integer ? 'an integer' : 'a number'} in [${lo}, ${hi}]`);
-  }
-  return v;
+  const problem = rangeProblem(field, v, { min: lo, max: hi, integer });
+  if (problem !== null) throw new StatsInputError(problem);
+  return v as number;
 }
 
 export function decideStopping(input: StoppingInput): StoppingDecision {

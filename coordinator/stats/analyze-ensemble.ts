@@ -41,6 +41,7 @@
  *   notes             remarks about the input (duplicates, truncation, fallbacks of windows)
  */
 
+import { rangeProblem } from '../../worker/core/value-range.js';
 import type { GrowthResult } from '../../worker/core/growth-kernel.js';
 import { parseSeed } from '../../worker/core/random.js';
 import { bootstrapInterval, unavailableInterval, type IntervalSummary } from './bca.js';
@@ -200,10 +201,9 @@ export interface EnsembleAnalysis {
 const QUANTITY: Record<EstimatorName, string> = { radiusOfGyration: 'R_g(N)', maxRadius: 'R_max(N)', massRadius: 'M(r)' };
 
 function checkNumber(field: string, v: unknown, lo: number, hi: number, integer = false): number {
-  if (typeof v !== 'number' || !Number.isFinite(v) || v < lo || v > hi || (integer && !Number.isInteger(v))) {
-    throw new StatsInputError(`${field}: ${String(v)} is not ${integer ? 'an integer' : 'a number'} in [${lo}, ${hi}]`);
-  }
-  return v;
+  const problem = rangeProblem(field, v, { min: lo, max: hi, integer });
+  if (problem !== null) throw new StatsInputError(problem);
+  return v as number;
 }
 
 function checkWindow(field: string, lo: number | undefined, hi: number | undefined): void {

@@ -19,6 +19,7 @@
  */
 
 import type { GrowthResult } from '../../worker/core/growth-kernel.js';
+import { TendrilError } from '../../proto/errors.js';
 
 /** log y against log x for K clusters on a common abscissa grid. */
 export interface LogLogData {
@@ -51,8 +52,9 @@ export interface EnsembleData {
 }
 
 /** One-line input error naming the field, its value and what is allowed. */
-export class StatsInputError extends Error {
+export class StatsInputError extends TendrilError {
   override name = 'StatsInputError';
+  readonly kind = 'stats-input';
 }
 
 function columnMeans(y: Float64Array, rows: number, columns: number): Float64Array {

@@ -1,5 +1,8 @@
 /**
- * Ordinary least-squares straight lines in log-log coordinates.
+ * Ordinary least-squares straight lines: the one least-squares fit of the
+ * project (fitLine), used by the ensemble statistics, the summary's power-law
+ * fit and the harmonic-measure spectra, and its slope weights for the
+ * bootstrap.
  *
  * For fixed abscissae x the OLS slope is linear in the ordinates,
  * slope = sum_i w_i y_i with w_i = (x_i - xbar) / sum_j (x_j - xbar)^2, so the
@@ -15,6 +18,10 @@ export interface LineFit {
   points: number;
   /** Root-mean-square residual (natural-log units); 0 for two points. */
   residualRms: number;
+  /** Standard error of the slope, sqrt(RSS / (n - 2) / Sxx); NaN for two points. */
+  standardError: number;
+  /** Coefficient of determination Sxy² / (Sxx Syy); 1 when y has no spread. */
+  rSquared: number;
 }
 
 /** OLS slope weights over x[from..to): slope = sum w[i - from] y[i]. Null if fewer than 2 points or no spread. */
@@ -39,19 +46,26 @@ export function applyWeights(w: Float64Array, y: Float64Array, offset: number): 
   return s;
 }
 
-/** OLS line through (x[i], y[i]) for i in [from, to). */
-export function fitLine(x: Float64Array, y: Float64Array, from: number, to: number): LineFit {
+/** OLS line through (x[i], y[i]) for i in [from, to) (two-pass sums about the means). */
+export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, from = 0, to = x.length): LineFit {
   const n = to - from;
   let xm = 0, ym = 0;
   for (let i = from; i < to; i++) { xm += x[i]; ym += y[i]; }
   xm /= n; ym /= n;
-  let sxx = 0, sxy = 0;
-  for (let i = from; i < to; i++) { sxx += (x[i] - xm) * (x[i] - xm); sxy += (x[i] - xm) * (y[i] - ym); }
+  let sxx = 0, sxy = 0, syy = 0;
+  for (let i = from; i < to; i++) { sxx += (x[i] - xm) * (x[i] - xm); sxy += (x[i] - xm) * (y[i] - ym); syy += (y[i] - ym) * (y[i] - ym); }
   const slope = sxy / sxx;
   const intercept = ym - slope * xm;
   let rss = 0;
   for (let i = from; i < to; i++) { const r = y[i] - intercept - slope * x[i]; rss += r * r; }
-  return { slope, intercept, points: n, residualRms: n > 2 ? Math.sqrt(rss / (n - 2)) : 0 };
+  return {
+    slope,
+    intercept,
+    points: n,
+    residualRms: n > 2 ? Math.sqrt(rss / (n - 2)) : 0,
+    standardError: n > 2 ? Math.sqrt(rss / (n - 2) / sxx) : NaN,
+    rSquared: syy > 0 ? (sxy * sxy) / (sxx * syy) : 1,
+  };
 }
 
 /**

@@ -13,6 +13,7 @@ import type { RunResultData } from '../../proto/convert.js';
 import { analyzeEnsemble, type AnalysisOptions, type EstimatorName } from '../stats/analyze-ensemble.js';
 import { EnsembleStoppingMonitor, type StoppingDecision } from '../stats/adaptive-stopping.js';
 import type { AnalysisSettings, EnsembleSpec, TargetEstimator } from '../spec/index.js';
+import { messageOf } from '../../proto/errors.js';
 
 export const ESTIMATOR_OF_TARGET: Record<TargetEstimator, EstimatorName> = {
   radius_of_gyration: 'radiusOfGyration',
@@ -114,6 +115,6 @@ export function safeAnalysis(runs: readonly RunResultData[], options: AnalysisOp
   try {
     return analyzeEnsemble(runs, options);
   } catch (err) {
-    return { available: false, reason: (err as Error).message.split('\n')[0] };
+    return { available: false, reason: messageOf(err) };
   }
 }

@@ -9,10 +9,13 @@
  *
  * The analysis plugs in through `SummaryOptions.enrich`; defaultSummaryOptions()
  * runs analyzeEnsemble with the spec's [analysis] settings (plus any CLI
- * overrides). Its result lands under "statistics" in the JSON and in
+ * overrides) and adds `observables` (coordinator/stats/observable-bands.ts:
+ * the model-specific observables against N with bootstrap bands, and the
+ * Eden interface growth exponent). Its result lands under "statistics" in the JSON and in
  * `statistics_json` of the protobuf summary. A summary of an unfinished
  * ensemble is marked partial and analyses the runs stored so far.
  */
+import { fitLine } from '../stats/log-log-fit.js';
 import {
   encodeEnsembleSummary,
   type EnsembleSummaryData,
@@ -27,6 +30,7 @@ import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
 import { harmonicSection } from '../harmonic/harmonic-section.js';
 import type { HarmonicSection } from '../harmonic/harmonic-section-types.js';
 import { probeSizesOf } from '../spec/index.js';
+import { observableSection } from '../stats/observable-bands.js';
 
 export { analysisOptionsOf, judgeBatch, newAdaptiveHistory, safeAnalysis, type AdaptiveBatch, type AdaptiveHistory, type AdaptiveOutcome } from './adaptive.js';
 
@@ -58,43 +62,28 @@ export interface SummaryOptions {
   fitMinSize?: number;
 }
 
-/** Ordinary least squares of log y on log x over the points with x >= minX and x, y > 0. */
+/** Ordinary least squares (fitLine) of log y on log x over the points with x >= minX and x, y > 0. */
 export function logLogFit(xs: number[], ys: number[], minX = 0): PowerLawFitData | null {
-  let n = 0;
-  let sx = 0;
-  let sy = 0;
-  let sxx = 0;
-  let sxy = 0;
-  let syy = 0;
+  const lx: number[] = [];
+  const ly: number[] = [];
   let lo = Infinity;
   let hi = -Infinity;
   for (let i = 0; i < xs.length; i++) {
     const x = xs[i];
     const y = ys[i];
     if (!(x >= minX && x > 0 && y > 0) || !Number.isFinite(y)) continue;
-    const lx = Math.log(x);
-    const ly = Math.log(y);
-    n++;
-    sx += lx;
-    sy += ly;
-    sxx += lx * lx;
-    sxy += lx * ly;
-    syy += ly * ly;
+    lx.push(Math.log(x));
+    ly.push(Math.log(y));
     lo = Math.min(lo, x);
     hi = Math.max(hi, x);
   }
-  if (n < 2) return null;
-  const vx = sxx - (sx * sx) / n;
-  if (!(vx > 0)) return null;
-  const cxy = sxy - (sx * sy) / n;
-  const vy = syy - (sy * sy) / n;
-  const slope = cxy / vx;
-  const intercept = (sy - slope * sx) / n;
+  if (lx.length < 2 || !(hi > lo)) return null;
+  const line = fitLine(lx, ly);
   return {
-    exponent: slope,
-    prefactor: Math.exp(intercept),
-    rSquared: vy > 0 ? (cxy * cxy) / (vx * vy) : 1,
-    points: n,
+    exponent: line.slope,
+    prefactor: Math.exp(line.intercept),
+    rSquared: line.rSquared,
+    points: line.points,
     minX: lo,
     maxX: hi,
   };
@@ -113,7 +102,15 @@ export function uniqueRuns(results: Iterable<RunResultData>): RunResultData[] {
  * e.g. `return { enrich: (runs) => analyzeEnsemble(runs) };`.
  */
 export function defaultSummaryOptions(overrides: AnalysisSettings = {}): SummaryOptions {
-  return { enrich: (runs, spec) => safeAnalysis(runs, analysisOptionsOf({ ...spec.analysis, ...overrides })) };
+  return {
+    enrich: (runs, spec) => {
+      const analysis = safeAnalysis(runs, analysisOptionsOf({ ...spec.analysis, ...overrides }));
+      const settings = { ...spec.analysis, ...overrides };
+      // model observables against N with bands, and the Eden interface growth exponent (coordinator/stats/observable-bands.ts)
+      const observables = runs.length > 0 ? observableSection(runs, { seed: spec.seed, resamples: settings.resamples ?? 2000, level: settings.level ?? 0.95 }) : null;
+      return observables !== null && typeof analysis === 'object' && analysis !== null ? { ...analysis, observables } : analysis;
+    },
+  };
 }
 
 export function buildSummary(input: SummaryInput, opts: SummaryOptions = defaultSummaryOptions()): EnsembleSummaryData {

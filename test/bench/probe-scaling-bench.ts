@@ -52,7 +52,7 @@ export async function runProbeScalingBenchmark(o: { particles?: number; walkers?
   const redis = new Redis(redisUrl, { maxRetriesPerRequest: null });
   const store = new ProbeRequestStore(redis, prefix);
   const queue = runQueue(redis, prefix);
-  const settings = { name: 'probe scaling', walkers, seed: '99', jobs, q: [0, 1, 2, 3], contactSample: 4000, minStep: 0.02 };
+  const settings = { name: 'probe scaling', walkers, seed: '99', jobs, q: [0, 1, 2, 3], contactSample: 4000, minStep: 0.02, window: null };
   const timed = async (workers: number): Promise<{ seconds: number; measures: string }> => {
     const artifacts = mkdtempSync(join(tmpdir(), 'tendril-probe-bench-'));
     const children: ChildProcess[] = [];

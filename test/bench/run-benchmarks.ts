@@ -15,14 +15,19 @@
  *   farm       test/bench/farm-bench.ts: runFarmBenchmark() — the same ensemble
  *              (20 × 3·10^5 by default) on two worker processes over Redis
  *              (REDIS_URL) against the embedded mode on two threads
+ *   eden       test/bench/lattice-bench.ts: Eden models (square and triangular at
+ *              10^6 and 10^7, off-lattice at 10^5 and 10^6): particles/s, peak RSS
+ *   lattice    test/bench/lattice-bench.ts: square-lattice DLA at 10^5 and 10^6,
+ *              triangular at 10^5: particles/s, moves per particle, peak RSS
  */
 import { runGrowthBenchmark, sizesFromArgs } from './growth-bench.js';
 import { runAggregateBenchmark } from './aggregate-bench.js';
 import { runFarmBenchmark } from './farm-bench.js';
 import { runProbeBenchmark } from './probe-bench.js';
 import { runProbeScalingBenchmark } from './probe-scaling-bench.js';
+import { runLatticeBenchmark } from './lattice-bench.js';
 
-const PARTS = ['growth', 'aggregate', 'probe', 'probe-scaling', 'farm'] as const;
+const PARTS = ['growth', 'aggregate', 'probe', 'probe-scaling', 'farm', 'eden', 'lattice'] as const;
 type Part = (typeof PARTS)[number];
 
 export function partsFromArgs(argv: string[]): Part[] {
@@ -48,6 +53,7 @@ async function main(argv: string[]): Promise<number> {
   for (const part of parts) {
     try {
       if (part === 'growth') await runGrowthBenchmark({ sizes: sizesFromArgs(argv) });
+      else if (part === 'eden' || part === 'lattice') await runLatticeBenchmark(part, argv.some((a) => a === '--sizes' || a.startsWith('--sizes=')) ? sizesFromArgs(argv) : undefined);
       else if (part === 'aggregate') runAggregate();
       else if (part === 'probe') {
         const r = runProbeBenchmark(1_000_000, 1_000_000);

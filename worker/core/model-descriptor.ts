@@ -59,10 +59,18 @@ export interface ModelReference {
   context: ContextValue[];
 }
 
-/** Probe kernels: how a cluster of this model is probed for its harmonic measure (null: not probed). */
+/**
+ * How a cluster of this model is probed for its harmonic measure:
+ * 'disks-2d' = walkers from infinity onto disks of one particle diameter
+ * about the centres (worker/probe/probe-2d.ts).
+ */
 export type ProbeKind = 'disks-2d';
-/** How a cluster of this model is drawn. */
-export type PictureKind = 'disks-2d';
+/**
+ * How a cluster of this model is drawn: 'disks' = every particle as a disk
+ * of its diameter coloured by arrival order (coordinator/render/cluster-picture.ts;
+ * 3D clusters projected onto the x-y plane).
+ */
+export type PictureKind = 'disks';
 
 export interface ModelDescriptor {
   /** The model's name in specs, on the CLI and on the wire, e.g. "dla-offlattice-2d". */
@@ -82,9 +90,10 @@ export interface ModelDescriptor {
   workCounter: string | null;
   /** Model-specific observables recorded in GrowthSeries.extra (besides R_g, R_max and the centre offset). */
   observables: readonly NamedQuantity[];
-  /** Harmonic-measure probing that applies, or null. */
+  /** Harmonic-measure probing that applies, or null: a [probe] table for this model is refused at validation. */
   probe: ProbeKind | null;
-  picture: PictureKind;
+  /** The cluster picture that applies, or null: no cluster picture is drawn (grow and the report say so in one line). */
+  picture: PictureKind | null;
   /** Distance between the centres of two touching particles (the particle diameter or lattice spacing). */
   contactDistance: number;
   reference: ModelReference;

@@ -8,11 +8,21 @@
  */
 import type { GrowthCheckpoint, GrowthKernel, GrowthTask, ModelParams } from '../core/growth-kernel.js';
 import type { ModelDescriptor } from '../core/model-descriptor.js';
-import { checkRange, quoteValue } from '../core/value-range.js';
+import { checkRange, describeRange, quoteValue, rangeProblem } from '../core/value-range.js';
 import { dlaOffLattice2d } from './dla-offlattice-2d/descriptor.js';
+import { edenSquare } from './eden-square/descriptor.js';
+import { edenTriangular } from './eden-triangular/descriptor.js';
+import { edenOffLattice2d } from './eden-offlattice-2d/descriptor.js';
+import { dlaSquare } from './dla-square/descriptor.js';
+import { dlaTriangular } from './dla-triangular/descriptor.js';
 
 export const MODELS: readonly ModelDescriptor[] = [
   dlaOffLattice2d,
+  edenSquare,
+  edenTriangular,
+  edenOffLattice2d,
+  dlaSquare,
+  dlaTriangular,
 ];
 
 export const MODEL_KINDS: readonly string[] = MODELS.map((m) => m.kind);
@@ -49,25 +59,37 @@ export function defaultModelParams(kind: string): ModelParams {
 }
 
 /**
- * Throws a RangeError (one line, naming `params.NAME`, the model and the
- * allowed range) for an unknown, missing or out-of-range parameter.
+ * Every problem of a model's parameters, one line each naming `params.NAME`,
+ * the model and the allowed range (an unknown, missing or out-of-range
+ * parameter); empty when they are all fine.
  */
-export function checkModelParams(model: ModelParams): void {
+export function modelParamProblems(model: ModelParams): string[] {
   const d = modelDescriptor(model.kind);
   const params = model.params as Record<string, unknown> | undefined;
-  if (typeof params !== 'object' || params === null) throw new RangeError(`params: ${quoteValue(params)} is not allowed; allowed: a table of the parameters of ${d.kind}`);
+  if (typeof params !== 'object' || params === null || Array.isArray(params)) return [`params: ${quoteValue(params)} is not allowed; allowed: a table of the parameters of ${d.kind}`];
+  const problems: string[] = [];
   for (const name of Object.keys(params)) {
     if (!d.params.some((p) => p.name === name)) {
       const known = d.params.map((p) => p.name).join(', ');
       // a key name is printed escaped and bounded: no raw newlines or terminal escapes in messages
       const shown = /^[A-Za-z0-9_]{1,64}$/.test(name) ? name : JSON.stringify(name.slice(0, 40)).replace(/[\u007f-\uffff]/g, (c) => `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`);
-      throw new RangeError(`params.${shown}: not a parameter of ${d.kind}; allowed: ${known || 'none'}`);
+      problems.push(`params.${shown}: not a parameter of ${d.kind}; allowed: ${known || 'none'}`);
     }
   }
   for (const p of d.params) {
-    if (params[p.name] === undefined) throw new RangeError(`params.${p.name}: missing for ${d.kind}`);
-    checkRange(`params.${p.name}`, params[p.name], p, p.unit ? `${p.unit}, for ${d.kind}` : `for ${d.kind}`);
+    if (params[p.name] === undefined) problems.push(`params.${p.name}: missing for ${d.kind}; allowed: ${describeRange(p, p.unit ? `${p.unit}, for ${d.kind}` : `for ${d.kind}`)}`);
+    else {
+      const problem = rangeProblem(`params.${p.name}`, params[p.name], p, p.unit ? `${p.unit}, for ${d.kind}` : `for ${d.kind}`);
+      if (problem !== null) problems.push(problem);
+    }
   }
+  return problems;
+}
+
+/** Throws a RangeError with the first line of modelParamProblems. */
+export function checkModelParams(model: ModelParams): void {
+  const problems = modelParamProblems(model);
+  if (problems.length > 0) throw new RangeError(problems[0]);
 }
 
 /**

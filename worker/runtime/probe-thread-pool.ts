@@ -11,17 +11,20 @@ import { compiledWorkerEntry } from './thread-entry.js';
 import { ThreadSlots, type ThreadSlot } from './thread-slots.js';
 import type { DiskSet, ProbeResult, ProbeTask } from '../probe/probe-2d.js';
 import type { FromProbeThread, ToProbeThread } from './probe-thread.js';
+import { messageOf, TendrilError } from '../../proto/errors.js';
 
 interface Slot extends ThreadSlot {
   key: string | null;
   lastUsed: number;
 }
 
-export class ProbeJobFailed extends Error {
+export class ProbeJobFailed extends TendrilError {
   override name = 'ProbeJobFailed';
-  /** True when the job or its set is invalid, so running it again cannot succeed. */
+  /** 'probe-refused' when the job or its set is invalid, so running it again cannot succeed. */
+  readonly kind: 'probe-failed' | 'probe-refused';
   constructor(message: string, readonly refused = false) {
     super(message);
+    this.kind = refused ? 'probe-refused' : 'probe-failed';
   }
 }
 
@@ -95,7 +98,7 @@ export class ProbeThreadPool {
       const onError = (err: Error) => {
         slot.key = null;
         finish(true);
-        reject(new ProbeJobFailed(`probe thread crashed: ${err.message.split('\n')[0]}`));
+        reject(new ProbeJobFailed(`probe thread crashed: ${messageOf(err)}`));
       };
       const onExit = (code: number) => {
         slot.key = null;

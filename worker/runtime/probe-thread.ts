@@ -11,6 +11,7 @@
  */
 import { parentPort, workerData } from 'node:worker_threads';
 import { ProbeGeometry, runProbeJob, type DiskSet, type ProbeResult, type ProbeTask } from '../probe/probe-2d.js';
+import { messageOf } from '../../proto/errors.js';
 
 export type ToProbeThread = { type: 'probe'; id: number; key: string; set?: DiskSet; task: ProbeTask };
 export type FromProbeThread = { type: 'done'; id: number; result: ProbeResult } | { type: 'failed'; id: number; message: string; refused: boolean };
@@ -34,7 +35,7 @@ if (parentPort && (workerData as { role?: string } | null)?.role === PROBE_THREA
       const result = runProbeJob(held, m.task);
       port.postMessage({ type: 'done', id: m.id, result } satisfies FromProbeThread);
     } catch (err) {
-      port.postMessage({ type: 'failed', id: m.id, message: ((err as Error)?.message ?? String(err)).split('\n')[0], refused: err instanceof RangeError } satisfies FromProbeThread);
+      port.postMessage({ type: 'failed', id: m.id, message: messageOf(err), refused: err instanceof RangeError } satisfies FromProbeThread);
     }
   });
 }

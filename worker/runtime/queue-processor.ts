@@ -17,7 +17,8 @@
  * the worker goes on with the next job.
  *
  * Storage is injected (RunSink for results and progress, CheckpointStore for
- * checkpoints), so this file knows no key layout.
+ * checkpoints); the queue name, payloads, their readers and the artifact keys
+ * are the job contract (worker/runtime/job-contract.ts).
  *
  * Probe jobs (name "probe", payload ProbeJobData) share the queue and the
  * concurrency: they are handed to the injected ProbeJobHandler (the
@@ -32,32 +33,12 @@ import { UnrecoverableError, WaitingError, Worker, type ConnectionOptions, type 
 import type { Redis } from 'ioredis';
 import { ContractError, decodeRunTask, type RunResultData, type RunTaskData } from '../../proto/convert.js';
 import { checkRunTask, TaskRejected } from './task-runner.js';
-import { checkProbeTask, type ProbeTask } from '../probe/probe-2d.js';
+import { QUEUE_NAME, readJobData, readProbeJobData, type ProbeJobData, type RunJobData } from './job-contract.js';
+import { runOne, type CheckpointStore, type ProcessorEvents, type RunOutcome, type RunSink } from './run-lifecycle.js';
+
+export type { CheckpointStore, ProcessorEvents, RunSink };
 import { TaskThreadPool, type ThreadRun } from './task-thread.js';
-
-export const QUEUE_NAME = 'runs';
-export const JOB_PAYLOAD_VERSION = 1;
-
-export interface RunJobData {
-  v: number;
-  ensembleId: string;
-  /** Base64 protobuf RunTask messages. */
-  tasks: string[];
-}
-
-/** Payload of a probe job (version 1): one job of the probe of (run, size) of an ensemble. */
-export interface ProbeJobData {
-  v: number;
-  kind: 'probe';
-  /** What is probed: a cluster of an ensemble (default) or the point set of a probe request. */
-  source?: 'cluster' | 'request';
-  /** The ensemble id, or the probe request id. */
-  ensembleId: string;
-  runIndex: number;
-  size: number;
-  /** The probe task (worker/probe/probe-2d.ts ProbeTask), plain JSON. */
-  task: ProbeTask;
-}
+import { kindOf, messageOf, TendrilError } from '../../proto/errors.js';
 
 export interface ProbeJobHandler {
   /** Run (or skip, when done before) one probe job; throws ProbeJobRefused for a job that can never succeed. */
@@ -66,57 +47,9 @@ export interface ProbeJobHandler {
   failed(job: ProbeJobData, reason: string): Promise<void>;
 }
 
-export class ProbeJobRefused extends Error {
+export class ProbeJobRefused extends TendrilError {
   override name = 'ProbeJobRefused';
-}
-
-/** Read a probe job payload; throws ContractError naming what is wrong. */
-export function readProbeJobData(data: unknown): ProbeJobData {
-  const d = data as Partial<ProbeJobData> | null;
-  if (typeof d !== 'object' || d === null) throw new ContractError('probe job payload is not an object');
-  if (d.v !== JOB_PAYLOAD_VERSION) throw new ContractError(`probe job payload v is ${JSON.stringify(d.v)}, this worker reads only version ${JOB_PAYLOAD_VERSION}`);
-  if (typeof d.ensembleId !== 'string' || d.ensembleId === '') throw new ContractError('probe job payload ensembleId is missing');
-  if (!Number.isSafeInteger(d.runIndex) || (d.runIndex as number) < 0) throw new ContractError(`probe job payload runIndex is ${JSON.stringify(d.runIndex)}, must be a non-negative integer`);
-  if (!Number.isSafeInteger(d.size) || (d.size as number) < 1) throw new ContractError(`probe job payload size is ${JSON.stringify(d.size)}, must be a positive integer`);
-  if (typeof d.task !== 'object' || d.task === null) throw new ContractError('probe job payload task is missing');
-  if (d.source !== undefined && d.source !== 'cluster' && d.source !== 'request') throw new ContractError(`probe job payload source is ${JSON.stringify(d.source)}, must be "cluster" or "request"`);
-  try {
-    checkProbeTask(d.task);
-  } catch (err) {
-    throw new ContractError(`probe job payload task: ${(err as Error).message}`);
-  }
-  return d as ProbeJobData;
-}
-
-export interface RunSink {
-  exists(ensembleId: string): Promise<boolean>;
-  isCancelled(ensembleId: string): Promise<boolean>;
-  hasResult(ensembleId: string, runIndex: number): Promise<boolean>;
-  runStarted(ensembleId: string, runIndex: number, workerId: string): Promise<void>;
-  /** The run was handed back (shutdown or cancel) without a result. */
-  runReleased(ensembleId: string, runIndex: number): Promise<void>;
-  progress(ensembleId: string, runIndex: number, count: number, delta: number): Promise<void>;
-  /** Store a finished run; false when it was stored before. */
-  saveResult(result: RunResultData, bytes: Uint8Array): Promise<boolean>;
-  runFailed(ensembleId: string, runIndex: number, reason: string): Promise<void>;
-  /** Keep the final state of a run that keeps positions (and queue its probes); called before saveResult. */
-  finalPositions?(run: RunTaskData, finalCheckpoint: Uint8Array): Promise<void>;
-}
-
-export interface CheckpointStore {
-  put(key: string, bytes: Uint8Array): Promise<void>;
-  get(key: string): Promise<Uint8Array | null>;
-  delete(key: string): Promise<void>;
-}
-
-export interface ProcessorEvents {
-  /** Particles grown and counter increments (by the names of the model's descriptor) since the last call, for metrics. */
-  onGrowth?: (model: string, particles: number, counters: Record<string, number>) => void;
-  onRunDone?: (result: RunResultData, counted: boolean) => void;
-  onRunStarted?: () => void;
-  onRunEnded?: () => void;
-  onJobFailed?: (reason: string) => void;
-  log?: (line: string) => void;
+  readonly kind = 'probe-refused';
 }
 
 export interface ProcessorOptions extends ProcessorEvents {
@@ -137,26 +70,6 @@ export interface ProcessorOptions extends ProcessorEvents {
   maxStalledCount?: number;
   /** How often progress goes to Redis and cancellation is checked (ms). Default 2 s. */
   progressIntervalMs?: number;
-}
-
-export function checkpointKey(ensembleId: string, runIndex: number): string {
-  return `${ensembleId}/run-${runIndex}.checkpoint`;
-}
-
-/** Read a job payload; throws ContractError naming what is wrong. */
-export function readJobData(data: unknown): { ensembleId: string; tasks: RunTaskData[] } {
-  const d = data as Partial<RunJobData> | null;
-  if (typeof d !== 'object' || d === null) throw new ContractError('job payload is not an object');
-  if (d.v !== JOB_PAYLOAD_VERSION) throw new ContractError(`job payload v is ${JSON.stringify(d.v)}, this worker reads only version ${JOB_PAYLOAD_VERSION}`);
-  if (typeof d.ensembleId !== 'string' || d.ensembleId === '') throw new ContractError('job payload ensembleId is missing');
-  if (!Array.isArray(d.tasks) || d.tasks.length === 0) throw new ContractError('job payload tasks is not a non-empty list');
-  const tasks = d.tasks.map((t, i) => {
-    if (typeof t !== 'string' || !/^[A-Za-z0-9+/]*={0,2}$/.test(t)) throw new ContractError(`job payload tasks[${i}] is not base64 text`);
-    const run = decodeRunTask(Buffer.from(t, 'base64'));
-    if (run.ensembleId !== d.ensembleId) throw new ContractError(`job payload tasks[${i}] belongs to ensemble ${run.ensembleId}, not ${d.ensembleId}`);
-    return run;
-  });
-  return { ensembleId: d.ensembleId, tasks };
 }
 
 export class RunWorker {
@@ -180,7 +93,7 @@ export class RunWorker {
       maxStalledCount: o.maxStalledCount ?? 20,
     });
     this.worker.on('failed', (job, err) => {
-      if (err instanceof WaitingError || err?.name === 'WaitingError') return;
+      if (err instanceof WaitingError) return;
       o.onJobFailed?.(err.message);
       o.log?.(`job ${job?.id ?? '?'} failed: ${err.message}`);
       if (job?.name === 'probe') {
@@ -197,7 +110,7 @@ export class RunWorker {
         })().catch(() => undefined);
       }
     });
-    this.worker.on('error', (err) => o.log?.(`queue error: ${err.message.split('\n')[0]}`));
+    this.worker.on('error', (err) => o.log?.(`queue error: ${messageOf(err)}`));
   }
 
   start(): void {
@@ -219,7 +132,7 @@ export class RunWorker {
       parsed = readJobData(job.data);
       for (const t of parsed.tasks) checkRunTask(t);
     } catch (err) {
-      const reason = (err as Error).message.split('\n')[0];
+      const reason = messageOf(err);
       if (err instanceof ContractError || err instanceof TaskRejected) {
         const d = job.data as Partial<RunJobData> | null;
         if (typeof d?.ensembleId === 'string' && (await this.o.sink.exists(d.ensembleId).catch(() => false))) {
@@ -266,105 +179,38 @@ export class RunWorker {
     try {
       d = readProbeJobData(job.data);
     } catch (err) {
-      throw new UnrecoverableError((err as Error).message.split('\n')[0]);
+      throw new UnrecoverableError(messageOf(err));
     }
     if (!this.o.probes) throw new UnrecoverableError('this worker has no probe handler');
     this.o.onRunStarted?.();
     try {
       return { outcome: await this.o.probes.run(d) };
     } catch (err) {
-      if (err instanceof ProbeJobRefused || (err as Error)?.name === 'ProbeJobRefused') throw new UnrecoverableError((err as Error).message.split('\n')[0]);
+      if (kindOf(err) === 'probe-refused') throw new UnrecoverableError(messageOf(err));
       throw err;
     } finally {
       this.o.onRunEnded?.();
     }
   }
 
-  private async growOne(run: RunTaskData): Promise<'done' | 'released' | 'cancelled'> {
-    const { sink, checkpoints } = this.o;
-    const key = checkpointKey(run.ensembleId, run.runIndex);
-    const checkpoint = (await checkpoints.get(key)) ?? undefined;
-    await sink.runStarted(run.ensembleId, run.runIndex, this.workerId);
-    this.o.onRunStarted?.();
-    let lastCount = -1;
-    let lastCounters: Record<string, number> = {};
-    let reported = -1;
-    let writes: Promise<void> = Promise.resolve();
-    let cancelled = false;
-    const handle = this.pool.run(run, {
-      checkpoint,
-      workerId: this.workerId,
-      onProgress: (p) => {
-        if (lastCount >= 0) {
-          const deltas: Record<string, number> = {};
-          for (const [k, v] of Object.entries(p.counters)) deltas[k] = Math.max(0, v - (lastCounters[k] ?? 0));
-          this.o.onGrowth?.(run.model.kind, Math.max(0, p.count - lastCount), deltas);
-        }
-        else if (reported < 0) reported = p.count;
-        lastCount = p.count;
-        lastCounters = p.counters;
-      },
-      onCheckpoint: (bytes) => {
-        writes = writes.then(() => checkpoints.put(key, bytes)).catch((err) => this.o.log?.(`checkpoint of run ${run.runIndex} not stored: ${(err as Error).message}`));
-      },
-    });
-    this.active.add(handle);
-    if (this.stopping) handle.stop();
-    let tick: Promise<void> = Promise.resolve();
-    const timer = setInterval(() => {
-      tick = (async () => {
-        // every tick, changed or not: the progress write is also the run's sign of life (store.ts, STALE_RUN_MS)
-        if (lastCount >= 0) {
-          const delta = reported >= 0 ? lastCount - reported : 0;
-          reported = lastCount;
-          await sink.progress(run.ensembleId, run.runIndex, lastCount, delta);
-        }
-        if (!cancelled && (await sink.isCancelled(run.ensembleId))) {
-          cancelled = true;
-          handle.stop();
-        }
-      })().catch((err) => this.o.log?.(`progress of run ${run.runIndex} not stored: ${(err as Error).message}`));
-    }, this.o.progressIntervalMs ?? 2000);
+  private async growOne(run: RunTaskData): Promise<RunOutcome> {
     try {
-      const outcome = await handle.outcome;
-      clearInterval(timer);
-      await tick;
-      await writes;
-      if (outcome.status === 'done') {
-        if (lastCount >= 0 && reported >= 0 && lastCount > reported) await sink.progress(run.ensembleId, run.runIndex, lastCount, lastCount - reported);
-        if (run.keepPositions) {
-          if (!outcome.final) throw new Error(`run ${run.runIndex}: the thread returned no final positions`);
-          if (!sink.finalPositions) throw new UnrecoverableError(`run ${run.runIndex} keeps positions but this worker cannot store them`);
-          await sink.finalPositions(run, outcome.final);
-        }
-        const counted = await sink.saveResult(outcome.result, outcome.resultBytes);
-        await checkpoints.delete(key);
-        this.o.onRunDone?.(outcome.result, counted);
-        return 'done';
-      }
-      if (outcome.status === 'unstarted') {
-        await sink.runReleased(run.ensembleId, run.runIndex);
-        return cancelled ? 'cancelled' : 'released';
-      }
-      if (outcome.status === 'stopped') {
-        if (cancelled) {
-          await checkpoints.delete(key);
-          await sink.runReleased(run.ensembleId, run.runIndex);
-          return 'cancelled';
-        }
-        await checkpoints.put(key, outcome.checkpoint);
-        await sink.runReleased(run.ensembleId, run.runIndex);
-        return 'released';
-      }
-      if (outcome.rejected) {
-        await sink.runFailed(run.ensembleId, run.runIndex, outcome.message);
-        throw new UnrecoverableError(outcome.message);
-      }
-      throw new Error(`run ${run.runIndex}: ${outcome.message}`);
-    } finally {
-      clearInterval(timer);
-      this.active.delete(handle);
-      this.o.onRunEnded?.();
+      return await runOne(run, {
+        pool: this.pool,
+        sink: this.o.sink,
+        checkpoints: this.o.checkpoints,
+        workerId: this.workerId,
+        progressIntervalMs: this.o.progressIntervalMs ?? 2000,
+        events: this.o,
+        onStart: (handle) => {
+          this.active.add(handle);
+          if (this.stopping) handle.stop();
+        },
+        onEnd: (handle) => this.active.delete(handle),
+      });
+    } catch (err) {
+      if (err instanceof TaskRejected) throw new UnrecoverableError(err.message);
+      throw err;
     }
   }
 }

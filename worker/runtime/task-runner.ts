@@ -18,6 +18,7 @@ import { ENGINE_VERSION } from '../core/engine-version.js';
 import type { Counters, GrowthCheckpoint } from '../core/growth-kernel.js';
 import { checkTask, createKernel } from '../models/registry.js';
 import { stopRaised, type StopSignal } from '../core/stop-signal.js';
+import { TendrilError } from '../../proto/errors.js';
 
 export interface RunProgress {
   runIndex: number;
@@ -54,8 +55,9 @@ export type RunOutcome =
   | { status: 'done'; result: RunResultData; /** The final state, when the task asks to keep positions. */ final?: CheckpointData }
   | { status: 'stopped'; checkpoint: CheckpointData };
 
-export class TaskRejected extends Error {
+export class TaskRejected extends TendrilError {
   override name = 'TaskRejected';
+  readonly kind = 'task-rejected';
 }
 
 /** Check that a task can be run by this engine; throws TaskRejected with a one-line reason. */

@@ -33,6 +33,7 @@ import {
 } from '../../proto/convert.js';
 import { runTask, type RunProgress } from './task-runner.js';
 import { createStopSignal, raiseStop, type StopSignal } from '../core/stop-signal.js';
+import { kindOf, messageOf } from '../../proto/errors.js';
 
 type ToThread = { type: 'run'; id: number; task: Uint8Array; checkpoint?: Uint8Array; workerId: string; stop: StopSignal } | { type: 'stop'; id: number };
 type FromThread =
@@ -82,9 +83,10 @@ function threadMain(): void {
           port.postMessage({ type: 'stopped', id: m.id, checkpoint: cp } satisfies FromThread, [cp.buffer]);
         }
       } catch (err) {
-        const e = err as Error;
-        const rejected = e?.name === 'TaskRejected' || e?.name === 'ContractError' || e?.name === 'WalkerStuck';
-        port.postMessage({ type: 'failed', id: m.id, message: (e?.message ?? String(err)).split('\n')[0], rejected } satisfies FromThread);
+        // a refused task (other engine, invalid task, unreadable message) or a stuck walker fails for good; anything else may be retried
+        const kind = kindOf(err);
+        const rejected = kind === 'task-rejected' || kind === 'contract' || (err as Error)?.name === 'WalkerStuck';
+        port.postMessage({ type: 'failed', id: m.id, message: messageOf(err), rejected } satisfies FromThread);
       } finally {
         stops.delete(m.id);
       }
@@ -189,7 +191,7 @@ export class TaskThreadPool {
               break;
           }
         };
-        const onError = (err: Error) => finish({ status: 'failed', message: `thread crashed: ${err.message.split('\n')[0]}`, rejected: false }, true);
+        const onError = (err: Error) => finish({ status: 'failed', message: `thread crashed: ${messageOf(err)}`, rejected: false }, true);
         const onExit = (code: number) => finish({ status: 'failed', message: `thread exited with code ${code}`, rejected: false }, true);
         w.on('message', onMessage);
         w.once('error', onError);

@@ -69,7 +69,7 @@ export const dlaOffLattice2d: ModelDescriptor = {
   workCounter: 'jumps',
   observables: PLANAR_ANISOTROPY_OBSERVABLES,
   probe: 'disks-2d',
-  picture: 'disks-2d',
+  picture: 'disks',
   contactDistance: 1,
   reference: {
     dimension: {

@@ -1,0 +1,93 @@
+/**
+ * The bookkeeping every planar kernel shares: particle centres in arrival
+ * order (x0, y0, x1, y1, …; seed at the origin), R_max, the running sums
+ * behind R_g and the centre offset, the records at the log-spaced sizes
+ * (worker/core/record-sizes.ts), the final mass–radius counts and the
+ * positions' part of the state hash. A kernel appends centres; at every
+ * record size the standard observables and the kernel's extra observables
+ * are recorded.
+ */
+import type { ClusterPositions, GrowthSeries, MassRadius } from './growth-kernel.js';
+import { countWithin, massRadiusRadii, recordSizes } from './record-sizes.js';
+import type { StateHasher } from './state-hash.js';
+
+/** Records the model-specific observables of the first `count` centres into `extra`. */
+export type ExtraRecorder = (extra: Record<string, number[]>, coords: Float64Array, count: number, rMax: number) => void;
+
+export class PlanarCluster {
+  /** Centres, interleaved x, y. */
+  readonly xy: Float64Array;
+  n = 0;
+  rMax = 0;
+  private sumX = 0;
+  private sumY = 0;
+  private sumR2 = 0;
+  private readonly sizes: number[];
+  private nextRecord = 0;
+  readonly series: GrowthSeries;
+
+  constructor(
+    capacity: number,
+    recordsPerDecade: number,
+    private readonly recordExtra: ExtraRecorder,
+    series?: GrowthSeries,
+  ) {
+    this.xy = new Float64Array(2 * capacity);
+    this.sizes = recordSizes(capacity, recordsPerDecade);
+    this.series = series ? structuredClone(series) : { sizes: [], radiusOfGyration: [], maxRadius: [], centerOffset: [], extra: {} };
+  }
+
+  /** After re-appending a checkpoint's centres: skip the records already taken. */
+  resumeRecords(): void {
+    while (this.nextRecord < this.sizes.length && this.sizes[this.nextRecord] <= this.n) this.nextRecord++;
+  }
+
+  /** Add a centre (no record). */
+  append(px: number, py: number): void {
+    const i = this.n;
+    this.xy[2 * i] = px;
+    this.xy[2 * i + 1] = py;
+    this.n = i + 1;
+    const r2 = px * px + py * py;
+    if (r2 > this.rMax * this.rMax) this.rMax = Math.sqrt(r2);
+    this.sumX += px;
+    this.sumY += py;
+    this.sumR2 += r2;
+  }
+
+  /** Add a centre and take a record if the new size is on the grid. */
+  place(px: number, py: number): void {
+    this.append(px, py);
+    if (this.nextRecord < this.sizes.length && this.n === this.sizes[this.nextRecord]) this.record();
+  }
+
+  private record(): void {
+    const n = this.n;
+    const mx = this.sumX / n;
+    const my = this.sumY / n;
+    const rg2 = this.sumR2 / n - (mx * mx + my * my);
+    this.series.sizes.push(n);
+    this.series.radiusOfGyration.push(Math.sqrt(rg2 > 0 ? rg2 : 0));
+    this.series.maxRadius.push(this.rMax);
+    this.series.centerOffset.push(Math.sqrt(mx * mx + my * my));
+    this.recordExtra(this.series.extra, this.xy, n, this.rMax);
+    this.nextRecord++;
+  }
+
+  positions(): ClusterPositions {
+    return { dimension: 2, count: this.n, coords: this.xy };
+  }
+
+  massRadius(recordsPerDecade: number): MassRadius {
+    const dist = new Float64Array(this.n);
+    const xy = this.xy;
+    for (let i = 0; i < this.n; i++) dist[i] = Math.sqrt(xy[2 * i] * xy[2 * i] + xy[2 * i + 1] * xy[2 * i + 1]);
+    const radii = massRadiusRadii(this.rMax, recordsPerDecade);
+    return { radii, counts: countWithin(dist, radii) };
+  }
+
+  /** Feed the dimension, count and centres to a state hash. */
+  hashPositions(h: StateHasher): void {
+    h.word(2).integer(this.n).float64Strided(this.xy, this.n, 2, 0).float64Strided(this.xy, this.n, 2, 1);
+  }
+}

@@ -1,0 +1,386 @@
+/**
+ * Diffusion-limited aggregation on a planar lattice (square or triangular,
+ * spacing 1), with noise reduction: the kernel shared by
+ * worker/models/dla-square and worker/models/dla-triangular.
+ *
+ * The model (exact definition)
+ *  - Sites of the lattice (worker/lattice/planar-lattice.ts: 4 neighbours on
+ *    the square lattice, 6 on the triangular one). The cluster starts as the
+ *    seed site (0, 0). The perimeter is the set of empty sites with a
+ *    cluster site among their nearest neighbours.
+ *  - A walker performs the lattice's simple random walk (each step to one of
+ *    the nearest neighbours with equal probability) started "from
+ *    infinity", i.e. its first perimeter site has the discrete harmonic
+ *    measure from infinity of the perimeter. The walker stops at the first
+ *    perimeter site it visits (the site where it first becomes a nearest
+ *    neighbour of the cluster): that site gets one hit.
+ *  - Noise reduction (parameter m >= 1; Tang 1985, Phys. Rev. A 31, 1977;
+ *    Kertész & Vicsek 1986, J. Phys. A 19, L257; both from memory): a
+ *    perimeter site joins the cluster on its m-th hit; the hits of the
+ *    other perimeter sites are kept. m = 1 is plain lattice DLA (every
+ *    walker adds the site it stops at).
+ *  - Positions are emitted in the plane: square site (i, j) at (i, j),
+ *    triangular site (i, j) at (i + j/2, j·√3/2).
+ *
+ * How it is simulated
+ *  1. Launch (approximation A): the walker starts at the site given by
+ *     rounding (in lattice coordinates) a uniformly random point of the
+ *     circle of radius R_L = R_max + launch_margin (R_max: largest distance
+ *     of a cluster site from the seed, in the plane). In the continuum this
+ *     is exact; on the lattice the walk from infinity crosses a large circle
+ *     uniformly only up to lattice corrections that vanish as R_L grows.
+ *     Measured effect: test/dla-square.test.ts compares growth probabilities
+ *     on a small fixed square-lattice cluster with its exact discrete
+ *     harmonic measure (chi-square at significance 0.001: no detectable
+ *     difference with 4·10^4 walkers at margin 2, the smallest allowed, nor
+ *     at the default 8); test/dla-triangular.test.ts does the same on a
+ *     fixed triangular-lattice domino (3·10^4 walkers, default margin).
+ *  2. Return (approximation B, same kind): a walker farther than
+ *     R_far = 2 R_L + 64 from the seed is moved to the site nearest (by
+ *     rounding) to the point where a planar Brownian motion from its
+ *     position first hits the launch circle (the exact exterior Poisson
+ *     kernel, worker/walkers/poisson-return-2d.ts). It is never killed.
+ *  3. Exact jumps: when no cluster site lies within distance L of the walker
+ *     (L = 2^e >= 2; L∞ distance in lattice coordinates on the square
+ *     lattice, hex distance on the triangular one), the walker jumps to the
+ *     site where the lattice walk from the centre of that square (hexagon)
+ *     first reaches its boundary, sampled from the exact exit law
+ *     (worker/lattice/square-exit-tables.ts, worker/lattice/hexagon-exit-tables.ts).
+ *     No perimeter site lies inside, so the walk cannot stop before the
+ *     boundary: the jump samples the lattice walk's own law. L is the
+ *     largest power of two (up to the largest table) allowed by two lower
+ *     bounds on the distance to the cluster: multi-level occupancy marks in
+ *     lattice coordinates (level e: cells of side 2^e; a cell is marked when
+ *     a cluster site lies in the 3 × 3 block of cells around it, so an
+ *     unmarked cell proves an L∞ distance — and so a hex distance — of at
+ *     least 2^e + 1), and the walker's plane radius |w| − R_max (times 1/√2
+ *     for the L∞ distance on the square lattice; the hex distance is at
+ *     least the Euclidean one).
+ *  4. Near the cluster (no level unmarked): single steps; at each site the
+ *     nearest neighbours are looked up and a perimeter site stops the walker.
+ * Everything but 1 and 2 samples the lattice walk exactly.
+ *
+ * Storage is sparse (8 × 8 tiles, worker/index/tiled-grids.ts): cluster
+ * sites, hit counts (m > 1) and the marks of every level; memory grows with
+ * the number of particles, not with the area of the bounding box.
+ *
+ * Determinism and checkpoints: Random.forRun(ensembleSeed, runIndex,
+ * STREAM_GROWTH), consumed in a fixed order. A checkpoint holds positions
+ * and, for m > 1, the hit counts of the perimeter sites (modelState: int32
+ * triples i, j, hits in the order the sites were first hit).
+ *
+ * Observables at each record size: R_g, R_max, the centre offset and the
+ * planar anisotropy measures (worker/core/anisotropy.ts; k = 4 is the
+ * square lattice's fold, k = 6 the triangular one's).
+ */
+import type { Counters, ClusterPositions, GrowthCheckpoint, GrowthKernel, GrowthResult, GrowthTask } from '../../core/growth-kernel.js';
+import { ENGINE_VERSION } from '../../core/engine-version.js';
+import { Random, STREAM_GROWTH } from '../../core/random.js';
+import { StateHasher } from '../../core/state-hash.js';
+import { checkCheckpointOf } from '../../core/checkpoint-check.js';
+import { recordPlanarAnisotropy } from '../../core/anisotropy.js';
+import { PlanarCluster } from '../../core/planar-cluster.js';
+import { TiledByteGrid, TiledInt32Grid } from '../../index/tiled-grids.js';
+import { returnToCircle, returned } from '../../walkers/poisson-return-2d.js';
+import { direction, sampleDirection } from '../../walkers/uniform-direction.js';
+import { MAX_EXIT_LEVEL, exit, sampleExit } from '../../lattice/square-exit-tables.js';
+import { MAX_HEX_LEVEL, hexExit, sampleHexExit } from '../../lattice/hexagon-exit-tables.js';
+import { HALF_SQRT3, type PlanarLattice, planeOf, siteOf, toPlane, toSite } from '../../lattice/planar-lattice.js';
+
+const MARKED = 1;
+const HOLDS = 2;
+const SQRT1_2 = Math.SQRT1_2;
+
+export interface DlaLatticeCounters extends Counters {
+  walkers: number;
+  jumps: number;
+  steps: number;
+  returns: number;
+}
+
+export class DlaLatticeKernel implements GrowthKernel {
+  readonly task: GrowthTask;
+  readonly dimension = 2;
+  readonly counters: DlaLatticeCounters;
+  private readonly lattice: PlanarLattice;
+  private readonly triangular: boolean;
+  /** Largest jump level (tables for L = 2^e up to it) and number of mark levels. */
+  private readonly maxLevel: number;
+  private readonly hitsToJoin: number;
+  private readonly launchMargin: number;
+  private readonly cluster: PlanarCluster;
+  /** 1 for cluster sites. */
+  private readonly sites: TiledByteGrid;
+  /** Hits of perimeter sites (m > 1 only). */
+  private readonly hits: TiledInt32Grid;
+  /** Sites hit at least once and not yet joined, in first-hit order (for checkpoints). */
+  private hitOrder: number[] = [];
+  /** marks[e − 1]: cells of side 2^e. */
+  private readonly marks: TiledByteGrid[] = [];
+  private readonly rng: Random;
+  private guess = 1;
+
+  constructor(lattice: PlanarLattice, task: GrowthTask, checkpoint?: GrowthCheckpoint) {
+    this.task = structuredClone(task);
+    this.lattice = lattice;
+    this.triangular = lattice.name === 'triangular';
+    this.maxLevel = this.triangular ? MAX_HEX_LEVEL : MAX_EXIT_LEVEL;
+    this.hitsToJoin = task.model.params.noise_reduction;
+    this.launchMargin = task.model.params.launch_margin;
+    const expect = Math.max(16, task.particles >> 4);
+    this.sites = new TiledByteGrid(expect);
+    this.hits = new TiledInt32Grid(0, this.hitsToJoin > 1 ? expect : 4);
+    for (let e = 1; e <= this.maxLevel; e++) this.marks.push(new TiledByteGrid(Math.max(4, expect >> (e + 1))));
+    const recordExtra = (extra: Record<string, number[]>, coords: Float64Array, count: number, rMax: number): void => recordPlanarAnisotropy(extra, coords, 2, count, rMax);
+    if (checkpoint === undefined) {
+      this.rng = Random.forRun(task.ensembleSeed, task.runIndex, STREAM_GROWTH);
+      this.counters = { walkers: 0, jumps: 0, steps: 0, returns: 0 };
+      this.cluster = new PlanarCluster(task.particles, task.recordsPerDecade, recordExtra);
+      this.occupy(0, 0);
+      this.cluster.place(0, 0);
+    } else {
+      checkCheckpointOf(task, 2, checkpoint);
+      this.rng = Random.fromState(checkpoint.rngState);
+      const c = checkpoint.counters;
+      this.counters = { walkers: c.walkers ?? 0, jumps: c.jumps ?? 0, steps: c.steps ?? 0, returns: c.returns ?? 0 };
+      this.cluster = new PlanarCluster(task.particles, task.recordsPerDecade, recordExtra, checkpoint.series);
+      const p = checkpoint.positions;
+      for (let k = 0; k < checkpoint.count; k++) {
+        toSite(lattice, p[2 * k], p[2 * k + 1]);
+        const i = siteOf.i;
+        const j = siteOf.j;
+        toPlane(lattice, i, j);
+        if (planeOf.x !== p[2 * k] || planeOf.y !== p[2 * k + 1]) throw new RangeError(`checkpoint position ${k} is not a lattice site`);
+        if (k > 0 && !this.isPerimeter(i, j)) throw new RangeError(`checkpoint position ${k} is not a perimeter site of the cluster before it`);
+        this.occupy(i, j);
+        this.cluster.append(planeOf.x, planeOf.y);
+      }
+      this.cluster.resumeRecords();
+      this.restoreHits(checkpoint.modelState);
+    }
+  }
+
+  get count(): number {
+    return this.cluster.n;
+  }
+
+  get done(): boolean {
+    return this.cluster.n >= this.task.particles;
+  }
+
+  growTo(target: number): void {
+    const goal = Math.min(target, this.task.particles);
+    while (this.cluster.n < goal) this.addParticle();
+  }
+
+  /** Launch walkers until a perimeter site reaches m hits, and add it. */
+  private addParticle(): void {
+    const m = this.hitsToJoin;
+    for (;;) {
+      this.walk();
+      const i = walkerAt.i;
+      const j = walkerAt.j;
+      if (m > 1) {
+        const h = this.hits.get(i, j) + 1;
+        if (h < m) {
+          if (h === 1) this.hitOrder.push(i, j);
+          this.hits.set(i, j, h);
+          continue;
+        }
+        // joined: its count goes back to 0 (hitOrder keeps the entry; checkpoints skip sites without hits)
+        this.hits.set(i, j, 0);
+      }
+      this.occupy(i, j);
+      toPlane(this.lattice, i, j);
+      this.cluster.place(planeOf.x, planeOf.y);
+      return;
+    }
+  }
+
+  /** Run one walker from the launch circle to its first perimeter site (left in walkerAt). */
+  private walk(): void {
+    const rng = this.rng;
+    const lattice = this.lattice;
+    const tri = this.triangular;
+    const maxLevel = this.maxLevel;
+    const rMax = this.cluster.rMax;
+    const launch = rMax + this.launchMargin;
+    const far = 2 * launch + 64;
+    const far2 = far * far;
+    // lattice distance (L∞ square, hex triangular) per unit of plane distance, at least
+    const perUnit = tri ? 1 : SQRT1_2;
+    let jumps = 0;
+    let steps = 0;
+    let returns = 0;
+    sampleDirection(rng);
+    toSite(lattice, launch * direction.x, launch * direction.y);
+    let x = siteOf.i;
+    let y = siteOf.j;
+    for (;;) {
+      const px = tri ? x + 0.5 * y : x;
+      const py = tri ? y * HALF_SQRT3 : y;
+      const r2 = px * px + py * py;
+      if (r2 > far2) {
+        returnToCircle(px, py, launch, rng);
+        toSite(lattice, returned.x, returned.y);
+        x = siteOf.i;
+        y = siteOf.j;
+        returns++;
+        continue;
+      }
+      let e = this.freeLevel(x, y);
+      // radial bound: lattice distance >= (|w| − R_max) · perUnit, so a square (hexagon) of half-width floor(that) − 1 is free
+      const byRadius = Math.floor((Math.sqrt(r2) - rMax) * perUnit) - 1;
+      while (e < maxLevel && 2 ** (e + 1) <= byRadius) e++;
+      if (e >= 1) {
+        if (tri) {
+          sampleHexExit(e, rng);
+          x += hexExit.di;
+          y += hexExit.dj;
+        } else {
+          sampleExit(e, rng);
+          x += exit.dx;
+          y += exit.dy;
+        }
+        jumps++;
+        continue;
+      }
+      if (this.isPerimeter(x, y)) break;
+      if (tri) {
+        const t = rng.nextBelow(6);
+        x += lattice.di[t];
+        y += lattice.dj[t];
+      } else {
+        const s = rng.nextInt32() & 3;
+        if (s === 0) x++;
+        else if (s === 1) x--;
+        else if (s === 2) y++;
+        else y--;
+      }
+      steps++;
+    }
+    walkerAt.i = x;
+    walkerAt.j = y;
+    this.counters.walkers++;
+    this.counters.jumps += jumps;
+    this.counters.steps += steps;
+    this.counters.returns += returns;
+  }
+
+  /** The largest level e (0 … maxLevel) whose cell around (x, y) is unmarked (0: none is). */
+  private freeLevel(x: number, y: number): number {
+    let e = this.guess;
+    const marks = this.marks;
+    if ((marks[e - 1].get(x >> e, y >> e) & MARKED) === 0) {
+      while (e < this.maxLevel && (marks[e].get(x >> (e + 1), y >> (e + 1)) & MARKED) === 0) e++;
+    } else {
+      e--;
+      while (e >= 1 && (marks[e - 1].get(x >> e, y >> e) & MARKED) !== 0) e--;
+    }
+    this.guess = e >= 1 ? e : 1;
+    return e;
+  }
+
+  private isPerimeter(x: number, y: number): boolean {
+    const s = this.sites;
+    if (s.get(x, y) !== 0) return false;
+    const near = s.get(x + 1, y) | s.get(x - 1, y) | s.get(x, y + 1) | s.get(x, y - 1);
+    return this.triangular ? (near | s.get(x + 1, y - 1) | s.get(x - 1, y + 1)) !== 0 : near !== 0;
+  }
+
+  /** Add site (x, y) to the cluster storage and marks. */
+  private occupy(x: number, y: number): void {
+    this.sites.orBits(x, y, 1);
+    for (let e = 1; e <= this.maxLevel; e++) {
+      const g = this.marks[e - 1];
+      const cx = x >> e;
+      const cy = y >> e;
+      if ((g.orBits(cx, cy, HOLDS) & HOLDS) !== 0) continue;
+      for (let dy = -1; dy <= 1; dy++) for (let dx = -1; dx <= 1; dx++) g.orBits(cx + dx, cy + dy, MARKED);
+    }
+  }
+
+  private restoreHits(state: Uint8Array): void {
+    if (state.length % 12 !== 0) throw new RangeError(`checkpoint modelState of ${this.task.model.kind} must be int32 triples, got ${state.length} bytes`);
+    const v = new DataView(state.buffer, state.byteOffset, state.byteLength);
+    for (let o = 0; o < state.length; o += 12) {
+      const i = v.getInt32(o, true);
+      const j = v.getInt32(o + 4, true);
+      const h = v.getInt32(o + 8, true);
+      if (!(h >= 1 && h < this.hitsToJoin) || !this.isPerimeter(i, j)) throw new RangeError(`checkpoint modelState: hits ${h} at (${i}, ${j}) are not possible for ${this.task.model.kind}`);
+      this.hits.set(i, j, h);
+      this.hitOrder.push(i, j);
+    }
+  }
+
+  /** Pending hits as int32 triples (i, j, hits), in first-hit order, skipping sites that have joined. */
+  private hitState(): Uint8Array {
+    const pending: number[] = [];
+    for (let t = 0; t < this.hitOrder.length; t += 2) {
+      const i = this.hitOrder[t];
+      const j = this.hitOrder[t + 1];
+      const h = this.hits.get(i, j);
+      if (h > 0) pending.push(i, j, h);
+    }
+    const out = new Uint8Array(4 * pending.length);
+    const v = new DataView(out.buffer);
+    for (let t = 0; t < pending.length; t++) v.setInt32(4 * t, pending[t], true);
+    return out;
+  }
+
+  positions(): ClusterPositions {
+    return this.cluster.positions();
+  }
+
+  /** Bytes held by the site grid, the hit counts and the marks (for benchmarks). */
+  get storageBytes(): number {
+    let b = this.sites.bytes + this.hits.bytes;
+    for (const g of this.marks) b += g.bytes;
+    return b;
+  }
+
+  checkpoint(): GrowthCheckpoint {
+    return {
+      engineVersion: ENGINE_VERSION,
+      task: structuredClone(this.task),
+      dimension: 2,
+      count: this.cluster.n,
+      positions: this.cluster.xy.slice(0, 2 * this.cluster.n),
+      rngState: this.rng.state(),
+      counters: { ...this.counters },
+      series: structuredClone(this.cluster.series),
+      modelState: this.hitState(),
+    };
+  }
+
+  result(): GrowthResult {
+    if (!this.done) throw new Error(`run ${this.task.runIndex} is not finished (${this.cluster.n} of ${this.task.particles} particles)`);
+    return {
+      engineVersion: ENGINE_VERSION,
+      model: structuredClone(this.task.model),
+      dimension: 2,
+      particles: this.task.particles,
+      ensembleSeed: this.task.ensembleSeed,
+      runIndex: this.task.runIndex,
+      series: structuredClone(this.cluster.series),
+      massRadius: this.cluster.massRadius(this.task.recordsPerDecade),
+      counters: { ...this.counters },
+      stateHash: this.stateHash(),
+    };
+  }
+
+  /** Digest of positions, generator state, count, counters and pending hits. */
+  stateHash(): string {
+    const h = new StateHasher();
+    this.cluster.hashPositions(h);
+    for (const w of this.rng.state()) h.word(w);
+    h.integer(this.counters.walkers).integer(this.counters.jumps).integer(this.counters.steps).integer(this.counters.returns);
+    const pending = this.hitState();
+    h.integer(pending.length);
+    for (const b of pending) h.word(b);
+    return h.digest();
+  }
+}
+
+/** Where the last walker stopped. */
+const walkerAt = { i: 0, j: 0 };

@@ -1,0 +1,159 @@
+/**
+ * The life of one run, from start or checkpoint to stored result: the one
+ * per-run logic of the farm (worker/runtime/queue-processor.ts, with Redis
+ * and the artifact store behind RunSink and CheckpointStore) and of the
+ * embedded mode (coordinator/embedded/, with in-memory implementations and
+ * the directory store).
+ *
+ *   resume from the newest checkpoint (CheckpointStore), grow in a thread,
+ *   checkpoint while growing, report progress and watch for cancellation
+ *   every progressIntervalMs; when done: hand over the final positions if
+ *   the task keeps them, store the result once, drop the checkpoint; when
+ *   stopped (shutdown or interruption): keep the checkpoint and release the
+ *   run; when cancelled: drop the checkpoint.
+ *
+ * A task the engine refuses throws TaskRejected (its run marked failed); any
+ * other failure throws an Error with the thread's one-line reason.
+ */
+import type { RunResultData, RunTaskData } from '../../proto/convert.js';
+import { messageOf } from '../../proto/errors.js';
+import { checkpointKey } from './job-contract.js';
+import { TaskRejected } from './task-runner.js';
+import type { TaskThreadPool, ThreadRun } from './task-thread.js';
+
+export interface RunSink {
+  exists(ensembleId: string): Promise<boolean>;
+  isCancelled(ensembleId: string): Promise<boolean>;
+  hasResult(ensembleId: string, runIndex: number): Promise<boolean>;
+  runStarted(ensembleId: string, runIndex: number, workerId: string): Promise<void>;
+  /** The run was handed back (shutdown or cancel) without a result. */
+  runReleased(ensembleId: string, runIndex: number): Promise<void>;
+  progress(ensembleId: string, runIndex: number, count: number, delta: number): Promise<void>;
+  /** Store a finished run; false when it was stored before. */
+  saveResult(result: RunResultData, bytes: Uint8Array): Promise<boolean>;
+  runFailed(ensembleId: string, runIndex: number, reason: string): Promise<void>;
+  /** Keep the final state of a run that keeps positions (and queue its probes); called before saveResult. */
+  finalPositions?(run: RunTaskData, finalCheckpoint: Uint8Array): Promise<void>;
+}
+
+export interface CheckpointStore {
+  put(key: string, bytes: Uint8Array): Promise<void>;
+  get(key: string): Promise<Uint8Array | null>;
+  delete(key: string): Promise<void>;
+}
+
+export interface ProcessorEvents {
+  /** Particles grown and counter increments (by the names of the model's descriptor) since the last call, for metrics. */
+  onGrowth?: (model: string, particles: number, counters: Record<string, number>) => void;
+  onRunDone?: (result: RunResultData, counted: boolean) => void;
+  onRunStarted?: () => void;
+  onRunEnded?: () => void;
+  onJobFailed?: (reason: string) => void;
+  log?: (line: string) => void;
+}
+
+export interface RunLifecycleOptions {
+  pool: TaskThreadPool;
+  sink: RunSink;
+  checkpoints: CheckpointStore;
+  workerId: string;
+  /** How often progress goes to the sink and cancellation is checked (ms). */
+  progressIntervalMs: number;
+  events?: ProcessorEvents;
+  /** The run is in a thread: the owner may stop it (shutdown, interruption). */
+  onStart?: (handle: ThreadRun) => void;
+  onEnd?: (handle: ThreadRun) => void;
+}
+
+/** 'done': result stored; 'released': stopped with its checkpoint kept; 'cancelled': its ensemble was cancelled. */
+export type RunOutcome = 'done' | 'released' | 'cancelled';
+
+/** Run one task through its whole life (see the file header). */
+export async function runOne(run: RunTaskData, o: RunLifecycleOptions): Promise<RunOutcome> {
+  const { sink, checkpoints } = o;
+  const ev = o.events ?? {};
+  const key = checkpointKey(run.ensembleId, run.runIndex);
+  const checkpoint = (await checkpoints.get(key)) ?? undefined;
+  await sink.runStarted(run.ensembleId, run.runIndex, o.workerId);
+  ev.onRunStarted?.();
+  let lastCount = -1;
+  let lastCounters: Record<string, number> = {};
+  let reported = -1;
+  let writes: Promise<void> = Promise.resolve();
+  let cancelled = false;
+  const handle = o.pool.run(run, {
+    checkpoint,
+    workerId: o.workerId,
+    onProgress: (p) => {
+      if (lastCount >= 0) {
+        const deltas: Record<string, number> = {};
+        for (const [k, v] of Object.entries(p.counters)) deltas[k] = Math.max(0, v - (lastCounters[k] ?? 0));
+        ev.onGrowth?.(run.model.kind, Math.max(0, p.count - lastCount), deltas);
+      }
+      else if (reported < 0) reported = p.count;
+      lastCount = p.count;
+      lastCounters = p.counters;
+    },
+    onCheckpoint: (bytes) => {
+      writes = writes.then(() => checkpoints.put(key, bytes)).catch((err) => ev.log?.(`checkpoint of run ${run.runIndex} not stored: ${messageOf(err)}`));
+    },
+  });
+  o.onStart?.(handle);
+  let tick: Promise<void> = Promise.resolve();
+  const timer = setInterval(() => {
+    tick = (async () => {
+      // every tick, changed or not: the progress write is also the run's sign of life (store.ts, STALE_RUN_MS)
+      if (lastCount >= 0) {
+        const delta = reported >= 0 ? lastCount - reported : 0;
+        reported = lastCount;
+        await sink.progress(run.ensembleId, run.runIndex, lastCount, delta);
+      }
+      if (!cancelled && (await sink.isCancelled(run.ensembleId))) {
+        cancelled = true;
+        handle.stop();
+      }
+    })().catch((err) => ev.log?.(`progress of run ${run.runIndex} not stored: ${messageOf(err)}`));
+  }, o.progressIntervalMs);
+  try {
+    const outcome = await handle.outcome;
+    clearInterval(timer);
+    await tick;
+    await writes;
+    if (outcome.status === 'done') {
+      if (lastCount >= 0 && reported >= 0 && lastCount > reported) await sink.progress(run.ensembleId, run.runIndex, lastCount, lastCount - reported);
+      if (run.keepPositions) {
+        if (!outcome.final) throw new Error(`run ${run.runIndex}: the thread returned no final positions`);
+        if (!sink.finalPositions) throw new TaskRejected(`run ${run.runIndex} keeps positions but this worker cannot store them`);
+        await sink.finalPositions(run, outcome.final);
+      }
+      const counted = await sink.saveResult(outcome.result, outcome.resultBytes);
+      await checkpoints.delete(key);
+      ev.onRunDone?.(outcome.result, counted);
+      return 'done';
+    }
+    if (outcome.status === 'unstarted') {
+      // stopped before it got a thread: nothing ran, any earlier checkpoint stays as it is
+      await sink.runReleased(run.ensembleId, run.runIndex);
+      return cancelled ? 'cancelled' : 'released';
+    }
+    if (outcome.status === 'stopped') {
+      if (cancelled) {
+        await checkpoints.delete(key);
+        await sink.runReleased(run.ensembleId, run.runIndex);
+        return 'cancelled';
+      }
+      await checkpoints.put(key, outcome.checkpoint);
+      await sink.runReleased(run.ensembleId, run.runIndex);
+      return 'released';
+    }
+    if (outcome.rejected) {
+      await sink.runFailed(run.ensembleId, run.runIndex, outcome.message);
+      throw new TaskRejected(outcome.message);
+    }
+    throw new Error(`run ${run.runIndex}: ${outcome.message}`);
+  } finally {
+    clearInterval(timer);
+    o.onEnd?.(handle);
+    ev.onRunEnded?.();
+  }
+}
