@@ -32,7 +32,7 @@ export const LATTICE_DLA_PARTS: Omit<ModelDescriptor, 'kind' | 'lattice' | 'defi
   workCounter: 'jumps',
   observables: PLANAR_ANISOTROPY_OBSERVABLES,
   probe: null,
-  picture: 'disks-2d',
+  picture: 'disks',
   contactDistance: 1,
   reference: {
     dimension: null,

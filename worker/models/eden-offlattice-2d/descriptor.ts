@@ -15,7 +15,7 @@ export const edenOffLattice2d: ModelDescriptor = {
   workCounter: null,
   observables: EDEN_OBSERVABLES,
   probe: null,
-  picture: 'disks-2d',
+  picture: 'disks',
   contactDistance: 1,
   reference: EDEN_REFERENCE,
   create: (task, checkpoint) => new OffLatticeEden2d(task, checkpoint),

@@ -14,7 +14,7 @@ export const edenTriangular: ModelDescriptor = {
   workCounter: null,
   observables: EDEN_OBSERVABLES,
   probe: null,
-  picture: 'disks-2d',
+  picture: 'disks',
   contactDistance: 1,
   reference: EDEN_REFERENCE,
   create: (task, checkpoint) => new EdenTriangular(task, checkpoint),
