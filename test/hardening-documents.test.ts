@@ -51,7 +51,7 @@ describe('deep nesting', () => {
     ['/ensembles', `{"model":"dla-offlattice-2d","particles":10,"clusters":1,"seed":1,"params":${nested(5000)}}`, 'params: nested more than 32 levels deep; allowed: at most 32 levels of tables and lists'],
     ['/ensembles', nested(100_000), 'a: nested more than 32 levels deep; allowed: at most 32 levels of tables and lists'],
     ['/probes', `{"walkers":100,"seed":1,"points":${nested(5000)}}`, 'points: nested more than 32 levels deep; allowed: at most 32 levels of tables and lists'],
-    ['/ensembles', '['.repeat(5000) + ']'.repeat(5000), 'spec: [[[[[[[[[...]]]]]]]]] is not allowed; allowed: a table (object) of fields'],
+    ['/ensembles', '['.repeat(5000) + ']'.repeat(5000), 'spec: nested more than 32 levels deep; allowed: at most 32 levels of tables and lists'],
   ])('POST %s nested deep is a 400 with one line', async (url, payload, msg) => {
     const r = await app.inject({ method: 'POST', url, headers: auth, payload });
     expect(r.statusCode).toBe(400);
@@ -97,7 +97,7 @@ describe('error building is bounded', () => {
     const q = problems({ model: 'dla-offlattice-2d', particles: 10, clusters: 1, seed: 1, params: { 'x\u001b]0;pwn\u0007': 1 } });
     expect(q[0]).toMatch(/^params\."x\\u001b\]0;pwn\\u0007": not a parameter of dla-offlattice-2d/);
     const r = await app.inject({ method: 'POST', url: '/probes', headers: auth, payload: JSON.stringify({ walkers: 100, seed: 1, csv: '0,0,1', 'k\r\n\u009b2J': 1 }) });
-    expect(r.json().error).toBe('"k\\r\\n\\u009b2J": unknown field; allowed fields: name, csv, points, walkers, seed, jobs, q, contact_sample, min_step');
+    expect(r.json().error).toMatch(/^"k\\r\\n\\u009b2J": unknown field; allowed fields: name, csv, points, walkers, /);
   });
 
   it('excerpts stop at their budget whatever the value', () => {

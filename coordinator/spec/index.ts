@@ -15,7 +15,7 @@ import { defaultProbeJobs, probeSettingsOf, probeSettingsProblems, type ProbeSet
 import type { ModelParams } from '../../worker/core/growth-kernel.js';
 import type { ModelDescriptor } from '../../worker/core/model-descriptor.js';
 import { probeMinStepFloor } from '../../worker/probe/probe-limits.js';
-import { nestingProblem } from './document-limits.js';
+import { excerpt, nestingProblem } from './document-limits.js';
 import {
   DEFAULT_MAX_TOTAL_PARTICLES,
   MAX_RUNS_PER_JOB,
@@ -188,11 +188,12 @@ export function formatOf(fileName: string): 'toml' | 'json' {
 
 /** Validate a parsed document and fill in defaults; throws SpecError listing every problem. */
 export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv()): EnsembleSpec {
-  if (typeof doc !== 'object' || doc === null || Array.isArray(doc)) {
-    throw new SpecError([`spec: ${quoteValue(doc)} is not allowed; allowed: a table (object) of fields`]);
-  }
+  // nesting first: quoting or checking a document nested 10^5 deep would overflow the stack
   const tooDeep = nestingProblem(doc, 'spec');
   if (tooDeep !== null) throw new SpecError([tooDeep]);
+  if (typeof doc !== 'object' || doc === null || Array.isArray(doc)) {
+    throw new SpecError([`spec: ${excerpt(doc, 60)} is not allowed; allowed: a table (object) of fields`]);
+  }
   const schemaProblems = specDocumentProblems(doc);
   if (schemaProblems.length > 0) throw new SpecError(schemaProblems);
   const d = doc as Record<string, any>;
