@@ -54,10 +54,10 @@ function interfaceFigure(s: ObservableSection): Figure | null {
   const r = bandOf(s, 'interface_radius');
   if (!g || !w || !r) return null;
   const name = 'interface-width';
-  const title = 'Eden interface: width w against mean radius R̄';
+  const title = 'Eden interface: width w against mean radius R_{mean}';
   const keep = w.sizes.map((_, i) => w.mean[i] > 0 && r.mean[i] > 0 && w.lo[i] > 0);
   const xs = r.mean.filter((_, i) => keep[i]);
-  const p = new Plot({ idPrefix: name, title, x: { label: 'mean interface radius R̄', kind: 'log' }, y: { label: 'interface width w', kind: 'log' } });
+  const p = new Plot({ idPrefix: name, title, x: { label: 'mean interface radius R_{mean}', kind: 'log' }, y: { label: 'interface width w', kind: 'log' } });
   p.band(xs, w.lo.filter((_, i) => keep[i]), w.hi.filter((_, i) => keep[i]), COLOURS.green, undefined, 0.18);
   p.points(xs, w.mean.filter((_, i) => keep[i]), COLOURS.green, `ensemble mean, ${Math.round(s.level * 100)}% band`);
   const x0 = g.meanRadius[0];
