@@ -114,6 +114,26 @@ function isEntryPoint(): boolean {
   }
 }
 
+/**
+ * Resolves once everything written to `stream` so far has been handed to the
+ * operating system (a pipe to a slow reader may take a while), or the reader
+ * has gone away. process.exit before that cuts the output short.
+ */
+export function drained(stream: NodeJS.WritableStream & { writableLength?: number; destroyed?: boolean }): Promise<void> {
+  return new Promise((resolve) => {
+    if (stream.destroyed) return resolve();
+    stream.once('error', () => resolve());
+    stream.write('', () => resolve());
+  });
+}
+
 if (isEntryPoint()) {
-  main(process.argv).then((code) => process.exit(code));
+  // a reader that closes early (| head) is not an error of ours
+  process.stdout.on('error', () => undefined);
+  main(process.argv)
+    .then(async (code) => {
+      await Promise.all([drained(process.stdout), drained(process.stderr)]);
+      return code;
+    })
+    .then((code) => process.exit(code));
 }

@@ -34,10 +34,14 @@ export function farmSettings(o: FarmCliOptions): { url: string; prefix: string }
 }
 
 /** Connect to Redis (failing with one line after a few seconds if it does not answer). */
-export async function openFarm(o: FarmCliOptions): Promise<Farm> {
+export async function openFarm(o: FarmCliOptions, failFastMs?: number): Promise<Farm> {
   const { url, prefix } = farmSettings(o);
-  const redis = connectRedis(url, { lazy: true });
-  redis.on('error', () => undefined);
+  const redis = connectRedis(url, { lazy: true, failFast: failFastMs });
+  // the connection's own error (a wrong password, an untrusted certificate) says more than "Connection is closed"
+  let lastError: Error | undefined;
+  redis.on('error', (err: Error) => {
+    lastError = err;
+  });
   try {
     await Promise.race([
       redis.connect(),
@@ -45,7 +49,8 @@ export async function openFarm(o: FarmCliOptions): Promise<Farm> {
     ]);
   } catch (err) {
     redis.disconnect();
-    throw new UsageError(`--redis: cannot reach ${url.replace(/\/\/[^@]*@/, '//***@')}: ${messageOf(err)}`);
+    const reason = /Connection is closed/.test(messageOf(err)) && lastError ? lastError.message.split('\n')[0] : messageOf(err);
+    throw new UsageError(`--redis: cannot reach ${url.replace(/\/\/[^@]*@/, '//***@')}: ${reason}`);
   }
   const store = new EnsembleStore(redis, prefix);
   const { runQueue } = await import('../farm/queue.js');

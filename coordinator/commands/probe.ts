@@ -30,6 +30,7 @@ import { pngRenderer } from '../report/png-plot.js';
 import { mkdirSync, statSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import type { Command } from 'commander';
+import { probeGeometryProblem } from '../../worker/probe/probe-limits.js';
 import { UsageError } from '../usage-error.js';
 import { parseRangeOption, parseSeedOption } from './option-values.js';
 import { describeRange } from '../../worker/core/value-range.js';
@@ -120,6 +121,8 @@ export function register(program: Command): void {
       } catch (e) {
         throw new UsageError((e as Error).message);
       }
+      const shape = probeGeometryProblem(set, minStep, `INPUT ${input}`, '--min-step');
+      if (shape !== null) throw new UsageError(shape);
       const dir = resolve(outRaw);
       try {
         if (!statSync(dir).isDirectory()) throw new UsageError(`--out must name a folder, but "${outRaw}" is an existing file`);

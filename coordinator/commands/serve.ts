@@ -24,6 +24,9 @@ interface ServeOptions extends FarmCliOptions {
   maxTotalParticles?: number;
 }
 
+/** Longest a Redis command of the API may take before the request answers 503. */
+export const REDIS_COMMAND_TIMEOUT_MS = 5000;
+
 export async function readToken(file: string | undefined, env: NodeJS.ProcessEnv = process.env): Promise<string | undefined> {
   let token: string | undefined;
   if (file) {
@@ -56,7 +59,8 @@ export function register(program: Command): void {
       throw new UsageError(`--host: "${opts.host}" is reachable from other machines; allowed without an API token: 127.0.0.1, ::1 or localhost (set TENDRIL_API_TOKEN or --token-file)`);
     }
     const limits = limitsFromEnv(process.env, opts.maxTotalParticles);
-    const farm = await openFarm(opts);
+    // the API answers 503 at once while Redis is down, and no command waits more than 5 s
+    const farm = await openFarm(opts, REDIS_COMMAND_TIMEOUT_MS);
     const registry = newRegistry();
     coordinatorMetrics(registry, farm.store, farm.queue);
     const artifacts = new DirectoryArtifactStore(opts.artifacts ?? process.env.TENDRIL_ARTIFACTS ?? 'tendril-artifacts');

@@ -42,8 +42,13 @@ export class DirectoryArtifactStore implements ArtifactStore {
     const p = this.path(key);
     await mkdir(join(p, '..'), { recursive: true });
     const tmp = `${p}.${randomBytes(4).toString('hex')}.tmp`;
-    await writeFile(tmp, bytes);
-    await rename(tmp, p);
+    try {
+      await writeFile(tmp, bytes);
+      await rename(tmp, p);
+    } catch (err) {
+      await rm(tmp, { force: true });
+      throw err;
+    }
   }
 
   async get(key: string): Promise<Uint8Array | null> {

@@ -18,7 +18,7 @@
 import type { Queue } from 'bullmq';
 import { decodeCheckpoint, type RunTaskData } from '../../proto/convert.js';
 import type { ProbeResult } from '../../worker/probe/probe-2d.js';
-import { ProbeJobFailed, ProbeThreadPool } from '../../worker/runtime/probe-thread-pool.js';
+import { ProbeJobCancelled, ProbeJobFailed, ProbeThreadPool } from '../../worker/runtime/probe-thread-pool.js';
 import { ProbeJobRefused, type ProbeJobHandler } from '../../worker/runtime/queue-processor.js';
 import { finalKey, hitsKey, JOB_PAYLOAD_VERSION, probeResultKey, requestResultKey, type ProbeJobData } from '../../worker/runtime/job-contract.js';
 import { analyseProbedCluster, clusterPrefix, positionsOf, prefixDigest, probeTasksOf } from '../harmonic/ensemble-probing.js';
@@ -63,6 +63,8 @@ export async function keepFinalAndQueueProbes(store: EnsembleStore, artifacts: A
 export interface FarmProbeEvents {
   /** Walkers probed by a job this process ran. */
   onProbed?: (walkers: number) => void;
+  /** How often a running probe job checks whether its request or ensemble was cancelled (ms; default 2000). */
+  cancelPollMs?: number;
   log?: (line: string) => void;
 }
 
@@ -94,29 +96,43 @@ export class FarmProbeHandler implements ProbeJobHandler {
     return set;
   }
 
-  /** One job on a probe thread; a job the thread refuses (invalid task or set) fails for good, not by retries. */
-  private async runOnThread(key: string, load: () => DiskSet | Promise<DiskSet>, task: ProbeJobData['task']): Promise<ProbeResult> {
+  /**
+   * One job on a probe thread; a job the thread refuses (invalid task or set)
+   * fails for good, not by retries. `cancelled` is polled every
+   * cancelPollMs while the job runs; once true the thread is stopped and the
+   * result is null.
+   */
+  private async runOnThread(key: string, load: () => DiskSet | Promise<DiskSet>, task: ProbeJobData['task'], cancelled: () => Promise<boolean>): Promise<ProbeResult | null> {
+    const abort = new AbortController();
+    const timer = setInterval(() => {
+      void cancelled().then((c) => c && abort.abort(), () => undefined);
+    }, this.events.cancelPollMs ?? 2000);
     try {
-      return await this.pool.run(key, load, task);
+      return await this.pool.run(key, load, task, abort.signal);
     } catch (err) {
+      if (err instanceof ProbeJobCancelled) return null;
       if (err instanceof ProbeJobFailed && err.refused) throw new ProbeJobRefused(err.message);
       throw err;
+    } finally {
+      clearInterval(timer);
     }
   }
 
   /** A job of a probe request (a user's point set; see probe-requests.ts). */
-  private async runRequest(d: ProbeJobData): Promise<'done' | 'skipped'> {
+  private async runRequest(d: ProbeJobData): Promise<'done' | 'skipped' | 'cancelled'> {
     const req = this.requests;
     if (!req) throw new ProbeJobRefused('this worker has no probe-request store');
     const id = d.ensembleId;
     if (await req.hasMeasures(id)) return 'skipped';
+    if (await req.isCancelled(id)) return 'cancelled';
     const s = await req.settings(id);
     if (!s) throw new ProbeJobRefused(`probe job of unknown probe request ${id}`);
     const j = d.task.jobIndex;
     if (!(j >= 0 && j < s.jobs)) throw new ProbeJobRefused(`probe job index ${j} is outside 0..${s.jobs - 1}`);
     const key = requestResultKey(id, j);
     if (!(await this.artifacts.get(key))) {
-      const result = await this.runOnThread(`${id}:request`, () => this.requestSet(id), d.task);
+      const result = await this.runOnThread(`${id}:request`, () => this.requestSet(id), d.task, () => req.isCancelled(id));
+      if (result === null) return 'cancelled';
       await this.artifacts.put(key, Buffer.from(JSON.stringify(result)));
       this.events.onProbed?.(result.walkers);
     }
@@ -164,7 +180,8 @@ export class FarmProbeHandler implements ProbeJobHandler {
     if (!(await this.artifacts.get(rkey))) {
       const final = await this.finalOf(id, runIndex);
       if (size > final.count) throw new ProbeJobRefused(`probe size ${size} exceeds the cluster's ${final.count} particles`);
-      const result = await this.runOnThread(`${id}:${runIndex}:${size}`, () => clusterPrefix(final, size), d.task);
+      const result = await this.runOnThread(`${id}:${runIndex}:${size}`, () => clusterPrefix(final, size), d.task, () => this.store.isCancelled(id));
+      if (result === null) return 'cancelled';
       await this.artifacts.put(rkey, Buffer.from(JSON.stringify(result)));
       this.events.onProbed?.(result.walkers);
     }

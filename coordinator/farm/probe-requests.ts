@@ -12,7 +12,8 @@
  * Keys (P = prefix):
  *   P:probe:ID        hash: request (settings JSON), set (float64 x | y | r, little-endian),
  *                     created_at_ms, measures (HarmonicMeasures JSON, once analysed),
- *                     hits (float64 per disk, once analysed), failed (reason)
+ *                     hits (float64 per disk, once analysed), failed (reason),
+ *                     cancelled (time in ms, once cancelled: its jobs are skipped, a running one is stopped)
  *   P:probe:ID:done   set: job indices whose results are stored
  *   P:probes          sorted set of request ids by creation time
  * Job results live in the artifact store under ID/request/job-J.json.
@@ -24,6 +25,8 @@ import { diskSetDigest, planProbeJobs, DEFAULT_PROBE_LAUNCH_MARGIN, type DiskSet
 import { quoteValue } from '../../worker/core/value-range.js';
 import { JOB_PAYLOAD_VERSION, type ProbeJobData } from '../../worker/runtime/job-contract.js';
 import { parseDiskCsv } from '../harmonic/probe-input.js';
+import { probeGeometryProblem } from '../../worker/probe/probe-limits.js';
+import { excerpt, fieldKey, nestingProblem } from '../spec/document-limits.js';
 import type { HarmonicMeasures } from '../harmonic/probe-analysis.js';
 import { PROBE_SETTINGS_PROPERTIES, probeSettingsOf, probeSettingsProblems, type ProbeSettings, type ProbeSettingsDocument } from '../harmonic/probe-settings.js';
 import { NAME_SCHEMA, SEED_SCHEMA } from '../spec/schema.js';
@@ -76,6 +79,11 @@ export function validateProbeRequest(body: unknown): { settings: ProbeRequestSet
   };
   const show = quoteValue;
   if (typeof body !== 'object' || body === null || Array.isArray(body)) fail('body: not allowed; allowed: a JSON object with walkers, seed and csv or points');
+  const tooDeep = nestingProblem(body, 'body');
+  if (tooDeep !== null) fail(tooDeep);
+  for (const k of ['name', 'csv', 'points', 'walkers', 'seed', 'jobs', 'q', 'contact_sample', 'min_step']) {
+    if ((body as Record<string, unknown>)[k] === null) fail(`${k}: null is not allowed; allowed: leave the field out to take its default`);
+  }
   const schemaProblems = probeRequestProblems(body);
   if (schemaProblems.length > 0) fail(schemaProblems[0]);
   const b = body as Record<string, unknown>;
@@ -96,6 +104,7 @@ export function validateProbeRequest(body: unknown): { settings: ProbeRequestSet
     const p = b.points as Record<string, unknown>;
     if (!Array.isArray(p.x) || !Array.isArray(p.y)) return fail(`points: ${show(b.points)} is not allowed; allowed: {x: [...], y: [...], r: number or [...]} with x and y of equal length`);
     const n = p.x.length;
+    if (n > MAX_REQUEST_DISKS) fail(`points.x: ${n} values is out of range; allowed: at most ${MAX_REQUEST_DISKS}`);
     if (n < 1 || p.y.length !== n) fail(`points.y: ${p.y.length} values is not allowed; allowed: as many as points.x (${n}), at least 1`);
     x = new Float64Array(n); y = new Float64Array(n); r = new Float64Array(n);
     for (let i = 0; i < n; i++) {
@@ -109,6 +118,8 @@ export function validateProbeRequest(body: unknown): { settings: ProbeRequestSet
     if (Array.isArray(p.r) && p.r.length !== n) fail(`points.r: ${p.r.length} values is not allowed; allowed: one number, or as many as points.x (${n})`);
   }
   if (x!.length > MAX_REQUEST_DISKS) fail(`points: ${x!.length} disks is out of range; allowed: at most ${MAX_REQUEST_DISKS}`);
+  const shape = probeGeometryProblem({ count: x!.length, x: x!, y: y!, r: r! }, probeSettingsOf(doc).minStep, b.csv !== undefined ? 'csv' : 'points');
+  if (shape !== null) fail(shape);
   return {
     settings: { name: (b.name as string | undefined) ?? 'probe', seed: BigInt(b.seed as string | number).toString(), ...probeSettingsOf(doc) },
     set: { count: x!.length, x: x!, y: y!, r: r! },
@@ -118,7 +129,7 @@ export function validateProbeRequest(body: unknown): { settings: ProbeRequestSet
 export interface ProbeRequestStatus {
   id: string;
   name: string;
-  state: 'running' | 'done' | 'failed';
+  state: 'running' | 'done' | 'failed' | 'cancelled';
   createdAt: string;
   disks: number;
   walkers: number;
@@ -180,6 +191,17 @@ export class ProbeRequestStore {
     if (!(await this.hasMeasures(id))) await this.redis.hset(this.k(id), 'failed', reason.slice(0, 500));
   }
 
+  /** Mark a request cancelled; false when there is no such request. Its jobs are skipped, and a running job is stopped by its worker. */
+  async cancel(id: string, now = Date.now()): Promise<boolean> {
+    if (!(await this.settings(id))) return false;
+    await this.redis.hsetnx(this.k(id), 'cancelled', String(now));
+    return true;
+  }
+
+  async isCancelled(id: string): Promise<boolean> {
+    return (await this.redis.hexists(this.k(id), 'cancelled')) === 1;
+  }
+
   async hits(id: string): Promise<Float64Array | null> {
     const b = await this.redis.hgetBuffer(this.k(id), 'hits');
     if (!b) return null;
@@ -189,12 +211,13 @@ export class ProbeRequestStore {
   }
 
   async status(id: string): Promise<ProbeRequestStatus | null> {
-    const [s, created, measures, failed, done] = await Promise.all([
+    const [s, created, measures, failed, done, cancelled] = await Promise.all([
       this.settings(id), this.redis.hget(this.k(id), 'created_at_ms'), this.redis.hget(this.k(id), 'measures'), this.redis.hget(this.k(id), 'failed'), this.redis.scard(this.k(id, 'done')),
+      this.redis.hexists(this.k(id), 'cancelled'),
     ]);
     if (!s) return null;
     return {
-      id, name: s.name, state: measures ? 'done' : failed ? 'failed' : 'running', createdAt: new Date(Number(created ?? 0)).toISOString(),
+      id, name: s.name, state: measures ? 'done' : cancelled ? 'cancelled' : failed ? 'failed' : 'running', createdAt: new Date(Number(created ?? 0)).toISOString(),
       disks: s.disks, walkers: s.walkers, jobs: { planned: s.jobs, done }, failure: failed, measures: measures ? JSON.parse(measures) : null,
     };
   }

@@ -11,6 +11,9 @@
  *                                  HSETNX, so a run executed twice is stored (and counted) once
  *   P:ensemble:ID:running          hash: run index -> worker id, while a worker grows it
  *   P:ensemble:ID:progress         hash: run index -> particles placed so far (running runs)
+ *   P:ensemble:ID:seen             hash: run index -> last sign of life of its worker (ms; start and
+ *                                  every progress tick); a running run unseen for STALE_RUN_MS
+ *                                  (its worker was killed) counts as queued, not running
  *   P:ensemble:ID:failed           hash: run index -> reason, for runs that failed for good
  *   P:ensemble:ID:rate             hash: 10-second bucket number -> particles grown in it
  *   P:ensemble:ID:harmonic         hash: "RUN:SIZE" -> ClusterHarmonic JSON of a probed cluster (HSETNX:
@@ -32,9 +35,22 @@ import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
 export const DEFAULT_PREFIX = 'tendril';
 const RATE_BUCKET_MS = 10_000;
 const RATE_WINDOW_MS = 60_000;
+/** A running run whose worker gave no sign of life for this long is counted as queued (workers tick every 2 s by default). */
+export const STALE_RUN_MS = 60_000;
 
-export function connectRedis(url: string, opts: { lazy?: boolean } = {}): Redis {
-  return new Redis(url, { maxRetriesPerRequest: null, lazyConnect: opts.lazy ?? false, enableReadyCheck: true });
+/**
+ * A Redis connection. `failFast` (the HTTP API): commands fail at once while
+ * Redis is unreachable instead of waiting in the offline queue (where a
+ * request whose client gave up would still run once Redis is back), and any
+ * command fails after `failFast` ms.
+ */
+export function connectRedis(url: string, opts: { lazy?: boolean; failFast?: number } = {}): Redis {
+  return new Redis(url, {
+    maxRetriesPerRequest: null,
+    lazyConnect: opts.lazy ?? false,
+    enableReadyCheck: true,
+    ...(opts.failFast ? { enableOfflineQueue: false, commandTimeout: opts.failFast } : {}),
+  });
 }
 
 export interface EnsembleRecord {
@@ -83,6 +99,7 @@ return 1
 const RUN_STARTED_SCRIPT = `
 if redis.call('HEXISTS', KEYS[1], ARGV[1]) == 1 then return 0 end
 redis.call('HSET', KEYS[2], ARGV[1], ARGV[2])
+redis.call('HSET', KEYS[3], ARGV[1], ARGV[3])
 return 1
 `;
 
@@ -131,6 +148,20 @@ export class EnsembleStore implements RunSink {
       .hset(this.k(id), fields)
       .zadd(`${this.prefix}:ensembles`, createdAtMs, id)
       .exec();
+  }
+
+  /** The stored spec document of an ensemble as JSON text (null when there is none), for comparing a repeated launch. */
+  async specText(id: string): Promise<string | null> {
+    return this.redis.hget(this.k(id), 'spec');
+  }
+
+  /** Mark an ensemble's jobs all queued (a launch interrupted before this is completed by its retry). */
+  async markLaunched(id: string): Promise<void> {
+    await this.redis.hset(this.k(id), 'launched', '1');
+  }
+
+  async launched(id: string): Promise<boolean> {
+    return (await this.redis.hexists(this.k(id), 'launched')) === 1;
   }
 
   async get(id: string): Promise<EnsembleRecord | null> {
@@ -199,19 +230,19 @@ export class EnsembleStore implements RunSink {
     return (await this.redis.hexists(this.k(ensembleId, 'results'), String(runIndex))) === 1;
   }
 
-  /** Mark a run running; false (and nothing marked) when its result is already stored: it must not be grown again. */
+  /** Mark a run running (and seen now); false (and nothing marked) when its result is already stored: it must not be grown again. */
   async runStarted(ensembleId: string, runIndex: number, workerId: string): Promise<boolean> {
-    const r = await this.redis.eval(RUN_STARTED_SCRIPT, 2, this.k(ensembleId, 'results'), this.k(ensembleId, 'running'), String(runIndex), workerId);
+    const r = await this.redis.eval(RUN_STARTED_SCRIPT, 3, this.k(ensembleId, 'results'), this.k(ensembleId, 'running'), this.k(ensembleId, 'seen'), String(runIndex), workerId, String(Date.now()));
     return Number(r) === 1;
   }
 
   async runReleased(ensembleId: string, runIndex: number): Promise<void> {
-    await this.redis.multi().hdel(this.k(ensembleId, 'running'), String(runIndex)).hdel(this.k(ensembleId, 'progress'), String(runIndex)).exec();
+    await this.redis.multi().hdel(this.k(ensembleId, 'running'), String(runIndex)).hdel(this.k(ensembleId, 'progress'), String(runIndex)).hdel(this.k(ensembleId, 'seen'), String(runIndex)).exec();
   }
 
   async progress(ensembleId: string, runIndex: number, count: number, delta: number): Promise<void> {
     const bucket = Math.floor(Date.now() / RATE_BUCKET_MS);
-    const m = this.redis.multi().hset(this.k(ensembleId, 'progress'), String(runIndex), String(count));
+    const m = this.redis.multi().hset(this.k(ensembleId, 'progress'), String(runIndex), String(count)).hset(this.k(ensembleId, 'seen'), String(runIndex), String(Date.now()));
     if (delta > 0) m.hincrby(this.k(ensembleId, 'rate'), String(bucket), delta);
     await m.exec();
   }
@@ -225,6 +256,7 @@ export class EnsembleStore implements RunSink {
       .multi()
       .hsetnx(this.k(id, 'results'), String(result.runIndex), Buffer.from(bytes))
       .hdel(this.k(id, 'running'), String(result.runIndex))
+      .hdel(this.k(id, 'seen'), String(result.runIndex))
       .hdel(this.k(id, 'progress'), String(result.runIndex))
       .hdel(this.k(id, 'failed'), String(result.runIndex))
       .exec();
@@ -237,6 +269,7 @@ export class EnsembleStore implements RunSink {
       .multi()
       .hset(this.k(ensembleId, 'failed'), String(runIndex), reason.slice(0, 500))
       .hdel(this.k(ensembleId, 'running'), String(runIndex))
+      .hdel(this.k(ensembleId, 'seen'), String(runIndex))
       .hdel(this.k(ensembleId, 'progress'), String(runIndex))
       .exec();
   }
@@ -287,7 +320,7 @@ export class EnsembleStore implements RunSink {
   async status(id: string, now = Date.now()): Promise<EnsembleStatus | null> {
     const rec = await this.get(id);
     if (!rec) return null;
-    const [doneN, running, progress, failed, rate, harmonicN, probeFailed] = await Promise.all([
+    const [doneN, marked, progress, failed, rate, harmonicN, probeFailed, seen] = await Promise.all([
       this.redis.hlen(this.k(id, 'results')),
       this.redis.hgetall(this.k(id, 'running')),
       this.redis.hgetall(this.k(id, 'progress')),
@@ -295,12 +328,16 @@ export class EnsembleStore implements RunSink {
       this.redis.hgetall(this.k(id, 'rate')),
       this.redis.hlen(this.k(id, 'harmonic')),
       this.redis.hgetall(this.k(id, 'probe-failed')),
+      this.redis.hgetall(this.k(id, 'seen')),
     ]);
+    // runs whose worker stopped giving signs of life (killed) are waiting to be taken up again, not running
+    const running: Record<string, string> = {};
+    for (const [i, w] of Object.entries(marked)) if (seen[i] === undefined || now - Number(seen[i]) < STALE_RUN_MS) running[i] = w;
     // a run whose result is stored is never running, whatever a stale mark says
-    const marked = Object.keys(running);
-    if (marked.length > 0) {
-      const stored = await this.redis.hmget(this.k(id, 'results'), ...marked);
-      marked.forEach((i, j) => { if (stored[j] !== null) delete running[i]; });
+    const markedRuns = Object.keys(running);
+    if (markedRuns.length > 0) {
+      const stored = await this.redis.hmget(this.k(id, 'results'), ...markedRuns);
+      markedRuns.forEach((i, j) => { if (stored[j] !== null) delete running[i]; });
     }
     const probeSizes = probeSizesOf(rec.spec).length;
     const planned = rec.plannedClusters;
@@ -364,7 +401,7 @@ export class EnsembleStore implements RunSink {
     } while (cursor !== '0');
     await this.redis
       .multi()
-      .del(this.k(id), this.k(id, 'results'), this.k(id, 'running'), this.k(id, 'progress'), this.k(id, 'failed'), this.k(id, 'rate'), this.k(id, 'harmonic'), this.k(id, 'probe-failed'), ...probed)
+      .del(this.k(id), this.k(id, 'results'), this.k(id, 'running'), this.k(id, 'seen'), this.k(id, 'progress'), this.k(id, 'failed'), this.k(id, 'rate'), this.k(id, 'harmonic'), this.k(id, 'probe-failed'), ...probed)
       .zrem(`${this.prefix}:ensembles`, id)
       .exec();
   }

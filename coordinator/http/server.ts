@@ -12,10 +12,20 @@
  *                                    token required; 201 {id, status}
  *   GET  /probes/:id                 state, jobs done, and the harmonic measures once analysed
  *   GET  /probes/:id/hits            CSV index,x,y,r,hits,measure per disk (once analysed)
+ *   POST /probes/:id/cancel          cancel a probe request (also DELETE /probes/:id); token required:
+ *                                    its queued jobs are skipped and running ones stopped within seconds
  *   GET  /, /view/:id, /web/*, /ensembles/:id/figures[/NAME.svg], /ensembles/:id/cluster.png
  *                                    the web status page (coordinator/http/web-routes.ts)
  *   GET  /metrics                    Prometheus text format
- *   GET  /health
+ *   GET  /health                     liveness: the process answers (never touches Redis)
+ *   GET  /ready                      readiness: 200 {ok, redis: "ok"} when Redis answers within 2 s, else 503
+ *
+ * POST /ensembles accepts an Idempotency-Key header (1 to 128 printable characters): repeating the
+ * request with the same key and spec returns the same ensemble (200) instead of creating another;
+ * the same key with another spec is a 422 (coordinator/farm/idempotent-launch.ts).
+ *
+ * While Redis is unreachable, routes that need it answer 503 at once (the connection of `tendril serve`
+ * fails fast: no offline queue, commands time out after 5 s).
  *
  * Errors: 4xx with {error: "<one line naming the field, value and what is allowed>"};
  * a bad spec also carries {problems: [...]}, one line per bad field.
@@ -39,10 +49,12 @@ import type { EnsembleStore } from '../farm/store.js';
 import { ENSEMBLE_ID_PATTERN } from '../plan.js';
 import { parseSpecText, SpecError, SPEC_SCHEMA, specDocumentProblems, validateSpec, type SpecLimits } from '../spec/index.js';
 import { compileChecker } from '../spec/schema-messages.js';
-import { farmSummary } from '../farm/summary.js';
+import { nestingProblem } from '../spec/document-limits.js';
+import { SummaryCache } from './summary-cache.js';
+import { IDEMPOTENCY_KEY_PATTERN, IdempotencyConflict, launchIdempotent } from '../farm/idempotent-launch.js';
 import { launchProbeRequest, PROBE_REQUEST_SCHEMA, probeRequestProblems, ProbeRequestError, ProbeRequestStore, validateProbeRequest } from '../farm/probe-requests.js';
 import { registerWebRoutes } from './web-routes.js';
-import { CSV_TABLE_NAMES, defaultSummaryOptions, renderSummary, SUMMARY_FORMATS, type SummaryFormat, type SummaryOptions } from '../summary/index.js';
+import { CSV_TABLE_NAMES, renderSummary, SUMMARY_FORMATS, type SummaryFormat, type SummaryOptions } from '../summary/index.js';
 import { messageOf, TendrilError } from '../../proto/errors.js';
 
 export interface ApiOptions {
@@ -56,11 +68,29 @@ export interface ApiOptions {
   bodyLimit?: number;
   /** Largest probe-request body in bytes (default 128 MiB: point sets are large). */
   probeBodyLimit?: number;
-  /** Summary options; default defaultSummaryOptions() (the full analysis, with the spec's [analysis] settings). */
+  /**
+   * Summary options; default defaultSummaryOptions() (the full analysis, with the spec's [analysis] settings),
+   * computed on a thread. Options given here are applied on the main thread.
+   */
   summary?: SummaryOptions;
   logger?: boolean;
   /** The workers' artifact store (final positions of specs with [positions] or [probe]); without it snapshot downloads answer 404. */
   artifacts?: ArtifactStore;
+}
+
+/** A "__proto__" key, or a "constructor" key holding "prototype", in a JSON body. */
+class PrototypeKey extends Error {}
+
+function refusePrototypeKeys(this: unknown, key: string, value: unknown): unknown {
+  if (key === '__proto__' || (key === 'constructor' && typeof value === 'object' && value !== null && Object.prototype.hasOwnProperty.call(value, 'prototype'))) {
+    throw new PrototypeKey('body: a "__proto__" or "constructor" key is not allowed; allowed: a JSON object of the documented fields');
+  }
+  return value;
+}
+
+/** A request body sent as TOML (content type application/toml or text/toml). */
+class TomlBody {
+  constructor(readonly text: string) {}
 }
 
 class ApiError extends TendrilError {
@@ -113,31 +143,56 @@ function digest(s: string): Buffer {
 }
 
 export function buildApi(o: ApiOptions): FastifyInstance {
-  const app = Fastify({ logger: o.logger ?? false, bodyLimit: o.bodyLimit ?? 65536 });
+  // ids longer than find-my-way's default 100 characters reach checkId, which says what is allowed
+  const app = Fastify({ logger: o.logger ?? false, bodyLimit: o.bodyLimit ?? 65536, maxParamLength: 2048 });
   // Route schemas are validated with our one-line messages; the spec body with the spec's own checker.
+  // Documents nested too deep are refused first (no checker ever walks them).
   app.setValidatorCompiler(({ schema }) => {
     const id = (schema as { $id?: string }).$id;
     const isSpec = id === SPEC_SCHEMA.$id;
+    const isBody = isSpec || id === PROBE_REQUEST_SCHEMA.$id;
     const check = isSpec ? specDocumentProblems : id === PROBE_REQUEST_SCHEMA.$id ? probeRequestProblems : compileChecker(schema);
     return (data: unknown) => {
-      const problems = check(data);
+      const deep = isBody ? nestingProblem(data, isSpec ? 'spec' : 'body') : null;
+      const problems = deep !== null ? [deep] : check(data);
       if (problems.length === 0) return { value: data };
-      return { error: new ApiError(400, problems.length === 1 ? problems[0] : `${isSpec ? 'spec' : 'request'} has ${problems.length} problems`, problems) };
+      return { error: new ApiError(400, problems.length === 1 ? problems[0] : `${problems[0]} (and ${problems.length - 1} more, listed in "problems")`, problems) };
     };
   });
-  app.addContentTypeParser(['application/toml', 'text/toml'], { parseAs: 'string' }, (_req, body, done) => done(null, { toml: body as string }));
+  // JSON bodies: parsed natively; a "__proto__" key, or "constructor" holding "prototype", is refused by name
+  // (escaped keys too: the reviver sees decoded keys; it only runs when the text could hold such a key)
+  app.addContentTypeParser('application/json', { parseAs: 'string' }, (_req, body, done) => {
+    const text = body as string;
+    if (text.trim() === '') return done(Object.assign(new Error('body: empty; allowed: a JSON object'), { statusCode: 400 }), undefined);
+    try {
+      const suspicious = /\\u|proto|constructor/.test(text);
+      done(null, suspicious ? JSON.parse(text, refusePrototypeKeys) : JSON.parse(text));
+    } catch (err) {
+      if (err instanceof PrototypeKey) return done(Object.assign(new Error(err.message), { statusCode: 400 }), undefined);
+      const e = err as Error & { statusCode?: number };
+      e.statusCode = 400;
+      done(e, undefined);
+    }
+  });
+  // a TOML body arrives as a TomlBody (a JSON body {"toml": ...} is an ordinary, invalid, spec)
+  app.addContentTypeParser(['application/toml', 'text/toml'], { parseAs: 'string' }, (_req, body, done) => done(null, new TomlBody(body as string)));
 
   app.setErrorHandler((err: Error & { statusCode?: number; code?: string }, _req, reply) => {
     if (err instanceof ApiError) return reply.code(err.status).send(err.problems ? { error: err.message, problems: err.problems } : { error: err.message });
+    if (isRedisUnavailable(err)) return reply.code(503).header('retry-after', '5').send({ error: `redis: unavailable (${err.message.split('\n')[0].slice(0, 120)}); allowed: retry once GET /ready answers 200` });
     const status = err.statusCode && err.statusCode >= 400 && err.statusCode < 500 ? err.statusCode : 500;
     let msg = messageOf(err);
     if (err.code === 'FST_ERR_CTP_BODY_TOO_LARGE') msg = `body: larger than ${o.bodyLimit ?? 65536} bytes; allowed: at most ${o.bodyLimit ?? 65536} bytes`;
     if (err.code === 'FST_ERR_CTP_INVALID_MEDIA_TYPE') msg = 'content-type: not supported; allowed: application/json or application/toml';
     if (err.code === 'FST_ERR_CTP_EMPTY_JSON_BODY') msg = 'body: empty; allowed: an ensemble spec';
     if (err.code === 'FST_ERR_CTP_INVALID_JSON_BODY' || err instanceof SyntaxError) msg = `body: not valid JSON (${msg})`;
+
     return reply.code(status).send({ error: status === 500 ? `internal error: ${msg}` : msg });
   });
-  app.setNotFoundHandler((req, reply) => reply.code(404).send({ error: `${req.method} ${req.url.split('?')[0]}: no such route` }));
+  app.setNotFoundHandler((req, reply) => {
+    const path = req.url.split('?')[0];
+    return reply.code(404).send({ error: `${req.method} ${path.length > 80 ? `${path.slice(0, 77)}...` : path}: no such route` });
+  });
 
   const expected = o.token ? digest(o.token) : undefined;
   const requireToken = async (req: FastifyRequest, reply: FastifyReply) => {
@@ -166,6 +221,28 @@ export function buildApi(o: ApiOptions): FastifyInstance {
 
   app.get('/health', async () => ({ ok: true }));
 
+  app.get('/ready', async (_req, reply) => {
+    let timer: NodeJS.Timeout | undefined;
+    try {
+      const pong = await Promise.race([
+        o.store.redis.ping(),
+        new Promise<never>((_, reject) => {
+          timer = setTimeout(() => reject(new Error('no answer within 2 s')), 2000);
+        }),
+      ]);
+      if (pong !== 'PONG') throw new Error(`unexpected answer ${JSON.stringify(String(pong).slice(0, 40))}`);
+      return { ok: true, redis: 'ok' };
+    } catch (err) {
+      return reply.code(503).send({ error: `redis: not ready (${(err as Error).message.split('\n')[0].slice(0, 120)})`, redis: 'unavailable' });
+    } finally {
+      clearTimeout(timer);
+    }
+  });
+
+  // summaries: once per ensemble state, computed on a thread (see summary-cache.ts)
+  const summaries = new SummaryCache(o.store, o.summary);
+  app.addHook('onClose', async () => summaries.close());
+
   app.post(
     '/ensembles',
     {
@@ -173,9 +250,9 @@ export function buildApi(o: ApiOptions): FastifyInstance {
       // a TOML body becomes the spec document before it is validated
       preValidation: async (req) => {
         const doc: unknown = req.body;
-        if (!(doc && typeof doc === 'object' && 'toml' in doc && typeof (doc as { toml: unknown }).toml === 'string')) return;
+        if (!(doc instanceof TomlBody)) return;
         try {
-          req.body = parseSpecText((doc as { toml: string }).toml, 'toml');
+          req.body = parseSpecText(doc.text, 'toml');
         } catch (err) {
           if (err instanceof SpecError) throw new ApiError(400, err.problems[0], err.problems);
           throw err;
@@ -183,28 +260,39 @@ export function buildApi(o: ApiOptions): FastifyInstance {
       },
       schema: {
         body: SPEC_SCHEMA,
-        response: { 201: { type: 'object', properties: { id: { type: 'string' }, status: { type: 'string' } } }, 400: ERROR_SCHEMA, 401: ERROR_SCHEMA },
+        headers: { type: 'object', properties: { 'idempotency-key': { type: 'string', description: 'repeat-safe creation: the same key and spec give the same ensemble (200 on a repeat)' } } },
+        response: {
+          200: { type: 'object', properties: { id: { type: 'string' }, status: { type: 'string' } } },
+          201: { type: 'object', properties: { id: { type: 'string' }, status: { type: 'string' } } },
+          400: ERROR_SCHEMA, 401: ERROR_SCHEMA, 422: ERROR_SCHEMA, 503: ERROR_SCHEMA,
+        },
       },
     },
     async (req, reply) => {
       try {
+        const key = req.headers['idempotency-key'];
+        if (key !== undefined && (typeof key !== 'string' || !IDEMPOTENCY_KEY_PATTERN.test(key))) {
+          throw new ApiError(400, `idempotency-key: ${JSON.stringify(String(key).slice(0, 40))} is not allowed; allowed: 1 to 128 printable characters without spaces`);
+        }
         const spec = validateSpec(req.body, o.limits);
+        if (typeof key === 'string') {
+          const got = await launchIdempotent(o.store, o.queue, spec, key);
+          return reply.code(got.created ? 201 : 200).send({ id: got.id, status: `/ensembles/${got.id}` });
+        }
         const id = await launchEnsemble(o.store, o.queue, spec);
         return reply.code(201).send({ id, status: `/ensembles/${id}` });
       } catch (err) {
-        if (err instanceof SpecError) throw new ApiError(400, err.problems.length === 1 ? err.problems[0] : `spec has ${err.problems.length} problems`, err.problems);
+        if (err instanceof IdempotencyConflict) throw new ApiError(422, err.message);
+        if (err instanceof SpecError) throw new ApiError(400, err.problems.length === 1 ? err.problems[0] : `${err.problems[0]} (and ${err.problems.length - 1} more, listed in "problems")`, err.problems);
         throw err;
       }
     },
   );
 
   app.get('/ensembles', { schema: { response: { 200: { type: 'object', properties: { ensembles: { type: 'array', items: STATUS_SCHEMA } } } } } }, async () => {
-    const ensembles = [];
-    for (const id of await o.store.ids(100)) {
-      const s = await o.store.status(id);
-      if (s) ensembles.push(s);
-    }
-    return { ensembles };
+    // all statuses at once: their Redis commands go out together instead of one ensemble after another
+    const all = await Promise.all((await o.store.ids(100)).map((id) => o.store.status(id)));
+    return { ensembles: all.filter((s) => s !== null) };
   });
 
   app.get<{ Params: { id: string } }>(
@@ -243,7 +331,7 @@ export function buildApi(o: ApiOptions): FastifyInstance {
       const table = req.query.table ?? 'series';
       if (!CSV_TABLE_NAMES.includes(table)) throw new ApiError(400, `table: ${JSON.stringify(table.slice(0, 40))} is not allowed; allowed: one of ${CSV_TABLE_NAMES.map((t) => JSON.stringify(t)).join(', ')}`);
       checkId(req.params.id);
-      const got = await farmSummary(o.store, req.params.id, o.summary ?? defaultSummaryOptions());
+      const got = await summaries.get(req.params.id);
       if (!got) throw new ApiError(404, `id: "${req.params.id}" is not an ensemble of this farm`);
       const type = format === 'pb' ? 'application/x-protobuf' : format === 'csv' ? 'text/csv; charset=utf-8' : 'application/json; charset=utf-8';
       const name = format === 'csv' ? `${got.record.id}-${table}.csv` : `${got.record.id}-summary.${format}`;
@@ -302,6 +390,9 @@ export function buildApi(o: ApiOptions): FastifyInstance {
       let v;
       try {
         v = validateProbeRequest(req.body);
+        if (v.settings.walkers > o.limits.maxTotalParticles) {
+          throw new ProbeRequestError(`walkers: ${v.settings.walkers} is above the total-work ceiling; allowed: at most ${o.limits.maxTotalParticles} (a walker counts as one particle; the operator may raise it with TENDRIL_MAX_TOTAL_PARTICLES)`);
+        }
       } catch (err) {
         if (err instanceof ProbeRequestError) throw new ApiError(400, err.message);
         throw err;
@@ -312,6 +403,14 @@ export function buildApi(o: ApiOptions): FastifyInstance {
   );
 
   app.get<{ Params: { id: string } }>('/probes/:id', { schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA } } }, async (req) => probeStatus(req.params.id));
+
+  const cancelProbe = async (req: FastifyRequest<{ Params: { id: string } }>) => {
+    checkId(req.params.id);
+    if (!(await probeStore.cancel(req.params.id))) throw new ApiError(404, `id: "${req.params.id}" is not a probe request of this farm`);
+    return { id: req.params.id, cancelled: true };
+  };
+  app.post<{ Params: { id: string } }>('/probes/:id/cancel', { onRequest: requireToken, schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA, 401: ERROR_SCHEMA } } }, cancelProbe);
+  app.delete<{ Params: { id: string } }>('/probes/:id', { onRequest: requireToken, schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA, 401: ERROR_SCHEMA } } }, cancelProbe);
 
   app.get<{ Params: { id: string } }>('/probes/:id/hits', { schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA } } }, async (req, reply) => {
     const s = await probeStatus(req.params.id);
@@ -330,6 +429,15 @@ export function buildApi(o: ApiOptions): FastifyInstance {
   });
 
   return app;
+}
+
+/** Errors of a Redis that is down or too slow (ioredis and its fail-fast options), answered 503. */
+export function isRedisUnavailable(err: Error & { code?: string }): boolean {
+  return (
+    err.name === 'MaxRetriesPerRequestError' ||
+    /Stream isn't writeable|Command timed out|Connection is closed|enableOfflineQueue|ECONNREFUSED|ECONNRESET|EPIPE|ETIMEDOUT|LOADING Redis is loading/.test(err.message ?? '') ||
+    ['ECONNREFUSED', 'ECONNRESET', 'EPIPE', 'ETIMEDOUT'].includes(err.code ?? '')
+  );
 }
 
 /** True for addresses that only this machine can reach. */

@@ -9,12 +9,14 @@
  */
 import { RECORDS_PER_DECADE } from '../../worker/core/record-sizes.js';
 import { parse as parseToml } from 'smol-toml';
-import { isModelKind, MODEL_KINDS, MODELS, modelDescriptor, modelParamProblems, modelParams } from '../../worker/models/registry.js';
+import { checkModelForSize, isModelKind, MODEL_KINDS, MODELS, modelDescriptor, modelParamProblems, modelParams } from '../../worker/models/registry.js';
 import { compileChecker, type Checker } from './schema-messages.js';
 import { quoteValue } from '../../worker/core/value-range.js';
-import { probeSettingsOf, probeSettingsProblems, type ProbeSettings, type ProbeSettingsDocument } from '../harmonic/probe-settings.js';
+import { defaultProbeJobs, probeSettingsOf, probeSettingsProblems, type ProbeSettings, type ProbeSettingsDocument } from '../harmonic/probe-settings.js';
 import type { ModelParams } from '../../worker/core/growth-kernel.js';
 import type { ModelDescriptor } from '../../worker/core/model-descriptor.js';
+import { probeMinStepFloor } from '../../worker/probe/probe-limits.js';
+import { excerpt, nestingProblem } from './document-limits.js';
 import {
   DEFAULT_MAX_TOTAL_PARTICLES,
   MAX_RUNS_PER_JOB,
@@ -61,6 +63,19 @@ export interface ProbeSpec extends ProbeSettings {
 export function probeSizesOf(s: EnsembleSpec): number[] {
   return s.probe ? [...s.probe.atSizes, s.particles] : [];
 }
+
+/** Most probe jobs one ensemble may queue (probe.jobs × probe sizes × clusters): each is a queue entry. */
+export const MAX_PROBE_JOBS_PER_ENSEMBLE = 100_000;
+
+/** Bootstrap resamples when the spec gives none (coordinator/stats/analyze-ensemble.ts). */
+export const DEFAULT_BOOTSTRAP_RESAMPLES = 2000;
+/**
+ * Ceiling on analysis.resamples × clusters above the default: one summary of
+ * 10^6 resamples over 40 clusters (4·10^7) took 354 s in the audit of issue
+ * #11, and 10^5 resamples over 10 clusters of 300 particles (10^6) about
+ * 90 s on a busy shared machine; 2·10^6 keeps one summary within minutes.
+ */
+export const MAX_BOOTSTRAP_DRAWS = 2_000_000;
 
 /** Default fewest clusters before an adaptive target may count as reached (a bootstrap interval of fewer is too noisy to trust). */
 export const DEFAULT_TARGET_MIN_CLUSTERS = 20;
@@ -180,8 +195,11 @@ export function formatOf(fileName: string): 'toml' | 'json' {
 
 /** Validate a parsed document and fill in defaults; throws SpecError listing every problem. */
 export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv()): EnsembleSpec {
+  // nesting first: quoting or checking a document nested 10^5 deep would overflow the stack
+  const tooDeep = nestingProblem(doc, 'spec');
+  if (tooDeep !== null) throw new SpecError([tooDeep]);
   if (typeof doc !== 'object' || doc === null || Array.isArray(doc)) {
-    throw new SpecError([`spec: ${quoteValue(doc)} is not allowed; allowed: a table (object) of fields`]);
+    throw new SpecError([`spec: ${excerpt(doc, 60)} is not allowed; allowed: a table (object) of fields`]);
   }
   const d = doc as Record<string, any>;
   const schemaProblems = specDocumentProblems(doc);
@@ -200,16 +218,42 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
   if (t && d.clusters !== undefined && d.clusters > t.max_clusters) {
     problems.push(`clusters: ${d.clusters} is out of range; allowed: an integer from 1 to target.max_clusters (${t.max_clusters})`);
   }
+  if (t && t.min_clusters !== undefined && t.min_clusters > t.max_clusters) {
+    problems.push(`target.min_clusters: ${t.min_clusters} is out of range; allowed: an integer from 2 to target.max_clusters (${t.max_clusters})`);
+  }
   const a = (d.analysis ?? {}) as Record<string, any>;
+  // a fit window that misses the grown sizes would end in "no statistics" after all the work
+  const windowReversed = a.fit_max_size !== undefined && a.fit_min_size !== undefined && !(a.fit_min_size < a.fit_max_size);
+  if (a.fit_min_size !== undefined && a.fit_min_size >= d.particles && !windowReversed) problems.push(`analysis.fit_min_size: ${a.fit_min_size} is out of range; allowed: a number from 1 to below particles (${d.particles})`);
   for (const [lo, hi] of [['fit_min_size', 'fit_max_size'], ['mass_radius_min_radius', 'mass_radius_max_radius']]) {
     if (a[lo] !== undefined && a[hi] !== undefined && !(a[lo] < a[hi])) problems.push(`analysis.${lo}: ${a[lo]} is not allowed; allowed: a number below analysis.${hi} (${a[hi]})`);
   }
   const runsMax = t ? t.max_clusters : clusters;
+  // the bootstrap's work grows as resamples × clusters: the default is always allowed, more only up to the ceiling
+  if (a.resamples !== undefined && a.resamples > DEFAULT_BOOTSTRAP_RESAMPLES && a.resamples * runsMax > MAX_BOOTSTRAP_DRAWS) {
+    const most = Math.max(DEFAULT_BOOTSTRAP_RESAMPLES, Math.floor(MAX_BOOTSTRAP_DRAWS / runsMax));
+    problems.push(`analysis.resamples: ${a.resamples} is out of range for ${runsMax} clusters; allowed: an integer from 10 to ${most} (resamples × clusters at most ${MAX_BOOTSTRAP_DRAWS}, or the default ${DEFAULT_BOOTSTRAP_RESAMPLES})`);
+  }
   const total = d.particles * runsMax;
   if (total > limits.maxTotalParticles) {
     problems.push(
       `particles × ${t ? 'target.max_clusters' : 'clusters'}: ${d.particles} × ${runsMax} = ${total} is above the total-work ceiling; allowed: at most ${limits.maxTotalParticles} (the operator may raise it with TENDRIL_MAX_TOTAL_PARTICLES)`,
     );
+  }
+  const pw = d.probe as Record<string, any> | undefined;
+  if (pw && typeof pw.walkers === 'number') {
+    // probe walkers count in the total work (one walker costs about as much as one particle's walk), and queued probe jobs are bounded
+    const sizes = (Array.isArray(pw.at_sizes) ? pw.at_sizes.length : 0) + 1;
+    const walkersTotal = pw.walkers * sizes * runsMax;
+    if (total + walkersTotal > limits.maxTotalParticles) {
+      problems.push(
+        `probe.walkers: ${pw.walkers} × ${sizes} size${sizes > 1 ? 's' : ''} × ${runsMax} clusters = ${walkersTotal} walkers, plus ${total} particles, is above the total-work ceiling; allowed: at most ${limits.maxTotalParticles} walkers and particles together (the operator may raise it with TENDRIL_MAX_TOTAL_PARTICLES)`,
+      );
+    }
+    const jobsTotal = (pw.jobs ?? defaultProbeJobs(pw.walkers)) * sizes * runsMax;
+    if (jobsTotal > MAX_PROBE_JOBS_PER_ENSEMBLE) {
+      problems.push(`probe.jobs: ${pw.jobs ?? defaultProbeJobs(pw.walkers)} per size × ${sizes} size${sizes > 1 ? 's' : ''} × ${runsMax} clusters = ${jobsTotal} probe jobs; allowed: at most ${MAX_PROBE_JOBS_PER_ENSEMBLE} probe jobs per ensemble`);
+    }
   }
   const every = d.checkpoint_every_particles ?? 0;
   if (every > d.particles) {
@@ -227,11 +271,23 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
       if (v >= d.particles) problems.push(`probe.at_sizes[${k}]: ${v} is out of range; allowed: an integer from 2 to particles - 1 (${d.particles - 1})`);
     }
     problems.push(...probeSettingsProblems(pr as ProbeSettingsDocument, 'probe.'));
+    // a cluster of N unit-diameter disks spans at most N contact radii from its middle
+    const stepFloor = probeMinStepFloor(d.particles + 1);
+    if (typeof pr.min_step === 'number' && pr.min_step < stepFloor) problems.push(`probe.min_step: ${pr.min_step} is out of range; allowed: a number from ${stepFloor} to 1 for ${d.particles} particles (a smaller step is lost in the float spacing)`);
   }
   const seed = String(d.seed);
   if (BigInt(seed) >= 1n << 64n) problems.push(`seed: "${seed}" is out of range; allowed: an integer from 0 to 18446744073709551615`);
   const model: ModelParams = modelParams(d.model, (d.params ?? {}) as Record<string, number>);
-  problems.push(...modelParamProblems(model));
+  const paramProblems = modelParamProblems(model);
+  problems.push(...paramProblems);
+  // the model's own checks against the cluster size (e.g. the min_step floor set by the float spacing)
+  if (paramProblems.length === 0 && Number.isSafeInteger(d.particles)) {
+    try {
+      checkModelForSize(model, d.particles);
+    } catch (err) {
+      problems.push((err as Error).message);
+    }
+  }
   const noProbe = pr ? probeProblem(modelDescriptor(d.model)) : null;
   if (noProbe !== null) problems.push(noProbe);
   if (problems.length > 0) throw new SpecError(problems);

@@ -7,7 +7,7 @@
  * schema gives the same words on the CLI and over HTTP.
  */
 import { Ajv, type ErrorObject } from 'ajv';
-import { quoteValue } from '../../worker/core/value-range.js';
+import { excerpt, fieldKey, MAX_LISTED_PROBLEMS } from './document-limits.js';
 
 /** The shared Ajv instance (strict: a schema with an unknown keyword is a programming error). */
 export const ajv = new Ajv({ allErrors: true, strict: true, strictTypes: false });
@@ -40,6 +40,10 @@ function problemsOf(root: object, errors: ErrorObject[], doc: unknown): string[]
   // anyOf failures (the seed) produce one error per branch plus the anyOf itself; keep the anyOf one.
   const anyOfPaths = new Set(errors.filter((e) => e.keyword === 'anyOf').map((e) => e.instancePath));
   for (const e of errors) {
+    if (out.length >= MAX_LISTED_PROBLEMS) {
+      out.push(`spec: more problems than these ${MAX_LISTED_PROBLEMS}; allowed: fix these and submit again to see the rest`);
+      break;
+    }
     if (e.keyword === 'if') continue;
     if (e.keyword !== 'anyOf' && [...anyOfPaths].some((p) => e.schemaPath.includes('/anyOf/') && e.instancePath === p)) continue;
     const msg = messageOf(root, e, doc);
@@ -57,7 +61,7 @@ function fieldOf(instancePath: string): string {
     .slice(1)
     .split('/')
     .map((s) => s.replace(/~1/g, '/').replace(/~0/g, '~'))
-    .map((s, i) => (/^\d+$/.test(s) ? `[${s}]` : i === 0 ? s : `.${s}`))
+    .map((s, i) => (/^\d+$/.test(s) ? `[${s}]` : i === 0 ? fieldKey(s) : `.${fieldKey(s)}`))
     .join('');
 }
 
@@ -105,17 +109,18 @@ export function allowedOf(s: any): string {
 
 function messageOf(root: object, e: ErrorObject, doc: unknown): string {
   const field = fieldOf(e.instancePath);
-  const value = quoteValue(valueAt(doc, e.instancePath));
+  // bounded excerpt: quoting never serialises the whole value
+  const value = excerpt(valueAt(doc, e.instancePath), 60);
   switch (e.keyword) {
     case 'required': {
       const name = (e.params as { missingProperty: string }).missingProperty;
       const s = (schemaAt(root, e.schemaPath)?.properties as Record<string, unknown> | undefined)?.[name];
-      return `${e.instancePath === '' ? '' : field + '.'}${name}: missing; allowed: ${allowedOf(s)}`;
+      return `${e.instancePath === '' ? '' : field + '.'}${fieldKey(name)}: missing; allowed: ${allowedOf(s)}`;
     }
     case 'additionalProperties': {
       const name = (e.params as { additionalProperty: string }).additionalProperty;
       const parent = schemaAt(root, e.schemaPath);
-      return `${e.instancePath === '' ? '' : field + '.'}${name}: unknown field; allowed fields: ${Object.keys(parent?.properties ?? {}).join(', ')}`;
+      return `${e.instancePath === '' ? '' : field + '.'}${fieldKey(name)}: unknown field; allowed fields: ${Object.keys(parent?.properties ?? {}).join(', ')}`;
     }
     case 'minimum':
     case 'maximum':

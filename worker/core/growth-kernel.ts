@@ -9,6 +9,7 @@
  * declared by its descriptor (worker/core/model-descriptor.ts); the registry
  * (worker/models/registry.ts) builds kernels from tasks.
  */
+import type { StopSignal } from './stop-signal.js';
 
 /** A model and its numeric parameters by name (snake_case, as in specs and on the wire). */
 export interface ModelParams {
@@ -99,8 +100,13 @@ export interface GrowthKernel {
   readonly count: number;
   /** True once count === task.particles. */
   readonly done: boolean;
-  /** Grow until count reaches min(target, task.particles). */
-  growTo(target: number): void;
+  /**
+   * Grow until count reaches min(target, task.particles), or return early
+   * when `stop` is raised (worker/core/stop-signal.ts): the kernel reads it
+   * inside its walker loop and leaves the state exactly as after the last
+   * whole particle. Throws WalkerStuck when a walker makes no progress.
+   */
+  growTo(target: number, stop?: StopSignal): void;
   /** Snapshot of the full state; the arrays are copies. */
   checkpoint(): GrowthCheckpoint;
   /** A view (not a copy) of the particle centres, valid until the next growTo. */

@@ -78,6 +78,22 @@ export class Random {
     return Uint32Array.of(this.s0 >>> 0, this.s1 >>> 0, this.s2 >>> 0, this.s3 >>> 0);
   }
 
+  /** Copy the state into `out` (four words) without allocating; `loadState` puts it back. */
+  saveState(out: Uint32Array): void {
+    out[0] = this.s0 >>> 0;
+    out[1] = this.s1 >>> 0;
+    out[2] = this.s2 >>> 0;
+    out[3] = this.s3 >>> 0;
+  }
+
+  /** Restore a state saved by `saveState`. */
+  loadState(saved: Uint32Array): void {
+    this.s0 = saved[0] | 0;
+    this.s1 = saved[1] | 0;
+    this.s2 = saved[2] | 0;
+    this.s3 = saved[3] | 0;
+  }
+
   /** Next 32 random bits as a signed int32. */
   nextInt32(): number {
     const s1 = this.s1;

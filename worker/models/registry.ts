@@ -73,7 +73,9 @@ export function modelParamProblems(model: ModelParams): string[] {
   for (const name of Object.keys(params)) {
     if (!d.params.some((p) => p.name === name)) {
       const known = d.params.map((p) => p.name).join(', ');
-      problems.push(`params.${name}: not a parameter of ${d.kind}; allowed: ${known || 'none'}`);
+      // a key name is printed escaped and bounded: no raw newlines or terminal escapes in messages
+      const shown = /^[A-Za-z0-9_]{1,64}$/.test(name) ? name : JSON.stringify(name.slice(0, 40)).replace(/[\u007f-\uffff]/g, (c) => `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`);
+      problems.push(`params.${shown}: not a parameter of ${d.kind}; allowed: ${known || 'none'}`);
     }
   }
   for (const p of d.params) {
@@ -90,6 +92,16 @@ export function modelParamProblems(model: ModelParams): string[] {
 export function checkModelParams(model: ModelParams): void {
   const problems = modelParamProblems(model);
   if (problems.length > 0) throw new RangeError(problems[0]);
+}
+
+/**
+ * checkModelParams, then the model's own checks against the cluster size
+ * (e.g. a step floor set by the float spacing at the largest radius); for
+ * specs and the CLI, before any task exists.
+ */
+export function checkModelForSize(model: ModelParams, particles: number): void {
+  checkModelParams(model);
+  modelDescriptor(model.kind).check?.({ model, particles, ensembleSeed: '0', runIndex: 0, recordsPerDecade: RECORDS_PER_DECADE_RANGE.min });
 }
 
 /** Throws a RangeError naming the first bad field of a task (parameters, size, records, run index, model checks). */

@@ -78,6 +78,7 @@ import { returnToCircle, returned } from '../walkers/poisson-return-2d.js';
 import { Random, STREAM_PROBE, parseSeed } from '../core/random.js';
 import { direction, sampleDirection } from '../walkers/uniform-direction.js';
 import { contact, firstContact } from '../walkers/segment-contact-2d.js';
+import { probeGeometryProblem, probeMinStepFloor } from './probe-limits.js';
 import { lensExit, lensExitPoint } from '../walkers/lens-exit-2d.js';
 
 /** Default straight-step length near contact, in units of the largest contact radius. */
@@ -192,6 +193,8 @@ export class ProbeGeometry {
       if (y > maxY) maxY = y;
       if (r > rMax) rMax = r;
     }
+    const shapeProblem = probeGeometryProblem(set, null, 'point set');
+    if (shapeProblem !== null) throw new RangeError(shapeProblem);
     this.count = n;
     this.centreX = 0.5 * (minX + maxX);
     this.centreY = 0.5 * (minY + maxY);
@@ -321,6 +324,8 @@ export function checkProbeTask(task: ProbeTask): void {
 
 /** Run one probe job on a prepared geometry. */
 export function runProbeJob(geometry: ProbeGeometry, task: ProbeTask): ProbeResult {
+  const floor = probeMinStepFloor(geometry.extent);
+  if (!(task.minStep >= floor)) throw new RangeError(`minStep ${task.minStep} is below ${floor}, the floor for a set spanning ${geometry.extent.toPrecision(3)} contact radii`);
   checkProbeTask(task);
   if (task.geometryDigest !== geometry.digest)
     throw new RangeError(`geometryDigest must match the point set (${geometry.digest}), got "${task.geometryDigest}"`);

@@ -28,6 +28,11 @@ export class ProbeJobFailed extends TendrilError {
   }
 }
 
+/** The job was stopped by its caller's signal. */
+export class ProbeJobCancelled extends Error {
+  override name = 'ProbeJobCancelled';
+}
+
 export class ProbeThreadPool {
   private readonly pool: ThreadSlots<Slot>;
   private nextId = 1;
@@ -41,7 +46,7 @@ export class ProbeThreadPool {
   private async acquire(key: string): Promise<Slot> {
     const slot = await this.pool.acquire(
       (free, canSpawn) => free.find((s) => s.key === key) ?? (canSpawn ? 'spawn' : free.length > 0 ? free.reduce((a, b) => (a.lastUsed <= b.lastUsed ? a : b)) : undefined),
-      () => ({ worker: new Worker(compiledWorkerEntry(import.meta.url, 'probe-thread')), busy: false, key: null, lastUsed: 0 }),
+      () => ({ worker: new Worker(compiledWorkerEntry(import.meta.url, 'probe-thread'), { workerData: { role: 'tendril-probe' } }), busy: false, key: null, lastUsed: 0 }),
     );
     slot.lastUsed = ++this.tick;
     return slot;
@@ -54,9 +59,12 @@ export class ProbeThreadPool {
   /**
    * Run one probe job on the set named `key`; `load` is called only when the
    * chosen thread does not hold that set yet. Rejects with ProbeJobFailed
-   * (one-line reason) when the job is refused or the thread dies.
+   * (one-line reason) when the job is refused or the thread dies. When
+   * `signal` aborts, the thread is terminated at once (a probe job keeps no
+   * state worth saving) and the call rejects with ProbeJobCancelled.
    */
-  async run(key: string, load: () => DiskSet | Promise<DiskSet>, task: ProbeTask): Promise<ProbeResult> {
+  async run(key: string, load: () => DiskSet | Promise<DiskSet>, task: ProbeTask, signal?: AbortSignal): Promise<ProbeResult> {
+    if (signal?.aborted) throw new ProbeJobCancelled('probe job cancelled');
     const slot = await this.acquire(key);
     let set: DiskSet | undefined;
     try {
@@ -72,7 +80,13 @@ export class ProbeThreadPool {
         w.off('message', onMessage);
         w.off('error', onError);
         w.off('exit', onExit);
+        signal?.removeEventListener('abort', onAbort);
         this.release(slot, broken);
+      };
+      const onAbort = () => {
+        slot.key = null;
+        finish(true);
+        reject(new ProbeJobCancelled('probe job cancelled'));
       };
       const onMessage = (m: FromProbeThread) => {
         if (m.id !== id) return;
@@ -94,6 +108,7 @@ export class ProbeThreadPool {
       w.on('message', onMessage);
       w.once('error', onError);
       w.once('exit', onExit);
+      signal?.addEventListener('abort', onAbort, { once: true });
       if (set) slot.key = key;
       w.postMessage({ type: 'probe', id, key, set, task } satisfies ToProbeThread);
     });

@@ -9,14 +9,17 @@
  *   thread -> main  { type: 'done', id, result } | { type: 'failed', id, message, refused }
  *                   refused: the job or its set is invalid (a RangeError), so a retry cannot succeed
  */
-import { parentPort } from 'node:worker_threads';
+import { parentPort, workerData } from 'node:worker_threads';
 import { ProbeGeometry, runProbeJob, type DiskSet, type ProbeResult, type ProbeTask } from '../probe/probe-2d.js';
 import { messageOf } from '../../proto/errors.js';
 
 export type ToProbeThread = { type: 'probe'; id: number; key: string; set?: DiskSet; task: ProbeTask };
 export type FromProbeThread = { type: 'done'; id: number; result: ProbeResult } | { type: 'failed'; id: number; message: string; refused: boolean };
 
-if (parentPort) {
+/** workerData of probe threads (set by probe-thread-pool.ts): another thread importing this file is left alone. */
+export const PROBE_THREAD_ROLE = 'tendril-probe';
+
+if (parentPort && (workerData as { role?: string } | null)?.role === PROBE_THREAD_ROLE) {
   const port = parentPort;
   let heldKey: string | null = null;
   let held: ProbeGeometry | null = null;

@@ -130,7 +130,8 @@ export async function runOne(run: RunTaskData, o: RunLifecycleOptions): Promise<
   let tick: Promise<void> = Promise.resolve();
   const timer = setInterval(() => {
     tick = (async () => {
-      if (lastCount >= 0 && lastCount !== reported) {
+      // every tick, changed or not: the progress write is also the run's sign of life (store.ts, STALE_RUN_MS)
+      if (lastCount >= 0) {
         const delta = reported >= 0 ? lastCount - reported : 0;
         reported = lastCount;
         await sink.progress(run.ensembleId, run.runIndex, lastCount, delta);
@@ -158,6 +159,11 @@ export async function runOne(run: RunTaskData, o: RunLifecycleOptions): Promise<
       ev.onRunDone?.(outcome.result, counted);
       event({ event: 'run finished', particles: outcome.result.particles, stateHash: outcome.result.stateHash, counted, seconds: (Date.now() - t0) / 1000 });
       return 'done';
+    }
+    if (outcome.status === 'unstarted') {
+      // stopped before it got a thread: nothing ran, any earlier checkpoint stays as it is
+      await sink.runReleased(run.ensembleId, run.runIndex);
+      return cancelled ? 'cancelled' : 'released';
     }
     if (outcome.status === 'stopped') {
       if (cancelled) {

@@ -17,6 +17,7 @@ import { growthTaskOf, type CheckpointData, type RunResultData, type RunTaskData
 import { ENGINE_VERSION } from '../core/engine-version.js';
 import type { Counters, GrowthCheckpoint } from '../core/growth-kernel.js';
 import { checkTask, createKernel } from '../models/registry.js';
+import { stopRaised, type StopSignal } from '../core/stop-signal.js';
 import { TendrilError } from '../../proto/errors.js';
 
 export interface RunProgress {
@@ -35,6 +36,12 @@ export interface RunOptions {
   onCheckpoint?: (c: CheckpointData) => void | Promise<void>;
   /** Checked between chunks; when set the run checkpoints and stops. */
   shouldStop?: () => boolean;
+  /**
+   * Read by the kernel inside its walker loop (worker/core/stop-signal.ts):
+   * once raised, the chunk ends within a few thousand steps, however stuck the
+   * walk, and the run checkpoints and stops.
+   */
+  stopSignal?: StopSignal;
   /** Target wall-clock length of a chunk (default 0.1 s). */
   chunkSeconds?: number;
   /** Called between chunks so the host can receive messages (default: yield to the event loop). */
@@ -108,11 +115,12 @@ export async function runTask(run: RunTaskData, opts: RunOptions = {}): Promise<
 
   report();
   while (!kernel.done) {
-    if (opts.shouldStop?.()) return { status: 'stopped', checkpoint: takeCheckpoint() };
+    if (opts.shouldStop?.() || stopRaised(opts.stopSignal)) return { status: 'stopped', checkpoint: takeCheckpoint() };
     let target = kernel.count + chunk;
     if (every > 0) target = Math.min(target, (Math.floor(kernel.count / every) + 1) * every);
     const t0 = now();
-    kernel.growTo(target);
+    kernel.growTo(target, opts.stopSignal);
+    if (kernel.count < target && !kernel.done) return { status: 'stopped', checkpoint: takeCheckpoint() };
     const dt = (now() - t0) / 1000;
     // adapt the chunk so that one takes about chunkSeconds
     if (dt < chunkSeconds / 2) chunk = Math.min(chunk * 2, 1 << 20);

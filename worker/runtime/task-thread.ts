@@ -5,7 +5,8 @@
  * worker/runtime/task-runner.ts.
  *
  * Messages (all payloads are protobuf bytes of proto/tendril.proto):
- *   main -> thread  { type: 'run', id, task, checkpoint? }   start a run
+ *   main -> thread  { type: 'run', id, task, checkpoint?, stop }   start a run (stop: the shared
+ *                                                             flag of worker/core/stop-signal.ts)
  *                   { type: 'stop', id }                      checkpoint and stop
  *   thread -> main  { type: 'progress', id, count, particles, counters }
  *                   { type: 'checkpoint', id, bytes, count }  store it (no reply needed)
@@ -16,7 +17,7 @@
  * This one file is both the pool (imported on the main thread) and the
  * thread's entry point (when loaded as a Worker).
  */
-import { isMainThread, parentPort, Worker } from 'node:worker_threads';
+import { isMainThread, parentPort, Worker, workerData } from 'node:worker_threads';
 import { compiledWorkerEntry } from './thread-entry.js';
 import { ThreadSlots, type ThreadSlot } from './thread-slots.js';
 import {
@@ -31,9 +32,10 @@ import {
   type RunTaskData,
 } from '../../proto/convert.js';
 import { runTask, type RunProgress } from './task-runner.js';
+import { createStopSignal, raiseStop, type StopSignal } from '../core/stop-signal.js';
 import { kindOf, messageOf } from '../../proto/errors.js';
 
-type ToThread = { type: 'run'; id: number; task: Uint8Array; checkpoint?: Uint8Array; workerId: string } | { type: 'stop'; id: number };
+type ToThread = { type: 'run'; id: number; task: Uint8Array; checkpoint?: Uint8Array; workerId: string; stop: StopSignal } | { type: 'stop'; id: number };
 type FromThread =
   | { type: 'progress'; id: number; count: number; particles: number; counters: Record<string, number> }
   | { type: 'checkpoint'; id: number; bytes: Uint8Array; count: number }
@@ -60,6 +62,7 @@ function threadMain(): void {
           checkpoint,
           workerId: m.workerId,
           shouldStop: () => stops.has(m.id),
+          stopSignal: m.stop,
           onProgress: (p: RunProgress) => {
             const t = Date.now();
             if (t - lastProgress < 250 && p.count < p.particles) return;
@@ -80,9 +83,9 @@ function threadMain(): void {
           port.postMessage({ type: 'stopped', id: m.id, checkpoint: cp } satisfies FromThread, [cp.buffer]);
         }
       } catch (err) {
-        // a refused task (other engine, invalid task, unreadable message) fails for good; anything else may be retried
+        // a refused task (other engine, invalid task, unreadable message) or a stuck walker fails for good; anything else may be retried
         const kind = kindOf(err);
-        const rejected = kind === 'task-rejected' || kind === 'contract';
+        const rejected = kind === 'task-rejected' || kind === 'contract' || (err as Error)?.name === 'WalkerStuck';
         port.postMessage({ type: 'failed', id: m.id, message: messageOf(err), rejected } satisfies FromThread);
       } finally {
         stops.delete(m.id);
@@ -91,7 +94,9 @@ function threadMain(): void {
   });
 }
 
-if (!isMainThread && parentPort) threadMain();
+/** workerData of task threads: a thread of any other kind (summary, probe) that imports this file stays what it is. */
+const TASK_THREAD_ROLE = 'tendril-task';
+if (!isMainThread && parentPort && (workerData as { role?: string } | null)?.role === TASK_THREAD_ROLE) threadMain();
 
 // ------------------------------------------------------------ main side
 
@@ -107,6 +112,8 @@ export interface ThreadRunHandlers {
 export type ThreadOutcome =
   | { status: 'done'; result: RunResultData; resultBytes: Uint8Array; /** Final state (Checkpoint protobuf) when the task keeps positions. */ final?: Uint8Array }
   | { status: 'stopped'; checkpoint: Uint8Array }
+  /** Stopped before it got a thread: nothing ran and nothing changed (keep any earlier checkpoint as it is). */
+  | { status: 'unstarted' }
   | { status: 'failed'; message: string; rejected: boolean };
 
 /** A handle on a run in a thread. */
@@ -128,7 +135,7 @@ export class TaskThreadPool {
   private acquire(): Promise<ThreadSlot> {
     return this.pool.acquire(
       (free, canSpawn) => free[0] ?? (canSpawn ? 'spawn' : undefined),
-      () => ({ worker: new Worker(compiledWorkerEntry(import.meta.url, 'task-thread')), busy: false }),
+      () => ({ worker: new Worker(compiledWorkerEntry(import.meta.url, 'task-thread'), { workerData: { role: TASK_THREAD_ROLE } }), busy: false }),
     );
   }
 
@@ -141,8 +148,15 @@ export class TaskThreadPool {
     const id = this.nextId++;
     let stopRequested = false;
     let slotRef: ThreadSlot | undefined;
+    // raised by stop(): the kernel reads it inside its walker loop, so a stop lands within milliseconds however long a particle takes
+    const stopSignal = createStopSignal();
     const outcome = (async (): Promise<ThreadOutcome> => {
       const slot = await this.acquire();
+      if (stopRequested) {
+        // stopped while waiting for a thread: no checkpoint to write, no resume to count
+        this.release(slot, false);
+        return { status: 'unstarted' };
+      }
       slotRef = slot;
       return await new Promise<ThreadOutcome>((resolve) => {
         const w = slot.worker;
@@ -188,6 +202,7 @@ export class TaskThreadPool {
           task: encodeRunTask(task),
           checkpoint: h.checkpoint instanceof Uint8Array ? h.checkpoint : h.checkpoint ? encodeCheckpoint(h.checkpoint) : undefined,
           workerId: h.workerId ?? 'embedded',
+          stop: stopSignal,
         };
         w.postMessage(msg);
         if (stopRequested) w.postMessage({ type: 'stop', id } satisfies ToThread);
@@ -197,6 +212,7 @@ export class TaskThreadPool {
       outcome,
       stop: () => {
         stopRequested = true;
+        raiseStop(stopSignal);
         slotRef?.worker.postMessage({ type: 'stop', id } satisfies ToThread);
       },
     };

@@ -74,6 +74,7 @@ import { direction, sampleDirection } from '../../walkers/uniform-direction.js';
 import { contact, firstContact } from '../../walkers/segment-contact-2d.js';
 import { checkCheckpointOf } from '../../core/checkpoint-check.js';
 import { recordPlanarAnisotropy } from '../../core/anisotropy.js';
+import { MAX_STEPS_PER_PARTICLE, STOP_CHECK_EVERY, stopRaised, WalkerStuck, type StopSignal } from '../../core/stop-signal.js';
 
 /** The counters of this model (names as declared by its descriptor). */
 export interface OffLatticeDla2dCounters extends Counters {
@@ -103,10 +104,17 @@ export class OffLatticeDla2d implements GrowthKernel {
   private sumY = 0;
   private sumR2 = 0;
   private nextRecord = 0;
+  /** Generator state at the start of the particle being walked (restored when a stop interrupts it). */
+  private readonly particleStart = new Uint32Array(4);
+  /** Walker steps until the stop signal is read next (carried across particles). */
+  private untilCheck = STOP_CHECK_EVERY;
+  /** Most steps one particle may take before the run fails as stuck (MAX_STEPS_PER_PARTICLE; tests lower it). */
+  private readonly maxSteps: number;
 
   /** The task must have passed the registry's checks (worker/models/registry.ts checkTask). */
-  constructor(task: GrowthTask, checkpoint?: GrowthCheckpoint) {
+  constructor(task: GrowthTask, checkpoint?: GrowthCheckpoint, limits: { maxStepsPerParticle?: number } = {}) {
     this.task = structuredClone(task);
+    this.maxSteps = limits.maxStepsPerParticle ?? MAX_STEPS_PER_PARTICLE;
     this.minStep = task.model.params.min_step;
     this.launchMargin = task.model.params.launch_margin;
     this.xy = new Float64Array(2 * task.particles);
@@ -138,9 +146,9 @@ export class OffLatticeDla2d implements GrowthKernel {
     return this.n >= this.task.particles;
   }
 
-  growTo(target: number): void {
+  growTo(target: number, stop?: StopSignal): void {
     const goal = Math.min(target, this.task.particles);
-    while (this.n < goal) this.addParticle();
+    while (this.n < goal) if (!this.addParticle(stop)) return;
   }
 
   positions(): ClusterPositions {
@@ -195,9 +203,15 @@ export class OffLatticeDla2d implements GrowthKernel {
     return h.digest();
   }
 
-  /** Run one walker from the launch circle until it sticks, and add it. */
-  private addParticle(): void {
+  /**
+   * Run one walker from the launch circle until it sticks, and add it; false
+   * (nothing changed) when the stop signal interrupted the walk.
+   */
+  private addParticle(stop: StopSignal | undefined): boolean {
     const rng = this.rng;
+    rng.saveState(this.particleStart);
+    let untilCheck = this.untilCheck;
+    let checked = 0;
     const index = this.index;
     const minStep = this.minStep;
     const rMax = this.rMax;
@@ -213,6 +227,20 @@ export class OffLatticeDla2d implements GrowthKernel {
     let wy = launch * direction.y;
 
     for (;;) {
+      if (--untilCheck === 0) {
+        untilCheck = STOP_CHECK_EVERY;
+        checked += STOP_CHECK_EVERY;
+        if (stopRaised(stop)) {
+          rng.loadState(this.particleStart);
+          this.untilCheck = STOP_CHECK_EVERY;
+          return false;
+        }
+        if (checked >= this.maxSteps) {
+          throw new WalkerStuck(
+            `run ${this.task.runIndex}: the walker of particle ${this.n + 1} made no progress in ${checked} steps at radius ${Math.sqrt(wx * wx + wy * wy).toPrecision(6)} (params.min_step = ${minStep} is too small for the float spacing there)`,
+          );
+        }
+      }
       let r2 = wx * wx + wy * wy;
       if (r2 > launch2) {
         returnToCircle(wx, wy, launch, rng);
@@ -256,7 +284,9 @@ export class OffLatticeDla2d implements GrowthKernel {
     this.counters.jumps += jumps;
     this.counters.short_steps += shortSteps;
     this.counters.returns += returns;
+    this.untilCheck = untilCheck;
     this.place(wx, wy);
+    return true;
   }
 
   /** Add a particle and take a record if the new size is on the grid. */
