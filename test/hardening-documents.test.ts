@@ -93,7 +93,7 @@ describe('error building is bounded', () => {
 
   it('key names with newlines or terminal escapes are printed escaped', async () => {
     const p = problems({ model: 'dla-offlattice-2d', particles: 10, clusters: 1, seed: 1, 'bad\nkey\u001b[31m': 1 });
-    expect(p[0]).toBe('"bad\\nkey\\u001b[31m": unknown field; allowed fields: name, model, params, particles, clusters, seed, records_per_decade, observables, checkpoint_interval_seconds, checkpoint_every_particles, runs_per_job, analysis, probe, target');
+    expect(p[0]).toBe('"bad\\nkey\\u001b[31m": unknown field; allowed fields: name, model, params, particles, clusters, seed, records_per_decade, observables, checkpoint_interval_seconds, checkpoint_every_particles, runs_per_job, analysis, probe, positions, target');
     const q = problems({ model: 'dla-offlattice-2d', particles: 10, clusters: 1, seed: 1, params: { 'x\u001b]0;pwn\u0007': 1 } });
     expect(q[0]).toMatch(/^params\."x\\u001b\]0;pwn\\u0007": not a parameter of dla-offlattice-2d/);
     const r = await app.inject({ method: 'POST', url: '/probes', headers: auth, payload: JSON.stringify({ walkers: 100, seed: 1, csv: '0,0,1', 'k\r\n\u009b2J': 1 }) });

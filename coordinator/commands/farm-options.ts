@@ -4,7 +4,7 @@ import type { Queue } from 'bullmq';
 import type { Redis } from 'ioredis';
 import { connectRedis, DEFAULT_PREFIX, EnsembleStore } from '../farm/store.js';
 import { UsageError } from '../usage-error.js';
-import { messageOf } from '../../proto/errors.js';
+import { firstLine, messageOf } from '../../proto/errors.js';
 
 export interface FarmCliOptions {
   redis?: string;
@@ -49,7 +49,7 @@ export async function openFarm(o: FarmCliOptions, failFastMs?: number): Promise<
     ]);
   } catch (err) {
     redis.disconnect();
-    const reason = /Connection is closed/.test(messageOf(err)) && lastError ? lastError.message.split('\n')[0] : messageOf(err);
+    const reason = /Connection is closed/.test(messageOf(err)) && lastError ? firstLine(lastError.message) : messageOf(err);
     throw new UsageError(`--redis: cannot reach ${url.replace(/\/\/[^@]*@/, '//***@')}: ${reason}`);
   }
   const store = new EnsembleStore(redis, prefix);

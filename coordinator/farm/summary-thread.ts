@@ -10,6 +10,7 @@
  * This one file is both the client (main thread) and the thread's entry; it
  * imports only the summary builder, never a module that starts a task thread.
  */
+import { messageOf } from '../../proto/errors.js';
 import { isMainThread, parentPort, Worker, workerData } from 'node:worker_threads';
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
@@ -27,7 +28,7 @@ if (!isMainThread && parentPort && (workerData as { role?: string } | null)?.rol
     try {
       port.postMessage({ id: m.id, summary: buildSummary(m.input, defaultSummaryOptions()) } satisfies FromThread);
     } catch (err) {
-      port.postMessage({ id: m.id, error: ((err as Error)?.message ?? String(err)).split('\n')[0] } satisfies FromThread);
+      port.postMessage({ id: m.id, error: messageOf(err) } satisfies FromThread);
     }
   });
 }
@@ -65,7 +66,7 @@ export class SummaryThread {
       for (const p of this.pending.values()) p.reject(new Error(`summary thread ${why}`));
       this.pending.clear();
     };
-    w.on('error', (err) => fail(`crashed: ${err.message.split('\n')[0]}`));
+    w.on('error', (err) => fail(`crashed: ${messageOf(err)}`));
     w.on('exit', (code) => fail(`exited with code ${code}`));
     this.worker = w;
     return w;

@@ -179,7 +179,7 @@ export function buildApi(o: ApiOptions): FastifyInstance {
 
   app.setErrorHandler((err: Error & { statusCode?: number; code?: string }, _req, reply) => {
     if (err instanceof ApiError) return reply.code(err.status).send(err.problems ? { error: err.message, problems: err.problems } : { error: err.message });
-    if (isRedisUnavailable(err)) return reply.code(503).header('retry-after', '5').send({ error: `redis: unavailable (${err.message.split('\n')[0].slice(0, 120)}); allowed: retry once GET /ready answers 200` });
+    if (isRedisUnavailable(err)) return reply.code(503).header('retry-after', '5').send({ error: `redis: unavailable (${messageOf(err).slice(0, 120)}); allowed: retry once GET /ready answers 200` });
     const status = err.statusCode && err.statusCode >= 400 && err.statusCode < 500 ? err.statusCode : 500;
     let msg = messageOf(err);
     if (err.code === 'FST_ERR_CTP_BODY_TOO_LARGE') msg = `body: larger than ${o.bodyLimit ?? 65536} bytes; allowed: at most ${o.bodyLimit ?? 65536} bytes`;
@@ -233,7 +233,7 @@ export function buildApi(o: ApiOptions): FastifyInstance {
       if (pong !== 'PONG') throw new Error(`unexpected answer ${JSON.stringify(String(pong).slice(0, 40))}`);
       return { ok: true, redis: 'ok' };
     } catch (err) {
-      return reply.code(503).send({ error: `redis: not ready (${(err as Error).message.split('\n')[0].slice(0, 120)})`, redis: 'unavailable' });
+      return reply.code(503).send({ error: `redis: not ready (${messageOf(err).slice(0, 120)})`, redis: 'unavailable' });
     } finally {
       clearTimeout(timer);
     }
@@ -434,8 +434,7 @@ export function buildApi(o: ApiOptions): FastifyInstance {
 /** Errors of a Redis that is down or too slow (ioredis and its fail-fast options), answered 503. */
 export function isRedisUnavailable(err: Error & { code?: string }): boolean {
   return (
-    err.name === 'MaxRetriesPerRequestError' ||
-    /Stream isn't writeable|Command timed out|Connection is closed|enableOfflineQueue|ECONNREFUSED|ECONNRESET|EPIPE|ETIMEDOUT|LOADING Redis is loading/.test(err.message ?? '') ||
+    /max retries per request|Stream isn't writeable|Command timed out|Connection is closed|enableOfflineQueue|ECONNREFUSED|ECONNRESET|EPIPE|ETIMEDOUT|LOADING Redis is loading/.test(err.message ?? '') ||
     ['ECONNREFUSED', 'ECONNRESET', 'EPIPE', 'ETIMEDOUT'].includes(err.code ?? '')
   );
 }

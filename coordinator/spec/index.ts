@@ -16,7 +16,7 @@ import { defaultProbeJobs, probeSettingsOf, probeSettingsProblems, type ProbeSet
 import type { ModelParams } from '../../worker/core/growth-kernel.js';
 import type { ModelDescriptor } from '../../worker/core/model-descriptor.js';
 import { probeMinStepFloor } from '../../worker/probe/probe-limits.js';
-import { excerpt, nestingProblem } from './document-limits.js';
+import { excerpt, MAX_LISTED_PROBLEMS, nestingProblem } from './document-limits.js';
 import {
   DEFAULT_MAX_TOTAL_PARTICLES,
   MAX_RUNS_PER_JOB,
@@ -205,7 +205,8 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
   const schemaProblems = specDocumentProblems(doc);
   if (schemaProblems.length > 0) {
     // every problem in one round: the schema's, and a missing cluster count (which the schema cannot require, as [target] may stand in for it)
-    if (d.clusters === undefined && d.target === undefined) schemaProblems.push(`clusters: missing; allowed: an integer from 1 to ${SPEC_SCHEMA.properties.clusters.maximum} (or a [target] table with max_clusters)`);
+    // (unless the list is already cut at MAX_LISTED_PROBLEMS: the rest comes in the next round)
+    if (d.clusters === undefined && d.target === undefined && schemaProblems.length < MAX_LISTED_PROBLEMS) schemaProblems.push(`clusters: missing; allowed: an integer from 1 to ${SPEC_SCHEMA.properties.clusters.maximum} (or a [target] table with max_clusters)`);
     throw new SpecError(schemaProblems);
   }
   const problems: string[] = [];
@@ -417,7 +418,8 @@ function analysisDocument(a: AnalysisSettings): { analysis?: Record<string, unkn
  */
 export function mergeAnalysisSettings(base: AnalysisSettings, overrideDoc: Record<string, unknown>): AnalysisSettings {
   const merged = { ...analysisDocument(base).analysis, ...overrideDoc };
-  const probe = { model: MODEL_KINDS[0], particles: 2, clusters: 1, seed: 0, analysis: merged };
+  // a stand-in spec of the largest size: checks of the analysis against the ensemble's own size are made with its spec
+  const probe = { model: MODEL_KINDS[0], particles: SPEC_SCHEMA.properties.particles.maximum, clusters: 1, seed: 0, analysis: merged };
   return validateSpec(probe, { maxTotalParticles: Number.MAX_SAFE_INTEGER }).analysis;
 }
 

@@ -124,13 +124,8 @@ export interface ProbeResult {
 }
 
 /** A planar set of disks, in original coordinates. */
-export interface DiskSet {
-  count: number;
-  x: ArrayLike<number>;
-  y: ArrayLike<number>;
-  /** Contact radius of every disk (a number) or per disk. */
-  r: number | ArrayLike<number>;
-}
+export type { DiskSet } from './disk-set.js';
+import type { DiskSet } from './disk-set.js';
 
 /**
  * Digest of a disk set: "n-" + FNV-1a (32 bit) over the float64 words of

@@ -18,7 +18,7 @@
  *
  * Every problem is one line naming the field the caller gives.
  */
-import type { DiskSet } from './probe-2d.js';
+import type { DiskSet } from './disk-set.js';
 
 /** Largest extent of a probed set, in largest contact radii. */
 export const MAX_PROBE_EXTENT = 1e7;
