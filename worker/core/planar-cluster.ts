@@ -7,7 +7,8 @@
  * record size the standard observables and the kernel's extra observables
  * are recorded.
  */
-import type { ClusterPositions, GrowthSeries, MassRadius } from './growth-kernel.js';
+import type { ClusterPositions, GrowthResult, GrowthSeries, GrowthTask, MassRadius } from './growth-kernel.js';
+import { ENGINE_VERSION } from './engine-version.js';
 import { countWithin, massRadiusRadii, recordSizes } from './record-sizes.js';
 import type { StateHasher } from './state-hash.js';
 
@@ -84,6 +85,23 @@ export class PlanarCluster {
     for (let i = 0; i < this.n; i++) dist[i] = Math.sqrt(xy[2 * i] * xy[2 * i] + xy[2 * i + 1] * xy[2 * i + 1]);
     const radii = massRadiusRadii(this.rMax, recordsPerDecade);
     return { radii, counts: countWithin(dist, radii) };
+  }
+
+  /** The result of a finished run of `task` grown into this cluster, with the kernel's counters and state hash. */
+  result(task: GrowthTask, counters: Record<string, number>, stateHash: string): GrowthResult {
+    if (this.n < task.particles) throw new Error(`run ${task.runIndex} is not finished (${this.n} of ${task.particles} particles)`);
+    return {
+      engineVersion: ENGINE_VERSION,
+      model: structuredClone(task.model),
+      dimension: 2,
+      particles: task.particles,
+      ensembleSeed: task.ensembleSeed,
+      runIndex: task.runIndex,
+      series: structuredClone(this.series),
+      massRadius: this.massRadius(task.recordsPerDecade),
+      counters,
+      stateHash,
+    };
   }
 
   /** Feed the dimension, count and centres to a state hash. */

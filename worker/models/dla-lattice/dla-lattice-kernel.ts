@@ -354,19 +354,7 @@ export class DlaLatticeKernel implements GrowthKernel {
   }
 
   result(): GrowthResult {
-    if (!this.done) throw new Error(`run ${this.task.runIndex} is not finished (${this.cluster.n} of ${this.task.particles} particles)`);
-    return {
-      engineVersion: ENGINE_VERSION,
-      model: structuredClone(this.task.model),
-      dimension: 2,
-      particles: this.task.particles,
-      ensembleSeed: this.task.ensembleSeed,
-      runIndex: this.task.runIndex,
-      series: structuredClone(this.cluster.series),
-      massRadius: this.cluster.massRadius(this.task.recordsPerDecade),
-      counters: { ...this.counters },
-      stateHash: this.stateHash(),
-    };
+    return this.cluster.result(this.task, { ...this.counters }, this.stateHash());
   }
 
   /** Digest of positions, generator state, count, counters and pending hits. */

@@ -185,19 +185,7 @@ export class EdenLatticeKernel implements GrowthKernel {
   }
 
   result(): GrowthResult {
-    if (!this.done) throw new Error(`run ${this.task.runIndex} is not finished (${this.cluster.n} of ${this.task.particles} particles)`);
-    return {
-      engineVersion: ENGINE_VERSION,
-      model: structuredClone(this.task.model),
-      dimension: 2,
-      particles: this.task.particles,
-      ensembleSeed: this.task.ensembleSeed,
-      runIndex: this.task.runIndex,
-      series: structuredClone(this.cluster.series),
-      massRadius: this.cluster.massRadius(this.task.recordsPerDecade),
-      counters: { perimeter_sites: this.perimCount },
-      stateHash: this.stateHash(),
-    };
+    return this.cluster.result(this.task, { perimeter_sites: this.perimCount }, this.stateHash());
   }
 
   /** Digest of positions, generator state, count and the perimeter size. */
