@@ -31,6 +31,9 @@ export interface LatticeBenchRow {
   /** Walker moves (jumps + steps) per particle, for lattice DLA; null for Eden. */
   movesPerParticle: number | null;
   wallSeconds: number;
+  /** CPU time of the growth (user + system), and particles per CPU second: on a shared, loaded machine the wall time also counts time spent waiting for a core. */
+  cpuSeconds: number;
+  particlesPerCpuSecond: number;
   peakRssMB: number;
   stateHash: string;
   nodeVersion: string;
@@ -55,9 +58,12 @@ function childMain(model: string, particles: number, paramsJson: string): void {
   const params = JSON.parse(paramsJson) as Record<string, number>;
   const task = { model: modelParams(model, params), particles, ensembleSeed: '1', runIndex: 0, recordsPerDecade: 10 };
   const t0 = performance.now();
+  const c0 = process.cpuUsage();
   const kernel = createKernel(task);
   kernel.growTo(particles);
   const seconds = (performance.now() - t0) / 1000;
+  const cpu = process.cpuUsage(c0);
+  const cpuSeconds = (cpu.user + cpu.system) / 1e6;
   const result = kernel.result();
   const perParticle: Record<string, number> = {};
   for (const [k, v] of Object.entries(result.counters)) perParticle[k] = v / particles;
@@ -72,6 +78,8 @@ function childMain(model: string, particles: number, paramsJson: string): void {
     perParticle,
     movesPerParticle: c.jumps !== undefined && c.steps !== undefined ? (c.jumps + c.steps) / particles : null,
     wallSeconds: seconds,
+    cpuSeconds,
+    particlesPerCpuSecond: particles / cpuSeconds,
     peakRssMB: process.resourceUsage().maxRSS / 1024,
     stateHash: result.stateHash,
     nodeVersion: process.version,
@@ -104,7 +112,7 @@ export async function runLatticeBenchmark(part: 'eden' | 'lattice', sizes?: numb
     for (const n of sizes ?? p.sizes) {
       const r = await runChild(p.model, n, p.params);
       const moves = r.movesPerParticle === null ? '' : `, ${r.movesPerParticle.toFixed(1)} moves/particle`;
-      process.stdout.write(`${part}: ${r.model} ${r.particles}: ${Math.round(r.particlesPerSecond)} particles/s over ${r.wallSeconds.toFixed(1)} s${moves}, peak RSS ${r.peakRssMB.toFixed(0)} MB\n`);
+      process.stdout.write(`${part}: ${r.model} ${r.particles}: ${Math.round(r.particlesPerSecond)} particles/s over ${r.wallSeconds.toFixed(1)} s (${Math.round(r.particlesPerCpuSecond)} per CPU second)${moves}, peak RSS ${r.peakRssMB.toFixed(0)} MB\n`);
       process.stdout.write(JSON.stringify(r) + '\n');
       rows.push(r);
     }

@@ -108,10 +108,39 @@ export const PLANAR_ANISOTROPY_OBSERVABLES = [
   { name: 'axis_ratio_6', meaning: 'mean extent along the 6 triangular-lattice axes over the mean extent along the 6 diagonals' },
 ] as const;
 
-const COS4 = new Float64Array(8);
-const SIN4 = new Float64Array(8);
-const COS6 = new Float64Array(12);
-const SIN6 = new Float64Array(12);
+/** cos 4θ, sin 4θ, cos 6θ, sin 6θ of the last foldTermsOf call (reused). */
+export const foldTerms = { c4: 0, s4: 0, c6: 0, s6: 0 };
+
+/**
+ * cos kθ and sin kθ for k = 4 and 6 of the point (dx, dy) at squared distance
+ * r2 > 0 from the seed, by de Moivre's powers of (dx, dy)/r (no trigonometry):
+ * the operations recordPlanarAnisotropy has always used, so that every
+ * recorder gets the same bits for the same point.
+ */
+export function foldTermsOf(dx: number, dy: number, r2: number): void {
+  const r = Math.sqrt(r2);
+  const c = dx / r;
+  const sn = dy / r;
+  let re = 1;
+  let im = 0;
+  for (let t = 0; t < 6; t++) {
+    const nr = re * c - im * sn;
+    im = re * sn + im * c;
+    re = nr;
+    if (t === 3) {
+      foldTerms.c4 = re;
+      foldTerms.s4 = im;
+    }
+  }
+  foldTerms.c6 = re;
+  foldTerms.s6 = im;
+}
+
+/** Unit vectors at angles πm/4 (m < 8) and πm/6 (m < 12): lattice axes at even m, diagonals at odd m. */
+export const COS4 = new Float64Array(8);
+export const SIN4 = new Float64Array(8);
+export const COS6 = new Float64Array(12);
+export const SIN6 = new Float64Array(12);
 for (let m = 0; m < 8; m++) {
   COS4[m] = Math.cos((Math.PI * m) / 4);
   SIN4[m] = Math.sin((Math.PI * m) / 4);
@@ -122,6 +151,28 @@ for (let m = 0; m < 12; m++) {
 }
 const FAR4 = new Float64Array(8);
 const FAR6 = new Float64Array(12);
+
+/**
+ * Raise the extents far4[m] (direction COS4/SIN4[m]) and far6[m] to the
+ * projections of (dx, dy); returns the squared distance below which a later
+ * point cannot raise any extent (the smallest extent squared, less a 1e-12
+ * margin for rounding in the projection), or −1 when an extent is not yet
+ * positive. Skipping such points leaves the extents unchanged.
+ */
+export function raiseExtents(dx: number, dy: number, far4: Float64Array, far6: Float64Array): number {
+  let low = Infinity;
+  for (let m = 0; m < 8; m++) {
+    const p = dx * COS4[m] + dy * SIN4[m];
+    if (p > far4[m]) far4[m] = p;
+    if (far4[m] < low) low = far4[m];
+  }
+  for (let m = 0; m < 12; m++) {
+    const p = dx * COS6[m] + dy * SIN6[m];
+    if (p > far6[m]) far6[m] = p;
+    if (far6[m] < low) low = far6[m];
+  }
+  return low > 0 ? low * low * (1 - 1e-12) : -1;
+}
 
 /**
  * Append the four planar anisotropy observables (k = 4 and 6) of the first
@@ -145,54 +196,38 @@ export function recordPlanarAnisotropy(extra: Record<string, number[]>, coords: 
     const dx = coords[j] - seedX;
     const dy = coords[j + 1] - seedY;
     const r2 = dx * dx + dy * dy;
-    if (!(r2 < skip2)) {
-      let low = Infinity;
-      for (let m = 0; m < 8; m++) {
-        const p = dx * COS4[m] + dy * SIN4[m];
-        if (p > FAR4[m]) FAR4[m] = p;
-        if (FAR4[m] < low) low = FAR4[m];
-      }
-      for (let m = 0; m < 12; m++) {
-        const p = dx * COS6[m] + dy * SIN6[m];
-        if (p > FAR6[m]) FAR6[m] = p;
-        if (FAR6[m] < low) low = FAR6[m];
-      }
-      skip2 = low > 0 ? low * low * (1 - 1e-12) : -1;
-    }
+    if (!(r2 < skip2)) skip2 = raiseExtents(dx, dy, FAR4, FAR6);
     if (r2 > inner2 && r2 <= outer2) {
-      const r = Math.sqrt(r2);
-      const c = dx / r;
-      const sn = dy / r;
-      let re = 1;
-      let im = 0;
-      for (let t = 0; t < 6; t++) {
-        const nr = re * c - im * sn;
-        im = re * sn + im * c;
-        re = nr;
-        if (t === 3) {
-          sc4 += re;
-          ss4 += im;
-        }
-      }
-      sc6 += re;
-      ss6 += im;
+      foldTermsOf(dx, dy, r2);
+      sc4 += foldTerms.c4;
+      ss4 += foldTerms.s4;
+      sc6 += foldTerms.c6;
+      ss6 += foldTerms.s6;
       n++;
     }
   }
-  let axis4 = 0;
-  let diag4 = 0;
-  for (let m = 0; m < 8; m++) {
-    if (m % 2 === 0) axis4 += FAR4[m];
-    else diag4 += FAR4[m];
+  pushPlanarAnisotropy(extra, n, sc4, ss4, sc6, ss6, FAR4, FAR6);
+}
+
+/** Mean of the extents at even m (axes) over the mean at odd m (diagonals), 1 when the diagonal sum is not positive. */
+function extentRatio(far: Float64Array): number {
+  let axis = 0;
+  let diag = 0;
+  for (let m = 0; m < far.length; m++) {
+    if (m % 2 === 0) axis += far[m];
+    else diag += far[m];
   }
-  let axis6 = 0;
-  let diag6 = 0;
-  for (let m = 0; m < 12; m++) {
-    if (m % 2 === 0) axis6 += FAR6[m];
-    else diag6 += FAR6[m];
-  }
+  return diag > 0 ? axis / diag : 1;
+}
+
+/**
+ * Append the four planar anisotropy observables, from the shell count n, the
+ * shell sums of cos/sin 4θ and 6θ, and the extents along the 8 and 12
+ * directions (COS4/SIN4, COS6/SIN6), to a series' extra records.
+ */
+export function pushPlanarAnisotropy(extra: Record<string, number[]>, n: number, sc4: number, ss4: number, sc6: number, ss6: number, far4: Float64Array, far6: Float64Array): void {
   (extra.fold_amplitude_4 ??= []).push(n > 0 ? Math.sqrt(sc4 * sc4 + ss4 * ss4) / n : 0);
-  (extra.axis_ratio_4 ??= []).push(diag4 > 0 ? axis4 / diag4 : 1);
+  (extra.axis_ratio_4 ??= []).push(extentRatio(far4));
   (extra.fold_amplitude_6 ??= []).push(n > 0 ? Math.sqrt(sc6 * sc6 + ss6 * ss6) / n : 0);
-  (extra.axis_ratio_6 ??= []).push(diag6 > 0 ? axis6 / diag6 : 1);
+  (extra.axis_ratio_6 ??= []).push(extentRatio(far6));
 }

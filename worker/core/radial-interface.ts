@@ -27,6 +27,14 @@ export const radialInterface = { width: 0, meanRadius: 0, sectors: 0 };
 
 let heights = new Float64Array(64);
 
+/** Sector (0 .. m − 1) of the polar angle of (x, y), with perRadian = m / 2π. */
+export function sectorIndex(x: number, y: number, perRadian: number, m: number): number {
+  let a = Math.atan2(y, x);
+  if (a < 0) a += 2 * Math.PI;
+  const b = Math.floor(a * perRadian);
+  return b >= m ? m - 1 : b;
+}
+
 /**
  * Sector heights h_b of the centres beyond distance sqrt(inner2) into
  * heights[0 .. m); returns the number of sectors left empty.
@@ -40,10 +48,7 @@ function sectorHeights(coords: Float64Array, stride: number, count: number, m: n
     const y = coords[j + 1];
     const r2 = x * x + y * y;
     if (r2 <= inner2) continue;
-    let a = Math.atan2(y, x);
-    if (a < 0) a += 2 * Math.PI;
-    let b = Math.floor(a * perRadian);
-    if (b >= m) b = m - 1;
+    const b = sectorIndex(x, y, perRadian, m);
     const r = Math.sqrt(r2);
     if (r > h[b]) h[b] = r;
   }
@@ -54,12 +59,21 @@ function sectorHeights(coords: Float64Array, stride: number, count: number, m: n
 
 /** Interface width and mean radius of the first `count` centres (dimension-strided, seed at the origin). */
 export function interfaceOf(coords: Float64Array, stride: number, count: number, rMax: number): void {
-  const m = Math.max(8, Math.floor((2 * Math.PI * rMax) / SECTOR_ARC));
+  const m = sectorCount(rMax);
   if (heights.length < m) heights = new Float64Array(2 * m);
   // first only the centres beyond 0.9 R_max (fewer angles to compute); when
   // every sector has one there, its height is the same as over R_max/2 < r
   if (sectorHeights(coords, stride, count, m, 0.81 * rMax * rMax) > 0) sectorHeights(coords, stride, count, m, 0.25 * rMax * rMax);
-  const h = heights;
+  interfaceOfHeights(heights, m);
+}
+
+/**
+ * Interface width and mean radius from sector heights h[0 .. m) (−1 marks an
+ * empty sector, left out), into `radialInterface`. Shared by interfaceOf and
+ * the incremental recorder (worker/core/incremental-planar-records.ts), so
+ * both give the same bits from the same heights.
+ */
+export function interfaceOfHeights(h: Float64Array, m: number): void {
   let n = 0;
   let s = 0;
   for (let b = 0; b < m; b++) {
@@ -79,6 +93,11 @@ export function interfaceOf(coords: Float64Array, stride: number, count: number,
   radialInterface.width = n > 0 ? Math.sqrt(v / n) : 0;
 }
 
+/** The number of angular sectors of the interface of a cluster of radius rMax. */
+export function sectorCount(rMax: number): number {
+  return Math.max(8, Math.floor((2 * Math.PI * rMax) / SECTOR_ARC));
+}
+
 export const RADIAL_INTERFACE_OBSERVABLES = [
   { name: 'interface_radius', meaning: 'mean over angular sectors (about 4 spacings wide at the rim) of the outermost particle distance from the seed' },
   { name: 'interface_width', meaning: 'standard deviation over the sectors of the outermost particle distance (radial roughness; KPZ: grows as interface_radius^(1/3))' },
@@ -87,6 +106,11 @@ export const RADIAL_INTERFACE_OBSERVABLES = [
 /** Append interface_radius and interface_width of the first `count` centres to a series' extra records. */
 export function recordRadialInterface(extra: Record<string, number[]>, coords: Float64Array, stride: number, count: number, rMax: number): void {
   interfaceOf(coords, stride, count, rMax);
+  pushRadialInterface(extra);
+}
+
+/** Append the current `radialInterface` to a series' extra records. */
+export function pushRadialInterface(extra: Record<string, number[]>): void {
   (extra.interface_radius ??= []).push(radialInterface.meanRadius);
   (extra.interface_width ??= []).push(radialInterface.width);
 }

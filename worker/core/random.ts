@@ -133,10 +133,16 @@ export class Random {
   /** Uniform integer in [0, n) for 1 <= n <= 2^32, without modulo bias (Lemire-style rejection). */
   nextBelow(n: number): number {
     if (!(n >= 1 && n <= 4294967296)) throw new RangeError(`nextBelow(${n}) needs 1 <= n <= 2^32`);
-    const limit = 4294967296 - (4294967296 % n);
+    // a mod n as a − floor(a/n)·n, which is exact here and avoids a floating
+    // modulo (a call to fmod): for integers 0 <= a < 2^33 and 1 <= n <= 2^32,
+    // write a = qn + s (0 <= s < n); a/n lies in [q, q + 1 − 1/n] and its
+    // rounding error is at most (q + 1)·2^−53 < 1/n (as (q + 1)n < 2^53), so
+    // fl(a/n) lies in [q, q + 1) and its floor is q; q·n and a − q·n are
+    // integers below 2^53, hence exact. Same values as a % n.
+    const limit = Math.floor(4294967296 / n) * n; // 2^32 − (2^32 mod n)
     for (;;) {
       const r = this.nextInt32() >>> 0;
-      if (r < limit) return r % n;
+      if (r < limit) return r - Math.floor(r / n) * n;
     }
   }
 }

@@ -35,14 +35,33 @@ export function massRadiusRadii(maxRadius: number, perDecade: number): number[] 
   return out;
 }
 
-/** M(r): number of the given distances that are <= r, for each r of an increasing list. */
+/**
+ * M(r): number of the given distances that are <= r, for each r of an
+ * increasing list. One pass with a binary search per distance into the
+ * radii (a histogram of the first radius each distance is <= to, then its
+ * running sum): the same counts as sorting the distances, in O(n log k)
+ * instead of O(n log n). A NaN distance is <= no radius and is not counted.
+ */
 export function countWithin(distances: Float64Array, radii: number[]): number[] {
-  const sorted = Float64Array.from(distances).sort();
+  const k = radii.length;
+  const firstAtOrAbove = new Float64Array(k + 1);
+  for (let i = 0; i < distances.length; i++) {
+    const d = distances[i];
+    let lo = 0;
+    let hi = k;
+    // smallest j with d <= radii[j] (k when there is none)
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (d <= radii[mid]) hi = mid;
+      else lo = mid + 1;
+    }
+    firstAtOrAbove[lo]++;
+  }
   const counts: number[] = [];
-  let i = 0;
-  for (const r of radii) {
-    while (i < sorted.length && sorted[i] <= r) i++;
-    counts.push(i);
+  let c = 0;
+  for (let j = 0; j < k; j++) {
+    c += firstAtOrAbove[j];
+    counts.push(c);
   }
   return counts;
 }

@@ -21,7 +21,7 @@ export class TiledInt32Grid {
   }
 
   get bytes(): number {
-    return this.pool.byteLength + this.dir.bytes;
+    return this.pool.byteLength + this.dir.bytes + this.around.byteLength;
   }
 
   get(ix: number, iy: number): number {
@@ -30,13 +30,57 @@ export class TiledInt32Grid {
   }
 
   set(ix: number, iy: number, value: number): void {
+    // cellIndex may reallocate the pool: take the index before reading `pool`
+    const cell = this.cellIndex(ix, iy);
+    this.pool[cell] = value;
+  }
+
+  /**
+   * Index in `pool` of cell (ix, iy), allocating its tile (all cells blank)
+   * when absent. The index stays valid when the pool grows (tiles keep their
+   * numbers); re-read `pool` after this call.
+   */
+  cellIndex(ix: number, iy: number): number {
     const t = this.dir.findOrAdd(ix >> TILE_SHIFT, iy >> TILE_SHIFT);
     if ((t + 1) * TILE_CELLS > this.pool.length) {
       const bigger = new Int32Array(this.pool.length * 2).fill(this.blank);
       bigger.set(this.pool);
       this.pool = bigger;
     }
-    this.pool[t * TILE_CELLS + cellInTile(ix, iy)] = value;
+    return t * TILE_CELLS + cellInTile(ix, iy);
+  }
+
+  /**
+   * cellIndex(nx, ny) for a cell (nx, ny) in the tile of cell (ix, iy), whose
+   * pool index is `cell`, or in one of the 8 tiles around it. The tile
+   * numbers of the 3 × 3 block around each tile are cached (9 int32 per
+   * tile, −1 until first asked), so stepping to a neighbouring cell rarely
+   * hashes. Same index as cellIndex(nx, ny), and allocates the same tiles.
+   */
+  cellIndexNear(cell: number, ix: number, iy: number, nx: number, ny: number): number {
+    const dtx = (nx >> TILE_SHIFT) - (ix >> TILE_SHIFT);
+    const dty = (ny >> TILE_SHIFT) - (iy >> TILE_SHIFT);
+    const t = cell >> (2 * TILE_SHIFT);
+    if (dtx === 0 && dty === 0) return (t << (2 * TILE_SHIFT)) + cellInTile(nx, ny);
+    const k = 9 * t + 3 * (dtx + 1) + dty + 1;
+    if (k >= this.around.length) this.growAround(k);
+    let nt = this.around[k];
+    if (nt < 0) {
+      nt = this.cellIndex(nx, ny) >> (2 * TILE_SHIFT);
+      this.around[k] = nt;
+    }
+    return (nt << (2 * TILE_SHIFT)) + cellInTile(nx, ny);
+  }
+
+  /** Tile numbers around each tile (see cellIndexNear). */
+  private around = new Int32Array(0);
+
+  private growAround(k: number): void {
+    let size = Math.max(9 * 64, this.around.length);
+    while (size <= k) size *= 2;
+    const bigger = new Int32Array(size).fill(-1);
+    bigger.set(this.around);
+    this.around = bigger;
   }
 }
 

@@ -20,7 +20,8 @@
  *    perimeter, −1 = in the cluster, k >= 1 = on the perimeter at slot k − 1
  *    of the perimeter list. Memory grows with the sites touched (cluster and
  *    perimeter), not with the bounding box.
- *  - The perimeter list (two int32 arrays, grown by doubling) gives O(1)
+ *  - The perimeter list (three int32 arrays: i, j and the site's index in
+ *    the tile pool, so removal needs no directory lookup; grown by doubling) gives O(1)
  *    uniform choice (Random.nextBelow) and O(1) removal: the chosen slot is
  *    filled with the last entry, whose site value is updated.
  *  - New perimeter sites are appended in the fixed neighbour order.
@@ -33,15 +34,16 @@
  *
  * Observables at each record size: R_g, R_max, the centre offset, the planar
  * anisotropy measures (worker/core/anisotropy.ts) and the radial interface
- * (worker/core/radial-interface.ts: interface_radius, interface_width).
+ * (worker/core/radial-interface.ts: interface_radius, interface_width), the
+ * last two kept up to date per particle (worker/core/incremental-planar-records.ts,
+ * which states the one reassociation this brings to fold_amplitude_k).
  */
 import type { Counters, ClusterPositions, GrowthCheckpoint, GrowthKernel, GrowthResult, GrowthTask } from '../../core/growth-kernel.js';
 import { ENGINE_VERSION } from '../../core/engine-version.js';
 import { Random, STREAM_GROWTH } from '../../core/random.js';
 import { StateHasher } from '../../core/state-hash.js';
 import { checkCheckpointOf } from '../../core/checkpoint-check.js';
-import { recordPlanarAnisotropy } from '../../core/anisotropy.js';
-import { recordRadialInterface } from '../../core/radial-interface.js';
+import { IncrementalPlanarRecords } from '../../core/incremental-planar-records.js';
 import { PlanarCluster } from '../../core/planar-cluster.js';
 import { TiledInt32Grid } from '../../index/tiled-grids.js';
 import { type PlanarLattice, planeOf, siteOf, toPlane, toSite } from '../../lattice/planar-lattice.js';
@@ -57,8 +59,11 @@ export class EdenLatticeKernel implements GrowthKernel {
   private readonly sites: TiledInt32Grid;
   private perimI: Int32Array;
   private perimJ: Int32Array;
+  /** Pool index of each perimeter site in `sites` (stable while the pool grows). */
+  private perimCell: Int32Array;
   private perimCount = 0;
   private readonly rng: Random;
+  private readonly records: IncrementalPlanarRecords;
 
   constructor(lattice: PlanarLattice, task: GrowthTask, checkpoint?: GrowthCheckpoint) {
     this.task = structuredClone(task);
@@ -66,15 +71,15 @@ export class EdenLatticeKernel implements GrowthKernel {
     this.sites = new TiledInt32Grid(0, Math.max(16, task.particles >> 5));
     this.perimI = new Int32Array(1024);
     this.perimJ = new Int32Array(1024);
-    const recordExtra = (extra: Record<string, number[]>, coords: Float64Array, count: number, rMax: number): void => {
-      recordPlanarAnisotropy(extra, coords, 2, count, rMax);
-      recordRadialInterface(extra, coords, 2, count, rMax);
-    };
+    this.perimCell = new Int32Array(1024);
+    this.records = new IncrementalPlanarRecords(task.particles);
+    const recordExtra = (extra: Record<string, number[]>, coords: Float64Array, _count: number, rMax: number): void => this.records.record(extra, coords, rMax);
     if (checkpoint === undefined) {
       this.rng = Random.forRun(task.ensembleSeed, task.runIndex, STREAM_GROWTH);
       this.counters = { perimeter_sites: 0 };
       this.cluster = new PlanarCluster(task.particles, task.recordsPerDecade, recordExtra);
       this.occupy(0, 0);
+      this.records.add(0, 0);
       this.cluster.place(0, 0);
     } else {
       checkCheckpointOf(task, 2, checkpoint);
@@ -91,6 +96,7 @@ export class EdenLatticeKernel implements GrowthKernel {
         if (k > 0 && v <= 0) throw new RangeError(`checkpoint position ${k} is not a perimeter site of the cluster before it`);
         if (k > 0) this.removePerimeter(v - 1);
         this.occupy(i, j);
+        this.records.add(p[2 * k], p[2 * k + 1]);
         this.cluster.append(p[2 * k], p[2 * k + 1]);
       }
       this.cluster.resumeRecords();
@@ -114,9 +120,11 @@ export class EdenLatticeKernel implements GrowthKernel {
       const slot = rng.nextBelow(this.perimCount);
       const i = this.perimI[slot];
       const j = this.perimJ[slot];
+      const cell = this.perimCell[slot];
       this.removePerimeter(slot);
-      this.occupy(i, j);
+      this.occupyCell(i, j, cell);
       toPlane(lattice, i, j);
+      this.records.add(planeOf.x, planeOf.y);
       this.cluster.place(planeOf.x, planeOf.y);
     }
     this.counters.perimeter_sites = this.perimCount;
@@ -126,39 +134,51 @@ export class EdenLatticeKernel implements GrowthKernel {
   private removePerimeter(slot: number): void {
     const last = --this.perimCount;
     if (slot !== last) {
-      const li = this.perimI[last];
-      const lj = this.perimJ[last];
-      this.perimI[slot] = li;
-      this.perimJ[slot] = lj;
-      this.sites.set(li, lj, slot + 1);
+      const cell = this.perimCell[last];
+      this.perimI[slot] = this.perimI[last];
+      this.perimJ[slot] = this.perimJ[last];
+      this.perimCell[slot] = cell;
+      this.sites.pool[cell] = slot + 1;
     }
   }
 
   /** Mark (i, j) as a cluster site and put its empty, unlisted neighbours on the perimeter. */
   private occupy(i: number, j: number): void {
+    this.occupyCell(i, j, this.sites.cellIndex(i, j));
+  }
+
+  /**
+   * occupy() for a site whose pool index is known: its neighbours are
+   * addressed from it (TiledInt32Grid.cellIndexNear), without hashing.
+   */
+  private occupyCell(i: number, j: number, cell: number): void {
     const sites = this.sites;
-    sites.set(i, j, OCCUPIED);
+    sites.pool[cell] = OCCUPIED;
     const di = this.lattice.di;
     const dj = this.lattice.dj;
     for (let k = 0; k < di.length; k++) {
       const ni = i + di[k];
       const nj = j + dj[k];
-      if (sites.get(ni, nj) !== 0) continue;
+      const nc = sites.cellIndexNear(cell, i, j, ni, nj);
+      if (sites.pool[nc] !== 0) continue;
       if (this.perimCount === this.perimI.length) this.growPerimeter();
       this.perimI[this.perimCount] = ni;
       this.perimJ[this.perimCount] = nj;
+      this.perimCell[this.perimCount] = nc;
       this.perimCount++;
-      sites.set(ni, nj, this.perimCount);
+      sites.pool[nc] = this.perimCount;
     }
   }
 
   private growPerimeter(): void {
-    const bi = new Int32Array(2 * this.perimI.length);
-    const bj = new Int32Array(2 * this.perimJ.length);
-    bi.set(this.perimI);
-    bj.set(this.perimJ);
-    this.perimI = bi;
-    this.perimJ = bj;
+    const grow = (a: Int32Array): Int32Array => {
+      const b = new Int32Array(2 * a.length);
+      b.set(a);
+      return b;
+    };
+    this.perimI = grow(this.perimI);
+    this.perimJ = grow(this.perimJ);
+    this.perimCell = grow(this.perimCell);
   }
 
   positions(): ClusterPositions {
@@ -167,7 +187,7 @@ export class EdenLatticeKernel implements GrowthKernel {
 
   /** Bytes held by the site grid and the perimeter list (for benchmarks). */
   get storageBytes(): number {
-    return this.sites.bytes + this.perimI.byteLength + this.perimJ.byteLength;
+    return this.sites.bytes + 3 * this.perimI.byteLength + this.records.bytes;
   }
 
   checkpoint(): GrowthCheckpoint {
