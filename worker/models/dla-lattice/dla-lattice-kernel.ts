@@ -80,16 +80,9 @@ import { StateHasher } from '../../core/state-hash.js';
 import { checkCheckpointOf } from '../../core/checkpoint-check.js';
 import { recordPlanarAnisotropy } from '../../core/anisotropy.js';
 import { PlanarCluster } from '../../core/planar-cluster.js';
-import { TiledByteGrid, TiledInt32Grid } from '../../index/tiled-grids.js';
-import { returnToCircle, returned } from '../../walkers/poisson-return-2d.js';
-import { direction, sampleDirection } from '../../walkers/uniform-direction.js';
-import { MAX_EXIT_LEVEL, exit, sampleExit } from '../../lattice/square-exit-tables.js';
-import { MAX_HEX_LEVEL, hexExit, sampleHexExit } from '../../lattice/hexagon-exit-tables.js';
-import { HALF_SQRT3, type PlanarLattice, planeOf, siteOf, toPlane, toSite } from '../../lattice/planar-lattice.js';
-
-const MARKED = 1;
-const HOLDS = 2;
-const SQRT1_2 = Math.SQRT1_2;
+import { TiledInt32Grid } from '../../index/tiled-grids.js';
+import { LatticeWalk } from '../../lattice/lattice-walk.js';
+import { type PlanarLattice, planeOf, siteOf, toPlane, toSite } from '../../lattice/planar-lattice.js';
 
 export interface DlaLatticeCounters extends Counters {
   walkers: number;
@@ -103,34 +96,25 @@ export class DlaLatticeKernel implements GrowthKernel {
   readonly dimension = 2;
   readonly counters: DlaLatticeCounters;
   private readonly lattice: PlanarLattice;
-  private readonly triangular: boolean;
-  /** Largest jump level (tables for L = 2^e up to it) and number of mark levels. */
-  private readonly maxLevel: number;
+  /** The walker, the cluster sites and the occupancy marks (worker/lattice/lattice-walk.ts). */
+  private readonly walker: LatticeWalk;
   private readonly hitsToJoin: number;
   private readonly launchMargin: number;
   private readonly cluster: PlanarCluster;
-  /** 1 for cluster sites. */
-  private readonly sites: TiledByteGrid;
   /** Hits of perimeter sites (m > 1 only). */
   private readonly hits: TiledInt32Grid;
   /** Sites hit at least once and not yet joined, in first-hit order (for checkpoints). */
   private hitOrder: number[] = [];
-  /** marks[e − 1]: cells of side 2^e. */
-  private readonly marks: TiledByteGrid[] = [];
   private readonly rng: Random;
-  private guess = 1;
 
   constructor(lattice: PlanarLattice, task: GrowthTask, checkpoint?: GrowthCheckpoint) {
     this.task = structuredClone(task);
     this.lattice = lattice;
-    this.triangular = lattice.name === 'triangular';
-    this.maxLevel = this.triangular ? MAX_HEX_LEVEL : MAX_EXIT_LEVEL;
     this.hitsToJoin = task.model.params.noise_reduction;
     this.launchMargin = task.model.params.launch_margin;
     const expect = Math.max(16, task.particles >> 4);
-    this.sites = new TiledByteGrid(expect);
+    this.walker = new LatticeWalk(lattice, task.particles);
     this.hits = new TiledInt32Grid(0, this.hitsToJoin > 1 ? expect : 4);
-    for (let e = 1; e <= this.maxLevel; e++) this.marks.push(new TiledByteGrid(Math.max(4, expect >> (e + 1))));
     const recordExtra = (extra: Record<string, number[]>, coords: Float64Array, count: number, rMax: number): void => recordPlanarAnisotropy(extra, coords, 2, count, rMax);
     if (checkpoint === undefined) {
       this.rng = Random.forRun(task.ensembleSeed, task.runIndex, STREAM_GROWTH);
@@ -199,105 +183,22 @@ export class DlaLatticeKernel implements GrowthKernel {
 
   /** Run one walker from the launch circle to its first perimeter site (left in walkerAt). */
   private walk(): void {
-    const rng = this.rng;
-    const lattice = this.lattice;
-    const tri = this.triangular;
-    const maxLevel = this.maxLevel;
-    const rMax = this.cluster.rMax;
-    const launch = rMax + this.launchMargin;
-    const far = 2 * launch + 64;
-    const far2 = far * far;
-    // lattice distance (L∞ square, hex triangular) per unit of plane distance, at least
-    const perUnit = tri ? 1 : SQRT1_2;
-    let jumps = 0;
-    let steps = 0;
-    let returns = 0;
-    sampleDirection(rng);
-    toSite(lattice, launch * direction.x, launch * direction.y);
-    let x = siteOf.i;
-    let y = siteOf.j;
-    for (;;) {
-      const px = tri ? x + 0.5 * y : x;
-      const py = tri ? y * HALF_SQRT3 : y;
-      const r2 = px * px + py * py;
-      if (r2 > far2) {
-        returnToCircle(px, py, launch, rng);
-        toSite(lattice, returned.x, returned.y);
-        x = siteOf.i;
-        y = siteOf.j;
-        returns++;
-        continue;
-      }
-      let e = this.freeLevel(x, y);
-      // radial bound: lattice distance >= (|w| − R_max) · perUnit, so a square (hexagon) of half-width floor(that) − 1 is free
-      const byRadius = Math.floor((Math.sqrt(r2) - rMax) * perUnit) - 1;
-      while (e < maxLevel && 2 ** (e + 1) <= byRadius) e++;
-      if (e >= 1) {
-        if (tri) {
-          sampleHexExit(e, rng);
-          x += hexExit.di;
-          y += hexExit.dj;
-        } else {
-          sampleExit(e, rng);
-          x += exit.dx;
-          y += exit.dy;
-        }
-        jumps++;
-        continue;
-      }
-      if (this.isPerimeter(x, y)) break;
-      if (tri) {
-        const t = rng.nextBelow(6);
-        x += lattice.di[t];
-        y += lattice.dj[t];
-      } else {
-        const s = rng.nextInt32() & 3;
-        if (s === 0) x++;
-        else if (s === 1) x--;
-        else if (s === 2) y++;
-        else y--;
-      }
-      steps++;
-    }
-    walkerAt.i = x;
-    walkerAt.j = y;
+    const w = this.walker;
+    w.walk(this.rng, this.cluster.rMax, this.launchMargin);
+    walkerAt.i = w.atI;
+    walkerAt.j = w.atJ;
     this.counters.walkers++;
-    this.counters.jumps += jumps;
-    this.counters.steps += steps;
-    this.counters.returns += returns;
-  }
-
-  /** The largest level e (0 … maxLevel) whose cell around (x, y) is unmarked (0: none is). */
-  private freeLevel(x: number, y: number): number {
-    let e = this.guess;
-    const marks = this.marks;
-    if ((marks[e - 1].get(x >> e, y >> e) & MARKED) === 0) {
-      while (e < this.maxLevel && (marks[e].get(x >> (e + 1), y >> (e + 1)) & MARKED) === 0) e++;
-    } else {
-      e--;
-      while (e >= 1 && (marks[e - 1].get(x >> e, y >> e) & MARKED) !== 0) e--;
-    }
-    this.guess = e >= 1 ? e : 1;
-    return e;
+    this.counters.jumps += w.jumps;
+    this.counters.steps += w.steps;
+    this.counters.returns += w.returns;
   }
 
   private isPerimeter(x: number, y: number): boolean {
-    const s = this.sites;
-    if (s.get(x, y) !== 0) return false;
-    const near = s.get(x + 1, y) | s.get(x - 1, y) | s.get(x, y + 1) | s.get(x, y - 1);
-    return this.triangular ? (near | s.get(x + 1, y - 1) | s.get(x - 1, y + 1)) !== 0 : near !== 0;
+    return this.walker.isPerimeter(x, y);
   }
 
-  /** Add site (x, y) to the cluster storage and marks. */
   private occupy(x: number, y: number): void {
-    this.sites.orBits(x, y, 1);
-    for (let e = 1; e <= this.maxLevel; e++) {
-      const g = this.marks[e - 1];
-      const cx = x >> e;
-      const cy = y >> e;
-      if ((g.orBits(cx, cy, HOLDS) & HOLDS) !== 0) continue;
-      for (let dy = -1; dy <= 1; dy++) for (let dx = -1; dx <= 1; dx++) g.orBits(cx + dx, cy + dy, MARKED);
-    }
+    this.walker.occupy(x, y);
   }
 
   private restoreHits(state: Uint8Array): void {
@@ -334,9 +235,7 @@ export class DlaLatticeKernel implements GrowthKernel {
 
   /** Bytes held by the site grid, the hit counts and the marks (for benchmarks). */
   get storageBytes(): number {
-    let b = this.sites.bytes + this.hits.bytes;
-    for (const g of this.marks) b += g.bytes;
-    return b;
+    return this.walker.bytes + this.hits.bytes;
   }
 
   checkpoint(): GrowthCheckpoint {

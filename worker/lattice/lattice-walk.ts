@@ -1,0 +1,173 @@
+/**
+ * The lattice walker of lattice DLA (worker/models/dla-lattice/dla-lattice-kernel.ts),
+ * with the sparse storage it walks on: the cluster sites and the multi-level
+ * occupancy marks. Shared by the growth kernel and by the lattice probe
+ * (worker/probe/probe-lattice.ts), so growth and probing sample the same
+ * law with the same exact jumps, launch and return.
+ *
+ * One walk: a walker started on the launch circle (radius R_max +
+ * launchMargin about the seed site, rounded to a site) performs the
+ * lattice's simple random walk, accelerated by exact jumps where no cluster
+ * site is near, until it stands on a perimeter site (an empty site with a
+ * cluster site among its nearest neighbours); that site is left in
+ * (atI, atJ). The exact definition of the jumps, the launch and the return
+ * (and the two stated approximations, launch and return) is in the kernel's
+ * file header.
+ */
+import type { Random } from '../core/random.js';
+import { TiledByteGrid } from '../index/tiled-grids.js';
+import { returnToCircle, returned } from '../walkers/poisson-return-2d.js';
+import { direction, sampleDirection } from '../walkers/uniform-direction.js';
+import { MAX_EXIT_LEVEL, exit, sampleExit } from './square-exit-tables.js';
+import { MAX_HEX_LEVEL, hexExit, sampleHexExit } from './hexagon-exit-tables.js';
+import { HALF_SQRT3, type PlanarLattice, siteOf, toSite } from './planar-lattice.js';
+
+const MARKED = 1;
+const HOLDS = 2;
+const SQRT1_2 = Math.SQRT1_2;
+
+export class LatticeWalk {
+  readonly lattice: PlanarLattice;
+  private readonly triangular: boolean;
+  /** Largest jump level (tables for L = 2^e up to it) and number of mark levels. */
+  private readonly maxLevel: number;
+  /** 1 for cluster sites. */
+  private readonly sites: TiledByteGrid;
+  /** marks[e − 1]: cells of side 2^e. */
+  private readonly marks: TiledByteGrid[] = [];
+  private guess = 1;
+  /** The perimeter site where the last walk stopped. */
+  atI = 0;
+  atJ = 0;
+  /** Exact jumps, single steps and returns of the last walk. */
+  jumps = 0;
+  steps = 0;
+  returns = 0;
+
+  /** `expectedSites`: a size hint for the storage. */
+  constructor(lattice: PlanarLattice, expectedSites: number) {
+    this.lattice = lattice;
+    this.triangular = lattice.name === 'triangular';
+    this.maxLevel = this.triangular ? MAX_HEX_LEVEL : MAX_EXIT_LEVEL;
+    const expect = Math.max(16, expectedSites >> 4);
+    this.sites = new TiledByteGrid(expect);
+    for (let e = 1; e <= this.maxLevel; e++) this.marks.push(new TiledByteGrid(Math.max(4, expect >> (e + 1))));
+  }
+
+  /** Bytes held by the site grid and the marks. */
+  get bytes(): number {
+    let b = this.sites.bytes;
+    for (const g of this.marks) b += g.bytes;
+    return b;
+  }
+
+  /**
+   * Run one walker from the launch circle of radius rMax + launchMargin to
+   * its first perimeter site (left in atI, atJ); rMax is the largest plane
+   * distance of a cluster site from the seed site (0, 0).
+   */
+  walk(rng: Random, rMax: number, launchMargin: number): void {
+    const lattice = this.lattice;
+    const tri = this.triangular;
+    const maxLevel = this.maxLevel;
+    const launch = rMax + launchMargin;
+    const far = 2 * launch + 64;
+    const far2 = far * far;
+    // lattice distance (L∞ square, hex triangular) per unit of plane distance, at least
+    const perUnit = tri ? 1 : SQRT1_2;
+    let jumps = 0;
+    let steps = 0;
+    let returns = 0;
+    sampleDirection(rng);
+    toSite(lattice, launch * direction.x, launch * direction.y);
+    let x = siteOf.i;
+    let y = siteOf.j;
+    for (;;) {
+      const px = tri ? x + 0.5 * y : x;
+      const py = tri ? y * HALF_SQRT3 : y;
+      const r2 = px * px + py * py;
+      if (r2 > far2) {
+        returnToCircle(px, py, launch, rng);
+        toSite(lattice, returned.x, returned.y);
+        x = siteOf.i;
+        y = siteOf.j;
+        returns++;
+        continue;
+      }
+      let e = this.freeLevel(x, y);
+      // radial bound: lattice distance >= (|w| − R_max) · perUnit, so a square (hexagon) of half-width floor(that) − 1 is free
+      const byRadius = Math.floor((Math.sqrt(r2) - rMax) * perUnit) - 1;
+      while (e < maxLevel && 2 ** (e + 1) <= byRadius) e++;
+      if (e >= 1) {
+        if (tri) {
+          sampleHexExit(e, rng);
+          x += hexExit.di;
+          y += hexExit.dj;
+        } else {
+          sampleExit(e, rng);
+          x += exit.dx;
+          y += exit.dy;
+        }
+        jumps++;
+        continue;
+      }
+      if (this.isPerimeter(x, y)) break;
+      if (tri) {
+        const t = rng.nextBelow(6);
+        x += lattice.di[t];
+        y += lattice.dj[t];
+      } else {
+        const s = rng.nextInt32() & 3;
+        if (s === 0) x++;
+        else if (s === 1) x--;
+        else if (s === 2) y++;
+        else y--;
+      }
+      steps++;
+    }
+    this.atI = x;
+    this.atJ = y;
+    this.jumps = jumps;
+    this.steps = steps;
+    this.returns = returns;
+  }
+
+  /** The largest level e (0 … maxLevel) whose cell around (x, y) is unmarked (0: none is). */
+  private freeLevel(x: number, y: number): number {
+    let e = this.guess;
+    const marks = this.marks;
+    if ((marks[e - 1].get(x >> e, y >> e) & MARKED) === 0) {
+      while (e < this.maxLevel && (marks[e].get(x >> (e + 1), y >> (e + 1)) & MARKED) === 0) e++;
+    } else {
+      e--;
+      while (e >= 1 && (marks[e - 1].get(x >> e, y >> e) & MARKED) !== 0) e--;
+    }
+    this.guess = e >= 1 ? e : 1;
+    return e;
+  }
+
+  /** Whether (x, y) is a cluster site. */
+  isSite(x: number, y: number): boolean {
+    return this.sites.get(x, y) !== 0;
+  }
+
+  /** Whether (x, y) is an empty site with a cluster site among its nearest neighbours. */
+  isPerimeter(x: number, y: number): boolean {
+    const s = this.sites;
+    if (s.get(x, y) !== 0) return false;
+    const near = s.get(x + 1, y) | s.get(x - 1, y) | s.get(x, y + 1) | s.get(x, y - 1);
+    return this.triangular ? (near | s.get(x + 1, y - 1) | s.get(x - 1, y + 1)) !== 0 : near !== 0;
+  }
+
+  /** Add site (x, y) to the cluster storage and marks. */
+  occupy(x: number, y: number): void {
+    this.sites.orBits(x, y, 1);
+    for (let e = 1; e <= this.maxLevel; e++) {
+      const g = this.marks[e - 1];
+      const cx = x >> e;
+      const cy = y >> e;
+      if ((g.orBits(cx, cy, HOLDS) & HOLDS) !== 0) continue;
+      for (let dy = -1; dy <= 1; dy++) for (let dx = -1; dx <= 1; dx++) g.orBits(cx + dx, cy + dy, MARKED);
+    }
+  }
+}
