@@ -44,9 +44,9 @@ function directRecords(runIndex: number) {
   const p = k.positions();
   const final = { dimension: 2, count: p.count, coords: p.coords.slice(0, 2 * p.count) };
   return probeSizesOf(spec).map((size) => {
-    const set = clusterPrefix(final, size);
+    const set = clusterPrefix(final, size, spec.model.kind);
     const g = new ProbeGeometry(set);
-    const tasks = probeTasksOf(spec.probe!, spec.seed, runIndex, size, prefixDigest(final, size));
+    const tasks = probeTasksOf(spec.probe!, spec.seed, runIndex, size, prefixDigest(final, size, spec.model.kind));
     // jobs run in reverse order: the analysis must not depend on the order
     const results = [...tasks].reverse().map((t) => runProbeJob(g, t));
     return analyseProbedCluster(set, results, spec.probe!, runIndex, size).record;

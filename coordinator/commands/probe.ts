@@ -35,7 +35,8 @@ import { UsageError } from '../usage-error.js';
 import { parseRangeOption, parseSeedOption } from './option-values.js';
 import { describeRange } from '../../worker/core/value-range.js';
 import { defaultProbeJobs, PROBE_CONTACT_SAMPLE, PROBE_JOBS, PROBE_MIN_STEP, PROBE_Q_MAX_VALUES, PROBE_Q_VALUE, PROBE_WALKERS, probeSettingsProblems, type ProbeSettingSpec } from '../harmonic/probe-settings.js';
-import { readProbeInput } from '../harmonic/probe-input.js';
+import { readProbeInput, type ProbeInput } from '../harmonic/probe-input.js';
+import { probedPointsOf } from '../../worker/probe/probe-dispatch.js';
 import { runProbes } from '../harmonic/probe-run.js';
 import { renderMeasurePng } from '../harmonic/measure-picture.js';
 import { DEFAULT_PROBE_MIN_STEP } from '../../worker/probe/probe-2d.js';
@@ -93,6 +94,7 @@ export function register(program: Command): void {
     .option('--contact-sample <m>', helpOf(PROBE_CONTACT_SAMPLE), String(PROBE_CONTACT_SAMPLE.default))
     .option('--min-step <h>', helpOf(PROBE_MIN_STEP), String(PROBE_MIN_STEP.default))
     .option('--window <lo:hi>', 'fit window: smallest and largest box side relative to the set radius R (default: see the README)')
+    .option('--lattice <name>', 'probe a snapshot of a lattice model (dla-square, eden-square: square; dla-triangular, eden-triangular: triangular) with lattice walkers onto its perimeter sites; allowed: square, triangular')
     .action(async (input: string, raw: Record<string, unknown>) => {
       const need = (k: string, what: string): unknown => {
         if (raw[k] === undefined) throw new UsageError(`--${k} is required (${what})`);
@@ -115,14 +117,22 @@ export function register(program: Command): void {
         return;
       }
       const window = raw.window === undefined ? null : parseWindowOption(String(raw.window));
-      let set;
+      const latticeRaw = raw.lattice === undefined ? undefined : String(raw.lattice);
+      if (latticeRaw !== undefined && latticeRaw !== 'square' && latticeRaw !== 'triangular') throw new UsageError(`--lattice: ${JSON.stringify(latticeRaw)} is not allowed; allowed: square, triangular`);
+      const lattice = latticeRaw as 'square' | 'triangular' | undefined;
+      let set: ProbeInput;
       try {
         set = readProbeInput(input);
       } catch (e) {
         throw new UsageError((e as Error).message);
       }
-      const shape = probeGeometryProblem(set, minStep, `INPUT ${input}`, '--min-step');
-      if (shape !== null) throw new UsageError(shape);
+      if (lattice !== undefined) {
+        if (set.kind !== 'snapshot') throw new UsageError(`--lattice: INPUT ${input} is a CSV of disks; --lattice applies to snapshots of lattice models only`);
+        set = { ...set, lattice };
+      } else {
+        const shape = probeGeometryProblem(set, minStep, `INPUT ${input}`, '--min-step');
+        if (shape !== null) throw new UsageError(shape);
+      }
       const dir = resolve(outRaw);
       try {
         if (!statSync(dir).isDirectory()) throw new UsageError(`--out must name a folder, but "${outRaw}" is an existing file`);
@@ -137,30 +147,33 @@ export function register(program: Command): void {
         if (e instanceof RangeError) throw new UsageError(`INPUT ${input}: ${e.message}`);
         throw e;
       }
+      // the points that carry the measure: the disks, or the perimeter sites of a lattice set
+      const pts = probedPointsOf(set);
+      const what = set.lattice ? `perimeter sites of ${set.count} ${set.lattice}-lattice sites` : 'disks';
       const json = {
-        input: { path: input, kind: set.kind, disks: set.count },
+        input: { path: input, kind: set.kind, disks: set.count, ...(set.lattice ? { lattice: set.lattice, perimeterSites: pts.count } : {}) },
         seed, jobs, minStep,
         ...run.measures,
         timing: { probeSeconds: run.seconds, walkersPerSecond: walkers / run.seconds, threads },
       };
       writeFileSync(join(dir, MEASURES_FILE), JSON.stringify(json, null, 2) + '\n');
       const lines = ['index,x,y,r,hits,measure'];
-      for (let i = 0; i < set.count; i++) {
-        const r = typeof set.r === 'number' ? set.r : set.r[i];
-        lines.push(`${i},${set.x[i]},${set.y[i]},${r},${run.counts[i]},${run.counts[i] / walkers}`);
+      for (let i = 0; i < pts.count; i++) {
+        const r = typeof pts.r === 'number' ? pts.r : pts.r[i];
+        lines.push(`${i},${pts.x[i]},${pts.y[i]},${r},${run.counts[i]},${run.counts[i] / walkers}`);
       }
       writeFileSync(join(dir, HITS_FILE), lines.join('\n') + '\n');
-      const picture = renderMeasurePng(set.count, set.x, set.y, set.drawRadius, run.counts);
+      const picture = renderMeasurePng(pts.count, pts.x, pts.y, set.lattice ? pts.r : set.drawRadius, run.counts);
       writeFileSync(join(dir, MEASURE_PICTURE_FILE), picture);
       const { renderer } = pngRenderer();
       if (renderer) {
-        const fig = measurePictureFigure({ runIndex: 0, size: set.count, png: picture, title: `Harmonic measure on ${set.count} disks (${walkers} walkers)` });
+        const fig = measurePictureFigure({ runIndex: 0, size: set.count, png: picture, title: `Harmonic measure on ${pts.count} ${set.lattice ? 'perimeter sites' : 'disks'} (${walkers} walkers)` });
         writeFileSync(join(dir, MEASURE_FIGURE_FILE), renderer.render(fig.svg, 2));
       }
       for (const w of run.measures.warnings) process.stderr.write(`warning: ${w}\n`);
       const cap = run.measures.capacity;
       process.stdout.write(
-        `probed ${set.count} disks with ${walkers} walkers in ${run.seconds.toFixed(2)} s; ` +
+        `probed ${set.lattice ? `${pts.count} ${what}` : `${set.count} disks`} with ${walkers} walkers in ${run.seconds.toFixed(2)} s; ` +
         `tau'(1) = ${run.measures.spectrum.informationDimension.toFixed(3)}` +
         (cap ? `, capacity = ${cap.capacity.toPrecision(5)} +- ${cap.capacityError.toPrecision(2)}` : '') + `; wrote ${dir}\n`,
       );

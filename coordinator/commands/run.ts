@@ -104,7 +104,7 @@ export function register(program: Command): void {
               ? {
                   runIndex: outcome.picture.runIndex,
                   size: outcome.picture.size,
-                  png: renderMeasurePng(outcome.picture.size, outcome.picture.x, outcome.picture.y, CLUSTER_CONTACT_RADIUS / 2, outcome.picture.counts),
+                  png: renderMeasurePng(outcome.picture.x.length, outcome.picture.x, outcome.picture.y, CLUSTER_CONTACT_RADIUS / 2, outcome.picture.counts),
                 }
               : undefined,
         });

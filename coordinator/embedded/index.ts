@@ -28,7 +28,8 @@ import { availableParallelism } from 'node:os';
 import { decodeCheckpoint, decodeRunResult, type RunResultData, type RunTaskData } from '../../proto/convert.js';
 import { axisOf } from '../../worker/core/positions.js';
 import { ProbeThreadPool } from '../../worker/runtime/probe-thread-pool.js';
-import { diskSetDigest, type ProbeResult } from '../../worker/probe/probe-2d.js';
+import type { ProbeResult } from '../../worker/probe/probe-2d.js';
+import { probeSetDigest, probedPointsOf } from '../../worker/probe/probe-dispatch.js';
 import { analyseProbedCluster, clusterPrefix, positionsOf, probeTasksOf } from '../harmonic/ensemble-probing.js';
 import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
 import { TaskThreadPool, type ThreadRun } from '../../worker/runtime/task-thread.js';
@@ -236,8 +237,8 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
     }
     const final = pos;
     const groups = await Promise.all(probeSizes.map(async (size) => {
-      const set = clusterPrefix(final, size);
-      const tasks = probeTasksOf(probe!, spec.seed, runIndex, size, diskSetDigest(set));
+      const set = clusterPrefix(final, size, spec.model.kind);
+      const tasks = probeTasksOf(probe!, spec.seed, runIndex, size, probeSetDigest(set));
       const out = await Promise.all(tasks.map(async (t) => {
         if (opts.signal?.aborted) return null;
         try {
@@ -260,7 +261,11 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
       recs.push(record);
       if (g.size === spec.particles) {
         if (store) await store.put(hitsKey(opts.ensembleId, runIndex), new Uint8Array(counts.buffer, counts.byteOffset, counts.byteLength));
-        if (picture === null || runIndex < picture.runIndex) picture = { runIndex, size: g.size, x: axisOf(final, 0, g.size), y: axisOf(final, 1, g.size), counts };
+        if (picture === null || runIndex < picture.runIndex) {
+          // the points that carry the measure: the particles, or a lattice cluster's perimeter sites
+          const pts = probedPointsOf(g.set);
+          picture = { runIndex, size: g.size, x: Float64Array.from(pts.x), y: Float64Array.from(pts.y), counts };
+        }
       }
     }
     harmonic.set(runIndex, recs);
@@ -335,7 +340,8 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
       if (fin && hits) {
         const pos = positionsOf(decodeCheckpoint(fin));
         const counts = new Float64Array(Uint8Array.from(hits).buffer);
-        if (counts.length === spec.particles) picture = { runIndex: first, size: spec.particles, x: axisOf(pos, 0, spec.particles), y: axisOf(pos, 1, spec.particles), counts };
+        const pts = probedPointsOf(clusterPrefix(pos, spec.particles, spec.model.kind));
+        if (counts.length === pts.count) picture = { runIndex: first, size: spec.particles, x: Float64Array.from(pts.x), y: Float64Array.from(pts.y), counts };
       }
     }
   }

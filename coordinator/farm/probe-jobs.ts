@@ -36,7 +36,7 @@ export function probeJobsOf(id: string, spec: EnsembleSpec, runIndex: number, fi
   const p = spec.probe;
   if (!p) return [];
   return probeSizesOf(spec).flatMap((size) =>
-    probeTasksOf(p, spec.seed, runIndex, size, prefixDigest(final, size)).map((task) => ({
+    probeTasksOf(p, spec.seed, runIndex, size, prefixDigest(final, size, spec.model.kind)).map((task) => ({
       name: 'probe',
       data: { v: JOB_PAYLOAD_VERSION, kind: 'probe', ensembleId: id, runIndex, size, task } satisfies ProbeJobData,
       opts: {
@@ -180,7 +180,7 @@ export class FarmProbeHandler implements ProbeJobHandler {
     if (!(await this.artifacts.get(rkey))) {
       const final = await this.finalOf(id, runIndex);
       if (size > final.count) throw new ProbeJobRefused(`probe size ${size} exceeds the cluster's ${final.count} particles`);
-      const result = await this.runOnThread(`${id}:${runIndex}:${size}`, () => clusterPrefix(final, size), d.task, () => this.store.isCancelled(id));
+      const result = await this.runOnThread(`${id}:${runIndex}:${size}`, () => clusterPrefix(final, size, spec.model.kind), d.task, () => this.store.isCancelled(id));
       if (result === null) return 'cancelled';
       await this.artifacts.put(rkey, Buffer.from(JSON.stringify(result)));
       this.events.onProbed?.(result.walkers);
@@ -200,7 +200,7 @@ export class FarmProbeHandler implements ProbeJobHandler {
       results.push(JSON.parse(Buffer.from(bytes).toString('utf8')) as ProbeResult);
     }
     const final = await this.finalOf(id, runIndex);
-    const { record, counts } = analyseProbedCluster(clusterPrefix(final, size), results, p, runIndex, size);
+    const { record, counts } = analyseProbedCluster(clusterPrefix(final, size, spec.model.kind), results, p, runIndex, size);
     if (size === spec.particles) await this.artifacts.put(hitsKey(id, runIndex), new Uint8Array(counts.buffer, counts.byteOffset, counts.byteLength));
     if (await this.store.saveHarmonic(id, record)) this.events.log?.(`ensemble ${id}: run ${runIndex} probed at size ${size}`);
   }

@@ -21,7 +21,9 @@
 import type { CheckpointData } from '../../proto/convert.js';
 import type { ClusterPositions } from '../../worker/core/growth-kernel.js';
 import { axisOf } from '../../worker/core/positions.js';
-import { diskSetDigest, planProbeJobs, DEFAULT_PROBE_LAUNCH_MARGIN, type DiskSet, type ProbeResult, type ProbeTask } from '../../worker/probe/probe-2d.js';
+import { planProbeJobs, DEFAULT_PROBE_LAUNCH_MARGIN, type DiskSet, type ProbeResult, type ProbeTask } from '../../worker/probe/probe-2d.js';
+import { probeSetDigest } from '../../worker/probe/probe-dispatch.js';
+import { modelDescriptor } from '../../worker/models/registry.js';
 import { mix64, parseSeed } from '../../worker/core/random.js';
 import type { ProbeSpec } from '../spec/index.js';
 import { analyseResults } from './probe-run.js';
@@ -38,11 +40,18 @@ export function probeSeedOf(ensembleSeed: string, runIndex: number, size: number
   return (mix64(a ^ mix64(BigInt(size) + (1n << 40n))) & MASK64).toString();
 }
 
-/** The set of the first `size` particles of a finished cluster (compact copies, cheap to send to a thread). */
-export function clusterPrefix(final: ClusterPositions, size: number): DiskSet {
+/**
+ * The set of the first `size` particles of a finished cluster of model
+ * `kind` (compact copies, cheap to send to a thread): disks of radius
+ * CLUSTER_CONTACT_RADIUS, or, for a model whose probe is 'lattice-sites',
+ * the sites of its lattice (probed by lattice walkers, worker/probe/probe-lattice.ts).
+ */
+export function clusterPrefix(final: ClusterPositions, size: number, kind: string): DiskSet {
   if (!Number.isInteger(size) || size < 1 || size > final.count) throw new RangeError(`probe size ${size} must be an integer from 1 to the cluster's ${final.count} particles`);
   if (final.dimension !== 2) throw new RangeError(`probing needs a planar cluster; this one has dimension ${final.dimension}`);
-  return { count: size, x: axisOf(final, 0, size), y: axisOf(final, 1, size), r: CLUSTER_CONTACT_RADIUS };
+  const d = modelDescriptor(kind);
+  const lattice = d.probe === 'lattice-sites' && (d.lattice === 'square' || d.lattice === 'triangular') ? d.lattice : undefined;
+  return { count: size, x: axisOf(final, 0, size), y: axisOf(final, 1, size), r: CLUSTER_CONTACT_RADIUS, ...(lattice ? { lattice } : {}) };
 }
 
 /** Positions of a final-state checkpoint. */
@@ -55,9 +64,9 @@ export function probeTasksOf(p: ProbeSpec, ensembleSeed: string, runIndex: numbe
   return planProbeJobs(digest, probeSeedOf(ensembleSeed, runIndex, size), p.walkers, p.jobs, p.contactSample, p.minStep, DEFAULT_PROBE_LAUNCH_MARGIN);
 }
 
-/** Digest of the set of (final cluster, size). */
-export function prefixDigest(final: ClusterPositions, size: number): string {
-  return diskSetDigest(clusterPrefix(final, size));
+/** Digest of the set of (final cluster of model `kind`, size). */
+export function prefixDigest(final: ClusterPositions, size: number, kind: string): string {
+  return probeSetDigest(clusterPrefix(final, size, kind));
 }
 
 /**
@@ -70,7 +79,7 @@ export function analyseProbedCluster(
   const sorted = [...results].sort((a, b) => a.jobIndex - b.jobIndex);
   if (sorted.length !== p.jobs || sorted.some((r, j) => r.jobIndex !== j))
     throw new RangeError(`probe of run ${runIndex} at size ${size}: expected job results 0..${p.jobs - 1}, got ${sorted.map((r) => r.jobIndex).join(',')}`);
-  const digest = diskSetDigest(set);
+  const digest = probeSetDigest(set);
   for (const r of sorted) if (r.geometryDigest !== digest) throw new RangeError(`probe of run ${runIndex} at size ${size}: job ${r.jobIndex} ran on set ${r.geometryDigest}, not ${digest}`);
   const a = analyseResults(set, sorted, p.q, p.window);
   return { record: clusterHarmonicOf(runIndex, size, a.measures, a.counts), counts: a.counts };

@@ -40,6 +40,8 @@
  * the sample is not a harmonic measure and the stated error is too small.
  */
 
+import { LatticePotential } from '../../worker/lattice/potential-kernel.js';
+
 export interface CapacityEstimate {
   /** Sample size M used. */
   samples: number;
@@ -51,7 +53,36 @@ export interface CapacityEstimate {
   frostmanExcess: number;
 }
 
-export function logCapacity(x: ArrayLike<number>, y: ArrayLike<number>, count: number): CapacityEstimate {
+/**
+ * The pair value h(z, w) of the U-statistic, from w − z = (dx, dy): for
+ * continuum sets log|z − w| (the default); for lattice sets the potential
+ * kernel's form (latticePairValue). A non-finite value (coincident points of
+ * a continuum sample, measure zero) is skipped.
+ */
+export type PairValue = (dx: number, dy: number) => number;
+
+const LOG_DISTANCE: PairValue = (dx, dy) => 0.5 * Math.log(dx * dx + dy * dy);
+
+/**
+ * The capacity of a finite lattice set (our definition, following Lawler &
+ * Limic 2010, Random Walk: A Modern Introduction, §6.6; from memory): with
+ * a the lattice walk's potential kernel and H the harmonic measure from
+ * infinity of A, Σ_{z∈A} a(x − z) H(z) = cap_L(A) is the same for every
+ * x ∈ A (cap_L({0}) = 0; cap_L of two neighbours = 1/2, since a = 1 there).
+ * So h(z, w) = (a(w − z) − κ)/C, with a(x) ≈ C ln|x| + κ far away
+ * (worker/lattice/potential-kernel.ts), has h1 ≡ (cap_L − κ)/C on the support
+ * of H: the same degenerate U-statistic as in the continuum, estimating
+ * log of the set's continuum-equivalent capacity, (cap_L − κ)/C (for a large
+ * set a(x − z) ≈ C ln|x − z| + κ away from the diagonal, so this tends to
+ * the logarithmic capacity of the set in lattice spacings). Coincident
+ * sample points count (a(0) = 0): on a lattice they are not of measure zero.
+ */
+export function latticePairValue(lattice: 'square' | 'triangular'): PairValue {
+  const pot = LatticePotential.of(lattice);
+  return (dx, dy) => (pot.atPlane(dx, dy) - pot.constant) / pot.slope;
+}
+
+export function logCapacity(x: ArrayLike<number>, y: ArrayLike<number>, count: number, pair: PairValue = LOG_DISTANCE): CapacityEstimate {
   const m = count;
   if (m < 4) throw new RangeError(`capacity needs at least 4 contact points, got ${m}`);
   // pass 1: the mean (so that pass 2 sums centred values: no cancellation in the moment sums)
@@ -63,7 +94,7 @@ export function logCapacity(x: ArrayLike<number>, y: ArrayLike<number>, count: n
     for (let j = i + 1; j < m; j++) {
       const dx = xi - x[j];
       const dy = yi - y[j];
-      const l = 0.5 * Math.log(dx * dx + dy * dy);
+      const l = pair(dx, dy);
       if (!Number.isFinite(l)) continue; // coincident points (measure zero)
       sum += l;
       pairs++;
@@ -80,7 +111,7 @@ export function logCapacity(x: ArrayLike<number>, y: ArrayLike<number>, count: n
     for (let j = i + 1; j < m; j++) {
       const dx = xi - x[j];
       const dy = yi - y[j];
-      const l = 0.5 * Math.log(dx * dx + dy * dy);
+      const l = pair(dx, dy);
       if (!Number.isFinite(l)) continue;
       const h = l - mean;
       row[i] += h;
@@ -126,7 +157,7 @@ export interface CapacityJobCheck {
 }
 
 /** Batch-means check over consecutive groups of the sample (job j holds `sizes[j]` points, in order); null with fewer than 2 groups of at least 4 points. */
-export function capacityJobCheck(x: ArrayLike<number>, y: ArrayLike<number>, sizes: readonly number[]): CapacityJobCheck | null {
+export function capacityJobCheck(x: ArrayLike<number>, y: ArrayLike<number>, sizes: readonly number[], pair: PairValue = LOG_DISTANCE): CapacityJobCheck | null {
   const est: number[] = [];
   const vars: number[] = [];
   let from = 0;
@@ -134,7 +165,7 @@ export function capacityJobCheck(x: ArrayLike<number>, y: ArrayLike<number>, siz
     if (m >= 4) {
       const gx = Array.prototype.slice.call(x, from, from + m) as number[];
       const gy = Array.prototype.slice.call(y, from, from + m) as number[];
-      const c = logCapacity(gx, gy, m);
+      const c = logCapacity(gx, gy, m, pair);
       if (c.logCapacityError > 0) { est.push(c.logCapacity); vars.push(c.logCapacityError ** 2); }
     }
     from += m;

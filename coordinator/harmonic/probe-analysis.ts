@@ -54,7 +54,7 @@
  */
 import { boxStatistics, logSpaced, type BoxStatistics, type WeightedPoints } from './partition-function.js';
 import { spectrumFrom, type Spectrum } from './spectrum.js';
-import { capacityJobCheck, logCapacity, type CapacityEstimate, type CapacityJobCheck } from './log-capacity.js';
+import { capacityJobCheck, latticePairValue, logCapacity, type CapacityEstimate, type CapacityJobCheck } from './log-capacity.js';
 import { beurlingVerdict, BEURLING_BOUND, type BeurlingVerdict } from './beurling-check.js';
 import { diskUnionConnected } from './disk-union-connected.js';
 import { resolutionSystematic, resolutionWarning, type ResolutionSystematic } from './resolution-systematic.js';
@@ -83,6 +83,8 @@ export interface ProbeAnalysisInput {
   /** Box sides relative to R, [lo, hi] (fit-window.ts); overrides the default, not `window`. */
   relativeWindow?: [number, number] | null;
   scales?: number;
+  /** Set for lattice sets (the points are perimeter sites): the capacity is the lattice one (log-capacity.ts, latticePairValue). */
+  lattice?: 'square' | 'triangular';
 }
 
 export interface HarmonicMeasures {
@@ -204,10 +206,12 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
     tauHalves = [a, b];
     converged = inp.q.map((_, k) => Math.abs(a[k] - b[k]) <= 0.05 + 0.05 * Math.abs(spectrum.tau[k]));
   }
+  const pair = inp.lattice ? latticePairValue(inp.lattice) : undefined;
   const capacity = inp.contactCount >= 4
     ? {
-      ...logCapacity(inp.contactX, inp.contactY, inp.contactCount), set: 'union of the contact disks',
-      jobCheck: inp.contactJobSizes ? capacityJobCheck(inp.contactX, inp.contactY, inp.contactJobSizes) : null,
+      ...logCapacity(inp.contactX, inp.contactY, inp.contactCount, pair),
+      set: inp.lattice ? `the ${inp.lattice}-lattice sites and their perimeter sites (continuum-equivalent capacity from the lattice potential kernel)` : 'union of the contact disks',
+      jobCheck: inp.contactJobSizes ? capacityJobCheck(inp.contactX, inp.contactY, inp.contactJobSizes, pair) : null,
     }
     : null;
   const connected = diskUnionConnected(n, inp.x, inp.y, inp.r);

@@ -6,9 +6,9 @@
  * Halves for the convergence flags: even jobs and odd jobs.
  */
 import {
-  ProbeGeometry, addProbeCounts, diskSetDigest, planProbeJobs, runProbeJob,
-  DEFAULT_PROBE_LAUNCH_MARGIN, DEFAULT_PROBE_MIN_STEP, type DiskSet, type ProbeResult, type ProbeTask,
+  addProbeCounts, planProbeJobs, DEFAULT_PROBE_LAUNCH_MARGIN, DEFAULT_PROBE_MIN_STEP, type DiskSet, type ProbeResult, type ProbeTask,
 } from '../../worker/probe/probe-2d.js';
+import { probeGeometryOf, probeSetDigest, probedPointsOf, runPlanarProbeJob } from '../../worker/probe/probe-dispatch.js';
 import { ProbeThreadPool } from '../../worker/runtime/probe-thread-pool.js';
 import { analyzeProbe, type HarmonicMeasures } from './probe-analysis.js';
 
@@ -36,16 +36,16 @@ export interface ProbeRun {
 }
 
 export async function runProbes(set: DiskSet, o: ProbeRunOptions): Promise<ProbeRun> {
-  const geometry = o.threads <= 1 ? new ProbeGeometry(set) : null;
-  const digest = geometry ? geometry.digest : diskSetDigest(set);
+  const geometry = o.threads <= 1 ? probeGeometryOf(set) : null;
+  const digest = geometry ? geometry.digest : probeSetDigest(set);
   const tasks = planProbeJobs(digest, o.seed, o.walkers, o.jobs, o.contactSample,
     o.minStep ?? DEFAULT_PROBE_MIN_STEP, o.launchMargin ?? DEFAULT_PROBE_LAUNCH_MARGIN);
   const t0 = performance.now();
   let results: ProbeResult[];
   if (o.threads <= 1) {
-    results = tasks.map((t) => runProbeJob(geometry!, t));
+    results = tasks.map((t) => runPlanarProbeJob(geometry!, t));
   } else {
-    const plain: DiskSet = { count: set.count, x: Float64Array.from(set.x), y: Float64Array.from(set.y), r: typeof set.r === 'number' ? set.r : Float64Array.from(set.r) };
+    const plain: DiskSet = { count: set.count, x: Float64Array.from(set.x), y: Float64Array.from(set.y), r: typeof set.r === 'number' ? set.r : Float64Array.from(set.r), ...(set.lattice ? { lattice: set.lattice } : {}) };
     const pool = new ProbeThreadPool(Math.min(o.threads, tasks.length));
     try {
       results = await Promise.all(tasks.map((t) => pool.run(digest, () => plain, t)));
@@ -57,8 +57,13 @@ export async function runProbes(set: DiskSet, o: ProbeRunOptions): Promise<Probe
   return { tasks, results, ...analyseResults(set, results, o.q, o.window ?? null), seconds };
 }
 
-/** Add job results and analyse them (also usable on results gathered from a queue). */
-export function analyseResults(set: DiskSet, results: ProbeResult[], q: number[], window: [number, number] | null = null): Omit<ProbeRun, 'tasks' | 'results' | 'seconds'> {
+/**
+ * Add job results and analyse them (also usable on results gathered from a
+ * queue). For a lattice set the measure sits on its perimeter sites
+ * (probedPointsOf) and the capacity is the lattice one (log-capacity.ts).
+ */
+export function analyseResults(probed: DiskSet, results: ProbeResult[], q: number[], window: [number, number] | null = null): Omit<ProbeRun, 'tasks' | 'results' | 'seconds'> {
+  const set = probedPointsOf(probed);
   const counts = addProbeCounts(set.count, results);
   const halves: [Float64Array, Float64Array] | null = results.length >= 2
     ? [addProbeCounts(set.count, results.filter((r) => r.jobIndex % 2 === 0)), addProbeCounts(set.count, results.filter((r) => r.jobIndex % 2 === 1))]
@@ -68,6 +73,7 @@ export function analyseResults(set: DiskSet, results: ProbeResult[], q: number[]
   const measures = analyzeProbe({
     count: set.count, x: set.x, y: set.y, r: set.r, counts, halves,
     contactX, contactY, contactCount: contactX.length, contactJobSizes: results.map((r) => r.contactX.length), q, relativeWindow: window,
+    ...(set.lattice ? { lattice: set.lattice } : {}),
   });
   return { counts, contactX, contactY, measures };
 }

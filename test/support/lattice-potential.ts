@@ -15,66 +15,12 @@
  * every x ∈ A (Lawler & Limic 2010, section 6.6, from memory).
  */
 
-function gaussLegendre(n: number): { x: Float64Array; w: Float64Array } {
-  const x = new Float64Array(n);
-  const w = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    let z = Math.cos((Math.PI * (i + 0.75)) / (n + 0.5));
-    let dp = 0;
-    for (let it = 0; it < 100; it++) {
-      let p0 = 1;
-      let p1 = z;
-      for (let k = 2; k <= n; k++) {
-        const p2 = ((2 * k - 1) * z * p1 - (k - 1) * p0) / k;
-        p0 = p1;
-        p1 = p2;
-      }
-      dp = (n * (z * p1 - p0)) / (z * z - 1);
-      const dz = p1 / dp;
-      z -= dz;
-      if (Math.abs(dz) < 1e-16) break;
-    }
-    x[i] = z;
-    w[i] = 2 / ((1 - z * z) * dp * dp);
-  }
-  return { x, w };
-}
+import { squarePotential, triangularPotential } from '../../worker/lattice/potential-kernel.js';
 
-const GL = gaussLegendre(200);
-
-export function potentialKernel(x1: number, x2: number): number {
-  if (x1 === 0 && x2 === 0) return 0;
-  const ax = Math.abs(x1);
-  let s = 0;
-  for (let i = 0; i < GL.x.length; i++) {
-    const th = (Math.PI / 2) * (GL.x[i] + 1);
-    const t = Math.acosh(2 - Math.cos(th));
-    s += GL.w[i] * ((1 - Math.cos(x2 * th) * Math.exp(-ax * t)) / Math.sinh(t));
-  }
-  return (2 / Math.PI) * (Math.PI / 2) * s;
-}
-
-/**
- * The potential kernel of the triangular lattice in axial coordinates
- * (neighbours (±1, 0), (0, ±1), (1, −1), (−1, 1)): with
- * φ(θ) = (cos θ1 + cos θ2 + cos(θ1 − θ2))/3, for fixed θ2 one has
- * 1 − φ = (ρ/3)(c − cos(θ1 − θ2/2)), ρ = √(2 + 2 cos θ2), c = (3 − cos θ2)/ρ,
- * so integrating θ1 in closed form (our derivation, as for the square lattice):
- *   a(x1, x2) = (1/π) ∫_0^π (3/ρ) (1 − cos((x1/2 + x2) θ) e^{−|x1| t}) / sinh t dθ,  cosh t = c.
- * Δa = δ_0 gives a = 1 at the six neighbours (checked in the tests).
- */
-export function triangularPotentialKernel(x1: number, x2: number): number {
-  if (x1 === 0 && x2 === 0) return 0;
-  const ax = Math.abs(x1);
-  let s = 0;
-  for (let i = 0; i < GL.x.length; i++) {
-    const th = (Math.PI / 2) * (GL.x[i] + 1);
-    const rho = Math.sqrt(2 + 2 * Math.cos(th));
-    const t = Math.acosh((3 - Math.cos(th)) / rho);
-    s += GL.w[i] * ((3 / rho) * (1 - Math.cos((x1 / 2 + x2) * th) * Math.exp(-ax * t)) / Math.sinh(t));
-  }
-  return (1 / Math.PI) * (Math.PI / 2) * s;
-}
+/** a(x1, x2) on the square lattice (worker/lattice/potential-kernel.ts, by quadrature). */
+export const potentialKernel = squarePotential;
+/** a(x1, x2) on the triangular lattice in axial coordinates (worker/lattice/potential-kernel.ts). */
+export const triangularPotentialKernel = triangularPotential;
 
 /** Harmonic measure from infinity of the sites of A (given as [x, y] pairs), by solving the equilibrium equations. */
 export function harmonicMeasureFromInfinity(a: [number, number][], kernel: (x1: number, x2: number) => number = potentialKernel): number[] {

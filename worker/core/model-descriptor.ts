@@ -68,9 +68,12 @@ export interface ModelReference {
 /**
  * How a cluster of this model is probed for its harmonic measure:
  * 'disks-2d' = walkers from infinity onto disks of one particle diameter
- * about the centres (worker/probe/probe-2d.ts).
+ * about the centres (worker/probe/probe-2d.ts); 'lattice-sites' = the
+ * lattice's own walkers from infinity onto the perimeter sites of the
+ * cluster's sites (worker/probe/probe-lattice.ts; the model's `lattice`
+ * names the lattice).
  */
-export type ProbeKind = 'disks-2d';
+export type ProbeKind = 'disks-2d' | 'lattice-sites';
 /**
  * How a cluster of this model is drawn: 'disks' = every particle as a disk
  * of its diameter coloured by arrival order (coordinator/render/cluster-picture.ts;

@@ -5,4 +5,10 @@ export interface DiskSet {
   y: ArrayLike<number>;
   /** Contact radius of every disk (a number) or per disk. */
   r: number | ArrayLike<number>;
+  /**
+   * Set only for the clusters of lattice models: the centres are sites of
+   * this lattice (spacing 1) and the set is probed by lattice walkers
+   * (worker/probe/probe-lattice.ts); r is then not used.
+   */
+  lattice?: 'square' | 'triangular';
 }

@@ -10,7 +10,8 @@
  *                   refused: the job or its set is invalid (a RangeError), so a retry cannot succeed
  */
 import { parentPort, workerData } from 'node:worker_threads';
-import { ProbeGeometry, runProbeJob, type DiskSet, type ProbeResult, type ProbeTask } from '../probe/probe-2d.js';
+import type { DiskSet, ProbeResult, ProbeTask } from '../probe/probe-2d.js';
+import { probeGeometryOf, runPlanarProbeJob, type PlanarProbeGeometry } from '../probe/probe-dispatch.js';
 import { messageOf } from '../../proto/errors.js';
 
 export type ToProbeThread = { type: 'probe'; id: number; key: string; set?: DiskSet; task: ProbeTask };
@@ -22,17 +23,17 @@ export const PROBE_THREAD_ROLE = 'tendril-probe';
 if (parentPort && (workerData as { role?: string } | null)?.role === PROBE_THREAD_ROLE) {
   const port = parentPort;
   let heldKey: string | null = null;
-  let held: ProbeGeometry | null = null;
+  let held: PlanarProbeGeometry | null = null;
   port.on('message', (m: ToProbeThread) => {
     try {
       if (m.set) {
         held = null;
         heldKey = null;
-        held = new ProbeGeometry(m.set);
+        held = probeGeometryOf(m.set);
         heldKey = m.key;
       }
       if (held === null || heldKey !== m.key) throw new Error(`probe thread holds no geometry for "${m.key}"`);
-      const result = runProbeJob(held, m.task);
+      const result = runPlanarProbeJob(held, m.task);
       port.postMessage({ type: 'done', id: m.id, result } satisfies FromProbeThread);
     } catch (err) {
       port.postMessage({ type: 'failed', id: m.id, message: messageOf(err), refused: err instanceof RangeError } satisfies FromProbeThread);

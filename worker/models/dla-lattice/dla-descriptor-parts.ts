@@ -31,7 +31,7 @@ export const LATTICE_DLA_PARTS: Omit<ModelDescriptor, 'kind' | 'lattice' | 'defi
   ],
   workCounter: 'jumps',
   observables: PLANAR_ANISOTROPY_OBSERVABLES,
-  probe: null,
+  probe: 'lattice-sites',
   picture: 'disks',
   contactDistance: 1,
   reference: {

@@ -13,7 +13,7 @@ export const edenTriangular: ModelDescriptor = {
   counters: [{ name: 'perimeter_sites', meaning: 'number of perimeter sites (empty sites next to the cluster) at the end' }],
   workCounter: null,
   observables: EDEN_OBSERVABLES,
-  probe: null,
+  probe: 'lattice-sites',
   picture: 'disks',
   contactDistance: 1,
   reference: EDEN_REFERENCE,
