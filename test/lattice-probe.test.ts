@@ -8,6 +8,10 @@
  * checked for disks in test/probe-ensemble.test.ts.
  */
 import { describe, expect, it } from 'vitest';
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { runProbes } from '../coordinator/harmonic/probe-run.js';
 import { analyseProbedCluster, clusterPrefix, prefixDigest, probeTasksOf } from '../coordinator/harmonic/ensemble-probing.js';
 import { runEmbedded } from '../coordinator/embedded/index.js';
@@ -167,4 +171,35 @@ describe('lattice models in ensembles with a [probe] table', () => {
       expect(out.picture!.x.length).toBe(out.picture!.counts.length);
     });
   }
+});
+
+describe('tendril probe --lattice', () => {
+  const CLI = join(process.cwd(), 'dist/coordinator/cli.js');
+  const tendril = (args: string[]) => spawnSync(process.execPath, [CLI, ...args], { encoding: 'utf8' });
+  it('probes a lattice snapshot on its perimeter sites, and refuses a bad lattice name or a CSV in one line', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'tendril-lattice-probe-'));
+    try {
+      const g = tendril(['grow', '--model', 'eden-square', '--particles', '300', '--seed', '2', '--out', join(dir, 'g'), '--quiet']);
+      expect(g.status, g.stderr).toBe(0);
+      const snap = join(dir, 'g', 'cluster.snapshot');
+      const p = tendril(['probe', snap, '--lattice', 'square', '--walkers', '3000', '--seed', '1', '--out', join(dir, 'p'), '--q-grid', '0:3:1']);
+      expect(p.status, p.stderr).toBe(0);
+      const m = JSON.parse(readFileSync(join(dir, 'p', 'probe-measures.json'), 'utf8'));
+      expect(m.input).toMatchObject({ kind: 'snapshot', disks: 300, lattice: 'square' });
+      const hits = readFileSync(join(dir, 'p', 'probe-hits.csv'), 'utf8').trim().split('\n').slice(1);
+      expect(hits.length).toBe(m.input.perimeterSites);
+      expect(hits.reduce((s, line) => s + Number(line.split(',')[4]), 0)).toBe(3000);
+      expect(m.capacity.set).toContain('lattice');
+      const bad = tendril(['probe', snap, '--lattice', 'hexagonal', '--walkers', '1000', '--seed', '1', '--out', join(dir, 'q')]);
+      expect(bad.status).toBe(2);
+      expect(bad.stderr.trim()).toBe('tendril: --lattice: "hexagonal" is not allowed; allowed: square, triangular');
+      const csv = join(dir, 'set.csv');
+      writeFileSync(csv, 'x,y,r\n0,0,1\n1,0,1\n');
+      const onCsv = tendril(['probe', csv, '--lattice', 'square', '--walkers', '1000', '--seed', '1', '--out', join(dir, 'r')]);
+      expect(onCsv.status).toBe(2);
+      expect(onCsv.stderr.trim().split('\n')).toHaveLength(1);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
 });
