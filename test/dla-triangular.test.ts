@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { chi2Critical999, chiSquare } from './support/chi-square.js';
 import { createKernel, modelParams } from '../worker/models/registry.js';
 import type { GrowthCheckpoint, GrowthKernel, GrowthTask } from '../worker/core/growth-kernel.js';
 import { Random } from '../worker/core/random.js';
@@ -18,17 +19,6 @@ function grown(task: GrowthTask): GrowthKernel {
   return k;
 }
 
-function chiSquare(counts: number[], probs: number[], total: number): number {
-  let s = 0;
-  for (let i = 0; i < counts.length; i++) s += (counts[i] - total * probs[i]) ** 2 / (total * probs[i]);
-  return s;
-}
-
-/** Upper 0.001 point of chi-square(k) by the Wilson–Hilferty approximation (Wilson & Hilferty 1931, PNAS 17, 684; from memory). */
-function chi2Critical999(k: number): number {
-  const z = 3.0902;
-  return k * (1 - 2 / (9 * k) + z * Math.sqrt(2 / (9 * k))) ** 3;
-}
 
 const hexDistance = (i: number, j: number) => Math.max(Math.abs(i), Math.abs(j), Math.abs(i + j));
 

@@ -8,6 +8,7 @@
  * checked for disks in test/probe-ensemble.test.ts.
  */
 import { describe, expect, it } from 'vitest';
+import { chi2Critical999, chiSquare } from './support/chi-square.js';
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -25,17 +26,6 @@ import { probeGeometryOf, probedPointsOf, runPlanarProbeJob } from '../worker/pr
 import type { DiskSet } from '../worker/probe/disk-set.js';
 import { harmonicMeasureFromInfinity } from './support/lattice-potential.js';
 
-function chiSquare(counts: ArrayLike<number>, probs: number[], total: number): number {
-  let s = 0;
-  for (let i = 0; i < probs.length; i++) s += (counts[i] - total * probs[i]) ** 2 / (total * probs[i]);
-  return s;
-}
-
-/** Upper 0.001 point of chi-square(k) by the Wilson–Hilferty approximation (Wilson & Hilferty 1931, PNAS 17, 684; from memory). */
-function chi2Critical999(k: number): number {
-  const z = 3.0902;
-  return k * (1 - 2 / (9 * k) + z * Math.sqrt(2 / (9 * k))) ** 3;
-}
 
 /** A set of lattice sites (axial coordinates) as plane centres. */
 function latticeSet(lattice: PlanarLattice, sites: [number, number][]): DiskSet {
