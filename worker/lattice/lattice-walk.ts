@@ -97,7 +97,7 @@ export class LatticeWalk {
       let e = this.freeLevel(x, y);
       // radial bound: lattice distance >= (|w| − R_max) · perUnit, so a square (hexagon) of half-width floor(that) − 1 is free
       const byRadius = Math.floor((Math.sqrt(r2) - rMax) * perUnit) - 1;
-      while (e < maxLevel && 2 ** (e + 1) <= byRadius) e++;
+      while (e < maxLevel && 2 << e <= byRadius) e++; // 2 << e = 2^(e + 1), e <= maxLevel <= 10
       if (e >= 1) {
         if (tri) {
           sampleHexExit(e, rng);

@@ -74,7 +74,7 @@ export const exit = { dx: 0, dy: 0 };
 
 /** Sample the exit site of the square of half-width 2^e from its centre into `exit`. */
 export function sampleExit(e: number, rng: Random): void {
-  const L = 2 ** e;
+  const L = 1 << e; // 2^e, e <= MAX_EXIT_LEVEL
   const side = rng.nextInt32() & 3;
   let k = 0;
   if (L > 1) {
