@@ -35,6 +35,34 @@ function exitSites(L: number): { key: string[]; p: number[] } {
 }
 
 describe('square-lattice exit tables (exact first passage from the centre of a square)', () => {
+  it('sampleExit picks the same site as a binary search of the cumulative law for the same draws (guide-table search)', () => {
+    for (const e of [1, 4, 10]) {
+      const L = 2 ** e;
+      const p = sideExitLaw(L);
+      const c = new Float64Array(p.length);
+      let s = 0;
+      p.forEach((v, i) => (c[i] = s += Math.max(0, v)));
+      c.forEach((v, i) => (c[i] = v / s));
+      c[c.length - 1] = 1;
+      const a = Random.forRun('5', e, 3);
+      const b = Random.fromState(a.state());
+      for (let t = 0; t < 20_000; t++) {
+        sampleExit(e, a);
+        const side = b.nextInt32() & 3;
+        const u = b.nextDouble();
+        let lo = 0;
+        let hi = c.length - 1;
+        while (lo < hi) {
+          const mid = (lo + hi) >> 1;
+          if (c[mid] > u) hi = mid;
+          else lo = mid + 1;
+        }
+        const k = lo - (L - 1);
+        expect([exit.dx, exit.dy]).toEqual([[L, k], [-L, k], [k, L], [k, -L]][side]);
+      }
+    }
+  });
+
   it('sum to 1 and match hand-computed values (exact: L = 1 and L = 2 by first-step analysis)', () => {
     for (let e = 0; e <= 10; e++) {
       const p = sideExitLaw(2 ** e);

@@ -23,8 +23,9 @@
  * test/dla-square.test.ts).
  *
  * Tables for L = 2^e, e = 0 … MAX_EXIT_LEVEL, are built on first use and
- * cached; sampling picks a side from 2 random bits and k by binary search in
- * the cumulative table with one 53-bit uniform (L = 1 is the plain step).
+ * cached; sampling picks a side from 2 random bits and k as the first entry
+ * of the cumulative table above one 53-bit uniform (found from a guide
+ * table: the same index a binary search gives; L = 1 is the plain step).
  */
 import type { Random } from '../core/random.js';
 
@@ -65,8 +66,33 @@ function tableOf(e: number): Float64Array {
     for (let i = 0; i < c.length; i++) c[i] /= s;
     c[c.length - 1] = 1;
     cumulative[e] = c;
+    // guide[b]: the smallest index with c > b / G (G = c.length), a starting point for the search
+    const G = c.length;
+    const g = new Int32Array(G);
+    for (let b = 0, i = 0; b < G; b++) {
+      while (i < G - 1 && c[i] <= b / G) i++;
+      g[b] = i;
+    }
+    guides[e] = g;
   }
   return c;
+}
+
+/** Guide tables of the cumulative tables, by level (see tableOf). */
+const guides: (Int32Array | undefined)[] = [];
+
+/**
+ * The smallest index i with c[i] > u (c nondecreasing, last entry 1, 0 <= u < 1):
+ * start at the guide entry of u and walk up while c[i] <= u, then down while
+ * c[i − 1] > u. The two walks make the result exactly that of a binary
+ * search whatever the starting point (rounding in u·G cannot change it);
+ * the guide makes them short (about one step).
+ */
+function firstAbove(c: Float64Array, g: Int32Array, u: number): number {
+  let i = g[Math.min(g.length - 1, Math.floor(u * g.length))];
+  while (c[i] <= u && i < c.length - 1) i++;
+  while (i > 0 && c[i - 1] > u) i--;
+  return i;
 }
 
 /** Offset of the exit site from the centre, written by `sampleExit`. */
@@ -80,14 +106,7 @@ export function sampleExit(e: number, rng: Random): void {
   if (L > 1) {
     const c = tableOf(e);
     const u = rng.nextDouble();
-    let lo = 0;
-    let hi = c.length - 1;
-    while (lo < hi) {
-      const mid = (lo + hi) >> 1;
-      if (c[mid] > u) hi = mid;
-      else lo = mid + 1;
-    }
-    k = lo - (L - 1);
+    k = firstAbove(c, guides[e]!, u) - (L - 1);
   }
   switch (side) {
     case 0:
