@@ -1,13 +1,14 @@
 /** `tendril list`, `tendril status ID`, `tendril cancel ID`, `tendril summary ID`. */
 import { writeFile } from 'node:fs/promises';
 import type { Command } from 'commander';
-import type { EnsembleStatus, EnsembleStore } from '../farm/store.js';
+import { ensembleIds, readEnsembleStatus, type EnsembleStatus, type StatusReader } from '../farm/ensemble-status.js';
 import { formatDuration, formatRate } from '../progress/index.js';
 import { CSV_TABLE_NAMES, SUMMARY_FORMATS, type SummaryFormat } from '../summary/formats.js';
 import { UsageError } from '../usage-error.js';
 import { addAnalysisOptions, type AnalysisCliOptions } from './analysis-options.js';
-import { addFarmOptions, openFarm, type FarmCliOptions } from './farm-options.js';
-// the queue, the statistics and the report load only in the commands that use them (start-up time of list/status)
+import { addFarmOptions, openFarm, openReader, openStore, type FarmCliOptions } from './farm-options.js';
+// list and status read through the small Redis reader; ioredis, the queue, the spec validator, the protobuf code,
+// the statistics and the report load only in the commands that use them (start-up time: test/cli-startup.test.ts)
 
 /**
  * One line of an ensemble's state. Parts are joined with "; " and only
@@ -31,8 +32,8 @@ export function statusLine(s: EnsembleStatus): string {
   return parts.join('; ');
 }
 
-async function requireStatus(store: EnsembleStore, id: string): Promise<EnsembleStatus> {
-  const s = await store.status(id);
+export async function requireStatus(reader: StatusReader, prefix: string, id: string): Promise<EnsembleStatus> {
+  const s = await readEnsembleStatus(reader, prefix, id);
   if (!s) throw new UsageError(`ensemble id: "${id}" is not known to this farm`);
   return s;
 }
@@ -41,31 +42,31 @@ export function register(program: Command): void {
   addFarmOptions(program.command('list').description('list the newest ensembles on the farm with their state'))
     .option('--json', 'print JSON instead of lines')
     .action(async (opts: FarmCliOptions & { json?: boolean }) => {
-      const farm = await openFarm(opts);
+      const farm = await openReader(opts);
       try {
         const all: EnsembleStatus[] = [];
-        for (const id of await farm.store.ids(100)) {
-          const s = await farm.store.status(id);
+        for (const id of await ensembleIds(farm.reader, farm.prefix, 100)) {
+          const s = await readEnsembleStatus(farm.reader, farm.prefix, id);
           if (s) all.push(s);
         }
         if (opts.json) process.stdout.write(JSON.stringify(all, null, 2) + '\n');
         else if (all.length === 0) process.stdout.write('no ensembles\n');
         else for (const s of all) process.stdout.write(statusLine(s) + '\n');
       } finally {
-        await farm.close();
+        farm.close();
       }
     });
 
   addFarmOptions(program.command('status').description("one ensemble's runs by state, particles done, throughput and remaining time").argument('<id>', 'ensemble id'))
     .option('--json', 'print JSON instead of a line')
     .action(async (id: string, opts: FarmCliOptions & { json?: boolean }) => {
-      const farm = await openFarm(opts);
+      const farm = await openReader(opts);
       try {
-        const s = await requireStatus(farm.store, id);
+        const s = await requireStatus(farm.reader, farm.prefix, id);
         process.stdout.write(opts.json ? JSON.stringify(s, null, 2) + '\n' : statusLine(s) + '\n');
         for (const f of opts.json ? [] : s.failures) process.stdout.write(`  run ${f.runIndex} failed: ${f.reason}\n`);
       } finally {
-        await farm.close();
+        farm.close();
       }
     });
 
@@ -110,11 +111,11 @@ export function register(program: Command): void {
     const [{ farmSummary }, { defaultSummaryOptions, renderSummary }, { describeAnalysis, writeSummaryFiles }, { analysisSettingsFromCli }] = await Promise.all([
       import('../farm/summary.js'), import('../summary/index.js'), import('./summary-files.js'), import('./analysis-options.js'),
     ]);
-    const farm = await openFarm(opts);
+    const farm = await openStore(opts);
     try {
       const rec = await farm.store.get(id);
       if (!rec) throw new UsageError(`ensemble id: "${id}" is not known to this farm`);
-      const analysis = analysisSettingsFromCli(rec.spec.analysis, opts);
+      const analysis = await analysisSettingsFromCli(rec.spec.analysis, opts);
       const got = (await farmSummary(farm.store, id, defaultSummaryOptions(analysis)))!;
       if (opts.format === 'tables' || opts.format === 'html') {
         const html = opts.format === 'html';
