@@ -1,5 +1,8 @@
 /** `tendril list`, `tendril status ID`, `tendril cancel ID`, `tendril summary ID`. */
+import { existsSync } from 'node:fs';
 import { writeFile } from 'node:fs/promises';
+import type { RunResultData } from '../../proto/convert.js';
+import type { EnsembleSpec } from '../spec/index.js';
 import type { Command } from 'commander';
 import { ensembleIds, readEnsembleStatus, type EnsembleStatus, type StatusReader } from '../farm/ensemble-status.js';
 import { formatDuration, formatRate } from '../progress/index.js';
@@ -36,6 +39,19 @@ export async function requireStatus(reader: StatusReader, prefix: string, id: st
   const s = await readEnsembleStatus(reader, prefix, id);
   if (!s) throw new UsageError(`ensemble id: "${id}" is not known to this farm`);
   return s;
+}
+
+/** The report's pictures from the workers' artifact folder (coordinator/commands/report-pictures.ts). */
+async function farmReportPictures(id: string, spec: EnsembleSpec, results: readonly RunResultData[], folder: string | undefined) {
+  const [{ reportPictures }, { DirectoryArtifactStore }] = await Promise.all([import('./report-pictures.js'), import('../farm/artifacts.js')]);
+  if (folder !== undefined && !existsSync(folder)) throw new UsageError(`--artifacts: "${folder}" does not exist; allowed: the workers' artifact folder`);
+  return reportPictures({
+    ensembleId: id,
+    spec,
+    results,
+    artifacts: folder !== undefined ? new DirectoryArtifactStore(folder) : null,
+    noStoreHint: "give the workers' artifact folder with --artifacts DIR or TENDRIL_ARTIFACTS",
+  });
 }
 
 export function register(program: Command): void {
@@ -100,9 +116,10 @@ export function register(program: Command): void {
         .argument('<id>', 'ensemble id')
         .option('--format <format>', 'json, csv, pb, tables (a folder of CSV files) or html (report.html with plots, into a folder)', 'json')
         .option('--table <name>', `CSV table for --format csv: ${CSV_TABLE_NAMES.join(', ')}`, 'series')
-        .option('--out <path>', 'file (json, csv, pb) or folder (tables, html); default standard output for json and csv'),
+        .option('--out <path>', 'file (json, csv, pb) or folder (tables, html); default standard output for json and csv')
+        .option('--artifacts <dir>', "the workers' artifact folder, where --format html finds the sample cluster and the harmonic-measure picture (default: TENDRIL_ARTIFACTS)"),
     ),
-  ).action(async (id: string, opts: FarmCliOptions & AnalysisCliOptions & { format: string; table: string; out?: string }) => {
+  ).action(async (id: string, opts: FarmCliOptions & AnalysisCliOptions & { format: string; table: string; out?: string; artifacts?: string }) => {
     const formats = [...SUMMARY_FORMATS, 'tables', 'html'];
     if (!formats.includes(opts.format)) throw new UsageError(`--format: "${opts.format}" is not allowed; allowed: ${formats.join(', ')}`);
     if (!CSV_TABLE_NAMES.includes(opts.table)) throw new UsageError(`--table: "${opts.table}" is not allowed; allowed: ${CSV_TABLE_NAMES.join(', ')}`);
@@ -119,7 +136,10 @@ export function register(program: Command): void {
       const got = (await farmSummary(farm.store, id, defaultSummaryOptions(analysis)))!;
       if (opts.format === 'tables' || opts.format === 'html') {
         const html = opts.format === 'html';
-        const written = await writeSummaryFiles(opts.out!, got.summary, got.results, rec.spec, { report: html, json: html, tables: true, ensembleId: id });
+        const pictures = html ? await farmReportPictures(id, rec.spec, got.results, opts.artifacts ?? process.env.TENDRIL_ARTIFACTS) : null;
+        const written = await writeSummaryFiles(opts.out!, got.summary, got.results, rec.spec, {
+          report: html, json: html, tables: true, ensembleId: id, sampleCluster: pictures?.sampleCluster, measurePicture: pictures?.measurePicture, pictureNotes: pictures?.notes,
+        });
         process.stdout.write(describeAnalysis(got.summary) + `wrote ${written.join(', ')} into ${opts.out}\n`);
         return;
       }

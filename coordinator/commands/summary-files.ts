@@ -24,6 +24,8 @@ export interface SummaryFilesOptions {
   sampleCluster?: SampleClusterInput;
   /** A probed cluster coloured by harmonic measure, for the report. */
   measurePicture?: { runIndex: number; size: number; png: Uint8Array };
+  /** Why a picture is missing (coordinator/commands/report-pictures.ts). */
+  pictureNotes?: { sampleCluster?: string; measurePicture?: string };
 }
 
 /** Writes the files and returns their names relative to `dir`. */
@@ -49,7 +51,7 @@ export async function writeSummaryFiles(
   }
   const analysis = analysisOf(s);
   if ((o.report ?? true) && analysis) {
-    const files = await writeEnsembleReport(dir, { analysis, runs, spec, sampleCluster: o.sampleCluster, measurePicture: o.measurePicture, ensembleId: o.ensembleId ?? s.ensembleId, title: s.partial ? `${s.name} (partial: ${s.clustersDone} of ${s.clustersPlanned} clusters)` : undefined });
+    const files = await writeEnsembleReport(dir, { analysis, runs, spec, sampleCluster: o.sampleCluster, measurePicture: o.measurePicture, pictureNotes: o.pictureNotes, ensembleId: o.ensembleId ?? s.ensembleId, title: s.partial ? `${s.name} (partial: ${s.clustersDone} of ${s.clustersPlanned} clusters)` : undefined });
     written.push('report.html', `plots/ (${files.svgs.length} SVG, ${files.pngs.length} PNG)`);
   }
   return written;

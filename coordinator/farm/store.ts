@@ -152,7 +152,7 @@ export class EnsembleStore implements RunSink {
     return {
       id,
       name: h.name ?? '',
-      spec: validateSpec(JSON.parse(h.spec), { maxTotalParticles: Number.MAX_SAFE_INTEGER }),
+      spec: validateSpec(JSON.parse(h.spec), { maxTotalParticles: Number.MAX_SAFE_INTEGER }, { stored: true }),
       createdAtMs: Number(h.created_at_ms ?? 0),
       jobs: Number(h.jobs ?? 0),
       cancelled: h.cancelled === '1',

@@ -48,6 +48,8 @@ export interface ReportInput {
    * coordinator/harmonic/measure-picture.ts), shown in the harmonic section.
    */
   measurePicture?: MeasurePictureInput;
+  /** Why a picture is missing (coordinator/commands/report-pictures.ts), said in the notes instead of "was not given". */
+  pictureNotes?: { sampleCluster?: string; measurePicture?: string };
   /** Page title; default from the spec name or the model kind. */
   title?: string;
   /** Ensemble id, shown in the header when given. */
@@ -395,7 +397,7 @@ export function buildEnsembleReport(input: ReportInput): { html: string; figures
     } catch (e) {
       notes.push(`no sample cluster picture: ${(e as Error).message}`);
     }
-  } else notes.push('no sample cluster was given: no cluster picture');
+  } else notes.push(input.pictureNotes?.sampleCluster ?? 'no sample cluster was given: no cluster picture');
   const harmonic = a.harmonic ?? null;
   const harmonicFigs: Figure[] = [];
   if (harmonic) {
@@ -404,7 +406,7 @@ export function buildEnsembleReport(input: ReportInput): { html: string; figures
       const pic = measurePictureFigure(input.measurePicture);
       harmonicFigs.push(pic);
       if (!pic.note) extraPngs.push({ name: 'harmonic-measure-raster', png: Buffer.from(input.measurePicture.png) });
-    } else notes.push('no harmonic measure picture was given');
+    } else notes.push(input.pictureNotes?.measurePicture ?? 'no harmonic measure picture was given');
   } else if (input.measurePicture) notes.push('a harmonic measure picture was given but the statistics have no harmonic section: not shown');
   for (const f of [...figures, ...harmonicFigs]) if (f.note) notes.push(`figure ${f.name}: ${f.note}`);
 
