@@ -136,7 +136,7 @@ export function register(program: Command): void {
       const got = (await farmSummary(farm.store, id, defaultSummaryOptions(analysis)))!;
       if (opts.format === 'tables' || opts.format === 'html') {
         const html = opts.format === 'html';
-        const pictures = html ? await farmReportPictures(id, rec.spec, got.results, opts.artifacts ?? process.env.TENDRIL_ARTIFACTS) : null;
+        const pictures = html ? await farmReportPictures(id, rec.spec, got.results, opts.artifacts ?? (process.env.TENDRIL_ARTIFACTS || undefined)) : null;
         const written = await writeSummaryFiles(opts.out!, got.summary, got.results, rec.spec, {
           report: html, json: html, tables: true, ensembleId: id, sampleCluster: pictures?.sampleCluster, measurePicture: pictures?.measurePicture, pictureNotes: pictures?.notes,
         });
