@@ -17,7 +17,8 @@ import { finalKey, hitsKey } from '../../worker/runtime/job-contract.js';
 import { createKernel } from '../../worker/models/registry.js';
 import type { ArtifactStore } from '../farm/artifacts.js';
 import { CLUSTER_CONTACT_RADIUS, positionsOf } from '../harmonic/ensemble-probing.js';
-import { renderMeasurePng } from '../harmonic/measure-picture.js';
+import { measurePictureGeometry, renderMeasurePng } from '../harmonic/measure-picture.js';
+import type { MeasurePictureInput } from '../report/harmonic-plots.js';
 import { runTaskFor } from '../plan.js';
 import { noPictureReason, picturePointsOf } from '../render/model-picture.js';
 import type { SampleClusterInput } from '../report/index.js';
@@ -28,7 +29,7 @@ export const REGROW_MAX_PARTICLES = 200_000;
 
 export interface ReportPictures {
   sampleCluster?: SampleClusterInput;
-  measurePicture?: { runIndex: number; size: number; png: Uint8Array };
+  measurePicture?: MeasurePictureInput;
   /** Why a picture is missing, shown in the report's notes. */
   notes: { sampleCluster?: string; measurePicture?: string };
 }
@@ -43,6 +44,12 @@ export interface ReportPictureSource {
   noStoreHint?: string;
   /** A measure picture already at hand (embedded mode probed it in this invocation). */
   measurePicture?: ReportPictures['measurePicture'];
+}
+
+/** A probed cluster (particles of diameter 1) coloured by harmonic measure, with its scale in particle diameters. */
+export function clusterMeasurePicture(runIndex: number, size: number, x: Float64Array, y: Float64Array, counts: ArrayLike<number>): MeasurePictureInput {
+  const r = CLUSTER_CONTACT_RADIUS / 2;
+  return { runIndex, size, png: renderMeasurePng(size, x, y, r, counts), scale: { pixelsPerUnit: measurePictureGeometry(size, x, y, r).scale, unit: 'particle diameters' } };
 }
 
 const HOW_KEPT = 'final positions are kept for specs with [positions] or [probe]';
@@ -95,7 +102,7 @@ export async function reportPictures(src: ReportPictureSource): Promise<ReportPi
     const pos = positionsOf(decodeCheckpoint(fin));
     const counts = new Float64Array(Uint8Array.from(hits).buffer);
     if (counts.length !== size || pos.count !== size) continue;
-    out.measurePicture = { runIndex: run.runIndex, size, png: renderMeasurePng(size, axisOf(pos, 0, size), axisOf(pos, 1, size), CLUSTER_CONTACT_RADIUS / 2, counts) };
+    out.measurePicture = clusterMeasurePicture(run.runIndex, size, axisOf(pos, 0, size), axisOf(pos, 1, size), counts);
     return out;
   }
   out.notes.measurePicture = `no harmonic measure picture: no run has both its final positions and its probe hits in the artifact store (runs ${runs.length > 0 ? `${runs[0].runIndex}…${runs[runs.length - 1].runIndex}` : 'none'} looked at; the probes may still be running)`;

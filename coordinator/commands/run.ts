@@ -14,11 +14,9 @@ import { newEnsembleId } from '../plan.js';
 import { specToDocument } from '../spec/index.js';
 import { buildSummary, defaultSummaryOptions } from '../summary/index.js';
 import { UsageError } from '../usage-error.js';
-import { renderMeasurePng } from '../harmonic/measure-picture.js';
-import { CLUSTER_CONTACT_RADIUS } from '../harmonic/ensemble-probing.js';
 import { addAnalysisOptions, analysisSettingsFromCli, type AnalysisCliOptions } from './analysis-options.js';
 import { describeAnalysis, writeSummaryFiles } from './summary-files.js';
-import { reportPictures } from './report-pictures.js';
+import { clusterMeasurePicture, reportPictures } from './report-pictures.js';
 import { loadSpecFile, positiveInt } from './spec-file.js';
 import { checkOutFolder, makeOutFolder } from './out-folder.js';
 
@@ -89,11 +87,7 @@ export function register(program: Command): void {
                 results: outcome.results,
                 artifacts: state,
                 measurePicture: outcome.picture
-                  ? {
-                      runIndex: outcome.picture.runIndex,
-                      size: outcome.picture.size,
-                      png: renderMeasurePng(outcome.picture.size, outcome.picture.x, outcome.picture.y, CLUSTER_CONTACT_RADIUS / 2, outcome.picture.counts),
-                    }
+                  ? clusterMeasurePicture(outcome.picture.runIndex, outcome.picture.size, outcome.picture.x, outcome.picture.y, outcome.picture.counts)
                   : undefined,
               })
             : null;
