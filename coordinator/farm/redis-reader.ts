@@ -20,9 +20,6 @@ interface Pending {
   reject: (e: Error) => void;
 }
 
-/** A Redis error reply (WRONGPASS, NOAUTH, WRONGTYPE...). */
-export class RedisReplyError extends Error {}
-
 /** Parse one RESP2 reply of `buf` from `at`; undefined while incomplete. */
 function parseReply(buf: Buffer, at: number): { value: Reply | Error; next: number } | undefined {
   const eol = buf.indexOf('\r\n', at);
@@ -34,7 +31,8 @@ function parseReply(buf: Buffer, at: number): { value: Reply | Error; next: numb
     case '+':
       return { value: line, next: after };
     case '-':
-      return { value: new RedisReplyError(line), next: after };
+      // the server's error reply (WRONGPASS, NOAUTH, WRONGTYPE...), relayed as ioredis relays it
+      return { value: new Error(line), next: after };
     case ':':
       return { value: Number(line), next: after };
     case '$': {
