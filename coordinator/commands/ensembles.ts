@@ -9,7 +9,7 @@ import { formatDuration, formatRate } from '../progress/index.js';
 import { CSV_TABLE_NAMES, SUMMARY_FORMATS, type SummaryFormat } from '../summary/formats.js';
 import { UsageError } from '../usage-error.js';
 import { addAnalysisOptions, type AnalysisCliOptions } from './analysis-options.js';
-import { addFarmOptions, openFarm, openReader, openStore, type FarmCliOptions } from './farm-options.js';
+import { addFarmOptions, openFarm, openReader, type FarmCliOptions } from './farm-options.js';
 // list and status read through the small Redis reader; ioredis, the queue, the spec validator, the protobuf code,
 // the statistics and the report load only in the commands that use them (start-up time: test/cli-startup.test.ts)
 
@@ -128,12 +128,15 @@ export function register(program: Command): void {
     const [{ farmSummary }, { defaultSummaryOptions, renderSummary }, { describeAnalysis, writeSummaryFiles }, { analysisSettingsFromCli }] = await Promise.all([
       import('../farm/summary.js'), import('../summary/index.js'), import('./summary-files.js'), import('./analysis-options.js'),
     ]);
-    const farm = await openStore(opts);
+    // read through the small RESP client: the summary needs no ioredis (start-up time)
+    const farm = await openReader(opts);
+    const { EnsembleReader } = await import('../farm/ensemble-reader.js');
+    const store = new EnsembleReader(farm.reader, farm.prefix);
     try {
-      const rec = await farm.store.get(id);
+      const rec = await store.get(id);
       if (!rec) throw new UsageError(`ensemble id: "${id}" is not known to this farm`);
       const analysis = await analysisSettingsFromCli(rec.spec.analysis, opts);
-      const got = (await farmSummary(farm.store, id, defaultSummaryOptions(analysis)))!;
+      const got = (await farmSummary(store, id, defaultSummaryOptions(analysis)))!;
       if (opts.format === 'tables' || opts.format === 'html') {
         const html = opts.format === 'html';
         const pictures = html ? await farmReportPictures(id, rec.spec, got.results, opts.artifacts ?? (process.env.TENDRIL_ARTIFACTS || undefined)) : null;
@@ -147,7 +150,7 @@ export function register(program: Command): void {
       if (opts.out) await writeFile(opts.out, bytes);
       else process.stdout.write(bytes);
     } finally {
-      await farm.close();
+      farm.close();
     }
   });
 }

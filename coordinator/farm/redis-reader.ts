@@ -11,17 +11,19 @@
  */
 import { connect as netConnect, isIP, type Socket } from 'node:net';
 import { connect as tlsConnect } from 'node:tls';
-import type { StatusReader } from './ensemble-status.js';
+import type { StoreReads } from './ensemble-reader.js';
 
-type Reply = string | number | null | Reply[];
+type Reply = string | Buffer | number | null | Reply[];
 
 interface Pending {
+  /** Bulk strings as bytes (HGETALL of protobuf values). */
+  raw: boolean;
   resolve: (r: Reply) => void;
   reject: (e: Error) => void;
 }
 
 /** Parse one RESP2 reply of `buf` from `at`; undefined while incomplete. */
-function parseReply(buf: Buffer, at: number): { value: Reply | Error; next: number } | undefined {
+function parseReply(buf: Buffer, at: number, raw: boolean): { value: Reply | Error; next: number } | undefined {
   const eol = buf.indexOf('\r\n', at);
   if (eol < 0) return undefined;
   const type = String.fromCharCode(buf[at]);
@@ -39,7 +41,7 @@ function parseReply(buf: Buffer, at: number): { value: Reply | Error; next: numb
       const n = Number(line);
       if (n < 0) return { value: null, next: after };
       if (buf.length < after + n + 2) return undefined;
-      return { value: buf.toString('utf8', after, after + n), next: after + n + 2 };
+      return { value: raw ? Buffer.from(buf.subarray(after, after + n)) : buf.toString('utf8', after, after + n), next: after + n + 2 };
     }
     case '*': {
       const n = Number(line);
@@ -47,7 +49,7 @@ function parseReply(buf: Buffer, at: number): { value: Reply | Error; next: numb
       const items: Reply[] = [];
       let next = after;
       for (let i = 0; i < n; i++) {
-        const item = parseReply(buf, next);
+        const item = parseReply(buf, next, raw);
         if (!item) return undefined;
         if (item.value instanceof Error) return { value: item.value, next: item.next };
         items.push(item.value);
@@ -66,7 +68,7 @@ function encodeCommand(args: string[]): Buffer {
   return Buffer.from(parts.join(''));
 }
 
-export class RedisReader implements StatusReader {
+export class RedisReader implements StoreReads {
   private pending: Pending[] = [];
   private buf: Buffer = Buffer.alloc(0);
   private failure: Error | null = null;
@@ -110,11 +112,23 @@ export class RedisReader implements StatusReader {
   }
 
   command(...args: string[]): Promise<Reply> {
+    return this.send(false, args);
+  }
+
+  private send(raw: boolean, args: string[]): Promise<Reply> {
     if (this.failure) return Promise.reject(this.failure);
     return new Promise<Reply>((resolve, reject) => {
-      this.pending.push({ resolve, reject });
+      this.pending.push({ raw, resolve, reject });
       this.socket.write(encodeCommand(args));
     });
+  }
+
+  /** HGETALL with the values as bytes (field names decoded). */
+  async hgetallBuffer(key: string): Promise<Record<string, Buffer>> {
+    const flat = (await this.send(true, ['HGETALL', key])) as Buffer[];
+    const out: Record<string, Buffer> = {};
+    for (let i = 0; i + 1 < flat.length; i += 2) out[flat[i].toString('utf8')] = flat[i + 1];
+    return out;
   }
 
   async hgetall(key: string): Promise<Record<string, string>> {
@@ -147,7 +161,7 @@ export class RedisReader implements StatusReader {
     for (;;) {
       let r: ReturnType<typeof parseReply>;
       try {
-        r = at < this.buf.length ? parseReply(this.buf, at) : undefined;
+        r = at < this.buf.length ? parseReply(this.buf, at, this.pending[0]?.raw ?? false) : undefined;
       } catch (err) {
         this.failAll(err as Error);
         this.socket.destroy();

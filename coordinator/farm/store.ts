@@ -28,15 +28,16 @@
 import { Redis } from 'ioredis';
 import type { RunResultData } from '../../proto/convert.js';
 import type { EnsembleSpec } from '../spec/index.js';
-import { DEFAULT_PREFIX, ensembleIds, RATE_BUCKET_MS, readEnsembleStatus, type EnsembleStatus } from './ensemble-status.js';
+import { DEFAULT_PREFIX, RATE_BUCKET_MS } from './ensemble-status.js';
+import { EnsembleReader } from './ensemble-reader.js';
 import type { AdaptiveHistory } from '../summary/adaptive.js';
 import type { RunSink } from '../../worker/runtime/queue-processor.js';
 import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
 
 export { DEFAULT_PREFIX, STALE_RUN_MS, type EnsembleState, type EnsembleStatus } from './ensemble-status.js';
-// the spec validator (ajv, the model registry) and the protobuf code load on first use: `status` needs neither
+export type { EnsembleRecord } from './ensemble-reader.js';
+// the spec validator (ajv, the model registry) loads on first use
 const specModule = () => import('../spec/index.js');
-const protoModule = () => import('../../proto/convert.js');
 
 /**
  * A Redis connection. `failFast` (the HTTP API): commands fail at once while
@@ -53,20 +54,6 @@ export function connectRedis(url: string, opts: { lazy?: boolean; failFast?: num
   });
 }
 
-export interface EnsembleRecord {
-  id: string;
-  name: string;
-  spec: EnsembleSpec;
-  createdAtMs: number;
-  jobs: number;
-  cancelled: boolean;
-  /** Clusters planned so far: spec.clusters, or the sum of the batches of an adaptive ensemble. */
-  plannedClusters: number;
-  /** Batch history of an adaptive ensemble; null for a fixed count. */
-  adaptive: AdaptiveHistory | null;
-  /** Runs whose jobs are known to be queued (adaptive ensembles; = plannedClusters otherwise). */
-  queuedThrough: number;
-}
 
 /**
  * One atomic step of an adaptive ensemble: only if the ensemble still has
@@ -103,14 +90,13 @@ redis.call('HSET', KEYS[3], ARGV[1], ARGV[3])
 return 1
 `;
 
-export class EnsembleStore implements RunSink {
+/** The ensemble store: the reads of EnsembleReader, and every write (launch, workers, cancel). */
+export class EnsembleStore extends EnsembleReader implements RunSink {
   constructor(
     readonly redis: Redis,
-    readonly prefix: string = DEFAULT_PREFIX,
-  ) {}
-
-  private k(id: string, part?: string): string {
-    return part ? `${this.prefix}:ensemble:${id}:${part}` : `${this.prefix}:ensemble:${id}`;
+    prefix: string = DEFAULT_PREFIX,
+  ) {
+    super(redis, prefix);
   }
 
   async create(id: string, spec: EnsembleSpec, jobs: number, createdAtMs = Date.now(), adaptive: AdaptiveHistory | null = null): Promise<void> {
@@ -145,23 +131,6 @@ export class EnsembleStore implements RunSink {
     return (await this.redis.hexists(this.k(id), 'launched')) === 1;
   }
 
-  async get(id: string): Promise<EnsembleRecord | null> {
-    const h = await this.redis.hgetall(this.k(id));
-    if (!h.spec) return null;
-    const { validateSpec } = await specModule();
-    return {
-      id,
-      name: h.name ?? '',
-      spec: validateSpec(JSON.parse(h.spec), { maxTotalParticles: Number.MAX_SAFE_INTEGER }, { stored: true }),
-      createdAtMs: Number(h.created_at_ms ?? 0),
-      jobs: Number(h.jobs ?? 0),
-      cancelled: h.cancelled === '1',
-      plannedClusters: Number(h.clusters ?? 0),
-      adaptive: h.adaptive ? (JSON.parse(h.adaptive) as AdaptiveHistory) : null,
-      queuedThrough: h.queued_through !== undefined ? Number(h.queued_through) : Number(h.clusters ?? 0),
-    };
-  }
-
   /** The atomic batch step of an adaptive ensemble (see EXTEND_SCRIPT); true when this call made it. */
   async extendAdaptive(id: string, expectedClusters: number, newClusters: number, newJobs: number, history: AdaptiveHistory): Promise<boolean> {
     const r = await this.redis.eval(EXTEND_SCRIPT, 1, this.k(id), String(expectedClusters), String(newClusters), String(newJobs), JSON.stringify(history));
@@ -185,11 +154,6 @@ export class EnsembleStore implements RunSink {
       if (a && c !== '1' && a.includes('"outcome":"running"')) out.push(id);
     }
     return out;
-  }
-
-  /** Ensemble ids, newest first. */
-  async ids(limit = 100): Promise<string[]> {
-    return ensembleIds(this.redis, this.prefix, limit);
   }
 
   async cancel(id: string): Promise<boolean> {
@@ -279,29 +243,6 @@ export class EnsembleStore implements RunSink {
   async probeFailed(id: string, runIndex: number, size: number, reason: string): Promise<void> {
     if (await this.hasHarmonic(id, runIndex, size)) return;
     await this.redis.hset(this.k(id, 'probe-failed'), `${runIndex}:${size}`, reason.slice(0, 500));
-  }
-
-  /** The kept harmonic records, in (run, size) order. */
-  async harmonicRecords(id: string): Promise<ClusterHarmonic[]> {
-    const h = await this.redis.hgetall(this.k(id, 'harmonic'));
-    return Object.values(h)
-      .map((v) => JSON.parse(v) as ClusterHarmonic)
-      .sort((a, b) => a.runIndex - b.runIndex || a.size - b.size);
-  }
-
-  // ---------------------------------------------------------- reading
-
-  /** Stored results in run-index order (one per run index by construction). */
-  async results(id: string): Promise<RunResultData[]> {
-    const h = await this.redis.hgetallBuffer(this.k(id, 'results'));
-    const { decodeRunResult } = await protoModule();
-    return Object.values(h)
-      .map((b) => decodeRunResult(b))
-      .sort((a, b) => a.runIndex - b.runIndex);
-  }
-
-  async status(id: string, now = Date.now()): Promise<EnsembleStatus | null> {
-    return readEnsembleStatus(this.redis, this.prefix, id, now);
   }
 
   /** Delete every key of an ensemble (tests and operators). */
