@@ -397,7 +397,7 @@ function electrostaticOf(bySize: HarmonicAtSize[], mass: HarmonicSectionOptions[
 }
 
 export const BREAKDOWN_SOURCE =
-  'DBM form of the electrostatic scaling law, tau(eta + 2) - tau(eta) = D: Halsey 1987, Phys. Rev. Lett. 59, 2067 (citation from memory); the capacity-increment argument is the one in this file\'s header with the growth density h^eta';
+  'DBM form of the electrostatic scaling law, tau(eta + 2) - tau(eta) = D: Halsey 1987, Phys. Rev. Lett. 59, 2067 (citation from memory); the capacity-increment argument: coordinator/harmonic/harmonic-section.ts, with the growth density h^eta';
 export const BREAKDOWN_RULE =
   'tau(eta+2) - tau(eta) per cluster = minus the OLS slope of log(Z(eta+2)/Z(eta)) against log(set radius) over the probed sizes; D per cluster = the OLS slope of log N against log(set radius); both ensemble means with cluster-bootstrap intervals (BCa, else percentile); consistent when the two intervals overlap, inconsistent when they do not, undetermined without both intervals';
 export const BREAKDOWN_CAPACITY_RULE =
