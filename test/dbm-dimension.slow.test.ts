@@ -16,17 +16,17 @@
  */
 import { describe, expect, it } from 'vitest';
 import { fitLine } from '../coordinator/stats/log-log-fit.js';
-import { createKernel, modelParams } from '../worker/models/registry.js';
+import { modelParams } from '../worker/models/registry.js';
+import { growInThreads } from './support/grow-in-thread.js';
 
 const N = 500;
 const CLUSTERS = 16;
 
-function dimensionOf(eta: number): { mean: number; se: number } {
+async function dimensionOf(eta: number): Promise<{ mean: number; se: number }> {
   const d: number[] = [];
-  for (let r = 0; r < CLUSTERS; r++) {
-    const k = createKernel({ model: modelParams('dbm-offlattice-2d', { eta }), particles: N, ensembleSeed: '7013', runIndex: r, recordsPerDecade: 20 });
-    k.growTo(N);
-    const s = k.result().series;
+  const tasks = Array.from({ length: CLUSTERS }, (_, r) => ({ model: modelParams('dbm-offlattice-2d', { eta }), particles: N, ensembleSeed: '7013', runIndex: r, recordsPerDecade: 20 }));
+  for (const result of await growInThreads(tasks)) {
+    const s = result.series;
     const lx: number[] = [];
     const ly: number[] = [];
     s.sizes.forEach((n, j) => {
@@ -43,10 +43,10 @@ function dimensionOf(eta: number): { mean: number; se: number } {
 }
 
 describe('D(η) of the off-lattice DBM', () => {
-  it('decreases with η and lies above (4 − η)/2 for η = 0.5 and 1 within two standard errors', () => {
-    const d05 = dimensionOf(0.5);
-    const d1 = dimensionOf(1);
-    const d2 = dimensionOf(2);
+  it('decreases with η and lies above (4 − η)/2 for η = 0.5 and 1 within two standard errors', async () => {
+    const d05 = await dimensionOf(0.5);
+    const d1 = await dimensionOf(1);
+    const d2 = await dimensionOf(2);
     console.log(`D(0.5) = ${d05.mean.toFixed(3)} ± ${d05.se.toFixed(3)}, D(1) = ${d1.mean.toFixed(3)} ± ${d1.se.toFixed(3)}, D(2) = ${d2.mean.toFixed(3)} ± ${d2.se.toFixed(3)} (N = ${N}, ${CLUSTERS} clusters)`);
     expect(d05.mean - d1.mean).toBeGreaterThan(2 * Math.hypot(d05.se, d1.se));
     expect(d1.mean - d2.mean).toBeGreaterThan(2 * Math.hypot(d1.se, d2.se));

@@ -17,15 +17,17 @@ import type { GrowthTask } from '../worker/core/growth-kernel.js';
 import { OffLatticeDbm2d } from '../worker/models/dbm-offlattice-2d/kernel.js';
 import { createKernel, modelParams } from '../worker/models/registry.js';
 import { ksTwoSample } from './support/ks.js';
+import { growInThreads } from './support/grow-in-thread.js';
+
+/** Let the test runner's event loop breathe (a long synchronous stretch makes vitest's worker time out). */
+const breathe = (): Promise<void> => new Promise((resolve) => setImmediate(resolve));
 
 function task(params: Record<string, number>, particles: number, runIndex = 0, seed = '20261203'): GrowthTask {
   return { model: modelParams('dbm-offlattice-2d', params), particles, ensembleSeed: seed, runIndex, recordsPerDecade: 10 };
 }
 
-function finalRg(t: GrowthTask): number {
-  const k = createKernel(t);
-  k.growTo(t.particles);
-  return k.result().series.radiusOfGyration.at(-1) as number;
+async function finalRgs(tasks: GrowthTask[]): Promise<number[]> {
+  return (await growInThreads(tasks)).map((r) => r.series.radiusOfGyration.at(-1) as number);
 }
 
 describe('selection frequencies on a fixed cluster', () => {
@@ -43,20 +45,26 @@ describe('selection frequencies on a fixed cluster', () => {
   // ω_i from independent DLA walkers (η = 1 samples ω exactly)
   const omegaWalkers = 100_000;
   const hits = new Float64Array(25);
-  beforeAll(() => {
+  beforeAll(async () => {
     const probe = frozen(1, 7);
-    for (let s = 0; s < omegaWalkers; s++) hits[probe.sampleGrowthParticle()]++;
-  }, 200_000);
+    for (let s = 0; s < omegaWalkers; s++) {
+      hits[probe.sampleGrowthParticle()]++;
+      if (s % 2000 === 0) await breathe();
+    }
+  }, 400_000);
 
   for (const [eta, selections] of [
     [2, 8_000],
     [2.5, 8_000],
     [0.5, 5_000],
   ] as const) {
-    it(`at η = ${eta} particle i is chosen with probability ω_i^η / Σ ω^η (chi-square, level 0.001)`, () => {
+    it(`at η = ${eta} particle i is chosen with probability ω_i^η / Σ ω^η (chi-square, level 0.001)`, async () => {
       const k = frozen(eta, 11);
       const chosen = new Float64Array(25);
-      for (let s = 0; s < selections; s++) chosen[k.sampleGrowthParticle()]++;
+      for (let s = 0; s < selections; s++) {
+        chosen[k.sampleGrowthParticle()]++;
+        if (s % 100 === 0) await breathe();
+      }
       const omega = Array.from(hits, (h) => h / omegaWalkers);
       const weights = omega.map((w) => (w > 0 ? w ** eta : 0));
       const total = weights.reduce((a, b) => a + b, 0);
@@ -86,33 +94,22 @@ describe('selection frequencies on a fixed cluster', () => {
 describe('the fractional-power methods against the exact ones (R_g at fixed N, two-sample KS, level 0.001)', () => {
   const N = 150;
   const runs = 60;
-  it('η = 1.999 (Bernoulli factory for ω^0.999) and η = 2 (two walkers in a row) agree', () => {
-    const a: number[] = [];
-    const b: number[] = [];
-    for (let r = 0; r < runs; r++) {
-      a.push(finalRg(task({ eta: 1.999 }, N, r, '31')));
-      b.push(finalRg(task({ eta: 2 }, N, r, '32')));
-    }
+  const runIdx = Array.from({ length: runs }, (_, r) => r);
+  it('η = 1.999 (Bernoulli factory for ω^0.999) and η = 2 (two walkers in a row) agree', async () => {
+    const a = await finalRgs(runIdx.map((r) => task({ eta: 1.999 }, N, r, '31')));
+    const b = await finalRgs(runIdx.map((r) => task({ eta: 2 }, N, r, '32')));
     expect(ksTwoSample(a, b).p).toBeGreaterThan(0.001);
   }, 400_000);
 
-  it('η = 0.999 (capped recurrence estimator) and η = 1 (DLA) agree', () => {
-    const a: number[] = [];
-    const b: number[] = [];
-    for (let r = 0; r < runs; r++) {
-      a.push(finalRg(task({ eta: 0.999, recurrence_cap: 64 }, N, r, '33')));
-      b.push(finalRg({ ...task({}, N, r, '34'), model: modelParams('dla-offlattice-2d') }));
-    }
+  it('η = 0.999 (capped recurrence estimator) and η = 1 (DLA) agree', async () => {
+    const a = await finalRgs(runIdx.map((r) => task({ eta: 0.999, recurrence_cap: 64 }, N, r, '33')));
+    const b = await finalRgs(runIdx.map((r) => ({ ...task({}, N, r, '34'), model: modelParams('dla-offlattice-2d') })));
     expect(ksTwoSample(a, b).p).toBeGreaterThan(0.001);
   }, 400_000);
 
-  it('the same test separates η = 2 from η = 1 (it can fail)', () => {
-    const a: number[] = [];
-    const b: number[] = [];
-    for (let r = 0; r < runs; r++) {
-      a.push(finalRg(task({ eta: 2 }, N, r, '35')));
-      b.push(finalRg(task({ eta: 1 }, N, r, '36')));
-    }
+  it('the same test separates η = 2 from η = 1 (it can fail)', async () => {
+    const a = await finalRgs(runIdx.map((r) => task({ eta: 2 }, N, r, '35')));
+    const b = await finalRgs(runIdx.map((r) => task({ eta: 1 }, N, r, '36')));
     expect(ksTwoSample(a, b).p).toBeLessThan(0.001);
   }, 400_000);
 });
