@@ -70,13 +70,20 @@
  *     ω_i · E[g(min(G, T))]/g(T) = ω_i^η (1 − ε_i)/g(T), where
  *     ε_i = ω_i^a Σ_(k>=T) (g(k) − g(T)) ω_i (1 − ω_i)^(k−1) lies in [0, 1),
  *     vanishes as T → ∞ and is exponentially small once T ω_i >> 1; the
- *     weights of particles with ω_i ≲ 1/T are too small (→ T^a ω_i / Γ(1+a)
+ *     weights of particles with ω_i ≲ 1/T are too small (→ (T ω_i)^a / Γ(1 + a)
  *     times their exact weight, up to a constant). At η = 0, g(k) = k and the
  *     weight is exactly 1 − (1 − ω_i)^T instead of 1. Larger T is more exact
- *     and costs up to T − 1 walkers per attempt. test/dbm-offlattice.test.ts
+ *     and costs up to T − 1 walkers per attempt. test/dbm-offlattice-statistics.slow.test.ts
  *     measures selection frequencies on a fixed cluster against ω^η.
  * Everything else is exact up to the DLA walk's own approximation (min_step)
  * and floating-point rounding.
+ *
+ * Sources. The integer-η rule (η walkers in a row on the same particle) is
+ * the published exact method named in tendril issue 13. The Bernoulli factory
+ * for ω^f and the capped recurrence estimator are our own constructions from
+ * the binomial series above (no source needed beyond it). The recurrence-time
+ * estimators of Somfai, Goold, Ball, DeVita & Sander 2004 (Phys. Rev. E 70,
+ * 051403) were not used: the paper's text was not available to us.
  *
  * Counters: walkers (every walker released), attempts (proposal walkers),
  * and the walk counters of DLA (jumps, short_steps, returns). Walkers per
