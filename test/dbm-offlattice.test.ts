@@ -11,6 +11,9 @@ import { describe, expect, it } from 'vitest';
 import type { GrowthTask } from '../worker/core/growth-kernel.js';
 import { createStopSignal, raiseStop } from '../worker/core/stop-signal.js';
 import { checkModelParams, createKernel, modelParams } from '../worker/models/registry.js';
+import { runEmbedded } from '../coordinator/embedded/index.js';
+import { validateSpec } from '../coordinator/spec/index.js';
+import { harmonicOfSummary } from '../coordinator/summary/index.js';
 
 function task(params: Record<string, number>, particles: number, runIndex = 0, seed = '20261203'): GrowthTask {
   return { model: modelParams('dbm-offlattice-2d', params), particles, ensembleSeed: seed, runIndex, recordsPerDecade: 10 };
@@ -90,4 +93,29 @@ describe('geometry, determinism, resume, refusals', () => {
       expect(message).not.toContain('\n');
     }
   });
+});
+
+describe('embedded ensemble with [probe]', () => {
+  it('records Z(η) and Z(η + 2) per probed cluster and puts harmonic.breakdownRelation, with its rules, in the summary', async () => {
+    const spec = validateSpec({
+      name: 'dbm probe test', model: 'dbm-offlattice-2d', params: { eta: 2 }, particles: 240, clusters: 3, seed: '4242',
+      probe: { walkers: 2000, jobs: 2, at_sizes: [60, 120] },
+    });
+    const out = await runEmbedded(spec, { ensembleId: 'dbm-probe', threads: 2 });
+    expect(out.harmonic.length).toBe(9);
+    for (const r of out.harmonic) {
+      expect(r.breakdown?.eta).toBe(2);
+      expect(r.breakdown?.zEta).toBeGreaterThan(0);
+      expect(r.breakdown!.zEtaPlus2!).toBeLessThan(r.breakdown!.zEta!);
+    }
+    const h = harmonicOfSummary(out.summary)!;
+    const b = h.breakdownRelation!;
+    expect(b.eta).toBe(2);
+    expect(b.sizes).toEqual([60, 120, 240]);
+    expect(b.clusters).toBe(3);
+    expect(b.tauDifference.estimate).toEqual(expect.any(Number));
+    expect(['consistent', 'inconsistent', 'undetermined']).toContain(b.verdict);
+    expect(b.rule).toMatch(/intervals overlap/);
+    expect(b.capacityIncrement.rule).toMatch(/contains 1/);
+  }, 300_000);
 });
