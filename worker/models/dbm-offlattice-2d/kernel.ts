@@ -74,7 +74,16 @@
  *     times their exact weight, up to a constant). At η = 0, g(k) = k and the
  *     weight is exactly 1 − (1 − ω_i)^T instead of 1. Larger T is more exact
  *     and costs up to T − 1 walkers per attempt. test/dbm-offlattice-statistics.slow.test.ts
- *     measures selection frequencies on a fixed cluster against ω^η.
+ *     measures selection frequencies on a fixed 25-disk cluster against ω^η
+ *     (no bias detected there: every ω_i >> 1/T). On larger clusters the
+ *     bias is not small. We measured it on one η = 0.5 cluster of 2000 disks,
+ *     with ω from 3·10^5 walkers; the 430 particles they hit entered, and the
+ *     particles never hit, which would add to it, were left out. The total
+ *     variation distance between the capped and exact selection laws was
+ *     0.22, 0.16, 0.091 and 0.048 for T = 64, 256, 1024 and 4096, falling
+ *     about as T^(−a). So with the default T = 1024 about 9% of the growth
+ *     probability moves from deep, screened particles to exposed ones, and
+ *     more on larger clusters.
  * Everything else is exact up to the DLA walk's own approximation (min_step)
  * and floating-point rounding.
  *
