@@ -76,7 +76,7 @@
  *     and costs up to T − 1 walkers per attempt. test/dbm-offlattice-statistics.slow.test.ts
  *     measures selection frequencies on a fixed 25-disk cluster against ω^η
  *     (no bias detected there: every ω_i >> 1/T). On larger clusters the
- *     bias is not small. We measured it on one η = 0.5 cluster of 2000 disks,
+ *     bias is not small. We measured it (test/bench/dbm-cap-bench.ts) on one η = 0.5 cluster of 2000 disks,
  *     with ω from 3·10^5 walkers; the 430 particles they hit entered, and the
  *     particles never hit, which would add to it, were left out. The total
  *     variation distance between the capped and exact selection laws was
