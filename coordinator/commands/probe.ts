@@ -38,7 +38,7 @@ import { defaultProbeJobs, PROBE_CONTACT_SAMPLE, PROBE_JOBS, PROBE_MIN_STEP, PRO
 import { readProbeInput, type ProbeInput } from '../harmonic/probe-input.js';
 import { probedPointsOf } from '../../worker/probe/probe-dispatch.js';
 import { runProbes } from '../harmonic/probe-run.js';
-import { renderMeasurePng } from '../harmonic/measure-picture.js';
+import { measurePictureGeometry, renderMeasurePng } from '../harmonic/measure-picture.js';
 import { DEFAULT_PROBE_MIN_STEP } from '../../worker/probe/probe-2d.js';
 import { readFileSync } from 'node:fs';
 import { decodeSnapshot, type PointSet } from '../snapshot/cluster-snapshot.js';
@@ -167,7 +167,13 @@ export function register(program: Command): void {
       writeFileSync(join(dir, MEASURE_PICTURE_FILE), picture);
       const { renderer } = pngRenderer();
       if (renderer) {
-        const fig = measurePictureFigure({ runIndex: 0, size: set.count, png: picture, title: `Harmonic measure on ${pts.count} ${set.lattice ? 'perimeter sites' : 'disks'} (${walkers} walkers)` });
+        const drawRadius = set.lattice ? pts.r : set.drawRadius;
+        const pixelsPerUnit = measurePictureGeometry(pts.count, pts.x, pts.y, drawRadius).scale;
+        const unit = set.kind === 'snapshot' ? 'particle diameters' : 'units of x and y';
+        const fig = measurePictureFigure({
+          runIndex: 0, size: set.count, png: picture, scale: { pixelsPerUnit, unit },
+          title: `Harmonic measure on ${pts.count} ${set.lattice ? 'perimeter sites' : 'disks'} (${walkers} walkers)`,
+        });
         writeFileSync(join(dir, MEASURE_FIGURE_FILE), renderer.render(fig.svg, 2));
       }
       for (const w of run.measures.warnings) process.stderr.write(`warning: ${w}\n`);

@@ -39,7 +39,7 @@ import type { IntervalSummary } from '../stats/bca.js';
 import { buildPalette } from '../render/palette.js';
 import { emptyFigure, type Figure } from './plots.js';
 import { fmt, fmtAbscissa, fmtRange, HARMONIC_AXIS, isFiniteNumber, labelOf, levelPercent, shownInterval, valueText } from './labels.js';
-import { autoDomain, COLOURS, escapeXml, FONT_FAMILY, logTicks, Plot, svgText, type AxisSpec, type Tick } from './svg-plot.js';
+import { autoDomain, COLOURS, escapeXml, FONT_FAMILY, logTicks, niceStep, Plot, svgText, type AxisSpec, type Tick } from './svg-plot.js';
 
 /** Colours of the probed sizes, largest first. */
 const SIZE_COLOURS = [COLOURS.blue, COLOURS.vermillion, COLOURS.green, COLOURS.purple, COLOURS.orange, COLOURS.sky];
@@ -368,7 +368,15 @@ export function electrostaticFigure(h: HarmonicSection): Figure {
 
 // ---------------------------------------------------------------- (f) the measure picture
 
-export interface MeasurePictureInput { runIndex: number; size: number; png: Uint8Array; /** Overrides the title (a point set that is not a run of an ensemble). */ title?: string }
+export interface MeasurePictureInput {
+  runIndex: number;
+  size: number;
+  png: Uint8Array;
+  /** Overrides the title (a point set that is not a run of an ensemble). */
+  title?: string;
+  /** Pixels of the PNG per unit length (measurePictureGeometry), and the unit's name: a scale bar is drawn when given. */
+  scale?: { pixelsPerUnit: number; unit: string };
+}
 
 /** Width and height from a PNG's IHDR chunk, or null when the bytes are not a PNG. */
 export function pngSize(png: Uint8Array): [number, number] | null {
@@ -379,7 +387,7 @@ export function pngSize(png: Uint8Array): [number, number] | null {
   return w > 0 && h > 0 ? [w, h] : null;
 }
 
-/** The picture of renderMeasurePng (coordinator/harmonic/measure-picture.ts) inside an SVG with a colour key. */
+/** The picture of renderMeasurePng (coordinator/harmonic/measure-picture.ts) inside an SVG with a colour key, and a scale bar when its scale is given. */
 export function measurePictureFigure(pic: MeasurePictureInput): Figure {
   const file = 'harmonic-measure';
   const title = pic.title ?? `Harmonic measure on cluster run ${pic.runIndex} at N = ${fmtAbscissa(pic.size)} particles`;
@@ -396,6 +404,19 @@ export function measurePictureFigure(pic: MeasurePictureInput): Figure {
   parts.push(`<rect x="0" y="0" width="${W}" height="${H.toFixed(0)}" fill="#ffffff"/>`);
   parts.push(svgText((W - img) / 2, 24, title, { size: 17, weight: 'bold' }));
   parts.push(`<image x="${x0.toFixed(2)}" y="${top}" width="${iw.toFixed(2)}" height="${ih.toFixed(2)}" href="data:image/png;base64,${b64}"/>`);
+  // scale bar, as on the sample cluster (coordinator/report/plots.ts clusterFigure)
+  let scaleText = '';
+  if (pic.scale && pic.scale.pixelsPerUnit > 0) {
+    const s = iw / dims[0]; // svg units per picture pixel
+    const extent = dims[0] / pic.scale.pixelsPerUnit; // units across the picture
+    const bar = niceStep(extent / 5, 1);
+    const barPx = bar * pic.scale.pixelsPerUnit * s;
+    const by = top + ih - 22;
+    parts.push(`<path d="M${(x0 + 20).toFixed(2)} ${by.toFixed(2)}h${barPx.toFixed(2)}" stroke="#ffffff" stroke-width="4"/>`);
+    parts.push(`<path d="M${(x0 + 20).toFixed(2)} ${(by - 6).toFixed(2)}v12M${(x0 + 20 + barPx).toFixed(2)} ${(by - 6).toFixed(2)}v12" stroke="#ffffff" stroke-width="2"/>`);
+    parts.push(svgText(x0 + 20, by - 10, `${fmtAbscissa(bar)} ${pic.scale.unit}`, { size: 15, colour: '#ffffff' }));
+    scaleText = ` The picture is ${fmtAbscissa(extent)} ${pic.scale.unit} across, the white bar ${fmtAbscissa(bar)}.`;
+  }
   // colour key: the same palette and quantile mapping as renderMeasurePng
   const lut = buildPalette(64, 0, 1);
   const ky = top + ih + 16, kw = 360, kx = (W - kw) / 2;
@@ -414,7 +435,7 @@ export function measurePictureFigure(pic: MeasurePictureInput): Figure {
   parts.push(svgText(W / 2 - 130, ky + 48, 'never hit by a probe walker', { size: 13.5 }));
   parts.push(svgText(W / 2, ky + 70, 'colour: quantile of the share of walkers whose first contact is the particle (quantiles of log ω)', { size: 13.5, anchor: 'middle', colour: '#333' }));
   parts.push('</svg>');
-  const caption = `Cluster of run ${pic.runIndex} at N = ${fmtAbscissa(pic.size)} particles, each particle coloured by its harmonic measure (the share of probe walkers from far away whose first contact is that particle) by quantiles: the particles hit at least once are ranked by their share, and equal stretches of the colour key hold equal numbers of them, from the smallest share (dark) through the median to the largest (bright), so the measure's whole range of decades shows; dark grey particles were never hit.`;
+  const caption = `Cluster of run ${pic.runIndex} at N = ${fmtAbscissa(pic.size)} particles, each particle coloured by its harmonic measure (the share of probe walkers from far away whose first contact is that particle) by quantiles: the particles hit at least once are ranked by their share, and equal stretches of the colour key hold equal numbers of them, from the smallest share (dark) through the median to the largest (bright), so the measure's whole range of decades shows; dark grey particles were never hit.${scaleText}`;
   return { name: file, title, caption, svg: parts.join('\n'), note: null };
 }
 

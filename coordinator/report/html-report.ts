@@ -48,6 +48,8 @@ export interface ReportInput {
    * coordinator/harmonic/measure-picture.ts), shown in the harmonic section.
    */
   measurePicture?: MeasurePictureInput;
+  /** Why a picture is missing (coordinator/commands/report-pictures.ts), said in the notes instead of "was not given". */
+  pictureNotes?: { sampleCluster?: string; measurePicture?: string };
   /** Page title; default from the spec name or the model kind. */
   title?: string;
   /** Ensemble id, shown in the header when given. */
@@ -246,6 +248,16 @@ function harmonicPanel(h: HarmonicSection, top: HarmonicAtSize | undefined): str
       items.push(verdictItem('electrostatic-particle', `The same law at particle scale, Z(3) ∝ N^{−τ(3)/D} over N = ${ps.sizes.map((n) => fmtAbscissa(n)).join(', ')} (${ps.clusters} clusters): ${valueText('τ(3)/D', ps.ratio, ps.ratioInterval, 3)}; the law says 1.`, ps.consistent ?? null, 'consistent (1 inside the interval)', 'inconsistent (1 outside the interval)', 'not judged'));
     } else if (ps) items.push(`<li data-check="electrostatic-particle" class="na">Particle-scale form of τ(3) = D: not available (${escapeHtml(ps.reason ?? 'no ratio')}).</li>`);
   }
+  const b = h.breakdownRelation;
+  if (b) {
+    const ivText = (v: { estimate: number | null; low: number | null; high: number | null }, digits = 3): string =>
+      isFiniteNumber(v.estimate) ? `${fmt(v.estimate, digits)}${isFiniteNumber(v.low) && isFiniteNumber(v.high) ? ` ${fmtRange([v.low, v.high])}` : ' (no interval)'}` : 'not available';
+    const verdict = b.verdict === 'undetermined' ? null : b.verdict === 'consistent';
+    items.push(verdictItem('breakdown', `Dielectric breakdown relation τ(η + 2) − τ(η) = D at η = ${fmt(b.eta, 3)}, particle scale, over N = ${b.sizes.map((n) => fmtAbscissa(n)).join(', ')} (${b.clusters} clusters): τ(η + 2) − τ(η) = ${ivText(b.tauDifference)}; D of the same sets = ${ivText(b.massDimension)}${b.reason ? ` (${b.reason})` : ''}. Rule: ${b.rule}. Source: ${b.source}.`, verdict, 'consistent (intervals overlap)', 'inconsistent (intervals do not overlap)', 'undetermined'));
+    const ci = b.capacityIncrement;
+    const civ = ci.verdict === 'undetermined' ? null : ci.verdict === 'proportional';
+    items.push(verdictItem('breakdown-increment', `Capacity increment at η = ${fmt(b.eta, 3)}: log–log slope of mean Δ ln cap/ΔN against Z(η + 2)/Z(η), slope = ${ivText(ci.slope)}${ci.reason ? ` (${ci.reason})` : ''}; proportional means slope 1. Rule: ${ci.rule}.`, civ, 'proportional (1 inside the interval)', 'not proportional (1 outside the interval)', 'undetermined'));
+  }
   return `<ul id="harmonic-panel">${items.join('')}</ul>`;
 }
 
@@ -395,7 +407,7 @@ export function buildEnsembleReport(input: ReportInput): { html: string; figures
     } catch (e) {
       notes.push(`no sample cluster picture: ${(e as Error).message}`);
     }
-  } else notes.push('no sample cluster was given: no cluster picture');
+  } else notes.push(input.pictureNotes?.sampleCluster ?? 'no sample cluster was given: no cluster picture');
   const harmonic = a.harmonic ?? null;
   const harmonicFigs: Figure[] = [];
   if (harmonic) {
@@ -404,7 +416,7 @@ export function buildEnsembleReport(input: ReportInput): { html: string; figures
       const pic = measurePictureFigure(input.measurePicture);
       harmonicFigs.push(pic);
       if (!pic.note) extraPngs.push({ name: 'harmonic-measure-raster', png: Buffer.from(input.measurePicture.png) });
-    } else notes.push('no harmonic measure picture was given');
+    } else notes.push(input.pictureNotes?.measurePicture ?? 'no harmonic measure picture was given');
   } else if (input.measurePicture) notes.push('a harmonic measure picture was given but the statistics have no harmonic section: not shown');
   for (const f of [...figures, ...harmonicFigs]) if (f.note) notes.push(`figure ${f.name}: ${f.note}`);
 

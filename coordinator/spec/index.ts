@@ -194,7 +194,12 @@ export function formatOf(fileName: string): 'toml' | 'json' {
 }
 
 /** Validate a parsed document and fill in defaults; throws SpecError listing every problem. */
-export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv()): EnsembleSpec {
+/**
+ * `stored`: the document is one specToDocument wrote for a spec validated at
+ * launch (the store's copy); the JSON-schema pass is skipped (it loads and
+ * compiles ajv), the checks and defaults below still apply.
+ */
+export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv(), opts: { stored?: boolean } = {}): EnsembleSpec {
   // nesting first: quoting or checking a document nested 10^5 deep would overflow the stack
   const tooDeep = nestingProblem(doc, 'spec');
   if (tooDeep !== null) throw new SpecError([tooDeep]);
@@ -202,7 +207,7 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
     throw new SpecError([`spec: ${excerpt(doc, 60)} is not allowed; allowed: a table (object) of fields`]);
   }
   const d = doc as Record<string, any>;
-  const schemaProblems = specDocumentProblems(doc);
+  const schemaProblems = opts.stored ? [] : specDocumentProblems(doc);
   if (schemaProblems.length > 0) {
     // every problem in one round: the schema's, and a missing cluster count (which the schema cannot require, as [target] may stand in for it)
     // (unless the list is already cut at MAX_LISTED_PROBLEMS: the rest comes in the next round)
