@@ -322,6 +322,8 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
     probe: pr
       ? {
           ...probeSettingsOf(pr as ProbeSettingsDocument),
+          // 3D probes keep no contact points (contactSampleProblem)
+          ...(modelDescriptor(d.model).probe === 'balls-3d' ? { contactSample: 0 } : {}),
           atSizes: [...(pr.at_sizes ?? [])].sort((a: number, b: number) => a - b),
         }
       : null,
@@ -402,7 +404,7 @@ export function specToDocument(s: EnsembleSpec): Record<string, unknown> {
             walkers: s.probe.walkers,
             jobs: s.probe.jobs,
             q: [...s.probe.q],
-            contact_sample: s.probe.contactSample,
+            ...(modelDescriptor(s.model.kind).probe === 'balls-3d' ? {} : { contact_sample: s.probe.contactSample }),
             min_step: s.probe.minStep,
             ...(s.probe.atSizes.length > 0 ? { at_sizes: [...s.probe.atSizes] } : {}),
             ...(s.probe.window ? { window: [...s.probe.window] } : {}),
