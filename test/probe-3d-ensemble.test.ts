@@ -18,6 +18,7 @@ import { harmonicSection } from '../coordinator/harmonic/harmonic-section.js';
 import { runTaskFor } from '../coordinator/plan.js';
 import { SpecError, probeSizesOf, specToDocument, validateSpec } from '../coordinator/spec/index.js';
 import { harmonicOfSummary } from '../coordinator/summary/index.js';
+import { buildEnsembleReport } from '../coordinator/report/index.js';
 import { growthTaskOf } from '../proto/convert.js';
 import { createKernel } from '../worker/models/registry.js';
 import { planProbeJobs } from '../worker/probe/probe-2d.js';
@@ -176,6 +177,18 @@ describe('embedded probing of a 3D ensemble', () => {
     const iv = e.tau3!.interval.bca ?? e.tau3!.interval.percentile;
     if (iv) expect(e.dimensionFromTau3!.interval).toEqual([iv[0] - 1, iv[1] - 1]);
     expect(e.source).toMatch(/^tau\(3\) = D \+ 1 in 3D: derived/);
+    // the HTML report shows the 3D form: Newtonian capacity, tau(3) = D + 1 with D from tau(3), planar theorems not judged
+    const built = buildEnsembleReport({ analysis: JSON.parse(two.summary.statisticsJson), runs: two.results, spec, png: false, embedFont: false });
+    const part = built.html.slice(built.html.indexOf('id="section-harmonic"'), built.html.indexOf('id="section-options"'));
+    expect(part).toContain('Newtonian capacity C</th>');
+    expect(part).toContain('Electrostatic scaling law tau(3) = D + 1 at N = 400');
+    expect(part).toContain('D from τ(3) = τ(3) − 1 = ');
+    const beurling = /<li data-check="beurling"[^>]*>.*?<\/li>/.exec(part)?.[0] ?? '';
+    expect(beurling, beurling).toContain('class="na"');
+    expect(beurling).toContain('estimate is planar: not judged in 3D');
+    expect(part).toMatch(/<li data-check="makarov" class="na">/);
+    expect(built.figures.find((f) => f.name === 'harmonic-capacity')!.title).toBe('Newtonian capacity against cluster size');
+    expect(built.figures.find((f) => f.name === 'harmonic-electrostatic')!.caption).toContain('τ(3) − 1 (τ(3) of the harmonic measure minus d − 2)');
     // 3D records refuse a planar section
     expect(() => harmonicSection(direct, { probe: h.probe, massDimension: null, seed: 1 })).toThrow(/^harmonic record of run 0 at size 100: dimension 3 differs from the section's 2$/);
   }, 120_000);
