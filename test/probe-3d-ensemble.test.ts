@@ -13,7 +13,8 @@ import { EnsembleStore } from '../coordinator/farm/store.js';
 import { farmSummary } from '../coordinator/farm/summary.js';
 import { analyseProbedCluster, clusterPrefix, probeTasksOfSet } from '../coordinator/harmonic/ensemble-probing.js';
 import { analyseResults } from '../coordinator/harmonic/probe-run.js';
-import { boxStatistics } from '../coordinator/harmonic/partition-function.js';
+import { boxStatistics, logSpaced } from '../coordinator/harmonic/partition-function.js';
+import { spectrumFrom } from '../coordinator/harmonic/spectrum.js';
 import { harmonicSection } from '../coordinator/harmonic/harmonic-section.js';
 import { runTaskFor } from '../coordinator/plan.js';
 import { SpecError, probeSizesOf, specToDocument, validateSpec } from '../coordinator/spec/index.js';
@@ -111,6 +112,28 @@ describe('3D box statistics', () => {
     // z = 0 with the z origin just below: every grid's z offset (at most 3ε/4) keeps all points in one layer
     const spatial = boxStatistics({ count: n, x, y, z: new Float64Array(n), w }, eps, q, -40, -40, -1e-9);
     expect(spatial).toEqual(planar);
+  });
+
+  it('uniform measure on a sphere: tau(q) = 2(q - 1), so tau(3) = 4 = D + 1 for a compact ball (smooth surface; exact)', () => {
+    // Fibonacci points on the unit sphere with equal weights: an equal-area quadrature of the uniform
+    // surface measure, which is the harmonic measure of a ball from infinity (exact, by symmetry).
+    const K = 400_000;
+    const x = new Float64Array(K);
+    const y = new Float64Array(K);
+    const z = new Float64Array(K);
+    const golden = Math.PI * (3 - Math.sqrt(5));
+    for (let k = 0; k < K; k++) {
+      const zz = 1 - (2 * (k + 0.5)) / K;
+      const r = Math.sqrt(1 - zz * zz);
+      x[k] = r * Math.cos(golden * k);
+      y[k] = r * Math.sin(golden * k);
+      z[k] = zz;
+    }
+    const q = [0, 1, 2, 3];
+    const s = spectrumFrom(boxStatistics({ count: K, x, y, z, w: null }, logSpaced(0.02, 0.2, 8), q, -1, -1, -1), 1);
+    // tolerance as in the planar circle test (test/harmonic-measures.test.ts), scaled by the surface dimension 2
+    console.log(`uniform sphere: tau(0, 1, 2, 3) = ${s.tau.map((t) => t.toFixed(4)).join(", ")}`);
+    q.forEach((qq, k) => expect(Math.abs(s.tau[k] - 2 * (qq - 1)), `q = ${qq}: ${s.tau[k]}`).toBeLessThan(0.06));
   });
 
   it('refuse a box side that needs more than 2^17 boxes across an axis, in one line', () => {
