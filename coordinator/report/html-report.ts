@@ -242,7 +242,7 @@ function harmonicPanel(h: HarmonicSection, top: HarmonicAtSize | undefined): str
     const est = md ? labelOf(md.estimator).rich : '';
     const dText = md ? (isFiniteNumber(md.value) ? `D from ${est} = ${fmt(md.value)}${md.interval ? ` ${fmtRange(md.interval)}` : ' (no interval)'}` : `D from ${est} not available`) : 'no mass-based D';
     const fromTau3 = d3 && e.dimensionFromTau3 ? `; D from τ(3) = τ(3) − 1 = ${fmt(e.dimensionFromTau3.value)}${e.dimensionFromTau3.interval ? ` ${fmtRange(e.dimensionFromTau3.interval)}` : ' (no interval)'}` : '';
-    items.push(verdictItem('electrostatic', `Electrostatic scaling law ${e.relation ?? 'τ(3) = D'} at N = ${fmtAbscissa(e.size)}, τ(3) from the box fit: ${valueText('τ(3)', e.tau3?.mean, e.tau3?.interval)}${fromTau3}; ${dText} (${e.source}).`, e.consistent ?? null, 'consistent (intervals overlap)', 'inconsistent (intervals do not overlap)', 'not judged'));
+    items.push(verdictItem('electrostatic', `Electrostatic scaling law ${(e.relation ?? 'tau(3) = D').replace('tau', 'τ')} at N = ${fmtAbscissa(e.size)}, τ(3) from the box fit: ${valueText('τ(3)', e.tau3?.mean, e.tau3?.interval)}${fromTau3}; ${dText} (${e.source}).`, e.consistent ?? null, 'consistent (intervals overlap)', 'inconsistent (intervals do not overlap)', 'not judged'));
     if (e.consistentWithSystematic !== null && e.consistentWithSystematic !== undefined) {
       items.push(verdictItem('electrostatic-sys', `τ(3) with its fit-window systematic against the same D.`, e.consistentWithSystematic, 'consistent', 'inconsistent', 'not judged'));
     }
