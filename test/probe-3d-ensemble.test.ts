@@ -204,6 +204,7 @@ describe('embedded probing of a 3D ensemble', () => {
     const built = buildEnsembleReport({ analysis: JSON.parse(two.summary.statisticsJson), runs: two.results, spec, png: false, embedFont: false });
     const part = built.html.slice(built.html.indexOf('id="section-harmonic"'), built.html.indexOf('id="section-options"'));
     expect(part).toContain('Newtonian capacity C</th>');
+    expect(built.notes).toContain('no harmonic measure picture: it is drawn for planar clusters only');
     expect(part).toContain('Electrostatic scaling law τ(3) = D + 1 at N = 400');
     expect(part).toContain('D from τ(3) = τ(3) − 1 = ');
     const beurling = /<li data-check="beurling"[^>]*>.*?<\/li>/.exec(part)?.[0] ?? '';

@@ -411,7 +411,7 @@ export function buildEnsembleReport(input: ReportInput): { html: string; figures
       const pic = measurePictureFigure(input.measurePicture);
       harmonicFigs.push(pic);
       if (!pic.note) extraPngs.push({ name: 'harmonic-measure-raster', png: Buffer.from(input.measurePicture.png) });
-    } else notes.push('no harmonic measure picture was given');
+    } else notes.push(harmonic.dimension === 3 ? 'no harmonic measure picture: it is drawn for planar clusters only' : 'no harmonic measure picture was given');
   } else if (input.measurePicture) notes.push('a harmonic measure picture was given but the statistics have no harmonic section: not shown');
   for (const f of [...figures, ...harmonicFigs]) if (f.note) notes.push(`figure ${f.name}: ${f.note}`);
 
