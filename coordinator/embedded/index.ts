@@ -29,7 +29,7 @@ import { decodeCheckpoint, decodeRunResult, type RunResultData, type RunTaskData
 import { axisOf } from '../../worker/core/positions.js';
 import { ProbeThreadPool } from '../../worker/runtime/probe-thread-pool.js';
 import type { ProbeResult } from '../../worker/probe/probe-2d.js';
-import { analyseProbedCluster, clusterPrefix, positionsOf, probeTasksOfSet } from '../harmonic/ensemble-probing.js';
+import { analyseProbedCluster, breakdownEtaOf, clusterPrefix, positionsOf, probeTasksOfSet } from '../harmonic/ensemble-probing.js';
 import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
 import { TaskThreadPool, type ThreadRun } from '../../worker/runtime/task-thread.js';
 import { runOne } from '../../worker/runtime/run-lifecycle.js';
@@ -256,7 +256,7 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
     if (groups.some((g) => g.results === null)) return;
     const recs: ClusterHarmonic[] = [];
     for (const g of groups) {
-      const { record, counts } = analyseProbedCluster(g.set, g.results!, probe!, runIndex, g.size);
+      const { record, counts } = analyseProbedCluster(g.set, g.results!, probe!, runIndex, g.size, breakdownEtaOf(spec.model));
       recs.push(record);
       if (g.size === spec.particles) {
         if (store) await store.put(hitsKey(opts.ensembleId, runIndex), new Uint8Array(counts.buffer, counts.byteOffset, counts.byteLength));

@@ -21,7 +21,7 @@ import type { ProbeResult } from '../../worker/probe/probe-2d.js';
 import { ProbeJobCancelled, ProbeJobFailed, ProbeThreadPool } from '../../worker/runtime/probe-thread-pool.js';
 import { ProbeJobRefused, type ProbeJobHandler } from '../../worker/runtime/queue-processor.js';
 import { finalKey, hitsKey, JOB_PAYLOAD_VERSION, probeResultKey, requestResultKey, type ProbeJobData } from '../../worker/runtime/job-contract.js';
-import { analyseProbedCluster, clusterPrefix, positionsOf, probeTasksOfSet } from '../harmonic/ensemble-probing.js';
+import { analyseProbedCluster, breakdownEtaOf, clusterPrefix, positionsOf, probeTasksOfSet } from '../harmonic/ensemble-probing.js';
 import { probeSizesOf, type EnsembleSpec } from '../spec/index.js';
 import type { ArtifactStore } from './artifacts.js';
 import type { EnsembleStore } from './store.js';
@@ -201,7 +201,7 @@ export class FarmProbeHandler implements ProbeJobHandler {
       results.push(JSON.parse(Buffer.from(bytes).toString('utf8')) as ProbeResult);
     }
     const final = await this.finalOf(id, runIndex);
-    const { record, counts } = analyseProbedCluster(clusterPrefix(final, size), results, p, runIndex, size);
+    const { record, counts } = analyseProbedCluster(clusterPrefix(final, size), results, p, runIndex, size, breakdownEtaOf(spec.model));
     if (size === spec.particles) await this.artifacts.put(hitsKey(id, runIndex), new Uint8Array(counts.buffer, counts.byteOffset, counts.byteLength));
     if (await this.store.saveHarmonic(id, record)) this.events.log?.(`ensemble ${id}: run ${runIndex} probed at size ${size}`);
   }

@@ -26,6 +26,14 @@
  * (error = error/capacity), so that the ensemble's capacity growth
  * cap ~ N^{1/D_cap} is fitted the same way in both dimensions. In 2D
  * `logCapacity` is the log of the logarithmic capacity.
+ *
+ * For a model with a growth exponent η (the dielectric breakdown model,
+ * parameter `eta`), the record also keeps Z(η) and Z(η + 2) at particle
+ * scale, for the relation τ(η + 2) − τ(η) = D (harmonic-section.ts). An
+ * integer order q gets the unbiased factorial moment
+ * Σ c(c−1)…(c−q+1) / (W(W−1)…(W−q+1)); a non-integer order the plug-in
+ * Σ (c_i/W)^q over the particles hit (biased: upward for q > 1, and for
+ * q < 1 it misses the particles no walker hit; the bias shrinks as W grows).
  */
 import type { HarmonicMeasures } from './probe-analysis.js';
 
@@ -68,6 +76,30 @@ export interface ClusterHarmonic {
   /** Same with the plug-in estimator Σ (c_i/W)^q for q = 2, 3 (for comparison). */
   z2Plugin: number;
   z3Plugin: number;
+  /** Z(η) and Z(η + 2) at particle scale for a model with a growth exponent η (see the file header); absent otherwise. */
+  breakdown?: { eta: number; zEta: number | null; zEtaPlus2: number | null };
+}
+
+/** Σ p_i^q at particle scale from multinomial counts: unbiased for integer q, plug-in otherwise (file header); null when W < q. */
+export function particleMoment(counts: ArrayLike<number>, walkers: number, q: number): number | null {
+  if (Number.isInteger(q)) {
+    if (walkers < q || walkers < 1) return null;
+    let den = 1;
+    for (let j = 0; j < q; j++) den *= walkers - j;
+    let s = 0;
+    for (let i = 0; i < counts.length; i++) {
+      const c = counts[i];
+      if (c < q || c <= 0) continue;
+      let t = 1;
+      for (let j = 0; j < q; j++) t *= c - j;
+      s += t;
+    }
+    return s / den;
+  }
+  if (walkers < 1) return null;
+  let s = 0;
+  for (let i = 0; i < counts.length; i++) if (counts[i] > 0) s += (counts[i] / walkers) ** q;
+  return s;
 }
 
 /** Unbiased Σ p_i^3 from multinomial counts (see the file header). */
@@ -81,7 +113,8 @@ export function growthMomentZ3(counts: ArrayLike<number>, walkers: number): numb
   return s / (walkers * (walkers - 1) * (walkers - 2));
 }
 
-export function clusterHarmonicOf(runIndex: number, size: number, m: HarmonicMeasures, counts: ArrayLike<number>): ClusterHarmonic {
+/** `breakdownEta`: the model's growth exponent η (parameter `eta`), or null for a model without one. */
+export function clusterHarmonicOf(runIndex: number, size: number, m: HarmonicMeasures, counts: ArrayLike<number>, breakdownEta: number | null = null): ClusterHarmonic {
   const w = m.walkers;
   let z2 = 0;
   let z3 = 0;
@@ -125,5 +158,8 @@ export function clusterHarmonicOf(runIndex: number, size: number, m: HarmonicMea
     z3: growthMomentZ3(counts, w),
     z2Plugin: z2,
     z3Plugin: z3,
+    ...(breakdownEta === null
+      ? {}
+      : { breakdown: { eta: breakdownEta, zEta: particleMoment(counts, w, breakdownEta), zEtaPlus2: particleMoment(counts, w, breakdownEta + 2) } }),
   };
 }

@@ -64,6 +64,12 @@ export function probeTasksOfSet(p: ProbeSpec, ensembleSeed: string, runIndex: nu
   return probeTasksOf(p, ensembleSeed, runIndex, size, probeSetDigest(set), isBallSet(set) ? 3 : 2);
 }
 
+/** The growth exponent η of a model that has one (a parameter named `eta`, as in the dielectric breakdown model), else null. */
+export function breakdownEtaOf(model: { params: Record<string, number> }): number | null {
+  const eta = model.params.eta;
+  return typeof eta === 'number' && Number.isFinite(eta) ? eta : null;
+}
+
 /** Digest of the set of (final cluster, size). */
 export function prefixDigest(final: ClusterPositions, size: number): string {
   return probeSetDigest(clusterPrefix(final, size));
@@ -74,7 +80,7 @@ export function prefixDigest(final: ClusterPositions, size: number): string {
  * the planned jobs 0 … jobs−1 (checked), in any order.
  */
 export function analyseProbedCluster(
-  set: ProbeSet, results: readonly ProbeResult[], p: ProbeSpec, runIndex: number, size: number,
+  set: ProbeSet, results: readonly ProbeResult[], p: ProbeSpec, runIndex: number, size: number, breakdownEta: number | null = null,
 ): { record: ClusterHarmonic; counts: Float64Array } {
   const sorted = [...results].sort((a, b) => a.jobIndex - b.jobIndex);
   if (sorted.length !== p.jobs || sorted.some((r, j) => r.jobIndex !== j))
@@ -82,6 +88,6 @@ export function analyseProbedCluster(
   const digest = probeSetDigest(set);
   for (const r of sorted) if (r.geometryDigest !== digest) throw new RangeError(`probe of run ${runIndex} at size ${size}: job ${r.jobIndex} ran on set ${r.geometryDigest}, not ${digest}`);
   const a = analyseResults(set, sorted, p.q, p.window);
-  return { record: clusterHarmonicOf(runIndex, size, a.measures, a.counts), counts: a.counts };
+  return { record: clusterHarmonicOf(runIndex, size, a.measures, a.counts, breakdownEta), counts: a.counts };
 }
 

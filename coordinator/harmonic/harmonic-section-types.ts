@@ -118,6 +118,43 @@ export interface ElectrostaticCheck {
   source: string;
 }
 
+/** An estimate with its interval (ends null when there is none). */
+export interface EstimateWithInterval {
+  estimate: number | null;
+  low: number | null;
+  high: number | null;
+}
+
+/**
+ * The dielectric breakdown relations for a model with a growth exponent η
+ * (harmonic-section.ts states the rules): τ(η + 2) − τ(η) beside the mass
+ * dimension of the same probed clusters, and the capacity increment against
+ * Z(η + 2)/Z(η). At η = 1, Z(1) = 1 and these are the τ(3) = D checks.
+ */
+export interface BreakdownRelation {
+  eta: number;
+  /** Probed sizes and clusters (probed at every size, with positive moments) that enter. */
+  sizes: number[];
+  clusters: number;
+  tauDifference: EstimateWithInterval;
+  massDimension: EstimateWithInterval;
+  /** 'consistent' | 'inconsistent' | 'undetermined' (no interval). */
+  verdict: 'consistent' | 'inconsistent' | 'undetermined';
+  rule: string;
+  capacityIncrement: {
+    /** Per interval: mean increment of log capacity per particle, and the geometric mean of Z(η + 2)/Z(η) at its ends. */
+    meanIncrement: number[];
+    momentRatio: number[];
+    /** Slope of log meanIncrement against log(Z(η + 2)/Z(η)) (1 when proportional). */
+    slope: EstimateWithInterval;
+    verdict: 'proportional' | 'not proportional' | 'undetermined';
+    rule: string;
+    reason: string | null;
+  };
+  source: string;
+  reason: string | null;
+}
+
 export interface HarmonicSection {
   schema: 'tendril-harmonic/1';
   /** 2 for planar clusters, 3 for 3D ones (the capacity is then Newtonian; harmonic-section.ts); absent in older sections (then 2). */
@@ -129,6 +166,8 @@ export interface HarmonicSection {
   capacityGrowth: CapacityGrowth;
   capacityIncrement: CapacityIncrement;
   electrostatic: ElectrostaticCheck;
+  /** Present for a model with a growth exponent η (the dielectric breakdown model). */
+  breakdownRelation?: BreakdownRelation;
   /** Clusters probed at every size (the ones the growth relations use). */
   clustersAtAllSizes: number;
   /** The per-cluster records behind it (run, then size order); attached by the summary builder. */

@@ -134,7 +134,7 @@ import { bootstrapInterval, type IntervalSummary } from '../stats/bca.js';
 import type { ClusterHarmonic } from './cluster-harmonic.js';
 import { ensembleMeanInterval, type EnsembleValue } from './ensemble-intervals.js';
 import type {
-  CapacityGrowth, CapacityIncrement, ElectrostaticCheck, HarmonicAtSize, HarmonicSection,
+  BreakdownRelation, CapacityGrowth, CapacityIncrement, ElectrostaticCheck, EstimateWithInterval, HarmonicAtSize, HarmonicSection,
 } from './harmonic-section-types.js';
 import { SIGN_CONVENTION } from './probe-analysis.js';
 
@@ -321,7 +321,10 @@ function incrementVariable(logCapacity: number | null, dimension: 2 | 3): number
   return dimension === 3 ? -Math.exp(-logCapacity) : logCapacity;
 }
 
-function capacityIncrementOf(sizes: number[], groups: ReadonlyArray<readonly ClusterHarmonic[]>, seed: string | number, resamples: number, level: number, dimension: 2 | 3): CapacityIncrement {
+function capacityIncrementOf(
+  sizes: number[], groups: ReadonlyArray<readonly ClusterHarmonic[]>, seed: string | number, resamples: number, level: number,
+  dimension: 2 | 3, moment: (c: ClusterHarmonic) => number | null = (c) => c.z3, label = 'Z(3)',
+): CapacityIncrement {
   const m = sizes.length - 1;
   const base = {
     fromSize: sizes.slice(0, Math.max(m, 0)),
@@ -332,10 +335,10 @@ function capacityIncrementOf(sizes: number[], groups: ReadonlyArray<readonly Clu
     slope: null, slopeInterval: null, proportional: null, reason,
   });
   if (m < 1) return empty(`${sizes.length} probed size${sizes.length === 1 ? '' : 's'}; increments need at least 2`);
-  // per complete cluster: log cap at every size, then Z(3) at every size
-  const { rows: raw } = completeRows(groups, (c) => [incrementVariable(c.logCapacity, dimension), c.z3]);
+  // per complete cluster: the capacity variable (ln cap; −1/C in 3D) at every size, then the moment at every size
+  const { rows: raw } = completeRows(groups, (c) => [incrementVariable(c.logCapacity, dimension), moment(c)]);
   const k = raw.length;
-  if (k === 0) return empty('no cluster has a log capacity and Z(3) at every probed size');
+  if (k === 0) return empty(`no cluster has a log capacity and ${label} at every probed size`);
   const s = sizes.length;
   const cols = m + s;
   // matrix K × (m increments, s Z(3) values)
@@ -353,7 +356,7 @@ function capacityIncrementOf(sizes: number[], groups: ReadonlyArray<readonly Clu
   const ratio = meanIncrement.map((v, j) => v / z3[j]);
   const partial = { meanIncrement, z3, ratio };
   if (m < 2) return empty(`${sizes.length} probed sizes give ${m} increment; the slope needs at least 3 sizes`, partial);
-  if (k < 3) return empty(`${k} cluster${k === 1 ? '' : 's'} with a log capacity and Z(3) at every probed size; at least 3 are needed`, partial);
+  if (k < 3) return empty(`${k} cluster${k === 1 ? '' : 's'} with a log capacity and ${label} at every probed size; at least 3 are needed`, partial);
   const slopeOf = (mu: ArrayLike<number>): number => {
     const lx = new Float64Array(m);
     const ly = new Float64Array(m);
@@ -369,7 +372,7 @@ function capacityIncrementOf(sizes: number[], groups: ReadonlyArray<readonly Clu
   const slope = slopeOf(means);
   if (!Number.isFinite(slope)) {
     const bad = meanIncrement.findIndex((v, j) => !(v > 0) || !(z3[j] > 0));
-    return empty(`interval ${sizes[bad]}..${sizes[bad + 1]}: mean increment ${meanIncrement[bad].toPrecision(3)} and z3 ${z3[bad].toPrecision(3)} must both be positive for the log-log slope`, partial);
+    return empty(`interval ${sizes[bad]}..${sizes[bad + 1]}: mean increment ${meanIncrement[bad].toPrecision(3)} and ${label} ${z3[bad].toPrecision(3)} must both be positive for the log-log slope`, partial);
   }
   const rng = bootstrapRandom(seed);
   const counts = new Int32Array(k);
@@ -449,6 +452,83 @@ function electrostaticOf(bySize: HarmonicAtSize[], mass: HarmonicSectionOptions[
   };
 }
 
+export const BREAKDOWN_SOURCE =
+  'DBM form of the electrostatic scaling law, tau(eta + 2) - tau(eta) = D: Halsey 1987, Phys. Rev. Lett. 59, 2067 (citation from memory); the capacity-increment argument: coordinator/harmonic/harmonic-section.ts, with the growth density h^eta';
+export const BREAKDOWN_RULE =
+  'tau(eta+2) - tau(eta) per cluster = minus the OLS slope of log(Z(eta+2)/Z(eta)) against log(set radius) over the probed sizes; D per cluster = the OLS slope of log N against log(set radius); both ensemble means with cluster-bootstrap intervals (BCa, else percentile); consistent when the two intervals overlap, inconsistent when they do not, undetermined without both intervals';
+export const BREAKDOWN_CAPACITY_RULE =
+  'mean increment of log capacity per particle against the geometric mean of the ensemble-mean Z(eta+2)/Z(eta) at the ends of each interval between probed sizes; proportional when the cluster-bootstrap interval (BCa, else percentile) of the log-log slope contains 1, not proportional when it does not, undetermined without an interval';
+
+/**
+ * The dielectric breakdown relations (records with `breakdown` moments):
+ *  - τ(η + 2) − τ(η) = D. With Z(q, a) ∝ (a/R)^τ(q) at particle scale a and
+ *    set radius R, log(Z(η+2)/Z(η)) = −(τ(η+2) − τ(η)) log R + const; the
+ *    mass dimension of the same prefixes is the slope of log N against log R.
+ *    Both per complete cluster (a record at every size, positive moments),
+ *    then ensemble means with intervals (ensembleMeanInterval). BREAKDOWN_RULE
+ *    is the verdict's rule. At η = 1 this is the τ(3) = D check with the
+ *    set radius as the length (Z(1) = 1).
+ *  - Capacity increment: with growth density ∝ h^η (h = |∇g| on the
+ *    boundary, as in the file header), a particle lands at s with probability
+ *    h^η ds / ∫ h^η and raises log cap by c a² h(s)², so the mean increment is
+ *    ∝ ∫ h^(η+2) / ∫ h^η ∝ Z(η + 2)/Z(η) at particle scale (the a factors
+ *    cancel up to a constant). capacityIncrementOf with that moment ratio;
+ *    BREAKDOWN_CAPACITY_RULE is the verdict's rule.
+ */
+function breakdownRelationOf(sizes: number[], groups: ReadonlyArray<readonly ClusterHarmonic[]>, seed: string | number, resamples: number, level: number): BreakdownRelation | undefined {
+  const first = groups.flat().find((c) => c.breakdown !== undefined);
+  if (first === undefined || first.breakdown === undefined) return undefined;
+  const eta = first.breakdown.eta;
+  const ratioOf = (c: ClusterHarmonic): number | null => {
+    const b = c.breakdown;
+    return b && b.zEta !== null && b.zEtaPlus2 !== null && b.zEta > 0 && b.zEtaPlus2 > 0 ? b.zEtaPlus2 / b.zEta : null;
+  };
+  const none: EstimateWithInterval = { estimate: null, low: null, high: null };
+  const inc = capacityIncrementOf(sizes, groups, seed, resamples, level, 2, ratioOf, 'Z(eta+2)/Z(eta)'); // the breakdown model is planar
+  const incEnds = intervalEnds(inc.slopeInterval);
+  const capacityIncrement: BreakdownRelation['capacityIncrement'] = {
+    meanIncrement: inc.meanIncrement,
+    momentRatio: inc.z3,
+    slope: { estimate: inc.slope, low: incEnds ? incEnds[0] : null, high: incEnds ? incEnds[1] : null },
+    verdict: inc.proportional === null ? 'undetermined' : inc.proportional ? 'proportional' : 'not proportional',
+    rule: BREAKDOWN_CAPACITY_RULE,
+    reason: inc.reason,
+  };
+  const result = (clusters: number, tauDifference: EstimateWithInterval, massDimension: EstimateWithInterval, reason: string | null): BreakdownRelation => {
+    const both = tauDifference.low !== null && tauDifference.high !== null && massDimension.low !== null && massDimension.high !== null;
+    const verdict = !both ? 'undetermined' : tauDifference.low! <= massDimension.high! && massDimension.low! <= tauDifference.high! ? 'consistent' : 'inconsistent';
+    return { eta, sizes: [...sizes], clusters, tauDifference, massDimension, verdict, rule: BREAKDOWN_RULE, capacityIncrement, source: BREAKDOWN_SOURCE, reason };
+  };
+  if (sizes.length < 2) return result(0, none, none, `${sizes.length} probed size${sizes.length === 1 ? '' : 's'}; the relation needs at least 2`);
+  const { rows } = completeRows(groups, (c) => {
+    const r = ratioOf(c);
+    return [r === null ? null : Math.log(r), c.radius > 0 ? Math.log(c.radius) : null, Math.log(c.size)];
+  });
+  const k = rows.length;
+  if (k < 3) return result(k, none, none, `${k} cluster${k === 1 ? '' : 's'} with positive Z(eta) and Z(eta+2) at every probed size; at least 3 are needed`);
+  const s = sizes.length;
+  const tauDiff: number[] = [];
+  const mass: number[] = [];
+  for (const r of rows) {
+    const lr = Float64Array.from({ length: s }, (_, j) => r[3 * j + 1]);
+    const lz = Float64Array.from({ length: s }, (_, j) => r[3 * j]);
+    const ln = Float64Array.from({ length: s }, (_, j) => r[3 * j + 2]);
+    const a = fitLine(lr, lz).slope;
+    const b = fitLine(lr, ln).slope;
+    if (Number.isFinite(a) && Number.isFinite(b)) {
+      tauDiff.push(-a);
+      mass.push(b);
+    }
+  }
+  if (tauDiff.length < 3) return result(tauDiff.length, none, none, 'the set radius does not change over the probed sizes: no slope');
+  const of = (v: number[]): EstimateWithInterval => {
+    const ev = ensembleMeanInterval(v, seed, resamples, level);
+    const ends = intervalEnds(ev.interval);
+    return { estimate: ev.mean, low: ends ? ends[0] : null, high: ends ? ends[1] : null };
+  };
+  return result(tauDiff.length, of(tauDiff), of(mass), null);
+}
+
 /** The harmonic section of an ensemble summary from its per-(run, size) records (see the file header). */
 export function harmonicSection(clusters: readonly ClusterHarmonic[], o: HarmonicSectionOptions): HarmonicSection {
   const resamples = checkOption('resamples', o.resamples ?? 2000, 10, 1_000_000, true);
@@ -474,6 +554,7 @@ export function harmonicSection(clusters: readonly ClusterHarmonic[], o: Harmoni
   const bySize = sizes.map((n, j) => atSize(n, groups[j], q, o.seed, resamples, level));
   const runSets = groups.map((g) => new Set(g.map((c) => c.runIndex)));
   const clustersAtAllSizes = groups.length === 0 ? 0 : groups[0].filter((c) => runSets.every((s) => s.has(c.runIndex))).length;
+  const breakdown = breakdownRelationOf(sizes, groups, o.seed, resamples, level);
   return {
     schema: 'tendril-harmonic/1',
     dimension,
@@ -483,6 +564,7 @@ export function harmonicSection(clusters: readonly ClusterHarmonic[], o: Harmoni
     capacityGrowth: capacityGrowthOf(sizes, groups, o.seed, resamples, level),
     capacityIncrement: capacityIncrementOf(sizes, groups, o.seed, resamples, level, dimension),
     electrostatic: electrostaticOf(bySize, o.massDimension, particleScaleOf(sizes, groups, o.seed, resamples, level, dimension, o.massDimension), dimension),
+    ...(breakdown ? { breakdownRelation: breakdown } : {}),
     clustersAtAllSizes,
   };
 }

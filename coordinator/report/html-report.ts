@@ -252,6 +252,16 @@ function harmonicPanel(h: HarmonicSection, top: HarmonicAtSize | undefined): str
       items.push(verdictItem('electrostatic-particle', `The same law at particle scale, Z(3) ∝ N^{−τ(3)/D} over N = ${ps.sizes.map((n) => fmtAbscissa(n)).join(', ')} (${ps.clusters} clusters): ${valueText('τ(3)/D', ps.ratio, ps.ratioInterval, 3)}; ${says}.`, ps.consistent ?? null, d3 ? 'consistent (intervals overlap)' : 'consistent (1 inside the interval)', d3 ? 'inconsistent (intervals do not overlap)' : 'inconsistent (1 outside the interval)', 'not judged'));
     } else if (ps) items.push(`<li data-check="electrostatic-particle" class="na">Particle-scale form of τ(3) = D: not available (${escapeHtml(ps.reason ?? 'no ratio')}).</li>`);
   }
+  const b = h.breakdownRelation;
+  if (b) {
+    const ivText = (v: { estimate: number | null; low: number | null; high: number | null }, digits = 3): string =>
+      isFiniteNumber(v.estimate) ? `${fmt(v.estimate, digits)}${isFiniteNumber(v.low) && isFiniteNumber(v.high) ? ` ${fmtRange([v.low, v.high])}` : ' (no interval)'}` : 'not available';
+    const verdict = b.verdict === 'undetermined' ? null : b.verdict === 'consistent';
+    items.push(verdictItem('breakdown', `Dielectric breakdown relation τ(η + 2) − τ(η) = D at η = ${fmt(b.eta, 3)}, particle scale, over N = ${b.sizes.map((n) => fmtAbscissa(n)).join(', ')} (${b.clusters} clusters): τ(η + 2) − τ(η) = ${ivText(b.tauDifference)}; D of the same sets = ${ivText(b.massDimension)}${b.reason ? ` (${b.reason})` : ''}. Rule: ${b.rule}. Source: ${b.source}.`, verdict, 'consistent (intervals overlap)', 'inconsistent (intervals do not overlap)', 'undetermined'));
+    const ci = b.capacityIncrement;
+    const civ = ci.verdict === 'undetermined' ? null : ci.verdict === 'proportional';
+    items.push(verdictItem('breakdown-increment', `Capacity increment at η = ${fmt(b.eta, 3)}: log–log slope of mean Δ ln cap/ΔN against Z(η + 2)/Z(η), slope = ${ivText(ci.slope)}${ci.reason ? ` (${ci.reason})` : ''}; proportional means slope 1. Rule: ${ci.rule}.`, civ, 'proportional (1 inside the interval)', 'not proportional (1 outside the interval)', 'undetermined'));
+  }
   return `<ul id="harmonic-panel">${items.join('')}</ul>`;
 }
 
