@@ -22,7 +22,7 @@ import { growthTaskOf } from '../proto/convert.js';
 import { LatticePotential, squarePotential, triangularPotential } from '../worker/lattice/potential-kernel.js';
 import { SQUARE, TRIANGULAR, planeOf, toPlane, type PlanarLattice } from '../worker/lattice/planar-lattice.js';
 import { createKernel, modelDescriptor } from '../worker/models/registry.js';
-import { probeGeometryOf, probedPointsOf, runPlanarProbeJob } from '../worker/probe/probe-dispatch.js';
+import { prepareProbe, probedPointsOf } from '../worker/probe/probe-set.js';
 import type { DiskSet } from '../worker/probe/disk-set.js';
 import { harmonicMeasureFromInfinity } from './support/lattice-potential.js';
 
@@ -96,9 +96,9 @@ describe('lattice probes: hit frequencies equal the exact discrete harmonic meas
 
   it('refuses points that are not lattice sites, and repeated sites, in one line', () => {
     const bad: DiskSet = { count: 2, x: [0, 0.5], y: [0, 0], r: 1, lattice: 'square' };
-    expect(() => probeGeometryOf(bad)).toThrow(/point 1 \(0\.5, 0\) is not a site of the square lattice/);
+    expect(() => prepareProbe(bad)).toThrow(/point 1 \(0\.5, 0\) is not a site of the square lattice/);
     const twice: DiskSet = { count: 2, x: [1, 1], y: [0, 0], r: 1, lattice: 'triangular' };
-    expect(() => probeGeometryOf(twice)).toThrow(/point 1 repeats the site/);
+    expect(() => prepareProbe(twice)).toThrow(/point 1 repeats the site/);
   });
 });
 
@@ -148,10 +148,10 @@ describe('lattice models in ensembles with a [probe] table', () => {
         const p = k.positions();
         const final = { dimension: 2, count: p.count, coords: p.coords.slice(0, 2 * p.count) };
         return probeSizesOf(spec).map((size) => {
-          const set = clusterPrefix(final, size, model);
+          const set = clusterPrefix(final, size, model) as DiskSet;
           expect(set.lattice).toBe(modelDescriptor(model).lattice);
-          const g = probeGeometryOf(set);
-          const results = probeTasksOf(spec.probe!, spec.seed, runIndex, size, prefixDigest(final, size, model)).map((t) => runPlanarProbeJob(g, t));
+          const g = prepareProbe(set);
+          const results = probeTasksOf(spec.probe!, spec.seed, runIndex, size, prefixDigest(final, size, model)).map((t) => g.run(t));
           return analyseProbedCluster(set, results, spec.probe!, runIndex, size).record;
         });
       });

@@ -36,7 +36,7 @@ import { parseRangeOption, parseSeedOption } from './option-values.js';
 import { describeRange } from '../../worker/core/value-range.js';
 import { defaultProbeJobs, PROBE_CONTACT_SAMPLE, PROBE_JOBS, PROBE_MIN_STEP, PROBE_Q_MAX_VALUES, PROBE_Q_VALUE, PROBE_WALKERS, probeSettingsProblems, type ProbeSettingSpec } from '../harmonic/probe-settings.js';
 import { readProbeInput, type ProbeInput } from '../harmonic/probe-input.js';
-import { probedPointsOf } from '../../worker/probe/probe-dispatch.js';
+import { probedPointsOf } from '../../worker/probe/probe-set.js';
 import { runProbes } from '../harmonic/probe-run.js';
 import { measurePictureGeometry, renderMeasurePng } from '../harmonic/measure-picture.js';
 import { DEFAULT_PROBE_MIN_STEP } from '../../worker/probe/probe-2d.js';

@@ -17,7 +17,8 @@ import { finalKey, hitsKey } from '../../worker/runtime/job-contract.js';
 import { createKernel } from '../../worker/models/registry.js';
 import type { ArtifactStore } from '../farm/artifacts.js';
 import { CLUSTER_CONTACT_RADIUS, clusterPrefix, positionsOf } from '../harmonic/ensemble-probing.js';
-import { probedPointsOf } from '../../worker/probe/probe-dispatch.js';
+import { probedPointsOf } from '../../worker/probe/probe-set.js';
+import type { DiskSet } from '../../worker/probe/disk-set.js';
 import { measurePictureGeometry, renderMeasurePng } from '../harmonic/measure-picture.js';
 import type { MeasurePictureInput } from '../report/harmonic-plots.js';
 import { runTaskFor } from '../plan.js';
@@ -107,9 +108,9 @@ export async function reportPictures(src: ReportPictureSource): Promise<ReportPi
     if (!fin) continue;
     const pos = positionsOf(decodeCheckpoint(fin));
     const counts = new Float64Array(Uint8Array.from(hits).buffer);
-    if (pos.count !== size) continue;
+    if (pos.count !== size || pos.dimension !== 2) continue;
     // the points that carry the measure: the particles, or a lattice cluster's perimeter sites
-    const pts = probedPointsOf(clusterPrefix(pos, size, src.spec.model.kind));
+    const pts = probedPointsOf(clusterPrefix(pos, size, src.spec.model.kind) as DiskSet);
     if (counts.length !== pts.count) continue;
     out.measurePicture = clusterMeasurePicture(run.runIndex, size, Float64Array.from(pts.x), Float64Array.from(pts.y), counts);
     return out;

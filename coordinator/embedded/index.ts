@@ -27,10 +27,11 @@
 import { availableParallelism } from 'node:os';
 import { decodeCheckpoint, decodeRunResult, type RunResultData, type RunTaskData } from '../../proto/convert.js';
 import { axisOf } from '../../worker/core/positions.js';
+import { probedPointsOf } from '../../worker/probe/probe-set.js';
+import type { DiskSet } from '../../worker/probe/disk-set.js';
 import { ProbeThreadPool } from '../../worker/runtime/probe-thread-pool.js';
 import type { ProbeResult } from '../../worker/probe/probe-2d.js';
-import { probeSetDigest, probedPointsOf } from '../../worker/probe/probe-dispatch.js';
-import { analyseProbedCluster, breakdownEtaOf, clusterPrefix, positionsOf, probeTasksOf } from '../harmonic/ensemble-probing.js';
+import { analyseProbedCluster, breakdownEtaOf, clusterPrefix, positionsOf, probeTasksOfSet } from '../harmonic/ensemble-probing.js';
 import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
 import { TaskThreadPool, type ThreadRun } from '../../worker/runtime/task-thread.js';
 import { runOne } from '../../worker/runtime/run-lifecycle.js';
@@ -61,7 +62,7 @@ export interface EmbeddedProgress {
   probePassTotal: number;
 }
 
-/** The hit counts of one probed cluster at its final size, for the report's picture. */
+/** The hit counts of one probed planar cluster at its final size, for the report's picture (the measure picture is planar: none for 3D clusters). */
 export interface ProbedPicture {
   runIndex: number;
   size: number;
@@ -238,7 +239,7 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
     const final = pos;
     const groups = await Promise.all(probeSizes.map(async (size) => {
       const set = clusterPrefix(final, size, spec.model.kind);
-      const tasks = probeTasksOf(probe!, spec.seed, runIndex, size, probeSetDigest(set));
+      const tasks = probeTasksOfSet(probe!, spec.seed, runIndex, size, set);
       const out = await Promise.all(tasks.map(async (t) => {
         if (opts.signal?.aborted) return null;
         try {
@@ -261,9 +262,9 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
       recs.push(record);
       if (g.size === spec.particles) {
         if (store) await store.put(hitsKey(opts.ensembleId, runIndex), new Uint8Array(counts.buffer, counts.byteOffset, counts.byteLength));
-        if (picture === null || runIndex < picture.runIndex) {
+        if (final.dimension === 2 && (picture === null || runIndex < picture.runIndex)) {
           // the points that carry the measure: the particles, or a lattice cluster's perimeter sites
-          const pts = probedPointsOf(g.set);
+          const pts = probedPointsOf(g.set as DiskSet);
           picture = { runIndex, size: g.size, x: Float64Array.from(pts.x), y: Float64Array.from(pts.y), counts };
         }
       }
@@ -340,8 +341,8 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
       if (fin && hits) {
         const pos = positionsOf(decodeCheckpoint(fin));
         const counts = new Float64Array(Uint8Array.from(hits).buffer);
-        const pts = probedPointsOf(clusterPrefix(pos, spec.particles, spec.model.kind));
-        if (counts.length === pts.count) picture = { runIndex: first, size: spec.particles, x: Float64Array.from(pts.x), y: Float64Array.from(pts.y), counts };
+        const pts = pos.dimension === 2 ? probedPointsOf(clusterPrefix(pos, spec.particles, spec.model.kind) as DiskSet) : null;
+        if (pts && counts.length === pts.count) picture = { runIndex: first, size: spec.particles, x: Float64Array.from(pts.x), y: Float64Array.from(pts.y), counts };
       }
     }
   }

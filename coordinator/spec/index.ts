@@ -296,6 +296,8 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv(),
   }
   const noProbe = pr ? probeProblem(modelDescriptor(d.model)) : null;
   if (noProbe !== null) problems.push(noProbe);
+  const noContact = pr ? contactSampleProblem(modelDescriptor(d.model), pr.contact_sample) : null;
+  if (noContact !== null) problems.push(noContact);
   if (problems.length > 0) throw new SpecError(problems);
 
   const analysis: AnalysisSettings = {};
@@ -325,6 +327,8 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv(),
     probe: pr
       ? {
           ...probeSettingsOf(pr as ProbeSettingsDocument),
+          // 3D probes keep no contact points (contactSampleProblem)
+          ...(modelDescriptor(d.model).probe === 'balls-3d' ? { contactSample: 0 } : {}),
           atSizes: [...(pr.at_sizes ?? [])].sort((a: number, b: number) => a - b),
         }
       : null,
@@ -347,6 +351,12 @@ export function probeProblem(d: ModelDescriptor, models: readonly ModelDescripto
   if (d.probe !== null) return null;
   const probed = models.filter((m) => m.probe !== null).map((m) => m.kind);
   return `probe: ${d.kind} has no harmonic-measure probe; allowed: a spec without [probe] for this model (probes apply to ${probed.join(', ') || 'no model'})`;
+}
+
+/** The one line refusing probe.contact_sample for a model probed in 3D (no contact points are kept there), or null. */
+export function contactSampleProblem(d: ModelDescriptor, contactSample: unknown): string | null {
+  if (d.probe !== 'balls-3d' || contactSample === undefined) return null;
+  return `probe.contact_sample: ${quoteValue(contactSample)} is not used by ${d.kind}; allowed: no contact_sample (3D probes keep no contact points: the Newtonian capacity comes from the share of probes that hit)`;
 }
 
 /** Parse and validate in one go. */
@@ -399,7 +409,7 @@ export function specToDocument(s: EnsembleSpec): Record<string, unknown> {
             walkers: s.probe.walkers,
             jobs: s.probe.jobs,
             q: [...s.probe.q],
-            contact_sample: s.probe.contactSample,
+            ...(modelDescriptor(s.model.kind).probe === 'balls-3d' ? {} : { contact_sample: s.probe.contactSample }),
             min_step: s.probe.minStep,
             ...(s.probe.atSizes.length > 0 ? { at_sizes: [...s.probe.atSizes] } : {}),
             ...(s.probe.window ? { window: [...s.probe.window] } : {}),

@@ -68,12 +68,14 @@ export interface ModelReference {
 /**
  * How a cluster of this model is probed for its harmonic measure:
  * 'disks-2d' = walkers from infinity onto disks of one particle diameter
- * about the centres (worker/probe/probe-2d.ts); 'lattice-sites' = the
- * lattice's own walkers from infinity onto the perimeter sites of the
+ * about the centres (worker/probe/probe-2d.ts); 'balls-3d' = the same in 3D
+ * onto balls of one particle diameter, with the Newtonian capacity from the
+ * hit rate and no contact sample (worker/probe/probe-3d.ts); 'lattice-sites'
+ * = the lattice's own walkers from infinity onto the perimeter sites of the
  * cluster's sites (worker/probe/probe-lattice.ts; the model's `lattice`
- * names the lattice).
+ * names the lattice). All run through worker/probe/probe-set.ts.
  */
-export type ProbeKind = 'disks-2d' | 'lattice-sites';
+export type ProbeKind = 'disks-2d' | 'balls-3d' | 'lattice-sites';
 /**
  * How a cluster of this model is drawn: 'disks' = every particle as a disk
  * of its diameter coloured by arrival order (coordinator/render/cluster-picture.ts;
