@@ -160,7 +160,7 @@ describe('[probe] for dla-offlattice-3d in a spec', () => {
     expect(problems({ ...doc, probe: { ...doc.probe, contact_sample: 500 } })).toEqual([
       'probe.contact_sample: 500 is not used by dla-offlattice-3d; allowed: no contact_sample (3D probes keep no contact points: the Newtonian capacity comes from the share of probes that hit)',
     ]);
-    expect(problems({ ...doc, model: 'eden-square' })[0]).toMatch(/^probe: eden-square has no harmonic-measure probe; allowed: a spec without \[probe\] for this model \(probes apply to [a-z0-9-, ]*dla-offlattice-3d[a-z0-9-, ]*\)$/);
+    expect(problems({ ...doc, model: 'eden-offlattice-2d' })[0]).toMatch(/^probe: eden-offlattice-2d has no harmonic-measure probe; allowed: a spec without \[probe\] for this model \(probes apply to [a-z0-9-, ]*dla-offlattice-3d[a-z0-9-, ]*\)$/);
   });
 });
 
