@@ -28,8 +28,8 @@ import { describeRange } from '../../worker/core/value-range.js';
 import { optionNumber, parseRangeOption, parseSeedOption } from './option-values.js';
 import { checkModelParams, createKernel, MODEL_KINDS, modelDescriptor, modelParams } from '../../worker/models/registry.js';
 import type { ClusterPositions, GrowthResult, GrowthTask, ModelParams } from '../../worker/core/growth-kernel.js';
-import { encodeSnapshot, pointSetOf } from '../snapshot/cluster-snapshot.js';
-import { DEFAULT_PICTURE_SIZE } from '../render/cluster-picture.js';
+import { writeSnapshotFile } from '../snapshot/cluster-snapshot.js';
+import { DEFAULT_PICTURE_SIZE, renderClusterPng } from '../render/cluster-picture.js';
 import { clusterFigure } from '../report/plots.js';
 import { pngRenderer } from '../report/png-plot.js';
 import { RECORDS_PER_DECADE as SHARED_RECORDS_PER_DECADE } from '../../worker/core/record-sizes.js';
@@ -218,16 +218,20 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
     picture: d.picture === null ? null : join(dir, PICTURE_FILE),
     figure: null as string | null,
   };
-  writeFileSync(files.snapshot, encodeSnapshot(pointSetOf(pos, d.contactDistance)));
-  const picturePoints = picturePointsOf(task.model.kind, pos);
-  if (files.picture !== null && picturePoints !== null) {
-    writeFileSync(files.picture, renderModelPicture(task.model.kind, picturePoints, o.pictureSize));
+  // streamed from the kernel's positions: no copy of the cluster is made for the outputs
+  writeSnapshotFile(files.snapshot, pos, d.contactDistance);
+  if (files.picture !== null && d.picture === 'disks') {
+    const inPlace = { positions: pos, diameter: d.contactDistance };
+    writeFileSync(files.picture, renderClusterPng(inPlace, { size: o.pictureSize }));
     // planar clusters: the same picture with a title, a scale bar in particle diameters and a colour key
     const { renderer } = pngRenderer();
-    if (renderer && d.picture === 'disks') {
+    if (renderer) {
       files.figure = join(dir, FIGURE_FILE);
-      writeFileSync(files.figure, renderer.render(clusterFigure(picturePoints, null, Math.min(o.pictureSize, 1400)).figure.svg, 2));
+      writeFileSync(files.figure, renderer.render(clusterFigure(inPlace, null, Math.min(o.pictureSize, 1400)).figure.svg, 2));
     }
+  } else if (files.picture !== null) {
+    const picturePoints = picturePointsOf(task.model.kind, pos);
+    if (picturePoints !== null) writeFileSync(files.picture, renderModelPicture(task.model.kind, picturePoints, o.pictureSize));
   }
   const writeSeconds = (performance.now() - w0) / 1000;
   const timing: GrowTiming = {
