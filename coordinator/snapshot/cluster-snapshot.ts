@@ -25,12 +25,14 @@
  * count=N, offset=32 + 8*N*k) for axis k). Because the header is 32 bytes,
  * every coordinate is 8-byte aligned from the start of the file.
  */
-import * as zlib from 'node:zlib';
 import { closeSync, fstatSync, openSync, readFileSync, readSync, renameSync, rmSync, writeSync } from 'node:fs';
 import { endianness } from 'node:os';
 import type { ClusterPositions } from '../../worker/core/growth-kernel.js';
 import { axisOf } from '../../worker/core/positions.js';
 import { TendrilError } from '../../proto/errors.js';
+import { crc32 } from '../../proto/crc32.js';
+
+export { crc32, crc32Portable } from '../../proto/crc32.js';
 
 export const SNAPSHOT_MAGIC = 'TNDRLSNP';
 export const SNAPSHOT_VERSION = 1;
@@ -75,36 +77,6 @@ export class SnapshotError extends TendrilError {
 }
 
 const LITTLE_ENDIAN_HOST = endianness() === 'LE';
-
-// zlib.crc32 exists from Node 20.15; a namespace import keeps older Nodes loading.
-const nativeCrc32 = (zlib as { crc32?: (data: Uint8Array) => number }).crc32;
-
-let crcTable: Uint32Array | undefined;
-
-/**
- * Table-driven CRC-32 (IEEE), used when node:zlib has no crc32 (Node < 20.15).
- * `prior` continues the CRC of the bytes before `data` (0 to start).
- */
-export function crc32Portable(data: Uint8Array, start = 0, end = data.length, prior = 0): number {
-  if (crcTable === undefined) {
-    crcTable = new Uint32Array(256);
-    for (let n = 0; n < 256; n++) {
-      let c = n;
-      for (let k = 0; k < 8; k++) c = c & 1 ? 0xedb88320 ^ (c >>> 1) : c >>> 1;
-      crcTable[n] = c >>> 0;
-    }
-  }
-  const t = crcTable;
-  let c = (prior ^ 0xffffffff) >>> 0;
-  for (let i = start; i < end; i++) c = t[(c ^ data[i]) & 0xff] ^ (c >>> 8);
-  return (c ^ 0xffffffff) >>> 0;
-}
-
-/** CRC-32 (IEEE) of data[start, end), continuing `prior` (the CRC of the bytes before; 0 to start). */
-export function crc32(data: Uint8Array, start = 0, end = data.length, prior = 0): number {
-  if (nativeCrc32 !== undefined) return (nativeCrc32 as (d: Uint8Array, v?: number) => number)(data.subarray(start, end), prior) >>> 0;
-  return crc32Portable(data, start, end, prior);
-}
 
 function validatePointSet(p: PointSet): void {
   if (p.dimension !== 2 && p.dimension !== 3) throw new RangeError(`snapshot dimension must be 2 or 3, got ${String(p.dimension)}`);

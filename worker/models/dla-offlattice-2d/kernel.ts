@@ -117,7 +117,8 @@ export class OffLatticeDla2d implements GrowthKernel {
     this.maxSteps = limits.maxStepsPerParticle ?? MAX_STEPS_PER_PARTICLE;
     this.minStep = task.model.params.min_step;
     this.launchMargin = task.model.params.launch_margin;
-    this.xy = new Float64Array(2 * task.particles);
+    // a checkpoint's positions array with room for the whole run becomes the kernel's own (no second copy)
+    this.xy = checkpoint !== undefined && checkpoint.positions.length >= 2 * task.particles ? checkpoint.positions : new Float64Array(2 * task.particles);
     this.index = new OccupancyIndex2d(task.particles, this.xy);
     this.sizes = recordSizes(task.particles, task.recordsPerDecade);
     if (checkpoint === undefined) {
@@ -161,12 +162,16 @@ export class OffLatticeDla2d implements GrowthKernel {
   }
 
   checkpoint(): GrowthCheckpoint {
+    return { ...this.checkpointView(), positions: this.xy.slice(0, 2 * this.n) };
+  }
+
+  checkpointView(): GrowthCheckpoint {
     return {
       engineVersion: ENGINE_VERSION,
       task: structuredClone(this.task),
       dimension: 2,
       count: this.n,
-      positions: this.xy.slice(0, 2 * this.n),
+      positions: this.xy.subarray(0, 2 * this.n),
       rngState: this.rng.state(),
       counters: { ...this.counters },
       series: structuredClone(this.series),
