@@ -133,7 +133,7 @@ export class OccupancyIndex2d {
   private ringCount = -1;
 
   /** Level-0 cell → newest bucket of its chain (-1: none). */
-  private readonly heads: TiledInt32Grid;
+  private heads: TiledInt32Grid;
   /** Centres in arrival order, interleaved (x0, y0, x1, y1, …): the owner's array, or the index's own (ownsXy). */
   private xy: Float64Array;
   private readonly ownsXy: boolean;
@@ -143,9 +143,9 @@ export class OccupancyIndex2d {
   private chain: Int32Array;
   private buckets = 0;
   /** marks[k]: mark cells of side 2^(k+1), k = 0..MAX_LEVEL. */
-  private readonly marks: TiledByteGrid[] = [];
+  private marks: TiledByteGrid[] = [];
   /** One bit per level-0 cell, set when the cell holds a centre (the HOLDS bits of marks[0], laid out for window reads). */
-  private readonly held0: WindowBitGrid;
+  private held0: WindowBitGrid;
   /** Level at which the next search starts (a speed hint only). */
   private guess = 1;
   private count = 0;
@@ -170,6 +170,25 @@ export class OccupancyIndex2d {
       this.marks.push(new TiledByteGrid(Math.max(4, expect)));
       expect = expect >> 2;
     }
+  }
+
+  /**
+   * Give back the index's memory (all but a few bytes) when it will not be
+   * asked again, e.g. once a cluster is complete, so that writing a giant
+   * cluster's outputs does not hold it too. Afterwards the index is empty:
+   * `size` is 0 and queries answer as for no centres.
+   */
+  release(): void {
+    this.heads = new TiledInt32Grid(-1, 4);
+    this.held0 = new WindowBitGrid(4);
+    this.marks = this.marks.map(() => new TiledByteGrid(4));
+    this.ids = new Int32Array(0);
+    this.fill = new Uint8Array(0);
+    this.chain = new Int32Array(0);
+    this.buckets = 0;
+    this.count = 0;
+    this.scanCx = NO_CELL;
+    if (this.ownsXy) this.xy = new Float64Array(0);
   }
 
   /** Number of centres inserted. */

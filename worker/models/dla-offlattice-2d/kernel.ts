@@ -94,6 +94,7 @@ export class OffLatticeDla2d implements GrowthKernel {
   private readonly launchMargin: number;
   /** Centres in arrival order, interleaved: x0, y0, x1, y1, … */
   private readonly xy: Float64Array;
+  /** Released (emptied) once the cluster is complete: nothing queries it then, and outputs are written without it. */
   private readonly index: OccupancyIndex2d;
   private readonly rng: Random;
   private readonly sizes: number[];
@@ -306,6 +307,7 @@ export class OffLatticeDla2d implements GrowthKernel {
       recordPlanarAnisotropy(this.series.extra, this.xy, 2, n, this.rMax);
       this.nextRecord++;
     }
+    if (this.n === this.task.particles) this.index.release();
   }
 
   /** Add a particle to positions, index and running sums (no record). */
