@@ -39,6 +39,7 @@ import { clusterFigure } from '../report/plots.js';
 import { pngRenderer } from '../report/png-plot.js';
 import { RECORDS_PER_DECADE as SHARED_RECORDS_PER_DECADE } from '../../worker/core/record-sizes.js';
 import { checkOutFolder, makeOutFolder } from './out-folder.js';
+import { collectGarbage } from './collect-garbage.js';
 import { noPictureReason, picturePointsOf, renderModelPicture } from '../render/model-picture.js';
 import { createProgress, formatRate, type ProgressMode } from '../progress/progress.js';
 
@@ -242,6 +243,8 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
   const radii = clusterRadii(pos);
 
   makeOutFolder(dir, o.out);
+  // the index is released by now (worker/index/occupancy-index-2d.ts release()); give its arrays back before drawing
+  collectGarbage();
   const w0 = performance.now();
   const d = modelDescriptor(task.model.kind);
   const files = {
