@@ -92,7 +92,8 @@ export interface GrowSummary {
 }
 
 /** Limits of grow's own options (the model's parameters come from its descriptor). */
-export const GROW_PARTICLES = { min: 2, max: 100_000_000, integer: true } as const;
+/** Up to 10^9: the positions (16 GB at 10^9) stay within a typed array's 2^32 entries; the index's int32 fields within range (docs in README, Giant clusters). */
+export const GROW_PARTICLES = { min: 2, max: 1_000_000_000, integer: true } as const;
 export const PICTURE_SIZE = { min: 64, max: 8192, integer: true } as const;
 export const RECORDS_PER_DECADE = { min: SHARED_RECORDS_PER_DECADE.min, max: SHARED_RECORDS_PER_DECADE.max, integer: true } as const;
 export const CHECKPOINT_EVERY_SECONDS = { min: 0.5, max: 86_400 } as const;
@@ -326,7 +327,7 @@ export function register(program: Command): void {
   program
     .command('grow')
     .description('grow one cluster of a model (see tendril models) and write its run result, snapshot and picture')
-    .option('--particles <n>', 'cluster size, seed particle included (integer in [2, 100000000])')
+    .option('--particles <n>', 'cluster size, seed particle included (integer in [2, 1000000000])')
     .option('--seed <s>', 'ensemble seed, unsigned 64-bit integer in decimal (the cluster is run 0)')
     .option('--out <dir>', 'output folder, created if missing')
     .option('--model <kind>', `growth model, one of ${MODEL_KINDS.join(', ')} (default ${MODEL_KINDS[0]})`)
