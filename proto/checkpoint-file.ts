@@ -10,7 +10,8 @@
  *
  * Files written before frames (one protobuf message) are still read.
  */
-import { closeSync, fstatSync, openSync, readFileSync, readSync, renameSync, rmSync, writeSync, fsyncSync } from 'node:fs';
+import { closeSync, fstatSync, openSync, readFileSync, readSync } from 'node:fs';
+import { writeFileAtomically } from './atomic-file.js';
 import { endianness } from 'node:os';
 import { checkpointFromMessage, ContractError, decodeCheckpoint, encodeCheckpointHeader, type CheckpointData } from './convert.js';
 import { FRAME_PREFIX_BYTES, FRAME_TRAILER_BYTES, frameHead, framePrefix, isCheckpointFrame } from './checkpoint-frame.js';
@@ -26,12 +27,9 @@ export function writeCheckpointFile(path: string, c: CheckpointData): number {
   const s = c.state;
   const values = s.count * s.dimension;
   if (s.positions.length < values) throw new RangeError(`checkpoint positions hold ${s.positions.length} values, fewer than ${values}`);
-  const tmp = `${path}.${process.pid}.tmp`;
-  const fd = openSync(tmp, 'w');
-  let written = 0;
-  try {
+  return writeFileAtomically(path, (put) => {
     const head = frameHead(encodeCheckpointHeader(c));
-    written += writeSync(fd, head);
+    put(head);
     let crc = crc32(head);
     const p = s.positions;
     const chunk = LITTLE_ENDIAN ? null : new Float64Array(CHUNK_VALUES);
@@ -45,25 +43,12 @@ export function writeCheckpointFile(path: string, c: CheckpointData): number {
         bytes = new Uint8Array(chunk.buffer, 0, 8 * m);
       }
       crc = crc32(bytes, 0, bytes.length, crc);
-      for (let o = 0; o < bytes.length; ) o += writeSync(fd, bytes, o, bytes.length - o);
-      written += bytes.length;
+      put(bytes);
     }
     const trailer = new Uint8Array(FRAME_TRAILER_BYTES);
     new DataView(trailer.buffer).setUint32(0, crc >>> 0, true);
-    written += writeSync(fd, trailer);
-    fsyncSync(fd);
-    closeSync(fd);
-    renameSync(tmp, path);
-    return written;
-  } catch (err) {
-    try {
-      closeSync(fd);
-    } catch {
-      // already closed
-    }
-    rmSync(tmp, { force: true });
-    throw err;
-  }
+    put(trailer);
+  });
 }
 
 /**

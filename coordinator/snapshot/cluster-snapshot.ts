@@ -25,7 +25,8 @@
  * count=N, offset=32 + 8*N*k) for axis k). Because the header is 32 bytes,
  * every coordinate is 8-byte aligned from the start of the file.
  */
-import { closeSync, fstatSync, openSync, readFileSync, readSync, renameSync, rmSync, writeSync } from 'node:fs';
+import { closeSync, fstatSync, openSync, readFileSync, readSync } from 'node:fs';
+import { writeFileAtomically } from '../../proto/atomic-file.js';
 import { endianness } from 'node:os';
 import type { ClusterPositions } from '../../worker/core/growth-kernel.js';
 import { axisOf } from '../../worker/core/positions.js';
@@ -117,19 +118,16 @@ const STREAM_CHUNK = 1 << 17;
  * snapshot file, streamed: the axes are gathered 1 MiB at a time into one
  * reused buffer, so no copy of the cluster is ever held (a giant cluster's
  * snapshot costs 1 MiB of memory, not 16 bytes per particle). The file is
- * written to `path` + a temporary suffix and renamed into place, so a
- * reader never sees half of it. Same bytes as encodeSnapshot.
+ * published whole (proto/atomic-file.ts). Same bytes as encodeSnapshot.
  */
 export function writeSnapshotFile(path: string, p: ClusterPositions, diameter: number, count = p.count): void {
   const d = p.dimension;
   if (d !== 2 && d !== 3) throw new RangeError(`snapshot dimension must be 2 or 3, got ${String(d)}`);
   if (!(Number.isFinite(diameter) && diameter > 0)) throw new RangeError(`snapshot diameter must be a finite number > 0, got ${diameter}`);
   const n = Math.min(count, p.count);
-  const tmp = `${path}.${process.pid}.tmp`;
-  const fd = openSync(tmp, 'w');
-  try {
+  writeFileAtomically(path, (put) => {
     const header = snapshotHeader(d, n, diameter, true);
-    writeSync(fd, header);
+    put(header);
     let crc = crc32(header);
     const chunk = new Float64Array(STREAM_CHUNK);
     const bytes = new Uint8Array(chunk.buffer);
@@ -142,23 +140,13 @@ export function writeSnapshotFile(path: string, p: ClusterPositions, diameter: n
         else for (let i = 0; i < m; i++) view.setFloat64(8 * i, c[(i0 + i) * d + k], true);
         const part = bytes.subarray(0, 8 * m);
         crc = crc32(part, 0, part.length, crc);
-        writeSync(fd, part);
+        put(part);
       }
     }
     const trailer = Buffer.alloc(SNAPSHOT_TRAILER_BYTES);
     trailer.writeUInt32LE(crc >>> 0, 0);
-    writeSync(fd, trailer);
-    closeSync(fd);
-    renameSync(tmp, path);
-  } catch (err) {
-    try {
-      closeSync(fd);
-    } catch {
-      // already closed
-    }
-    rmSync(tmp, { force: true });
-    throw err;
-  }
+    put(trailer);
+  });
 }
 
 /**
