@@ -2,6 +2,7 @@
 import { writeFile } from 'node:fs/promises';
 import type { Command } from 'commander';
 import type { EnsembleStatus, EnsembleStore } from '../farm/store.js';
+import type { SweepStatus } from '../farm/sweeps.js';
 import { formatDuration, formatRate } from '../progress/index.js';
 import { CSV_TABLE_NAMES, SUMMARY_FORMATS, type SummaryFormat } from '../summary/formats.js';
 import { UsageError } from '../usage-error.js';
@@ -29,6 +30,17 @@ export function statusLine(s: EnsembleStatus): string {
     parts.push(`probes ${s.probes.done}/${s.probes.planned} analysed${s.probes.failed > 0 ? `, ${s.probes.failed} failed (first: run ${s.probes.failures[0].runIndex} at N = ${s.probes.failures[0].size}: ${s.probes.failures[0].reason})` : ''}`);
   }
   return parts.join('; ');
+}
+
+/** The lines of a sweep's state: the totals over its members, then one line per member (its value, then its status line). */
+export function sweepStatusLines(s: SweepStatus): string[] {
+  const r = s.runs;
+  const head = [
+    `${s.id}  ${s.state.padEnd(9)} ${s.name}  sweep over ${s.parameter} (${s.values.length} values)  runs ${r.done}/${r.planned} done, ${r.running} running, ${r.queued} queued, ${r.failed} failed`,
+    `${s.particles.done}/${s.particles.total} particles`,
+  ];
+  if (s.state === 'running' && s.throughput > 0) head.push(`${formatRate(s.throughput)} particles/s${s.etaSeconds !== null ? `, about ${formatDuration(s.etaSeconds)} left` : ''}`);
+  return [head.join('; '), ...s.members.map((m) => `  ${s.parameter} = ${m.value}: ${m.status ? statusLine(m.status) : 'member ensemble missing'}`)];
 }
 
 async function requireStatus(store: EnsembleStore, id: string): Promise<EnsembleStatus> {
@@ -61,6 +73,14 @@ export function register(program: Command): void {
     .action(async (id: string, opts: FarmCliOptions & { json?: boolean }) => {
       const farm = await openFarm(opts);
       try {
+        if (!(await farm.store.exists(id))) {
+          const { sweepStatus } = await import('../farm/sweeps.js');
+          const sw = await sweepStatus(farm.store, id);
+          if (sw) {
+            process.stdout.write(opts.json ? JSON.stringify(sw, null, 2) + '\n' : sweepStatusLines(sw).join('\n') + '\n');
+            return;
+          }
+        }
         const s = await requireStatus(farm.store, id);
         process.stdout.write(opts.json ? JSON.stringify(s, null, 2) + '\n' : statusLine(s) + '\n');
         for (const f of opts.json ? [] : s.failures) process.stdout.write(`  run ${f.runIndex} failed: ${f.reason}\n`);
@@ -74,6 +94,15 @@ export function register(program: Command): void {
       const farm = await openFarm(opts);
       try {
         const { cancelEnsemble } = await import('../farm/queue.js');
+        if (!(await farm.store.exists(id))) {
+          const { cancelSweep } = await import('../farm/sweeps.js');
+          const outcomes = await cancelSweep(farm.store, farm.queue, id);
+          if (outcomes) {
+            const n = outcomes.filter((o) => o === 'cancelled').length;
+            process.stdout.write(`${n > 0 ? `cancelled ${id}` : `nothing to cancel in ${id}`}: ${outcomes.map((o, i) => `member ${i} ${o}`).join(', ')}\n`);
+            return;
+          }
+        }
         const outcome = await cancelEnsemble(farm.store, farm.queue, id);
         if (outcome === 'unknown') throw new UsageError(`ensemble id: "${id}" is not known to this farm`);
         if (outcome === 'finished') {
@@ -113,7 +142,10 @@ export function register(program: Command): void {
     const farm = await openFarm(opts);
     try {
       const rec = await farm.store.get(id);
-      if (!rec) throw new UsageError(`ensemble id: "${id}" is not known to this farm`);
+      if (!rec) {
+        if (await summariseSweep(farm.store, id, opts)) return;
+        throw new UsageError(`ensemble id: "${id}" is not known to this farm`);
+      }
       const analysis = analysisSettingsFromCli(rec.spec.analysis, opts);
       const got = (await farmSummary(farm.store, id, defaultSummaryOptions(analysis)))!;
       if (opts.format === 'tables' || opts.format === 'html') {
@@ -129,4 +161,36 @@ export function register(program: Command): void {
       await farm.close();
     }
   });
+}
+
+/**
+ * `tendril summary SWEEP_ID`: the sweep's table as JSON (sweep.json) or CSV
+ * (sweep.csv), or with --format tables|html a folder holding the sweep's
+ * files and each member's summary files in <param>-<value>/ (as `tendril
+ * run` writes them). False when the id is not a sweep.
+ */
+async function summariseSweep(store: EnsembleStore, id: string, opts: AnalysisCliOptions & { format: string; out?: string }): Promise<boolean> {
+  const [{ farmSweepSummary }, { defaultSummaryOptions }, { sweepToCsv, sweepToJson, describeSweep }, { writeSweepFiles }, { writeSummaryFiles }, { analysisSettingsFromCli }, { memberFolder }, { join }] = await Promise.all([
+    import('../farm/sweeps.js'), import('../summary/index.js'), import('../summary/sweep-summary.js'), import('./sweep-files.js'), import('./summary-files.js'), import('./analysis-options.js'), import('../spec/sweep.js'), import('node:path'),
+  ]);
+  const probe = await (await import('../farm/sweeps.js')).getSweep(store, id);
+  if (!probe) return false;
+  if (opts.format === 'pb') throw new UsageError('--format: "pb" is not allowed for a sweep; allowed: json, csv, tables, html (each member\'s protobuf summary: tendril summary MEMBER_ID --format pb)');
+  const analysis = analysisSettingsFromCli(probe.sweep.members[0].analysis, opts);
+  const got = (await farmSweepSummary(store, id, defaultSummaryOptions(analysis)))!;
+  if (opts.format === 'tables' || opts.format === 'html') {
+    const html = opts.format === 'html';
+    const written = await writeSweepFiles(opts.out!, got.summary, { report: html });
+    for (const [i, m] of got.members.entries()) {
+      const dir = join(opts.out!, memberFolder(got.record.sweep.parameter, got.record.sweep.values[i]));
+      await writeSummaryFiles(dir, m.summary, m.results, m.record.spec, { report: html, json: html, tables: true, ensembleId: m.record.id });
+      written.push(`${memberFolder(got.record.sweep.parameter, got.record.sweep.values[i])}/`);
+    }
+    process.stdout.write(describeSweep(got.summary) + `wrote ${written.join(', ')} into ${opts.out}\n`);
+    return true;
+  }
+  const text = opts.format === 'csv' ? sweepToCsv(got.summary) : sweepToJson(got.summary);
+  if (opts.out) await writeFile(opts.out, text);
+  else process.stdout.write(text);
+  return true;
 }

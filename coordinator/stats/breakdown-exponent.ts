@@ -20,6 +20,7 @@
  *    DLA descriptor shows (a test keeps the two equal).
  */
 import { isModelKind, modelDescriptor } from '../../worker/models/registry.js';
+import type { ModelDescriptor } from '../../worker/core/model-descriptor.js';
 
 export const BOUND_SOURCE = 'Losev & Smirnov 2023, arXiv 2307.14931 (proven on the square lattice)';
 export const BOUND_RULE =
@@ -42,8 +43,11 @@ export type MonotonicVerdict = 'decreasing' | 'consistent with decreasing' | 'no
 
 /** True when `parameter` of the model is its dielectric-breakdown exponent (see the file header). */
 export function isBreakdownExponent(modelKind: string, parameter: string): boolean {
-  if (!isModelKind(modelKind)) return false;
-  const d = modelDescriptor(modelKind);
+  return isModelKind(modelKind) && isBreakdownExponentOf(modelDescriptor(modelKind), parameter);
+}
+
+/** The same for a descriptor at hand. */
+export function isBreakdownExponentOf(d: Pick<ModelDescriptor, 'params' | 'reference'>, parameter: string): boolean {
   const declared = d.reference.breakdownExponent;
   if (declared !== undefined) return declared === parameter;
   return parameter === 'eta' && d.params.some((p) => p.name === 'eta');

@@ -45,6 +45,8 @@ export interface SweepInput {
   document: Record<string, unknown>;
   /** One per value, in increasing order of value. */
   members: SweepMemberInput[];
+  /** Whether the parameter is the breakdown exponent η; default isBreakdownExponent(modelKind, parameter). */
+  breakdownExponent?: boolean;
 }
 
 export interface SweepLocalSlope {
@@ -177,7 +179,7 @@ function breakdownRelationOf(s: EnsembleSummaryData): BreakdownRelationRow | nul
 
 export function buildSweepSummary(input: SweepInput): SweepSummary {
   const members = [...input.members].sort((a, b) => a.value - b.value);
-  const breakdownOn = isBreakdownExponent(input.modelKind, input.parameter);
+  const breakdownOn = input.breakdownExponent ?? isBreakdownExponent(input.modelKind, input.parameter);
   const rows: SweepRow[] = members.map((m) => {
     const { estimates, finalSize, reason } = estimatesOf(m.summary);
     const bound = breakdownOn ? lowerBound(m.value) : null;

@@ -1,0 +1,178 @@
+/**
+ * Sweeps on the farm: a parent record over ordinary member ensembles, one per
+ * value (coordinator/spec/sweep.ts). Members are launched, grown, counted,
+ * summarised and cancelled exactly like any ensemble; the sweep only records
+ * which they are. Key layout (P = prefix):
+ *
+ *   P:sweeps          sorted set: sweep id, scored by creation time (ms)
+ *   P:sweep:ID        hash: spec (canonical sweep document, JSON), name, created_at_ms,
+ *                     members (JSON array of member ensemble ids, in order of value)
+ *
+ * Member i of sweep ID is the ensemble "ID-i". A launch with an idempotency
+ * key derives the sweep id from the key (as a single ensemble's would be) and
+ * launches each member at most once; a repeat completes members that a cut-
+ * short launch left unqueued (their job ids are fixed).
+ */
+import type { Queue } from 'bullmq';
+import { newEnsembleId } from '../plan.js';
+import { sweepToDocument, validateLaunch, type SweepSpec } from '../spec/sweep.js';
+import { buildSweepSummary, type SweepSummary } from '../summary/sweep-summary.js';
+import { defaultSummaryOptions, type SummaryOptions } from '../summary/index.js';
+import { farmSummary } from './summary.js';
+import { IdempotencyConflict, idempotentEnsembleId, launchRemainder } from './idempotent-launch.js';
+import { cancelEnsemble, launchEnsemble, type CancelOutcome } from './queue.js';
+import type { EnsembleState, EnsembleStatus, EnsembleStore } from './store.js';
+
+export interface SweepRecord {
+  id: string;
+  name: string;
+  sweep: SweepSpec;
+  createdAtMs: number;
+  memberIds: string[];
+}
+
+export interface SweepStatus {
+  id: string;
+  name: string;
+  parameter: string;
+  values: number[];
+  /** running while any member runs; else cancelled, failed or done by the members (see sweepState). */
+  state: EnsembleState;
+  createdAt: string;
+  runs: { planned: number; queued: number; running: number; done: number; failed: number };
+  particles: { done: number; total: number };
+  throughput: number;
+  etaSeconds: number | null;
+  members: Array<{ value: number; status: EnsembleStatus | null }>;
+}
+
+function sweepKey(store: EnsembleStore, id: string): string {
+  return `${store.prefix}:sweep:${id}`;
+}
+
+/** A fresh sweep id: like an ensemble id, starting with "s". */
+export function newSweepId(now = Date.now()): string {
+  return newEnsembleId(now).replace(/^e/, 's');
+}
+
+/** The ensemble id of member i of a sweep. */
+export function memberId(sweepId: string, index: number): string {
+  return `${sweepId}-${index}`;
+}
+
+export async function sweepExists(store: EnsembleStore, id: string): Promise<boolean> {
+  return (await store.redis.hexists(sweepKey(store, id), 'spec')) === 1;
+}
+
+/**
+ * Record the sweep and launch its members; returns the sweep id. With
+ * `idempotencyKey`, a repeat with the same sweep returns the same id (and
+ * completes any member not yet launched); another spec under the key is an
+ * IdempotencyConflict.
+ */
+export async function launchSweep(store: EnsembleStore, queue: Queue, sweep: SweepSpec, opts: { sweepId?: string; idempotencyKey?: string } = {}): Promise<{ id: string; memberIds: string[]; created: boolean }> {
+  const id = opts.idempotencyKey !== undefined ? idempotentEnsembleId(store.prefix, opts.idempotencyKey) : opts.sweepId ?? newSweepId();
+  const doc = JSON.stringify(sweepToDocument(sweep));
+  const memberIds = sweep.members.map((_, i) => memberId(id, i));
+  if (opts.idempotencyKey !== undefined && (await store.specText(id)) !== null) throw new IdempotencyConflict('idempotency-key: used before for a single ensemble; allowed: a new key for a sweep');
+  const created = (await store.redis.hsetnx(sweepKey(store, id), 'spec', doc)) === 1;
+  if (!created) {
+    if ((await store.redis.hget(sweepKey(store, id), 'spec')) !== doc) {
+      if (opts.idempotencyKey !== undefined) throw new IdempotencyConflict('idempotency-key: used before with a different spec; allowed: a new key for a new spec');
+      throw new Error(`sweep ${id} exists already`);
+    }
+  } else {
+    const now = Date.now();
+    await store.redis.multi()
+      .hset(sweepKey(store, id), { name: sweep.name, created_at_ms: String(now), members: JSON.stringify(memberIds) })
+      .zadd(`${store.prefix}:sweeps`, now, id)
+      .exec();
+  }
+  for (const [i, member] of sweep.members.entries()) {
+    const mid = memberIds[i];
+    if ((await store.specText(mid)) === null) {
+      try {
+        await launchEnsemble(store, queue, member, { ensembleId: mid });
+      } catch (err) {
+        if (!/exists already/.test((err as Error).message)) throw err;
+      }
+    } else if (!(await store.launched(mid))) {
+      // a launch cut short before this member's jobs were all queued: same job ids, none queued twice
+      const rec = await store.get(mid);
+      if (rec && !rec.cancelled) await launchRemainder(store, queue, member, mid);
+    }
+    await store.markLaunched(mid);
+  }
+  return { id, memberIds, created };
+}
+
+export async function getSweep(store: EnsembleStore, id: string): Promise<SweepRecord | null> {
+  const h = await store.redis.hgetall(sweepKey(store, id));
+  if (!h.spec || !h.members) return null;
+  const launchable = validateLaunch(JSON.parse(h.spec), { maxTotalParticles: Number.MAX_SAFE_INTEGER });
+  if (launchable.kind !== 'sweep') return null;
+  return { id, name: h.name ?? launchable.sweep.name, sweep: launchable.sweep, createdAtMs: Number(h.created_at_ms ?? 0), memberIds: JSON.parse(h.members) as string[] };
+}
+
+/** Sweep ids, newest first. */
+export async function sweepIds(store: EnsembleStore, limit = 100): Promise<string[]> {
+  return store.redis.zrevrange(`${store.prefix}:sweeps`, 0, limit - 1);
+}
+
+/** The state of a sweep from its members': running while any runs; else cancelled, then failed, when any member is; else done. */
+export function sweepState(members: ReadonlyArray<EnsembleStatus | null>): EnsembleState {
+  const states = members.map((m) => m?.state ?? 'running');
+  if (states.includes('running')) return 'running';
+  if (states.includes('cancelled')) return 'cancelled';
+  if (states.includes('failed')) return 'failed';
+  return 'done';
+}
+
+export async function sweepStatus(store: EnsembleStore, id: string, now = Date.now()): Promise<SweepStatus | null> {
+  const rec = await getSweep(store, id);
+  if (!rec) return null;
+  const statuses = await Promise.all(rec.memberIds.map((m) => store.status(m, now)));
+  const runs = { planned: 0, queued: 0, running: 0, done: 0, failed: 0 };
+  const particles = { done: 0, total: 0 };
+  let throughput = 0;
+  for (const s of statuses) {
+    if (!s) continue;
+    for (const k of Object.keys(runs) as Array<keyof typeof runs>) runs[k] += s.runs[k];
+    particles.done += s.particles.done;
+    particles.total += s.particles.total;
+    throughput += s.throughput;
+  }
+  const state = sweepState(statuses);
+  return {
+    id, name: rec.name, parameter: rec.sweep.parameter, values: rec.sweep.values, state, createdAt: new Date(rec.createdAtMs).toISOString(), runs, particles,
+    throughput: state === 'running' ? throughput : 0,
+    etaSeconds: state === 'done' ? 0 : state !== 'running' ? null : throughput > 0 ? (particles.total - particles.done) / throughput : null,
+    members: statuses.map((s, i) => ({ value: rec.sweep.values[i], status: s })),
+  };
+}
+
+/** The sweep's summary from its members' farm summaries (partial while any runs). */
+export async function farmSweepSummary(store: EnsembleStore, id: string, opts: SummaryOptions = defaultSummaryOptions()): Promise<{ record: SweepRecord; summary: SweepSummary; members: NonNullable<Awaited<ReturnType<typeof farmSummary>>>[] } | null> {
+  const record = await getSweep(store, id);
+  if (!record) return null;
+  const members: NonNullable<Awaited<ReturnType<typeof farmSummary>>>[] = [];
+  for (const mid of record.memberIds) {
+    const got = await farmSummary(store, mid, opts);
+    if (!got) throw new Error(`sweep ${id}: member ensemble ${mid} is missing from this farm`);
+    members.push(got);
+  }
+  const summary = buildSweepSummary({
+    sweepId: id, name: record.name, modelKind: record.sweep.members[0].model.kind, parameter: record.sweep.parameter, seed: record.sweep.seed, document: sweepToDocument(record.sweep),
+    members: members.map((m, i) => ({ value: record.sweep.values[i], ensembleId: record.memberIds[i], summary: m.summary })),
+  });
+  return { record, summary, members };
+}
+
+/** Cancel every member; the outcome of each, in order of value. */
+export async function cancelSweep(store: EnsembleStore, queue: Queue, id: string): Promise<CancelOutcome[] | null> {
+  const rec = await getSweep(store, id);
+  if (!rec) return null;
+  const out: CancelOutcome[] = [];
+  for (const m of rec.memberIds) out.push(await cancelEnsemble(store, queue, m));
+  return out;
+}
