@@ -11,7 +11,7 @@
  * At most one parameter may be swept, with 2 to MAX_SWEEP_VALUES values,
  * each inside the parameter's own range (the model descriptor's ValueRange).
  * Every other field of the spec applies to every member. Member i is the
- * spec with `params.NAME = values[i]`, the name "<name> NAME=<value>" and
+ * spec with `params.NAME = values[i]`, the name "<name> (NAME: <value>)" and
  * the seed memberSeed(seed, i) (below), so members draw independent random
  * streams and a member is an ordinary ensemble: same plan, same results,
  * same hashes as a single spec with that seed.
@@ -214,9 +214,9 @@ export function validateLaunch(doc: unknown, limits: SpecLimits = limitsFromEnv(
   return { kind: 'sweep', sweep: { name: base.name, parameter: f.parameter, values: sv.values, given, seed: base.seed, members } };
 }
 
-/** A member's name: "<sweep name> NAME=<value>" (within the 100 characters of a name). */
+/** A member's name: "<sweep name> (NAME: <value>)" (within the 100 characters and the characters of a name). */
 function memberName(name: string, parameter: string, v: number): string {
-  const tail = ` ${parameter}=${valueText(v)}`;
+  const tail = ` (${parameter}: ${valueText(v)})`;
   return name.slice(0, Math.max(1, 100 - tail.length)) + tail;
 }
 
