@@ -26,7 +26,7 @@ const FIGURE_NAME = 'sweep-dimension';
 /** The D(parameter) figure of a sweep. */
 export function sweepFigure(s: SweepSummary): Figure {
   const p = s.parameter;
-  const title = `Fractal dimension D against ${p}`;
+  const title = `Fractal dimension D against ${p === 'eta' ? 'η' : p}`;
   const names = s.estimatorNames.filter((k) => s.rows.some((r) => r.estimators[k]?.D !== null && r.estimators[k]?.D !== undefined));
   if (names.length === 0) return emptyFigure(FIGURE_NAME, title, 'no member of the sweep has an estimate of D yet');
   const xs = s.rows.map((r) => r.value);
@@ -34,7 +34,8 @@ export function sweepFigure(s: SweepSummary): Figure {
   const offset = (i: number) => (i - (names.length - 1) / 2) * span * 0.012;
   const plot = new Plot({
     idPrefix: FIGURE_NAME, title, height: 520,
-    x: { label: p === 'eta' ? 'η (breakdown exponent)' : p, kind: 'linear' },
+    // room beside the outermost values for the shifted markers and the labels of the reference lines
+    x: { label: p === 'eta' ? 'η (breakdown exponent)' : p, kind: 'linear', domain: [Math.min(...xs) - span * 0.06, Math.max(...xs) + span * 0.06] },
     y: { label: 'fractal dimension D', kind: 'linear' },
     legend: 'below',
   });
@@ -47,8 +48,7 @@ export function sweepFigure(s: SweepSummary): Figure {
       const bx = [lo, hi - 1e-9];
       plot.line(bx, bx.map((e) => (4 - e) / 2), { colour: COLOURS.black, width: 1.6, dash: '7 4' }, 'lower bound (4 − η)/2, 0 ≤ η < 2 (Losev & Smirnov 2023)');
     }
-    plot.points([b.dla.eta], [b.dla.D], COLOURS.purple, `DLA at η = 1: D = ${b.dla.D} (Menshutin, Shchur & Vinokur 2008)`, 'diamond', 7, true);
-    if (Math.max(...xs) >= 3) plot.vline(b.transition.etaC, { colour: COLOURS.orange, width: 1.2, dash: '4 4' }, 'η_c ≈ 4 (Hastings 2001)', true);
+    if (Math.max(...xs) >= 3) plot.vline(b.transition.etaC, { colour: COLOURS.orange, width: 1.2, dash: '4 4' }, 'η_c ≈ 4', false, 'predicted non-fractal transition η_c ≈ 4 (Hastings 2001)');
   }
   names.forEach((k, i) => {
     const lab = labelOf(k);
@@ -61,6 +61,8 @@ export function sweepFigure(s: SweepSummary): Figure {
     plot.line(px, withD.map((r) => r.estimators[k].D!), { colour: lab.colour, width: 1, opacity: 0.5 });
     plot.points(px, withD.map((r) => r.estimators[k].D!), lab.colour, `D from ${lab.rich}`, lab.marker, 4.5);
   });
+  // the DLA value last, over the estimates at η = 1
+  if (b) plot.points([b.dla.eta], [b.dla.D], COLOURS.purple, `DLA at η = 1: D = ${b.dla.D} (Menshutin, Shchur & Vinokur 2008)`, 'diamond', 8, true);
   const rel = s.rows.filter((r) => r.breakdownRelation?.tauDifference.estimate !== null && r.breakdownRelation?.tauDifference.estimate !== undefined);
   if (rel.length > 0) {
     const rx = rel.map((r) => r.value - span * 0.025);
