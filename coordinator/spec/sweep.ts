@@ -24,6 +24,7 @@ import { mix64, parseSeed } from '../../worker/core/random.js';
 import { describeRange, quoteValue, rangeProblem } from '../../worker/core/value-range.js';
 import { isModelKind, modelDescriptor } from '../../worker/models/registry.js';
 import type { ParamSpec } from '../../worker/core/model-descriptor.js';
+import { nestingProblem } from './document-limits.js';
 import { limitsFromEnv, maxRunsOf, SpecError, specDocumentProblems, specToDocument, validateSpec, type EnsembleSpec, type SpecLimits } from './index.js';
 
 /** Most values one sweep may have (each is a whole ensemble). */
@@ -161,6 +162,9 @@ export function sweepValues(field: string, raw: unknown, range: ParamSpec | null
  */
 export function validateLaunch(doc: unknown, limits: SpecLimits = limitsFromEnv()): Launchable {
   if (!isSweepDocument(doc)) return { kind: 'single', spec: validateSpec(doc, limits) };
+  // nesting first, as validateSpec does: quoting a value nested 10^5 deep would overflow the stack
+  const tooDeep = nestingProblem(doc, 'spec');
+  if (tooDeep !== null) throw new SpecError([tooDeep]);
   const d = doc as Record<string, unknown>;
   const fields = sweptFields(d);
   const problems: string[] = [];
