@@ -14,11 +14,12 @@
  * short launch left unqueued (their job ids are fixed).
  */
 import type { Queue } from 'bullmq';
+import type { EnsembleSummaryData } from '../../proto/convert.js';
 import { newEnsembleId } from '../plan.js';
 import { sweepToDocument, validateLaunch, type SweepSpec } from '../spec/sweep.js';
 import { buildSweepSummary, type SweepSummary } from '../summary/sweep-summary.js';
 import { defaultSummaryOptions, type SummaryOptions } from '../summary/index.js';
-import { farmSummary } from './summary.js';
+import { farmSummary, type FarmSummary } from './summary.js';
 import { IdempotencyConflict, idempotentEnsembleId, launchRemainder } from './idempotent-launch.js';
 import { cancelEnsemble, launchEnsemble, type CancelOutcome } from './queue.js';
 import type { EnsembleState, EnsembleStatus, EnsembleStore } from './store.js';
@@ -151,21 +152,39 @@ export async function sweepStatus(store: EnsembleStore, id: string, now = Date.n
   };
 }
 
-/** The sweep's summary from its members' farm summaries (partial while any runs). */
-export async function farmSweepSummary(store: EnsembleStore, id: string, opts: SummaryOptions = defaultSummaryOptions()): Promise<{ record: SweepRecord; summary: SweepSummary; members: NonNullable<Awaited<ReturnType<typeof farmSummary>>>[] } | null> {
+/**
+ * The sweep's summary from its members' summaries, each given by `memberSummary`
+ * (the HTTP API passes its cache, which builds them on a thread).
+ */
+export async function sweepSummaryOf(
+  store: EnsembleStore,
+  id: string,
+  memberSummary: (memberId: string) => Promise<{ summary: EnsembleSummaryData } | null>,
+): Promise<{ record: SweepRecord; summary: SweepSummary } | null> {
   const record = await getSweep(store, id);
   if (!record) return null;
-  const members: NonNullable<Awaited<ReturnType<typeof farmSummary>>>[] = [];
+  const summaries: EnsembleSummaryData[] = [];
   for (const mid of record.memberIds) {
-    const got = await farmSummary(store, mid, opts);
+    const got = await memberSummary(mid);
     if (!got) throw new Error(`sweep ${id}: member ensemble ${mid} is missing from this farm`);
-    members.push(got);
+    summaries.push(got.summary);
   }
   const summary = buildSweepSummary({
     sweepId: id, name: record.name, modelKind: record.sweep.members[0].model.kind, parameter: record.sweep.parameter, seed: record.sweep.seed, document: sweepToDocument(record.sweep),
-    members: members.map((m, i) => ({ value: record.sweep.values[i], ensembleId: record.memberIds[i], summary: m.summary })),
+    members: summaries.map((s, i) => ({ value: record.sweep.values[i], ensembleId: record.memberIds[i], summary: s })),
   });
-  return { record, summary, members };
+  return { record, summary };
+}
+
+/** The sweep's summary from its members' farm summaries (partial while any runs), with those summaries. */
+export async function farmSweepSummary(store: EnsembleStore, id: string, opts: SummaryOptions = defaultSummaryOptions()): Promise<{ record: SweepRecord; summary: SweepSummary; members: FarmSummary[] } | null> {
+  const members: FarmSummary[] = [];
+  const got = await sweepSummaryOf(store, id, async (mid) => {
+    const m = await farmSummary(store, mid, opts);
+    if (m) members.push(m);
+    return m;
+  });
+  return got && { ...got, members };
 }
 
 /** Cancel every member; the outcome of each, in order of value. */

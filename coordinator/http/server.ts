@@ -56,7 +56,7 @@ import { compileChecker } from '../spec/schema-messages.js';
 import { nestingProblem } from '../spec/document-limits.js';
 import { SummaryCache } from './summary-cache.js';
 import { IDEMPOTENCY_KEY_PATTERN, IdempotencyConflict, idempotentEnsembleId, launchIdempotent } from '../farm/idempotent-launch.js';
-import { farmSweepSummary, launchSweep, sweepExists, sweepStatus } from '../farm/sweeps.js';
+import { launchSweep, sweepExists, sweepStatus, sweepSummaryOf } from '../farm/sweeps.js';
 import { launchDocumentProblems, validateLaunch } from '../spec/sweep.js';
 import { sweepToCsv, sweepToJson } from '../summary/sweep-summary.js';
 import { launchProbeRequest, PROBE_REQUEST_SCHEMA, probeRequestProblems, ProbeRequestError, ProbeRequestStore, validateProbeRequest } from '../farm/probe-requests.js';
@@ -344,7 +344,8 @@ export function buildApi(o: ApiOptions): FastifyInstance {
     async (req, reply) => {
       checkId(req.params.id);
       const format = req.query.format ?? 'json';
-      const got = await farmSweepSummary(o.store, req.params.id, o.summary);
+      // member summaries from the cache: built once per member state, off the event loop
+      const got = await sweepSummaryOf(o.store, req.params.id, (mid) => summaries.get(mid));
       if (!got) throw new ApiError(404, `id: "${req.params.id}" is not a sweep of this farm`);
       return reply
         .header('content-type', format === 'csv' ? 'text/csv; charset=utf-8' : 'application/json; charset=utf-8')
