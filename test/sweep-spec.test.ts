@@ -87,6 +87,19 @@ describe('sweep errors: one line naming the field, the value and what is allowed
     });
   }
 
+  it('a member refused by the model size check names its element', () => {
+    // dla-offlattice-2d: min_step at least (particles + 1 + launch_margin)·2^-40 (the float spacing), 9.1e-5 for 10^8 particles
+    const p = problemsOf({ ...base, model: 'dla-offlattice-2d', particles: 100_000_000, clusters: 1, params: { min_step: [1e-6, 0.5] } });
+    expect(p).toHaveLength(1);
+    expect(p[0]).toMatch(/^params\.min_step\[0\]: 0\.000001 is out of range; allowed: a number from [0-9.e-]+ to 1 for 100000000 particles/);
+  });
+
+  it('member names stay within the 100 characters of a name', () => {
+    const s = sweepOf({ ...base, name: 'x'.repeat(100), params: { noise_reduction: [1, 1000] } });
+    for (const m of s.members) expect(m.name.length).toBeLessThanOrEqual(100);
+    expect(s.members[1].name.endsWith(' (noise_reduction: 1000)')).toBe(true);
+  });
+
   it('other fields of the spec are still checked, once', () => {
     expect(problemsOf({ ...base, particles: 1, params: { noise_reduction: [1, 2] } })).toEqual([expect.stringMatching(/^particles: 1 is out of range/)]);
   });

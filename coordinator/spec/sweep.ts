@@ -180,15 +180,31 @@ export function validateLaunch(doc: unknown, limits: SpecLimits = limitsFromEnv(
   const unitText = param && desc ? (param.unit ? `${param.unit}, for ${desc.kind}` : `for ${desc.kind}`) : '';
   const sv = desc && param ? sweepValues(`params.${f.parameter}`, f.raw, param, unitText) : { values: [], given: null, problems: [] as string[] };
   problems.push(...sv.problems);
-  // the rest of the spec, with the first value standing in for the sweep (a fine value when the sweep itself is fine)
+  // the rest of the spec, with the first value standing in for the sweep (its own problems are the members' below)
   const first = sv.values[0] ?? param?.default ?? 0;
   const stand = { ...d, params: { ...(d.params as Record<string, unknown>), [f.parameter]: first } };
+  const unlimited = { maxTotalParticles: Number.MAX_SAFE_INTEGER };
   let base: EnsembleSpec | null = null;
+  let restFine = true;
   try {
-    base = validateSpec(stand, { maxTotalParticles: Number.MAX_SAFE_INTEGER });
+    base = validateSpec(stand, unlimited);
   } catch (err) {
     if (!(err instanceof SpecError)) throw err;
-    problems.push(...err.problems.filter((p) => !p.startsWith(`params.${f.parameter}:`)));
+    const rest = err.problems.filter((p) => !p.startsWith(`params.${f.parameter}:`));
+    problems.push(...rest);
+    restFine = rest.length === 0;
+  }
+  if (restFine && sv.values.length > 0) {
+    // each member's own checks against the cluster size (a model check may depend on the swept value)
+    for (const [i, v] of sv.values.entries()) {
+      try {
+        const m = validateSpec({ ...stand, params: { ...stand.params, [f.parameter]: v } }, unlimited);
+        base ??= m;
+      } catch (err) {
+        if (!(err instanceof SpecError)) throw err;
+        for (const p of err.problems) problems.push(p.replace(`params.${f.parameter}:`, `params.${f.parameter}[${i}]:`));
+      }
+    }
   }
   if (base && sv.values.length > 0) {
     const total = base.particles * maxRunsOf(base) * sv.values.length;
@@ -197,17 +213,10 @@ export function validateLaunch(doc: unknown, limits: SpecLimits = limitsFromEnv(
         `particles × ${base.target ? 'target.max_clusters' : 'clusters'} × values of params.${f.parameter}: ${base.particles} × ${maxRunsOf(base)} × ${sv.values.length} = ${total} is above the total-work ceiling; allowed: at most ${limits.maxTotalParticles} (the operator may raise it with TENDRIL_MAX_TOTAL_PARTICLES)`,
       );
     }
-    // each member's own checks against the cluster size (a model check may depend on the swept value)
-    for (const [i, v] of sv.values.entries()) {
-      try {
-        validateSpec({ ...stand, params: { ...stand.params, [f.parameter]: v } }, { maxTotalParticles: Number.MAX_SAFE_INTEGER });
-      } catch (err) {
-        if (!(err instanceof SpecError)) throw err;
-        for (const p of err.problems) problems.push(p.replace(`params.${f.parameter}:`, `params.${f.parameter}[${i}]:`));
-      }
-    }
   }
-  if (problems.length > 0 || !base || !sv.given) throw new SpecError([...new Set(problems)]);
+  if (problems.length > 0 || !base || !sv.given) {
+    throw new SpecError(problems.length > 0 ? [...new Set(problems)] : [`params.${f.parameter}: ${quoteValue(f.raw)} is not allowed; allowed: a list of 2 to ${MAX_SWEEP_VALUES} numbers in strictly increasing order, or a table { from, to, step }`]);
+  }
   const given = sv.given;
   const members = sv.values.map((v, i) => ({
     ...base!,
