@@ -120,6 +120,8 @@ describe('farm sweep (real Redis, one worker process)', () => {
     const st = cli('status', id, '--redis', REDIS_URL, '--prefix', prefix);
     expect(st.stdout).toMatch(new RegExp(`^${id}  done +nr sweep  sweep over noise_reduction \\(3 values\\)  runs 18/18 done`));
     expect(st.stdout).toMatch(/\n {2}noise_reduction = 3: \S+-2  done/);
+    const list = cli('list', '--redis', REDIS_URL, '--prefix', prefix);
+    expect(list.stdout).toMatch(new RegExp(`\\n${id}  done +nr sweep  sweep over noise_reduction`));
     const w = cli('watch', id, '--redis', REDIS_URL, '--prefix', prefix, '--progress', 'none');
     expect(w.status).toBe(0);
     expect(w.stdout).toContain('sweep over noise_reduction');

@@ -62,7 +62,15 @@ export function register(program: Command): void {
         }
         if (opts.json) process.stdout.write(JSON.stringify(all, null, 2) + '\n');
         else if (all.length === 0) process.stdout.write('no ensembles\n');
-        else for (const s of all) process.stdout.write(statusLine(s) + '\n');
+        else {
+          for (const s of all) process.stdout.write(statusLine(s) + '\n');
+          // sweeps: one line each (their members are listed above as ensembles)
+          const { sweepIds, sweepStatus } = await import('../farm/sweeps.js');
+          for (const id of await sweepIds(farm.store, 100)) {
+            const sw = await sweepStatus(farm.store, id);
+            if (sw) process.stdout.write(sweepStatusLines(sw)[0] + '\n');
+          }
+        }
       } finally {
         await farm.close();
       }
