@@ -6,7 +6,8 @@
  * runs equal those of a single spec with the member's seed.
  */
 import { spawnSync } from 'node:child_process';
-import { readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { chromium } from 'playwright-core';
 import { join } from 'node:path';
 import { Redis } from 'ioredis';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -28,6 +29,8 @@ const store = new EnsembleStore(redis, prefix);
 const queue = runQueue(redis, prefix);
 const app = buildApi({ store, queue, token: TOKEN, limits: { maxTotalParticles: 1e9 } });
 let worker: WorkerProc | undefined;
+let httpSweep = '';
+const CHROMIUM = '/usr/bin/chromium';
 
 const doc = { name: 'nr sweep', model: 'dla-square', particles: 300, clusters: 6, seed: '20261203', params: { noise_reduction: [1, 2, 3] }, analysis: { resamples: 200 } };
 
@@ -164,6 +167,35 @@ describe('farm sweep (real Redis, one worker process)', () => {
     expect(comparable(sum.json() as SweepSummary)).toEqual(comparable(embedded));
     const csv = await app.inject({ method: 'GET', url: `${status}/summary?format=csv` });
     expect(csv.body.split('\n')).toHaveLength(5);
+    httpSweep = id;
+  });
+
+  it('the web page of a sweep (headless Chromium): members with links, the D(parameter) figure, and the sweep listed on the index page', async (ctx) => {
+    if (!existsSync(CHROMIUM) || !httpSweep) {
+      console.warn(`sweep web page check skipped: ${CHROMIUM} is missing (apt-get install chromium) or the HTTP sweep did not run`);
+      ctx.skip();
+      return;
+    }
+    const figure = await app.inject({ method: 'GET', url: `/sweeps/${httpSweep}/figure.svg` });
+    expect(figure.statusCode).toBe(200);
+    expect(figure.body).toContain('<svg');
+    const base = await app.listen({ port: 0, host: '127.0.0.1' });
+    const browser = await chromium.launch({ executablePath: CHROMIUM, args: ['--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage'] });
+    try {
+      const page = await browser.newPage({ viewport: { width: 1100, height: 900 } });
+      await page.goto(`${base}/sweep/${httpSweep}`);
+      await page.locator('#members tbody tr').nth(2).waitFor();
+      expect(await page.locator('#members tbody tr[data-state="done"]').count()).toBe(3);
+      expect(await page.locator('#members tbody a').first().getAttribute('href')).toBe(`/view/${httpSweep}-0`);
+      await page.waitForFunction("document.getElementById('figure').naturalWidth > 0");
+      expect(await page.locator('#figure').evaluate((i) => (i as unknown as { naturalWidth: number }).naturalWidth)).toBeGreaterThan(500);
+      if (process.env.TENDRIL_SWEEP_SCREENSHOT) await page.screenshot({ path: process.env.TENDRIL_SWEEP_SCREENSHOT.replace(/\.png$/, '-web.png'), fullPage: true });
+      await page.goto(`${base}/`);
+      await page.locator(`#sweeps li[data-id="${httpSweep}"] a`).waitFor();
+      expect(await page.locator('#sweeps-card').isHidden()).toBe(false);
+    } finally {
+      await browser.close();
+    }
   });
 
   it('a bad sweep over HTTP is one line naming the field', async () => {

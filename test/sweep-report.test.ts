@@ -40,6 +40,8 @@ describe('sweep report', () => {
     const other = sweepFigure(buildSweepSummary({ ...summary, sweepId: 'o', document: {}, parameter: 'noise_reduction', modelKind: 'dla-square', seed: '1', members: members.slice(0, 2).map((m, i) => ({ ...m, value: i + 1 })) }));
     expect(other.svg).not.toContain('lower bound');
     expect(other.svg).not.toContain('DLA at');
+    // an underscore of a parameter name is not read as a subscript
+    expect(other.title).toBe('Fractal dimension D against noise reduction');
   });
 
   it('the page has the figure, the table with verdicts and the stated rules', () => {

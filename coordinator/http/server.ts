@@ -7,10 +7,12 @@
  *   GET  /ensembles/:id              status: runs by state, particles done, throughput, ETA
  *   POST /ensembles/:id/cancel       cancel; token required
  *   GET  /ensembles/:id/summary?format=json|csv|pb[&table=NAME]
+ *   GET  /sweeps                     sweeps with their totals, newest first
  *   GET  /sweeps/:id                 a sweep (POST /ensembles with a swept parameter answers
  *                                    {id, status: "/sweeps/ID", ensembles: [member ids]}): totals
  *                                    and each member's status
  *   GET  /sweeps/:id/summary?format=json|csv   the sweep's D(parameter) table (tendril.sweep/1)
+ *   GET  /sweeps/:id/figure.svg      its D(parameter) plot (the web page of a sweep is /sweep/:id)
  *   POST /probes                     probe a point set of your own on the farm: body = {csv | points,
  *                                    walkers, seed, jobs?, q?, contact_sample?, min_step?, window?, name?};
  *                                    token required; 201 {id, status}
@@ -56,9 +58,10 @@ import { compileChecker } from '../spec/schema-messages.js';
 import { nestingProblem } from '../spec/document-limits.js';
 import { SummaryCache } from './summary-cache.js';
 import { IDEMPOTENCY_KEY_PATTERN, IdempotencyConflict, idempotentEnsembleId, launchIdempotent } from '../farm/idempotent-launch.js';
-import { launchSweep, sweepExists, sweepStatus, sweepSummaryOf } from '../farm/sweeps.js';
+import { launchSweep, sweepExists, sweepIds, sweepStatus, sweepSummaryOf } from '../farm/sweeps.js';
 import { launchDocumentProblems, validateLaunch } from '../spec/sweep.js';
 import { sweepToCsv, sweepToJson } from '../summary/sweep-summary.js';
+import { sweepFigure } from '../report/sweep-report.js';
 import { launchProbeRequest, PROBE_REQUEST_SCHEMA, probeRequestProblems, ProbeRequestError, ProbeRequestStore, validateProbeRequest } from '../farm/probe-requests.js';
 import { registerWebRoutes } from './web-routes.js';
 import { CSV_TABLE_NAMES, renderSummary, SUMMARY_FORMATS, type SummaryFormat, type SummaryOptions } from '../summary/index.js';
@@ -331,11 +334,24 @@ export function buildApi(o: ApiOptions): FastifyInstance {
     },
   );
 
+  app.get('/sweeps', async () => {
+    // newest first, as GET /ensembles
+    const all = await Promise.all((await sweepIds(o.store, 100)).map((id) => sweepStatus(o.store, id)));
+    return { sweeps: all.filter((s) => s !== null) };
+  });
+
   app.get<{ Params: { id: string } }>('/sweeps/:id', { schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA } } }, async (req) => {
     checkId(req.params.id);
     const s = await sweepStatus(o.store, req.params.id);
     if (!s) throw new ApiError(404, `id: "${req.params.id}" is not a sweep of this farm`);
     return s;
+  });
+
+  app.get<{ Params: { id: string } }>('/sweeps/:id/figure.svg', { schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA } } }, async (req, reply) => {
+    checkId(req.params.id);
+    const got = await sweepSummaryOf(o.store, req.params.id, (mid) => summaries.get(mid));
+    if (!got) throw new ApiError(404, `id: "${req.params.id}" is not a sweep of this farm`);
+    return reply.header('content-type', 'image/svg+xml; charset=utf-8').send(sweepFigure(got.summary).svg);
   });
 
   app.get<{ Params: { id: string }; Querystring: { format?: string } }>(

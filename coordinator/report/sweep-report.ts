@@ -25,7 +25,8 @@ const FIGURE_NAME = 'sweep-dimension';
 
 /** The D(parameter) figure of a sweep. */
 export function sweepFigure(s: SweepSummary): Figure {
-  const p = s.parameter;
+  // plot text is rich text ("_" starts a subscript): a parameter name is shown with spaces for its underscores
+  const p = s.parameter.replace(/[_^]/g, ' ');
   const title = `Fractal dimension D against ${p === 'eta' ? 'η' : p}`;
   const names = s.estimatorNames.filter((k) => s.rows.some((r) => r.estimators[k]?.D !== null && r.estimators[k]?.D !== undefined));
   if (names.length === 0) return emptyFigure(FIGURE_NAME, title, 'no member of the sweep has an estimate of D yet');
