@@ -53,7 +53,7 @@ import { keptPositions, snapshotOf } from '../export/cluster-export.js';
 import { modelDescriptor } from '../../worker/models/registry.js';
 import type { EnsembleStore } from '../farm/store.js';
 import { ENSEMBLE_ID_PATTERN } from '../plan.js';
-import { parseSpecText, SpecError, SPEC_SCHEMA, specDocumentProblems, validateSpec, type SpecLimits } from '../spec/index.js';
+import { parseSpecText, SpecError, SPEC_SCHEMA, type SpecLimits } from '../spec/index.js';
 import { compileChecker } from '../spec/schema-messages.js';
 import { nestingProblem } from '../spec/document-limits.js';
 import { SummaryCache } from './summary-cache.js';
