@@ -1,14 +1,19 @@
 /** `tendril list`, `tendril status ID`, `tendril cancel ID`, `tendril summary ID`. */
+import { existsSync } from 'node:fs';
 import { writeFile } from 'node:fs/promises';
+import type { RunResultData } from '../../proto/convert.js';
+import type { EnsembleSpec } from '../spec/index.js';
 import type { Command } from 'commander';
-import type { EnsembleStatus, EnsembleStore } from '../farm/store.js';
-import type { SweepStatus } from '../farm/sweeps.js';
+import { ensembleIds, readEnsembleStatus, type EnsembleStatus, type StatusReader } from '../farm/ensemble-status.js';
+import { readSweepStatus, sweepIds, type SweepStatus } from '../farm/sweep-status.js';
+import type { EnsembleReader } from '../farm/ensemble-reader.js';
 import { formatDuration, formatRate } from '../progress/index.js';
 import { CSV_TABLE_NAMES, SUMMARY_FORMATS, type SummaryFormat } from '../summary/formats.js';
 import { UsageError } from '../usage-error.js';
 import { addAnalysisOptions, type AnalysisCliOptions } from './analysis-options.js';
-import { addFarmOptions, openFarm, type FarmCliOptions } from './farm-options.js';
-// the queue, the statistics and the report load only in the commands that use them (start-up time of list/status)
+import { addFarmOptions, openFarm, openReader, type FarmCliOptions } from './farm-options.js';
+// list and status read through the small Redis reader; ioredis, the queue, the spec validator, the protobuf code,
+// the statistics and the report load only in the commands that use them (start-up time: test/cli-startup.test.ts)
 
 /**
  * One line of an ensemble's state. Parts are joined with "; " and only
@@ -43,21 +48,34 @@ export function sweepStatusLines(s: SweepStatus): string[] {
   return [head.join('; '), ...s.members.map((m) => `  ${s.parameter} = ${m.value}: ${m.status ? statusLine(m.status) : 'member ensemble missing'}`)];
 }
 
-async function requireStatus(store: EnsembleStore, id: string): Promise<EnsembleStatus> {
-  const s = await store.status(id);
+export async function requireStatus(reader: StatusReader, prefix: string, id: string): Promise<EnsembleStatus> {
+  const s = await readEnsembleStatus(reader, prefix, id);
   if (!s) throw new UsageError(`ensemble id: "${id}" is not known to this farm`);
   return s;
+}
+
+/** The report's pictures from the workers' artifact folder (coordinator/commands/report-pictures.ts). */
+async function farmReportPictures(id: string, spec: EnsembleSpec, results: readonly RunResultData[], folder: string | undefined) {
+  const [{ reportPictures }, { DirectoryArtifactStore }] = await Promise.all([import('./report-pictures.js'), import('../farm/artifacts.js')]);
+  if (folder !== undefined && !existsSync(folder)) throw new UsageError(`--artifacts: "${folder}" does not exist; allowed: the workers' artifact folder`);
+  return reportPictures({
+    ensembleId: id,
+    spec,
+    results,
+    artifacts: folder !== undefined ? new DirectoryArtifactStore(folder) : null,
+    noStoreHint: "give the workers' artifact folder with --artifacts DIR or TENDRIL_ARTIFACTS",
+  });
 }
 
 export function register(program: Command): void {
   addFarmOptions(program.command('list').description('list the newest ensembles on the farm with their state'))
     .option('--json', 'print JSON instead of lines')
     .action(async (opts: FarmCliOptions & { json?: boolean }) => {
-      const farm = await openFarm(opts);
+      const farm = await openReader(opts);
       try {
         const all: EnsembleStatus[] = [];
-        for (const id of await farm.store.ids(100)) {
-          const s = await farm.store.status(id);
+        for (const id of await ensembleIds(farm.reader, farm.prefix, 100)) {
+          const s = await readEnsembleStatus(farm.reader, farm.prefix, id);
           if (s) all.push(s);
         }
         if (opts.json) process.stdout.write(JSON.stringify(all, null, 2) + '\n');
@@ -65,35 +83,31 @@ export function register(program: Command): void {
         else {
           for (const s of all) process.stdout.write(statusLine(s) + '\n');
           // sweeps: one line each (their members are listed above as ensembles)
-          const { sweepIds, sweepStatus } = await import('../farm/sweeps.js');
-          for (const id of await sweepIds(farm.store, 100)) {
-            const sw = await sweepStatus(farm.store, id);
+          for (const id of await sweepIds(farm.reader, farm.prefix, 100)) {
+            const sw = await readSweepStatus(farm.reader, farm.prefix, id);
             if (sw) process.stdout.write(sweepStatusLines(sw)[0] + '\n');
           }
         }
       } finally {
-        await farm.close();
+        farm.close();
       }
     });
 
   addFarmOptions(program.command('status').description("one ensemble's runs by state, particles done, throughput and remaining time").argument('<id>', 'ensemble id'))
     .option('--json', 'print JSON instead of a line')
     .action(async (id: string, opts: FarmCliOptions & { json?: boolean }) => {
-      const farm = await openFarm(opts);
+      const farm = await openReader(opts);
       try {
-        if (!(await farm.store.exists(id))) {
-          const { sweepStatus } = await import('../farm/sweeps.js');
-          const sw = await sweepStatus(farm.store, id);
-          if (sw) {
-            process.stdout.write(opts.json ? JSON.stringify(sw, null, 2) + '\n' : sweepStatusLines(sw).join('\n') + '\n');
-            return;
-          }
+        const sw = await readSweepStatus(farm.reader, farm.prefix, id);
+        if (sw) {
+          process.stdout.write(opts.json ? JSON.stringify(sw, null, 2) + '\n' : sweepStatusLines(sw).join('\n') + '\n');
+          return;
         }
-        const s = await requireStatus(farm.store, id);
+        const s = await requireStatus(farm.reader, farm.prefix, id);
         process.stdout.write(opts.json ? JSON.stringify(s, null, 2) + '\n' : statusLine(s) + '\n');
         for (const f of opts.json ? [] : s.failures) process.stdout.write(`  run ${f.runIndex} failed: ${f.reason}\n`);
       } finally {
-        await farm.close();
+        farm.close();
       }
     });
 
@@ -136,9 +150,10 @@ export function register(program: Command): void {
         .argument('<id>', 'ensemble id')
         .option('--format <format>', 'json, csv, pb, tables (a folder of CSV files) or html (report.html with plots, into a folder)', 'json')
         .option('--table <name>', `CSV table for --format csv: ${CSV_TABLE_NAMES.join(', ')}`, 'series')
-        .option('--out <path>', 'file (json, csv, pb) or folder (tables, html); default standard output for json and csv'),
+        .option('--out <path>', 'file (json, csv, pb) or folder (tables, html); default standard output for json and csv')
+        .option('--artifacts <dir>', "the workers' artifact folder, where --format html finds the sample cluster and the harmonic-measure picture (default: TENDRIL_ARTIFACTS)"),
     ),
-  ).action(async (id: string, opts: FarmCliOptions & AnalysisCliOptions & { format: string; table: string; out?: string }) => {
+  ).action(async (id: string, opts: FarmCliOptions & AnalysisCliOptions & { format: string; table: string; out?: string; artifacts?: string }) => {
     const formats = [...SUMMARY_FORMATS, 'tables', 'html'];
     if (!formats.includes(opts.format)) throw new UsageError(`--format: "${opts.format}" is not allowed; allowed: ${formats.join(', ')}`);
     if (!CSV_TABLE_NAMES.includes(opts.table)) throw new UsageError(`--table: "${opts.table}" is not allowed; allowed: ${CSV_TABLE_NAMES.join(', ')}`);
@@ -147,18 +162,24 @@ export function register(program: Command): void {
     const [{ farmSummary }, { defaultSummaryOptions, renderSummary }, { describeAnalysis, writeSummaryFiles }, { analysisSettingsFromCli }] = await Promise.all([
       import('../farm/summary.js'), import('../summary/index.js'), import('./summary-files.js'), import('./analysis-options.js'),
     ]);
-    const farm = await openFarm(opts);
+    // read through the small RESP client: the summary needs no ioredis (start-up time)
+    const farm = await openReader(opts);
+    const { EnsembleReader } = await import('../farm/ensemble-reader.js');
+    const store = new EnsembleReader(farm.reader, farm.prefix);
     try {
-      const rec = await farm.store.get(id);
+      const rec = await store.get(id);
       if (!rec) {
-        if (await summariseSweep(farm.store, id, opts)) return;
+        if (await summariseSweep(store, id, opts)) return;
         throw new UsageError(`ensemble id: "${id}" is not known to this farm`);
       }
-      const analysis = analysisSettingsFromCli(rec.spec.analysis, opts);
-      const got = (await farmSummary(farm.store, id, defaultSummaryOptions(analysis)))!;
+      const analysis = await analysisSettingsFromCli(rec.spec.analysis, opts);
+      const got = (await farmSummary(store, id, defaultSummaryOptions(analysis)))!;
       if (opts.format === 'tables' || opts.format === 'html') {
         const html = opts.format === 'html';
-        const written = await writeSummaryFiles(opts.out!, got.summary, got.results, rec.spec, { report: html, json: html, tables: true, ensembleId: id });
+        const pictures = html ? await farmReportPictures(id, rec.spec, got.results, opts.artifacts ?? (process.env.TENDRIL_ARTIFACTS || undefined)) : null;
+        const written = await writeSummaryFiles(opts.out!, got.summary, got.results, rec.spec, {
+          report: html, json: html, tables: true, ensembleId: id, sampleCluster: pictures?.sampleCluster, measurePicture: pictures?.measurePicture, pictureNotes: pictures?.notes,
+        });
         process.stdout.write(describeAnalysis(got.summary) + `wrote ${written.join(', ')} into ${opts.out}\n`);
         return;
       }
@@ -166,7 +187,7 @@ export function register(program: Command): void {
       if (opts.out) await writeFile(opts.out, bytes);
       else process.stdout.write(bytes);
     } finally {
-      await farm.close();
+      farm.close();
     }
   });
 }
@@ -177,22 +198,22 @@ export function register(program: Command): void {
  * files and each member's summary files in <param>-<value>/ (as `tendril
  * run` writes them). False when the id is not a sweep.
  */
-async function summariseSweep(store: EnsembleStore, id: string, opts: AnalysisCliOptions & { format: string; out?: string }): Promise<boolean> {
-  const [{ farmSweepSummary }, { defaultSummaryOptions }, { sweepToCsv, sweepToJson, describeSweep }, { writeSweepFiles }, { writeSummaryFiles }, { analysisSettingsFromCli }, { memberFolder }, { join }] = await Promise.all([
+async function summariseSweep(store: EnsembleReader, id: string, opts: AnalysisCliOptions & { format: string; out?: string }): Promise<boolean> {
+  const [{ farmSweepSummary, getSweep }, { defaultSummaryOptions }, { sweepToCsv, sweepToJson, describeSweep }, { writeSweepFiles }, { writeSummaryFiles }, { analysisSettingsFromCli }, { memberFolder }, { join }] = await Promise.all([
     import('../farm/sweeps.js'), import('../summary/index.js'), import('../summary/sweep-summary.js'), import('./sweep-files.js'), import('./summary-files.js'), import('./analysis-options.js'), import('../spec/sweep.js'), import('node:path'),
   ]);
-  const probe = await (await import('../farm/sweeps.js')).getSweep(store, id);
-  if (!probe) return false;
+  const rec = await getSweep(store, id);
+  if (!rec) return false;
   if (opts.format === 'pb') throw new UsageError('--format: "pb" is not allowed for a sweep; allowed: json, csv, tables, html (each member\'s protobuf summary: tendril summary MEMBER_ID --format pb)');
-  const analysis = analysisSettingsFromCli(probe.sweep.members[0].analysis, opts);
+  const analysis = await analysisSettingsFromCli(rec.sweep.members[0].analysis, opts);
   const got = (await farmSweepSummary(store, id, defaultSummaryOptions(analysis)))!;
   if (opts.format === 'tables' || opts.format === 'html') {
     const html = opts.format === 'html';
     const written = await writeSweepFiles(opts.out!, got.summary, { report: html });
     for (const [i, m] of got.members.entries()) {
-      const dir = join(opts.out!, memberFolder(got.record.sweep.parameter, got.record.sweep.values[i]));
-      await writeSummaryFiles(dir, m.summary, m.results, m.record.spec, { report: html, json: html, tables: true, ensembleId: m.record.id });
-      written.push(`${memberFolder(got.record.sweep.parameter, got.record.sweep.values[i])}/`);
+      const folder = memberFolder(rec.sweep.parameter, rec.sweep.values[i]);
+      await writeSummaryFiles(join(opts.out!, folder), m.summary, m.results, m.record.spec, { report: html, json: html, tables: true, ensembleId: m.record.id });
+      written.push(`${folder}/`);
     }
     process.stdout.write(describeSweep(got.summary) + `wrote ${written.join(', ')} into ${opts.out}\n`);
     return true;

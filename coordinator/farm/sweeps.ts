@@ -5,8 +5,12 @@
  * which they are. Key layout (P = prefix):
  *
  *   P:sweeps          sorted set: sweep id, scored by creation time (ms)
- *   P:sweep:ID        hash: spec (canonical sweep document, JSON), name, created_at_ms,
- *                     members (JSON array of member ensemble ids, in order of value)
+ *   P:sweep:ID        hash: spec (canonical sweep document, JSON), name, created_at_ms, parameter,
+ *                     values (JSON array), members (JSON array of member ensemble ids, in order of value)
+ *
+ * Status, list and watch read a sweep through the small Redis reader
+ * (StatusReader) without the spec validator; the summary validates the
+ * stored document (getSweep).
  *
  * Member i of sweep ID is the ensemble "ID-i". A launch with an idempotency
  * key derives the sweep id from the key (as a single ensemble's would be) and
@@ -16,13 +20,16 @@
 import type { Queue } from 'bullmq';
 import type { EnsembleSummaryData } from '../../proto/convert.js';
 import { newEnsembleId } from '../plan.js';
+import { sweepHashKey } from './sweep-status.js';
 import { sweepToDocument, validateLaunch, type SweepSpec } from '../spec/sweep.js';
 import { buildSweepSummary, type SweepSummary } from '../summary/sweep-summary.js';
 import { defaultSummaryOptions, type SummaryOptions } from '../summary/index.js';
 import { farmSummary, type FarmSummary } from './summary.js';
 import { IdempotencyConflict, idempotentEnsembleId, launchRemainder } from './idempotent-launch.js';
 import { cancelEnsemble, launchEnsemble, type CancelOutcome } from './queue.js';
-import type { EnsembleState, EnsembleStatus, EnsembleStore } from './store.js';
+import type { EnsembleStore } from './store.js';
+import type { EnsembleReader } from './ensemble-reader.js';
+export { readSweepStatus, sweepIds, sweepState, type SweepStatus } from './sweep-status.js';
 
 export interface SweepRecord {
   id: string;
@@ -32,23 +39,8 @@ export interface SweepRecord {
   memberIds: string[];
 }
 
-export interface SweepStatus {
-  id: string;
-  name: string;
-  parameter: string;
-  values: number[];
-  /** running while any member runs; else cancelled, failed or done by the members (see sweepState). */
-  state: EnsembleState;
-  createdAt: string;
-  runs: { planned: number; queued: number; running: number; done: number; failed: number };
-  particles: { done: number; total: number };
-  throughput: number;
-  etaSeconds: number | null;
-  members: Array<{ value: number; status: EnsembleStatus | null }>;
-}
-
-function sweepKey(store: EnsembleStore, id: string): string {
-  return `${store.prefix}:sweep:${id}`;
+function sweepKey(store: { prefix: string }, id: string): string {
+  return sweepHashKey(store.prefix, id);
 }
 
 /** A fresh sweep id: like an ensemble id, starting with "s". */
@@ -85,7 +77,7 @@ export async function launchSweep(store: EnsembleStore, queue: Queue, sweep: Swe
   } else {
     const now = Date.now();
     await store.redis.multi()
-      .hset(sweepKey(store, id), { name: sweep.name, created_at_ms: String(now), members: JSON.stringify(memberIds) })
+      .hset(sweepKey(store, id), { name: sweep.name, created_at_ms: String(now), parameter: sweep.parameter, values: JSON.stringify(sweep.values), members: JSON.stringify(memberIds) })
       .zadd(`${store.prefix}:sweeps`, now, id)
       .exec();
   }
@@ -107,49 +99,12 @@ export async function launchSweep(store: EnsembleStore, queue: Queue, sweep: Swe
   return { id, memberIds, created };
 }
 
-export async function getSweep(store: EnsembleStore, id: string): Promise<SweepRecord | null> {
-  const h = await store.redis.hgetall(sweepKey(store, id));
+export async function getSweep(store: EnsembleReader, id: string): Promise<SweepRecord | null> {
+  const h = await store.reads.hgetall(sweepKey(store, id));
   if (!h.spec || !h.members) return null;
   const launchable = validateLaunch(JSON.parse(h.spec), { maxTotalParticles: Number.MAX_SAFE_INTEGER });
   if (launchable.kind !== 'sweep') return null;
   return { id, name: h.name ?? launchable.sweep.name, sweep: launchable.sweep, createdAtMs: Number(h.created_at_ms ?? 0), memberIds: JSON.parse(h.members) as string[] };
-}
-
-/** Sweep ids, newest first. */
-export async function sweepIds(store: EnsembleStore, limit = 100): Promise<string[]> {
-  return store.redis.zrevrange(`${store.prefix}:sweeps`, 0, limit - 1);
-}
-
-/** The state of a sweep from its members': running while any runs; else cancelled, then failed, when any member is; else done. */
-export function sweepState(members: ReadonlyArray<EnsembleStatus | null>): EnsembleState {
-  const states = members.map((m) => m?.state ?? 'running');
-  if (states.includes('running')) return 'running';
-  if (states.includes('cancelled')) return 'cancelled';
-  if (states.includes('failed')) return 'failed';
-  return 'done';
-}
-
-export async function sweepStatus(store: EnsembleStore, id: string, now = Date.now()): Promise<SweepStatus | null> {
-  const rec = await getSweep(store, id);
-  if (!rec) return null;
-  const statuses = await Promise.all(rec.memberIds.map((m) => store.status(m, now)));
-  const runs = { planned: 0, queued: 0, running: 0, done: 0, failed: 0 };
-  const particles = { done: 0, total: 0 };
-  let throughput = 0;
-  for (const s of statuses) {
-    if (!s) continue;
-    for (const k of Object.keys(runs) as Array<keyof typeof runs>) runs[k] += s.runs[k];
-    particles.done += s.particles.done;
-    particles.total += s.particles.total;
-    throughput += s.throughput;
-  }
-  const state = sweepState(statuses);
-  return {
-    id, name: rec.name, parameter: rec.sweep.parameter, values: rec.sweep.values, state, createdAt: new Date(rec.createdAtMs).toISOString(), runs, particles,
-    throughput: state === 'running' ? throughput : 0,
-    etaSeconds: state === 'done' ? 0 : state !== 'running' ? null : throughput > 0 ? (particles.total - particles.done) / throughput : null,
-    members: statuses.map((s, i) => ({ value: rec.sweep.values[i], status: s })),
-  };
 }
 
 /**
@@ -157,7 +112,7 @@ export async function sweepStatus(store: EnsembleStore, id: string, now = Date.n
  * (the HTTP API passes its cache, which builds them on a thread).
  */
 export async function sweepSummaryOf(
-  store: EnsembleStore,
+  store: EnsembleReader,
   id: string,
   memberSummary: (memberId: string) => Promise<{ summary: EnsembleSummaryData } | null>,
 ): Promise<{ record: SweepRecord; summary: SweepSummary } | null> {
@@ -177,7 +132,7 @@ export async function sweepSummaryOf(
 }
 
 /** The sweep's summary from its members' farm summaries (partial while any runs), with those summaries. */
-export async function farmSweepSummary(store: EnsembleStore, id: string, opts: SummaryOptions = defaultSummaryOptions()): Promise<{ record: SweepRecord; summary: SweepSummary; members: FarmSummary[] } | null> {
+export async function farmSweepSummary(store: EnsembleReader, id: string, opts: SummaryOptions = defaultSummaryOptions()): Promise<{ record: SweepRecord; summary: SweepSummary; members: FarmSummary[] } | null> {
   const members: FarmSummary[] = [];
   const got = await sweepSummaryOf(store, id, async (mid) => {
     const m = await farmSummary(store, mid, opts);

@@ -58,7 +58,7 @@ import { compileChecker } from '../spec/schema-messages.js';
 import { nestingProblem } from '../spec/document-limits.js';
 import { SummaryCache } from './summary-cache.js';
 import { IDEMPOTENCY_KEY_PATTERN, IdempotencyConflict, idempotentEnsembleId, launchIdempotent } from '../farm/idempotent-launch.js';
-import { launchSweep, sweepExists, sweepIds, sweepStatus, sweepSummaryOf } from '../farm/sweeps.js';
+import { launchSweep, readSweepStatus, sweepExists, sweepIds, sweepSummaryOf } from '../farm/sweeps.js';
 import { launchDocumentProblems, validateLaunch } from '../spec/sweep.js';
 import { sweepToCsv, sweepToJson } from '../summary/sweep-summary.js';
 import { sweepFigure } from '../report/sweep-report.js';
@@ -336,13 +336,13 @@ export function buildApi(o: ApiOptions): FastifyInstance {
 
   app.get('/sweeps', async () => {
     // newest first, as GET /ensembles
-    const all = await Promise.all((await sweepIds(o.store, 100)).map((id) => sweepStatus(o.store, id)));
+    const all = await Promise.all((await sweepIds(o.store.reads, o.store.prefix, 100)).map((id) => readSweepStatus(o.store.reads, o.store.prefix, id)));
     return { sweeps: all.filter((s) => s !== null) };
   });
 
   app.get<{ Params: { id: string } }>('/sweeps/:id', { schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA } } }, async (req) => {
     checkId(req.params.id);
-    const s = await sweepStatus(o.store, req.params.id);
+    const s = await readSweepStatus(o.store.reads, o.store.prefix, req.params.id);
     if (!s) throw new ApiError(404, `id: "${req.params.id}" is not a sweep of this farm`);
     return s;
   });
