@@ -8,9 +8,9 @@
 import { describe, expect, it } from 'vitest';
 import { runEmbedded } from '../coordinator/embedded/index.js';
 import { validateLaunch } from '../coordinator/spec/sweep.js';
-import { buildSweepSummary } from '../coordinator/summary/sweep-summary.js';
+import { buildSweepSummary, sweepToCsv } from '../coordinator/summary/sweep-summary.js';
 import { isBreakdownExponent } from '../coordinator/stats/breakdown-exponent.js';
-import { isModelKind } from '../worker/models/registry.js';
+import { isModelKind, modelDescriptor } from '../worker/models/registry.js';
 
 for (const kind of ['dbm-square', 'dbm-offlattice-2d']) {
   describe(`sweep over eta with ${kind}`, () => {
@@ -35,6 +35,27 @@ for (const kind of ['dbm-square', 'dbm-offlattice-2d']) {
       expect(['decreasing', 'consistent with decreasing', 'not decreasing', 'not judged']).toContain(s.breakdown!.monotonic.byEstimator.radiusOfGyration.verdict);
       expect(s.breakdown!.transition.rows.map((r) => r.value)).toEqual([3]);
       expect(s.rows.every((r) => r.estimators.radiusOfGyration.D !== null)).toBe(true);
+    }, 600_000);
+
+    it('with [probe]: τ(η+2) − τ(η) of each member stands beside D in the table and the CSV', async (ctx) => {
+      if (!isModelKind(kind) || modelDescriptor(kind).probe === null) {
+        console.warn(`probed sweep over eta with ${kind} skipped: the model is not registered in this tree or has no probe`);
+        ctx.skip();
+        return;
+      }
+      const l = validateLaunch({ name: 'probed eta sweep', model: kind, particles: 200, clusters: 5, seed: 6, params: { eta: [0.5, 1] }, probe: { walkers: 2000, at_sizes: [100, 150] }, analysis: { resamples: 200 } });
+      if (l.kind !== 'sweep') throw new Error('not a sweep');
+      const members = [];
+      for (const [i, m] of l.sweep.members.entries()) {
+        const got = await runEmbedded(m, { ensembleId: `peta-${i}`, threads: 2 });
+        members.push({ value: l.sweep.values[i], ensembleId: `peta-${i}`, summary: got.summary });
+      }
+      const s = buildSweepSummary({ sweepId: 'peta', name: l.sweep.name, modelKind: kind, parameter: 'eta', seed: l.sweep.seed, document: {}, members });
+      for (const r of s.rows) {
+        expect(r.breakdownRelation?.eta).toBe(r.value);
+        expect(Number.isFinite(r.breakdownRelation?.tauDifference.estimate)).toBe(true);
+      }
+      expect(sweepToCsv(s).split('\n')[0]).toContain('tau_difference');
     }, 600_000);
   });
 }
