@@ -11,18 +11,10 @@ export function sweepHashKey(prefix: string, id: string): string {
   return `${prefix}:sweep:${id}`;
 }
 
-export interface SweepStatus {
-  id: string;
-  name: string;
+/** A sweep's status: the fields of an ensemble's status over all its members (state by sweepState), and each member's. */
+export interface SweepStatus extends Pick<EnsembleStatus, 'id' | 'name' | 'state' | 'createdAt' | 'runs' | 'particles' | 'throughput' | 'etaSeconds'> {
   parameter: string;
   values: number[];
-  /** running while any member runs; else cancelled, failed or done by the members (see sweepState). */
-  state: EnsembleState;
-  createdAt: string;
-  runs: { planned: number; queued: number; running: number; done: number; failed: number };
-  particles: { done: number; total: number };
-  throughput: number;
-  etaSeconds: number | null;
   members: Array<{ value: number; status: EnsembleStatus | null }>;
 }
 
