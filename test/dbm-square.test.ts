@@ -198,10 +198,10 @@ describe('dbm-square: growth probabilities on a small fixed cluster', () => {
 
   // Exact check (no source needed beyond the definition): at η = 1 a site joins with probability
   // u(s)/Σu in the limit R_far → ∞. 20000 one-particle growths from the same cluster, each with
-  // its own generator state, at far_margin = 64 (the distance measured above is far below
+  // its own generator state, at far_margin = 32 (TV ≈ 4e-4 by the law measured above, far below
   // what 20000 draws resolve); chi-square at significance 0.001.
   it('η = 1: frequencies of the joined site agree with the exact law (chi-square, significance 0.001)', async () => {
-    const params = { eta: 1, far_factor: 1, far_margin: 64 };
+    const params = { eta: 1, far_factor: 1, far_margin: 32 };
     const solved = fixedCluster(L_TETROMINO, params);
     solved.growthProbabilities();
     const cp = solved.checkpoint();
@@ -287,13 +287,13 @@ describe('dbm-square: η = 0 against eden-square', () => {
 
 describe('dbm-square: determinism, resume, stop, refusals', () => {
   const params = { eta: 1.5, far_margin: 8 };
-  const N = 220;
+  const N = 150;
 
   it('same task, same bits; checkpoints (with the potential) resume to the same state hash', () => {
     const whole = grown(dbmTask(N, params, 3)).result();
     expect(grown(dbmTask(N, params, 3)).result()).toEqual(whole);
     expect(grown(dbmTask(N, params, 4)).result().stateHash).not.toBe(whole.stateHash);
-    for (const at of [1, 2, 90, 171]) {
+    for (const at of [1, 2, 70, 121]) {
       const first = createKernel(dbmTask(N, params, 3));
       first.growTo(at);
       const cp = structuredClone(first.checkpoint());
