@@ -21,6 +21,9 @@
  *              10^6 and 10^7, off-lattice at 10^5 and 10^6): particles/s, peak RSS
  *   lattice    test/bench/lattice-bench.ts: square-lattice DLA at 10^5 and 10^6,
  *              triangular at 10^5: particles/s, moves per particle, peak RSS
+ *   dbm-lattice  test/bench/lattice-bench.ts: the lattice dielectric breakdown
+ *              model (dbm-square) at η = 2, 10^3 to 10^4: particles/s, solver
+ *              iterations per particle, peak RSS
  */
 import { runGrowthBenchmark, sizesFromArgs } from './growth-bench.js';
 import { runAggregateBenchmark } from './aggregate-bench.js';
@@ -29,7 +32,7 @@ import { runProbeBenchmark } from './probe-bench.js';
 import { runProbeScalingBenchmark } from './probe-scaling-bench.js';
 import { runLatticeBenchmark } from './lattice-bench.js';
 
-const PARTS = ['growth', 'dla3d', 'aggregate', 'probe', 'probe-scaling', 'farm', 'eden', 'lattice'] as const;
+const PARTS = ['growth', 'dla3d', 'aggregate', 'probe', 'probe-scaling', 'farm', 'eden', 'lattice', 'dbm-lattice'] as const;
 /** Default sizes of the dla3d part. */
 const DLA3D_SIZES = [100_000, 1_000_000];
 type Part = (typeof PARTS)[number];
@@ -61,7 +64,7 @@ async function main(argv: string[]): Promise<number> {
         const given = argv.some((a) => a === '--sizes' || a.startsWith('--sizes='));
         await runGrowthBenchmark({ sizes: given ? sizesFromArgs(argv) : DLA3D_SIZES, model: 'dla-offlattice-3d' });
       }
-      else if (part === 'eden' || part === 'lattice') await runLatticeBenchmark(part, argv.some((a) => a === '--sizes' || a.startsWith('--sizes=')) ? sizesFromArgs(argv) : undefined);
+      else if (part === 'eden' || part === 'lattice' || part === 'dbm-lattice') await runLatticeBenchmark(part, argv.some((a) => a === '--sizes' || a.startsWith('--sizes=')) ? sizesFromArgs(argv) : undefined);
       else if (part === 'aggregate') runAggregate();
       else if (part === 'probe') {
         const r = runProbeBenchmark(1_000_000, 1_000_000);
