@@ -269,6 +269,31 @@ describe('dbm-square: holes', () => {
   });
 });
 
+describe('dbm-square: holes found while growing', () => {
+  it('at η = 0.3 the sites marked as holes are exactly the empty sites no empty path joins to the far boundary (independent flood fill)', () => {
+    const k = grown(dbmTask(500, { eta: 0.3, far_margin: 4 }, 2, '77')) as DbmSquare;
+    const c = k.positions().coords;
+    const cluster = Array.from({ length: k.count }, (_, n) => [c[2 * n], c[2 * n + 1]] as [number, number]);
+    const g = k.grid!;
+    let inDisk = 0;
+    let holes = 0;
+    for (let j = -g.half; j <= g.half; j++) {
+      for (let i = -g.half; i <= g.half; i++) {
+        if (i * i + j * j >= g.radius * g.radius) continue;
+        inDisk++;
+        if (g.kind[g.index(i, j)] === 2) {
+          holes++;
+          expect(g.phi[g.index(i, j)]).toBe(0);
+        }
+      }
+    }
+    const enclosed = inDisk - cluster.length - openSitesInDisk(g.radius, cluster);
+    expect(enclosed).toBeGreaterThan(0);
+    expect(holes).toBe(enclosed);
+    expect(k.holeSites).toBe(enclosed);
+  });
+});
+
 describe('dbm-square: η = 0 against eden-square', () => {
   // Both are Eden on perimeter sites (eden-square: worker/models/eden-square/kernel.ts), drawn by
   // different code and different random draws; R_g at N = 400 over 300 clusters each,
