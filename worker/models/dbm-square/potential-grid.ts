@@ -185,6 +185,8 @@ export class PotentialGrid {
         }
       }
       const alpha = rz / pq;
+      // x += α p, r −= α q, and in the same row-major pass the forward SSOR sweep on the new r
+      const w4 = omega / 4;
       rmax = 0;
       for (let j = -half; j <= half; j++) {
         const w = rowWidth[j + half];
@@ -197,10 +199,11 @@ export class PotentialGrid {
           r[idx] = v;
           const a = v < 0 ? -v : v;
           if (a > rmax) rmax = a;
+          z[idx] = 0.25 * v + w4 * (z[idx - 1] + z[idx - side]);
         }
       }
       if (rmax <= limit) break;
-      const rzNext = this.precondition(omega);
+      const rzNext = this.backwardSweep(omega);
       const beta = rzNext / rz;
       rz = rzNext;
       for (let j = -half; j <= half; j++) {
@@ -251,6 +254,13 @@ export class PotentialGrid {
         z[idx] = 0.25 * r[idx] + w4 * (z[idx - 1] + z[idx - side]);
       }
     }
+    return this.backwardSweep(omega);
+  }
+
+  /** The backward half of the SSOR sweep (z holds the forward sweep's result); returns r · z. */
+  private backwardSweep(omega: number): number {
+    const { kind, r, z, rowWidth, half, side } = this;
+    const w4 = omega / 4;
     let rz = 0;
     for (let j = half; j >= -half; j--) {
       const w = rowWidth[j + half];
