@@ -34,6 +34,8 @@ export interface LatticeBenchRow {
   /** Walker moves (jumps + steps) per particle, for lattice DLA; null for Eden. */
   movesPerParticle: number | null;
   wallSeconds: number;
+  /** CPU time of the growth (user + system), less sensitive than wall time to other jobs on the machine. */
+  cpuSeconds: number;
   peakRssMB: number;
   stateHash: string;
   nodeVersion: string;
@@ -61,9 +63,11 @@ function childMain(model: string, particles: number, paramsJson: string): void {
   const params = JSON.parse(paramsJson) as Record<string, number>;
   const task = { model: modelParams(model, params), particles, ensembleSeed: '1', runIndex: 0, recordsPerDecade: 10 };
   const t0 = performance.now();
+  const cpu0 = process.cpuUsage();
   const kernel = createKernel(task);
   kernel.growTo(particles);
   const seconds = (performance.now() - t0) / 1000;
+  const cpu = process.cpuUsage(cpu0);
   const result = kernel.result();
   const perParticle: Record<string, number> = {};
   for (const [k, v] of Object.entries(result.counters)) perParticle[k] = v / particles;
@@ -78,6 +82,7 @@ function childMain(model: string, particles: number, paramsJson: string): void {
     perParticle,
     movesPerParticle: c.jumps !== undefined && c.steps !== undefined ? (c.jumps + c.steps) / particles : null,
     wallSeconds: seconds,
+    cpuSeconds: (cpu.user + cpu.system) / 1e6,
     peakRssMB: process.resourceUsage().maxRSS / 1024,
     stateHash: result.stateHash,
     nodeVersion: process.version,
@@ -111,7 +116,7 @@ export async function runLatticeBenchmark(part: LatticeBenchPart, sizes?: number
       const r = await runChild(p.model, n, p.params);
       const iterations = r.perParticle.solver_iterations;
       const moves = r.movesPerParticle !== null ? `, ${r.movesPerParticle.toFixed(1)} moves/particle` : iterations !== undefined ? `, ${iterations.toFixed(1)} solver iterations/particle` : '';
-      process.stdout.write(`${part}: ${r.model} ${r.particles}: ${Math.round(r.particlesPerSecond)} particles/s over ${r.wallSeconds.toFixed(1)} s${moves}, peak RSS ${r.peakRssMB.toFixed(0)} MB\n`);
+      process.stdout.write(`${part}: ${r.model} ${r.particles}: ${Math.round(r.particlesPerSecond)} particles/s over ${r.wallSeconds.toFixed(1)} s (CPU ${r.cpuSeconds.toFixed(1)} s)${moves}, peak RSS ${r.peakRssMB.toFixed(0)} MB\n`);
       process.stdout.write(JSON.stringify(r) + '\n');
       rows.push(r);
     }
