@@ -50,8 +50,8 @@
  *  Enclosed holes get their exact φ = 0 (worker/models/dbm-square/enclosed-regions.ts).
  *  At η = 0 no potential is needed and none is solved.
  *
- * Storage: the cluster and perimeter in sparse 8 × 8 tiles
- * (worker/index/tiled-grids.ts) as in the Eden kernel; the potential on a
+ * Storage: the cluster and perimeter list in sparse 8 × 8 tiles
+ * (worker/lattice/perimeter-sites.ts, shared with the Eden kernel); the potential on a
  * box grid of half-width floor(R_far) + 2 or more, grown with the cluster
  * (its area follows R_far², not the largest allowed size; a box above
  * MAX_GRID_SITES is refused with one line).
@@ -79,12 +79,10 @@ import { checkCheckpointOf } from '../../core/checkpoint-check.js';
 import { recordPlanarAnisotropy } from '../../core/anisotropy.js';
 import { PlanarCluster } from '../../core/planar-cluster.js';
 import type { StopSignal } from '../../core/stop-signal.js';
-import { TiledInt32Grid } from '../../index/tiled-grids.js';
+import { PerimeterSites } from '../../lattice/perimeter-sites.js';
 import { SQUARE, siteOf, toSite } from '../../lattice/planar-lattice.js';
 import { CLUSTER, PotentialGrid } from './potential-grid.js';
 import { EnclosedRegions } from './enclosed-regions.js';
-
-const OCCUPIED = -1;
 
 export class DbmSquare implements GrowthKernel {
   readonly task: GrowthTask;
@@ -95,11 +93,7 @@ export class DbmSquare implements GrowthKernel {
   private readonly farMargin: number;
   private readonly tolerance: number;
   private readonly cluster: PlanarCluster;
-  /** 0 = neither, −1 = cluster, k >= 1 = perimeter slot k − 1. */
-  private readonly sites: TiledInt32Grid;
-  private perimI: Int32Array;
-  private perimJ: Int32Array;
-  private perimCount = 0;
+  private readonly perimeter: PerimeterSites;
   /** The potential (η > 0 only). */
   readonly grid: PotentialGrid | null;
   private readonly enclosed = new EnclosedRegions();
@@ -112,9 +106,7 @@ export class DbmSquare implements GrowthKernel {
     this.farFactor = p.far_factor;
     this.farMargin = p.far_margin;
     this.tolerance = p.tolerance;
-    this.sites = new TiledInt32Grid(0, Math.max(16, task.particles >> 5));
-    this.perimI = new Int32Array(1024);
-    this.perimJ = new Int32Array(1024);
+    this.perimeter = new PerimeterSites(SQUARE, Math.max(16, task.particles >> 5));
     this.grid = this.eta > 0 ? new PotentialGrid(Math.ceil(this.farMargin) + 2) : null;
     const recordExtra = (extra: Record<string, number[]>, coords: Float64Array, count: number, rMax: number): void => recordPlanarAnisotropy(extra, coords, 2, count, rMax);
     if (checkpoint === undefined) {
@@ -135,14 +127,14 @@ export class DbmSquare implements GrowthKernel {
         const i = siteOf.i;
         const j = siteOf.j;
         if (i !== x || j !== y) throw new RangeError(`checkpoint position ${k} is not a lattice site`);
-        if (k > 0 && this.sites.get(i, j) <= 0) throw new RangeError(`checkpoint position ${k} is not a perimeter site of the cluster before it`);
+        if (k > 0 && this.perimeter.valueAt(i, j) <= 0) throw new RangeError(`checkpoint position ${k} is not a perimeter site of the cluster before it`);
         if (k > 0) this.prepareBoundary();
         this.join(i, j, true);
       }
       this.cluster.resumeRecords();
       this.restorePotential(checkpoint.modelState);
     }
-    this.counters.perimeter_sites = this.perimCount;
+    this.counters.perimeter_sites = this.perimeter.count;
   }
 
   get count(): number {
@@ -163,18 +155,18 @@ export class DbmSquare implements GrowthKernel {
     const goal = Math.min(target, this.task.particles);
     while (this.cluster.n < goal) {
       let slot: number;
-      if (this.grid === null) slot = this.rng.nextBelow(this.perimCount);
+      if (this.grid === null) slot = this.rng.nextBelow(this.perimeter.count);
       else {
         this.prepareBoundary();
         if (!this.grid.solve(this.tolerance, stop)) break;
         this.counters.solver_iterations += this.grid.iterations;
         slot = this.chooseSlot();
       }
-      const i = this.perimI[slot];
-      const j = this.perimJ[slot];
+      const i = this.perimeter.perimI[slot];
+      const j = this.perimeter.perimJ[slot];
       this.join(i, j);
     }
-    this.counters.perimeter_sites = this.perimCount;
+    this.counters.perimeter_sites = this.perimeter.count;
   }
 
   /** Move the far boundary out to R_far of the current cluster (the box grows with it). */
@@ -194,7 +186,7 @@ export class DbmSquare implements GrowthKernel {
     const w = weights.w;
     let sum = 0;
     let last = -1;
-    for (let s = 0; s < this.perimCount; s++) {
+    for (let s = 0; s < this.perimeter.count; s++) {
       const v = w[s];
       if (v <= 0) continue;
       sum += v;
@@ -209,13 +201,14 @@ export class DbmSquare implements GrowthKernel {
   /** φ^η of every perimeter slot (0 where φ <= 0) and their sum, in slot order. */
   weights(): { w: Float64Array; total: number } {
     const grid = this.grid!;
-    if (this.weightBuffer.length < this.perimCount) this.weightBuffer = new Float64Array(2 * this.perimCount);
+    const { count, perimI, perimJ } = this.perimeter;
+    if (this.weightBuffer.length < count) this.weightBuffer = new Float64Array(2 * count);
     const w = this.weightBuffer;
     const { phi, half, side } = grid;
     const eta = this.eta;
     let total = 0;
-    for (let s = 0; s < this.perimCount; s++) {
-      const f = phi[(this.perimJ[s] + half) * side + (this.perimI[s] + half)];
+    for (let s = 0; s < count; s++) {
+      const f = phi[(perimJ[s] + half) * side + (perimI[s] + half)];
       const v = f > 0 ? (eta === 1 ? f : eta === 2 ? f * f : Math.pow(f, eta)) : 0;
       w[s] = v;
       total += v;
@@ -226,7 +219,8 @@ export class DbmSquare implements GrowthKernel {
   /** The perimeter sites in slot order (for tests). */
   perimeterSites(): Array<[number, number]> {
     const out: Array<[number, number]> = [];
-    for (let s = 0; s < this.perimCount; s++) out.push([this.perimI[s], this.perimJ[s]]);
+    const { count, perimI, perimJ } = this.perimeter;
+    for (let s = 0; s < count; s++) out.push([perimI[s], perimJ[s]]);
     return out;
   }
 
@@ -235,7 +229,7 @@ export class DbmSquare implements GrowthKernel {
    * current cluster, after solving the potential (for tests and the far-boundary measurement).
    */
   growthProbabilities(): Float64Array {
-    const n = this.perimCount;
+    const n = this.perimeter.count;
     if (this.grid === null) return new Float64Array(n).fill(1 / n);
     this.prepareBoundary();
     this.grid.solve(this.tolerance);
@@ -247,47 +241,15 @@ export class DbmSquare implements GrowthKernel {
 
   /** Add (i, j) to the cluster: perimeter list, potential grid, holes, records. */
   private join(i: number, j: number, replay = false): void {
-    const v = this.sites.get(i, j);
-    if (v > 0) this.removePerimeter(v - 1);
-    this.sites.set(i, j, OCCUPIED);
-    const di = SQUARE.di;
-    const dj = SQUARE.dj;
-    for (let k = 0; k < 4; k++) {
-      const ni = i + di[k];
-      const nj = j + dj[k];
-      if (this.sites.get(ni, nj) !== 0) continue;
-      if (this.perimCount === this.perimI.length) this.growPerimeter();
-      this.perimI[this.perimCount] = ni;
-      this.perimJ[this.perimCount] = nj;
-      this.perimCount++;
-      this.sites.set(ni, nj, this.perimCount);
-    }
+    const v = this.perimeter.valueAt(i, j);
+    if (v > 0) this.perimeter.removeSlot(v - 1);
+    this.perimeter.occupy(i, j);
     if (replay) this.cluster.append(i, j);
     else this.cluster.place(i, j);
     if (this.grid !== null) {
       this.grid.block(i, j, CLUSTER);
       this.enclosed.afterJoin(this.grid, i, j, this.cluster.rMax);
     }
-  }
-
-  private removePerimeter(slot: number): void {
-    const last = --this.perimCount;
-    if (slot !== last) {
-      const li = this.perimI[last];
-      const lj = this.perimJ[last];
-      this.perimI[slot] = li;
-      this.perimJ[slot] = lj;
-      this.sites.set(li, lj, slot + 1);
-    }
-  }
-
-  private growPerimeter(): void {
-    const bi = new Int32Array(2 * this.perimI.length);
-    const bj = new Int32Array(2 * this.perimJ.length);
-    bi.set(this.perimI);
-    bj.set(this.perimJ);
-    this.perimI = bi;
-    this.perimJ = bj;
   }
 
   /** modelState: float64 LE R_far, number of unknowns, φ at the unknowns (empty for η = 0). */
@@ -324,7 +286,7 @@ export class DbmSquare implements GrowthKernel {
 
   /** Bytes held by the site tiles, the perimeter list and the potential grid (for benchmarks). */
   get storageBytes(): number {
-    return this.sites.bytes + this.perimI.byteLength + this.perimJ.byteLength + (this.grid?.bytes ?? 0);
+    return this.perimeter.bytes + (this.grid?.bytes ?? 0);
   }
 
   /** Sites found enclosed so far (φ = 0 exactly). */
@@ -340,14 +302,14 @@ export class DbmSquare implements GrowthKernel {
       count: this.cluster.n,
       positions: this.cluster.xy.slice(0, 2 * this.cluster.n),
       rngState: this.rng.state(),
-      counters: { solver_iterations: this.counters.solver_iterations, perimeter_sites: this.perimCount },
+      counters: { solver_iterations: this.counters.solver_iterations, perimeter_sites: this.perimeter.count },
       series: structuredClone(this.cluster.series),
       modelState: this.potentialState(),
     };
   }
 
   result(): GrowthResult {
-    return this.cluster.result(this.task, { solver_iterations: this.counters.solver_iterations, perimeter_sites: this.perimCount }, this.stateHash());
+    return this.cluster.result(this.task, { solver_iterations: this.counters.solver_iterations, perimeter_sites: this.perimeter.count }, this.stateHash());
   }
 
   /** Digest of positions, generator state, counters, holes and the potential at the unknowns. */
@@ -355,7 +317,7 @@ export class DbmSquare implements GrowthKernel {
     const h = new StateHasher();
     this.cluster.hashPositions(h);
     for (const w of this.rng.state()) h.word(w);
-    h.integer(this.perimCount).integer(this.counters.solver_iterations).integer(this.enclosed.holeSites);
+    h.integer(this.perimeter.count).integer(this.counters.solver_iterations).integer(this.enclosed.holeSites);
     if (this.grid !== null) {
       const values = this.grid.unknownValues();
       h.integer(values.length).float64Array(values, values.length);
