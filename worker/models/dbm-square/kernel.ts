@@ -33,16 +33,18 @@
  *    measure of the cluster from infinity, κ its value on the cluster;
  *    Lawler & Limic 2010, Random Walk: A Modern Introduction, ch. 6, from
  *    memory): test/dbm-square.test.ts checks the growth probabilities
- *    against u(s) / Σ u.
+ *    against u(s) / Σ u. This is not dla-square's law (there a walker stops
+ *    at the first perimeter site it visits), and it is per perimeter site,
+ *    not per bond as in the original paper's bond growth.
  *
  * How it is simulated (approximations, each with its parameter and test)
  *  A. Far boundary at R_far (params far_factor c, far_margin k): the model
  *     with R_far → ∞ is the limit of interest; at finite R_far the growth
  *     probabilities differ from it. Measured effect: test/dbm-square.test.ts
  *     compares them on small fixed clusters with the exact limit above
- *     (numbers in the README, "Lattice DBM").
+ *     (numbers in the README, "The lattice dielectric breakdown model").
  *  B. Solver tolerance (param tolerance): the potential is solved by
- *     conjugate gradients warm-started from the previous particle's
+ *     SSOR-preconditioned conjugate gradients warm-started from the previous particle's
  *     potential (worker/models/dbm-square/potential-grid.ts) until the
  *     largest residual of the averaged equation is at most the tolerance.
  *     Measured effect: test/dbm-square.test.ts compares the growth
