@@ -34,8 +34,9 @@
  *    Lawler & Limic 2010, Random Walk: A Modern Introduction, ch. 6, from
  *    memory): test/dbm-square.test.ts checks the growth probabilities
  *    against u(s) / Σ u. This is not dla-square's law (there a walker stops
- *    at the first perimeter site it visits), and it is per perimeter site,
- *    not per bond as in the original paper's bond growth.
+ *    at the first perimeter site it visits); a bond convention (weight per
+ *    (cluster site, perimeter site) pair) would be another model, not
+ *    offered here.
  *
  * How it is simulated (approximations, each with its parameter and test)
  *  A. Far boundary at R_far (params far_factor c, far_margin k): the model
