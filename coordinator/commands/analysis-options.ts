@@ -4,7 +4,8 @@
  * so the messages and ranges are the same.
  */
 import type { Command } from 'commander';
-import { mergeAnalysisSettings, SpecError, type AnalysisSettings } from '../spec/index.js';
+import type { AnalysisSettings } from '../spec/index.js';
+// the spec module (ajv, the model registry) loads when settings are merged, not when the options are registered (start-up of `status`)
 import { UsageError } from '../usage-error.js';
 
 export interface AnalysisCliOptions {
@@ -45,7 +46,7 @@ function number(flag: string, text: string): number {
 }
 
 /** The spec's analysis settings with the command-line overrides applied (validated). */
-export function analysisSettingsFromCli(base: AnalysisSettings, o: AnalysisCliOptions): AnalysisSettings {
+export async function analysisSettingsFromCli(base: AnalysisSettings, o: AnalysisCliOptions): Promise<AnalysisSettings> {
   const doc: Record<string, unknown> = {};
   if (o.fitWindow !== undefined) window('--fit-window', o.fitWindow, 'fit_min_size', 'fit_max_size', doc);
   if (o.massRadiusWindow !== undefined) window('--mass-radius-window', o.massRadiusWindow, 'mass_radius_min_radius', 'mass_radius_max_radius', doc);
@@ -54,6 +55,7 @@ export function analysisSettingsFromCli(base: AnalysisSettings, o: AnalysisCliOp
   if (o.corrections !== undefined) doc.corrections = o.corrections;
   if (o.localSlopeWidth !== undefined) doc.local_slope_width = number('--local-slope-width', o.localSlopeWidth);
   if (Object.keys(doc).length === 0) return base;
+  const { mergeAnalysisSettings, SpecError } = await import('../spec/index.js');
   try {
     return mergeAnalysisSettings(base, doc);
   } catch (err) {

@@ -26,17 +26,18 @@
  * Checkpoints are not in Redis but in the artifact store (coordinator/farm/artifacts.ts).
  */
 import { Redis } from 'ioredis';
-import { decodeRunResult, type RunResultData } from '../../proto/convert.js';
-import { probeSizesOf, specToDocument, validateSpec, type EnsembleSpec } from '../spec/index.js';
+import type { RunResultData } from '../../proto/convert.js';
+import type { EnsembleSpec } from '../spec/index.js';
+import { DEFAULT_PREFIX, RATE_BUCKET_MS } from './ensemble-status.js';
+import { EnsembleReader } from './ensemble-reader.js';
 import type { AdaptiveHistory } from '../summary/adaptive.js';
 import type { RunSink } from '../../worker/runtime/queue-processor.js';
 import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
 
-export const DEFAULT_PREFIX = 'tendril';
-const RATE_BUCKET_MS = 10_000;
-const RATE_WINDOW_MS = 60_000;
-/** A running run whose worker gave no sign of life for this long is counted as queued (workers tick every 2 s by default). */
-export const STALE_RUN_MS = 60_000;
+export { DEFAULT_PREFIX, STALE_RUN_MS, type EnsembleState, type EnsembleStatus } from './ensemble-status.js';
+export type { EnsembleRecord } from './ensemble-reader.js';
+// the spec validator (ajv, the model registry) loads on first use
+const specModule = () => import('../spec/index.js');
 
 /**
  * A Redis connection. `failFast` (the HTTP API): commands fail at once while
@@ -53,20 +54,6 @@ export function connectRedis(url: string, opts: { lazy?: boolean; failFast?: num
   });
 }
 
-export interface EnsembleRecord {
-  id: string;
-  name: string;
-  spec: EnsembleSpec;
-  createdAtMs: number;
-  jobs: number;
-  cancelled: boolean;
-  /** Clusters planned so far: spec.clusters, or the sum of the batches of an adaptive ensemble. */
-  plannedClusters: number;
-  /** Batch history of an adaptive ensemble; null for a fixed count. */
-  adaptive: AdaptiveHistory | null;
-  /** Runs whose jobs are known to be queued (adaptive ensembles; = plannedClusters otherwise). */
-  queuedThrough: number;
-}
 
 /**
  * One atomic step of an adaptive ensemble: only if the ensemble still has
@@ -103,37 +90,17 @@ redis.call('HSET', KEYS[3], ARGV[1], ARGV[3])
 return 1
 `;
 
-export type EnsembleState = 'running' | 'done' | 'failed' | 'cancelled';
-
-export interface EnsembleStatus {
-  id: string;
-  name: string;
-  state: EnsembleState;
-  createdAt: string;
-  runs: { planned: number; queued: number; running: number; done: number; failed: number };
-  particles: { done: number; total: number };
-  /** Particles per second over the last minute. */
-  throughput: number;
-  /** Seconds until done at the current throughput; null when unknown. */
-  etaSeconds: number | null;
-  failures: Array<{ runIndex: number; reason: string }>;
-  /** Adaptive ensembles: the outcome so far, batches planned, and the cluster cap; null for a fixed count. */
-  adaptive: { outcome: string; batches: number; maxClusters: number } | null;
-  /** Probed ensembles: (run, size) probes planned for the planned clusters, analysed, failed; null without [probe]. */
-  probes: { planned: number; done: number; failed: number; failures: Array<{ runIndex: number; size: number; reason: string }> } | null;
-}
-
-export class EnsembleStore implements RunSink {
+/** The ensemble store: the reads of EnsembleReader, and every write (launch, workers, cancel). */
+export class EnsembleStore extends EnsembleReader implements RunSink {
   constructor(
     readonly redis: Redis,
-    readonly prefix: string = DEFAULT_PREFIX,
-  ) {}
-
-  private k(id: string, part?: string): string {
-    return part ? `${this.prefix}:ensemble:${id}:${part}` : `${this.prefix}:ensemble:${id}`;
+    prefix: string = DEFAULT_PREFIX,
+  ) {
+    super(redis, prefix);
   }
 
   async create(id: string, spec: EnsembleSpec, jobs: number, createdAtMs = Date.now(), adaptive: AdaptiveHistory | null = null): Promise<void> {
+    const { specToDocument } = await specModule();
     const ok = await this.redis.hsetnx(this.k(id), 'spec', JSON.stringify(specToDocument(spec)));
     if (!ok) throw new Error(`ensemble ${id} exists already`);
     const fields: Record<string, string> = {
@@ -164,22 +131,6 @@ export class EnsembleStore implements RunSink {
     return (await this.redis.hexists(this.k(id), 'launched')) === 1;
   }
 
-  async get(id: string): Promise<EnsembleRecord | null> {
-    const h = await this.redis.hgetall(this.k(id));
-    if (!h.spec) return null;
-    return {
-      id,
-      name: h.name ?? '',
-      spec: validateSpec(JSON.parse(h.spec), { maxTotalParticles: Number.MAX_SAFE_INTEGER }),
-      createdAtMs: Number(h.created_at_ms ?? 0),
-      jobs: Number(h.jobs ?? 0),
-      cancelled: h.cancelled === '1',
-      plannedClusters: Number(h.clusters ?? 0),
-      adaptive: h.adaptive ? (JSON.parse(h.adaptive) as AdaptiveHistory) : null,
-      queuedThrough: h.queued_through !== undefined ? Number(h.queued_through) : Number(h.clusters ?? 0),
-    };
-  }
-
   /** The atomic batch step of an adaptive ensemble (see EXTEND_SCRIPT); true when this call made it. */
   async extendAdaptive(id: string, expectedClusters: number, newClusters: number, newJobs: number, history: AdaptiveHistory): Promise<boolean> {
     const r = await this.redis.eval(EXTEND_SCRIPT, 1, this.k(id), String(expectedClusters), String(newClusters), String(newJobs), JSON.stringify(history));
@@ -203,11 +154,6 @@ export class EnsembleStore implements RunSink {
       if (a && c !== '1' && a.includes('"outcome":"running"')) out.push(id);
     }
     return out;
-  }
-
-  /** Ensemble ids, newest first. */
-  async ids(limit = 100): Promise<string[]> {
-    return this.redis.zrevrange(`${this.prefix}:ensembles`, 0, limit - 1);
   }
 
   async cancel(id: string): Promise<boolean> {
@@ -297,97 +243,6 @@ export class EnsembleStore implements RunSink {
   async probeFailed(id: string, runIndex: number, size: number, reason: string): Promise<void> {
     if (await this.hasHarmonic(id, runIndex, size)) return;
     await this.redis.hset(this.k(id, 'probe-failed'), `${runIndex}:${size}`, reason.slice(0, 500));
-  }
-
-  /** The kept harmonic records, in (run, size) order. */
-  async harmonicRecords(id: string): Promise<ClusterHarmonic[]> {
-    const h = await this.redis.hgetall(this.k(id, 'harmonic'));
-    return Object.values(h)
-      .map((v) => JSON.parse(v) as ClusterHarmonic)
-      .sort((a, b) => a.runIndex - b.runIndex || a.size - b.size);
-  }
-
-  // ---------------------------------------------------------- reading
-
-  /** Stored results in run-index order (one per run index by construction). */
-  async results(id: string): Promise<RunResultData[]> {
-    const h = await this.redis.hgetallBuffer(this.k(id, 'results'));
-    return Object.values(h)
-      .map((b) => decodeRunResult(b))
-      .sort((a, b) => a.runIndex - b.runIndex);
-  }
-
-  async status(id: string, now = Date.now()): Promise<EnsembleStatus | null> {
-    const rec = await this.get(id);
-    if (!rec) return null;
-    const [doneN, marked, progress, failed, rate, harmonicN, probeFailed, seen] = await Promise.all([
-      this.redis.hlen(this.k(id, 'results')),
-      this.redis.hgetall(this.k(id, 'running')),
-      this.redis.hgetall(this.k(id, 'progress')),
-      this.redis.hgetall(this.k(id, 'failed')),
-      this.redis.hgetall(this.k(id, 'rate')),
-      this.redis.hlen(this.k(id, 'harmonic')),
-      this.redis.hgetall(this.k(id, 'probe-failed')),
-      this.redis.hgetall(this.k(id, 'seen')),
-    ]);
-    // runs whose worker stopped giving signs of life (killed) are waiting to be taken up again, not running
-    const running: Record<string, string> = {};
-    for (const [i, w] of Object.entries(marked)) if (seen[i] === undefined || now - Number(seen[i]) < STALE_RUN_MS) running[i] = w;
-    // a run whose result is stored is never running, whatever a stale mark says
-    const markedRuns = Object.keys(running);
-    if (markedRuns.length > 0) {
-      const stored = await this.redis.hmget(this.k(id, 'results'), ...markedRuns);
-      markedRuns.forEach((i, j) => { if (stored[j] !== null) delete running[i]; });
-    }
-    const probeSizes = probeSizesOf(rec.spec).length;
-    const planned = rec.plannedClusters;
-    const runningN = Object.keys(running).length;
-    const failedN = Object.keys(failed).length;
-    let particlesDone = doneN * rec.spec.particles;
-    // only runs still marked running count (a late progress write may follow a stored result)
-    for (const [i, v] of Object.entries(progress)) if (running[i] !== undefined) particlesDone += Number(v);
-    const fromBucket = Math.floor((now - RATE_WINDOW_MS) / RATE_BUCKET_MS);
-    let recent = 0;
-    for (const [b, v] of Object.entries(rate)) if (Number(b) >= fromBucket) recent += Number(v);
-    const windowS = Math.min(RATE_WINDOW_MS, Math.max(RATE_BUCKET_MS, now - rec.createdAtMs)) / 1000;
-    const throughput = recent / windowS;
-    const total = planned * rec.spec.particles;
-    const probesPlanned = planned * probeSizes;
-    const probeFailedN = Object.keys(probeFailed).length;
-    const probesComplete = harmonicN >= probesPlanned;
-    let state: EnsembleState = 'running';
-    if (rec.cancelled && (doneN < planned || !probesComplete)) state = 'cancelled';
-    else if (doneN === planned && rec.adaptive?.outcome === 'running') state = 'running'; // batch complete, awaiting its judgement
-    else if (doneN === planned && probesComplete) state = 'done';
-    else if (doneN + failedN === planned && harmonicN + probeFailedN >= doneN * probeSizes && (failedN > 0 || probeFailedN > 0)) state = 'failed';
-    const remaining = total - particlesDone;
-    return {
-      id,
-      name: rec.name,
-      state,
-      createdAt: new Date(rec.createdAtMs).toISOString(),
-      // a cancelled or finished ensemble has nothing queued (its jobs were dropped), and grows nothing
-      runs: { planned, queued: state === 'running' ? Math.max(0, planned - doneN - runningN - failedN) : 0, running: runningN, done: doneN, failed: failedN },
-      particles: { done: particlesDone, total },
-      throughput: state === 'running' ? throughput : 0,
-      etaSeconds: state !== 'running' ? (state === 'done' ? 0 : null) : throughput > 0 ? remaining / throughput : null,
-      failures: Object.entries(failed)
-        .map(([i, reason]) => ({ runIndex: Number(i), reason }))
-        .sort((a, b) => a.runIndex - b.runIndex)
-        .slice(0, 20),
-      adaptive: rec.adaptive ? { outcome: rec.adaptive.outcome, batches: rec.adaptive.batches.length, maxClusters: rec.adaptive.target.max_clusters } : null,
-      probes: rec.spec.probe
-        ? {
-            planned: probesPlanned,
-            done: harmonicN,
-            failed: probeFailedN,
-            failures: Object.entries(probeFailed)
-              .map(([k, reason]) => ({ runIndex: Number(k.split(':')[0]), size: Number(k.split(':')[1]), reason }))
-              .sort((a, b) => a.runIndex - b.runIndex || a.size - b.size)
-              .slice(0, 20),
-          }
-        : null,
-    };
   }
 
   /** Delete every key of an ensemble (tests and operators). */
