@@ -168,11 +168,11 @@ describe('tendril grow, bad options', () => {
   const ok = ['--seed', '1', '--out'];
   const R = 'an integer from';
   const cases: Array<[string, string[], string]> = [
-    ['particles not a number', ['--particles', 'abc'], `tendril: --particles: "abc" is not a number; allowed: ${R} 2 to 100000000`],
-    ['particles too small', ['--particles', '1'], `tendril: --particles: 1 is out of range; allowed: ${R} 2 to 100000000`],
-    ['particles too large', ['--particles', '100000001'], `tendril: --particles: 100000001 is out of range; allowed: ${R} 2 to 100000000`],
-    ['particles fractional', ['--particles', '2.5'], `tendril: --particles: 2.5 is out of range; allowed: ${R} 2 to 100000000`],
-    ['particles missing', [], 'tendril: --particles is required (an integer from 2 to 100000000)'],
+    ['particles not a number', ['--particles', 'abc'], `tendril: --particles: "abc" is not a number; allowed: ${R} 2 to 1000000000`],
+    ['particles too small', ['--particles', '1'], `tendril: --particles: 1 is out of range; allowed: ${R} 2 to 1000000000`],
+    ['particles too large', ['--particles', '1000000001'], `tendril: --particles: 1000000001 is out of range; allowed: ${R} 2 to 1000000000`],
+    ['particles fractional', ['--particles', '2.5'], `tendril: --particles: 2.5 is out of range; allowed: ${R} 2 to 1000000000`],
+    ['particles missing', [], 'tendril: --particles is required (an integer from 2 to 1000000000)'],
     ['seed negative', ['--particles', '10', '--seed', '-1'], 'tendril: --seed: "-1" is not allowed; allowed: an unsigned 64-bit integer from 0 to 18446744073709551615 in decimal'],
     ['seed 2^64', ['--particles', '10', '--seed', '18446744073709551616'], 'tendril: --seed: "18446744073709551616" is not allowed; allowed: an unsigned 64-bit integer from 0 to 18446744073709551615 in decimal'],
     ['seed hex', ['--particles', '10', '--seed', '0x10'], 'tendril: --seed: "0x10" is not allowed; allowed: an unsigned 64-bit integer from 0 to 18446744073709551615 in decimal'],
