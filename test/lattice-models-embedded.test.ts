@@ -14,6 +14,8 @@ const SPECS = [
   { model: 'eden-offlattice-2d', particles: 1500 },
   { model: 'dla-square', particles: 1500, params: { noise_reduction: 2 } },
   { model: 'dla-triangular', particles: 1500, params: { noise_reduction: 2 } },
+  // the checkpoints carry the potential (modelState of a few hundred kB)
+  { model: 'dbm-square', particles: 200, params: { eta: 2 } },
 ];
 
 describe('lattice and Eden models: task runner and embedded mode', () => {

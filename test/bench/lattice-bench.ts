@@ -9,6 +9,9 @@
  *   lattice  dla-square (m = 1) at 10^5 and 10^6, dla-triangular at 10^5:
  *            particles/s, moves (exact jumps + single steps) per particle,
  *            peak RSS
+ *   dbm-lattice  dbm-square at η = 2 at 10^3, 3·10^3 and 10^4 (target: 10^4
+ *            in under 5 minutes on one core): particles/s, solver
+ *            (conjugate-gradient) iterations per particle, peak RSS
  *
  * `--sizes a,b` replaces the sizes of every model of the part. Prints one
  * line for people and one JSON line per cluster.
@@ -42,7 +45,9 @@ export interface LatticeBenchRow {
 const THIS_FILE = fileURLToPath(import.meta.url);
 const CHILD_FLAG = '--lattice-bench-child';
 
-export const LATTICE_BENCH_PLAN: Record<'eden' | 'lattice', { model: string; params: Record<string, number>; sizes: number[] }[]> = {
+export type LatticeBenchPart = 'eden' | 'lattice' | 'dbm-lattice';
+
+export const LATTICE_BENCH_PLAN: Record<LatticeBenchPart, { model: string; params: Record<string, number>; sizes: number[] }[]> = {
   eden: [
     { model: 'eden-square', params: {}, sizes: [1_000_000, 10_000_000] },
     { model: 'eden-triangular', params: {}, sizes: [1_000_000, 10_000_000] },
@@ -52,6 +57,7 @@ export const LATTICE_BENCH_PLAN: Record<'eden' | 'lattice', { model: string; par
     { model: 'dla-square', params: {}, sizes: [100_000, 1_000_000] },
     { model: 'dla-triangular', params: {}, sizes: [100_000] },
   ],
+  'dbm-lattice': [{ model: 'dbm-square', params: { eta: 2 }, sizes: [1_000, 3_000, 10_000] }],
 };
 
 function childMain(model: string, particles: number, paramsJson: string): void {
@@ -105,14 +111,15 @@ function runChild(model: string, particles: number, params: Record<string, numbe
   });
 }
 
-/** Run one part ('eden' or 'lattice'); `sizes` replaces the planned sizes when given. */
-export async function runLatticeBenchmark(part: 'eden' | 'lattice', sizes?: number[]): Promise<LatticeBenchRow[]> {
+/** Run one part ('eden', 'lattice' or 'dbm-lattice'); `sizes` replaces the planned sizes when given. */
+export async function runLatticeBenchmark(part: LatticeBenchPart, sizes?: number[]): Promise<LatticeBenchRow[]> {
   const rows: LatticeBenchRow[] = [];
   for (const p of LATTICE_BENCH_PLAN[part]) {
     for (const n of sizes ?? p.sizes) {
       const r = await runChild(p.model, n, p.params);
-      const moves = r.movesPerParticle === null ? '' : `, ${r.movesPerParticle.toFixed(1)} moves/particle`;
-      process.stdout.write(`${part}: ${r.model} ${r.particles}: ${Math.round(r.particlesPerSecond)} particles/s over ${r.wallSeconds.toFixed(1)} s (${Math.round(r.particlesPerCpuSecond)} per CPU second)${moves}, peak RSS ${r.peakRssMB.toFixed(0)} MB\n`);
+      const iterations = r.perParticle.solver_iterations;
+      const moves = r.movesPerParticle !== null ? `, ${r.movesPerParticle.toFixed(1)} moves/particle` : iterations !== undefined ? `, ${iterations.toFixed(1)} solver iterations/particle` : '';
+      process.stdout.write(`${part}: ${r.model} ${r.particles}: ${Math.round(r.particlesPerSecond)} particles/s over ${r.wallSeconds.toFixed(1)} s (CPU ${r.cpuSeconds.toFixed(1)} s, ${Math.round(r.particlesPerCpuSecond)} per CPU second)${moves}, peak RSS ${r.peakRssMB.toFixed(0)} MB\n`);
       process.stdout.write(JSON.stringify(r) + '\n');
       rows.push(r);
     }

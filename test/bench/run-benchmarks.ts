@@ -21,6 +21,9 @@
  *              10^6 and 10^7, off-lattice at 10^5 and 10^6): particles/s, peak RSS
  *   lattice    test/bench/lattice-bench.ts: square-lattice DLA at 10^5 and 10^6,
  *              triangular at 10^5: particles/s, moves per particle, peak RSS
+ *   dbm-lattice  test/bench/lattice-bench.ts (opt-in: hours at 10^4): the lattice dielectric breakdown
+ *              model (dbm-square) at η = 2, 10^3 to 10^4: particles/s, solver
+ *              iterations per particle, peak RSS
  *   giant      test/bench/giant-bench.ts (opt-in: only with --only giant): 2D
  *              off-lattice DLA at 10^5, 10^6, 10^7 (--sizes; --giant-1e8 adds
  *              10^8): particles/s, jumps, peak RSS, bytes per particle,
@@ -42,9 +45,9 @@ import { giantOptionsFromArgs, runGiantBenchmark } from './giant-bench.js';
 import { runDbmBenchmark } from './dbm-bench.js';
 import { runDbmCapBenchmark } from './dbm-cap-bench.js';
 
-const PARTS = ['growth', 'dla3d', 'aggregate', 'probe', 'probe-scaling', 'farm', 'eden', 'lattice', 'dbm', 'dbm-cap', 'giant'] as const;
+const PARTS = ['growth', 'dla3d', 'aggregate', 'probe', 'probe-scaling', 'farm', 'eden', 'lattice', 'dbm', 'dbm-cap', 'dbm-lattice', 'giant'] as const;
 /** Parts run only when named in --only (long, and not for CI). */
-const OPT_IN: readonly string[] = ['giant'];
+const OPT_IN: readonly string[] = ['giant', 'dbm-lattice'];
 /** Default sizes of the dla3d part. */
 const DLA3D_SIZES = [100_000, 1_000_000];
 type Part = (typeof PARTS)[number];
@@ -80,7 +83,7 @@ async function main(argv: string[]): Promise<number> {
         const given = argv.some((a) => a === '--sizes' || a.startsWith('--sizes='));
         await runGrowthBenchmark({ sizes: given ? sizesFromArgs(argv) : DLA3D_SIZES, model: 'dla-offlattice-3d' });
       }
-      else if (part === 'eden' || part === 'lattice') await runLatticeBenchmark(part, argv.some((a) => a === '--sizes' || a.startsWith('--sizes=')) ? sizesFromArgs(argv) : undefined);
+      else if (part === 'eden' || part === 'lattice' || part === 'dbm-lattice') await runLatticeBenchmark(part, argv.some((a) => a === '--sizes' || a.startsWith('--sizes=')) ? sizesFromArgs(argv) : undefined);
       else if (part === 'aggregate') runAggregate();
       else if (part === 'dbm-cap') runDbmCapBenchmark();
       else if (part === 'dbm') {

@@ -17,6 +17,7 @@ import { dlaSquare } from './dla-square/descriptor.js';
 import { dlaTriangular } from './dla-triangular/descriptor.js';
 import { dlaOffLattice3d } from './dla-offlattice-3d/descriptor.js';
 import { dbmOffLattice2d } from './dbm-offlattice-2d/descriptor.js';
+import { dbmSquare } from './dbm-square/descriptor.js';
 
 export const MODELS: readonly ModelDescriptor[] = [
   dlaOffLattice2d,
@@ -27,6 +28,7 @@ export const MODELS: readonly ModelDescriptor[] = [
   dlaTriangular,
   dlaOffLattice3d,
   dbmOffLattice2d,
+  dbmSquare,
 ];
 
 export const MODEL_KINDS: readonly string[] = MODELS.map((m) => m.kind);
