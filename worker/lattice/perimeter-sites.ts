@@ -78,7 +78,7 @@ export class PerimeterSites {
   }
 
   private grow(): void {
-    const grow = (a: Int32Array): Int32Array => {
+    const grow = (a: Int32Array<ArrayBuffer>): Int32Array<ArrayBuffer> => {
       const b = new Int32Array(2 * a.length);
       b.set(a);
       return b;

@@ -36,7 +36,7 @@ export const dbmSquare: ModelDescriptor = {
   ],
   workCounter: 'solver_iterations',
   observables: PLANAR_ANISOTROPY_OBSERVABLES,
-  probe: null,
+  probe: 'lattice-sites',
   picture: 'disks',
   contactDistance: 1,
   reference: {
