@@ -80,6 +80,7 @@ import { StateHasher } from '../../core/state-hash.js';
 import { checkCheckpointOf } from '../../core/checkpoint-check.js';
 import { recordPlanarAnisotropy } from '../../core/anisotropy.js';
 import { PlanarCluster } from '../../core/planar-cluster.js';
+import { STOP_CHECK_EVERY, stopRaised, type StopSignal } from '../../core/stop-signal.js';
 import { TiledByteGrid, TiledInt32Grid } from '../../index/tiled-grids.js';
 import { returnToCircle, returned } from '../../walkers/poisson-return-2d.js';
 import { direction, sampleDirection } from '../../walkers/uniform-direction.js';
@@ -119,6 +120,10 @@ export class DlaLatticeKernel implements GrowthKernel {
   private readonly marks: TiledByteGrid[] = [];
   private readonly rng: Random;
   private guess = 1;
+  /** Generator state at the start of the walker being walked (restored when a stop interrupts it). */
+  private readonly walkerStart = new Uint32Array(4);
+  /** Walker moves (jumps, steps, returns) until the stop signal is read next (carried across walkers). */
+  private untilCheck = STOP_CHECK_EVERY;
 
   constructor(lattice: PlanarLattice, task: GrowthTask, checkpoint?: GrowthCheckpoint) {
     this.task = structuredClone(task);
@@ -168,16 +173,21 @@ export class DlaLatticeKernel implements GrowthKernel {
     return this.cluster.n >= this.task.particles;
   }
 
-  growTo(target: number): void {
+  growTo(target: number, stop?: StopSignal): void {
     const goal = Math.min(target, this.task.particles);
-    while (this.cluster.n < goal) this.addParticle();
+    while (this.cluster.n < goal) if (!this.addParticle(stop)) return;
   }
 
-  /** Launch walkers until a perimeter site reaches m hits, and add it. */
-  private addParticle(): void {
+  /**
+   * Launch walkers until a perimeter site reaches m hits, and add it; false
+   * when the stop signal interrupted a walker. The state is then the one
+   * after the last whole walker (its hits kept, as a checkpoint keeps them),
+   * so a resume continues with the same draws.
+   */
+  private addParticle(stop: StopSignal | undefined): boolean {
     const m = this.hitsToJoin;
     for (;;) {
-      this.walk();
+      if (!this.walk(stop)) return false;
       const i = walkerAt.i;
       const j = walkerAt.j;
       if (m > 1) {
@@ -193,13 +203,19 @@ export class DlaLatticeKernel implements GrowthKernel {
       this.occupy(i, j);
       toPlane(this.lattice, i, j);
       this.cluster.place(planeOf.x, planeOf.y);
-      return;
+      return true;
     }
   }
 
-  /** Run one walker from the launch circle to its first perimeter site (left in walkerAt). */
-  private walk(): void {
+  /**
+   * Run one walker from the launch circle to its first perimeter site (left
+   * in walkerAt); false, with the generator put back to where the walker
+   * began and no counter changed, when the stop signal is raised.
+   */
+  private walk(stop: StopSignal | undefined): boolean {
     const rng = this.rng;
+    rng.saveState(this.walkerStart);
+    let untilCheck = this.untilCheck;
     const lattice = this.lattice;
     const tri = this.triangular;
     const maxLevel = this.maxLevel;
@@ -217,6 +233,14 @@ export class DlaLatticeKernel implements GrowthKernel {
     let x = siteOf.i;
     let y = siteOf.j;
     for (;;) {
+      if (--untilCheck === 0) {
+        untilCheck = STOP_CHECK_EVERY;
+        if (stopRaised(stop)) {
+          rng.loadState(this.walkerStart);
+          this.untilCheck = STOP_CHECK_EVERY;
+          return false;
+        }
+      }
       const px = tri ? x + 0.5 * y : x;
       const py = tri ? y * HALF_SQRT3 : y;
       const r2 = px * px + py * py;
@@ -265,6 +289,8 @@ export class DlaLatticeKernel implements GrowthKernel {
     this.counters.jumps += jumps;
     this.counters.steps += steps;
     this.counters.returns += returns;
+    this.untilCheck = untilCheck;
+    return true;
   }
 
   /** The largest level e (0 … maxLevel) whose cell around (x, y) is unmarked (0: none is). */

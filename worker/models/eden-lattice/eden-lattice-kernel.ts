@@ -43,6 +43,7 @@ import { checkCheckpointOf } from '../../core/checkpoint-check.js';
 import { recordPlanarAnisotropy } from '../../core/anisotropy.js';
 import { recordRadialInterface } from '../../core/radial-interface.js';
 import { PlanarCluster } from '../../core/planar-cluster.js';
+import { STOP_CHECK_EVERY, stopRaised, type StopSignal } from '../../core/stop-signal.js';
 import { TiledInt32Grid } from '../../index/tiled-grids.js';
 import { type PlanarLattice, planeOf, siteOf, toPlane, toSite } from '../../lattice/planar-lattice.js';
 
@@ -106,11 +107,17 @@ export class EdenLatticeKernel implements GrowthKernel {
     return this.cluster.n >= this.task.particles;
   }
 
-  growTo(target: number): void {
+  /** Every particle is one draw, so a stop (read every STOP_CHECK_EVERY particles) leaves the state after a whole particle. */
+  growTo(target: number, stop?: StopSignal): void {
     const goal = Math.min(target, this.task.particles);
     const rng = this.rng;
     const lattice = this.lattice;
+    let untilCheck = STOP_CHECK_EVERY;
     while (this.cluster.n < goal) {
+      if (--untilCheck === 0) {
+        untilCheck = STOP_CHECK_EVERY;
+        if (stopRaised(stop)) break;
+      }
       const slot = rng.nextBelow(this.perimCount);
       const i = this.perimI[slot];
       const j = this.perimJ[slot];
