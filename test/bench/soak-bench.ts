@@ -13,7 +13,8 @@
  *                  seeded sample of `--check` others)
  *   workerRssMb    resident memory of workers sampled just before each kill
  *                  (first and last), and of the survivors at the end
- * All three counts must be 0.
+ * All three counts must be 0. While it runs, a progress line per kill goes to
+ * stderr (wall minutes, runs done, kills, restarts, RSS of the last victim).
  *
  *   node dist/test/bench/soak-bench.js [--minutes 60] [--kill-every 60] [--redis-every 600]
  *        [--particles 50000] [--check 20]
@@ -163,8 +164,15 @@ export async function runSoak(o: SoakOptions): Promise<SoakResult> {
     for (;;) {
       await sleep(500);
       const now = performance.now();
-      const state = await store.status(id).then((s) => s?.state, () => undefined);
+      const status = await store.status(id).catch(() => undefined);
+      const state = status?.state;
       if (state === 'done' || state === 'failed' || now > giveUp) break;
+      if (now >= nextKill && status) {
+        // one progress line per kill on stderr, so a soak stopped early still leaves its figures
+        process.stderr.write(
+          JSON.stringify({ soakProgress: { wallMinutes: Number(((now - started) / 60_000).toFixed(2)), runsDone: status.runs.done, clusters: spec.clusters, workerKills, redisRestarts, killedRssMb: killedRss.slice(-1)[0] ?? null } }) + '\n',
+        );
+      }
       if (now >= nextKill) {
         nextKill = now + o.killEverySeconds * 1000;
         const i = Math.floor(random() * workers.length);
