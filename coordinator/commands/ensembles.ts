@@ -43,11 +43,7 @@ export function register(program: Command): void {
     .action(async (opts: FarmCliOptions & { json?: boolean }) => {
       const farm = await openFarm(opts);
       try {
-        const all: EnsembleStatus[] = [];
-        for (const id of await farm.store.ids(100)) {
-          const s = await farm.store.status(id);
-          if (s) all.push(s);
-        }
+        const all = await farm.store.recentStatuses(100);
         if (opts.json) process.stdout.write(JSON.stringify(all, null, 2) + '\n');
         else if (all.length === 0) process.stdout.write('no ensembles\n');
         else for (const s of all) process.stdout.write(statusLine(s) + '\n');

@@ -123,6 +123,22 @@ export interface EnsembleStatus {
   probes: { planned: number; done: number; failed: number; failures: Array<{ runIndex: number; size: number; reason: string }> } | null;
 }
 
+/** The record stored in an ensemble's hash; null when it holds no spec (unknown or purged). */
+function recordOf(id: string, h: Record<string, string>): EnsembleRecord | null {
+  if (!h.spec) return null;
+    return {
+      id,
+      name: h.name ?? '',
+      spec: validateSpec(JSON.parse(h.spec), { maxTotalParticles: Number.MAX_SAFE_INTEGER }),
+      createdAtMs: Number(h.created_at_ms ?? 0),
+      jobs: Number(h.jobs ?? 0),
+      cancelled: h.cancelled === '1',
+      plannedClusters: Number(h.clusters ?? 0),
+      adaptive: h.adaptive ? (JSON.parse(h.adaptive) as AdaptiveHistory) : null,
+      queuedThrough: h.queued_through !== undefined ? Number(h.queued_through) : Number(h.clusters ?? 0),
+    };
+}
+
 export class EnsembleStore implements RunSink {
   constructor(
     readonly redis: Redis,
@@ -165,19 +181,7 @@ export class EnsembleStore implements RunSink {
   }
 
   async get(id: string): Promise<EnsembleRecord | null> {
-    const h = await this.redis.hgetall(this.k(id));
-    if (!h.spec) return null;
-    return {
-      id,
-      name: h.name ?? '',
-      spec: validateSpec(JSON.parse(h.spec), { maxTotalParticles: Number.MAX_SAFE_INTEGER }),
-      createdAtMs: Number(h.created_at_ms ?? 0),
-      jobs: Number(h.jobs ?? 0),
-      cancelled: h.cancelled === '1',
-      plannedClusters: Number(h.clusters ?? 0),
-      adaptive: h.adaptive ? (JSON.parse(h.adaptive) as AdaptiveHistory) : null,
-      queuedThrough: h.queued_through !== undefined ? Number(h.queued_through) : Number(h.clusters ?? 0),
-    };
+    return recordOf(id, await this.redis.hgetall(this.k(id)));
   }
 
   /** The atomic batch step of an adaptive ensemble (see EXTEND_SCRIPT); true when this call made it. */
@@ -197,12 +201,15 @@ export class EnsembleStore implements RunSink {
 
   /** Ids of adaptive ensembles still growing (scanning the newest `limit`). */
   async runningAdaptiveIds(limit = 1000): Promise<string[]> {
-    const out: string[] = [];
-    for (const id of await this.ids(limit)) {
-      const [a, c] = await this.redis.hmget(this.k(id), 'adaptive', 'cancelled');
-      if (a && c !== '1' && a.includes('"outcome":"running"')) out.push(id);
-    }
-    return out;
+    const ids = await this.ids(limit);
+    if (ids.length === 0) return [];
+    const tx = this.redis.multi();
+    for (const id of ids) tx.hmget(this.k(id), 'adaptive', 'cancelled');
+    const fields = repliesOf<Array<string | null>>(await tx.exec());
+    return ids.filter((_, n) => {
+      const [a, c] = fields[n];
+      return a !== null && c !== '1' && a.includes('"outcome":"running"');
+    });
   }
 
   /** Ensemble ids, newest first. */
@@ -318,76 +325,63 @@ export class EnsembleStore implements RunSink {
   }
 
   async status(id: string, now = Date.now()): Promise<EnsembleStatus | null> {
-    const rec = await this.get(id);
-    if (!rec) return null;
-    const [doneN, marked, progress, failed, rate, harmonicN, probeFailed, seen] = await Promise.all([
-      this.redis.hlen(this.k(id, 'results')),
-      this.redis.hgetall(this.k(id, 'running')),
-      this.redis.hgetall(this.k(id, 'progress')),
-      this.redis.hgetall(this.k(id, 'failed')),
-      this.redis.hgetall(this.k(id, 'rate')),
-      this.redis.hlen(this.k(id, 'harmonic')),
-      this.redis.hgetall(this.k(id, 'probe-failed')),
-      this.redis.hgetall(this.k(id, 'seen')),
-    ]);
-    // runs whose worker stopped giving signs of life (killed) are waiting to be taken up again, not running
-    const running: Record<string, string> = {};
-    for (const [i, w] of Object.entries(marked)) if (seen[i] === undefined || now - Number(seen[i]) < STALE_RUN_MS) running[i] = w;
-    // a run whose result is stored is never running, whatever a stale mark says
-    const markedRuns = Object.keys(running);
-    if (markedRuns.length > 0) {
-      const stored = await this.redis.hmget(this.k(id, 'results'), ...markedRuns);
-      markedRuns.forEach((i, j) => { if (stored[j] !== null) delete running[i]; });
+    return (await this.statuses([id], now))[0];
+  }
+
+  /** Statuses of the newest `limit` ensembles, newest first (at most three Redis round trips, whatever `limit`). */
+  async recentStatuses(limit = 100, now = Date.now()): Promise<EnsembleStatus[]> {
+    return (await this.statuses(await this.ids(limit), now)).filter((s): s is EnsembleStatus => s !== null);
+  }
+
+  /**
+   * Statuses of many ensembles in at most two Redis round trips, whatever
+   * their number: one MULTI reads every hash of every ensemble (a consistent
+   * snapshot), a second checks the running marks against stored results
+   * (only when some are marked). null for an unknown id.
+   */
+  async statuses(ids: readonly string[], now = Date.now()): Promise<Array<EnsembleStatus | null>> {
+    if (ids.length === 0) return [];
+    const tx = this.redis.multi();
+    for (const id of ids) {
+      tx.hgetall(this.k(id))
+        .hlen(this.k(id, 'results'))
+        .hgetall(this.k(id, 'running'))
+        .hgetall(this.k(id, 'progress'))
+        .hgetall(this.k(id, 'failed'))
+        .hgetall(this.k(id, 'rate'))
+        .hlen(this.k(id, 'harmonic'))
+        .hgetall(this.k(id, 'probe-failed'))
+        .hgetall(this.k(id, 'seen'));
     }
-    const probeSizes = probeSizesOf(rec.spec).length;
-    const planned = rec.plannedClusters;
-    const runningN = Object.keys(running).length;
-    const failedN = Object.keys(failed).length;
-    let particlesDone = doneN * rec.spec.particles;
-    // only runs still marked running count (a late progress write may follow a stored result)
-    for (const [i, v] of Object.entries(progress)) if (running[i] !== undefined) particlesDone += Number(v);
-    const fromBucket = Math.floor((now - RATE_WINDOW_MS) / RATE_BUCKET_MS);
-    let recent = 0;
-    for (const [b, v] of Object.entries(rate)) if (Number(b) >= fromBucket) recent += Number(v);
-    const windowS = Math.min(RATE_WINDOW_MS, Math.max(RATE_BUCKET_MS, now - rec.createdAtMs)) / 1000;
-    const throughput = recent / windowS;
-    const total = planned * rec.spec.particles;
-    const probesPlanned = planned * probeSizes;
-    const probeFailedN = Object.keys(probeFailed).length;
-    const probesComplete = harmonicN >= probesPlanned;
-    let state: EnsembleState = 'running';
-    if (rec.cancelled && (doneN < planned || !probesComplete)) state = 'cancelled';
-    else if (doneN === planned && rec.adaptive?.outcome === 'running') state = 'running'; // batch complete, awaiting its judgement
-    else if (doneN === planned && probesComplete) state = 'done';
-    else if (doneN + failedN === planned && harmonicN + probeFailedN >= doneN * probeSizes && (failedN > 0 || probeFailedN > 0)) state = 'failed';
-    const remaining = total - particlesDone;
-    return {
-      id,
-      name: rec.name,
-      state,
-      createdAt: new Date(rec.createdAtMs).toISOString(),
-      // a cancelled or finished ensemble has nothing queued (its jobs were dropped), and grows nothing
-      runs: { planned, queued: state === 'running' ? Math.max(0, planned - doneN - runningN - failedN) : 0, running: runningN, done: doneN, failed: failedN },
-      particles: { done: particlesDone, total },
-      throughput: state === 'running' ? throughput : 0,
-      etaSeconds: state !== 'running' ? (state === 'done' ? 0 : null) : throughput > 0 ? remaining / throughput : null,
-      failures: Object.entries(failed)
-        .map(([i, reason]) => ({ runIndex: Number(i), reason }))
-        .sort((a, b) => a.runIndex - b.runIndex)
-        .slice(0, 20),
-      adaptive: rec.adaptive ? { outcome: rec.adaptive.outcome, batches: rec.adaptive.batches.length, maxClusters: rec.adaptive.target.max_clusters } : null,
-      probes: rec.spec.probe
-        ? {
-            planned: probesPlanned,
-            done: harmonicN,
-            failed: probeFailedN,
-            failures: Object.entries(probeFailed)
-              .map(([k, reason]) => ({ runIndex: Number(k.split(':')[0]), size: Number(k.split(':')[1]), reason }))
-              .sort((a, b) => a.runIndex - b.runIndex || a.size - b.size)
-              .slice(0, 20),
-          }
-        : null,
-    };
+    const replies = repliesOf<unknown>(await tx.exec());
+    const reads = ids.map((id, n): StatusReads | null => {
+      const at = STATUS_READS * n;
+      const rec = recordOf(id, replies[at] as Record<string, string>);
+      if (!rec) return null;
+      const [doneN, marked, progress, failed, rate, harmonicN, probeFailed, seen] = replies.slice(at + 1, at + STATUS_READS) as [
+        number,
+        Record<string, string>,
+        Record<string, string>,
+        Record<string, string>,
+        Record<string, string>,
+        number,
+        Record<string, string>,
+        Record<string, string>,
+      ];
+      // runs whose worker stopped giving signs of life (killed) are waiting to be taken up again, not running
+      const running: Record<string, string> = {};
+      for (const [i, w] of Object.entries(marked)) if (seen[i] === undefined || now - Number(seen[i]) < STALE_RUN_MS) running[i] = w;
+      return { rec, doneN, running, progress, failed, rate, harmonicN, probeFailed };
+    });
+    // a run whose result is stored is never running, whatever a stale mark says
+    const marks = reads.flatMap((r, n) => (r && Object.keys(r.running).length > 0 ? [{ n, runs: Object.keys(r.running) }] : []));
+    if (marks.length > 0) {
+      const check = this.redis.multi();
+      for (const m of marks) check.hmget(this.k(ids[m.n], 'results'), ...m.runs);
+      const stored = repliesOf<Array<Buffer | string | null>>(await check.exec());
+      marks.forEach((m, j) => m.runs.forEach((i, q) => { if (stored[j][q] !== null) delete reads[m.n]!.running[i]; }));
+    }
+    return reads.map((r, n) => (r ? statusOf(ids[n], r, now) : null));
   }
 
   /** Delete every key of an ensemble (tests and operators). */
@@ -405,4 +399,82 @@ export class EnsembleStore implements RunSink {
       .zrem(`${this.prefix}:ensembles`, id)
       .exec();
   }
+}
+
+/** Replies per ensemble in statuses()' MULTI: its record hash, then the eight reads of its run hashes. */
+const STATUS_READS = 9;
+
+/** What statuses() read for one ensemble (running marks already cleared of silent workers). */
+interface StatusReads {
+  rec: EnsembleRecord;
+  doneN: number;
+  running: Record<string, string>;
+  progress: Record<string, string>;
+  failed: Record<string, string>;
+  rate: Record<string, string>;
+  harmonicN: number;
+  probeFailed: Record<string, string>;
+}
+
+/** The replies of a MULTI … EXEC, in order; throws the first command error (or when the transaction was discarded). */
+function repliesOf<T>(exec: Array<[Error | null, unknown]> | null): T[] {
+  if (exec === null) throw new Error('Redis discarded the transaction');
+  return exec.map(([err, v]) => {
+    if (err) throw err;
+    return v as T;
+  });
+}
+
+/** An ensemble's status from what statuses() read. */
+function statusOf(id: string, reads: StatusReads, now: number): EnsembleStatus {
+  const { rec, doneN, running, progress, failed, rate, harmonicN, probeFailed } = reads;
+  const probeSizes = probeSizesOf(rec.spec).length;
+  const planned = rec.plannedClusters;
+  const runningN = Object.keys(running).length;
+  const failedN = Object.keys(failed).length;
+  let particlesDone = doneN * rec.spec.particles;
+  // only runs still marked running count (a late progress write may follow a stored result)
+  for (const [i, v] of Object.entries(progress)) if (running[i] !== undefined) particlesDone += Number(v);
+  const fromBucket = Math.floor((now - RATE_WINDOW_MS) / RATE_BUCKET_MS);
+  let recent = 0;
+  for (const [b, v] of Object.entries(rate)) if (Number(b) >= fromBucket) recent += Number(v);
+  const windowS = Math.min(RATE_WINDOW_MS, Math.max(RATE_BUCKET_MS, now - rec.createdAtMs)) / 1000;
+  const throughput = recent / windowS;
+  const total = planned * rec.spec.particles;
+  const probesPlanned = planned * probeSizes;
+  const probeFailedN = Object.keys(probeFailed).length;
+  const probesComplete = harmonicN >= probesPlanned;
+  let state: EnsembleState = 'running';
+  if (rec.cancelled && (doneN < planned || !probesComplete)) state = 'cancelled';
+  else if (doneN === planned && rec.adaptive?.outcome === 'running') state = 'running'; // batch complete, awaiting its judgement
+  else if (doneN === planned && probesComplete) state = 'done';
+  else if (doneN + failedN === planned && harmonicN + probeFailedN >= doneN * probeSizes && (failedN > 0 || probeFailedN > 0)) state = 'failed';
+  const remaining = total - particlesDone;
+  return {
+    id,
+    name: rec.name,
+    state,
+    createdAt: new Date(rec.createdAtMs).toISOString(),
+    // a cancelled or finished ensemble has nothing queued (its jobs were dropped), and grows nothing
+    runs: { planned, queued: state === 'running' ? Math.max(0, planned - doneN - runningN - failedN) : 0, running: runningN, done: doneN, failed: failedN },
+    particles: { done: particlesDone, total },
+    throughput: state === 'running' ? throughput : 0,
+    etaSeconds: state !== 'running' ? (state === 'done' ? 0 : null) : throughput > 0 ? remaining / throughput : null,
+    failures: Object.entries(failed)
+      .map(([i, reason]) => ({ runIndex: Number(i), reason }))
+      .sort((a, b) => a.runIndex - b.runIndex)
+      .slice(0, 20),
+    adaptive: rec.adaptive ? { outcome: rec.adaptive.outcome, batches: rec.adaptive.batches.length, maxClusters: rec.adaptive.target.max_clusters } : null,
+    probes: rec.spec.probe
+      ? {
+          planned: probesPlanned,
+          done: harmonicN,
+          failed: probeFailedN,
+          failures: Object.entries(probeFailed)
+            .map(([k, reason]) => ({ runIndex: Number(k.split(':')[0]), size: Number(k.split(':')[1]), reason }))
+            .sort((a, b) => a.runIndex - b.runIndex || a.size - b.size)
+            .slice(0, 20),
+        }
+      : null,
+  };
 }
