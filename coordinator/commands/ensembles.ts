@@ -110,7 +110,7 @@ export function register(program: Command): void {
     try {
       const rec = await farm.store.get(id);
       if (!rec) throw new UsageError(`ensemble id: "${id}" is not known to this farm`);
-      const analysis = analysisSettingsFromCli(rec.spec.analysis, opts);
+      const analysis = analysisSettingsFromCli(rec.spec.analysis, opts, { particles: rec.spec.particles, clusters: rec.spec.target?.maxClusters ?? rec.plannedClusters });
       const got = (await farmSummary(farm.store, id, defaultSummaryOptions(analysis)))!;
       if (opts.format === 'tables' || opts.format === 'html') {
         const html = opts.format === 'html';

@@ -60,7 +60,7 @@ export function register(program: Command): void {
         throw new UsageError(`--progress: "${opts.progress}" is not allowed; allowed: auto, bar, lines, none`);
       }
       const spec = await loadSpecFile(specPath, opts.maxTotalParticles);
-      const analysis = analysisSettingsFromCli(spec.analysis, opts);
+      const analysis = analysisSettingsFromCli(spec.analysis, opts, { particles: spec.particles, clusters: spec.target?.maxClusters ?? spec.clusters });
       // refused before any growth when unusable (a file, an unwritable parent); never a raw EEXIST/ENOTDIR
       makeOutFolder(checkOutFolder(opts.out), opts.out);
       const doc = specToDocument(spec);
