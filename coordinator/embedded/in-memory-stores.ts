@@ -121,11 +121,11 @@ export class MemoryBatchStore implements BatchStore {
     return r ? { ...r, adaptive: r.adaptive ? structuredClone(r.adaptive) : null } : null;
   }
 
-  async resultCount(): Promise<number> {
+  async resultCount(_id: string): Promise<number> {
     return this.sink.results.size;
   }
 
-  async results(): Promise<RunResultData[]> {
+  async results(_id: string): Promise<RunResultData[]> {
     return [...this.sink.results.values()].sort((a, b) => a.runIndex - b.runIndex);
   }
 
