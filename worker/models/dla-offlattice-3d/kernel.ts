@@ -72,7 +72,7 @@ import { StateHasher } from '../../core/state-hash.js';
 import { direction3, sampleDirection3d } from '../../walkers/uniform-direction-3d.js';
 import { contact3, firstContact3d } from '../../walkers/segment-contact-3d.js';
 import { checkCheckpointOf } from '../../core/checkpoint-check.js';
-import { MAX_STEPS_PER_PARTICLE, STOP_CHECK_EVERY, stopRaised, WalkerStuck, type StopSignal } from '../../core/stop-signal.js';
+import { MAX_STEPS_PER_PARTICLE, STOP_CHECK_EVERY, walkInterrupted, type StopSignal } from '../../core/stop-signal.js';
 
 /** The counters of this model (names as declared by its descriptor). */
 export interface OffLatticeDla3dCounters extends Counters {
@@ -234,15 +234,10 @@ export class OffLatticeDla3d implements GrowthKernel {
       if (--untilCheck === 0) {
         untilCheck = STOP_CHECK_EVERY;
         checked += STOP_CHECK_EVERY;
-        if (stopRaised(stop)) {
+        if (walkInterrupted(stop, checked, this.maxSteps, this.task.runIndex, this.n + 1, Math.sqrt(wx * wx + wy * wy + wz * wz), minStep)) {
           rng.loadState(this.particleStart);
           this.untilCheck = STOP_CHECK_EVERY;
           return false;
-        }
-        if (checked >= this.maxSteps) {
-          throw new WalkerStuck(
-            `run ${this.task.runIndex}: the walker of particle ${this.n + 1} made no progress in ${checked} steps at radius ${Math.sqrt(wx * wx + wy * wy + wz * wz).toPrecision(6)} (params.min_step = ${minStep} is too small for the float spacing there)`,
-          );
         }
       }
       let r2 = wx * wx + wy * wy + wz * wz;
