@@ -5,13 +5,18 @@
  * and answers), beside a bare `node -e ''` for the machine's baseline.
  * A measurement, not a test: times depend on the machine and its load.
  *
- *   node scripts/measure-startup.mjs [runs]   (after npm run build)
+ *   node scripts/measure-startup.mjs [runs] [--cli PATH]   (after npm run build)
+ *
+ * --cli measures another build of the CLI (e.g. another checkout's
+ * dist/coordinator/cli.js), for a before/after comparison on the same load.
  */
 import { spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 
-const cli = fileURLToPath(new URL('../dist/coordinator/cli.js', import.meta.url));
-const runs = Number(process.argv[2] ?? 7);
+const args = process.argv.slice(2);
+const cliAt = args.indexOf('--cli');
+const cli = cliAt >= 0 ? args.splice(cliAt, 2)[1] : fileURLToPath(new URL('../dist/coordinator/cli.js', import.meta.url));
+const runs = Number(args[0] ?? 7);
 const cases = [
   ['node -e "" (baseline)', ['-e', '']],
   ['tendril --help', [cli, '--help']],

@@ -55,7 +55,7 @@ describe('Beurling check', () => {
   it('disk with a radial slit of disks: connected; the finite-window exponent is judged consistent or not resolved, never violated', () => {
     const m = probeMeasures(diskWithSlit(40), 200_000);
     const mc = m.maxConcentration;
-    console.log(`disk + slit of 40 disks: exponent ${mc.exponent.toFixed(4)} +- ${mc.fitError.toFixed(4)} (fit), ${mc.windowSystematic?.toFixed(4)} (window), ${mc.resolutionSystematic.toFixed(4)} (contact radius): ${mc.beurling}`);
+    console.log(`disk + slit of 40 disks: exponent ${mc.exponent.toFixed(4)} +- ${mc.fitError.toFixed(4)} (fit), ${mc.windowSystematic?.toFixed(4)} (window), ${mc.resolutionSystematic!.toFixed(4)} (contact radius): ${mc.beurling}`);
     expect(mc.connected).toBe(true);
     expect(['consistent', 'not resolved at this size']).toContain(mc.beurling);
     const gapped = probeMeasures(diskWithSlit(40, 0.05), 20_000);

@@ -1,4 +1,4 @@
-import { spawnSync } from 'node:child_process';
+import { runNode } from './support/run-node.js';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -15,20 +15,20 @@ const dir = mkdtempSync(join(tmpdir(), 'tendril-corrections-real-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 function run(args: string[]) {
-  return spawnSync(process.execPath, [CLI, ...args], { encoding: 'utf8', timeout: 300_000 });
+  return runNode([CLI, ...args], { timeout: 300_000 });
 }
 
 describe('corrections-to-scaling fit on a short real series', () => {
   writeFileSync(join(dir, 'short.toml'), 'name = "short"\nmodel = "dla-offlattice-2d"\nparticles = 3000\nclusters = 8\nseed = 20261202\nrecords_per_decade = 10\n');
 
-  it('is off by default, and when asked for it is refused (not determined) and kept out of the panel', () => {
-    const off = run(['run', join(dir, 'short.toml'), '--out', join(dir, 'off'), '--resamples', '200']);
+  it('is off by default, and when asked for it is refused (not determined) and kept out of the panel', async () => {
+    const off = await run(['run', join(dir, 'short.toml'), '--out', join(dir, 'off'), '--resamples', '200']);
     expect(off.status, off.stderr).toBe(0);
     const offSummary = JSON.parse(readFileSync(join(dir, 'off', 'summary.json'), 'utf8'));
     expect(offSummary.statistics.options.corrections).toBe(false);
     expect(readFileSync(join(dir, 'off', 'report.html'), 'utf8')).toContain('The corrections-to-scaling fit was switched off.');
 
-    const on = run(['run', join(dir, 'short.toml'), '--out', join(dir, 'on'), '--resamples', '200', '--corrections']);
+    const on = await run(['run', join(dir, 'short.toml'), '--out', join(dir, 'on'), '--resamples', '200', '--corrections']);
     expect(on.status, on.stderr).toBe(0);
     const s = JSON.parse(readFileSync(join(dir, 'on', 'summary.json'), 'utf8'));
     expect(s.statistics.options.corrections).toBe(true);

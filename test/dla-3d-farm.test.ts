@@ -22,10 +22,10 @@ function directHash(i: number): string {
 }
 
 describe('3D DLA in specs, task runner and embedded mode', () => {
-  it('the spec takes the model with its parameters and refuses a [probe] table (no 3D probing)', () => {
+  it('the spec takes the model with its parameters and a [probe] table (3D probing: test/probe-3d-ensemble.test.ts)', () => {
     expect(spec.model.kind).toBe('dla-offlattice-3d');
     expect(spec.model.params).toEqual({ min_step: 0.02, launch_margin: 2 });
-    expect(() => validateSpec({ model: 'dla-offlattice-3d', particles: 100, clusters: 2, seed: 1, probe: { walkers: 1000 } })).toThrow(/probe: dla-offlattice-3d has no harmonic-measure probe/);
+    expect(validateSpec({ model: 'dla-offlattice-3d', particles: 100, clusters: 2, seed: 1, probe: { walkers: 1000 } }).probe).toMatchObject({ walkers: 1000, contactSample: 0 });
     expect(() => validateSpec({ model: 'dla-offlattice-3d', particles: 100, clusters: 2, seed: 1, params: { min_step: 3 } })).toThrow(/params\.min_step: 3 is out of range/);
   });
 

@@ -1,5 +1,5 @@
+import { runNode } from './support/run-node.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -15,13 +15,13 @@ const CLI = fileURLToPath(new URL('../dist/coordinator/cli.js', import.meta.url)
 /** Headless Chromium from Debian (.ci/run installs it when missing). */
 const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 
-function tendril(...args: string[]) {
-  const r = spawnSync(process.execPath, [CLI, ...args], { encoding: 'utf8', timeout: 120_000 });
+async function tendril(...args: string[]) {
+  const r = await runNode([CLI, ...args], { timeout: 120_000 });
   return { status: r.status, stdout: r.stdout, stderr: r.stderr };
 }
 
 let work: string;
-beforeAll(() => {
+beforeAll(async () => {
   if (!existsSync(CLI)) throw new Error(`${CLI} is missing; run npm run build first`);
   work = mkdtempSync(join(tmpdir(), 'tendril-3d-pictures-'));
 });
@@ -46,9 +46,9 @@ function panelCounts(file: string): { width: number; height: number; counts: num
 }
 
 describe('tendril grow --model dla-offlattice-3d', () => {
-  it('writes a 3D run result, a 3D snapshot and a four-view picture with the cluster in every view', () => {
+  it('writes a 3D run result, a 3D snapshot and a four-view picture with the cluster in every view', async () => {
     const out = join(work, 'grow');
-    const r = tendril('grow', '--model', 'dla-offlattice-3d', '--particles', '1500', '--seed', '5', '--out', out, '--picture-size', '300', '--quiet');
+    const r = await tendril('grow', '--model', 'dla-offlattice-3d', '--particles', '1500', '--seed', '5', '--out', out, '--picture-size', '300', '--quiet');
     expect(r.stderr).toBe('');
     expect(r.status).toBe(0);
     expect(r.stdout).toMatch(/grew 1500 particles \(seed 5\): R_g = \d+\.\d\d, R_max = \d+\.\d\d/);
@@ -65,9 +65,9 @@ describe('tendril grow --model dla-offlattice-3d', () => {
     for (const c of pic.counts) expect(c).toBeGreaterThan(300);
   });
 
-  it('tendril probe on the 3D snapshot writes the capacity, τ(q) and per-ball hits', () => {
+  it('tendril probe on the 3D snapshot writes the capacity, τ(q) and per-ball hits', async () => {
     const out = join(work, 'probe');
-    const r = tendril('probe', join(work, 'grow', 'cluster.snapshot'), '--walkers', '3000', '--seed', '2', '--out', out, '--jobs', '3');
+    const r = await tendril('probe', join(work, 'grow', 'cluster.snapshot'), '--walkers', '3000', '--seed', '2', '--out', out, '--jobs', '3');
     expect(r.status, r.stderr).toBe(0);
     expect(r.stdout).toMatch(/^probed 1500 balls \(3D\) with 3000 walkers in .* capacity = [\d.]+ \+- [\d.]+/);
     const m = JSON.parse(readFileSync(join(out, 'probe-measures.json'), 'utf8'));
@@ -99,7 +99,7 @@ describe('the 3D view in the HTML report', () => {
     const spec = join(work, 'spec3d.toml');
     writeFileSync(spec, 'name = "viewer test"\nmodel = "dla-offlattice-3d"\nparticles = 1500\nclusters = 3\nseed = 8\nrecords_per_decade = 10\n');
     const out = join(work, 'run');
-    const r = tendril('run', spec, '--out', out, '--threads', '1', '--progress', 'none');
+    const r = await tendril('run', spec, '--out', out, '--threads', '1', '--progress', 'none');
     expect(r.status, r.stderr).toBe(0);
     const html = readFileSync(join(out, 'report.html'), 'utf8');
     expect(html).toContain('id="section-cluster-3d"');
@@ -183,7 +183,7 @@ describe('the 3D view in the HTML report', () => {
 });
 
 describe('3D report picture of a large cluster', () => {
-  it(`embeds at most ${VIEWER_MAX_BALLS} balls and says that it shows a subsample`, () => {
+  it(`embeds at most ${VIEWER_MAX_BALLS} balls and says that it shows a subsample`, async () => {
     const n = 250_001;
     const x = new Float64Array(n), y = new Float64Array(n), z = new Float64Array(n);
     for (let i = 0; i < n; i++) {

@@ -68,12 +68,14 @@ describe('off-lattice 2D DLA kernel: determinism and checkpoints', () => {
     expect(chunked.result()).toEqual(whole.result());
   });
 
-  it('resuming from a checkpoint taken at any point gives the uninterrupted final state', () => {
+  it('resuming from a checkpoint taken at any point gives the uninterrupted final state', async () => {
     const task = dlaTask(5000, 3, '31337');
     const straight = createKernel(task);
     straight.growTo(task.particles);
     const expected = straight.result();
     for (const stop of [1, 2, 10, 11, 777, 2048, 4999]) {
+      // one resume at a time, then let the runner's event loop turn (a loaded machine made the whole loop hold it for 10 s)
+      await new Promise((r) => setImmediate(r));
       const first = createKernel(task);
       first.growTo(stop);
       // the checkpoint survives a structured copy (as through a worker thread or a file)

@@ -1,4 +1,4 @@
-import { spawnSync } from 'node:child_process';
+import { runNode } from './support/run-node.js';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -25,7 +25,7 @@ import { deleteKeys, REDIS_URL, uniquePrefix } from './farm-helpers.js';
 
 const CLI = join(__dirname, '..', 'dist', 'coordinator', 'cli.js');
 const dir = mkdtempSync(join(tmpdir(), 'tendril-export-'));
-const cli = (...args: string[]) => spawnSync(process.execPath, [CLI, ...args], { encoding: 'utf8', timeout: 120_000 });
+const cli = (...args: string[]) => runNode([CLI, ...args], { timeout: 120_000 });
 const SPEC = { name: 'export test', model: 'dla-offlattice-2d', particles: 400, clusters: 3, seed: 123, positions: { at_sizes: [100] } };
 
 function directPositions(runIndex: number): Float64Array {
@@ -38,14 +38,14 @@ function directPositions(runIndex: number): Float64Array {
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 describe('tendril export', () => {
-  beforeAll(() => {
+  beforeAll(async () => {
     writeFileSync(join(dir, 'spec.json'), JSON.stringify(SPEC));
-    const r = cli('run', join(dir, 'spec.json'), '--out', join(dir, 'run'), '--no-report', '--progress', 'none');
+    const r = await cli('run', join(dir, 'spec.json'), '--out', join(dir, 'run'), '--no-report', '--progress', 'none');
     expect(r.status, r.stderr).toBe(0);
   });
 
-  it('writes every cluster to CSV at the spec sizes; the cluster at 100 is the first 100 particles', () => {
-    const r = cli('export', join(dir, 'run'), '--format', 'csv', '--out', join(dir, 'p.csv'));
+  it('writes every cluster to CSV at the spec sizes; the cluster at 100 is the first 100 particles', async () => {
+    const r = await cli('export', join(dir, 'run'), '--format', 'csv', '--out', join(dir, 'p.csv'));
     expect(r.status, r.stderr).toBe(0);
     expect(r.stdout).toBe(`wrote ${join(dir, 'p.csv')}: 3 clusters at sizes 100, 400\n`);
     const rows = readFileSync(join(dir, 'p.csv'), 'utf8').trim().split('\n');
@@ -59,7 +59,7 @@ describe('tendril export', () => {
   });
 
   it('writes HDF5 that h5wasm reads back: one group per run, float64 [N, 2] positions, metadata', async () => {
-    const r = cli('export', join(dir, 'run'), '--format', 'hdf5', '--out', join(dir, 'p.h5'));
+    const r = await cli('export', join(dir, 'run'), '--format', 'hdf5', '--out', join(dir, 'p.h5'));
     expect(r.status, r.stderr).toBe(0);
     await h5wasm.ready;
     const f = new h5wasm.File(join(dir, 'p.h5'), 'r');
@@ -84,18 +84,18 @@ describe('tendril export', () => {
     }
   });
 
-  it('converts a .snapshot; refuses a run without [positions] and a bad format with one line', () => {
+  it('converts a .snapshot; refuses a run without [positions] and a bad format with one line', async () => {
     const snap = join(dir, 'one.snapshot');
     writeFileSync(snap, encodeSnapshot({ dimension: 2, count: 3, x: new Float64Array([0, 1, 2]), y: new Float64Array([0, 0, 0.5]), diameter: 1 }));
-    const r = cli('export', snap, '--out', join(dir, 'one.csv'));
+    const r = await cli('export', snap, '--out', join(dir, 'one.csv'));
     expect(r.status, r.stderr).toBe(0);
     expect(readFileSync(join(dir, 'one.csv'), 'utf8')).toBe('run_index,size,particle,x,y\n,3,0,0,0\n,3,1,1,0\n,3,2,2,0.5\n');
     writeFileSync(join(dir, 'plain.json'), JSON.stringify({ ...SPEC, positions: undefined, particles: 50, clusters: 1 }));
-    expect(cli('run', join(dir, 'plain.json'), '--out', join(dir, 'plain'), '--no-report', '--progress', 'none').status).toBe(0);
-    const no = cli('export', join(dir, 'plain'), '--out', join(dir, 'x.csv'));
+    expect((await cli('run', join(dir, 'plain.json'), '--out', join(dir, 'plain'), '--no-report', '--progress', 'none')).status).toBe(0);
+    const no = await cli('export', join(dir, 'plain'), '--out', join(dir, 'x.csv'));
     expect(no.status).toBe(2);
     expect(no.stderr).toMatch(/^tendril: source: the spec of ".*plain" has no \[positions\] table, so no positions were kept; allowed: .*\n$/);
-    const fmt = cli('export', snap, '--format', 'xlsx', '--out', join(dir, 'x.xlsx'));
+    const fmt = await cli('export', snap, '--format', 'xlsx', '--out', join(dir, 'x.xlsx'));
     expect(fmt.stderr).toBe('tendril: --format: "xlsx" is not allowed; allowed: csv, hdf5\n');
   });
 });

@@ -1,6 +1,6 @@
+import { runNode } from './support/run-node.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { defaultModelParams } from '../worker/models/registry.js';
-import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -20,14 +20,14 @@ interface Ran {
   stderr: string;
 }
 
-function tendril(...args: string[]): Ran {
-  const r = spawnSync(process.execPath, [CLI, ...args], { encoding: 'utf8', timeout: 60_000 });
+async function tendril(...args: string[]): Promise<Ran> {
+  const r = await runNode([CLI, ...args], { timeout: 60_000 });
   return { status: r.status, stdout: r.stdout, stderr: r.stderr };
 }
 
 let work: string;
 
-beforeAll(() => {
+beforeAll(async () => {
   if (!existsSync(CLI)) throw new Error(`${CLI} is missing; run npx tsc -p tsconfig.json first`);
   work = mkdtempSync(join(tmpdir(), 'tendril-grow-test-'));
 });
@@ -41,12 +41,12 @@ describe('tendril grow, end to end', () => {
   let first: Ran;
   let dirA: string;
 
-  beforeAll(() => {
+  beforeAll(async () => {
     dirA = join(work, 'a', 'nested'); // parent folders do not exist yet
-    first = tendril('grow', '--particles', String(N), '--seed', '42', '--out', dirA, '--picture-size', '256');
+    first = await tendril('grow', '--particles', String(N), '--seed', '42', '--out', dirA, '--picture-size', '256');
   });
 
-  it('succeeds and prints the three paths and a summary line', () => {
+  it('succeeds and prints the three paths and a summary line', async () => {
     expect(first.stderr).toMatch(/^grow: 2000\/2000 particles \(100\.0%\), .* particles\/s on average, .* elapsed\n$/);
     expect(first.status).toBe(0);
     const lines = first.stdout.trimEnd().split('\n');
@@ -54,14 +54,14 @@ describe('tendril grow, end to end', () => {
     expect(lines[4]).toMatch(/^grew 2000 particles \(seed 42\): R_g = \d+\.\d\d, R_max = \d+\.\d\d, [\d,.]+ particles\/s over \d+\.\d s$/);
   });
 
-  it('writes a figure of the cluster with a scale bar and a colour key beside the bare picture', () => {
+  it('writes a figure of the cluster with a scale bar and a colour key beside the bare picture', async () => {
     const fig = PNG.sync.read(readFileSync(join(dirA, 'cluster-figure.png')));
     // the figure is the report's sample-cluster SVG (760 wide, at twice its size): title, picture, scale bar, key
     expect(fig.width).toBe(2 * 760);
     expect(fig.height).toBeGreaterThan(fig.width);
   });
 
-  it('writes a run result with the GrowthResult and a separate timing field', () => {
+  it('writes a run result with the GrowthResult and a separate timing field', async () => {
     const rr = JSON.parse(readFileSync(join(dirA, 'run-result.json'), 'utf8'));
     expect(rr.particles).toBe(N);
     expect(rr.ensembleSeed).toBe('42');
@@ -79,7 +79,7 @@ describe('tendril grow, end to end', () => {
     expect(Number.isNaN(Date.parse(rr.timing.startedAt))).toBe(false);
   });
 
-  it('writes a snapshot of touching, non-overlapping disks that matches the summary', () => {
+  it('writes a snapshot of touching, non-overlapping disks that matches the summary', async () => {
     const s = decodeSnapshot(readFileSync(join(dirA, 'cluster.snapshot')));
     expect(s.dimension).toBe(2);
     expect(s.count).toBe(N);
@@ -109,7 +109,7 @@ describe('tendril grow, end to end', () => {
     expect(summary).toContain(`R_max = ${radii.maxRadius.toFixed(2)}`);
   });
 
-  it('writes a picture of the requested size that is not blank', () => {
+  it('writes a picture of the requested size that is not blank', async () => {
     const png = PNG.sync.read(readFileSync(join(dirA, 'cluster.png')));
     expect(png.width).toBe(256);
     expect(png.height).toBe(256);
@@ -131,13 +131,13 @@ describe('tendril grow, end to end', () => {
     expect([png.data[0], png.data[1], png.data[2]]).toEqual([bg.r, bg.g, bg.b]);
   });
 
-  it('is deterministic: the same seed gives the same state hash and snapshot bytes; another seed does not', () => {
+  it('is deterministic: the same seed gives the same state hash and snapshot bytes; another seed does not', async () => {
     const dirB = join(work, 'b');
     const dirC = join(work, 'c');
-    const again = tendril('grow', '--particles', String(N), '--seed', '042', '--out', dirB, '--picture-size', '64', '--quiet');
+    const again = await tendril('grow', '--particles', String(N), '--seed', '042', '--out', dirB, '--picture-size', '64', '--quiet');
     expect(again.status).toBe(0);
     expect(again.stderr).toBe(''); // --quiet: no progress at all
-    const other = tendril('grow', '--particles', String(N), '--seed', '43', '--out', dirC, '--picture-size', '64', '--quiet');
+    const other = await tendril('grow', '--particles', String(N), '--seed', '43', '--out', dirC, '--picture-size', '64', '--quiet');
     expect(other.status).toBe(0);
     const a = JSON.parse(readFileSync(join(dirA, 'run-result.json'), 'utf8'));
     const b = JSON.parse(readFileSync(join(dirB, 'run-result.json'), 'utf8'));
@@ -151,9 +151,9 @@ describe('tendril grow, end to end', () => {
     expect(Buffer.compare(readFileSync(join(dirA, 'cluster.snapshot')), readFileSync(join(dirC, 'cluster.snapshot')))).not.toBe(0);
   });
 
-  it('passes model options through to the result', () => {
+  it('passes model options through to the result', async () => {
     const dir = join(work, 'opts');
-    const r = tendril('grow', '--particles', '300', '--seed', '18446744073709551615', '--out', dir, '--model', 'dla-offlattice-2d', '--param', 'min_step=0.5',
+    const r = await tendril('grow', '--particles', '300', '--seed', '18446744073709551615', '--out', dir, '--model', 'dla-offlattice-2d', '--param', 'min_step=0.5',
       '--param', 'launch_margin=7.5', '--records-per-decade', '10', '--picture-size', '64', '--quiet');
     expect(r.stderr).toBe('');
     expect(r.status).toBe(0);
@@ -191,29 +191,29 @@ describe('tendril grow, bad options', () => {
     ['records-per-decade empty', ['--particles', '10', '--records-per-decade', ''], `tendril: --records-per-decade: "" is not a number; allowed: ${R} 10 to 100`],
   ];
 
-  it.each(cases)('%s', (_name, args, expected) => {
+  it.each(cases)('%s', async (_name, args, expected) => {
     const out = join(work, 'never-' + _name.replace(/\W+/g, '-'));
     const full = args.includes('--seed') ? ['grow', ...args, '--out', out] : ['grow', ...args, ...ok, out];
-    const r = tendril(...full);
+    const r = await tendril(...full);
     expect(r.stderr).toBe(expected + '\n');
     expect(r.stdout).toBe('');
     expect(r.status).toBe(2);
     expect(existsSync(out)).toBe(false);
   });
 
-  it('a missing --out and an --out that is a file are one-line errors', () => {
-    const noOut = tendril('grow', '--particles', '10', '--seed', '1');
+  it('a missing --out and an --out that is a file are one-line errors', async () => {
+    const noOut = await tendril('grow', '--particles', '10', '--seed', '1');
     expect(noOut.stderr).toBe('tendril: --out: missing; allowed: a folder name (created if missing)\n');
     expect(noOut.status).toBe(2);
     const file = join(work, 'a-file');
     writeFileSync(file, 'x');
-    const onFile = tendril('grow', '--particles', '10', '--seed', '1', '--out', file);
+    const onFile = await tendril('grow', '--particles', '10', '--seed', '1', '--out', file);
     expect(onFile.stderr).toBe(`tendril: --out: "${file}" is an existing file; allowed: a folder, or a path that does not exist yet\n`);
     expect(onFile.status).toBe(2);
   });
 
-  it('an unknown option is refused by the parser with one line', () => {
-    const r = tendril('grow', '--particles', '10', '--seed', '1', '--out', join(work, 'x'), '--sparkle');
+  it('an unknown option is refused by the parser with one line', async () => {
+    const r = await tendril('grow', '--particles', '10', '--seed', '1', '--out', join(work, 'x'), '--sparkle');
     expect(r.stderr.trimEnd().split('\n')).toHaveLength(1);
     expect(r.stderr).toMatch(/unknown option '--sparkle'/);
     expect(r.status).not.toBe(0);
@@ -227,7 +227,7 @@ describe('progress display without a terminal', () => {
     return { stream, text: () => text };
   }
 
-  it('prints plain lines at most every interval and one at the end', () => {
+  it('prints plain lines at most every interval and one at the end', async () => {
     let t = 0;
     const out = fakeStream();
     const p = createProgress({ total: 1000, unit: 'particles', label: 'grow', stream: out.stream, lineIntervalSeconds: 10, now: () => t });
@@ -253,7 +253,7 @@ describe('progress display without a terminal', () => {
     ]);
   });
 
-  it('rates: work done before the start and replayed work never count; the rate is over a recent window; nothing is guessed before it is known', () => {
+  it('rates: work done before the start and replayed work never count; the rate is over a recent window; nothing is guessed before it is known', async () => {
     let t = 0;
     // watching a finished ensemble: the whole count was there at the start
     const out = fakeStream();
@@ -290,7 +290,7 @@ describe('progress display without a terminal', () => {
     expect(out4.text()).not.toMatch(/\?|0 s left|;/);
   });
 
-  it('prints nothing in none mode and formats durations and rates', () => {
+  it('prints nothing in none mode and formats durations and rates', async () => {
     const out = fakeStream();
     const p = createProgress({ total: 10, unit: 'particles', stream: out.stream, mode: 'none' });
     p.update(5);

@@ -1,18 +1,18 @@
+import { runNode } from './support/run-node.js';
 import { describe, expect, it, beforeAll } from 'vitest';
-import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, writeFileSync, existsSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 
 const CLI = join(process.cwd(), 'dist/coordinator/cli.js');
 function tendril(args: string[]) {
-  return spawnSync(process.execPath, [CLI, ...args], { encoding: 'utf8', timeout: 60000 });
+  return runNode([CLI, ...args], { timeout: 60000 });
 }
 
 describe('tendril probe', () => {
   let dir: string;
   let csv: string;
-  beforeAll(() => {
+  beforeAll(async () => {
     dir = mkdtempSync(join(tmpdir(), 'tendril-probe-'));
     csv = join(dir, 'disks.csv');
     const rows = ['x,y,r'];
@@ -20,10 +20,10 @@ describe('tendril probe', () => {
     writeFileSync(csv, rows.join('\n') + '\n');
   });
 
-  it('writes measures, hit counts and a picture; threads do not change the counts', () => {
-    const a = tendril(['probe', csv, '--walkers', '4000', '--seed', '3', '--out', join(dir, 'a'), '--jobs', '4']);
+  it('writes measures, hit counts and a picture; threads do not change the counts', async () => {
+    const a = await tendril(['probe', csv, '--walkers', '4000', '--seed', '3', '--out', join(dir, 'a'), '--jobs', '4']);
     expect(a.status, a.stderr).toBe(0);
-    const b = tendril(['probe', csv, '--walkers', '4000', '--seed', '3', '--out', join(dir, 'b'), '--jobs', '4', '--threads', '2']);
+    const b = await tendril(['probe', csv, '--walkers', '4000', '--seed', '3', '--out', join(dir, 'b'), '--jobs', '4', '--threads', '2']);
     expect(b.status, b.stderr).toBe(0);
     const hitsA = readFileSync(join(dir, 'a', 'probe-hits.csv'), 'utf8');
     expect(hitsA).toBe(readFileSync(join(dir, 'b', 'probe-hits.csv'), 'utf8'));
@@ -44,8 +44,8 @@ describe('tendril probe', () => {
     expect(readFileSync(join(dir, 'a', 'probe-measure-figure.png')).subarray(1, 4).toString()).toBe('PNG');
   });
 
-  it('--window sets the fit window relative to R; the contact-radius systematic and its warning are reported', () => {
-    const a = tendril(['probe', csv, '--walkers', '2000', '--seed', '3', '--out', join(dir, 'w'), '--window', '0.05:0.5', '--q-grid', '0:4:1']);
+  it('--window sets the fit window relative to R; the contact-radius systematic and its warning are reported', async () => {
+    const a = await tendril(['probe', csv, '--walkers', '2000', '--seed', '3', '--out', join(dir, 'w'), '--window', '0.05:0.5', '--q-grid', '0:4:1']);
     expect(a.status, a.stderr).toBe(0);
     const m = JSON.parse(readFileSync(join(dir, 'w', 'probe-measures.json'), 'utf8'));
     expect(m.window.relativeMin).toBeCloseTo(0.05, 12);
@@ -58,10 +58,10 @@ describe('tendril probe', () => {
     expect(m.resolutionSystematic.tau[2]).toBeGreaterThan(0.05);
   });
 
-  it('probes a grown snapshot', () => {
-    const g = tendril(['grow', '--particles', '300', '--seed', '2', '--out', join(dir, 'g'), '--quiet']);
+  it('probes a grown snapshot', async () => {
+    const g = await tendril(['grow', '--particles', '300', '--seed', '2', '--out', join(dir, 'g'), '--quiet']);
     expect(g.status, g.stderr).toBe(0);
-    const p = tendril(['probe', join(dir, 'g', 'cluster.snapshot'), '--walkers', '3000', '--seed', '1', '--out', join(dir, 'gp'), '--q-grid', '0:3:1']);
+    const p = await tendril(['probe', join(dir, 'g', 'cluster.snapshot'), '--walkers', '3000', '--seed', '1', '--out', join(dir, 'gp'), '--q-grid', '0:3:1']);
     expect(p.status, p.stderr).toBe(0);
     const m = JSON.parse(readFileSync(join(dir, 'gp', 'probe-measures.json'), 'utf8'));
     expect(m.input.kind).toBe('snapshot');
@@ -79,20 +79,20 @@ describe('tendril probe', () => {
     [['--walkers', '1000', '--min-step', '2'], /^tendril: --min-step: 2 is out of range; allowed: a number above 0 and at most 1 \(largest contact radii\)$/m],
     [['--walkers', '1000', '--window', '0.3:0.5'], /--window: "0.3:0.5" is not allowed; allowed: lo:hi, two numbers lo, hi with 0 < lo < hi <= 1 and hi >= 2 lo/],
     [['--walkers', '1000', '--window', '0.1'], /--window: "0.1" is not allowed; allowed: lo:hi, /],
-  ])('refuses %j with one line naming the option', (extra, re) => {
-    const r = tendril(['probe', csv, '--seed', '1', '--out', join(dir, 'bad'), ...(extra as string[])]);
+  ])('refuses %j with one line naming the option', async (extra, re) => {
+    const r = await tendril(['probe', csv, '--seed', '1', '--out', join(dir, 'bad'), ...(extra as string[])]);
     expect(r.status).toBe(2);
     expect(r.stderr).toMatch(re as RegExp);
     expect(r.stderr.trim().split('\n').length).toBe(1);
   });
 
-  it('refuses bad inputs with one line', () => {
+  it('refuses bad inputs with one line', async () => {
     const bad = join(dir, 'bad.csv');
     writeFileSync(bad, 'x,y,r\n1,2,0.5\n3,4,-1\n');
-    const r = tendril(['probe', bad, '--walkers', '1000', '--seed', '1', '--out', join(dir, 'bad2')]);
+    const r = await tendril(['probe', bad, '--walkers', '1000', '--seed', '1', '--out', join(dir, 'bad2')]);
     expect(r.status).toBe(2);
     expect(r.stderr).toMatch(/line 3: r must be a finite number > 0, got "-1"/);
-    const missing = tendril(['probe', join(dir, 'nope.csv'), '--walkers', '1000', '--seed', '1', '--out', join(dir, 'bad3')]);
+    const missing = await tendril(['probe', join(dir, 'nope.csv'), '--walkers', '1000', '--seed', '1', '--out', join(dir, 'bad3')]);
     expect(missing.status).toBe(2);
     expect(missing.stderr).toMatch(/INPUT .*nope.csv" cannot be read: ENOENT/);
     expect(existsSync(join(dir, 'bad3', 'probe-measures.json'))).toBe(false);

@@ -23,7 +23,7 @@ import { SpecError, validateSpec, probeSizesOf } from '../coordinator/spec/index
 import { harmonicOfSummary, harmonicToCsv, renderSummary } from '../coordinator/summary/index.js';
 import { decodeEnsembleSummary, growthTaskOf } from '../proto/convert.js';
 import { createKernel } from '../worker/models/registry.js';
-import { planProbeJobs, ProbeGeometry, runProbeJob } from '../worker/probe/probe-2d.js';
+import { planProbeJobs, ProbeGeometry, runProbeJob, type DiskSet } from '../worker/probe/probe-2d.js';
 import { ProbeJobFailed, ProbeThreadPool } from '../worker/runtime/probe-thread-pool.js';
 import { deleteKeys, REDIS_URL, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
 
@@ -45,7 +45,7 @@ function directRecords(runIndex: number) {
   const final = { dimension: 2, count: p.count, coords: p.coords.slice(0, 2 * p.count) };
   return probeSizesOf(spec).map((size) => {
     const set = clusterPrefix(final, size);
-    const g = new ProbeGeometry(set);
+    const g = new ProbeGeometry(set as DiskSet);
     const tasks = probeTasksOf(spec.probe!, spec.seed, runIndex, size, prefixDigest(final, size));
     // jobs run in reverse order: the analysis must not depend on the order
     const results = [...tasks].reverse().map((t) => runProbeJob(g, t));

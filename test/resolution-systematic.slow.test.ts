@@ -58,7 +58,7 @@ describe('contact-radius systematic of tau(q)', () => {
     });
     let worst = 0;
     for (let i = 0; i < ns.length; i++) {
-      const ratios = Q.map((q, k) => (q === 1 ? 0 : Math.abs(m[i].spectrum.tau[k] - limit[k]) / m[i].resolutionSystematic.tau[k]));
+      const ratios = Q.map((q, k) => (q === 1 ? 0 : Math.abs(m[i].spectrum.tau[k] - limit[k]) / m[i].resolutionSystematic!.tau[k]));
       console.log(`square n = ${ns[i]}: eps_min/r = ${(1 / rel[i]).toFixed(2)}, tau(q = ${Q.join(', ')}) = ${m[i].spectrum.tau.map((t) => t.toFixed(4)).join(', ')}; |delta tau|/systematic = ${ratios.map((r) => r.toFixed(2)).join(', ')}`);
       for (let k = 1; k < Q.length; k++) worst = Math.max(worst, ratios[k]); // q = 0: tau(0) = -1 at every size
     }
@@ -72,8 +72,8 @@ describe('contact-radius systematic of tau(q)', () => {
     for (let k = 0; k < Q.length; k++) {
       const stat = (m: typeof small) => Math.abs(m.tauHalves![0][k] - m.tauHalves![1][k]) / 2;
       const diff = small.spectrum.tau[k] - big.spectrum.tau[k];
-      const allowed = small.resolutionSystematic.tau[k] + big.resolutionSystematic.tau[k] + 3 * Math.hypot(stat(small), stat(big));
-      console.log(`triangle q = ${Q[k]}: tau ${small.spectrum.tau[k].toFixed(4)} (n = 30) vs ${big.spectrum.tau[k].toFixed(4)} (n = 480), difference ${diff.toFixed(4)}, allowed ${allowed.toFixed(4)} (systematic ${small.resolutionSystematic.tau[k].toFixed(4)})`);
+      const allowed = small.resolutionSystematic!.tau[k] + big.resolutionSystematic!.tau[k] + 3 * Math.hypot(stat(small), stat(big));
+      console.log(`triangle q = ${Q[k]}: tau ${small.spectrum.tau[k].toFixed(4)} (n = 30) vs ${big.spectrum.tau[k].toFixed(4)} (n = 480), difference ${diff.toFixed(4)}, allowed ${allowed.toFixed(4)} (systematic ${small.resolutionSystematic!.tau[k].toFixed(4)})`);
       expect(Math.abs(diff)).toBeLessThanOrEqual(allowed);
     }
   });

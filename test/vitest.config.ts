@@ -13,5 +13,7 @@ export default defineConfig({
     pool: 'forks',
     poolOptions: { forks: { singleFork: false, maxForks: 2, minForks: 1 } },
     reporters: ['default'],
+    // LOOP_WATCH_FILE=FILE: record the longest stretch each test file holds its worker's event loop (test/support/loop-watch.ts)
+    setupFiles: process.env.LOOP_WATCH_FILE ? ['./test/support/loop-watch.ts'] : [],
   },
 });

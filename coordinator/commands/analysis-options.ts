@@ -4,7 +4,8 @@
  * so the messages and ranges are the same.
  */
 import type { Command } from 'commander';
-import { mergeAnalysisSettings, SpecError, type AnalysisSettings } from '../spec/index.js';
+import type { AnalysisSettings } from '../spec/index.js';
+// the spec module (ajv, the model registry) loads when settings are merged, not when the options are registered (start-up of `status`)
 import { UsageError } from '../usage-error.js';
 
 export interface AnalysisCliOptions {
@@ -70,7 +71,7 @@ export function cliAnalysisMessage(problem: string, fromCli: ReadonlySet<string>
  * clusters of its spec): a fit window beyond its particles is refused here,
  * before any work, not reported as "no statistics" after it.
  */
-export function analysisSettingsFromCli(base: AnalysisSettings, o: AnalysisCliOptions, ensemble?: { particles: number; clusters: number }): AnalysisSettings {
+export async function analysisSettingsFromCli(base: AnalysisSettings, o: AnalysisCliOptions, ensemble?: { particles: number; clusters: number }): Promise<AnalysisSettings> {
   const doc: Record<string, unknown> = {};
   if (o.fitWindow !== undefined) window('--fit-window', o.fitWindow, 'fit_min_size', 'fit_max_size', doc);
   if (o.massRadiusWindow !== undefined) window('--mass-radius-window', o.massRadiusWindow, 'mass_radius_min_radius', 'mass_radius_max_radius', doc);
@@ -79,6 +80,7 @@ export function analysisSettingsFromCli(base: AnalysisSettings, o: AnalysisCliOp
   if (o.corrections !== undefined) doc.corrections = o.corrections;
   if (o.localSlopeWidth !== undefined) doc.local_slope_width = number('--local-slope-width', o.localSlopeWidth);
   if (Object.keys(doc).length === 0) return base;
+  const { mergeAnalysisSettings, SpecError } = await import('../spec/index.js');
   try {
     return mergeAnalysisSettings(base, doc, ensemble);
   } catch (err) {

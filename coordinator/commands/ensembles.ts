@@ -1,13 +1,17 @@
 /** `tendril list`, `tendril status ID`, `tendril cancel ID`, `tendril summary ID`. */
+import { existsSync } from 'node:fs';
 import { writeFile } from 'node:fs/promises';
+import type { RunResultData } from '../../proto/convert.js';
+import type { EnsembleSpec } from '../spec/index.js';
 import type { Command } from 'commander';
-import type { EnsembleStatus, EnsembleStore } from '../farm/store.js';
+import { ensembleIds, readEnsembleStatus, readEnsembleStatuses, type EnsembleStatus, type StatusReader } from '../farm/ensemble-status.js';
 import { formatDuration, formatRate } from '../progress/index.js';
 import { CSV_TABLE_NAMES, SUMMARY_FORMATS, type SummaryFormat } from '../summary/formats.js';
 import { UsageError } from '../usage-error.js';
 import { addAnalysisOptions, type AnalysisCliOptions } from './analysis-options.js';
-import { addFarmOptions, openFarm, type FarmCliOptions } from './farm-options.js';
-// the queue, the statistics and the report load only in the commands that use them (start-up time of list/status)
+import { addFarmOptions, openFarm, openReader, type FarmCliOptions } from './farm-options.js';
+// list and status read through the small Redis reader; ioredis, the queue, the spec validator, the protobuf code,
+// the statistics and the report load only in the commands that use them (start-up time: test/cli-startup.test.ts)
 
 /**
  * One line of an ensemble's state. Parts are joined with "; " and only
@@ -31,37 +35,51 @@ export function statusLine(s: EnsembleStatus): string {
   return parts.join('; ');
 }
 
-async function requireStatus(store: EnsembleStore, id: string): Promise<EnsembleStatus> {
-  const s = await store.status(id);
+export async function requireStatus(reader: StatusReader, prefix: string, id: string): Promise<EnsembleStatus> {
+  const s = await readEnsembleStatus(reader, prefix, id);
   if (!s) throw new UsageError(`ensemble id: "${id}" is not known to this farm`);
   return s;
+}
+
+/** The report's pictures from the workers' artifact folder (coordinator/commands/report-pictures.ts). */
+async function farmReportPictures(id: string, spec: EnsembleSpec, results: readonly RunResultData[], folder: string | undefined) {
+  const [{ reportPictures }, { DirectoryArtifactStore }] = await Promise.all([import('./report-pictures.js'), import('../farm/artifacts.js')]);
+  if (folder !== undefined && !existsSync(folder)) throw new UsageError(`--artifacts: "${folder}" does not exist; allowed: the workers' artifact folder`);
+  return reportPictures({
+    ensembleId: id,
+    spec,
+    results,
+    artifacts: folder !== undefined ? new DirectoryArtifactStore(folder) : null,
+    noStoreHint: "give the workers' artifact folder with --artifacts DIR or TENDRIL_ARTIFACTS",
+  });
 }
 
 export function register(program: Command): void {
   addFarmOptions(program.command('list').description('list the newest ensembles on the farm with their state'))
     .option('--json', 'print JSON instead of lines')
     .action(async (opts: FarmCliOptions & { json?: boolean }) => {
-      const farm = await openFarm(opts);
+      const farm = await openReader(opts);
       try {
-        const all = await farm.store.recentStatuses(100);
+        // every status in three round trips, not one ensemble after another
+        const all = (await readEnsembleStatuses(farm.reader, farm.prefix, await ensembleIds(farm.reader, farm.prefix, 100))).filter((s): s is EnsembleStatus => s !== null);
         if (opts.json) process.stdout.write(JSON.stringify(all, null, 2) + '\n');
         else if (all.length === 0) process.stdout.write('no ensembles\n');
         else for (const s of all) process.stdout.write(statusLine(s) + '\n');
       } finally {
-        await farm.close();
+        farm.close();
       }
     });
 
   addFarmOptions(program.command('status').description("one ensemble's runs by state, particles done, throughput and remaining time").argument('<id>', 'ensemble id'))
     .option('--json', 'print JSON instead of a line')
     .action(async (id: string, opts: FarmCliOptions & { json?: boolean }) => {
-      const farm = await openFarm(opts);
+      const farm = await openReader(opts);
       try {
-        const s = await requireStatus(farm.store, id);
+        const s = await requireStatus(farm.reader, farm.prefix, id);
         process.stdout.write(opts.json ? JSON.stringify(s, null, 2) + '\n' : statusLine(s) + '\n');
         for (const f of opts.json ? [] : s.failures) process.stdout.write(`  run ${f.runIndex} failed: ${f.reason}\n`);
       } finally {
-        await farm.close();
+        farm.close();
       }
     });
 
@@ -95,9 +113,10 @@ export function register(program: Command): void {
         .argument('<id>', 'ensemble id')
         .option('--format <format>', 'json, csv, pb, tables (a folder of CSV files) or html (report.html with plots, into a folder)', 'json')
         .option('--table <name>', `CSV table for --format csv: ${CSV_TABLE_NAMES.join(', ')}`, 'series')
-        .option('--out <path>', 'file (json, csv, pb) or folder (tables, html); default standard output for json and csv'),
+        .option('--out <path>', 'file (json, csv, pb) or folder (tables, html); default standard output for json and csv')
+        .option('--artifacts <dir>', "the workers' artifact folder, where --format html finds the sample cluster and the harmonic-measure picture (default: TENDRIL_ARTIFACTS)"),
     ),
-  ).action(async (id: string, opts: FarmCliOptions & AnalysisCliOptions & { format: string; table: string; out?: string }) => {
+  ).action(async (id: string, opts: FarmCliOptions & AnalysisCliOptions & { format: string; table: string; out?: string; artifacts?: string }) => {
     const formats = [...SUMMARY_FORMATS, 'tables', 'html'];
     if (!formats.includes(opts.format)) throw new UsageError(`--format: "${opts.format}" is not allowed; allowed: ${formats.join(', ')}`);
     if (!CSV_TABLE_NAMES.includes(opts.table)) throw new UsageError(`--table: "${opts.table}" is not allowed; allowed: ${CSV_TABLE_NAMES.join(', ')}`);
@@ -106,15 +125,21 @@ export function register(program: Command): void {
     const [{ farmSummary }, { defaultSummaryOptions, renderSummary }, { describeAnalysis, writeSummaryFiles }, { analysisSettingsFromCli }] = await Promise.all([
       import('../farm/summary.js'), import('../summary/index.js'), import('./summary-files.js'), import('./analysis-options.js'),
     ]);
-    const farm = await openFarm(opts);
+    // read through the small RESP client: the summary needs no ioredis (start-up time)
+    const farm = await openReader(opts);
+    const { EnsembleReader } = await import('../farm/ensemble-reader.js');
+    const store = new EnsembleReader(farm.reader, farm.prefix);
     try {
-      const rec = await farm.store.get(id);
+      const rec = await store.get(id);
       if (!rec) throw new UsageError(`ensemble id: "${id}" is not known to this farm`);
-      const analysis = analysisSettingsFromCli(rec.spec.analysis, opts, { particles: rec.spec.particles, clusters: rec.spec.target?.maxClusters ?? rec.plannedClusters });
-      const got = (await farmSummary(farm.store, id, defaultSummaryOptions(analysis)))!;
+      const analysis = await analysisSettingsFromCli(rec.spec.analysis, opts, { particles: rec.spec.particles, clusters: rec.spec.target?.maxClusters ?? rec.plannedClusters });
+      const got = (await farmSummary(store, id, defaultSummaryOptions(analysis)))!;
       if (opts.format === 'tables' || opts.format === 'html') {
         const html = opts.format === 'html';
-        const written = await writeSummaryFiles(opts.out!, got.summary, got.results, rec.spec, { report: html, json: html, tables: true, ensembleId: id });
+        const pictures = html ? await farmReportPictures(id, rec.spec, got.results, opts.artifacts ?? (process.env.TENDRIL_ARTIFACTS || undefined)) : null;
+        const written = await writeSummaryFiles(opts.out!, got.summary, got.results, rec.spec, {
+          report: html, json: html, tables: true, ensembleId: id, sampleCluster: pictures?.sampleCluster, measurePicture: pictures?.measurePicture, pictureNotes: pictures?.notes,
+        });
         process.stdout.write(describeAnalysis(got.summary) + `wrote ${written.join(', ')} into ${opts.out}\n`);
         return;
       }
@@ -122,7 +147,7 @@ export function register(program: Command): void {
       if (opts.out) await writeFile(opts.out, bytes);
       else process.stdout.write(bytes);
     } finally {
-      await farm.close();
+      farm.close();
     }
   });
 }

@@ -2,9 +2,12 @@
 import type { Command } from 'commander';
 import type { Queue } from 'bullmq';
 import type { Redis } from 'ioredis';
-import { connectRedis, DEFAULT_PREFIX, EnsembleStore } from '../farm/store.js';
+import type { EnsembleStore } from '../farm/store.js';
+import { DEFAULT_PREFIX } from '../farm/ensemble-status.js';
+import type { RedisReader } from '../farm/redis-reader.js';
 import { UsageError } from '../usage-error.js';
 import { firstLine, messageOf } from '../../proto/errors.js';
+// ioredis, BullMQ and the store load only in the commands that open them: `status`, `list` and `watch` read through RedisReader
 
 export interface FarmCliOptions {
   redis?: string;
@@ -17,12 +20,22 @@ export function addFarmOptions(cmd: Command): Command {
     .option('--prefix <name>', 'key prefix of this farm in Redis (default: TENDRIL_PREFIX or "tendril")');
 }
 
-export interface Farm {
+export interface FarmStore {
   redis: Redis;
   store: EnsembleStore;
-  queue: Queue;
   prefix: string;
   close(): Promise<void>;
+}
+
+export interface Farm extends FarmStore {
+  queue: Queue;
+}
+
+/** A read-only connection for status, list and watch. */
+export interface FarmReader {
+  reader: RedisReader;
+  prefix: string;
+  close(): void;
 }
 
 export function farmSettings(o: FarmCliOptions): { url: string; prefix: string } {
@@ -33,9 +46,14 @@ export function farmSettings(o: FarmCliOptions): { url: string; prefix: string }
   return { url, prefix };
 }
 
-/** Connect to Redis (failing with one line after a few seconds if it does not answer). */
-export async function openFarm(o: FarmCliOptions, failFastMs?: number): Promise<Farm> {
+function cannotReach(url: string, reason: string): UsageError {
+  return new UsageError(`--redis: cannot reach ${url.replace(/\/\/[^@]*@/, '//***@')}: ${reason}`);
+}
+
+/** Connect to Redis with ioredis and open the ensemble store, no queue (failing with one line after a few seconds if it does not answer). */
+export async function openStore(o: FarmCliOptions, failFastMs?: number): Promise<FarmStore> {
   const { url, prefix } = farmSettings(o);
+  const { connectRedis, EnsembleStore } = await import('../farm/store.js');
   const redis = connectRedis(url, { lazy: true, failFast: failFastMs });
   // the connection's own error (a wrong password, an untrusted certificate) says more than "Connection is closed"
   let lastError: Error | undefined;
@@ -49,20 +67,34 @@ export async function openFarm(o: FarmCliOptions, failFastMs?: number): Promise<
     ]);
   } catch (err) {
     redis.disconnect();
-    const reason = /Connection is closed/.test(messageOf(err)) && lastError ? firstLine(lastError.message) : messageOf(err);
-    throw new UsageError(`--redis: cannot reach ${url.replace(/\/\/[^@]*@/, '//***@')}: ${reason}`);
+    throw cannotReach(url, /Connection is closed/.test(messageOf(err)) && lastError ? firstLine(lastError.message) : messageOf(err));
   }
-  const store = new EnsembleStore(redis, prefix);
+  return { redis, store: new EnsembleStore(redis, prefix), prefix, close: async () => redis.disconnect() };
+}
+
+/** The store and the BullMQ queue: the commands that launch, cancel or grow. */
+export async function openFarm(o: FarmCliOptions, failFastMs?: number): Promise<Farm> {
+  const opened = await openStore(o, failFastMs);
   const { runQueue } = await import('../farm/queue.js');
-  const queue = runQueue(redis, prefix);
+  const queue = runQueue(opened.redis, opened.prefix);
   return {
-    redis,
-    store,
+    ...opened,
     queue,
-    prefix,
     close: async () => {
       await queue.close();
-      redis.disconnect();
+      await opened.close();
     },
   };
+}
+
+/** A read-only connection (coordinator/farm/redis-reader.ts), for the commands that only look. */
+export async function openReader(o: FarmCliOptions): Promise<FarmReader> {
+  const { url, prefix } = farmSettings(o);
+  const { RedisReader } = await import('../farm/redis-reader.js');
+  try {
+    const reader = await RedisReader.open(url);
+    return { reader, prefix, close: () => reader.close() };
+  } catch (err) {
+    throw cannotReach(url, messageOf(err));
+  }
 }

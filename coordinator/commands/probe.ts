@@ -37,7 +37,7 @@ import { describeRange } from '../../worker/core/value-range.js';
 import { defaultProbeJobs, PROBE_CONTACT_SAMPLE, PROBE_JOBS, PROBE_MIN_STEP, PROBE_Q_MAX_VALUES, PROBE_Q_VALUE, PROBE_WALKERS, probeSettingsProblems, type ProbeSettingSpec } from '../harmonic/probe-settings.js';
 import { readProbeInput } from '../harmonic/probe-input.js';
 import { runProbes } from '../harmonic/probe-run.js';
-import { renderMeasurePng } from '../harmonic/measure-picture.js';
+import { measurePictureGeometry, renderMeasurePng } from '../harmonic/measure-picture.js';
 import { DEFAULT_PROBE_MIN_STEP } from '../../worker/probe/probe-2d.js';
 import { readFileSync } from 'node:fs';
 import { decodeSnapshot, type PointSet } from '../snapshot/cluster-snapshot.js';
@@ -154,7 +154,9 @@ export function register(program: Command): void {
       writeFileSync(join(dir, MEASURE_PICTURE_FILE), picture);
       const { renderer } = pngRenderer();
       if (renderer) {
-        const fig = measurePictureFigure({ runIndex: 0, size: set.count, png: picture, title: `Harmonic measure on ${set.count} disks (${walkers} walkers)` });
+        const pixelsPerUnit = measurePictureGeometry(set.count, set.x, set.y, set.drawRadius).scale;
+        const unit = set.kind === 'snapshot' ? 'particle diameters' : 'units of x and y';
+        const fig = measurePictureFigure({ runIndex: 0, size: set.count, png: picture, title: `Harmonic measure on ${set.count} disks (${walkers} walkers)`, scale: { pixelsPerUnit, unit } });
         writeFileSync(join(dir, MEASURE_FIGURE_FILE), renderer.render(fig.svg, 2));
       }
       for (const w of run.measures.warnings) process.stderr.write(`warning: ${w}\n`);

@@ -10,32 +10,15 @@ import type { Command } from 'commander';
 import { createProgress, type Progress, type ProgressMode } from '../progress/index.js';
 import { runEmbedded, EmbeddedAborted, type EmbeddedProgress } from '../embedded/index.js';
 import { DirectoryArtifactStore } from '../farm/artifacts.js';
-import { newEnsembleId, runTaskFor } from '../plan.js';
-import type { SampleClusterInput } from '../report/index.js';
-import { specToDocument, type EnsembleSpec } from '../spec/index.js';
-import { growthTaskOf } from '../../proto/convert.js';
-import { createKernel } from '../../worker/models/registry.js';
-import { noPictureReason, picturePointsOf } from '../render/model-picture.js';
+import { newEnsembleId } from '../plan.js';
+import { specToDocument } from '../spec/index.js';
 import { buildSummary, defaultSummaryOptions } from '../summary/index.js';
 import { UsageError } from '../usage-error.js';
-import { renderMeasurePng } from '../harmonic/measure-picture.js';
-import { CLUSTER_CONTACT_RADIUS } from '../harmonic/ensemble-probing.js';
 import { addAnalysisOptions, analysisSettingsFromCli, type AnalysisCliOptions } from './analysis-options.js';
 import { describeAnalysis, writeSummaryFiles } from './summary-files.js';
+import { clusterMeasurePicture, reportPictures } from './report-pictures.js';
 import { loadSpecFile, positiveInt } from './spec-file.js';
 import { checkOutFolder, makeOutFolder } from './out-folder.js';
-
-/** Largest cluster regrown for the report's picture (results hold no positions; regrowing run 0 is cheap below this). */
-const PICTURE_MAX_PARTICLES = 200_000;
-
-/** Run 0 grown again in this thread (same task, same result) for the report's cluster picture (none when the model declares no picture). */
-function sampleCluster(ensembleId: string, spec: EnsembleSpec): SampleClusterInput | undefined {
-  if (spec.particles > PICTURE_MAX_PARTICLES || noPictureReason(spec.model.kind) !== null) return undefined;
-  const k = createKernel(growthTaskOf(runTaskFor(ensembleId, spec, 0)));
-  k.growTo(spec.particles);
-  const points = picturePointsOf(spec.model.kind, k.positions());
-  return points === null ? undefined : { points, runIndex: 0 };
-}
 
 interface RunOptions extends AnalysisCliOptions {
   out: string;
@@ -60,7 +43,7 @@ export function register(program: Command): void {
         throw new UsageError(`--progress: "${opts.progress}" is not allowed; allowed: auto, bar, lines, none`);
       }
       const spec = await loadSpecFile(specPath, opts.maxTotalParticles);
-      const analysis = analysisSettingsFromCli(spec.analysis, opts, { particles: spec.particles, clusters: spec.target?.maxClusters ?? spec.clusters });
+      const analysis = await analysisSettingsFromCli(spec.analysis, opts, { particles: spec.particles, clusters: spec.target?.maxClusters ?? spec.clusters });
       // refused before any growth when unusable (a file, an unwritable parent); never a raw EEXIST/ENOTDIR
       makeOutFolder(checkOutFolder(opts.out), opts.out);
       const doc = specToDocument(spec);
@@ -78,6 +61,7 @@ export function register(program: Command): void {
         if (err instanceof UsageError) throw err;
         await writeFile(metaPath, JSON.stringify({ ensemble_id: ensembleId, created_at_ms: createdAtMs, spec: doc }, null, 2) + '\n');
       }
+      const state = new DirectoryArtifactStore(join(opts.out, 'state'));
       const progress = new PhasedProgress(spec.name, spec.particles * spec.clusters, opts.progress as ProgressMode);
       const abort = new AbortController();
       const onSignal = () => abort.abort();
@@ -88,25 +72,31 @@ export function register(program: Command): void {
           ensembleId,
           createdAtMs,
           threads: opts.threads,
-          store: new DirectoryArtifactStore(join(opts.out, 'state')),
+          store: state,
           signal: abort.signal,
           onProgress: (p) => progress.update(p),
           summary: defaultSummaryOptions(analysis),
         });
         progress.stop();
         const s = outcome.summary;
+        const pictures =
+          opts.report !== false
+            ? await reportPictures({
+                ensembleId,
+                spec,
+                results: outcome.results,
+                artifacts: state,
+                measurePicture: outcome.picture
+                  ? clusterMeasurePicture(outcome.picture.runIndex, outcome.picture.size, outcome.picture.x, outcome.picture.y, outcome.picture.counts)
+                  : undefined,
+              })
+            : null;
         const written = await writeSummaryFiles(opts.out, s, outcome.results, spec, {
           report: opts.report !== false,
           ensembleId,
-          sampleCluster: opts.report !== false ? sampleCluster(ensembleId, spec) : undefined,
-          measurePicture:
-            opts.report !== false && outcome.picture
-              ? {
-                  runIndex: outcome.picture.runIndex,
-                  size: outcome.picture.size,
-                  png: renderMeasurePng(outcome.picture.size, outcome.picture.x, outcome.picture.y, CLUSTER_CONTACT_RADIUS / 2, outcome.picture.counts),
-                }
-              : undefined,
+          sampleCluster: pictures?.sampleCluster,
+          measurePicture: pictures?.measurePicture,
+          pictureNotes: pictures?.notes,
         });
         process.stdout.write(
           `${spec.name}: ${s.clustersDone} clusters of ${spec.particles} particles in ${outcome.wallSeconds.toFixed(1)} s` +

@@ -24,6 +24,8 @@ export interface SummaryFilesOptions {
   sampleCluster?: SampleClusterInput;
   /** A probed cluster coloured by harmonic measure, for the report. */
   measurePicture?: { runIndex: number; size: number; png: Uint8Array };
+  /** Why a picture is missing (coordinator/commands/report-pictures.ts). */
+  pictureNotes?: { sampleCluster?: string; measurePicture?: string };
 }
 
 /** Writes the files and returns their names relative to `dir`. */
@@ -49,7 +51,7 @@ export async function writeSummaryFiles(
   }
   const analysis = analysisOf(s);
   if ((o.report ?? true) && analysis) {
-    const files = await writeEnsembleReport(dir, { analysis, runs, spec, sampleCluster: o.sampleCluster, measurePicture: o.measurePicture, ensembleId: o.ensembleId ?? s.ensembleId, title: s.partial ? `${s.name} (partial: ${s.clustersDone} of ${s.clustersPlanned} clusters)` : undefined });
+    const files = await writeEnsembleReport(dir, { analysis, runs, spec, sampleCluster: o.sampleCluster, measurePicture: o.measurePicture, pictureNotes: o.pictureNotes, ensembleId: o.ensembleId ?? s.ensembleId, title: s.partial ? `${s.name} (partial: ${s.clustersDone} of ${s.clustersPlanned} clusters)` : undefined });
     written.push('report.html', `plots/ (${files.svgs.length} SVG, ${files.pngs.length} PNG)`);
   }
   return written;
@@ -123,6 +125,13 @@ export function describeAnalysis(s: EnsembleSummaryData): string {
     if (ps.ratio !== null) {
       const iv = ps.ratioInterval?.bca ?? ps.ratioInterval?.percentile;
       lines.push(`tau(3) = D, particle scale (Z(3) ~ N^(-tau(3)/D)): tau(3)/D = ${ps.ratio.toFixed(3)}${iv ? ` [${iv[0].toFixed(3)}, ${iv[1].toFixed(3)}]` : ''} (${ps.consistent === null ? 'not judged' : ps.consistent ? 'consistent with 1' : 'not consistent with 1'})`);
+    }
+    const b = hm.breakdownRelation;
+    if (b) {
+      const est = (v: { estimate: number | null; low: number | null; high: number | null }): string =>
+        v.estimate === null ? 'n/a' : `${v.estimate.toFixed(3)}${v.low !== null && v.high !== null ? ` [${v.low.toFixed(3)}, ${v.high.toFixed(3)}]` : ''}`;
+      lines.push(`breakdown relation at eta = ${b.eta}: tau(eta+2) - tau(eta) = ${est(b.tauDifference)} vs D of the same sets ${est(b.massDimension)}: ${b.verdict} (intervals overlap = consistent)${b.reason ? ` (${b.reason})` : ''}`);
+      lines.push(`capacity increment vs Z(eta+2)/Z(eta): log-log slope ${est(b.capacityIncrement.slope)}: ${b.capacityIncrement.verdict} (1 inside the interval = proportional)`);
     }
   }
   if (s.adaptiveJson !== '') {

@@ -2,9 +2,10 @@
 import type { Command } from 'commander';
 import { createProgress } from '../progress/index.js';
 import { UsageError } from '../usage-error.js';
-import { statusLine } from './ensembles.js';
-import { addFarmOptions, openFarm, type FarmCliOptions } from './farm-options.js';
-import { positiveInt } from './spec-file.js';
+import { requireStatus, statusLine } from './ensembles.js';
+import { addFarmOptions, openReader, type FarmCliOptions } from './farm-options.js';
+import { readEnsembleStatus } from '../farm/ensemble-status.js';
+import { positiveInt } from './option-values.js';
 
 export function register(program: Command): void {
   addFarmOptions(
@@ -16,10 +17,9 @@ export function register(program: Command): void {
       .option('--progress <mode>', 'auto, bar, lines or none', 'auto'),
   ).action(async (id: string, opts: FarmCliOptions & { every: number; progress: string }) => {
     if (!['auto', 'bar', 'lines', 'none'].includes(opts.progress)) throw new UsageError(`--progress: "${opts.progress}" is not allowed; allowed: auto, bar, lines, none`);
-    const farm = await openFarm(opts);
+    let farm = await openReader(opts);
     try {
-      let s = await farm.store.status(id);
-      if (!s) throw new UsageError(`ensemble id: "${id}" is not known to this farm`);
+      let s = await requireStatus(farm.reader, farm.prefix, id);
       const bar = createProgress({ total: s.particles.total, unit: 'particles', label: s.name, mode: opts.progress as 'auto' });
       let stop = false;
       const onSig = () => (stop = true);
@@ -29,7 +29,13 @@ export function register(program: Command): void {
           bar.update(s.particles.done);
           if (s.state !== 'running' || stop) break;
           await new Promise((r) => setTimeout(r, opts.every * 1000));
-          s = (await farm.store.status(id))!;
+          try {
+            s = (await readEnsembleStatus(farm.reader, farm.prefix, id)) ?? s;
+          } catch {
+            // Redis went away (restarted, link lost): keep the last status and connect again at the next refresh
+            farm.close();
+            farm = await openReader(opts).catch(() => farm);
+          }
         }
       } finally {
         process.off('SIGINT', onSig);
@@ -38,7 +44,7 @@ export function register(program: Command): void {
       process.stdout.write(statusLine(s) + '\n');
       if (s.state === 'failed') process.exitCode = 1;
     } finally {
-      await farm.close();
+      farm.close();
     }
   });
 }

@@ -33,8 +33,8 @@ import { availableParallelism } from 'node:os';
 import { decodeCheckpoint, decodeRunResult, type RunResultData, type RunTaskData } from '../../proto/convert.js';
 import { axisOf } from '../../worker/core/positions.js';
 import { ProbeThreadPool } from '../../worker/runtime/probe-thread-pool.js';
-import { diskSetDigest, type ProbeResult } from '../../worker/probe/probe-2d.js';
-import { analyseProbedCluster, clusterPrefix, positionsOf, probeTasksOf } from '../harmonic/ensemble-probing.js';
+import type { ProbeResult } from '../../worker/probe/probe-2d.js';
+import { analyseProbedCluster, breakdownEtaOf, clusterPrefix, positionsOf, probeTasksOfSet } from '../harmonic/ensemble-probing.js';
 import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
 import { TaskThreadPool, type ThreadRun } from '../../worker/runtime/task-thread.js';
 import { runOne } from '../../worker/runtime/run-lifecycle.js';
@@ -67,7 +67,7 @@ export interface EmbeddedProgress {
   probePassTotal: number;
 }
 
-/** The hit counts of one probed cluster at its final size, for the report's picture. */
+/** The hit counts of one probed planar cluster at its final size, for the report's picture (the measure picture is planar: none for 3D clusters). */
 export interface ProbedPicture {
   runIndex: number;
   size: number;
@@ -247,7 +247,7 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
     const final = pos;
     const groups = await Promise.all(probeSizes.map(async (size) => {
       const set = clusterPrefix(final, size);
-      const tasks = probeTasksOf(probe!, spec.seed, runIndex, size, diskSetDigest(set));
+      const tasks = probeTasksOfSet(probe!, spec.seed, runIndex, size, set);
       const out = await Promise.all(tasks.map(async (t) => {
         if (opts.signal?.aborted) return null;
         try {
@@ -266,11 +266,11 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
     if (groups.some((g) => g.results === null)) return;
     const recs: ClusterHarmonic[] = [];
     for (const g of groups) {
-      const { record, counts } = analyseProbedCluster(g.set, g.results!, probe!, runIndex, g.size);
+      const { record, counts } = analyseProbedCluster(g.set, g.results!, probe!, runIndex, g.size, breakdownEtaOf(spec.model));
       recs.push(record);
       if (g.size === spec.particles) {
         if (store) await store.put(hitsKey(opts.ensembleId, runIndex), new Uint8Array(counts.buffer, counts.byteOffset, counts.byteLength));
-        if (picture === null || runIndex < picture.runIndex) picture = { runIndex, size: g.size, x: axisOf(final, 0, g.size), y: axisOf(final, 1, g.size), counts };
+        if (final.dimension === 2 && (picture === null || runIndex < picture.runIndex)) picture = { runIndex, size: g.size, x: axisOf(final, 0, g.size), y: axisOf(final, 1, g.size), counts };
       }
     }
     harmonic.set(runIndex, recs);
@@ -345,7 +345,7 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
       if (fin && hits) {
         const pos = positionsOf(decodeCheckpoint(fin));
         const counts = new Float64Array(Uint8Array.from(hits).buffer);
-        if (counts.length === spec.particles) picture = { runIndex: first, size: spec.particles, x: axisOf(pos, 0, spec.particles), y: axisOf(pos, 1, spec.particles), counts };
+        if (counts.length === spec.particles && pos.dimension === 2) picture = { runIndex: first, size: spec.particles, x: axisOf(pos, 0, spec.particles), y: axisOf(pos, 1, spec.particles), counts };
       }
     }
   }

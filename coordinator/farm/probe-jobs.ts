@@ -21,13 +21,14 @@ import type { ProbeResult } from '../../worker/probe/probe-2d.js';
 import { ProbeJobCancelled, ProbeJobFailed, ProbeThreadPool } from '../../worker/runtime/probe-thread-pool.js';
 import { ProbeJobRefused, type ProbeJobHandler } from '../../worker/runtime/queue-processor.js';
 import { finalKey, hitsKey, JOB_PAYLOAD_VERSION, probeResultKey, requestResultKey, type ProbeJobData } from '../../worker/runtime/job-contract.js';
-import { analyseProbedCluster, clusterPrefix, positionsOf, prefixDigest, probeTasksOf } from '../harmonic/ensemble-probing.js';
+import { analyseProbedCluster, breakdownEtaOf, clusterPrefix, positionsOf, probeTasksOfSet } from '../harmonic/ensemble-probing.js';
 import { probeSizesOf, type EnsembleSpec } from '../spec/index.js';
 import type { ArtifactStore } from './artifacts.js';
 import type { EnsembleStore } from './store.js';
 import type { ProbeRequestStore } from './probe-requests.js';
 import { analyseResults } from '../harmonic/probe-run.js';
 import type { DiskSet } from '../../worker/probe/probe-2d.js';
+import type { ProbeSet } from '../../worker/probe/probe-set.js';
 import type { ClusterPositions } from '../../worker/core/growth-kernel.js';
 
 
@@ -36,7 +37,7 @@ export function probeJobsOf(id: string, spec: EnsembleSpec, runIndex: number, fi
   const p = spec.probe;
   if (!p) return [];
   return probeSizesOf(spec).flatMap((size) =>
-    probeTasksOf(p, spec.seed, runIndex, size, prefixDigest(final, size)).map((task) => ({
+    probeTasksOfSet(p, spec.seed, runIndex, size, clusterPrefix(final, size)).map((task) => ({
       name: 'probe',
       data: { v: JOB_PAYLOAD_VERSION, kind: 'probe', ensembleId: id, runIndex, size, task } satisfies ProbeJobData,
       opts: {
@@ -102,7 +103,7 @@ export class FarmProbeHandler implements ProbeJobHandler {
    * cancelPollMs while the job runs; once true the thread is stopped and the
    * result is null.
    */
-  private async runOnThread(key: string, load: () => DiskSet | Promise<DiskSet>, task: ProbeJobData['task'], cancelled: () => Promise<boolean>): Promise<ProbeResult | null> {
+  private async runOnThread(key: string, load: () => ProbeSet | Promise<ProbeSet>, task: ProbeJobData['task'], cancelled: () => Promise<boolean>): Promise<ProbeResult | null> {
     const abort = new AbortController();
     const timer = setInterval(() => {
       void cancelled().then((c) => c && abort.abort(), () => undefined);
@@ -200,7 +201,7 @@ export class FarmProbeHandler implements ProbeJobHandler {
       results.push(JSON.parse(Buffer.from(bytes).toString('utf8')) as ProbeResult);
     }
     const final = await this.finalOf(id, runIndex);
-    const { record, counts } = analyseProbedCluster(clusterPrefix(final, size), results, p, runIndex, size);
+    const { record, counts } = analyseProbedCluster(clusterPrefix(final, size), results, p, runIndex, size, breakdownEtaOf(spec.model));
     if (size === spec.particles) await this.artifacts.put(hitsKey(id, runIndex), new Uint8Array(counts.buffer, counts.byteOffset, counts.byteLength));
     if (await this.store.saveHarmonic(id, record)) this.events.log?.(`ensemble ${id}: run ${runIndex} probed at size ${size}`);
   }

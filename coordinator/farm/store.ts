@@ -26,17 +26,18 @@
  * Checkpoints are not in Redis but in the artifact store (coordinator/farm/artifacts.ts).
  */
 import { Redis } from 'ioredis';
-import { decodeRunResult, type RunResultData } from '../../proto/convert.js';
-import { probeSizesOf, specToDocument, validateSpec, type EnsembleSpec } from '../spec/index.js';
+import type { RunResultData } from '../../proto/convert.js';
+import type { EnsembleSpec } from '../spec/index.js';
+import { DEFAULT_PREFIX, RATE_BUCKET_MS } from './ensemble-status.js';
+import { EnsembleReader } from './ensemble-reader.js';
 import type { AdaptiveHistory } from '../summary/adaptive.js';
 import type { RunSink } from '../../worker/runtime/queue-processor.js';
 import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
 
-export const DEFAULT_PREFIX = 'tendril';
-const RATE_BUCKET_MS = 10_000;
-const RATE_WINDOW_MS = 60_000;
-/** A running run whose worker gave no sign of life for this long is counted as queued (workers tick every 2 s by default). */
-export const STALE_RUN_MS = 60_000;
+export { DEFAULT_PREFIX, STALE_RUN_MS, type EnsembleState, type EnsembleStatus } from './ensemble-status.js';
+export type { EnsembleRecord } from './ensemble-reader.js';
+// the spec validator (ajv, the model registry) loads on first use
+const specModule = () => import('../spec/index.js');
 
 /**
  * A Redis connection. `failFast` (the HTTP API): commands fail at once while
@@ -53,20 +54,6 @@ export function connectRedis(url: string, opts: { lazy?: boolean; failFast?: num
   });
 }
 
-export interface EnsembleRecord {
-  id: string;
-  name: string;
-  spec: EnsembleSpec;
-  createdAtMs: number;
-  jobs: number;
-  cancelled: boolean;
-  /** Clusters planned so far: spec.clusters, or the sum of the batches of an adaptive ensemble. */
-  plannedClusters: number;
-  /** Batch history of an adaptive ensemble; null for a fixed count. */
-  adaptive: AdaptiveHistory | null;
-  /** Runs whose jobs are known to be queued (adaptive ensembles; = plannedClusters otherwise). */
-  queuedThrough: number;
-}
 
 /**
  * One atomic step of an adaptive ensemble: only if the ensemble still has
@@ -103,53 +90,17 @@ redis.call('HSET', KEYS[3], ARGV[1], ARGV[3])
 return 1
 `;
 
-export type EnsembleState = 'running' | 'done' | 'failed' | 'cancelled';
-
-export interface EnsembleStatus {
-  id: string;
-  name: string;
-  state: EnsembleState;
-  createdAt: string;
-  runs: { planned: number; queued: number; running: number; done: number; failed: number };
-  particles: { done: number; total: number };
-  /** Particles per second over the last minute. */
-  throughput: number;
-  /** Seconds until done at the current throughput; null when unknown. */
-  etaSeconds: number | null;
-  failures: Array<{ runIndex: number; reason: string }>;
-  /** Adaptive ensembles: the outcome so far, batches planned, and the cluster cap; null for a fixed count. */
-  adaptive: { outcome: string; batches: number; maxClusters: number } | null;
-  /** Probed ensembles: (run, size) probes planned for the planned clusters, analysed, failed; null without [probe]. */
-  probes: { planned: number; done: number; failed: number; failures: Array<{ runIndex: number; size: number; reason: string }> } | null;
-}
-
-/** The record stored in an ensemble's hash; null when it holds no spec (unknown or purged). */
-function recordOf(id: string, h: Record<string, string>): EnsembleRecord | null {
-  if (!h.spec) return null;
-    return {
-      id,
-      name: h.name ?? '',
-      spec: validateSpec(JSON.parse(h.spec), { maxTotalParticles: Number.MAX_SAFE_INTEGER }),
-      createdAtMs: Number(h.created_at_ms ?? 0),
-      jobs: Number(h.jobs ?? 0),
-      cancelled: h.cancelled === '1',
-      plannedClusters: Number(h.clusters ?? 0),
-      adaptive: h.adaptive ? (JSON.parse(h.adaptive) as AdaptiveHistory) : null,
-      queuedThrough: h.queued_through !== undefined ? Number(h.queued_through) : Number(h.clusters ?? 0),
-    };
-}
-
-export class EnsembleStore implements RunSink {
+/** The ensemble store: the reads of EnsembleReader, and every write (launch, workers, cancel). */
+export class EnsembleStore extends EnsembleReader implements RunSink {
   constructor(
     readonly redis: Redis,
-    readonly prefix: string = DEFAULT_PREFIX,
-  ) {}
-
-  private k(id: string, part?: string): string {
-    return part ? `${this.prefix}:ensemble:${id}:${part}` : `${this.prefix}:ensemble:${id}`;
+    prefix: string = DEFAULT_PREFIX,
+  ) {
+    super(redis, prefix);
   }
 
   async create(id: string, spec: EnsembleSpec, jobs: number, createdAtMs = Date.now(), adaptive: AdaptiveHistory | null = null): Promise<void> {
+    const { specToDocument } = await specModule();
     const ok = await this.redis.hsetnx(this.k(id), 'spec', JSON.stringify(specToDocument(spec)));
     if (!ok) throw new Error(`ensemble ${id} exists already`);
     const fields: Record<string, string> = {
@@ -180,10 +131,6 @@ export class EnsembleStore implements RunSink {
     return (await this.redis.hexists(this.k(id), 'launched')) === 1;
   }
 
-  async get(id: string): Promise<EnsembleRecord | null> {
-    return recordOf(id, await this.redis.hgetall(this.k(id)));
-  }
-
   /** The atomic batch step of an adaptive ensemble (see EXTEND_SCRIPT); true when this call made it. */
   async extendAdaptive(id: string, expectedClusters: number, newClusters: number, newJobs: number, history: AdaptiveHistory): Promise<boolean> {
     const r = await this.redis.eval(EXTEND_SCRIPT, 1, this.k(id), String(expectedClusters), String(newClusters), String(newJobs), JSON.stringify(history));
@@ -210,11 +157,6 @@ export class EnsembleStore implements RunSink {
       const [a, c] = fields[n];
       return a !== null && c !== '1' && a.includes('"outcome":"running"');
     });
-  }
-
-  /** Ensemble ids, newest first. */
-  async ids(limit = 100): Promise<string[]> {
-    return this.redis.zrevrange(`${this.prefix}:ensembles`, 0, limit - 1);
   }
 
   async cancel(id: string): Promise<boolean> {
@@ -306,84 +248,6 @@ export class EnsembleStore implements RunSink {
     await this.redis.hset(this.k(id, 'probe-failed'), `${runIndex}:${size}`, reason.slice(0, 500));
   }
 
-  /** The kept harmonic records, in (run, size) order. */
-  async harmonicRecords(id: string): Promise<ClusterHarmonic[]> {
-    const h = await this.redis.hgetall(this.k(id, 'harmonic'));
-    return Object.values(h)
-      .map((v) => JSON.parse(v) as ClusterHarmonic)
-      .sort((a, b) => a.runIndex - b.runIndex || a.size - b.size);
-  }
-
-  // ---------------------------------------------------------- reading
-
-  /** Stored results in run-index order (one per run index by construction). */
-  async results(id: string): Promise<RunResultData[]> {
-    const h = await this.redis.hgetallBuffer(this.k(id, 'results'));
-    return Object.values(h)
-      .map((b) => decodeRunResult(b))
-      .sort((a, b) => a.runIndex - b.runIndex);
-  }
-
-  async status(id: string, now = Date.now()): Promise<EnsembleStatus | null> {
-    return (await this.statuses([id], now))[0];
-  }
-
-  /** Statuses of the newest `limit` ensembles, newest first (at most three Redis round trips, whatever `limit`). */
-  async recentStatuses(limit = 100, now = Date.now()): Promise<EnsembleStatus[]> {
-    return (await this.statuses(await this.ids(limit), now)).filter((s): s is EnsembleStatus => s !== null);
-  }
-
-  /**
-   * Statuses of many ensembles in at most two Redis round trips, whatever
-   * their number: one MULTI reads every hash of every ensemble (a consistent
-   * snapshot), a second checks the running marks against stored results
-   * (only when some are marked). null for an unknown id.
-   */
-  async statuses(ids: readonly string[], now = Date.now()): Promise<Array<EnsembleStatus | null>> {
-    if (ids.length === 0) return [];
-    const tx = this.redis.multi();
-    for (const id of ids) {
-      tx.hgetall(this.k(id))
-        .hlen(this.k(id, 'results'))
-        .hgetall(this.k(id, 'running'))
-        .hgetall(this.k(id, 'progress'))
-        .hgetall(this.k(id, 'failed'))
-        .hgetall(this.k(id, 'rate'))
-        .hlen(this.k(id, 'harmonic'))
-        .hgetall(this.k(id, 'probe-failed'))
-        .hgetall(this.k(id, 'seen'));
-    }
-    const replies = repliesOf<unknown>(await tx.exec());
-    const reads = ids.map((id, n): StatusReads | null => {
-      const at = STATUS_READS * n;
-      const rec = recordOf(id, replies[at] as Record<string, string>);
-      if (!rec) return null;
-      const [doneN, marked, progress, failed, rate, harmonicN, probeFailed, seen] = replies.slice(at + 1, at + STATUS_READS) as [
-        number,
-        Record<string, string>,
-        Record<string, string>,
-        Record<string, string>,
-        Record<string, string>,
-        number,
-        Record<string, string>,
-        Record<string, string>,
-      ];
-      // runs whose worker stopped giving signs of life (killed) are waiting to be taken up again, not running
-      const running: Record<string, string> = {};
-      for (const [i, w] of Object.entries(marked)) if (seen[i] === undefined || now - Number(seen[i]) < STALE_RUN_MS) running[i] = w;
-      return { rec, doneN, running, progress, failed, rate, harmonicN, probeFailed };
-    });
-    // a run whose result is stored is never running, whatever a stale mark says
-    const marks = reads.flatMap((r, n) => (r && Object.keys(r.running).length > 0 ? [{ n, runs: Object.keys(r.running) }] : []));
-    if (marks.length > 0) {
-      const check = this.redis.multi();
-      for (const m of marks) check.hmget(this.k(ids[m.n], 'results'), ...m.runs);
-      const stored = repliesOf<Array<Buffer | string | null>>(await check.exec());
-      marks.forEach((m, j) => m.runs.forEach((i, q) => { if (stored[j][q] !== null) delete reads[m.n]!.running[i]; }));
-    }
-    return reads.map((r, n) => (r ? statusOf(ids[n], r, now) : null));
-  }
-
   /** Delete every key of an ensemble (tests and operators). */
   async purge(id: string): Promise<void> {
     const probed: string[] = [];
@@ -401,21 +265,6 @@ export class EnsembleStore implements RunSink {
   }
 }
 
-/** Replies per ensemble in statuses()' MULTI: its record hash, then the eight reads of its run hashes. */
-const STATUS_READS = 9;
-
-/** What statuses() read for one ensemble (running marks already cleared of silent workers). */
-interface StatusReads {
-  rec: EnsembleRecord;
-  doneN: number;
-  running: Record<string, string>;
-  progress: Record<string, string>;
-  failed: Record<string, string>;
-  rate: Record<string, string>;
-  harmonicN: number;
-  probeFailed: Record<string, string>;
-}
-
 /** The replies of a MULTI … EXEC, in order; throws the first command error (or when the transaction was discarded). */
 function repliesOf<T>(exec: Array<[Error | null, unknown]> | null): T[] {
   if (exec === null) throw new Error('Redis discarded the transaction');
@@ -423,58 +272,4 @@ function repliesOf<T>(exec: Array<[Error | null, unknown]> | null): T[] {
     if (err) throw err;
     return v as T;
   });
-}
-
-/** An ensemble's status from what statuses() read. */
-function statusOf(id: string, reads: StatusReads, now: number): EnsembleStatus {
-  const { rec, doneN, running, progress, failed, rate, harmonicN, probeFailed } = reads;
-  const probeSizes = probeSizesOf(rec.spec).length;
-  const planned = rec.plannedClusters;
-  const runningN = Object.keys(running).length;
-  const failedN = Object.keys(failed).length;
-  let particlesDone = doneN * rec.spec.particles;
-  // only runs still marked running count (a late progress write may follow a stored result)
-  for (const [i, v] of Object.entries(progress)) if (running[i] !== undefined) particlesDone += Number(v);
-  const fromBucket = Math.floor((now - RATE_WINDOW_MS) / RATE_BUCKET_MS);
-  let recent = 0;
-  for (const [b, v] of Object.entries(rate)) if (Number(b) >= fromBucket) recent += Number(v);
-  const windowS = Math.min(RATE_WINDOW_MS, Math.max(RATE_BUCKET_MS, now - rec.createdAtMs)) / 1000;
-  const throughput = recent / windowS;
-  const total = planned * rec.spec.particles;
-  const probesPlanned = planned * probeSizes;
-  const probeFailedN = Object.keys(probeFailed).length;
-  const probesComplete = harmonicN >= probesPlanned;
-  let state: EnsembleState = 'running';
-  if (rec.cancelled && (doneN < planned || !probesComplete)) state = 'cancelled';
-  else if (doneN === planned && rec.adaptive?.outcome === 'running') state = 'running'; // batch complete, awaiting its judgement
-  else if (doneN === planned && probesComplete) state = 'done';
-  else if (doneN + failedN === planned && harmonicN + probeFailedN >= doneN * probeSizes && (failedN > 0 || probeFailedN > 0)) state = 'failed';
-  const remaining = total - particlesDone;
-  return {
-    id,
-    name: rec.name,
-    state,
-    createdAt: new Date(rec.createdAtMs).toISOString(),
-    // a cancelled or finished ensemble has nothing queued (its jobs were dropped), and grows nothing
-    runs: { planned, queued: state === 'running' ? Math.max(0, planned - doneN - runningN - failedN) : 0, running: runningN, done: doneN, failed: failedN },
-    particles: { done: particlesDone, total },
-    throughput: state === 'running' ? throughput : 0,
-    etaSeconds: state !== 'running' ? (state === 'done' ? 0 : null) : throughput > 0 ? remaining / throughput : null,
-    failures: Object.entries(failed)
-      .map(([i, reason]) => ({ runIndex: Number(i), reason }))
-      .sort((a, b) => a.runIndex - b.runIndex)
-      .slice(0, 20),
-    adaptive: rec.adaptive ? { outcome: rec.adaptive.outcome, batches: rec.adaptive.batches.length, maxClusters: rec.adaptive.target.max_clusters } : null,
-    probes: rec.spec.probe
-      ? {
-          planned: probesPlanned,
-          done: harmonicN,
-          failed: probeFailedN,
-          failures: Object.entries(probeFailed)
-            .map(([k, reason]) => ({ runIndex: Number(k.split(':')[0]), size: Number(k.split(':')[1]), reason }))
-            .sort((a, b) => a.runIndex - b.runIndex || a.size - b.size)
-            .slice(0, 20),
-        }
-      : null,
-  };
 }

@@ -6,7 +6,7 @@
  */
 import type { EnsembleSummaryData, RunResultData } from '../../proto/convert.js';
 import { buildSummary, defaultSummaryOptions, type SummaryOptions } from '../summary/index.js';
-import type { EnsembleRecord, EnsembleStore } from './store.js';
+import type { EnsembleReader, EnsembleRecord } from './ensemble-reader.js';
 
 export interface FarmSummary {
   record: EnsembleRecord;
@@ -14,7 +14,7 @@ export interface FarmSummary {
   summary: EnsembleSummaryData;
 }
 
-export async function farmSummary(store: EnsembleStore, id: string, opts: SummaryOptions = defaultSummaryOptions()): Promise<FarmSummary | null> {
+export async function farmSummary(store: EnsembleReader, id: string, opts: SummaryOptions = defaultSummaryOptions()): Promise<FarmSummary | null> {
   const record = await store.get(id);
   if (!record) return null;
   const results = await store.results(id);

@@ -20,7 +20,8 @@
  *       asymptotic regime at this size and contact radius; probe a larger
  *       set, or use a window further above the contact radius.
  */
-export type BeurlingVerdict = 'consistent' | 'not resolved at this size' | 'not applicable: the set is not connected';
+/** 'not applicable in 3D': Beurling's estimate is planar (set by probe-analysis.ts for ball sets). */
+export type BeurlingVerdict = 'consistent' | 'not resolved at this size' | 'not applicable: the set is not connected' | 'not applicable in 3D';
 
 export const BEURLING_BOUND = 0.5;
 

@@ -40,7 +40,10 @@ export interface HarmonicAtSize {
   maxConcentrationExponent: EnsembleValue;
   /** Beurling: exponent ≥ 1/2 (interval upper end at least 0.5). */
   beurlingRespected: boolean | null;
+  /** Mean ln cap: of the logarithmic capacity in 2D, of the Newtonian capacity in 3D. */
   logCapacity: EnsembleValue;
+  /** 3D: the Newtonian capacity (units: a ball of radius a has capacity a), ensemble mean; null in 2D. */
+  capacity?: EnsembleValue | null;
   /** Unbiased particle-scale Σ p³ (ensemble mean). */
   z3: EnsembleValue;
   /** τ(3) of this size's ensemble, when 3 is on the q grid. */
@@ -61,7 +64,8 @@ export interface CapacityGrowth {
 }
 
 /**
- * The capacity-increment relation: the mean growth of log capacity per added
+ * The capacity-increment relation: the mean growth of log capacity (in 3D:
+ * of −1/C, C the Newtonian capacity; harmonic-section.ts) per added
  * particle between successive probed sizes, against the particle-scale growth
  * moment Z(3) at those sizes. Proportionality (ratio constant in N, log–log
  * slope 1) is what makes τ(3) = D.
@@ -84,10 +88,16 @@ export interface CapacityIncrement {
   reason: string | null;
 }
 
-/** τ(3) beside the mass-based D of the same clusters (the electrostatic scaling law τ(3) = D). */
+/** τ(3) beside the mass-based D of the same clusters (the electrostatic scaling law τ(3) = D in 2D, τ(3) = D + 1 in 3D). */
 export interface ElectrostaticCheck {
   size: number;
+  /** Absent in sections made before 3D probing (then 2). */
+  dimension?: 2 | 3;
+  /** The relation checked, e.g. "tau(3) = D + 1"; absent in older sections (then "tau(3) = D"). */
+  relation?: string;
   tau3: EnsembleValue | null;
+  /** D from τ(3): τ(3) − (d − 2), its interval (τ(3)'s shifted) and the same widened by the fit-window systematic. */
+  dimensionFromTau3?: { value: number; interval: [number, number] | null; withSystematic: [number, number] | null } | null;
   massDimension: { estimator: string; value: number | null; interval: [number, number] | null } | null;
   /** Whether the intervals overlap. */
   consistent: boolean | null;
@@ -99,12 +109,56 @@ export interface ElectrostaticCheck {
    * clusters probed at every size of their OLS slopes, with its interval; the law
    * says ratio = 1.
    */
-  particleScale: { sizes: number[]; clusters: number; ratio: number | null; ratioInterval: IntervalSummary | null; consistent: boolean | null; reason: string | null };
+  particleScale: {
+    sizes: number[]; clusters: number; ratio: number | null; ratioInterval: IntervalSummary | null;
+    /** The relation's value of τ(3)/D: [1, 1] in 2D; in 3D [1 + 1/D_hi, 1 + 1/D_lo] from the mass-D interval (null without it). */
+    expected?: [number, number] | null;
+    consistent: boolean | null; reason: string | null;
+  };
   source: string;
+}
+
+/** An estimate with its interval (ends null when there is none). */
+export interface EstimateWithInterval {
+  estimate: number | null;
+  low: number | null;
+  high: number | null;
+}
+
+/**
+ * The dielectric breakdown relations for a model with a growth exponent η
+ * (harmonic-section.ts states the rules): τ(η + 2) − τ(η) beside the mass
+ * dimension of the same probed clusters, and the capacity increment against
+ * Z(η + 2)/Z(η). At η = 1, Z(1) = 1 and these are the τ(3) = D checks.
+ */
+export interface BreakdownRelation {
+  eta: number;
+  /** Probed sizes and clusters (probed at every size, with positive moments) that enter. */
+  sizes: number[];
+  clusters: number;
+  tauDifference: EstimateWithInterval;
+  massDimension: EstimateWithInterval;
+  /** 'consistent' | 'inconsistent' | 'undetermined' (no interval). */
+  verdict: 'consistent' | 'inconsistent' | 'undetermined';
+  rule: string;
+  capacityIncrement: {
+    /** Per interval: mean increment of log capacity per particle, and the geometric mean of Z(η + 2)/Z(η) at its ends. */
+    meanIncrement: number[];
+    momentRatio: number[];
+    /** Slope of log meanIncrement against log(Z(η + 2)/Z(η)) (1 when proportional). */
+    slope: EstimateWithInterval;
+    verdict: 'proportional' | 'not proportional' | 'undetermined';
+    rule: string;
+    reason: string | null;
+  };
+  source: string;
+  reason: string | null;
 }
 
 export interface HarmonicSection {
   schema: 'tendril-harmonic/1';
+  /** 2 for planar clusters, 3 for 3D ones (the capacity is then Newtonian; harmonic-section.ts); absent in older sections (then 2). */
+  dimension?: 2 | 3;
   convention: string;
   /** Probe settings of the spec. */
   probe: { walkers: number; jobs: number; q: number[]; sizes: number[]; contactSample: number; minStep: number };
@@ -112,6 +166,8 @@ export interface HarmonicSection {
   capacityGrowth: CapacityGrowth;
   capacityIncrement: CapacityIncrement;
   electrostatic: ElectrostaticCheck;
+  /** Present for a model with a growth exponent η (the dielectric breakdown model). */
+  breakdownRelation?: BreakdownRelation;
   /** Clusters probed at every size (the ones the growth relations use). */
   clustersAtAllSizes: number;
   /** The per-cluster records behind it (run, then size order); attached by the summary builder. */

@@ -98,6 +98,34 @@
  * mass dimension of the same clusters (given by the caller, with its
  * estimator named); consistent when the two intervals overlap (BCa, else
  * percentile, for τ(3)); null when either is missing.
+ *
+ * Three dimensions (option dimension = 3; records of ball sets,
+ * cluster-harmonic.ts). The same argument with the Newtonian capacity C
+ * (units: a ball of radius a has capacity a; potential u = 1 on K,
+ * u ~ C/|x| at infinity, charge ∝ C, h = |∇u| on ∂K, harmonic measure
+ * h dS/(4πC)). Hadamard's formula for the Newtonian case: pushing ∂K out by
+ * δn raises C by (1/4π) ∫ h² δn dS. A particle of volume ∝ a³ at s raises C
+ * by c a³ h(s)² and lands there with probability h dS/(4πC); at particle
+ * scale p_i ≈ h a²/(4πC). Hence
+ *   ⟨ΔC⟩ ∝ a³ ∫ h³ dS / C ∝ C² Σ p_i³ / a,   i.e.  ⟨Δ(−1/C)⟩ ∝ Z(3, a)/a.
+ * So the increment variable is −1/C where 2D has log cap: meanIncrement_k
+ * is the mean over complete clusters of (1/C(N_k) − 1/C(N_{k+1}))/(N_{k+1} − N_k),
+ * and its proportionality to Z(3) is tested exactly as in 2D. With
+ * C ~ N^{1/D} and Z(3, a) ~ (a/R)^τ(3): 1/D − 1 = (2 − τ(3))/D, so
+ *   τ(3) = D + 1 in 3D  (in d dimensions the same steps give τ(3) = D + d − 2).
+ * Check of the relation on an exact case: a compact ball (D = 3) has the
+ * uniform measure on its surface, Z(3, ε) ∝ (ε/R)^{−2}(ε/R)^6 = (ε/R)^4, so
+ * τ(3) = 4 = D + 1. This 3D form is derived here, not quoted: no published
+ * statement of it was checked (the 2D law is Halsey 1987, citation from
+ * memory). What the section reports in 3D:
+ *  - dimensionFromTau3 = τ(3) − (d − 2) with the τ(3) interval shifted
+ *    (and the same widened by the fit-window systematic);
+ *  - consistent: that interval overlaps the mass-D interval;
+ *  - particle scale: −slope of log Z(3) against log N is τ(3)/D, which the
+ *    relation puts at 1 + (d − 2)/D; consistent when the ratio's interval
+ *    overlaps [1 + (d − 2)/D_hi, 1 + (d − 2)/D_lo] from the mass-D interval
+ *    (null without it).
+ * The contact-radius systematic is not given in 3D (calibrated in 2D only).
  */
 import { bootstrapRandom, drawResample, weightedColumnMeans } from '../stats/bootstrap.js';
 import { fitLine, slopeWeights } from '../stats/log-log-fit.js';
@@ -106,13 +134,15 @@ import { bootstrapInterval, type IntervalSummary } from '../stats/bca.js';
 import type { ClusterHarmonic } from './cluster-harmonic.js';
 import { ensembleMeanInterval, type EnsembleValue } from './ensemble-intervals.js';
 import type {
-  CapacityGrowth, CapacityIncrement, ElectrostaticCheck, HarmonicAtSize, HarmonicSection,
+  BreakdownRelation, CapacityGrowth, CapacityIncrement, ElectrostaticCheck, EstimateWithInterval, HarmonicAtSize, HarmonicSection,
 } from './harmonic-section-types.js';
 import { SIGN_CONVENTION } from './probe-analysis.js';
 
 export const HARMONIC_CONVERGED_SHARE = 0.9;
 export const ELECTROSTATIC_SOURCE =
   'electrostatic scaling law tau(3) = D: Halsey 1987, Phys. Rev. Lett. 59, 2067 (citation from memory)';
+export const ELECTROSTATIC_SOURCE_3D =
+  'tau(3) = D + 1 in 3D: derived in coordinator/harmonic/harmonic-section.ts by the argument of the 2D law (Halsey 1987, Phys. Rev. Lett. 59, 2067, citation from memory) applied to the Newtonian capacity; exact on a compact ball (tau(3) = 4, D = 3); no published 3D statement was checked';
 
 export interface HarmonicSectionOptions {
   probe: HarmonicSection['probe'];
@@ -122,6 +152,8 @@ export interface HarmonicSectionOptions {
   resamples?: number;
   /** Confidence level; default 0.95, allowed 0.5..0.999. */
   level?: number;
+  /** Spatial dimension of the clusters (default 2); 3 switches to the Newtonian relations of the file header. */
+  dimension?: 2 | 3;
 }
 
 function checkOption(field: string, v: number, lo: number, hi: number, integer: boolean): number {
@@ -152,6 +184,7 @@ function atSize(size: number, group: readonly ClusterHarmonic[], q: readonly num
   const informationDimension = emi(finite(group.map((c) => c.informationDimension)));
   const maxConcentrationExponent = emi(finite(group.map((c) => c.maxConcentrationExponent)));
   const logCapacity = emi(finite(group.map((c) => c.logCapacity)));
+  const capacity = group.some((c) => c.dimension === 3) ? emi(finite(group.map((c) => c.capacity))) : null;
   const z3 = emi(finite(group.map((c) => c.z3)));
   const tauMean = tau.map((t) => t.mean);
   const dq = q.map((qk, k) => (isOne(qk) ? null : tauMean[k] / (qk - 1)));
@@ -225,6 +258,7 @@ function atSize(size: number, group: readonly ClusterHarmonic[], q: readonly num
     maxConcentrationExponent,
     beurlingRespected: mx ? mx[1] >= 0.5 : null,
     logCapacity,
+    capacity,
     z3,
     tau3: k3 >= 0 ? tau[k3] : null,
   };
@@ -281,7 +315,16 @@ function capacityGrowthOf(sizes: number[], groups: ReadonlyArray<readonly Cluste
   };
 }
 
-function capacityIncrementOf(sizes: number[], groups: ReadonlyArray<readonly ClusterHarmonic[]>, seed: string | number, resamples: number, level: number): CapacityIncrement {
+/** The capacity variable whose growth per particle is proportional to Z(3): ln cap in 2D, −1/C in 3D (file header). */
+function incrementVariable(logCapacity: number | null, dimension: 2 | 3): number | null {
+  if (logCapacity === null) return null;
+  return dimension === 3 ? -Math.exp(-logCapacity) : logCapacity;
+}
+
+function capacityIncrementOf(
+  sizes: number[], groups: ReadonlyArray<readonly ClusterHarmonic[]>, seed: string | number, resamples: number, level: number,
+  dimension: 2 | 3, moment: (c: ClusterHarmonic) => number | null = (c) => c.z3, label = 'Z(3)',
+): CapacityIncrement {
   const m = sizes.length - 1;
   const base = {
     fromSize: sizes.slice(0, Math.max(m, 0)),
@@ -292,10 +335,10 @@ function capacityIncrementOf(sizes: number[], groups: ReadonlyArray<readonly Clu
     slope: null, slopeInterval: null, proportional: null, reason,
   });
   if (m < 1) return empty(`${sizes.length} probed size${sizes.length === 1 ? '' : 's'}; increments need at least 2`);
-  // per complete cluster: log cap at every size, then Z(3) at every size
-  const { rows: raw } = completeRows(groups, (c) => [c.logCapacity, c.z3]);
+  // per complete cluster: the capacity variable (ln cap; −1/C in 3D) at every size, then the moment at every size
+  const { rows: raw } = completeRows(groups, (c) => [incrementVariable(c.logCapacity, dimension), moment(c)]);
   const k = raw.length;
-  if (k === 0) return empty('no cluster has a log capacity and Z(3) at every probed size');
+  if (k === 0) return empty(`no cluster has a log capacity and ${label} at every probed size`);
   const s = sizes.length;
   const cols = m + s;
   // matrix K × (m increments, s Z(3) values)
@@ -313,7 +356,7 @@ function capacityIncrementOf(sizes: number[], groups: ReadonlyArray<readonly Clu
   const ratio = meanIncrement.map((v, j) => v / z3[j]);
   const partial = { meanIncrement, z3, ratio };
   if (m < 2) return empty(`${sizes.length} probed sizes give ${m} increment; the slope needs at least 3 sizes`, partial);
-  if (k < 3) return empty(`${k} cluster${k === 1 ? '' : 's'} with a log capacity and Z(3) at every probed size; at least 3 are needed`, partial);
+  if (k < 3) return empty(`${k} cluster${k === 1 ? '' : 's'} with a log capacity and ${label} at every probed size; at least 3 are needed`, partial);
   const slopeOf = (mu: ArrayLike<number>): number => {
     const lx = new Float64Array(m);
     const ly = new Float64Array(m);
@@ -329,7 +372,7 @@ function capacityIncrementOf(sizes: number[], groups: ReadonlyArray<readonly Clu
   const slope = slopeOf(means);
   if (!Number.isFinite(slope)) {
     const bad = meanIncrement.findIndex((v, j) => !(v > 0) || !(z3[j] > 0));
-    return empty(`interval ${sizes[bad]}..${sizes[bad + 1]}: mean increment ${meanIncrement[bad].toPrecision(3)} and z3 ${z3[bad].toPrecision(3)} must both be positive for the log-log slope`, partial);
+    return empty(`interval ${sizes[bad]}..${sizes[bad + 1]}: mean increment ${meanIncrement[bad].toPrecision(3)} and ${label} ${z3[bad].toPrecision(3)} must both be positive for the log-log slope`, partial);
   }
   const rng = bootstrapRandom(seed);
   const counts = new Int32Array(k);
@@ -363,8 +406,11 @@ function capacityIncrementOf(sizes: number[], groups: ReadonlyArray<readonly Clu
  * interval (ensembleMeanInterval). Clusters with a Z(3) ≤ 0 at some size
  * (fewer than 3 hits on every particle) are left out.
  */
-function particleScaleOf(sizes: number[], groups: ReadonlyArray<readonly ClusterHarmonic[]>, seed: string | number, resamples: number, level: number): ElectrostaticCheck['particleScale'] {
-  const empty = (reason: string, clusters = 0): ElectrostaticCheck['particleScale'] => ({ sizes: [...sizes], clusters, ratio: null, ratioInterval: null, consistent: null, reason });
+function particleScaleOf(
+  sizes: number[], groups: ReadonlyArray<readonly ClusterHarmonic[]>, seed: string | number, resamples: number, level: number,
+  dimension: 2 | 3, mass: HarmonicSectionOptions['massDimension'],
+): ElectrostaticCheck['particleScale'] {
+  const empty = (reason: string, clusters = 0): ElectrostaticCheck['particleScale'] => ({ sizes: [...sizes], clusters, ratio: null, ratioInterval: null, expected: null, consistent: null, reason });
   if (sizes.length < 2) return empty(`${sizes.length} probed size${sizes.length === 1 ? '' : 's'}; the particle-scale check needs at least 2`);
   const { rows } = completeRows(groups, (c) => [c.z3 !== null && c.z3 > 0 ? Math.log(c.z3) : null]);
   const k = rows.length;
@@ -374,29 +420,123 @@ function particleScaleOf(sizes: number[], groups: ReadonlyArray<readonly Cluster
   const perCluster = rows.map((r) => -r.reduce((s, v, j) => s + w[j] * v, 0));
   const ev = ensembleMeanInterval(perCluster, seed, resamples, level);
   const ends = intervalEnds(ev.interval);
-  return { sizes: [...sizes], clusters: k, ratio: ev.mean, ratioInterval: ev.interval, consistent: ends ? ends[0] <= 1 && 1 <= ends[1] : null, reason: ends ? null : `no interval (${ev.interval.status})` };
+  // the relation's value of tau(3)/D: 1 in 2D; 1 + (d - 2)/D otherwise, an interval from the mass-D interval
+  const d = mass?.interval ?? null;
+  const expected: [number, number] | null = dimension === 2 ? [1, 1] : d && d[0] > 0 ? [1 + (dimension - 2) / d[1], 1 + (dimension - 2) / d[0]] : null;
+  const reason = !ends ? `no interval (${ev.interval.status})` : !expected ? 'no mass-dimension interval: the 3D relation needs D' : null;
+  return {
+    sizes: [...sizes], clusters: k, ratio: ev.mean, ratioInterval: ev.interval, expected,
+    consistent: ends && expected ? ends[0] <= expected[1] && expected[0] <= ends[1] : null, reason,
+  };
 }
 
-function electrostaticOf(bySize: HarmonicAtSize[], mass: HarmonicSectionOptions['massDimension'], particleScale: ElectrostaticCheck['particleScale']): ElectrostaticCheck {
+function electrostaticOf(bySize: HarmonicAtSize[], mass: HarmonicSectionOptions['massDimension'], particleScale: ElectrostaticCheck['particleScale'], dimension: 2 | 3): ElectrostaticCheck {
   const last = bySize.length > 0 ? bySize[bySize.length - 1] : null;
   const tau3 = last ? last.tau3 : null;
-  const a = intervalEnds(tau3?.interval);
+  const shift = dimension - 2;
+  const t = intervalEnds(tau3?.interval);
+  const a: [number, number] | null = t ? [t[0] - shift, t[1] - shift] : null;
+  const sys: [number, number] | null = last?.tau3WithSystematic ? [last.tau3WithSystematic[0] - shift, last.tau3WithSystematic[1] - shift] : null;
   const b = mass?.interval ?? null;
   return {
     size: last ? last.size : 0,
+    dimension,
+    relation: dimension === 2 ? 'tau(3) = D' : `tau(3) = D + ${shift}`,
     tau3,
+    dimensionFromTau3: tau3 && Number.isFinite(tau3.mean) ? { value: tau3.mean - shift, interval: a, withSystematic: sys } : null,
     massDimension: mass ? { estimator: mass.estimator, value: mass.value, interval: mass.interval ? [mass.interval[0], mass.interval[1]] : null } : null,
     consistent: a && b ? a[0] <= b[1] && b[0] <= a[1] : null,
-    consistentWithSystematic: last?.tau3WithSystematic && b ? last.tau3WithSystematic[0] <= b[1] && b[0] <= last.tau3WithSystematic[1] : null,
+    consistentWithSystematic: sys && b ? sys[0] <= b[1] && b[0] <= sys[1] : null,
     particleScale,
-    source: ELECTROSTATIC_SOURCE,
+    source: dimension === 2 ? ELECTROSTATIC_SOURCE : ELECTROSTATIC_SOURCE_3D,
   };
+}
+
+export const BREAKDOWN_SOURCE =
+  'DBM form of the electrostatic scaling law, tau(eta + 2) - tau(eta) = D: Halsey 1987, Phys. Rev. Lett. 59, 2067 (citation from memory); the capacity-increment argument: coordinator/harmonic/harmonic-section.ts, with the growth density h^eta';
+export const BREAKDOWN_RULE =
+  'tau(eta+2) - tau(eta) per cluster = minus the OLS slope of log(Z(eta+2)/Z(eta)) against log(set radius) over the probed sizes; D per cluster = the OLS slope of log N against log(set radius); both ensemble means with cluster-bootstrap intervals (BCa, else percentile); consistent when the two intervals overlap, inconsistent when they do not, undetermined without both intervals';
+export const BREAKDOWN_CAPACITY_RULE =
+  'mean increment of log capacity per particle against the geometric mean of the ensemble-mean Z(eta+2)/Z(eta) at the ends of each interval between probed sizes; proportional when the cluster-bootstrap interval (BCa, else percentile) of the log-log slope contains 1, not proportional when it does not, undetermined without an interval';
+
+/**
+ * The dielectric breakdown relations (records with `breakdown` moments):
+ *  - τ(η + 2) − τ(η) = D. With Z(q, a) ∝ (a/R)^τ(q) at particle scale a and
+ *    set radius R, log(Z(η+2)/Z(η)) = −(τ(η+2) − τ(η)) log R + const; the
+ *    mass dimension of the same prefixes is the slope of log N against log R.
+ *    Both per complete cluster (a record at every size, positive moments),
+ *    then ensemble means with intervals (ensembleMeanInterval). BREAKDOWN_RULE
+ *    is the verdict's rule. At η = 1 this is the τ(3) = D check with the
+ *    set radius as the length (Z(1) = 1).
+ *  - Capacity increment: with growth density ∝ h^η (h = |∇g| on the
+ *    boundary, as in the file header), a particle lands at s with probability
+ *    h^η ds / ∫ h^η and raises log cap by c a² h(s)², so the mean increment is
+ *    ∝ ∫ h^(η+2) / ∫ h^η ∝ Z(η + 2)/Z(η) at particle scale (the a factors
+ *    cancel up to a constant). capacityIncrementOf with that moment ratio;
+ *    BREAKDOWN_CAPACITY_RULE is the verdict's rule.
+ */
+function breakdownRelationOf(sizes: number[], groups: ReadonlyArray<readonly ClusterHarmonic[]>, seed: string | number, resamples: number, level: number): BreakdownRelation | undefined {
+  const first = groups.flat().find((c) => c.breakdown !== undefined);
+  if (first === undefined || first.breakdown === undefined) return undefined;
+  const eta = first.breakdown.eta;
+  const ratioOf = (c: ClusterHarmonic): number | null => {
+    const b = c.breakdown;
+    return b && b.zEta !== null && b.zEtaPlus2 !== null && b.zEta > 0 && b.zEtaPlus2 > 0 ? b.zEtaPlus2 / b.zEta : null;
+  };
+  const none: EstimateWithInterval = { estimate: null, low: null, high: null };
+  const inc = capacityIncrementOf(sizes, groups, seed, resamples, level, 2, ratioOf, 'Z(eta+2)/Z(eta)'); // the breakdown model is planar
+  const incEnds = intervalEnds(inc.slopeInterval);
+  const capacityIncrement: BreakdownRelation['capacityIncrement'] = {
+    meanIncrement: inc.meanIncrement,
+    momentRatio: inc.z3,
+    slope: { estimate: inc.slope, low: incEnds ? incEnds[0] : null, high: incEnds ? incEnds[1] : null },
+    verdict: inc.proportional === null ? 'undetermined' : inc.proportional ? 'proportional' : 'not proportional',
+    rule: BREAKDOWN_CAPACITY_RULE,
+    reason: inc.reason,
+  };
+  const result = (clusters: number, tauDifference: EstimateWithInterval, massDimension: EstimateWithInterval, reason: string | null): BreakdownRelation => {
+    const both = tauDifference.low !== null && tauDifference.high !== null && massDimension.low !== null && massDimension.high !== null;
+    const verdict = !both ? 'undetermined' : tauDifference.low! <= massDimension.high! && massDimension.low! <= tauDifference.high! ? 'consistent' : 'inconsistent';
+    return { eta, sizes: [...sizes], clusters, tauDifference, massDimension, verdict, rule: BREAKDOWN_RULE, capacityIncrement, source: BREAKDOWN_SOURCE, reason };
+  };
+  if (sizes.length < 2) return result(0, none, none, `${sizes.length} probed size${sizes.length === 1 ? '' : 's'}; the relation needs at least 2`);
+  const { rows } = completeRows(groups, (c) => {
+    const r = ratioOf(c);
+    return [r === null ? null : Math.log(r), c.radius > 0 ? Math.log(c.radius) : null, Math.log(c.size)];
+  });
+  const k = rows.length;
+  if (k < 3) return result(k, none, none, `${k} cluster${k === 1 ? '' : 's'} with positive Z(eta) and Z(eta+2) at every probed size; at least 3 are needed`);
+  const s = sizes.length;
+  const tauDiff: number[] = [];
+  const mass: number[] = [];
+  for (const r of rows) {
+    const lr = Float64Array.from({ length: s }, (_, j) => r[3 * j + 1]);
+    const lz = Float64Array.from({ length: s }, (_, j) => r[3 * j]);
+    const ln = Float64Array.from({ length: s }, (_, j) => r[3 * j + 2]);
+    const a = fitLine(lr, lz).slope;
+    const b = fitLine(lr, ln).slope;
+    if (Number.isFinite(a) && Number.isFinite(b)) {
+      tauDiff.push(-a);
+      mass.push(b);
+    }
+  }
+  if (tauDiff.length < 3) return result(tauDiff.length, none, none, 'the set radius does not change over the probed sizes: no slope');
+  const of = (v: number[]): EstimateWithInterval => {
+    const ev = ensembleMeanInterval(v, seed, resamples, level);
+    const ends = intervalEnds(ev.interval);
+    return { estimate: ev.mean, low: ends ? ends[0] : null, high: ends ? ends[1] : null };
+  };
+  return result(tauDiff.length, of(tauDiff), of(mass), null);
 }
 
 /** The harmonic section of an ensemble summary from its per-(run, size) records (see the file header). */
 export function harmonicSection(clusters: readonly ClusterHarmonic[], o: HarmonicSectionOptions): HarmonicSection {
   const resamples = checkOption('resamples', o.resamples ?? 2000, 10, 1_000_000, true);
   const level = checkOption('level', o.level ?? 0.95, 0.5, 0.999, false);
+  const dimension = o.dimension ?? 2;
+  if (dimension !== 2 && dimension !== 3) throw new RangeError(`harmonic section dimension: ${String(dimension)} is out of range; allowed: 2 or 3`);
+  for (const c of clusters)
+    if ((c.dimension ?? 2) !== dimension) throw new RangeError(`harmonic record of run ${c.runIndex} at size ${c.size}: dimension ${c.dimension ?? 2} differs from the section's ${dimension}`);
   const q = clusters.length > 0 ? clusters[0].q : o.probe.q;
   for (const c of clusters)
     if (!sameGrid(c.q, q)) throw new RangeError(`harmonic record of run ${c.runIndex} at size ${c.size}: q grid [${c.q.join(', ')}] differs from [${q.join(', ')}]`);
@@ -414,14 +554,17 @@ export function harmonicSection(clusters: readonly ClusterHarmonic[], o: Harmoni
   const bySize = sizes.map((n, j) => atSize(n, groups[j], q, o.seed, resamples, level));
   const runSets = groups.map((g) => new Set(g.map((c) => c.runIndex)));
   const clustersAtAllSizes = groups.length === 0 ? 0 : groups[0].filter((c) => runSets.every((s) => s.has(c.runIndex))).length;
+  const breakdown = breakdownRelationOf(sizes, groups, o.seed, resamples, level);
   return {
     schema: 'tendril-harmonic/1',
+    dimension,
     convention: SIGN_CONVENTION,
     probe: { ...o.probe, q: [...o.probe.q], sizes: [...o.probe.sizes] },
     bySize,
     capacityGrowth: capacityGrowthOf(sizes, groups, o.seed, resamples, level),
-    capacityIncrement: capacityIncrementOf(sizes, groups, o.seed, resamples, level),
-    electrostatic: electrostaticOf(bySize, o.massDimension, particleScaleOf(sizes, groups, o.seed, resamples, level)),
+    capacityIncrement: capacityIncrementOf(sizes, groups, o.seed, resamples, level, dimension),
+    electrostatic: electrostaticOf(bySize, o.massDimension, particleScaleOf(sizes, groups, o.seed, resamples, level, dimension, o.massDimension), dimension),
+    ...(breakdown ? { breakdownRelation: breakdown } : {}),
     clustersAtAllSizes,
   };
 }

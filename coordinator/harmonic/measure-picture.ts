@@ -15,20 +15,25 @@ import { buildPalette, PALETTE_SIZE } from '../render/palette.js';
 import { encodePng, DARK_BACKGROUND, type Raster } from '../render/cluster-picture.js';
 import { parseHex } from '../render/palette.js';
 
+/** Where renderMeasurePng puts the set: `scale` pixels per unit of x and y (for a scale bar), and the centre's offset. */
+export function measurePictureGeometry(
+  n: number, x: ArrayLike<number>, y: ArrayLike<number>, radius: number | ArrayLike<number>, size = 1024,
+): { scale: number; minX: number; maxX: number; minY: number; maxY: number } {
+  let minX = Infinity, maxX = -Infinity, minY = Infinity, maxY = -Infinity, rMax = 0;
+  for (let i = 0; i < n; i++) {
+    minX = Math.min(minX, x[i]); maxX = Math.max(maxX, x[i]);
+    minY = Math.min(minY, y[i]); maxY = Math.max(maxY, y[i]);
+    rMax = Math.max(rMax, typeof radius === 'number' ? radius : radius[i]);
+  }
+  const extent = Math.max(maxX - minX, maxY - minY) + 2 * rMax;
+  return { scale: (size * 0.94) / extent, minX, maxX, minY, maxY };
+}
+
 export function renderMeasurePng(
   n: number, x: ArrayLike<number>, y: ArrayLike<number>, radius: number | ArrayLike<number>, counts: ArrayLike<number>, size = 1024,
 ): Buffer {
   const rad = (i: number): number => (typeof radius === 'number' ? radius : radius[i]);
-  let minX = Infinity, maxX = -Infinity, minY = Infinity, maxY = -Infinity, rMax = 0, cMax = 0, cMin = Infinity;
-  for (let i = 0; i < n; i++) {
-    minX = Math.min(minX, x[i]); maxX = Math.max(maxX, x[i]);
-    minY = Math.min(minY, y[i]); maxY = Math.max(maxY, y[i]);
-    rMax = Math.max(rMax, rad(i));
-    if (counts[i] > cMax) cMax = counts[i];
-    if (counts[i] > 0 && counts[i] < cMin) cMin = counts[i];
-  }
-  const extent = Math.max(maxX - minX, maxY - minY) + 2 * rMax;
-  const scale = (size * 0.94) / extent;
+  const { scale, minX, maxX, minY, maxY } = measurePictureGeometry(n, x, y, radius, size);
   const originX = size / 2 - scale * 0.5 * (minX + maxX);
   const originY = size / 2 + scale * 0.5 * (minY + maxY);
   const bg = parseHex(DARK_BACKGROUND);

@@ -25,13 +25,23 @@
  * bounded factor); the maximum is the one with the smaller finite-size noise.
  * test/harmonic-measures.test.ts checks M on a cluster placed on a corner of
  * one grid.
+ *
+ * In 3D (points with a z axis) the boxes are cubes of side ε; four grids at
+ * offsets (0, 0, 0), (ε/2, ε/2, ε/2), (ε/4, 3ε/4, ε/4), (3ε/4, ε/4, 3ε/4),
+ * the same averaging and the same maximum (a cube at any position meets at
+ * most eight cubes of a grid). Box indices must stay below 2^17 per axis
+ * (at most 131072 boxes across the set): a smaller box side is refused.
  */
 const OFFSETS = [[0, 0], [0.5, 0.5], [0.25, 0.75], [0.75, 0.25]];
+const OFFSETS_3D = [[0, 0, 0], [0.5, 0.5, 0.5], [0.25, 0.75, 0.25], [0.75, 0.25, 0.75]];
+const AXIS_3D = 131072;
 
 export interface WeightedPoints {
   count: number;
   x: ArrayLike<number>;
   y: ArrayLike<number>;
+  /** Third axis of points in 3D; absent in the plane. */
+  z?: ArrayLike<number>;
   /** Non-negative weights; null = weight 1 each. */
   w: ArrayLike<number> | null;
 }
@@ -48,7 +58,7 @@ export interface BoxStatistics {
   occupied: number[];
 }
 
-export function boxStatistics(p: WeightedPoints, eps: readonly number[], q: readonly number[], originX: number, originY: number): BoxStatistics {
+export function boxStatistics(p: WeightedPoints, eps: readonly number[], q: readonly number[], originX: number, originY: number, originZ = 0): BoxStatistics {
   let total = 0;
   for (let i = 0; i < p.count; i++) {
     const wi = p.w === null ? 1 : p.w[i];
@@ -57,23 +67,32 @@ export function boxStatistics(p: WeightedPoints, eps: readonly number[], q: read
   }
   if (!(total > 0)) throw new RangeError('measure has zero total weight');
   const out: BoxStatistics = { eps: [...eps], q: [...q], z: [], entropy: [], maxMeasure: [], occupied: [] };
-  const no = OFFSETS.length;
+  const pz = p.z;
+  const offsets = pz ? OFFSETS_3D : OFFSETS;
+  const no = offsets.length;
   for (const e of eps) {
     const zq = new Array<number>(q.length).fill(0);
     let s = 0;
     let m = 0;
     let occ = 0;
-    for (const [fx, fy] of OFFSETS) {
+    for (const [fx, fy, fz] of offsets) {
       const boxes = new Map<number, number>();
       const inv = 1 / e;
       const ax = originX - fx * e;
       const ay = originY - fy * e;
+      const az = originZ - (fz ?? 0) * e;
       for (let i = 0; i < p.count; i++) {
         const wi = p.w === null ? 1 : p.w[i];
         if (wi === 0) continue;
         const ix = Math.floor((p.x[i] - ax) * inv);
         const iy = Math.floor((p.y[i] - ay) * inv);
-        const key = ix * 4194304 + iy; // 0 <= ix, iy < 2^21 for the scales used
+        let key: number;
+        if (pz) {
+          const iz = Math.floor((pz[i] - az) * inv);
+          if (ix < 0 || iy < 0 || iz < 0 || ix >= AXIS_3D || iy >= AXIS_3D || iz >= AXIS_3D)
+            throw new RangeError(`box side ${e.toPrecision(3)} is too small for this set: at most ${AXIS_3D} boxes across each axis in 3D`);
+          key = (ix * AXIS_3D + iy) * AXIS_3D + iz;
+        } else key = ix * 4194304 + iy; // 0 <= ix, iy < 2^21 for the scales used
         boxes.set(key, (boxes.get(key) ?? 0) + wi);
       }
       for (const v of boxes.values()) {

@@ -51,6 +51,21 @@
  * finite window does not resolve that limit, so the verdict is
  * 'consistent', 'not resolved at this size' or 'not applicable: the set is
  * not connected', never a violation; the rule is in beurling-check.ts.
+ *
+ * Sets of balls in 3D (input with a z axis; worker/probe/probe-3d.ts). The
+ * same partition function over cubes of side ε (partition-function.ts), with
+ * the measure at the ball centres (no contact points are kept in 3D); R is
+ * the radius of the smallest sphere about the bounding-box centre enclosing
+ * the balls; the same default window and fit-window systematic. What differs:
+ *  - capacity: the Newtonian capacity (units: a ball of radius a has
+ *    capacity a) = R_L · hits / walkers, R_L the launch radius, with its
+ *    binomial standard error (exact relation, probe-3d.ts header); the
+ *    logarithmic capacity is planar and is null;
+ *  - the contact-radius systematic was calibrated on planar sets
+ *    (κ of resolution-systematic.ts); it is not given in 3D (null), and a
+ *    warning says so;
+ *  - Beurling's estimate is a planar theorem: the verdict is 'not applicable
+ *    in 3D' and connectivity is not computed (null).
  */
 import { boxStatistics, logSpaced, type BoxStatistics, type WeightedPoints } from './partition-function.js';
 import { spectrumFrom, type Spectrum } from './spectrum.js';
@@ -67,7 +82,11 @@ export interface ProbeAnalysisInput {
   count: number;
   x: ArrayLike<number>;
   y: ArrayLike<number>;
+  /** Third axis of ball centres (3D); absent for planar disks. */
+  z?: ArrayLike<number>;
   r: number | ArrayLike<number>;
+  /** 3D only: probes launched, per job, from the sphere of radius launchRadius (for the Newtonian capacity). */
+  launched?: { launchRadius: number; walkers: number[] };
   /** Total hits per disk. */
   counts: ArrayLike<number>;
   /** Hits per disk of the two halves of the probes, or null (one job). */
@@ -89,7 +108,9 @@ export interface HarmonicMeasures {
   convention: string;
   walkers: number;
   disks: number;
-  measureSource: 'disk-centres' | 'contact-points';
+  /** 2 for disks in the plane, 3 for balls. */
+  dimension: 2 | 3;
+  measureSource: 'disk-centres' | 'contact-points' | 'ball-centres';
   radius: number;
   window: { epsMin: number; epsMax: number; scales: number; relativeMin: number; relativeMax: number };
   spectrum: Spectrum;
@@ -98,8 +119,8 @@ export interface HarmonicMeasures {
   tauHalves: [number[], number[]] | null;
   /** Half the difference of the fits over the lower and upper half of the window (see the file header). */
   windowSystematic: { tau: number[]; informationDimension: number } | null;
-  /** Finite-contact-radius systematic (see the file header). */
-  resolutionSystematic: ResolutionSystematic;
+  /** Finite-contact-radius systematic (see the file header); null in 3D (not calibrated there). */
+  resolutionSystematic: ResolutionSystematic | null;
   /** Warnings for people (e.g. smallest box too close to the contact radius). */
   warnings: string[];
   converged: Array<boolean | null>;
@@ -108,15 +129,35 @@ export interface HarmonicMeasures {
     fitError: number;
     /** Half the difference of the fits over the lower and upper half of the window (null with fewer than 4 scales). */
     windowSystematic: number | null;
-    /** Contact-radius systematic of the exponent (see the file header). */
-    resolutionSystematic: number;
+    /** Contact-radius systematic of the exponent (see the file header); null in 3D. */
+    resolutionSystematic: number | null;
     beurlingBound: number;
-    /** Whether the union of contact disks is connected (Beurling's estimate needs it). */
-    connected: boolean;
+    /** Whether the union of contact disks is connected (Beurling's estimate needs it); null in 3D (not computed). */
+    connected: boolean | null;
     beurling: BeurlingVerdict;
   };
   /** jobCheck: the stated error checked against the spread of the jobs' own estimates (log-capacity.ts); null with one job. */
   capacity: (CapacityEstimate & { set: string; jobCheck: CapacityJobCheck | null }) | null;
+  /** 3D: Newtonian capacity of the union of balls and its binomial standard error (see the file header); null in 2D. */
+  newtonianCapacity: NewtonianCapacity | null;
+}
+
+export interface NewtonianCapacity {
+  capacity: number;
+  error: number;
+  walkers: number;
+  hits: number;
+  launchRadius: number;
+  set: string;
+}
+
+/** Newtonian capacity from probes launched on a sphere of radius R_L (units: a ball of radius a has capacity a). */
+export function newtonianCapacityOf(hits: number, walkers: number, launchRadius: number): NewtonianCapacity {
+  const p = hits / walkers;
+  return {
+    capacity: launchRadius * p, error: launchRadius * Math.sqrt((p * (1 - p)) / walkers),
+    walkers, hits, launchRadius, set: 'union of the contact balls',
+  };
 }
 
 function radiusAt(r: number | ArrayLike<number>, i: number): number {
@@ -125,30 +166,42 @@ function radiusAt(r: number | ArrayLike<number>, i: number): number {
 
 export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
   const n = inp.count;
-  let minX = Infinity, maxX = -Infinity, minY = Infinity, maxY = -Infinity;
+  const iz = inp.z;
+  const dimension: 2 | 3 = iz ? 3 : 2;
+  if (dimension === 3 && !inp.launched) throw new RangeError('a 3D probe analysis needs the launch radius and walkers of its jobs');
+  let minX = Infinity, maxX = -Infinity, minY = Infinity, maxY = -Infinity, minZ = 0, maxZ = 0;
   for (let i = 0; i < n; i++) {
     if (inp.x[i] < minX) minX = inp.x[i];
     if (inp.x[i] > maxX) maxX = inp.x[i];
     if (inp.y[i] < minY) minY = inp.y[i];
     if (inp.y[i] > maxY) maxY = inp.y[i];
   }
+  if (iz) {
+    minZ = Infinity;
+    maxZ = -Infinity;
+    for (let i = 0; i < n; i++) {
+      if (iz[i] < minZ) minZ = iz[i];
+      if (iz[i] > maxZ) maxZ = iz[i];
+    }
+  }
   const cx = 0.5 * (minX + maxX);
   const cy = 0.5 * (minY + maxY);
+  const cz = 0.5 * (minZ + maxZ);
   let radius = 0;
   const rs: number[] = [];
   for (let i = 0; i < n; i++) {
     const ri = radiusAt(inp.r, i);
     rs.push(ri);
-    const e = Math.hypot(inp.x[i] - cx, inp.y[i] - cy) + ri;
+    const e = (iz ? Math.hypot(inp.x[i] - cx, inp.y[i] - cy, iz[i] - cz) : Math.hypot(inp.x[i] - cx, inp.y[i] - cy)) + ri;
     if (e > radius) radius = e;
   }
   rs.sort((a, b) => a - b);
   const rMed = rs[rs.length >> 1];
-  const source: HarmonicMeasures['measureSource'] = n >= 64 ? 'disk-centres' : 'contact-points';
+  const source: HarmonicMeasures['measureSource'] = dimension === 3 ? 'ball-centres' : n >= 64 ? 'disk-centres' : 'contact-points';
   let walkers = 0;
   for (let i = 0; i < n; i++) walkers += inp.counts[i];
   const hi0 = radius / 2;
-  let lo0 = source === 'disk-centres' ? Math.max(8 * rMed, radius / 32) : radius / 64;
+  let lo0 = source === 'contact-points' ? radius / 64 : Math.max(8 * rMed, radius / 32);
   if (lo0 > hi0 / 8) lo0 = hi0 / 8;
   if (inp.relativeWindow) {
     const bad = windowProblem(inp.relativeWindow);
@@ -159,11 +212,12 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
   const eps = logSpaced(lo, hi, scales);
   const ox = cx - radius;
   const oy = cy - radius;
+  const oz = cz - radius;
 
   const measureOf = (part: 'all' | 0 | 1): WeightedPoints => {
-    if (source === 'disk-centres') {
+    if (source !== 'contact-points') {
       const w = part === 'all' ? inp.counts : (inp.halves as [ArrayLike<number>, ArrayLike<number>])[part];
-      return { count: n, x: inp.x, y: inp.y, w };
+      return { count: n, x: inp.x, y: inp.y, ...(iz ? { z: iz } : {}), w };
     }
     const m = inp.contactCount;
     const h = m >> 1;
@@ -176,7 +230,7 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
       w: null,
     };
   };
-  const stats = boxStatistics(measureOf('all'), eps, inp.q, ox, oy);
+  const stats = boxStatistics(measureOf('all'), eps, inp.q, ox, oy, oz);
   const spectrum = spectrumFrom(stats, radius);
   const ns = stats.eps.length;
   let windowSystematic: HarmonicMeasures['windowSystematic'] = null;
@@ -199,27 +253,35 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
   let tauHalves: [number[], number[]] | null = null;
   let converged: Array<boolean | null> = inp.q.map(() => null);
   if (canHalve) {
-    const a = spectrumFrom(boxStatistics(measureOf(0), eps, inp.q, ox, oy), radius).tau;
-    const b = spectrumFrom(boxStatistics(measureOf(1), eps, inp.q, ox, oy), radius).tau;
+    const a = spectrumFrom(boxStatistics(measureOf(0), eps, inp.q, ox, oy, oz), radius).tau;
+    const b = spectrumFrom(boxStatistics(measureOf(1), eps, inp.q, ox, oy, oz), radius).tau;
     tauHalves = [a, b];
     converged = inp.q.map((_, k) => Math.abs(a[k] - b[k]) <= 0.05 + 0.05 * Math.abs(spectrum.tau[k]));
   }
-  const capacity = inp.contactCount >= 4
+  const capacity = dimension === 2 && inp.contactCount >= 4
     ? {
       ...logCapacity(inp.contactX, inp.contactY, inp.contactCount), set: 'union of the contact disks',
       jobCheck: inp.contactJobSizes ? capacityJobCheck(inp.contactX, inp.contactY, inp.contactJobSizes) : null,
     }
     : null;
-  const connected = diskUnionConnected(n, inp.x, inp.y, inp.r);
-  const resolution = resolutionSystematic(stats.eps, inp.q, rMed);
+  const launchedWalkers = inp.launched ? inp.launched.walkers.reduce((a, b) => a + b, 0) : 0;
+  const newtonianCapacity = inp.launched && launchedWalkers > 0 ? newtonianCapacityOf(walkers, launchedWalkers, inp.launched.launchRadius) : null;
+  const connected = dimension === 2 ? diskUnionConnected(n, inp.x, inp.y, inp.r) : null;
+  const resolution = dimension === 2 ? resolutionSystematic(stats.eps, inp.q, rMed) : null;
   const warnings: string[] = [];
-  const warn = resolutionWarning(stats.eps, rMed);
+  const warn = dimension === 2 ? resolutionWarning(stats.eps, rMed) : null;
   if (warn) warnings.push(warn);
-  const maxResolution = resolution.maxConcentration;
+  if (dimension === 3) warnings.push('contact-radius systematic not given: it was calibrated on planar sets only');
+  const maxResolution = resolution ? resolution.maxConcentration : null;
+  const beurling: BeurlingVerdict = connected === null
+    ? 'not applicable in 3D'
+    : beurlingVerdict(spectrum.maxConcentrationExponent,
+      { fit: spectrum.maxConcentrationFitError, window: maxConcentrationWindow ?? 0, resolution: maxResolution ?? 0 }, connected);
   return {
     convention: SIGN_CONVENTION,
     walkers,
     disks: n,
+    dimension,
     measureSource: source,
     radius,
     window: { epsMin: lo, epsMax: hi, scales, relativeMin: lo / radius, relativeMax: hi / radius },
@@ -237,9 +299,9 @@ export function analyzeProbe(inp: ProbeAnalysisInput): HarmonicMeasures {
       resolutionSystematic: maxResolution,
       beurlingBound: BEURLING_BOUND,
       connected,
-      beurling: beurlingVerdict(spectrum.maxConcentrationExponent,
-        { fit: spectrum.maxConcentrationFitError, window: maxConcentrationWindow ?? 0, resolution: maxResolution }, connected),
+      beurling,
     },
     capacity,
+    newtonianCapacity,
   };
 }

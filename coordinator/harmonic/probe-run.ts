@@ -1,14 +1,16 @@
 /**
- * Embedded probing: plan the probe jobs of a set, run them in this process
+ * Embedded probing: plan the probe jobs of a set (disks in 2D or balls in
+ * 3D, worker/probe/probe-set.ts), run them in this process
  * or on a pool of T probe threads (worker/runtime/probe-thread-pool.ts; results put
  * back in job order, so the counts do not depend on T), add the counts, and
  * analyse.
  * Halves for the convergence flags: even jobs and odd jobs.
  */
 import {
-  ProbeGeometry, addProbeCounts, diskSetDigest, planProbeJobs, runProbeJob,
-  DEFAULT_PROBE_LAUNCH_MARGIN, DEFAULT_PROBE_MIN_STEP, type DiskSet, type ProbeResult, type ProbeTask,
+  addProbeCounts, planProbeJobs,
+  DEFAULT_PROBE_LAUNCH_MARGIN, DEFAULT_PROBE_MIN_STEP, type ProbeResult, type ProbeTask,
 } from '../../worker/probe/probe-2d.js';
+import { isBallSet, plainProbeSet, prepareProbe, probeSetDigest, type ProbeSet } from '../../worker/probe/probe-set.js';
 import { ProbeThreadPool } from '../../worker/runtime/probe-thread-pool.js';
 import { analyzeProbe, type HarmonicMeasures } from './probe-analysis.js';
 
@@ -35,17 +37,17 @@ export interface ProbeRun {
   seconds: number;
 }
 
-export async function runProbes(set: DiskSet, o: ProbeRunOptions): Promise<ProbeRun> {
-  const geometry = o.threads <= 1 ? new ProbeGeometry(set) : null;
-  const digest = geometry ? geometry.digest : diskSetDigest(set);
-  const tasks = planProbeJobs(digest, o.seed, o.walkers, o.jobs, o.contactSample,
+export async function runProbes(set: ProbeSet, o: ProbeRunOptions): Promise<ProbeRun> {
+  const geometry = o.threads <= 1 ? prepareProbe(set) : null;
+  const digest = geometry ? geometry.digest : probeSetDigest(set);
+  const tasks = planProbeJobs(digest, o.seed, o.walkers, o.jobs, isBallSet(set) ? 0 : o.contactSample,
     o.minStep ?? DEFAULT_PROBE_MIN_STEP, o.launchMargin ?? DEFAULT_PROBE_LAUNCH_MARGIN);
   const t0 = performance.now();
   let results: ProbeResult[];
   if (o.threads <= 1) {
-    results = tasks.map((t) => runProbeJob(geometry!, t));
+    results = tasks.map((t) => geometry!.run(t));
   } else {
-    const plain: DiskSet = { count: set.count, x: Float64Array.from(set.x), y: Float64Array.from(set.y), r: typeof set.r === 'number' ? set.r : Float64Array.from(set.r) };
+    const plain = plainProbeSet(set);
     const pool = new ProbeThreadPool(Math.min(o.threads, tasks.length));
     try {
       results = await Promise.all(tasks.map((t) => pool.run(digest, () => plain, t)));
@@ -57,16 +59,29 @@ export async function runProbes(set: DiskSet, o: ProbeRunOptions): Promise<Probe
   return { tasks, results, ...analyseResults(set, results, o.q, o.window ?? null), seconds };
 }
 
-/** Add job results and analyse them (also usable on results gathered from a queue). */
-export function analyseResults(set: DiskSet, results: ProbeResult[], q: number[], window: [number, number] | null = null): Omit<ProbeRun, 'tasks' | 'results' | 'seconds'> {
+/**
+ * Add job results and analyse them (also usable on results gathered from a
+ * queue). A ball set (3D) is analysed with its z axis and the jobs' launch
+ * radius and walkers, for the Newtonian capacity.
+ */
+export function analyseResults(set: ProbeSet, results: ProbeResult[], q: number[], window: [number, number] | null = null): Omit<ProbeRun, 'tasks' | 'results' | 'seconds'> {
   const counts = addProbeCounts(set.count, results);
   const halves: [Float64Array, Float64Array] | null = results.length >= 2
     ? [addProbeCounts(set.count, results.filter((r) => r.jobIndex % 2 === 0)), addProbeCounts(set.count, results.filter((r) => r.jobIndex % 2 === 1))]
     : null;
   const contactX = results.flatMap((r) => r.contactX);
   const contactY = results.flatMap((r) => r.contactY);
+  const ball = isBallSet(set);
+  let launched: { launchRadius: number; walkers: number[] } | undefined;
+  if (ball) {
+    const radii = results.map((r) => r.launchRadius);
+    const launchRadius = radii[0];
+    if (typeof launchRadius !== 'number' || radii.some((v) => v !== launchRadius))
+      throw new RangeError('probe results of a ball set must all carry the same launchRadius');
+    launched = { launchRadius, walkers: results.map((r) => r.walkers) };
+  }
   const measures = analyzeProbe({
-    count: set.count, x: set.x, y: set.y, r: set.r, counts, halves,
+    count: set.count, x: set.x, y: set.y, ...(ball ? { z: set.z, r: set.radius, launched } : { r: set.r }), counts, halves,
     contactX, contactY, contactCount: contactX.length, contactJobSizes: results.map((r) => r.contactX.length), q, relativeWindow: window,
   });
   return { counts, contactX, contactY, measures };

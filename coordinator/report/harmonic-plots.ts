@@ -39,7 +39,7 @@ import type { IntervalSummary } from '../stats/bca.js';
 import { buildPalette } from '../render/palette.js';
 import { emptyFigure, type Figure } from './plots.js';
 import { fmt, fmtAbscissa, fmtRange, HARMONIC_AXIS, isFiniteNumber, labelOf, levelPercent, shownInterval, valueText } from './labels.js';
-import { autoDomain, COLOURS, escapeXml, FONT_FAMILY, logTicks, Plot, svgText, type AxisSpec, type Tick } from './svg-plot.js';
+import { autoDomain, COLOURS, escapeXml, FONT_FAMILY, logTicks, niceStep, Plot, svgText, type AxisSpec, type Tick } from './svg-plot.js';
 
 /** Colours of the probed sizes, largest first. */
 const SIZE_COLOURS = [COLOURS.blue, COLOURS.vermillion, COLOURS.green, COLOURS.purple, COLOURS.orange, COLOURS.sky];
@@ -219,7 +219,8 @@ export function fAlphaFigure(h: HarmonicSection): Figure {
 
 export function capacityFigure(h: HarmonicSection): Figure {
   const file = 'harmonic-capacity';
-  const title = 'Logarithmic capacity against cluster size';
+  const d3 = h.dimension === 3;
+  const title = d3 ? 'Newtonian capacity against cluster size' : 'Logarithmic capacity against cluster size';
   const sizes = sizesLargestFirst(h).slice().reverse();
   const pts = sizes.filter((s) => isFiniteNumber(s.logCapacity?.mean));
   const g = h.capacityGrowth;
@@ -252,7 +253,9 @@ export function capacityFigure(h: HarmonicSection): Figure {
   }
   p.points(xs, ys, COLOURS.blue, `exp(mean ln cap) over the clusters at each size`, 'circle', 4);
   if (differs && gs.length) p.points(gs.map((v) => v.n), gs.map((v) => Math.exp(v.y)), COLOURS.vermillion, `fit input: clusters probed at every size (${h.clustersAtAllSizes})`, 'diamond', 3.6, true);
-  const caption = 'Logarithmic capacity of the union of contact disks (in particle diameters): exp of the ensemble mean of ln cap at each probed size (points)' +
+  const caption = (d3
+    ? 'Newtonian capacity of the union of contact balls (in particle diameters; a ball of radius a has capacity a), from the share of probes that hit: exp of the ensemble mean of ln cap at each probed size (points)'
+    : 'Logarithmic capacity of the union of contact disks (in particle diameters): exp of the ensemble mean of ln cap at each probed size (points)') +
     (withIv.length ? `, with the ${ivk.text} interval of that mean (whiskers)` : ', no intervals') + '.' +
     (fitText ? ` Dashed: the power law cap ∝ N^{β} fitted to the mean ln cap of the ${h.clustersAtAllSizes} cluster(s) probed at every size, drawn through the centroid of those points; ${fitValues}.` : ` No power-law fit: ${g?.reason ?? 'too few sizes'}.`) +
     ' Capacity scales like a length (cap(tK) = t cap(K)), so for statistically self-similar growth cap ∝ R ∝ N^{1/D} and D_{cap} = 1/β estimates the fractal dimension D.';
@@ -298,9 +301,10 @@ export function capacityIncrementFigure(h: HarmonicSection): Figure {
   }
   const hidden = rows.length - drawn.length;
   if (hidden) p.note(`${hidden} interval(s) with Δ ln cap/ΔN ≤ 0 or Z(3) ≤ 0 not drawn (log axes)`);
-  const caption = 'Mean over clusters of (ln cap(N_{k+1}) − ln cap(N_{k}))/(N_{k+1} − N_{k}) between successive probed sizes (points, labelled with the sizes) against the particle-scale growth moment Z(3) = Σ p_{i}^{3} at the interval (geometric mean of the ensemble-mean Z(3) at its two ends), on log–log axes.' +
+  const d3 = h.dimension === 3;
+  const caption = (d3 ? 'Mean over clusters of (1/C(N_{k}) − 1/C(N_{k+1}))/(N_{k+1} − N_{k}), C the Newtonian capacity (in 3D the variable whose growth is proportional to Z(3); coordinator/harmonic/harmonic-section.ts),' : 'Mean over clusters of (ln cap(N_{k+1}) − ln cap(N_{k}))/(N_{k+1} − N_{k})') + ' between successive probed sizes (points, labelled with the sizes) against the particle-scale growth moment Z(3) = Σ p_{i}^{3} at the interval (geometric mean of the ensemble-mean Z(3) at its two ends), on log–log axes.' +
     (fitText ? ` Dashed: the fitted log–log slope, ${fitText}${c.proportional === null ? '' : c.proportional ? ' (contains 1: proportional)' : ' (excludes 1: not proportional)'}.` : ` No slope: ${c.reason ?? 'too few intervals'}.`) +
-    ' Dotted grey: slope 1 through the centroid of the points, i.e. an increment proportional to Z(3); proportionality (ratio constant in N) is what makes τ(3) = D. The points carry no intervals.' +
+    ` Dotted grey: slope 1 through the centroid of the points, i.e. an increment proportional to Z(3); proportionality (ratio constant in N) is what makes ${d3 ? 'τ(3) = D + 1 in 3D' : 'τ(3) = D'}. The points carry no intervals.` +
     (hidden ? ` ${hidden} interval(s) could not be drawn on log axes.` : '');
   return { name: file, title, caption, svg: p.toSvg(), note: fitText ? null : `no capacity-increment slope: ${c.reason ?? 'too few intervals'}` };
 }
@@ -313,7 +317,13 @@ export function electrostaticFigure(h: HarmonicSection): Figure {
   const file = 'harmonic-electrostatic';
   const e = h.electrostatic;
   const judged = e?.consistent === true || e?.consistent === false;
-  const title = `Electrostatic scaling law τ(3) = D${judged ? ` at N = ${fmtAbscissa(e.size)}: ${e.consistent ? 'consistent' : 'not consistent'}` : ': τ(3) beside the mass-based D'}`;
+  // in 3D the law is tau(3) = D + 1: the rows show tau(3) - 1 beside D
+  const shift = (h.dimension ?? 2) - 2;
+  const t3 = shift ? `τ(3) − ${shift}` : 'τ(3)';
+  const law = shift ? `τ(3) = D + ${shift}` : 'τ(3) = D';
+  const sh = (v: number | null): number | null => (v === null ? null : v - shift);
+  const shr = (r: [number, number] | null): [number, number] | null => (r ? [r[0] - shift, r[1] - shift] : null);
+  const title = `Electrostatic scaling law ${law}${judged ? ` at N = ${fmtAbscissa(e.size)}: ${e.consistent ? 'consistent' : 'not consistent'}` : ': τ(3) beside the mass-based D'}`;
   const rows: Row[] = [];
   const md = e?.massDimension ?? null;
   if (md) rows.push({ label: `D from ${labelOf(md.estimator).rich}`, value: isFiniteNumber(md.value) ? md.value : null, range: md.interval ?? null, colour: COLOURS.vermillion, marker: 'square', why: !isFiniteNumber(md.value) ? 'not available' : md.interval ? null : 'no interval' });
@@ -321,13 +331,13 @@ export function electrostaticFigure(h: HarmonicSection): Figure {
   const withTau3 = sizes.filter((s) => s.tau3);
   for (const s of withTau3) {
     const main = s.size === e?.size;
-    const v = isFiniteNumber(s.tau3!.mean) ? s.tau3!.mean : null;
+    const v = sh(isFiniteNumber(s.tau3!.mean) ? s.tau3!.mean : null);
     const r = evRange(s.tau3);
-    rows.push({ label: `τ(3), N = ${fmtAbscissa(s.size)}`, value: v, range: r.range, colour: main ? COLOURS.blue : COLOURS.sky, marker: 'circle', why: v === null ? 'not available' : r.range ? null : `no interval: ${s.tau3!.interval?.notes[0] ?? s.tau3!.interval?.status ?? 'none'}` });
+    rows.push({ label: `${t3}, N = ${fmtAbscissa(s.size)}`, value: v, range: shr(r.range), colour: main ? COLOURS.blue : COLOURS.sky, marker: 'circle', why: v === null ? 'not available' : r.range ? null : `no interval: ${s.tau3!.interval?.notes[0] ?? s.tau3!.interval?.status ?? 'none'}` });
   }
   if (e?.tau3 && !withTau3.some((s) => s.size === e.size)) {
     const r = evRange(e.tau3);
-    rows.push({ label: `τ(3), N = ${fmtAbscissa(e.size)}`, value: isFiniteNumber(e.tau3.mean) ? e.tau3.mean : null, range: r.range, colour: COLOURS.blue, marker: 'circle', why: r.range ? null : 'no interval' });
+    rows.push({ label: `${t3}, N = ${fmtAbscissa(e.size)}`, value: sh(isFiniteNumber(e.tau3.mean) ? e.tau3.mean : null), range: shr(r.range), colour: COLOURS.blue, marker: 'circle', why: r.range ? null : 'no interval' });
   }
   if (rows.every((r) => r.value === null)) {
     return emptyFigure(file, title, `nothing to compare: ${withTau3.length || e?.tau3 ? '' : 'q = 3 is not on the q grid (no τ(3)); '}${md ? 'D not available' : 'no mass-based D'}`);
@@ -358,17 +368,25 @@ export function electrostaticFigure(h: HarmonicSection): Figure {
   const tk = intervalKind([...withTau3.map((s) => s.tau3), ...(e?.tau3 ? [e.tau3] : [])]);
   p.legendOnly(`τ(3): ${tk.any ? tk.text : 'no'} interval (cluster bootstrap)`, 'whisker', { colour: COLOURS.blue, width: 2.4 });
   if (md) p.legendOnly('D: interval of the analysis', 'whisker', { colour: COLOURS.vermillion, width: 2.4 });
-  const verdict = e?.consistent === null || e?.consistent === undefined ? 'not judged' : e.consistent ? 'intervals overlap: consistent with τ(3) = D' : 'intervals do not overlap: τ(3) ≠ D at this precision';
+  const verdict = e?.consistent === null || e?.consistent === undefined ? 'not judged' : e.consistent ? `intervals overlap: consistent with ${law}` : `intervals do not overlap: ${law.replace('=', '≠')} at this precision`;
   if (!e?.consistent) p.note(`N = ${fmtAbscissa(e?.size)}: ${verdict}`);
-  const caption = `τ(3) of the harmonic measure at each probed size (circles; the size compared, N = ${fmtAbscissa(e?.size)}, in dark blue) beside the mass-based fractal dimension D of the same clusters` +
+  const caption = `${t3}${shift ? ' (τ(3) of the harmonic measure minus d − 2)' : ' of the harmonic measure'} at each probed size (circles; the size compared, N = ${fmtAbscissa(e?.size)}, in dark blue) beside the mass-based fractal dimension D of the same clusters` +
     (md ? ` (from ${labelOf(md.estimator).rich}, square; its interval shaded down the rows)` : ' (not available)') +
-    `. The electrostatic scaling law says τ(3) = D (${e?.source ?? 'source not given'}). Whiskers: intervals (τ(3): BCa where available, else percentile). Verdict at N = ${fmtAbscissa(e?.size)}: ${verdict}.`;
+    `. The electrostatic scaling law says ${law} (${e?.source ?? 'source not given'}). Whiskers: intervals (τ(3): BCa where available, else percentile). Verdict at N = ${fmtAbscissa(e?.size)}: ${verdict}.`;
   return { name: file, title, caption, svg: p.toSvg(), note: null };
 }
 
 // ---------------------------------------------------------------- (f) the measure picture
 
-export interface MeasurePictureInput { runIndex: number; size: number; png: Uint8Array; /** Overrides the title (a point set that is not a run of an ensemble). */ title?: string }
+export interface MeasurePictureInput {
+  runIndex: number;
+  size: number;
+  png: Uint8Array;
+  /** Overrides the title (a point set that is not a run of an ensemble). */
+  title?: string;
+  /** Pixels of the PNG per unit length (measurePictureGeometry), and the unit's name: a scale bar is drawn when given. */
+  scale?: { pixelsPerUnit: number; unit: string };
+}
 
 /** Width and height from a PNG's IHDR chunk, or null when the bytes are not a PNG. */
 export function pngSize(png: Uint8Array): [number, number] | null {
@@ -379,7 +397,7 @@ export function pngSize(png: Uint8Array): [number, number] | null {
   return w > 0 && h > 0 ? [w, h] : null;
 }
 
-/** The picture of renderMeasurePng (coordinator/harmonic/measure-picture.ts) inside an SVG with a colour key. */
+/** The picture of renderMeasurePng (coordinator/harmonic/measure-picture.ts) inside an SVG with a colour key, and a scale bar when its scale is given. */
 export function measurePictureFigure(pic: MeasurePictureInput): Figure {
   const file = 'harmonic-measure';
   const title = pic.title ?? `Harmonic measure on cluster run ${pic.runIndex} at N = ${fmtAbscissa(pic.size)} particles`;
@@ -396,6 +414,19 @@ export function measurePictureFigure(pic: MeasurePictureInput): Figure {
   parts.push(`<rect x="0" y="0" width="${W}" height="${H.toFixed(0)}" fill="#ffffff"/>`);
   parts.push(svgText((W - img) / 2, 24, title, { size: 17, weight: 'bold' }));
   parts.push(`<image x="${x0.toFixed(2)}" y="${top}" width="${iw.toFixed(2)}" height="${ih.toFixed(2)}" href="data:image/png;base64,${b64}"/>`);
+  // scale bar, as on the sample cluster (coordinator/report/plots.ts clusterFigure)
+  let scaleText = '';
+  if (pic.scale && pic.scale.pixelsPerUnit > 0) {
+    const s = iw / dims[0]; // svg units per picture pixel
+    const extent = dims[0] / pic.scale.pixelsPerUnit; // units across the picture
+    const bar = niceStep(extent / 5, 1);
+    const barPx = bar * pic.scale.pixelsPerUnit * s;
+    const by = top + ih - 22;
+    parts.push(`<path d="M${(x0 + 20).toFixed(2)} ${by.toFixed(2)}h${barPx.toFixed(2)}" stroke="#ffffff" stroke-width="4"/>`);
+    parts.push(`<path d="M${(x0 + 20).toFixed(2)} ${(by - 6).toFixed(2)}v12M${(x0 + 20 + barPx).toFixed(2)} ${(by - 6).toFixed(2)}v12" stroke="#ffffff" stroke-width="2"/>`);
+    parts.push(svgText(x0 + 20, by - 10, `${fmtAbscissa(bar)} ${pic.scale.unit}`, { size: 15, colour: '#ffffff' }));
+    scaleText = ` The picture is ${fmtAbscissa(extent)} ${pic.scale.unit} across, the white bar ${fmtAbscissa(bar)}.`;
+  }
   // colour key: the same palette and quantile mapping as renderMeasurePng
   const lut = buildPalette(64, 0, 1);
   const ky = top + ih + 16, kw = 360, kx = (W - kw) / 2;
@@ -414,7 +445,7 @@ export function measurePictureFigure(pic: MeasurePictureInput): Figure {
   parts.push(svgText(W / 2 - 130, ky + 48, 'never hit by a probe walker', { size: 13.5 }));
   parts.push(svgText(W / 2, ky + 70, 'colour: quantile of the share of walkers whose first contact is the particle (quantiles of log ω)', { size: 13.5, anchor: 'middle', colour: '#333' }));
   parts.push('</svg>');
-  const caption = `Cluster of run ${pic.runIndex} at N = ${fmtAbscissa(pic.size)} particles, each particle coloured by its harmonic measure (the share of probe walkers from far away whose first contact is that particle) by quantiles: the particles hit at least once are ranked by their share, and equal stretches of the colour key hold equal numbers of them, from the smallest share (dark) through the median to the largest (bright), so the measure's whole range of decades shows; dark grey particles were never hit.`;
+  const caption = `Cluster of run ${pic.runIndex} at N = ${fmtAbscissa(pic.size)} particles, each particle coloured by its harmonic measure (the share of probe walkers from far away whose first contact is that particle) by quantiles: the particles hit at least once are ranked by their share, and equal stretches of the colour key hold equal numbers of them, from the smallest share (dark) through the median to the largest (bright), so the measure's whole range of decades shows; dark grey particles were never hit.${scaleText}`;
   return { name: file, title, caption, svg: parts.join('\n'), note: null };
 }
 

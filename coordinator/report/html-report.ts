@@ -48,6 +48,8 @@ export interface ReportInput {
    * coordinator/harmonic/measure-picture.ts), shown in the harmonic section.
    */
   measurePicture?: MeasurePictureInput;
+  /** Why a picture is missing (coordinator/commands/report-pictures.ts), said in the notes instead of "was not given". */
+  pictureNotes?: { sampleCluster?: string; measurePicture?: string };
   /** Page title; default from the spec name or the model kind. */
   title?: string;
   /** Ensemble id, shown in the header when given. */
@@ -200,6 +202,7 @@ function qText(v: number): string {
 /** The checks of the harmonic section as a list: τ(1), τ′(1) against Makarov, Beurling, D_cap, the increment slope, τ(3) against D. */
 function harmonicPanel(h: HarmonicSection, top: HarmonicAtSize | undefined): string {
   const items: string[] = [];
+  const d3 = h.dimension === 3;
   if (top) {
     const cr = top.convergedRange;
     items.push(cr
@@ -212,39 +215,54 @@ function harmonicPanel(h: HarmonicSection, top: HarmonicAtSize | undefined): str
       items.push(verdictItem('tau1', `${valueText('τ(1)', t1.mean, t1.interval)} at N = ${fmtAbscissa(top.size)}: 0 by the normalisation Σ μ = 1, so this checks the fit.`, r ? r[0] <= 0 && r[1] >= 0 : null, 'contains 0', 'excludes 0', 'no interval'));
     } else items.push(`<li data-check="tau1" class="na">τ(1): q = 1 is not on the q grid or τ(1) is not finite.</li>`);
     const d1 = top.informationDimension;
-    if (d1 && isFiniteNumber(d1.mean)) {
+    if (d3) {
+      items.push(`<li data-check="makarov" class="na">${richHtml(`Information dimension: ${valueText('τ′(1) = D_{1}', d1?.mean, d1?.interval)}; Makarov's theorem (exactly 1) is planar: not judged in 3D.`)}</li>`);
+    } else if (d1 && isFiniteNumber(d1.mean)) {
       const r = evRange(d1).range;
       items.push(verdictItem('makarov', `Information dimension: ${valueText('τ′(1) = D_{1}', d1.mean, d1.interval)}; Makarov (1985): exactly 1 for a connected planar set.`, r ? r[0] <= 1 && r[1] >= 1 : null, 'agrees (1 inside the interval)', 'disagrees (1 outside the interval)', 'no interval: not judged'));
     } else items.push('<li data-check="makarov" class="na">τ′(1) is not available.</li>');
     const ws = top.informationDimensionWithSystematic;
-    if (ws && top.systematic?.informationDimension !== null && top.systematic?.informationDimension !== undefined) {
+    if (!d3 && ws && top.systematic?.informationDimension !== null && top.systematic?.informationDimension !== undefined) {
       items.push(verdictItem('makarov-sys', `With the fit-window systematic (half the difference of the fits over the two halves of the ε window, ±${fmt(top.systematic.informationDimension, 3)}): τ′(1) in ${fmtRange(ws)}.`, ws[0] <= 1 && ws[1] >= 1, 'agrees with 1', 'disagrees with 1', 'not judged'));
     }
     const mc = top.maxConcentrationExponent;
-    items.push(verdictItem('beurling', `Maximum concentration (max μ(B) scales as (ε/R) to the power α_{min}): ${valueText('α_{min}', mc?.mean, mc?.interval)}; Beurling: α_{min} ≥ 1/2 for a connected set as ε → 0, which a finite window does not resolve (coordinator/harmonic/beurling-check.ts).`, top.beurlingRespected ?? null, 'respected', 'not resolved at this size', 'not judged'));
+    if (d3) items.push(`<li data-check="beurling" class="na">${richHtml(`Maximum concentration: ${valueText('α_{min}', mc?.mean, mc?.interval)}; Beurling's estimate is planar: not judged in 3D.`)}</li>`);
+    else items.push(verdictItem('beurling', `Maximum concentration (max μ(B) scales as (ε/R) to the power α_{min}): ${valueText('α_{min}', mc?.mean, mc?.interval)}; Beurling: α_{min} ≥ 1/2 for a connected set as ε → 0, which a finite window does not resolve (coordinator/harmonic/beurling-check.ts).`, top.beurlingRespected ?? null, 'respected', 'not resolved at this size', 'not judged'));
   } else items.push('<li class="na">No probed size with a q grid.</li>');
   const g = h.capacityGrowth;
   if (g && isFiniteNumber(g.exponent)) {
     const dim = isFiniteNumber(g.dimension) ? `D_{cap} = 1/β = ${fmt(g.dimension)}${g.dimensionInterval ? ` ${fmtRange(g.dimensionInterval)}` : ' (no interval)'}` : 'D_{cap} not available';
-    items.push(`<li data-check="capacity">${richHtml(`Capacity growth cap ∝ N^{β} over N = ${(g.sizes ?? []).map((n) => fmtAbscissa(n)).join(', ')}: ${valueText('β', g.exponent, g.exponentInterval)};`)} <b>${richHtml(dim)}</b>.</li>`);
+    items.push(`<li data-check="capacity">${richHtml(`${d3 ? 'Newtonian capacity' : 'Capacity'} growth cap ∝ N^{β} over N = ${(g.sizes ?? []).map((n) => fmtAbscissa(n)).join(', ')}: ${valueText('β', g.exponent, g.exponentInterval)};`)} <b>${richHtml(dim)}</b>.</li>`);
   } else items.push(`<li data-check="capacity" class="na">Capacity growth: no fit (${escapeHtml(g?.reason ?? 'not available')}).</li>`);
   const c = h.capacityIncrement;
   if (c && isFiniteNumber(c.slope)) {
-    items.push(verdictItem('increment', `Capacity increment: log–log slope of mean Δ ln cap/ΔN against Z(3), ${valueText('slope', c.slope, c.slopeInterval, 3)}; proportional means slope 1.`, c.proportional ?? null, 'proportional (1 inside the interval)', 'not proportional (1 outside the interval)', 'not judged'));
+    items.push(verdictItem('increment', `Capacity increment: log–log slope of mean ${d3 ? 'Δ(−1/C)/ΔN (C Newtonian; the 3D form)' : 'Δ ln cap/ΔN'} against Z(3), ${valueText('slope', c.slope, c.slopeInterval, 3)}; proportional means slope 1.`, c.proportional ?? null, 'proportional (1 inside the interval)', 'not proportional (1 outside the interval)', 'not judged'));
   } else items.push(`<li data-check="increment" class="na">Capacity increment: no slope (${escapeHtml(c?.reason ?? 'not available')}).</li>`);
   const e = h.electrostatic;
   if (e) {
     const md = e.massDimension;
     const est = md ? labelOf(md.estimator).rich : '';
     const dText = md ? (isFiniteNumber(md.value) ? `D from ${est} = ${fmt(md.value)}${md.interval ? ` ${fmtRange(md.interval)}` : ' (no interval)'}` : `D from ${est} not available`) : 'no mass-based D';
-    items.push(verdictItem('electrostatic', `Electrostatic scaling law τ(3) = D at N = ${fmtAbscissa(e.size)}, τ(3) from the box fit: ${valueText('τ(3)', e.tau3?.mean, e.tau3?.interval)}; ${dText} (${e.source}).`, e.consistent ?? null, 'consistent (intervals overlap)', 'inconsistent (intervals do not overlap)', 'not judged'));
+    const fromTau3 = d3 && e.dimensionFromTau3 ? `; D from τ(3) = τ(3) − 1 = ${fmt(e.dimensionFromTau3.value)}${e.dimensionFromTau3.interval ? ` ${fmtRange(e.dimensionFromTau3.interval)}` : ' (no interval)'}` : '';
+    items.push(verdictItem('electrostatic', `Electrostatic scaling law ${(e.relation ?? 'tau(3) = D').replace('tau', 'τ')} at N = ${fmtAbscissa(e.size)}, τ(3) from the box fit: ${valueText('τ(3)', e.tau3?.mean, e.tau3?.interval)}${fromTau3}; ${dText} (${e.source}).`, e.consistent ?? null, 'consistent (intervals overlap)', 'inconsistent (intervals do not overlap)', 'not judged'));
     if (e.consistentWithSystematic !== null && e.consistentWithSystematic !== undefined) {
       items.push(verdictItem('electrostatic-sys', `τ(3) with its fit-window systematic against the same D.`, e.consistentWithSystematic, 'consistent', 'inconsistent', 'not judged'));
     }
     const ps = e.particleScale;
     if (ps && isFiniteNumber(ps.ratio)) {
-      items.push(verdictItem('electrostatic-particle', `The same law at particle scale, Z(3) ∝ N^{−τ(3)/D} over N = ${ps.sizes.map((n) => fmtAbscissa(n)).join(', ')} (${ps.clusters} clusters): ${valueText('τ(3)/D', ps.ratio, ps.ratioInterval, 3)}; the law says 1.`, ps.consistent ?? null, 'consistent (1 inside the interval)', 'inconsistent (1 outside the interval)', 'not judged'));
+      const says = d3 ? (ps.expected ? `the law says 1 + 1/D, in ${fmtRange(ps.expected, 3)} from the interval of D` : 'the law says 1 + 1/D; no interval of D') : 'the law says 1';
+      items.push(verdictItem('electrostatic-particle', `The same law at particle scale, Z(3) ∝ N^{−τ(3)/D} over N = ${ps.sizes.map((n) => fmtAbscissa(n)).join(', ')} (${ps.clusters} clusters): ${valueText('τ(3)/D', ps.ratio, ps.ratioInterval, 3)}; ${says}.`, ps.consistent ?? null, d3 ? 'consistent (intervals overlap)' : 'consistent (1 inside the interval)', d3 ? 'inconsistent (intervals do not overlap)' : 'inconsistent (1 outside the interval)', 'not judged'));
     } else if (ps) items.push(`<li data-check="electrostatic-particle" class="na">Particle-scale form of τ(3) = D: not available (${escapeHtml(ps.reason ?? 'no ratio')}).</li>`);
+  }
+  const b = h.breakdownRelation;
+  if (b) {
+    const ivText = (v: { estimate: number | null; low: number | null; high: number | null }, digits = 3): string =>
+      isFiniteNumber(v.estimate) ? `${fmt(v.estimate, digits)}${isFiniteNumber(v.low) && isFiniteNumber(v.high) ? ` ${fmtRange([v.low, v.high])}` : ' (no interval)'}` : 'not available';
+    const verdict = b.verdict === 'undetermined' ? null : b.verdict === 'consistent';
+    items.push(verdictItem('breakdown', `Dielectric breakdown relation τ(η + 2) − τ(η) = D at η = ${fmt(b.eta, 3)}, particle scale, over N = ${b.sizes.map((n) => fmtAbscissa(n)).join(', ')} (${b.clusters} clusters): τ(η + 2) − τ(η) = ${ivText(b.tauDifference)}; D of the same sets = ${ivText(b.massDimension)}${b.reason ? ` (${b.reason})` : ''}. Rule: ${b.rule}. Source: ${b.source}.`, verdict, 'consistent (intervals overlap)', 'inconsistent (intervals do not overlap)', 'undetermined'));
+    const ci = b.capacityIncrement;
+    const civ = ci.verdict === 'undetermined' ? null : ci.verdict === 'proportional';
+    items.push(verdictItem('breakdown-increment', `Capacity increment at η = ${fmt(b.eta, 3)}: log–log slope of mean Δ ln cap/ΔN against Z(η + 2)/Z(η), slope = ${ivText(ci.slope)}${ci.reason ? ` (${ci.reason})` : ''}; proportional means slope 1. Rule: ${ci.rule}.`, civ, 'proportional (1 inside the interval)', 'not proportional (1 outside the interval)', 'undetermined'));
   }
   return `<ul id="harmonic-panel">${items.join('')}</ul>`;
 }
@@ -261,12 +279,13 @@ function harmonicTauTable(top: HarmonicAtSize): string {
     `<table id="harmonic-tau"><thead><tr><th>q</th><th>τ(q), interval</th><th>D<sub>q</sub> = τ(q)/(q − 1)</th><th>clusters whose probe halves agree</th><th>converged (≥ 90%)</th></tr></thead><tbody>${rows.join('')}</tbody></table>`;
 }
 
-function harmonicSizesTable(sizes: HarmonicAtSize[]): string {
+function harmonicSizesTable(sizes: HarmonicAtSize[], d3: boolean): string {
   const rows = sizes.map((s) => {
     const nc = s.converged.filter(Boolean).length;
-    return `<tr data-size="${s.size}"><td class="num">${escapeHtml(fmtAbscissa(s.size))}</td><td class="num">${s.clusters}</td><td class="num">${escapeHtml(fmtAbscissa(s.walkers))}</td>${evCell(s.informationDimension)}${evCell(s.maxConcentrationExponent)}${evCell(s.logCapacity)}${s.z3 && isFiniteNumber(s.z3.mean) ? `<td class="num">${escapeHtml(s.z3.mean.toExponential(3))}</td>` : '<td class="num na">–</td>'}${evCell(s.tau3)}<td class="num">${nc} of ${s.q.length}</td></tr>`;
+    const cap = d3 ? (s.capacity ? evCell(s.capacity) : '<td class="num na">–</td>') : evCell(s.logCapacity);
+    return `<tr data-size="${s.size}"><td class="num">${escapeHtml(fmtAbscissa(s.size))}</td><td class="num">${s.clusters}</td><td class="num">${escapeHtml(fmtAbscissa(s.walkers))}</td>${evCell(s.informationDimension)}${evCell(s.maxConcentrationExponent)}${cap}${s.z3 && isFiniteNumber(s.z3.mean) ? `<td class="num">${escapeHtml(s.z3.mean.toExponential(3))}</td>` : '<td class="num na">–</td>'}${evCell(s.tau3)}<td class="num">${nc} of ${s.q.length}</td></tr>`;
   });
-  return `<h3>By probed size</h3><table id="harmonic-sizes"><thead><tr><th>N</th><th>clusters</th><th>walkers per cluster</th><th>τ′(1)</th><th>α<sub>min</sub></th><th>mean ln cap</th><th>Z(3)</th><th>τ(3)</th><th>q converged</th></tr></thead><tbody>${rows.join('')}</tbody></table>`;
+  return `<h3>By probed size</h3><table id="harmonic-sizes"><thead><tr><th>N</th><th>clusters</th><th>${d3 ? 'probes that hit, per cluster' : 'walkers per cluster'}</th><th>τ′(1)</th><th>α<sub>min</sub></th><th>${d3 ? 'Newtonian capacity C' : 'mean ln cap'}</th><th>Z(3)</th><th>τ(3)</th><th>q converged</th></tr></thead><tbody>${rows.join('')}</tbody></table>`;
 }
 
 /** The "Harmonic measure" section: settings, checks, tables and figures. */
@@ -278,7 +297,7 @@ function harmonicSection(h: HarmonicSection, figures: Figure[], hasPng: boolean)
   out.push(`<p class="method" id="harmonic-settings">Probes: ${escapeHtml(String(pr?.walkers ?? '–'))} walkers in ${escapeHtml(String(pr?.jobs ?? '–'))} job(s) per cluster and size; sizes N = ${escapeHtml((pr?.sizes ?? []).map((n) => fmtAbscissa(n)).join(', ') || '–')}; q from ${escapeHtml(fmt(pr?.q?.length ? Math.min(...pr.q) : null, 2))} to ${escapeHtml(fmt(pr?.q?.length ? Math.max(...pr.q) : null, 2))} (${pr?.q?.length ?? 0} values); contact sample ${escapeHtml(String(pr?.contactSample ?? '–'))}; minimum step ${escapeHtml(String(pr?.minStep ?? '–'))}. Clusters probed at every size: ${h.clustersAtAllSizes}. Convention: ${escapeHtml(h.convention)}.</p>`);
   out.push('<h3>Checks</h3>', harmonicPanel(h, top));
   if (top) out.push(harmonicTauTable(top));
-  if (sizes.length) out.push(harmonicSizesTable(sizes));
+  if (sizes.length) out.push(harmonicSizesTable(sizes, h.dimension === 3));
   if (sizes.length === 1) out.push('<p class="na" id="harmonic-one-size">One size was probed: no capacity growth, no capacity increments and no other sizes in the figures.</p>');
   out.push(...figures.map((f) => figureHtml(f, hasPng)));
   return out.join('\n');
@@ -395,7 +414,7 @@ export function buildEnsembleReport(input: ReportInput): { html: string; figures
     } catch (e) {
       notes.push(`no sample cluster picture: ${(e as Error).message}`);
     }
-  } else notes.push('no sample cluster was given: no cluster picture');
+  } else notes.push(input.pictureNotes?.sampleCluster ?? 'no sample cluster was given: no cluster picture');
   const harmonic = a.harmonic ?? null;
   const harmonicFigs: Figure[] = [];
   if (harmonic) {
@@ -404,7 +423,7 @@ export function buildEnsembleReport(input: ReportInput): { html: string; figures
       const pic = measurePictureFigure(input.measurePicture);
       harmonicFigs.push(pic);
       if (!pic.note) extraPngs.push({ name: 'harmonic-measure-raster', png: Buffer.from(input.measurePicture.png) });
-    } else notes.push('no harmonic measure picture was given');
+    } else notes.push(harmonic.dimension === 3 ? 'no harmonic measure picture: it is drawn for planar clusters only' : input.pictureNotes?.measurePicture ?? 'no harmonic measure picture was given');
   } else if (input.measurePicture) notes.push('a harmonic measure picture was given but the statistics have no harmonic section: not shown');
   for (const f of [...figures, ...harmonicFigs]) if (f.note) notes.push(`figure ${f.name}: ${f.note}`);
 

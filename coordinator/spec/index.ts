@@ -194,7 +194,12 @@ export function formatOf(fileName: string): 'toml' | 'json' {
 }
 
 /** Validate a parsed document and fill in defaults; throws SpecError listing every problem. */
-export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv()): EnsembleSpec {
+/**
+ * `stored`: the document is one specToDocument wrote for a spec validated at
+ * launch (the store's copy); the JSON-schema pass is skipped (it loads and
+ * compiles ajv), the checks and defaults below still apply.
+ */
+export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv(), opts: { stored?: boolean } = {}): EnsembleSpec {
   // nesting first: quoting or checking a document nested 10^5 deep would overflow the stack
   const tooDeep = nestingProblem(doc, 'spec');
   if (tooDeep !== null) throw new SpecError([tooDeep]);
@@ -202,7 +207,7 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
     throw new SpecError([`spec: ${excerpt(doc, 60)} is not allowed; allowed: a table (object) of fields`]);
   }
   const d = doc as Record<string, any>;
-  const schemaProblems = specDocumentProblems(doc);
+  const schemaProblems = opts.stored ? [] : specDocumentProblems(doc);
   if (schemaProblems.length > 0) {
     // every problem in one round: the schema's, and a missing cluster count (which the schema cannot require, as [target] may stand in for it)
     // (unless the list is already cut at MAX_LISTED_PROBLEMS: the rest comes in the next round)
@@ -291,6 +296,8 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
   }
   const noProbe = pr ? probeProblem(modelDescriptor(d.model)) : null;
   if (noProbe !== null) problems.push(noProbe);
+  const noContact = pr ? contactSampleProblem(modelDescriptor(d.model), pr.contact_sample) : null;
+  if (noContact !== null) problems.push(noContact);
   if (problems.length > 0) throw new SpecError(problems);
 
   const analysis: AnalysisSettings = {};
@@ -320,6 +327,8 @@ export function validateSpec(doc: unknown, limits: SpecLimits = limitsFromEnv())
     probe: pr
       ? {
           ...probeSettingsOf(pr as ProbeSettingsDocument),
+          // 3D probes keep no contact points (contactSampleProblem)
+          ...(modelDescriptor(d.model).probe === 'balls-3d' ? { contactSample: 0 } : {}),
           atSizes: [...(pr.at_sizes ?? [])].sort((a: number, b: number) => a - b),
         }
       : null,
@@ -342,6 +351,12 @@ export function probeProblem(d: ModelDescriptor, models: readonly ModelDescripto
   if (d.probe !== null) return null;
   const probed = models.filter((m) => m.probe !== null).map((m) => m.kind);
   return `probe: ${d.kind} has no harmonic-measure probe; allowed: a spec without [probe] for this model (probes apply to ${probed.join(', ') || 'no model'})`;
+}
+
+/** The one line refusing probe.contact_sample for a model probed in 3D (no contact points are kept there), or null. */
+export function contactSampleProblem(d: ModelDescriptor, contactSample: unknown): string | null {
+  if (d.probe !== 'balls-3d' || contactSample === undefined) return null;
+  return `probe.contact_sample: ${quoteValue(contactSample)} is not used by ${d.kind}; allowed: no contact_sample (3D probes keep no contact points: the Newtonian capacity comes from the share of probes that hit)`;
 }
 
 /** Parse and validate in one go. */
@@ -394,7 +409,7 @@ export function specToDocument(s: EnsembleSpec): Record<string, unknown> {
             walkers: s.probe.walkers,
             jobs: s.probe.jobs,
             q: [...s.probe.q],
-            contact_sample: s.probe.contactSample,
+            ...(modelDescriptor(s.model.kind).probe === 'balls-3d' ? {} : { contact_sample: s.probe.contactSample }),
             min_step: s.probe.minStep,
             ...(s.probe.atSizes.length > 0 ? { at_sizes: [...s.probe.atSizes] } : {}),
             ...(s.probe.window ? { window: [...s.probe.window] } : {}),

@@ -6,11 +6,24 @@
  * probe settings all check their documents with compileChecker, so one
  * schema gives the same words on the CLI and over HTTP.
  */
-import { Ajv, type ErrorObject } from 'ajv';
+import { createRequire } from 'node:module';
+import type { Ajv as AjvInstance, ErrorObject } from 'ajv';
 import { excerpt, fieldKey, MAX_LISTED_PROBLEMS } from './document-limits.js';
 
-/** The shared Ajv instance (strict: a schema with an unknown keyword is a programming error). */
-export const ajv = new Ajv({ allErrors: true, strict: true, strictTypes: false });
+let shared: AjvInstance | null = null;
+/**
+ * The shared Ajv instance (strict: a schema with an unknown keyword is a
+ * programming error), loaded on the first check: loading ajv and compiling
+ * the spec schema cost about 0.2 s, which commands that only read stored
+ * (already validated) specs, such as `tendril summary`, need not pay.
+ */
+function ajv(): AjvInstance {
+  if (shared === null) {
+    const { Ajv } = createRequire(import.meta.url)('ajv') as typeof import('ajv');
+    shared = new Ajv({ allErrors: true, strict: true, strictTypes: false });
+  }
+  return shared;
+}
 
 /** The problems of a document against a schema, one line each (empty when it is valid). */
 export type Checker = (doc: unknown) => string[];
@@ -21,8 +34,10 @@ export type Checker = (doc: unknown) => string[];
  * the model registry) by its own lines.
  */
 export function compileChecker(schema: object, override?: { path: string; problems: (doc: unknown) => string[] }): Checker {
-  const validate = ajv.compile(schema);
+  let compiled: ReturnType<AjvInstance['compile']> | null = null;
   return (doc) => {
+    compiled ??= ajv().compile(schema);
+    const validate = compiled;
     if (validate(doc)) return [];
     const errors = validate.errors ?? [];
     if (!override) return problemsOf(schema, errors, doc);

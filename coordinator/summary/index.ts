@@ -31,6 +31,7 @@ import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
 import { harmonicSection } from '../harmonic/harmonic-section.js';
 import type { HarmonicSection } from '../harmonic/harmonic-section-types.js';
 import { probeSizesOf } from '../spec/index.js';
+import { modelDescriptor } from '../../worker/models/registry.js';
 import { observableSection } from '../stats/observable-bands.js';
 
 export { analysisOptionsOf, judgeBatch, newAdaptiveHistory, safeAnalysis, type AdaptiveBatch, type AdaptiveHistory, type AdaptiveOutcome } from './adaptive.js';
@@ -165,7 +166,8 @@ export function buildSummary(input: SummaryInput, opts: SummaryOptions = default
 /**
  * The harmonic section of a probed ensemble: the records of the runs in the
  * summary (one per (run, size), first wins), with the mass-based D from the
- * R_g estimator of the same analysis for the τ(3) = D check.
+ * R_g estimator of the same analysis for the τ(3) = D check (τ(3) = D + 1
+ * for 3D models; harmonic-section.ts).
  */
 function harmonicOf(input: SummaryInput, runs: RunResultData[], statistics: unknown): HarmonicSection {
   const p = input.spec.probe!;
@@ -184,6 +186,7 @@ function harmonicOf(input: SummaryInput, runs: RunResultData[], statistics: unkn
   const section = harmonicSection(records, {
     probe: { walkers: p.walkers, jobs: p.jobs, q: [...p.q], sizes: probeSizesOf(input.spec), contactSample: p.contactSample, minStep: p.minStep },
     massDimension: rg ? { estimator: 'radiusOfGyration', value: rg.D ?? null, interval: iv?.bca ?? iv?.percentile ?? null } : null,
+    dimension: modelDescriptor(input.spec.model.kind).dimension,
     seed: input.spec.seed,
     resamples: input.spec.analysis.resamples,
     level: input.spec.analysis.level,

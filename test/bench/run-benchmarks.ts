@@ -21,6 +21,11 @@
  *              10^6 and 10^7, off-lattice at 10^5 and 10^6): particles/s, peak RSS
  *   lattice    test/bench/lattice-bench.ts: square-lattice DLA at 10^5 and 10^6,
  *              triangular at 10^5: particles/s, moves per particle, peak RSS
+ *   dbm        test/bench/dbm-bench.ts: off-lattice DBM at η = 0.5, 2 (to 10^5)
+ *              and 4 (to 10^4): particles/s and walkers per particle against N,
+ *              within --dbm-seconds per η (default 600)
+ *   dbm-cap    test/bench/dbm-cap-bench.ts: total variation between the capped
+ *              η < 1 growth law and the exact one on a 2000-disk cluster, per cap
  */
 import { runGrowthBenchmark, sizesFromArgs } from './growth-bench.js';
 import { runAggregateBenchmark } from './aggregate-bench.js';
@@ -28,8 +33,10 @@ import { runFarmBenchmark } from './farm-bench.js';
 import { runProbeBenchmark } from './probe-bench.js';
 import { runProbeScalingBenchmark } from './probe-scaling-bench.js';
 import { runLatticeBenchmark } from './lattice-bench.js';
+import { runDbmBenchmark } from './dbm-bench.js';
+import { runDbmCapBenchmark } from './dbm-cap-bench.js';
 
-const PARTS = ['growth', 'dla3d', 'aggregate', 'probe', 'probe-scaling', 'farm', 'eden', 'lattice'] as const;
+const PARTS = ['growth', 'dla3d', 'aggregate', 'probe', 'probe-scaling', 'farm', 'eden', 'lattice', 'dbm', 'dbm-cap'] as const;
 /** Default sizes of the dla3d part. */
 const DLA3D_SIZES = [100_000, 1_000_000];
 type Part = (typeof PARTS)[number];
@@ -63,6 +70,13 @@ async function main(argv: string[]): Promise<number> {
       }
       else if (part === 'eden' || part === 'lattice') await runLatticeBenchmark(part, argv.some((a) => a === '--sizes' || a.startsWith('--sizes=')) ? sizesFromArgs(argv) : undefined);
       else if (part === 'aggregate') runAggregate();
+      else if (part === 'dbm-cap') runDbmCapBenchmark();
+      else if (part === 'dbm') {
+        const k = argv.findIndex((a) => a === '--dbm-seconds');
+        const budget = k >= 0 ? Number(argv[k + 1]) : 600;
+        if (!(budget > 0)) throw new RangeError(`--dbm-seconds must be a positive number of seconds, got "${argv[k + 1]}"`);
+        runDbmBenchmark(budget);
+      }
       else if (part === 'probe') {
         const r = runProbeBenchmark(1_000_000, 1_000_000);
         process.stdout.write(`probe: ${r.walkers} walkers on ${r.particles} particles: ${Math.round(r.walkersPerSecond)} walkers/s\n`);

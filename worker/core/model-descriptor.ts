@@ -68,9 +68,12 @@ export interface ModelReference {
 /**
  * How a cluster of this model is probed for its harmonic measure:
  * 'disks-2d' = walkers from infinity onto disks of one particle diameter
- * about the centres (worker/probe/probe-2d.ts).
+ * about the centres (worker/probe/probe-2d.ts); 'balls-3d' = the same in 3D
+ * onto balls of one particle diameter, with the Newtonian capacity from the
+ * hit rate and no contact sample (worker/probe/probe-3d.ts). Both run through
+ * worker/probe/probe-set.ts.
  */
-export type ProbeKind = 'disks-2d';
+export type ProbeKind = 'disks-2d' | 'balls-3d';
 /**
  * How a cluster of this model is drawn: 'disks' = every particle as a disk
  * of its diameter coloured by arrival order (coordinator/render/cluster-picture.ts;

@@ -16,6 +16,7 @@ import { edenOffLattice2d } from './eden-offlattice-2d/descriptor.js';
 import { dlaSquare } from './dla-square/descriptor.js';
 import { dlaTriangular } from './dla-triangular/descriptor.js';
 import { dlaOffLattice3d } from './dla-offlattice-3d/descriptor.js';
+import { dbmOffLattice2d } from './dbm-offlattice-2d/descriptor.js';
 
 export const MODELS: readonly ModelDescriptor[] = [
   dlaOffLattice2d,
@@ -25,6 +26,7 @@ export const MODELS: readonly ModelDescriptor[] = [
   dlaSquare,
   dlaTriangular,
   dlaOffLattice3d,
+  dbmOffLattice2d,
 ];
 
 export const MODEL_KINDS: readonly string[] = MODELS.map((m) => m.kind);

@@ -121,6 +121,12 @@ export interface ProbeResult {
   contactId: number[];
   /** shortSteps counts final-approach steps: lens steps and straight steps. */
   counters: { jumps: number; shortSteps: number; returns: number };
+  /**
+   * Ball sets only (worker/probe/probe-3d.ts): radius of the launch sphere in
+   * the set's units. In 3D a probe may escape, so Σ hits ≤ walkers, and
+   * launchRadius · Σ hits / walkers is the Newtonian capacity.
+   */
+  launchRadius?: number;
 }
 
 /** A planar set of disks, in original coordinates. */

@@ -36,6 +36,13 @@
  *
  * Jobs and determinism: job j draws from Random.forRun(seed, j, STREAM_PROBE)
  * and is a function of (set, task) only; hit counts of jobs add up.
+ *
+ * Two job forms run the same walk (same draws, same hits): runProbe3dJob
+ * (Probe3dTask, dense hits; `tendril probe` on a snapshot) and
+ * runBallProbeJob (the queueable ProbeTask/ProbeResult of
+ * worker/probe/probe-2d.ts, with the set's digest and the launch radius for
+ * the capacity; ensemble probing in specs, embedded and farm). No contact
+ * points are kept in 3D (contactSample must be 0).
  */
 
 import { OccupancyIndex3d } from '../index/occupancy-index-3d.js';
@@ -43,6 +50,8 @@ import { returnToSphere, returned3 } from '../walkers/poisson-return-3d.js';
 import { Random, STREAM_PROBE, parseSeed } from '../core/random.js';
 import { direction3, sampleDirection3d } from '../walkers/uniform-direction-3d.js';
 import { firstContact3d } from '../walkers/segment-contact-3d.js';
+import { ENGINE_VERSION } from '../core/engine-version.js';
+import { checkProbeTask, type ProbeResult, type ProbeTask } from './probe-2d.js';
 
 /** Default straight-step length near contact, in units of the ball radius. */
 export const DEFAULT_PROBE3D_MIN_STEP = 0.02;
@@ -88,6 +97,8 @@ export class ProbeGeometry3d {
   /** R_ext in scaled units: max |p_i| + 1 about the bounding-box centre. */
   readonly extent: number;
   readonly index: OccupancyIndex3d;
+  /** ballSetDigest of the set as given. */
+  readonly digest: string;
 
   constructor(set: BallSet) {
     const n = set.count;
@@ -118,7 +129,31 @@ export class ProbeGeometry3d {
       if (r > ext) ext = r;
     }
     this.extent = ext + 1;
+    this.digest = ballSetDigest(set);
   }
+}
+
+/**
+ * Digest of a ball set: "n-b" + FNV-1a (32 bit) over the float64 words of
+ * x, y, z of every ball in order, then the radius. The "b" keeps a ball set's
+ * digest apart from a disk set's (worker/probe/probe-2d.ts diskSetDigest).
+ */
+export function ballSetDigest(set: BallSet): string {
+  let h = 0x811c9dc5;
+  const word = new Float64Array(1);
+  const words = new Uint32Array(word.buffer);
+  const mixIn = (v: number): void => {
+    word[0] = v;
+    h = Math.imul(h ^ words[0], 0x01000193);
+    h = Math.imul(h ^ words[1], 0x01000193);
+  };
+  for (let i = 0; i < set.count; i++) {
+    mixIn(set.x[i]);
+    mixIn(set.y[i]);
+    mixIn(set.z[i]);
+  }
+  mixIn(set.radius);
+  return `${set.count}-b${(h >>> 0).toString(16).padStart(8, '0')}`;
 }
 
 export function checkProbe3dTask(t: Probe3dTask): void {
@@ -129,19 +164,25 @@ export function checkProbe3dTask(t: Probe3dTask): void {
   if (!(t.launchMargin >= 0 && Number.isFinite(t.launchMargin))) throw new RangeError(`launch_margin: ${t.launchMargin} is out of range; allowed: a finite number >= 0`);
 }
 
-/** Run one probe job on the geometry. */
-export function runProbe3dJob(g: ProbeGeometry3d, task: Probe3dTask): Probe3dResult {
-  checkProbe3dTask(task);
-  const rng = Random.forRun(task.seed, task.jobIndex, STREAM_PROBE);
+/** Counts of one walk of many probes (see walkProbes). */
+interface WalkCounts {
+  hitTotal: number;
+  jumps: number;
+  shortSteps: number;
+  returns: number;
+}
+
+/** The walk of `walkers` probes from the launch sphere; adds each hit to hits[ball]. */
+function walkProbes(g: ProbeGeometry3d, rng: Random, walkers: number, minStep: number, launchMargin: number, hits: Float64Array): WalkCounts {
   const index = g.index;
-  const hits = new Float64Array(g.count);
-  const minStep = task.minStep;
   const ext = g.extent;
-  const launch = ext + task.launchMargin;
+  const launch = ext + launchMargin;
   const launch2 = launch * launch;
   let hitTotal = 0;
   let jumps = 0;
-  for (let w = 0; w < task.walkers; w++) {
+  let shortSteps = 0;
+  let returns = 0;
+  for (let w = 0; w < walkers; w++) {
     sampleDirection3d(rng);
     let wx = launch * direction3.x;
     let wy = launch * direction3.y;
@@ -150,6 +191,7 @@ export function runProbe3dJob(g: ProbeGeometry3d, task: Probe3dTask): Probe3dRes
       let r2 = wx * wx + wy * wy + wz * wz;
       if (r2 > launch2) {
         if (!returnToSphere(wx, wy, wz, launch, rng)) break; // escaped: a miss
+        returns++;
         wx = returned3.x;
         wy = returned3.y;
         wz = returned3.z;
@@ -170,6 +212,7 @@ export function runProbe3dJob(g: ProbeGeometry3d, task: Probe3dTask): Probe3dRes
         jumps++;
         continue;
       }
+      shortSteps++;
       const j = firstContact3d(index.nearX, index.nearY, index.nearZ, index.nearCount, wx, wy, wz, ux, uy, uz, minStep, 1);
       if (j >= 0) {
         hits[index.nearId[j]]++;
@@ -181,7 +224,49 @@ export function runProbe3dJob(g: ProbeGeometry3d, task: Probe3dTask): Probe3dRes
       wz += minStep * uz;
     }
   }
-  return { walkers: task.walkers, hits, hitTotal, launchRadius: launch * g.radius, jumps };
+  return { hitTotal, jumps, shortSteps, returns };
+}
+
+/** Run one probe job on the geometry. */
+export function runProbe3dJob(g: ProbeGeometry3d, task: Probe3dTask): Probe3dResult {
+  checkProbe3dTask(task);
+  const rng = Random.forRun(task.seed, task.jobIndex, STREAM_PROBE);
+  const hits = new Float64Array(g.count);
+  const c = walkProbes(g, rng, task.walkers, task.minStep, task.launchMargin, hits);
+  return { walkers: task.walkers, hits, hitTotal: c.hitTotal, launchRadius: (g.extent + task.launchMargin) * g.radius, jumps: c.jumps };
+}
+
+/**
+ * One queueable probe job (ProbeTask → ProbeResult, the form of
+ * worker/probe/probe-2d.ts) on a ball set: the same walk and draws as
+ * runProbe3dJob; hits sparse; launchRadius (original units) set, so that
+ * the Newtonian capacity is launchRadius · (Σ hits)/walkers. Refuses a task
+ * planned for another set (digest) and a contact sample (none in 3D).
+ */
+export function runBallProbeJob(g: ProbeGeometry3d, task: ProbeTask): ProbeResult {
+  checkProbeTask(task);
+  if (task.contactSample !== 0) throw new RangeError(`contactSample must be 0 for a ball set (no contact points are kept in 3D), got ${task.contactSample}`);
+  if (task.geometryDigest !== g.digest) throw new RangeError(`geometryDigest must match the ball set (${g.digest}), got "${task.geometryDigest}"`);
+  const rng = Random.forRun(task.seed, task.jobIndex, STREAM_PROBE);
+  const counts = new Float64Array(g.count);
+  const c = walkProbes(g, rng, task.walkers, task.minStep, task.launchMargin, counts);
+  const hitIds: number[] = [];
+  const hitCounts: number[] = [];
+  for (let i = 0; i < counts.length; i++) if (counts[i] > 0) { hitIds.push(i); hitCounts.push(counts[i]); }
+  return {
+    engineVersion: ENGINE_VERSION,
+    seed: task.seed,
+    jobIndex: task.jobIndex,
+    walkers: task.walkers,
+    geometryDigest: task.geometryDigest,
+    hitIds,
+    hitCounts,
+    contactX: [],
+    contactY: [],
+    contactId: [],
+    counters: { jumps: c.jumps, shortSteps: c.shortSteps, returns: c.returns },
+    launchRadius: (g.extent + task.launchMargin) * g.radius,
+  };
 }
 
 /** Newtonian capacity from probe counts (units: a ball of radius a has capacity a), with its binomial standard error. */

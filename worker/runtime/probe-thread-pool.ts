@@ -9,7 +9,8 @@
 import { Worker } from 'node:worker_threads';
 import { compiledWorkerEntry } from './thread-entry.js';
 import { ThreadSlots, type ThreadSlot } from './thread-slots.js';
-import type { DiskSet, ProbeResult, ProbeTask } from '../probe/probe-2d.js';
+import type { ProbeResult, ProbeTask } from '../probe/probe-2d.js';
+import type { ProbeSet } from '../probe/probe-set.js';
 import type { FromProbeThread, ToProbeThread } from './probe-thread.js';
 import { messageOf, TendrilError } from '../../proto/errors.js';
 
@@ -63,10 +64,10 @@ export class ProbeThreadPool {
    * `signal` aborts, the thread is terminated at once (a probe job keeps no
    * state worth saving) and the call rejects with ProbeJobCancelled.
    */
-  async run(key: string, load: () => DiskSet | Promise<DiskSet>, task: ProbeTask, signal?: AbortSignal): Promise<ProbeResult> {
+  async run(key: string, load: () => ProbeSet | Promise<ProbeSet>, task: ProbeTask, signal?: AbortSignal): Promise<ProbeResult> {
     if (signal?.aborted) throw new ProbeJobCancelled('probe job cancelled');
     const slot = await this.acquire(key);
-    let set: DiskSet | undefined;
+    let set: ProbeSet | undefined;
     try {
       if (slot.key !== key) set = await load();
     } catch (err) {

@@ -1,6 +1,6 @@
 /**
  * Worker-thread body for probing: a long-lived thread that keeps the last
- * prepared geometry (ProbeGeometry) and runs probe jobs on it, so that the
+ * prepared set (disks in 2D or balls in 3D, worker/probe/probe-set.ts) and runs probe jobs on it, so that the
  * many jobs of one large set pay for the geometry once per thread.
  *
  * Messages:
@@ -10,10 +10,11 @@
  *                   refused: the job or its set is invalid (a RangeError), so a retry cannot succeed
  */
 import { parentPort, workerData } from 'node:worker_threads';
-import { ProbeGeometry, runProbeJob, type DiskSet, type ProbeResult, type ProbeTask } from '../probe/probe-2d.js';
+import type { ProbeResult, ProbeTask } from '../probe/probe-2d.js';
+import { prepareProbe, type PreparedProbe, type ProbeSet } from '../probe/probe-set.js';
 import { messageOf } from '../../proto/errors.js';
 
-export type ToProbeThread = { type: 'probe'; id: number; key: string; set?: DiskSet; task: ProbeTask };
+export type ToProbeThread = { type: 'probe'; id: number; key: string; set?: ProbeSet; task: ProbeTask };
 export type FromProbeThread = { type: 'done'; id: number; result: ProbeResult } | { type: 'failed'; id: number; message: string; refused: boolean };
 
 /** workerData of probe threads (set by probe-thread-pool.ts): another thread importing this file is left alone. */
@@ -22,17 +23,17 @@ export const PROBE_THREAD_ROLE = 'tendril-probe';
 if (parentPort && (workerData as { role?: string } | null)?.role === PROBE_THREAD_ROLE) {
   const port = parentPort;
   let heldKey: string | null = null;
-  let held: ProbeGeometry | null = null;
+  let held: PreparedProbe | null = null;
   port.on('message', (m: ToProbeThread) => {
     try {
       if (m.set) {
         held = null;
         heldKey = null;
-        held = new ProbeGeometry(m.set);
+        held = prepareProbe(m.set);
         heldKey = m.key;
       }
       if (held === null || heldKey !== m.key) throw new Error(`probe thread holds no geometry for "${m.key}"`);
-      const result = runProbeJob(held, m.task);
+      const result = held.run(m.task);
       port.postMessage({ type: 'done', id: m.id, result } satisfies FromProbeThread);
     } catch (err) {
       port.postMessage({ type: 'failed', id: m.id, message: messageOf(err), refused: err instanceof RangeError } satisfies FromProbeThread);

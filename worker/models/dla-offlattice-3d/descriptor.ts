@@ -40,8 +40,7 @@ export const dlaOffLattice3d: ModelDescriptor = {
   ],
   workCounter: 'jumps',
   observables: [],
-  // ensemble probing in specs is planar; 3D snapshots are probed by `tendril probe` (worker/probe/probe-3d.ts)
-  probe: null,
+  probe: 'balls-3d',
   picture: 'spheres-3d',
   contactDistance: 1,
   reference: {

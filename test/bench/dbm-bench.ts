@@ -1,0 +1,81 @@
+/**
+ * Benchmark of the off-lattice DBM (dbm-offlattice-2d): for η = 0.5, 2 and 4
+ * one cluster (seed 1, run 0, default parameters otherwise) grown in chunks,
+ * printing at N = 10^3, 2·10^3, 5·10^3, 10^4, … up to the target size
+ * (10^5 for η <= 2, 10^4 for η = 4: the targets of issue 13) the time so far,
+ * particles per second and walkers per particle over the last stretch. A
+ * cluster that has not reached its target when its time budget runs out
+ * stops there and says so (budget: --dbm-seconds, default 600 s per η,
+ * the target's ten minutes). One line for people and one JSON line per
+ * reported size. The budget is read between chunks of 10 particles.
+ */
+import { createKernel, modelParams } from '../../worker/models/registry.js';
+import { ENGINE_VERSION } from '../../worker/core/engine-version.js';
+
+export interface DbmBenchRow {
+  bench: 'dbm';
+  engineVersion: string;
+  eta: number;
+  particles: number;
+  /** Seconds since the cluster started. */
+  seconds: number;
+  /** Particles per second over the stretch since the previous row. */
+  particlesPerSecond: number;
+  /** Walkers per added particle over that stretch, and since the start. */
+  walkersPerParticle: number;
+  walkersPerParticleTotal: number;
+  targetParticles: number;
+  reachedTarget: boolean;
+  budgetSeconds: number;
+  nodeVersion: string;
+}
+
+export const DBM_BENCH_PLAN: Array<{ eta: number; target: number }> = [
+  { eta: 0.5, target: 100_000 },
+  { eta: 2, target: 100_000 },
+  { eta: 4, target: 10_000 },
+];
+
+function reportSizes(target: number): number[] {
+  const out: number[] = [];
+  for (let d = 1000; d <= target; d *= 10) for (const m of [1, 2, 5]) if (m * d <= target) out.push(m * d);
+  if (out.at(-1) !== target) out.push(target);
+  return out;
+}
+
+export function runDbmBenchmark(budgetSeconds = 600, plan = DBM_BENCH_PLAN): DbmBenchRow[] {
+  const rows: DbmBenchRow[] = [];
+  for (const { eta, target } of plan) {
+    const kernel = createKernel({ model: modelParams('dbm-offlattice-2d', { eta }), particles: target, ensembleSeed: '1', runIndex: 0, recordsPerDecade: 10 });
+    const t0 = performance.now();
+    let lastT = t0;
+    let lastN = 1;
+    let lastWalkers = 0;
+    let outOfTime = false;
+    for (const size of reportSizes(target)) {
+      while (kernel.count < size) {
+        kernel.growTo(Math.min(size, kernel.count + 10));
+        if ((performance.now() - t0) / 1000 > budgetSeconds) { outOfTime = true; break; }
+      }
+      const now = performance.now();
+      const n = kernel.count;
+      const walkers = kernel.counters.walkers;
+      const row: DbmBenchRow = {
+        bench: 'dbm', engineVersion: ENGINE_VERSION, eta, particles: n,
+        seconds: (now - t0) / 1000,
+        particlesPerSecond: (n - lastN) / ((now - lastT) / 1000),
+        walkersPerParticle: (walkers - lastWalkers) / Math.max(1, n - lastN),
+        walkersPerParticleTotal: walkers / Math.max(1, n - 1),
+        targetParticles: target, reachedTarget: n >= target, budgetSeconds, nodeVersion: process.version,
+      };
+      rows.push(row);
+      process.stdout.write(`dbm eta=${eta}: N = ${n} after ${row.seconds.toFixed(1)} s, ${row.particlesPerSecond.toFixed(1)} particles/s, ${row.walkersPerParticle.toFixed(1)} walkers/particle over the last stretch${outOfTime ? ` (stopped: budget of ${budgetSeconds} s spent before N = ${size}; target ${target} not reached)` : ''}\n`);
+      process.stdout.write(JSON.stringify(row) + '\n');
+      lastT = now;
+      lastN = n;
+      lastWalkers = walkers;
+      if (outOfTime) break;
+    }
+  }
+  return rows;
+}

@@ -1,0 +1,121 @@
+/**
+ * Off-lattice DBM(η) in the plane (worker/models/dbm-offlattice-2d/kernel.ts):
+ *  - η = 1 is tendril's off-lattice DLA: the same walk, the same random
+ *    draws, so the same state hashes (exact, by the definition);
+ *  (the statistical checks of the growth rule are in
+ *  test/dbm-offlattice-statistics.slow.test.ts);
+ *  - geometry invariants, determinism under chunking, resume from
+ *    checkpoints and after a stop, one-line refusal of η outside [0, 6].
+ */
+import { describe, expect, it } from 'vitest';
+import type { GrowthTask } from '../worker/core/growth-kernel.js';
+import { createStopSignal, raiseStop } from '../worker/core/stop-signal.js';
+import { checkModelParams, createKernel, modelParams } from '../worker/models/registry.js';
+import { runEmbedded } from '../coordinator/embedded/index.js';
+import { validateSpec } from '../coordinator/spec/index.js';
+import { harmonicOfSummary } from '../coordinator/summary/index.js';
+
+function task(params: Record<string, number>, particles: number, runIndex = 0, seed = '20261203'): GrowthTask {
+  return { model: modelParams('dbm-offlattice-2d', params), particles, ensembleSeed: seed, runIndex, recordsPerDecade: 10 };
+}
+
+describe('dbm-offlattice-2d at η = 1 is off-lattice DLA', () => {
+  it('gives the state hashes of dla-offlattice-2d for the same task (exact: the same walk and draws)', () => {
+    for (const runIndex of [0, 1, 2]) {
+      const dbm = createKernel(task({ eta: 1 }, 500, runIndex));
+      dbm.growTo(500);
+      const dla = createKernel({ ...task({}, 500, runIndex), model: modelParams('dla-offlattice-2d') });
+      dla.growTo(500);
+      expect(dbm.result().stateHash).toBe(dla.result().stateHash);
+      expect(dbm.result().counters.walkers).toBe(499);
+    }
+  });
+});
+
+describe('geometry, determinism, resume, refusals', () => {
+  for (const eta of [0, 0.5, 2, 2.5]) {
+    it(`at η = ${eta} every new disk touches an earlier one and overlaps none`, () => {
+      const n = 200;
+      const k = createKernel(task({ eta, recurrence_cap: 128 }, n, 4));
+      k.growTo(n);
+      const xy = k.positions().coords;
+      for (let i = 1; i < n; i++) {
+        let nearest = Infinity;
+        for (let j = 0; j < i; j++) nearest = Math.min(nearest, Math.hypot(xy[2 * i] - xy[2 * j], xy[2 * i + 1] - xy[2 * j + 1]));
+        expect(Math.abs(nearest - 1)).toBeLessThan(1e-9);
+      }
+    }, 60_000);
+  }
+
+  for (const eta of [0.5, 2.5]) {
+    it(`at η = ${eta} chunks, checkpoints and an interrupted particle all give the uninterrupted final state`, () => {
+      const n = 120;
+      const t = task({ eta, recurrence_cap: 64 }, n, 9);
+      const whole = createKernel(t);
+      whole.growTo(n);
+      const want = whole.result();
+
+      const chunked = createKernel(t);
+      for (let m = 7; m < n; m += 13) {
+        chunked.growTo(m);
+        const resumed = createKernel(t, structuredClone(chunked.checkpoint()));
+        expect(resumed.count).toBe(chunked.count);
+      }
+      chunked.growTo(n);
+      expect(chunked.result().stateHash).toBe(want.stateHash);
+      expect(chunked.result().counters).toEqual(want.counters);
+
+      // a raised stop abandons the particle in progress and leaves the state
+      // of the last whole particle; continuing gives the same end
+      const stopped = createKernel(t);
+      stopped.growTo(40);
+      const before = stopped.checkpoint();
+      const signal = createStopSignal();
+      raiseStop(signal);
+      stopped.growTo(n, signal);
+      const resumed = createKernel(t, stopped.checkpoint());
+      expect(resumed.count).toBeGreaterThanOrEqual(before.count);
+      resumed.growTo(n);
+      expect(resumed.result().stateHash).toBe(want.stateHash);
+      expect(resumed.result().counters).toEqual(want.counters);
+    }, 60_000);
+  }
+
+  it('refuses η outside [0, 6] in one line naming params.eta and the range', () => {
+    for (const eta of [-0.5, 6.5, Number.NaN]) {
+      let message = '';
+      try {
+        checkModelParams(modelParams('dbm-offlattice-2d', { eta }));
+      } catch (e) {
+        message = (e as Error).message;
+      }
+      expect(message).toMatch(/^params\.eta: .* (is out of range|is not a finite number); allowed: a number from 0 to 6/);
+      expect(message).not.toContain('\n');
+    }
+  });
+});
+
+describe('embedded ensemble with [probe]', () => {
+  it('records Z(η) and Z(η + 2) per probed cluster and puts harmonic.breakdownRelation, with its rules, in the summary', async () => {
+    const spec = validateSpec({
+      name: 'dbm probe test', model: 'dbm-offlattice-2d', params: { eta: 2 }, particles: 240, clusters: 3, seed: '4242',
+      probe: { walkers: 2000, jobs: 2, at_sizes: [60, 120] },
+    });
+    const out = await runEmbedded(spec, { ensembleId: 'dbm-probe', threads: 2 });
+    expect(out.harmonic.length).toBe(9);
+    for (const r of out.harmonic) {
+      expect(r.breakdown?.eta).toBe(2);
+      expect(r.breakdown?.zEta).toBeGreaterThan(0);
+      expect(r.breakdown!.zEtaPlus2!).toBeLessThan(r.breakdown!.zEta!);
+    }
+    const h = harmonicOfSummary(out.summary)!;
+    const b = h.breakdownRelation!;
+    expect(b.eta).toBe(2);
+    expect(b.sizes).toEqual([60, 120, 240]);
+    expect(b.clusters).toBe(3);
+    expect(b.tauDifference.estimate).toEqual(expect.any(Number));
+    expect(['consistent', 'inconsistent', 'undetermined']).toContain(b.verdict);
+    expect(b.rule).toMatch(/intervals overlap/);
+    expect(b.capacityIncrement.rule).toMatch(/contains 1/);
+  }, 300_000);
+});

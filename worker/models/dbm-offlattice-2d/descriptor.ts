@@ -1,0 +1,72 @@
+/**
+ * Off-lattice dielectric breakdown model DBM(η) in the plane: the descriptor
+ * (kernel.ts states the exact definition, the exact method for η >= 1 and the
+ * one approximation for η < 1). The walk parameters are those of
+ * dla-offlattice-2d, taken from its descriptor.
+ */
+import type { ModelDescriptor, ParamSpec } from '../../core/model-descriptor.js';
+import { OffLatticeDbm2d } from './kernel.js';
+import { PLANAR_ANISOTROPY_OBSERVABLES } from '../../core/anisotropy.js';
+import { dlaOffLattice2d } from '../dla-offlattice-2d/descriptor.js';
+
+function dlaParam(name: string): ParamSpec {
+  const p = dlaOffLattice2d.params.find((q) => q.name === name);
+  if (p === undefined) throw new Error(`dla-offlattice-2d has no parameter ${name}`);
+  return p;
+}
+
+export const dbmOffLattice2d: ModelDescriptor = {
+  kind: 'dbm-offlattice-2d',
+  dimension: 2,
+  lattice: null,
+  definition:
+    'disks of diameter 1; the next disk grows on particle i with probability ω_i^η / Σ ω^η (ω = harmonic measure from infinity), at a contact point drawn from the harmonic measure restricted to i; η = 1 is DLA',
+  definitionFile: 'worker/models/dbm-offlattice-2d/kernel.ts',
+  params: [
+    {
+      name: 'eta',
+      unit: '',
+      default: 2,
+      min: 0,
+      max: 6,
+      meaning: 'the power η of the harmonic measure (0: exposed particles equally likely, 1: DLA, larger: sparser)',
+    },
+    {
+      name: 'recurrence_cap',
+      unit: 'walkers',
+      default: 1024,
+      min: 2,
+      max: 1_000_000,
+      integer: true,
+      meaning: 'for η < 1 only: most walkers timing the recurrence of hits on the proposed particle (the one approximation there; larger is more exact and slower)',
+    },
+    dlaParam('min_step'),
+    dlaParam('launch_margin'),
+  ],
+  counters: [
+    { name: 'walkers', meaning: 'walkers released (every attempt uses one or more)' },
+    { name: 'attempts', meaning: 'attempts to grow (proposal walkers); attempts − (particles − 1) were rejected' },
+    { name: 'jumps', meaning: 'walk-on-spheres jumps (uniform exits from free disks)' },
+    { name: 'short_steps', meaning: 'straight final steps next to the cluster' },
+    { name: 'returns', meaning: 'returns of far walkers to the launch circle by the exact Poisson kernel' },
+  ],
+  workCounter: 'jumps',
+  observables: PLANAR_ANISOTROPY_OBSERVABLES,
+  probe: 'disks-2d',
+  picture: 'disks',
+  contactDistance: 1,
+  reference: {
+    // D depends on η; published values are not quoted for η ≠ 1 (see the README).
+    dimension: null,
+    bounds: [],
+    context: [
+      {
+        label: 'DLA value (applies at η = 1 only)',
+        value: 1.71,
+        source: 'Menshutin, Shchur & Vinokur 2008, Physica A 387, 6299 (off-lattice DLA, 1000 clusters of 5e7 particles)',
+      },
+    ],
+  },
+  check: (task) => dlaOffLattice2d.check?.(task),
+  create: (task, checkpoint) => new OffLatticeDbm2d(task, checkpoint),
+};
