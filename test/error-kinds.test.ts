@@ -186,7 +186,7 @@ describe('every refusal names the field at fault, its value and the allowed rang
     for (const [field, doc] of cases) expect(fieldOf(problemsOf(() => validateProbeRequest(doc))[0] ?? '')).toBe(field);
   });
 
-  it('command line: the option the user typed is named, not the spec field it fills', () => {
+  it('command line: the option the user typed is named, not the spec field it fills', async () => {
     // grow: a parameter below the model's floor for this size
     expect(problemsOf(() => parseGrowOptions({ particles: '100', seed: '1', out: '/tmp/x', param: ['min_step=1e-300'] }))[0]).toBe(
       '--param min_step: 1e-300 is out of range; allowed: a number from 0.000001 to 1 for 100 particles (particle diameters; a smaller step is lost in the float spacing of the coordinates)',
@@ -194,11 +194,12 @@ describe('every refusal names the field at fault, its value and the allowed rang
     expect(problemsOf(() => parseGrowOptions({ particles: '100', seed: '1' }))[0]).toBe('--out: missing; allowed: a folder name (created if missing)');
     // run / summary: analysis overrides, checked against the ensemble's own size
     const size = { particles: 200, clusters: 4 };
-    expect(problemsOf(() => analysisSettingsFromCli({}, { fitWindow: '500:100' }, size))[0]).toBe('--fit-window FROM: 500 is not allowed; allowed: a number below --fit-window TO (100)');
-    expect(problemsOf(() => analysisSettingsFromCli({}, { fitWindow: '5000:' }, size))[0]).toBe('--fit-window FROM: 5000 is out of range; allowed: a number from 1 to below particles (200)');
-    expect(problemsOf(() => analysisSettingsFromCli({ fitMaxSize: 100 }, { fitWindow: '150:' }, size))[0]).toBe('--fit-window FROM: 150 is not allowed; allowed: a number below analysis.fit_max_size (100)');
-    expect(problemsOf(() => analysisSettingsFromCli({}, { level: '2' }, size))[0]).toBe('--level: 2 is out of range; allowed: a number from 0.5 to 0.999');
-    expect(problemsOf(() => analysisSettingsFromCli({}, { massRadiusWindow: '60:10' }, size))[0]).toBe('--mass-radius-window FROM: 60 is not allowed; allowed: a number below --mass-radius-window TO (10)');
+    const cli = async (base: Record<string, number>, o: Record<string, string>) => analysisSettingsFromCli(base, o, size).then(() => '', (err: unknown) => messageOf(err));
+    expect(await cli({}, { fitWindow: '500:100' })).toBe('--fit-window FROM: 500 is not allowed; allowed: a number below --fit-window TO (100)');
+    expect(await cli({}, { fitWindow: '5000:' })).toBe('--fit-window FROM: 5000 is out of range; allowed: a number from 1 to below particles (200)');
+    expect(await cli({ fitMaxSize: 100 }, { fitWindow: '150:' })).toBe('--fit-window FROM: 150 is not allowed; allowed: a number below analysis.fit_max_size (100)');
+    expect(await cli({}, { level: '2' })).toBe('--level: 2 is out of range; allowed: a number from 0.5 to 0.999');
+    expect(await cli({}, { massRadiusWindow: '60:10' })).toBe('--mass-radius-window FROM: 60 is not allowed; allowed: a number below --mass-radius-window TO (10)');
     // probe: the window option in the same words as every other refusal
     expect(problemsOf(() => parseWindowOption('0.5:0.4'))[0]).toMatch(/^--window: "0\.5:0\.4" is not allowed; allowed: lo:hi, /);
   });
