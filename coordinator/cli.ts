@@ -30,7 +30,7 @@ export interface CommandEntry {
 export const COMMANDS: CommandEntry[] = [
   { term: 'grow [options]', description: 'grow one cluster of a model (see tendril models) and write its run result, snapshot and picture', load: () => import('./commands/grow.js') },
   { term: 'run [options] <spec>', description: 'grow an ensemble locally with worker threads (no Redis) and write its summary', load: () => import('./commands/run.js') },
-  { term: 'launch [options] <spec>', description: 'validate an ensemble spec and queue its runs on the farm; prints the ensemble id', load: () => import('./commands/launch.js') },
+  { term: 'launch [options] <spec>', description: 'validate an ensemble spec and queue its runs on the farm; prints the ensemble id (the sweep id for a spec that sweeps a parameter)', load: () => import('./commands/launch.js') },
   { term: 'list [options]', description: 'list the newest ensembles on the farm with their state', load: () => import('./commands/ensembles.js') },
   { term: 'status [options] <id>', description: "one ensemble's runs by state, particles done, throughput and remaining time", load: () => import('./commands/ensembles.js') },
   { term: 'cancel [options] <id>', description: 'cancel an ensemble: queued runs are dropped, running ones stop within seconds', load: () => import('./commands/ensembles.js') },

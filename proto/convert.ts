@@ -13,6 +13,8 @@
  */
 import { tendril } from './generated/tendril.js';
 import { TendrilError } from './errors.js';
+import { checkFrameCrc, FRAME_PREFIX_BYTES, FRAME_TRAILER_BYTES, frameHead, frameLength, framePrefix, isCheckpointFrame } from './checkpoint-frame.js';
+import { crc32 } from './crc32.js';
 
 export { tendril };
 
@@ -333,15 +335,16 @@ export function decodeRunResult(bytes: Uint8Array): RunResultData {
 
 // ---------------------------------------------------------------- checkpoint
 
-export function encodeCheckpoint(c: CheckpointData): Uint8Array {
+/** The protobuf Checkpoint of c; without its coordinates when `withPositions` is false (the header of a frame). */
+function checkpointMessage(c: CheckpointData, withPositions: boolean): tendril.Checkpoint {
   const s = c.state;
-  const msg = tendril.Checkpoint.create({
+  return tendril.Checkpoint.create({
     contractVersion: CONTRACT_VERSION,
     engineVersion: s.engineVersion,
     task: runTaskToProto(c.run),
     count: s.count,
     dimension: s.dimension,
-    positions: floatsToBytes(s.positions, s.count * s.dimension),
+    positions: withPositions ? floatsToBytes(s.positions, s.count * s.dimension) : new Uint8Array(0),
     rngState: Array.from(s.rngState),
     counterValues: { ...s.counters },
     series: seriesToProto(s.series),
@@ -350,7 +353,34 @@ export function encodeCheckpoint(c: CheckpointData): Uint8Array {
     startedAtMs: c.startedAtMs,
     resumes: c.resumes,
   });
-  return tendril.Checkpoint.encode(msg).finish();
+}
+
+/** The header message of a framed checkpoint (proto/checkpoint-frame.ts): everything but the coordinates. */
+export function encodeCheckpointHeader(c: CheckpointData): Uint8Array {
+  return tendril.Checkpoint.encode(checkpointMessage(c, false)).finish();
+}
+
+/**
+ * A checkpoint as one framed buffer (proto/checkpoint-frame.ts): the header
+ * message, then the positions copied once, then the CRC. Checkpoints written
+ * to files go through proto/checkpoint-file.ts instead, in chunks.
+ */
+export function encodeCheckpoint(c: CheckpointData): Uint8Array<ArrayBuffer> {
+  const s = c.state;
+  const values = s.count * s.dimension;
+  if (s.positions.length < values) fail(`Checkpoint positions hold ${s.positions.length} values, fewer than ${values}`);
+  const head = frameHead(encodeCheckpointHeader(c));
+  const out = new Uint8Array(frameLength(head.length - FRAME_PREFIX_BYTES, values));
+  out.set(head, 0);
+  out.set(floatsToBytes(s.positions, values), head.length);
+  const at = out.length - FRAME_TRAILER_BYTES;
+  new DataView(out.buffer).setUint32(at, crc32(out, 0, at), true);
+  return out;
+}
+
+/** The checkpoint encoded as one protobuf message, the layout written before frames (still read; for tests of that reading). */
+export function encodeCheckpointMessage(c: CheckpointData): Uint8Array {
+  return tendril.Checkpoint.encode(checkpointMessage(c, true)).finish();
 }
 
 /** Contract 1 positions: x and y arrays, interleaved into contract 2's layout. */
@@ -365,8 +395,44 @@ function legacyPositions(m: tendril.ICheckpoint, count: number): Float64Array {
   return out;
 }
 
-export function decodeCheckpoint(bytes: Uint8Array): CheckpointData {
+/**
+ * Decode a checkpoint, framed (proto/checkpoint-frame.ts) or a single
+ * protobuf message (the layout before frames). `roomFor`: give a framed
+ * checkpoint's positions array room for this many particles (a kernel
+ * resuming a run of N particles may then keep it as its own, with no second
+ * copy).
+ */
+export function decodeCheckpoint(bytes: Uint8Array, roomFor = 0): CheckpointData {
+  if (isCheckpointFrame(bytes)) {
+    let prefix;
+    try {
+      prefix = framePrefix(bytes);
+      checkFrameCrc(bytes);
+    } catch (err) {
+      fail((err as Error).message);
+    }
+    const m = decodeWith('Checkpoint', (b) => tendril.Checkpoint.decode(b), bytes.subarray(FRAME_PREFIX_BYTES, FRAME_PREFIX_BYTES + prefix.messageLength));
+    const values = bytes.length - FRAME_TRAILER_BYTES - prefix.positionsOffset;
+    if (values < 0 || values % 8 !== 0) fail(`Checkpoint frame holds ${values} bytes of positions, not a whole number of float64`);
+    const positions = new Float64Array(Math.max(roomFor * (m.dimension || 2), values / 8));
+    const raw = bytes.subarray(prefix.positionsOffset, prefix.positionsOffset + values);
+    if (LITTLE_ENDIAN) new Uint8Array(positions.buffer, 0, values).set(raw);
+    else {
+      const view = new DataView(raw.buffer, raw.byteOffset, raw.byteLength);
+      for (let i = 0; i < values / 8; i++) positions[i] = view.getFloat64(8 * i, true);
+    }
+    return checkpointFromMessage(m, positions, values / 8);
+  }
   const m = decodeWith('Checkpoint', (b) => tendril.Checkpoint.decode(b), bytes);
+  return checkpointFromMessage(m, null, 0);
+}
+
+/**
+ * The checkpoint of a decoded message. `positions`: the coordinates read
+ * from a frame (`values` of them; the message holds none), or null to take
+ * them from the message itself.
+ */
+export function checkpointFromMessage(m: tendril.ICheckpoint, positions: Float64Array | null, values: number): CheckpointData {
   checkVersion('Checkpoint', m.contractVersion ?? 0);
   if (!m.task) fail('Checkpoint.task is missing');
   const run = runTaskFromProto(m.task);
@@ -376,6 +442,7 @@ export function decodeCheckpoint(bytes: Uint8Array): CheckpointData {
   if (rng.length !== 4) fail(`Checkpoint.rng_state has ${rng.length} words, expected 4`);
   const legacy = m.contractVersion === 1;
   const dimension = checkDimension('Checkpoint', legacy ? 2 : (m.dimension ?? 0));
+  if (positions !== null && values !== count * dimension) fail(`Checkpoint frame holds ${values} position values, expected ${count * dimension} for ${count} particles in ${dimension} dimensions`);
   return {
     run,
     state: {
@@ -383,7 +450,7 @@ export function decodeCheckpoint(bytes: Uint8Array): CheckpointData {
       task: growthTaskOf(run),
       dimension,
       count,
-      positions: legacy ? legacyPositions(m, count) : bytesToFloats('Checkpoint.positions', m.positions, count * dimension),
+      positions: positions ?? (legacy ? legacyPositions(m, count) : bytesToFloats('Checkpoint.positions', m.positions, count * dimension)),
       rngState: Uint32Array.from(rng),
       counters: countersFromProto(m.counterValues, m.counters),
       series: seriesFromProto(m.series),

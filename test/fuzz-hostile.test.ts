@@ -12,6 +12,7 @@
  * The generator is seeded (mulberry32), so a failure names the case number
  * that reproduces it. Counts are fixed; nothing depends on speed.
  */
+import { validateLaunch } from '../coordinator/spec/sweep.js';
 import { Redis } from 'ioredis';
 import { afterAll, describe, expect, it } from 'vitest';
 import type { InjectOptions } from 'fastify';
@@ -102,7 +103,11 @@ function hostileSpec(r: () => number): unknown {
   for (let i = 0; i < edits; i++) {
     const key = KEYS[Math.floor(r() * KEYS.length)];
     if (r() < 0.15) delete doc[key];
-    else if (key === 'params') doc.params = { min_step: NUMBERS[Math.floor(r() * NUMBERS.length)], ...(r() < 0.3 ? { launch_margin: hostileValue(r) } : {}) };
+    else if (key === 'params' && r() < 0.4) {
+      // a sweep (coordinator/spec/sweep.ts): a list or a from/to/step table, of hostile or plain values, sometimes two swept parameters
+      const swept = () => (r() < 0.5 ? Array.from({ length: Math.floor(r() * 70) }, () => (r() < 0.8 ? 0.01 * (1 + Math.floor(r() * 100)) : hostileValue(r))) : { from: r() < 0.7 ? 0.01 : hostileValue(r), to: r() < 0.7 ? 1 : hostileValue(r), step: r() < 0.7 ? 0.1 * r() : hostileValue(r), ...(r() < 0.1 ? { [KEYS[Math.floor(r() * KEYS.length)]]: 1 } : {}) });
+      doc.params = { min_step: swept(), ...(r() < 0.3 ? { launch_margin: r() < 0.5 ? swept() : hostileValue(r) } : {}) };
+    } else if (key === 'params') doc.params = { min_step: NUMBERS[Math.floor(r() * NUMBERS.length)], ...(r() < 0.3 ? { launch_margin: hostileValue(r) } : {}) };
     else if (key === 'probe') doc.probe = { walkers: r() < 0.5 ? 1e10 : hostileValue(r), at_sizes: r() < 0.5 ? Array.from({ length: 24 }, (_, j) => 2 + j) : hostileValue(r), min_step: r() < 0.5 ? 1e-300 : 0.02 };
     else if (key === 'analysis') doc.analysis = { resamples: r() < 0.5 ? 1_000_000 : hostileValue(r) };
     else if (key === 'target') doc.target = { half_width: hostileValue(r), max_clusters: hostileValue(r), min_clusters: hostileValue(r) };
@@ -165,7 +170,8 @@ describe(`hostile inputs (seed ${SEED})`, () => {
     for (let i = 0; i < SPECS; i++) {
       const doc = hostileSpec(r);
       try {
-        validateSpec(doc, { maxTotalParticles: 1e10 });
+        // validateLaunch: validateSpec for a single spec, the sweep checks for a swept parameter
+        validateLaunch(doc, { maxTotalParticles: 1e10 });
       } catch (err) {
         if (!(err instanceof SpecError)) {
           note(`spec ${i}: threw ${(err as Error)?.name}: ${String((err as Error)?.message).slice(0, 200)}`);

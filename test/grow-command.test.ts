@@ -168,11 +168,11 @@ describe('tendril grow, bad options', () => {
   const ok = ['--seed', '1', '--out'];
   const R = 'an integer from';
   const cases: Array<[string, string[], string]> = [
-    ['particles not a number', ['--particles', 'abc'], `tendril: --particles: "abc" is not a number; allowed: ${R} 2 to 100000000`],
-    ['particles too small', ['--particles', '1'], `tendril: --particles: 1 is out of range; allowed: ${R} 2 to 100000000`],
-    ['particles too large', ['--particles', '100000001'], `tendril: --particles: 100000001 is out of range; allowed: ${R} 2 to 100000000`],
-    ['particles fractional', ['--particles', '2.5'], `tendril: --particles: 2.5 is out of range; allowed: ${R} 2 to 100000000`],
-    ['particles missing', [], 'tendril: --particles: missing; allowed: an integer from 2 to 100000000'],
+    ['particles not a number', ['--particles', 'abc'], `tendril: --particles: "abc" is not a number; allowed: ${R} 2 to 1000000000`],
+    ['particles too small', ['--particles', '1'], `tendril: --particles: 1 is out of range; allowed: ${R} 2 to 1000000000`],
+    ['particles too large', ['--particles', '1000000001'], `tendril: --particles: 1000000001 is out of range; allowed: ${R} 2 to 1000000000`],
+    ['particles fractional', ['--particles', '2.5'], `tendril: --particles: 2.5 is out of range; allowed: ${R} 2 to 1000000000`],
+    ['particles missing', [], 'tendril: --particles: missing; allowed: an integer from 2 to 1000000000'],
     ['seed negative', ['--particles', '10', '--seed', '-1'], 'tendril: --seed: "-1" is not allowed; allowed: an unsigned 64-bit integer from 0 to 18446744073709551615 in decimal'],
     ['seed 2^64', ['--particles', '10', '--seed', '18446744073709551616'], 'tendril: --seed: "18446744073709551616" is not allowed; allowed: an unsigned 64-bit integer from 0 to 18446744073709551615 in decimal'],
     ['seed hex', ['--particles', '10', '--seed', '0x10'], 'tendril: --seed: "0x10" is not allowed; allowed: an unsigned 64-bit integer from 0 to 18446744073709551615 in decimal'],
@@ -183,7 +183,7 @@ describe('tendril grow, bad options', () => {
     ['launch_margin too large', ['--particles', '10', '--param', 'launch_margin=1e4'], 'tendril: --param launch_margin: 10000 is out of range; allowed: a number above 0 and at most 1000 (particle diameters, for dla-offlattice-2d)'],
     ['unknown parameter', ['--particles', '10', '--param', 'eta=2'], 'tendril: --param eta: not a parameter of dla-offlattice-2d; allowed: min_step, launch_margin'],
     ['parameter without a value', ['--particles', '10', '--param', 'min_step'], 'tendril: --param: "min_step" is not allowed; allowed: NAME=VALUE with NAME one of min_step, launch_margin'],
-    ['unknown model', ['--particles', '10', '--model', 'dla-3d-foo'], 'tendril: --model: "dla-3d-foo" is not a model; allowed: one of dla-offlattice-2d, eden-square, eden-triangular, eden-offlattice-2d, dla-square, dla-triangular, dla-offlattice-3d (see tendril models)'],
+    ['unknown model', ['--particles', '10', '--model', 'dla-3d-foo'], 'tendril: --model: "dla-3d-foo" is not a model; allowed: one of dla-offlattice-2d, eden-square, eden-triangular, eden-offlattice-2d, dla-square, dla-triangular, dla-offlattice-3d, dbm-offlattice-2d (see tendril models)'],
     ['picture-size too small', ['--particles', '10', '--picture-size', '63'], `tendril: --picture-size: 63 is out of range; allowed: ${R} 64 to 8192 (pixels)`],
     ['picture-size too large', ['--particles', '10', '--picture-size', '8193'], `tendril: --picture-size: 8193 is out of range; allowed: ${R} 64 to 8192 (pixels)`],
     ['records-per-decade too small', ['--particles', '10', '--records-per-decade', '9'], `tendril: --records-per-decade: 9 is out of range; allowed: ${R} 10 to 100`],

@@ -171,3 +171,55 @@ describe('snapshots of dimension-strided positions', () => {
     expect(() => pointSetOf({ dimension: 4, count: 1, coords }, 1)).toThrow('snapshot dimension must be 2 or 3, got 4');
   });
 });
+
+describe('snapshot files streamed to and from disk', () => {
+  it('writeSnapshotFile writes the bytes of encodeSnapshot from strided positions; readSnapshotFile reads them back; a damaged file is refused', async () => {
+    const { mkdtempSync, readFileSync, rmSync, writeFileSync } = await import('node:fs');
+    const { tmpdir } = await import('node:os');
+    const { join } = await import('node:path');
+    const { writeSnapshotFile, readSnapshotFile, pointSetOf } = await import('../coordinator/snapshot/index.js');
+    const dir = mkdtempSync(join(tmpdir(), 'tendril-snapshot-stream-'));
+    try {
+      // more than one 1 MiB chunk per axis (2^17 values), in 2D and 3D
+      for (const d of [2, 3] as const) {
+        const n = 300_001;
+        const p = points(n, d);
+        const coords = new Float64Array(n * d);
+        for (let i = 0; i < n; i++) {
+          coords[i * d] = p.x[i];
+          coords[i * d + 1] = p.y[i];
+          if (d === 3) coords[i * d + 2] = p.z[i];
+        }
+        const pos = { dimension: d, count: n, coords };
+        const path = join(dir, `c${d}.snapshot`);
+        writeSnapshotFile(path, pos, 1);
+        const expected = encodeSnapshot(pointSetOf(pos, 1));
+        expect(Buffer.compare(readFileSync(path), expected)).toBe(0);
+        const back = readSnapshotFile(path);
+        const whole = decodeSnapshot(expected);
+        expect(back.count).toBe(n);
+        expect(back.dimension).toBe(d);
+        expect(Buffer.compare(Buffer.from(back.x.buffer), Buffer.from(whole.x.buffer))).toBe(0);
+        expect(Buffer.compare(Buffer.from(back.y.buffer), Buffer.from(whole.y.buffer))).toBe(0);
+        if (d === 3) expect(Buffer.compare(Buffer.from(back.z!.buffer), Buffer.from(whole.z!.buffer))).toBe(0);
+        const damaged = Buffer.from(expected);
+        damaged[40 + 8 * 200_000] ^= 4;
+        writeFileSync(path, damaged);
+        expect(() => readSnapshotFile(path)).toThrow(SnapshotError);
+        expect(() => readSnapshotFile(path)).toThrow(/^snapshot checksum mismatch: stored CRC-32 0x[0-9a-f]{8}, computed 0x[0-9a-f]{8}$/);
+        writeFileSync(path, damaged.subarray(0, damaged.length - 8));
+        expect(() => readSnapshotFile(path)).toThrow(/^snapshot is \d+ bytes, expected \d+ for 300001 particles in [23] dimensions$/);
+      }
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+
+  it('CRC-32 continued over pieces equals the CRC of the whole (native and portable)', () => {
+    const data = new Uint8Array(5000);
+    for (let i = 0; i < data.length; i++) data[i] = (i * 7 + (i >> 3)) & 0xff;
+    const whole = crc32(data);
+    expect(crc32(data, 1234, data.length, crc32(data, 0, 1234))).toBe(whole);
+    expect(crc32Portable(data, 1234, data.length, crc32Portable(data, 0, 1234))).toBe(whole);
+  });
+});

@@ -141,9 +141,13 @@ describe('example specs', () => {
     const dir = join(import.meta.dirname, '..', 'examples');
     const files = readdirSync(dir).filter((f) => /\.(toml|json)$/.test(f));
     expect(files).toContain('demo.toml');
+    const { validateLaunch } = await import('../coordinator/spec/sweep.js');
     for (const f of files) {
-      const s = parseSpec(readFileSync(join(dir, f), 'utf8'), formatOf(f));
-      expect(s.particles * s.clusters).toBeLessThanOrEqual(1e10);
+      // a spec, or a sweep of specs (coordinator/spec/sweep.ts): every member counts
+      const l = validateLaunch(parseSpecText(readFileSync(join(dir, f), 'utf8'), formatOf(f)));
+      const specs = l.kind === 'single' ? [l.spec] : l.sweep.members;
+      expect(specs.reduce((t, s) => t + s.particles * s.clusters, 0)).toBeLessThanOrEqual(1e10);
+      if (l.kind === 'single') expect(l.spec).toEqual(parseSpec(readFileSync(join(dir, f), 'utf8'), formatOf(f)));
     }
   });
 });

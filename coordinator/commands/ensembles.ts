@@ -5,6 +5,8 @@ import type { RunResultData } from '../../proto/convert.js';
 import type { EnsembleSpec } from '../spec/index.js';
 import type { Command } from 'commander';
 import { ensembleIds, readEnsembleStatus, readEnsembleStatuses, type EnsembleStatus, type StatusReader } from '../farm/ensemble-status.js';
+import { readSweepStatus, sweepIds, type SweepStatus } from '../farm/sweep-status.js';
+import type { EnsembleReader } from '../farm/ensemble-reader.js';
 import { formatDuration, formatRate } from '../progress/index.js';
 import { CSV_TABLE_NAMES, SUMMARY_FORMATS, type SummaryFormat } from '../summary/formats.js';
 import { UsageError } from '../usage-error.js';
@@ -33,6 +35,17 @@ export function statusLine(s: EnsembleStatus): string {
     parts.push(`probes ${s.probes.done}/${s.probes.planned} analysed${s.probes.failed > 0 ? `, ${s.probes.failed} failed (first: run ${s.probes.failures[0].runIndex} at N = ${s.probes.failures[0].size}: ${s.probes.failures[0].reason})` : ''}`);
   }
   return parts.join('; ');
+}
+
+/** The lines of a sweep's state: the totals over its members, then one line per member (its value, then its status line). */
+export function sweepStatusLines(s: SweepStatus): string[] {
+  const r = s.runs;
+  const head = [
+    `${s.id}  ${s.state.padEnd(9)} ${s.name}  sweep over ${s.parameter} (${s.values.length} values)  runs ${r.done}/${r.planned} done, ${r.running} running, ${r.queued} queued, ${r.failed} failed`,
+    `${s.particles.done}/${s.particles.total} particles`,
+  ];
+  if (s.state === 'running' && s.throughput > 0) head.push(`${formatRate(s.throughput)} particles/s${s.etaSeconds !== null ? `, about ${formatDuration(s.etaSeconds)} left` : ''}`);
+  return [head.join('; '), ...s.members.map((m) => `  ${s.parameter} = ${m.value}: ${m.status ? statusLine(m.status) : 'member ensemble missing'}`)];
 }
 
 export async function requireStatus(reader: StatusReader, prefix: string, id: string): Promise<EnsembleStatus> {
@@ -64,7 +77,14 @@ export function register(program: Command): void {
         const all = (await readEnsembleStatuses(farm.reader, farm.prefix, await ensembleIds(farm.reader, farm.prefix, 100))).filter((s): s is EnsembleStatus => s !== null);
         if (opts.json) process.stdout.write(JSON.stringify(all, null, 2) + '\n');
         else if (all.length === 0) process.stdout.write('no ensembles\n');
-        else for (const s of all) process.stdout.write(statusLine(s) + '\n');
+        else {
+          for (const s of all) process.stdout.write(statusLine(s) + '\n');
+          // sweeps: one line each (their members are listed above as ensembles)
+          for (const id of await sweepIds(farm.reader, farm.prefix, 100)) {
+            const sw = await readSweepStatus(farm.reader, farm.prefix, id);
+            if (sw) process.stdout.write(sweepStatusLines(sw)[0] + '\n');
+          }
+        }
       } finally {
         farm.close();
       }
@@ -75,6 +95,11 @@ export function register(program: Command): void {
     .action(async (id: string, opts: FarmCliOptions & { json?: boolean }) => {
       const farm = await openReader(opts);
       try {
+        const sw = await readSweepStatus(farm.reader, farm.prefix, id);
+        if (sw) {
+          process.stdout.write(opts.json ? JSON.stringify(sw, null, 2) + '\n' : sweepStatusLines(sw).join('\n') + '\n');
+          return;
+        }
         const s = await requireStatus(farm.reader, farm.prefix, id);
         process.stdout.write(opts.json ? JSON.stringify(s, null, 2) + '\n' : statusLine(s) + '\n');
         for (const f of opts.json ? [] : s.failures) process.stdout.write(`  run ${f.runIndex} failed: ${f.reason}\n`);
@@ -88,6 +113,15 @@ export function register(program: Command): void {
       const farm = await openFarm(opts);
       try {
         const { cancelEnsemble } = await import('../farm/queue.js');
+        if (!(await farm.store.exists(id))) {
+          const { cancelSweep } = await import('../farm/sweeps.js');
+          const outcomes = await cancelSweep(farm.store, farm.queue, id);
+          if (outcomes) {
+            const n = outcomes.filter((o) => o === 'cancelled').length;
+            process.stdout.write(`${n > 0 ? `cancelled ${id}` : `nothing to cancel in ${id}`}: ${outcomes.map((o, i) => `member ${i} ${o}`).join(', ')}\n`);
+            return;
+          }
+        }
         const outcome = await cancelEnsemble(farm.store, farm.queue, id);
         if (outcome === 'unknown') throw new UsageError(`ensemble id: "${id}" is not known to this farm`);
         if (outcome === 'finished') {
@@ -131,7 +165,10 @@ export function register(program: Command): void {
     const store = new EnsembleReader(farm.reader, farm.prefix);
     try {
       const rec = await store.get(id);
-      if (!rec) throw new UsageError(`ensemble id: "${id}" is not known to this farm`);
+      if (!rec) {
+        if (await summariseSweep(store, id, opts)) return;
+        throw new UsageError(`ensemble id: "${id}" is not known to this farm`);
+      }
       const analysis = await analysisSettingsFromCli(rec.spec.analysis, opts, { particles: rec.spec.particles, clusters: rec.spec.target?.maxClusters ?? rec.plannedClusters });
       const got = (await farmSummary(store, id, defaultSummaryOptions(analysis)))!;
       if (opts.format === 'tables' || opts.format === 'html') {
@@ -150,4 +187,36 @@ export function register(program: Command): void {
       farm.close();
     }
   });
+}
+
+/**
+ * `tendril summary SWEEP_ID`: the sweep's table as JSON (sweep.json) or CSV
+ * (sweep.csv), or with --format tables|html a folder holding the sweep's
+ * files and each member's summary files in <param>-<value>/ (as `tendril
+ * run` writes them). False when the id is not a sweep.
+ */
+async function summariseSweep(store: EnsembleReader, id: string, opts: AnalysisCliOptions & { format: string; out?: string }): Promise<boolean> {
+  const [{ farmSweepSummary, getSweep }, { defaultSummaryOptions }, { sweepToCsv, sweepToJson, describeSweep }, { writeSweepFiles }, { writeSummaryFiles }, { analysisSettingsFromCli }, { memberFolder }, { join }] = await Promise.all([
+    import('../farm/sweeps.js'), import('../summary/index.js'), import('../summary/sweep-summary.js'), import('./sweep-files.js'), import('./summary-files.js'), import('./analysis-options.js'), import('../spec/sweep.js'), import('node:path'),
+  ]);
+  const rec = await getSweep(store, id);
+  if (!rec) return false;
+  if (opts.format === 'pb') throw new UsageError('--format: "pb" is not allowed for a sweep; allowed: json, csv, tables, html (each member\'s protobuf summary: tendril summary MEMBER_ID --format pb)');
+  const analysis = await analysisSettingsFromCli(rec.sweep.members[0].analysis, opts);
+  const got = (await farmSweepSummary(store, id, defaultSummaryOptions(analysis)))!;
+  if (opts.format === 'tables' || opts.format === 'html') {
+    const html = opts.format === 'html';
+    const written = await writeSweepFiles(opts.out!, got.summary, { report: html });
+    for (const [i, m] of got.members.entries()) {
+      const folder = memberFolder(rec.sweep.parameter, rec.sweep.values[i]);
+      await writeSummaryFiles(join(opts.out!, folder), m.summary, m.results, m.record.spec, { report: html, json: html, tables: true, ensembleId: m.record.id });
+      written.push(`${folder}/`);
+    }
+    process.stdout.write(describeSweep(got.summary) + `wrote ${written.join(', ')} into ${opts.out}\n`);
+    return true;
+  }
+  const text = opts.format === 'csv' ? sweepToCsv(got.summary) : sweepToJson(got.summary);
+  if (opts.out) await writeFile(opts.out, text);
+  else process.stdout.write(text);
+  return true;
 }

@@ -20,21 +20,26 @@
  * of about a quarter of a second so that the progress display stays live;
  * the chunking does not change the result (the kernel contract).
  */
-import { mkdirSync, statSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { readCheckpointFile, writeCheckpointFile } from '../../proto/checkpoint-file.js';
+import type { RunTaskData } from '../../proto/convert.js';
+import { firstLine, messageOf } from '../../proto/errors.js';
+import { ENGINE_VERSION } from '../../worker/core/engine-version.js';
+import { canonicalJson } from '../../worker/core/canonical-json.js';
 import { join, resolve } from 'node:path';
 import type { Command } from 'commander';
 import { UsageError } from '../usage-error.js';
-import { messageOf } from '../../proto/errors.js';
 import { describeRange } from '../../worker/core/value-range.js';
 import { optionNumber, parseRangeOption, parseSeedOption } from './option-values.js';
 import { checkModelForSize, checkModelParams, createKernel, MODEL_KINDS, modelDescriptor, modelParams } from '../../worker/models/registry.js';
-import type { ClusterPositions, GrowthResult, GrowthTask, ModelParams } from '../../worker/core/growth-kernel.js';
-import { encodeSnapshot, pointSetOf } from '../snapshot/cluster-snapshot.js';
-import { DEFAULT_PICTURE_SIZE } from '../render/cluster-picture.js';
+import type { ClusterPositions, GrowthCheckpoint, GrowthKernel, GrowthResult, GrowthTask, ModelParams } from '../../worker/core/growth-kernel.js';
+import { writeSnapshotFile } from '../snapshot/cluster-snapshot.js';
+import { DEFAULT_PICTURE_SIZE, renderClusterPng } from '../render/cluster-picture.js';
 import { clusterFigure } from '../report/plots.js';
 import { pngRenderer } from '../report/png-plot.js';
 import { RECORDS_PER_DECADE as SHARED_RECORDS_PER_DECADE } from '../../worker/core/record-sizes.js';
 import { checkOutFolder, makeOutFolder } from './out-folder.js';
+import { collectGarbage } from './collect-garbage.js';
 import { noPictureReason, picturePointsOf, renderModelPicture } from '../render/model-picture.js';
 import { createProgress, formatRate, type ProgressMode } from '../progress/progress.js';
 
@@ -56,6 +61,10 @@ export interface GrowOptions {
   pictureSize: number;
   recordsPerDecade: number;
   quiet: boolean;
+  /** Write OUT/grow.checkpoint every this many seconds of growth; 0 = never. */
+  checkpointEverySeconds: number;
+  /** Continue from OUT/grow.checkpoint (written by an interrupted grow with checkpoints). */
+  resume: boolean;
 }
 
 export interface GrowTiming {
@@ -83,9 +92,13 @@ export interface GrowSummary {
 }
 
 /** Limits of grow's own options (the model's parameters come from its descriptor). */
-export const GROW_PARTICLES = { min: 2, max: 100_000_000, integer: true } as const;
+/** Up to 10^9: the positions (16 GB at 10^9) stay within a typed array's 2^32 entries; the index's int32 fields within range (docs in README, Giant clusters). */
+export const GROW_PARTICLES = { min: 2, max: 1_000_000_000, integer: true } as const;
 export const PICTURE_SIZE = { min: 64, max: 8192, integer: true } as const;
 export const RECORDS_PER_DECADE = { min: SHARED_RECORDS_PER_DECADE.min, max: SHARED_RECORDS_PER_DECADE.max, integer: true } as const;
+export const CHECKPOINT_EVERY_SECONDS = { min: 0.5, max: 86_400 } as const;
+/** The checkpoint of an unfinished grow, in the output folder (framed layout: docs/checkpoint-format.md); removed when the cluster is complete. */
+export const CHECKPOINT_FILE = 'grow.checkpoint';
 
 /**
  * The model of `--model KIND` and `--param NAME=VALUE` options (repeatable):
@@ -138,7 +151,9 @@ export function parseGrowOptions(raw: Record<string, unknown>): GrowOptions {
   if (noPicture !== null && raw.pictureSize !== undefined) throw new UsageError(`--picture-size: not allowed for this model; ${noPicture}`);
   const pictureSize = raw.pictureSize === undefined ? DEFAULT_PICTURE_SIZE : parseRangeOption('--picture-size', raw.pictureSize, PICTURE_SIZE, 'pixels');
   const recordsPerDecade = raw.recordsPerDecade === undefined ? DEFAULT_RECORDS_PER_DECADE : parseRangeOption('--records-per-decade', raw.recordsPerDecade, RECORDS_PER_DECADE);
-  return { particles, seed, out: outRaw, model, pictureSize, recordsPerDecade, quiet: raw.quiet === true };
+  const checkpointEverySeconds =
+    raw.checkpointEvery === undefined ? 0 : parseRangeOption('--checkpoint-every', raw.checkpointEvery, CHECKPOINT_EVERY_SECONDS, 'seconds');
+  return { particles, seed, out: outRaw, model, pictureSize, recordsPerDecade, quiet: raw.quiet === true, checkpointEverySeconds, resume: raw.resume === true };
 }
 
 export function growTask(o: GrowOptions): GrowthTask {
@@ -188,7 +203,10 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
   // so Ctrl-C during growth leaves no empty folder
   const dir = checkOutFolder(o.out);
   const task = growTask(o);
-  const kernel = createKernel(task);
+  const checkpointPath = join(dir, CHECKPOINT_FILE);
+  const resumed = o.resume ? resumeCheckpoint(checkpointPath, o) : null;
+  const kernel = resumed === null ? createKernel(task) : resumed.kernel;
+  const spentBefore = resumed?.growSeconds ?? 0;
   const startedAt = new Date().toISOString();
   const progress = createProgress({
     total: task.particles,
@@ -200,7 +218,22 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
   progress.update(kernel.count); // the starting count: the baseline of the rate
   const t0 = performance.now();
   let chunk = 256;
+  let lastCheckpoint = t0;
+  let checkpointPause = 0;
   while (!kernel.done) {
+    if (o.checkpointEverySeconds > 0 && performance.now() - lastCheckpoint >= 1000 * o.checkpointEverySeconds) {
+      const c0 = performance.now();
+      if (!existsSync(dir)) makeOutFolder(dir, o.out);
+      writeCheckpointFile(checkpointPath, {
+        run: growRunTask(task, o.checkpointEverySeconds),
+        state: kernel.checkpointView ? kernel.checkpointView() : kernel.checkpoint(),
+        growSeconds: spentBefore + (c0 - t0 - checkpointPause) / 1000,
+        startedAtMs: Date.parse(startedAt),
+        resumes: resumed === null ? 0 : resumed.resumes + 1,
+      });
+      lastCheckpoint = performance.now();
+      checkpointPause += lastCheckpoint - c0;
+    }
     const c0 = performance.now();
     const before = kernel.count;
     kernel.growTo(Math.min(task.particles, before + chunk));
@@ -210,13 +243,15 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
     chunk = Math.max(64, Math.min(4 * chunk, Math.round(250 / Math.max(perParticle, 1e-6))));
     progress.update(kernel.count);
   }
-  const growSeconds = (performance.now() - t0) / 1000;
+  const growSeconds = spentBefore + (performance.now() - t0 - checkpointPause) / 1000;
   progress.stop();
   const result = kernel.result();
   const pos = kernel.positions();
   const radii = clusterRadii(pos);
 
   makeOutFolder(dir, o.out);
+  // the index is released by now (worker/index/occupancy-index-2d.ts release()); give its arrays back before drawing
+  collectGarbage();
   const w0 = performance.now();
   const d = modelDescriptor(task.model.kind);
   const files = {
@@ -225,16 +260,20 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
     picture: d.picture === null ? null : join(dir, PICTURE_FILE),
     figure: null as string | null,
   };
-  writeFileSync(files.snapshot, encodeSnapshot(pointSetOf(pos, d.contactDistance)));
-  const picturePoints = picturePointsOf(task.model.kind, pos);
-  if (files.picture !== null && picturePoints !== null) {
-    writeFileSync(files.picture, renderModelPicture(task.model.kind, picturePoints, o.pictureSize));
+  // streamed from the kernel's positions: no copy of the cluster is made for the outputs
+  writeSnapshotFile(files.snapshot, pos, d.contactDistance);
+  if (files.picture !== null && d.picture === 'disks') {
+    const inPlace = { positions: pos, diameter: d.contactDistance };
+    writeFileSync(files.picture, renderClusterPng(inPlace, { size: o.pictureSize }));
     // planar clusters: the same picture with a title, a scale bar in particle diameters and a colour key
     const { renderer } = pngRenderer();
-    if (renderer && d.picture === 'disks') {
+    if (renderer) {
       files.figure = join(dir, FIGURE_FILE);
-      writeFileSync(files.figure, renderer.render(clusterFigure(picturePoints, null, Math.min(o.pictureSize, 1400)).figure.svg, 2));
+      writeFileSync(files.figure, renderer.render(clusterFigure(inPlace, null, Math.min(o.pictureSize, 1400)).figure.svg, 2));
     }
+  } else if (files.picture !== null) {
+    const picturePoints = picturePointsOf(task.model.kind, pos);
+    if (picturePoints !== null) writeFileSync(files.picture, renderModelPicture(task.model.kind, picturePoints, o.pictureSize));
   }
   const writeSeconds = (performance.now() - w0) / 1000;
   const timing: GrowTiming = {
@@ -246,6 +285,8 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
   };
   const file: RunResultFile = { ...result, timing };
   writeFileSync(files.runResult, JSON.stringify(file, null, 2) + '\n');
+  // the cluster is complete and written: its checkpoint is no longer needed
+  rmSync(checkpointPath, { force: true });
 
   io.stdout.write(`${files.runResult}\n${files.snapshot}\n${files.picture ?? `no ${PICTURE_FILE}: ${noPictureReason(task.model.kind)}`}\n${files.figure ? `${files.figure}\n` : ''}`);
   io.stdout.write(
@@ -255,11 +296,44 @@ export function runGrow(o: GrowOptions, io: GrowIo = { stdout: process.stdout, s
   return { result, timing, ...radii, files };
 }
 
+/** The run task written into grow's checkpoints (run 0 of an ensemble named "grow"). */
+function growRunTask(task: GrowthTask, everySeconds: number): RunTaskData {
+  return { ...task, model: { kind: task.model.kind, params: { ...task.model.params } }, ensembleId: 'grow', checkpointIntervalSeconds: everySeconds, checkpointEveryParticles: 0, engineVersion: ENGINE_VERSION };
+}
+
+/** The kernel resumed from OUT/grow.checkpoint; one-line UsageError when there is none or it is of another cluster. */
+function resumeCheckpoint(path: string, o: GrowOptions): { kernel: GrowthKernel; growSeconds: number; resumes: number } {
+  if (!existsSync(path)) throw new UsageError(`--resume: no checkpoint at "${path}"; allowed: the --out folder of an unfinished tendril grow run with --checkpoint-every`);
+  const task = growTask(o);
+  let c;
+  try {
+    c = readCheckpointFile(path, task.particles);
+  } catch (err) {
+    throw new UsageError(`--resume: "${path}" cannot be read: ${firstLine(messageOf(err))}`);
+  }
+  const s = c.state;
+  if (s.engineVersion !== ENGINE_VERSION) throw new UsageError(`--resume: the checkpoint was written by engine ${s.engineVersion}; allowed: one of this build's engine ${ENGINE_VERSION}`);
+  for (const [field, was, now] of [
+    ['--model', s.task.model.kind, task.model.kind],
+    ['--particles', s.task.particles, task.particles],
+    ['--seed', s.task.ensembleSeed, task.ensembleSeed],
+    ['--records-per-decade', s.task.recordsPerDecade, task.recordsPerDecade],
+    ['--param', canonicalJson(s.task.model.params), canonicalJson(task.model.params)],
+  ] as const) {
+    if (was !== now) throw new UsageError(`${field}: ${String(now)} differs from the checkpoint's ${String(was)}; allowed: the options of the interrupted run`);
+  }
+  try {
+    return { kernel: createKernel(task, s as GrowthCheckpoint), growSeconds: c.growSeconds, resumes: c.resumes };
+  } catch (err) {
+    throw new UsageError(`--resume: "${path}" cannot be resumed: ${firstLine(messageOf(err))}`);
+  }
+}
+
 export function register(program: Command): void {
   program
     .command('grow')
     .description('grow one cluster of a model (see tendril models) and write its run result, snapshot and picture')
-    .option('--particles <n>', 'cluster size, seed particle included (integer in [2, 100000000])')
+    .option('--particles <n>', 'cluster size, seed particle included (integer in [2, 1000000000])')
     .option('--seed <s>', 'ensemble seed, unsigned 64-bit integer in decimal (the cluster is run 0)')
     .option('--out <dir>', 'output folder, created if missing')
     .option('--model <kind>', `growth model, one of ${MODEL_KINDS.join(', ')} (default ${MODEL_KINDS[0]})`)
@@ -267,6 +341,8 @@ export function register(program: Command): void {
     .option('--picture-size <px>', `side of cluster.png in pixels, in [64, 8192] (default ${DEFAULT_PICTURE_SIZE})`)
     .option('--records-per-decade <k>', `observable records per decade of size, in [${RECORDS_PER_DECADE.min}, ${RECORDS_PER_DECADE.max}] (default ${DEFAULT_RECORDS_PER_DECADE}, as in a spec)`)
     .option('--quiet', 'no progress display')
+    .option('--checkpoint-every <s>', `write OUT/${CHECKPOINT_FILE} every this many seconds of growth, in [${CHECKPOINT_EVERY_SECONDS.min}, ${CHECKPOINT_EVERY_SECONDS.max}] (default: none)`)
+    .option('--resume', `continue from OUT/${CHECKPOINT_FILE} (same options as the interrupted run); the result is the same bits as an uninterrupted run`)
     .action((raw: Record<string, unknown>) => {
       runGrow(parseGrowOptions(raw));
     });

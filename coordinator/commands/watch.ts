@@ -1,10 +1,11 @@
-/** `tendril watch ID`: a live progress bar of an ensemble until it ends. */
+/** `tendril watch ID`: a live progress bar of an ensemble (or of all members of a sweep) until it ends. */
 import type { Command } from 'commander';
 import { createProgress } from '../progress/index.js';
 import { UsageError } from '../usage-error.js';
-import { requireStatus, statusLine } from './ensembles.js';
+import { requireStatus, statusLine, sweepStatusLines } from './ensembles.js';
 import { addFarmOptions, openReader, type FarmCliOptions } from './farm-options.js';
-import { readEnsembleStatus } from '../farm/ensemble-status.js';
+import { readEnsembleStatus, type EnsembleStatus } from '../farm/ensemble-status.js';
+import { readSweepStatus, type SweepStatus } from '../farm/sweep-status.js';
 import { positiveInt } from './option-values.js';
 
 export function register(program: Command): void {
@@ -19,7 +20,9 @@ export function register(program: Command): void {
     if (!['auto', 'bar', 'lines', 'none'].includes(opts.progress)) throw new UsageError(`--progress: "${opts.progress}" is not allowed; allowed: auto, bar, lines, none`);
     let farm = await openReader(opts);
     try {
-      let s = await requireStatus(farm.reader, farm.prefix, id);
+      // an ensemble id, or a sweep id (then the bar counts the particles of all its members)
+      const read = async (): Promise<EnsembleStatus | SweepStatus | null> => (await readSweepStatus(farm.reader, farm.prefix, id)) ?? (await readEnsembleStatus(farm.reader, farm.prefix, id));
+      let s: EnsembleStatus | SweepStatus = (await readSweepStatus(farm.reader, farm.prefix, id)) ?? (await requireStatus(farm.reader, farm.prefix, id));
       const bar = createProgress({ total: s.particles.total, unit: 'particles', label: s.name, mode: opts.progress as 'auto' });
       let stop = false;
       const onSig = () => (stop = true);
@@ -30,7 +33,7 @@ export function register(program: Command): void {
           if (s.state !== 'running' || stop) break;
           await new Promise((r) => setTimeout(r, opts.every * 1000));
           try {
-            s = (await readEnsembleStatus(farm.reader, farm.prefix, id)) ?? s;
+            s = (await read()) ?? s;
           } catch {
             // Redis went away (restarted, link lost): keep the last status and connect again at the next refresh
             farm.close();
@@ -41,7 +44,7 @@ export function register(program: Command): void {
         process.off('SIGINT', onSig);
         bar.stop();
       }
-      process.stdout.write(statusLine(s) + '\n');
+      process.stdout.write(('members' in s ? sweepStatusLines(s).join('\n') : statusLine(s)) + '\n');
       if (s.state === 'failed') process.exitCode = 1;
     } finally {
       farm.close();

@@ -57,7 +57,8 @@ export async function launchIdempotent(store: EnsembleStore, queue: Queue, spec:
   return { id, created: false };
 }
 
-async function launchRemainder(store: EnsembleStore, queue: Queue, spec: EnsembleSpec, id: string): Promise<void> {
+/** Queue the jobs of an ensemble whose launch was cut short (fixed job ids: none is queued twice). */
+export async function launchRemainder(store: EnsembleStore, queue: Queue, spec: EnsembleSpec, id: string): Promise<void> {
   const plan = planEnsemble(id, spec);
   const jobs = jobsOfPlan(id, plan.jobs);
   for (let i = 0; i < jobs.length; i += 500) await queue.addBulk(jobs.slice(i, i + 500));

@@ -7,6 +7,12 @@
  *   GET  /ensembles/:id              status: runs by state, particles done, throughput, ETA
  *   POST /ensembles/:id/cancel       cancel; token required
  *   GET  /ensembles/:id/summary?format=json|csv|pb[&table=NAME]
+ *   GET  /sweeps                     sweeps with their totals, newest first
+ *   GET  /sweeps/:id                 a sweep (POST /ensembles with a swept parameter answers
+ *                                    {id, status: "/sweeps/ID", ensembles: [member ids]}): totals
+ *                                    and each member's status
+ *   GET  /sweeps/:id/summary?format=json|csv   the sweep's D(parameter) table (tendril.sweep/1)
+ *   GET  /sweeps/:id/figure.svg      its D(parameter) plot (the web page of a sweep is /sweep/:id)
  *   POST /probes                     probe a point set of your own on the farm: body = {csv | points,
  *                                    walkers, seed, jobs?, q?, contact_sample?, min_step?, window?, name?};
  *                                    token required; 201 {id, status}
@@ -47,11 +53,15 @@ import { keptPositions, snapshotOf } from '../export/cluster-export.js';
 import { modelDescriptor } from '../../worker/models/registry.js';
 import type { EnsembleStore } from '../farm/store.js';
 import { ENSEMBLE_ID_PATTERN } from '../plan.js';
-import { parseSpecText, SpecError, SPEC_SCHEMA, specDocumentProblems, validateSpec, type SpecLimits } from '../spec/index.js';
+import { parseSpecText, SpecError, SPEC_SCHEMA, type SpecLimits } from '../spec/index.js';
 import { compileChecker } from '../spec/schema-messages.js';
 import { nestingProblem } from '../spec/document-limits.js';
 import { SummaryCache } from './summary-cache.js';
-import { IDEMPOTENCY_KEY_PATTERN, IdempotencyConflict, launchIdempotent } from '../farm/idempotent-launch.js';
+import { IDEMPOTENCY_KEY_PATTERN, IdempotencyConflict, idempotentEnsembleId, launchIdempotent } from '../farm/idempotent-launch.js';
+import { launchSweep, readSweepStatus, sweepExists, sweepIds, sweepSummaryOf } from '../farm/sweeps.js';
+import { launchDocumentProblems, validateLaunch } from '../spec/sweep.js';
+import { sweepToCsv, sweepToJson } from '../summary/sweep-summary.js';
+import { sweepFigure } from '../report/sweep-report.js';
 import { launchProbeRequest, PROBE_REQUEST_SCHEMA, probeRequestProblems, ProbeRequestError, ProbeRequestStore, validateProbeRequest } from '../farm/probe-requests.js';
 import { registerWebRoutes } from './web-routes.js';
 import { CSV_TABLE_NAMES, renderSummary, SUMMARY_FORMATS, type SummaryFormat, type SummaryOptions } from '../summary/index.js';
@@ -151,7 +161,7 @@ export function buildApi(o: ApiOptions): FastifyInstance {
     const id = (schema as { $id?: string }).$id;
     const isSpec = id === SPEC_SCHEMA.$id;
     const isBody = isSpec || id === PROBE_REQUEST_SCHEMA.$id;
-    const check = isSpec ? specDocumentProblems : id === PROBE_REQUEST_SCHEMA.$id ? probeRequestProblems : compileChecker(schema);
+    const check = isSpec ? launchDocumentProblems : id === PROBE_REQUEST_SCHEMA.$id ? probeRequestProblems : compileChecker(schema);
     return (data: unknown) => {
       const deep = isBody ? nestingProblem(data, isSpec ? 'spec' : 'body') : null;
       const problems = deep !== null ? [deep] : check(data);
@@ -262,8 +272,8 @@ export function buildApi(o: ApiOptions): FastifyInstance {
         body: SPEC_SCHEMA,
         headers: { type: 'object', properties: { 'idempotency-key': { type: 'string', description: 'repeat-safe creation: the same key and spec give the same ensemble (200 on a repeat)' } } },
         response: {
-          200: { type: 'object', properties: { id: { type: 'string' }, status: { type: 'string' } } },
-          201: { type: 'object', properties: { id: { type: 'string' }, status: { type: 'string' } } },
+          200: { type: 'object', properties: { id: { type: 'string' }, status: { type: 'string' }, ensembles: { type: 'array', items: { type: 'string' }, description: 'a sweep: its member ensembles, in order of value' } } },
+          201: { type: 'object', properties: { id: { type: 'string' }, status: { type: 'string' }, ensembles: { type: 'array', items: { type: 'string' }, description: 'a sweep: its member ensembles, in order of value' } } },
           400: ERROR_SCHEMA, 401: ERROR_SCHEMA, 422: ERROR_SCHEMA, 503: ERROR_SCHEMA,
         },
       },
@@ -274,7 +284,15 @@ export function buildApi(o: ApiOptions): FastifyInstance {
         if (key !== undefined && (typeof key !== 'string' || !IDEMPOTENCY_KEY_PATTERN.test(key))) {
           throw new ApiError(400, `idempotency-key: ${JSON.stringify(String(key).slice(0, 40))} is not allowed; allowed: 1 to 128 printable characters without spaces`);
         }
-        const spec = validateSpec(req.body, o.limits);
+        const launchable = validateLaunch(req.body, o.limits);
+        if (launchable.kind === 'sweep') {
+          const got = await launchSweep(o.store, o.queue, launchable.sweep, typeof key === 'string' ? { idempotencyKey: key } : {});
+          return reply.code(got.created ? 201 : 200).send({ id: got.id, status: `/sweeps/${got.id}`, ensembles: got.memberIds });
+        }
+        const spec = launchable.spec;
+        if (typeof key === 'string' && (await sweepExists(o.store, idempotentEnsembleId(o.store.prefix, key)))) {
+          throw new IdempotencyConflict('idempotency-key: used before for a sweep; allowed: a new key for a single ensemble');
+        }
         if (typeof key === 'string') {
           const got = await launchIdempotent(o.store, o.queue, spec, key);
           return reply.code(got.created ? 201 : 200).send({ id: got.id, status: `/ensembles/${got.id}` });
@@ -312,6 +330,43 @@ export function buildApi(o: ApiOptions): FastifyInstance {
         throw new ApiError(409, `id: "${req.params.id}" has already finished (state ${st?.state ?? 'done'}); there is nothing to cancel`);
       }
       return { id: req.params.id, cancelled: true, alreadyCancelled: outcome === 'already-cancelled' };
+    },
+  );
+
+  app.get('/sweeps', async () => {
+    // newest first, as GET /ensembles
+    const all = await Promise.all((await sweepIds(o.store.reads, o.store.prefix, 100)).map((id) => readSweepStatus(o.store.reads, o.store.prefix, id)));
+    return { sweeps: all.filter((s) => s !== null) };
+  });
+
+  app.get<{ Params: { id: string } }>('/sweeps/:id', { schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA } } }, async (req) => {
+    checkId(req.params.id);
+    const s = await readSweepStatus(o.store.reads, o.store.prefix, req.params.id);
+    if (!s) throw new ApiError(404, `id: "${req.params.id}" is not a sweep of this farm`);
+    return s;
+  });
+
+  app.get<{ Params: { id: string } }>('/sweeps/:id/figure.svg', { schema: { params: ID_PARAMS, response: { 404: ERROR_SCHEMA } } }, async (req, reply) => {
+    checkId(req.params.id);
+    const got = await sweepSummaryOf(o.store, req.params.id, (mid) => summaries.get(mid));
+    if (!got) throw new ApiError(404, `id: "${req.params.id}" is not a sweep of this farm`);
+    return reply.header('content-type', 'image/svg+xml; charset=utf-8').send(sweepFigure(got.summary).svg);
+  });
+
+  app.get<{ Params: { id: string }; Querystring: { format?: string } }>(
+    '/sweeps/:id/summary',
+    { schema: { params: ID_PARAMS, querystring: { type: 'object', properties: { format: { type: 'string', enum: ['json', 'csv'] } } }, response: { 404: ERROR_SCHEMA } } },
+    async (req, reply) => {
+      checkId(req.params.id);
+      const format = req.query.format ?? 'json';
+      // member summaries from the cache: built once per member state, off the event loop
+      const got = await sweepSummaryOf(o.store, req.params.id, (mid) => summaries.get(mid));
+      if (!got) throw new ApiError(404, `id: "${req.params.id}" is not a sweep of this farm`);
+      return reply
+        .header('content-type', format === 'csv' ? 'text/csv; charset=utf-8' : 'application/json; charset=utf-8')
+        .header('content-disposition', `attachment; filename="${got.record.id}-sweep.${format}"`)
+        .header('x-summary-partial', got.summary.partial ? 'true' : 'false')
+        .send(format === 'csv' ? sweepToCsv(got.summary) : sweepToJson(got.summary));
     },
   );
 

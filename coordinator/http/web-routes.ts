@@ -5,6 +5,8 @@
  *   GET /                               every ensemble: state, progress, particles/s chart, time left, failures
  *   GET /view/:id                       one ensemble: progress, probes, report plots, cluster picture,
  *                                       summary downloads, cancel (needs the API token)
+ *   GET /sweep/:id                      one sweep: totals, members (links to /view/MEMBER), the D(parameter)
+ *                                       figure (GET /sweeps/:id/figure.svg, in server.ts) and table downloads
  *   GET /web/:file                      the page's own scripts and style (no CDN: works on a closed network)
  *   GET /ensembles/:id/figures          {clustersDone, partial, figures: [{name, title, titleRuns, caption, note, svg}], notes}
  *                                       (titleRuns: the title as runs of text, shift -1 subscript, 1 superscript)
@@ -29,6 +31,8 @@ const WEB_DIR = join(dirname(fileURLToPath(import.meta.url)), 'web');
 const ASSETS: Record<string, string> = {
   'index.html': 'text/html; charset=utf-8',
   'view.html': 'text/html; charset=utf-8',
+  'sweep.html': 'text/html; charset=utf-8',
+  'sweep.js': 'text/javascript; charset=utf-8',
   'common.js': 'text/javascript; charset=utf-8',
   'chart.js': 'text/javascript; charset=utf-8',
   'index.js': 'text/javascript; charset=utf-8',
@@ -66,6 +70,10 @@ export function registerWebRoutes(app: FastifyInstance, o: WebOptions): void {
   app.get<{ Params: { id: string } }>('/view/:id', async (req, reply) => {
     checkId(req.params.id);
     return reply.header('content-type', ASSETS['view.html']).send(asset('view.html'));
+  });
+  app.get<{ Params: { id: string } }>('/sweep/:id', async (req, reply) => {
+    checkId(req.params.id);
+    return reply.header('content-type', ASSETS['sweep.html']).send(asset('sweep.html'));
   });
   app.get<{ Params: { file: string } }>('/web/:file', async (req, reply) => {
     const type = ASSETS[req.params.file];

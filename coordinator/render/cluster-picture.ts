@@ -18,6 +18,7 @@
  */
 import { PNG } from 'pngjs';
 import type { PointSet } from '../snapshot/cluster-snapshot.js';
+import type { ClusterPositions } from '../../worker/core/growth-kernel.js';
 import { buildPalette, parseHex, PALETTE_SIZE } from './palette.js';
 
 export type Background = 'dark' | 'white';
@@ -49,8 +50,19 @@ export interface Raster {
   originY: number;
 }
 
-/** Rasterise a point set into a fresh RGBA buffer. */
-export function rasterizeCluster(points: PointSet, options: PictureOptions = {}): Raster {
+/**
+ * A cluster's centres read in place from its dimension-strided positions
+ * (x at coords[i·d], y at coords[i·d + 1]; a 3D cluster is projected), so a
+ * giant cluster is drawn without a copy of its coordinates.
+ */
+export interface StridedPoints {
+  positions: ClusterPositions;
+  /** Contact distance between centres (particle diameter). */
+  diameter: number;
+}
+
+/** Rasterise a point set (or a kernel's positions, read in place) into a fresh RGBA buffer. */
+export function rasterizeCluster(points: PointSet | StridedPoints, options: PictureOptions = {}): Raster {
   const size = options.size ?? DEFAULT_PICTURE_SIZE;
   if (!Number.isInteger(size) || size < 1 || size > 16384) throw new RangeError(`picture size must be an integer in [1, 16384], got ${size}`);
   const margin = options.margin ?? 0.03;
@@ -59,9 +71,14 @@ export function rasterizeCluster(points: PointSet, options: PictureOptions = {})
   const bg = parseHex(background === 'dark' ? DARK_BACKGROUND : WHITE_BACKGROUND);
   const lut = background === 'dark' ? buildPalette(PALETTE_SIZE, 0, 1) : buildPalette(PALETTE_SIZE, 0.7, 0);
 
-  const n = points.count;
-  const xs = points.x;
-  const ys = points.y;
+  // centre i is (xs[xo + i·stride], ys[yo + i·stride])
+  const strided = 'positions' in points;
+  const n = strided ? points.positions.count : points.count;
+  const xs = strided ? points.positions.coords : points.x;
+  const ys = strided ? points.positions.coords : points.y;
+  const stride = strided ? points.positions.dimension : 1;
+  const xo = 0;
+  const yo = strided ? 1 : 0;
   const radius = 0.5 * points.diameter;
 
   let minX = Infinity;
@@ -69,8 +86,8 @@ export function rasterizeCluster(points: PointSet, options: PictureOptions = {})
   let minY = Infinity;
   let maxY = -Infinity;
   for (let i = 0; i < n; i++) {
-    const x = xs[i];
-    const y = ys[i];
+    const x = xs[xo + i * stride];
+    const y = ys[yo + i * stride];
     // x - x + y - y is NaN exactly when a coordinate is NaN or infinite
     if (x - x + y - y !== 0) throw new RangeError('picture: point coordinates must be finite');
     if (x < minX) minX = x;
@@ -101,8 +118,8 @@ export function rasterizeCluster(points: PointSet, options: PictureOptions = {})
   const colourScale = n > 1 ? (PALETTE_SIZE - 1) / (n - 1) : 0;
   if (rPx < DOT_RADIUS_PX) {
     for (let i = 0; i < n; i++) {
-      const px = Math.floor(originX + scale * xs[i]);
-      const py = Math.floor(originY - scale * ys[i]);
+      const px = Math.floor(originX + scale * xs[xo + i * stride]);
+      const py = Math.floor(originY - scale * ys[yo + i * stride]);
       if (px < 0 || py < 0 || px >= size || py >= size) continue;
       const c = 3 * Math.floor(i * colourScale);
       const o = 4 * (py * size + px);
@@ -113,8 +130,8 @@ export function rasterizeCluster(points: PointSet, options: PictureOptions = {})
   } else {
     const reach = rPx + 0.5;
     for (let i = 0; i < n; i++) {
-      const fx = originX + scale * xs[i];
-      const fy = originY - scale * ys[i];
+      const fx = originX + scale * xs[xo + i * stride];
+      const fy = originY - scale * ys[yo + i * stride];
       const c = 3 * Math.floor(i * colourScale);
       const cr = lut[c];
       const cg = lut[c + 1];
@@ -156,6 +173,6 @@ export function encodePng(raster: Raster): Buffer {
 }
 
 /** Rasterise and encode in one go. */
-export function renderClusterPng(points: PointSet, options: PictureOptions = {}): Buffer {
+export function renderClusterPng(points: PointSet | StridedPoints, options: PictureOptions = {}): Buffer {
   return encodePng(rasterizeCluster(points, options));
 }

@@ -343,7 +343,7 @@ function headerSection(input: ReportInput, title: string): string {
   return `<header><h1>${escapeHtml(title)}</h1>${headline}${mismatch}<table id="facts"><tbody>${factRows}</tbody></table>${spec}</header>`;
 }
 
-const CSS = `
+export const CSS = `
 body { font-family: ${FONT_FAMILY}; margin: 24px auto; max-width: 1120px; padding: 0 16px; color: #111; line-height: 1.4; }
 h1 { font-size: 26px; margin-bottom: 6px; } h2 { margin-top: 34px; border-bottom: 1px solid #ccc; padding-bottom: 4px; } h3 { margin-bottom: 6px; }
 table { border-collapse: collapse; margin: 8px 0 14px; font-size: 14px; display: block; max-width: 100%; overflow-x: auto; }
@@ -358,11 +358,11 @@ figcaption { font-size: 14px; color: #333; max-width: 860px; } figcaption a { ma
 code, pre { font-family: 'DejaVu Sans Mono', Menlo, Consolas, monospace; font-size: 12.5px; } pre { background: #f7f7f7; padding: 8px; overflow-x: auto; }
 `;
 
-function fontFaces(): string {
+export function fontFaces(): string {
   return embeddableFonts().map((f) => `@font-face { font-family: 'Roboto'; font-style: ${f.style}; font-weight: ${f.weight === 'bold' ? 700 : 400}; src: url(data:font/ttf;base64,${f.base64}) format('truetype'); }`).join('\n');
 }
 
-function figureHtml(f: Figure, hasPng: boolean): string {
+export function figureHtml(f: Figure, hasPng: boolean): string {
   const links = `<a href="plots/${escapeHtml(f.name)}.svg">SVG</a>${hasPng ? `<a href="plots/${escapeHtml(f.name)}.png">PNG</a>` : ''}`;
   return `<figure id="figure-${escapeHtml(f.name)}">${f.svg}<figcaption>${richHtml(f.caption)} ${links}</figcaption></figure>`;
 }

@@ -8,7 +8,7 @@
 import type { EnsembleAnalysis, EstimatorName } from '../stats/analyze-ensemble.js';
 import type { EnsembleData, LogLogData } from '../stats/ensemble-data.js';
 import type { PointSet } from '../snapshot/cluster-snapshot.js';
-import { encodePng, rasterizeCluster } from '../render/cluster-picture.js';
+import { encodePng, rasterizeCluster, type StridedPoints } from '../render/cluster-picture.js';
 import { buildPalette } from '../render/palette.js';
 import { AXIS, estimateText, fmt, fmtAbscissa, labelOf, levelPercent, shownInterval, Y_AXIS } from './labels.js';
 import { COLOURS, escapeXml, FONT_FAMILY, niceStep, Plot, svgText, type Tick } from './svg-plot.js';
@@ -292,9 +292,10 @@ export interface SampleClusterPicture {
 }
 
 /** A picture of one cluster: the raster from coordinator/render inside an SVG with a scale bar and a colour key. */
-export function clusterFigure(points: PointSet, runIndex: number | null, pixels = 900): SampleClusterPicture {
+export function clusterFigure(points: PointSet | StridedPoints, runIndex: number | null, pixels = 900): SampleClusterPicture {
   const file = 'sample-cluster';
-  const title = `Sample cluster${runIndex !== null ? ` (run ${runIndex})` : ''}: ${points.count} particles`;
+  const count = 'positions' in points ? points.positions.count : points.count;
+  const title = `Sample cluster${runIndex !== null ? ` (run ${runIndex})` : ''}: ${count} particles`;
   const raster = rasterizeCluster(points, { size: pixels, background: 'dark' });
   const png = encodePng(raster);
   const W = 760, top = 34, img = 660, keyH = 70;
@@ -322,9 +323,9 @@ export function clusterFigure(points: PointSet, runIndex: number | null, pixels 
   }
   parts.push(`<rect x="${kx}" y="${ky}" width="${kw}" height="14" fill="none" stroke="#555" stroke-width="0.8"/>`);
   parts.push(svgText(kx - 8, ky + 12, 'first particle', { size: 13.5, anchor: 'end' }));
-  parts.push(svgText(kx + kw + 8, ky + 12, `particle ${points.count}`, { size: 13.5 }));
+  parts.push(svgText(kx + kw + 8, ky + 12, `particle ${count}`, { size: 13.5 }));
   parts.push(svgText(W / 2, ky + 36, 'colour: arrival order; every particle drawn as a disk of diameter 1', { size: 13.5, anchor: 'middle', colour: '#333' }));
   parts.push('</svg>');
-  const caption = `One cluster of the ensemble${runIndex !== null ? ` (run index ${runIndex})` : ''}, ${points.count} particles of diameter 1, coloured by arrival order; the picture is ${fmtAbscissa(extent)} particle diameters across, the white bar ${fmtAbscissa(bar)}.`;
+  const caption = `One cluster of the ensemble${runIndex !== null ? ` (run index ${runIndex})` : ''}, ${count} particles of diameter 1, coloured by arrival order; the picture is ${fmtAbscissa(extent)} particle diameters across, the white bar ${fmtAbscissa(bar)}.`;
   return { figure: { name: file, title, caption, svg: parts.join('\n'), note: null }, png };
 }

@@ -25,11 +25,15 @@
  * count=N, offset=32 + 8*N*k) for axis k). Because the header is 32 bytes,
  * every coordinate is 8-byte aligned from the start of the file.
  */
-import * as zlib from 'node:zlib';
+import { closeSync, fstatSync, openSync, readFileSync, readSync } from 'node:fs';
+import { writeFileAtomically } from '../../proto/atomic-file.js';
 import { endianness } from 'node:os';
 import type { ClusterPositions } from '../../worker/core/growth-kernel.js';
 import { axisOf } from '../../worker/core/positions.js';
 import { TendrilError } from '../../proto/errors.js';
+import { crc32 } from '../../proto/crc32.js';
+
+export { crc32, crc32Portable } from '../../proto/crc32.js';
 
 export const SNAPSHOT_MAGIC = 'TNDRLSNP';
 export const SNAPSHOT_VERSION = 1;
@@ -75,33 +79,6 @@ export class SnapshotError extends TendrilError {
 
 const LITTLE_ENDIAN_HOST = endianness() === 'LE';
 
-// zlib.crc32 exists from Node 20.15; a namespace import keeps older Nodes loading.
-const nativeCrc32 = (zlib as { crc32?: (data: Uint8Array) => number }).crc32;
-
-let crcTable: Uint32Array | undefined;
-
-/** Table-driven CRC-32 (IEEE), used when node:zlib has no crc32 (Node < 20.15). */
-export function crc32Portable(data: Uint8Array, start = 0, end = data.length): number {
-  if (crcTable === undefined) {
-    crcTable = new Uint32Array(256);
-    for (let n = 0; n < 256; n++) {
-      let c = n;
-      for (let k = 0; k < 8; k++) c = c & 1 ? 0xedb88320 ^ (c >>> 1) : c >>> 1;
-      crcTable[n] = c >>> 0;
-    }
-  }
-  const t = crcTable;
-  let c = 0xffffffff;
-  for (let i = start; i < end; i++) c = t[(c ^ data[i]) & 0xff] ^ (c >>> 8);
-  return (c ^ 0xffffffff) >>> 0;
-}
-
-/** CRC-32 (IEEE) of data[start, end). */
-export function crc32(data: Uint8Array, start = 0, end = data.length): number {
-  if (nativeCrc32 !== undefined) return nativeCrc32(data.subarray(start, end)) >>> 0;
-  return crc32Portable(data, start, end);
-}
-
 function validatePointSet(p: PointSet): void {
   if (p.dimension !== 2 && p.dimension !== 3) throw new RangeError(`snapshot dimension must be 2 or 3, got ${String(p.dimension)}`);
   if (!Number.isSafeInteger(p.count) || p.count < 0) throw new RangeError(`snapshot count must be a non-negative integer, got ${p.count}`);
@@ -119,6 +96,118 @@ export function snapshotByteLength(dimension: 2 | 3, count: number): number {
   return SNAPSHOT_HEADER_BYTES + 8 * count * dimension + SNAPSHOT_TRAILER_BYTES;
 }
 
+/** The 32-byte header of a snapshot of `count` points. */
+function snapshotHeader(dimension: 2 | 3, count: number, diameter: number, arrivalOrder: boolean): Buffer {
+  const buf = Buffer.alloc(SNAPSHOT_HEADER_BYTES);
+  const view = new DataView(buf.buffer, buf.byteOffset, buf.byteLength);
+  buf.write(SNAPSHOT_MAGIC, 0, 'latin1');
+  view.setUint16(8, SNAPSHOT_VERSION, true);
+  view.setUint8(10, dimension);
+  view.setUint8(11, arrivalOrder ? FLAG_ARRIVAL_ORDER : 0);
+  view.setUint32(12, SNAPSHOT_HEADER_BYTES, true);
+  view.setBigUint64(16, BigInt(count), true);
+  view.setFloat64(24, diameter, true);
+  return buf;
+}
+
+/** Values per chunk when a snapshot is streamed to or from a file (1 MiB of float64). */
+const STREAM_CHUNK = 1 << 17;
+
+/**
+ * Write the first `count` centres of dimension-strided positions as a
+ * snapshot file, streamed: the axes are gathered 1 MiB at a time into one
+ * reused buffer, so no copy of the cluster is ever held (a giant cluster's
+ * snapshot costs 1 MiB of memory, not 16 bytes per particle). The file is
+ * published whole (proto/atomic-file.ts). Same bytes as encodeSnapshot.
+ */
+export function writeSnapshotFile(path: string, p: ClusterPositions, diameter: number, count = p.count): void {
+  const d = p.dimension;
+  if (d !== 2 && d !== 3) throw new RangeError(`snapshot dimension must be 2 or 3, got ${String(d)}`);
+  if (!(Number.isFinite(diameter) && diameter > 0)) throw new RangeError(`snapshot diameter must be a finite number > 0, got ${diameter}`);
+  const n = Math.min(count, p.count);
+  writeFileAtomically(path, (put) => {
+    const header = snapshotHeader(d, n, diameter, true);
+    put(header);
+    let crc = crc32(header);
+    const chunk = new Float64Array(STREAM_CHUNK);
+    const bytes = new Uint8Array(chunk.buffer);
+    const view = new DataView(chunk.buffer);
+    const c = p.coords;
+    for (let k = 0; k < d; k++) {
+      for (let i0 = 0; i0 < n; i0 += STREAM_CHUNK) {
+        const m = Math.min(STREAM_CHUNK, n - i0);
+        if (LITTLE_ENDIAN_HOST) for (let i = 0; i < m; i++) chunk[i] = c[(i0 + i) * d + k];
+        else for (let i = 0; i < m; i++) view.setFloat64(8 * i, c[(i0 + i) * d + k], true);
+        const part = bytes.subarray(0, 8 * m);
+        crc = crc32(part, 0, part.length, crc);
+        put(part);
+      }
+    }
+    const trailer = Buffer.alloc(SNAPSHOT_TRAILER_BYTES);
+    trailer.writeUInt32LE(crc >>> 0, 0);
+    put(trailer);
+  });
+}
+
+/**
+ * Read a snapshot file, streamed: the header first, then each axis straight
+ * into its own array (no buffer of the whole file), the CRC computed on the
+ * way. Same checks and messages as decodeSnapshot.
+ */
+export function readSnapshotFile(path: string): DecodedPointSet {
+  const fd = openSync(path, 'r');
+  try {
+    const size = fstatSync(fd).size;
+    const head = Buffer.alloc(SNAPSHOT_HEADER_BYTES);
+    const got = size >= SNAPSHOT_HEADER_BYTES + SNAPSHOT_TRAILER_BYTES ? readSync(fd, head, 0, SNAPSHOT_HEADER_BYTES, 0) : 0;
+    if (got < SNAPSHOT_HEADER_BYTES) {
+      // too short to stream: the whole-buffer decoder gives the precise message
+      return decodeSnapshot(readFileSync(path));
+    }
+    const n = checkedSnapshotHeader(head, size);
+    const d = head.readUInt8(10) as 2 | 3;
+    let crc = crc32(head);
+    const axes: Float64Array[] = [];
+    let at = SNAPSHOT_HEADER_BYTES;
+    for (let k = 0; k < d; k++) {
+      const a = new Float64Array(n);
+      const bytes = new Uint8Array(a.buffer);
+      for (let o = 0; o < bytes.length; ) {
+        const len = Math.min(8 * STREAM_CHUNK, bytes.length - o);
+        const r = readSync(fd, bytes, o, len, at);
+        if (r <= 0) throw new SnapshotError(`snapshot ended early at byte ${at} of ${size}`);
+        crc = crc32(bytes, o, o + r, crc);
+        o += r;
+        at += r;
+      }
+      if (!LITTLE_ENDIAN_HOST) {
+        const view = new DataView(a.buffer);
+        for (let i = 0; i < n; i++) a[i] = view.getFloat64(8 * i, true);
+      }
+      axes.push(a);
+    }
+    const trailer = Buffer.alloc(SNAPSHOT_TRAILER_BYTES);
+    readSync(fd, trailer, 0, SNAPSHOT_TRAILER_BYTES, at);
+    const stored = trailer.readUInt32LE(0);
+    if (stored !== crc >>> 0) {
+      throw new SnapshotError(`snapshot checksum mismatch: stored CRC-32 0x${stored.toString(16).padStart(8, '0')}, computed 0x${(crc >>> 0).toString(16).padStart(8, '0')}`);
+    }
+    const out: DecodedPointSet = {
+      dimension: d,
+      count: n,
+      x: axes[0],
+      y: axes[1],
+      diameter: head.readDoubleLE(24),
+      arrivalOrder: (head.readUInt8(11) & FLAG_ARRIVAL_ORDER) !== 0,
+      version: SNAPSHOT_VERSION,
+    };
+    if (d === 3) out.z = axes[2];
+    return out;
+  } finally {
+    closeSync(fd);
+  }
+}
+
 /** Encode a point set into the snapshot format described in the file header. */
 export function encodeSnapshot(p: PointSet): Buffer {
   validatePointSet(p);
@@ -127,13 +216,7 @@ export function encodeSnapshot(p: PointSet): Buffer {
   const total = snapshotByteLength(d, n);
   const buf = Buffer.alloc(total);
   const view = new DataView(buf.buffer, buf.byteOffset, buf.byteLength);
-  buf.write(SNAPSHOT_MAGIC, 0, 'latin1');
-  view.setUint16(8, SNAPSHOT_VERSION, true);
-  view.setUint8(10, d);
-  view.setUint8(11, p.arrivalOrder === false ? 0 : FLAG_ARRIVAL_ORDER);
-  view.setUint32(12, SNAPSHOT_HEADER_BYTES, true);
-  view.setBigUint64(16, BigInt(n), true);
-  view.setFloat64(24, p.diameter, true);
+  buf.set(snapshotHeader(d, n, p.diameter, p.arrivalOrder !== false), 0);
   const axes = d === 3 ? [p.x, p.y, p.z as Float64Array] : [p.x, p.y];
   let off = SNAPSHOT_HEADER_BYTES;
   for (const a of axes) {
@@ -148,11 +231,8 @@ export function encodeSnapshot(p: PointSet): Buffer {
   return buf;
 }
 
-/** Decode and validate a snapshot; throws SnapshotError with a one-line message. */
-export function decodeSnapshot(bytes: Uint8Array): DecodedPointSet {
-  if (bytes.length < SNAPSHOT_HEADER_BYTES + SNAPSHOT_TRAILER_BYTES) {
-    throw new SnapshotError(`snapshot is ${bytes.length} bytes, shorter than the ${SNAPSHOT_HEADER_BYTES + SNAPSHOT_TRAILER_BYTES}-byte minimum`);
-  }
+/** Check a snapshot's 32-byte header against the file's total length; returns the particle count. */
+function checkedSnapshotHeader(bytes: Uint8Array, totalLength: number): number {
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   const magic = Buffer.from(bytes.buffer, bytes.byteOffset, 8).toString('latin1');
   if (magic !== SNAPSHOT_MAGIC) throw new SnapshotError(`snapshot magic is ${JSON.stringify(magic)}, expected "${SNAPSHOT_MAGIC}"`);
@@ -168,11 +248,26 @@ export function decodeSnapshot(bytes: Uint8Array): DecodedPointSet {
   if (countBig > BigInt(Number.MAX_SAFE_INTEGER)) throw new SnapshotError(`snapshot particle count ${countBig} exceeds 2^53 - 1`);
   const n = Number(countBig);
   const expected = snapshotByteLength(d, n);
-  if (bytes.length !== expected) {
-    throw new SnapshotError(`snapshot is ${bytes.length} bytes, expected ${expected} for ${n} particles in ${d} dimensions`);
+  if (totalLength !== expected) {
+    throw new SnapshotError(`snapshot is ${totalLength} bytes, expected ${expected} for ${n} particles in ${d} dimensions`);
   }
   const diameter = view.getFloat64(24, true);
   if (!(Number.isFinite(diameter) && diameter > 0)) throw new SnapshotError(`snapshot diameter is ${diameter}, expected a finite number > 0`);
+  return n;
+}
+
+/** Decode and validate a snapshot; throws SnapshotError with a one-line message. */
+export function decodeSnapshot(bytes: Uint8Array): DecodedPointSet {
+  if (bytes.length < SNAPSHOT_HEADER_BYTES + SNAPSHOT_TRAILER_BYTES) {
+    throw new SnapshotError(`snapshot is ${bytes.length} bytes, shorter than the ${SNAPSHOT_HEADER_BYTES + SNAPSHOT_TRAILER_BYTES}-byte minimum`);
+  }
+  const n = checkedSnapshotHeader(bytes, bytes.length);
+  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  const d = view.getUint8(10) as 2 | 3;
+  const flags = view.getUint8(11);
+  const version = view.getUint16(8, true);
+  const diameter = view.getFloat64(24, true);
+  const expected = snapshotByteLength(d, n);
   const crcAt = expected - SNAPSHOT_TRAILER_BYTES;
   const stored = view.getUint32(crcAt, true);
   const actual = crc32(bytes, 0, crcAt);

@@ -21,6 +21,11 @@
  *              10^6 and 10^7, off-lattice at 10^5 and 10^6): particles/s, peak RSS
  *   lattice    test/bench/lattice-bench.ts: square-lattice DLA at 10^5 and 10^6,
  *              triangular at 10^5: particles/s, moves per particle, peak RSS
+ *   giant      test/bench/giant-bench.ts (opt-in: only with --only giant): 2D
+ *              off-lattice DLA at 10^5, 10^6, 10^7 (--sizes; --giant-1e8 adds
+ *              10^8): particles/s, jumps, peak RSS, bytes per particle,
+ *              checkpoint write/read times; --kill-resume [--kill-size N]
+ *              SIGKILLs a tendril grow after a checkpoint and resumes it
  *   dbm        test/bench/dbm-bench.ts: off-lattice DBM at η = 0.5, 2 (to 10^5)
  *              and 4 (to 10^4): particles/s and walkers per particle against N,
  *              within --dbm-seconds per η (default 600)
@@ -33,10 +38,13 @@ import { runFarmBenchmark } from './farm-bench.js';
 import { runProbeBenchmark } from './probe-bench.js';
 import { runProbeScalingBenchmark } from './probe-scaling-bench.js';
 import { runLatticeBenchmark } from './lattice-bench.js';
+import { giantOptionsFromArgs, runGiantBenchmark } from './giant-bench.js';
 import { runDbmBenchmark } from './dbm-bench.js';
 import { runDbmCapBenchmark } from './dbm-cap-bench.js';
 
-const PARTS = ['growth', 'dla3d', 'aggregate', 'probe', 'probe-scaling', 'farm', 'eden', 'lattice', 'dbm', 'dbm-cap'] as const;
+const PARTS = ['growth', 'dla3d', 'aggregate', 'probe', 'probe-scaling', 'farm', 'eden', 'lattice', 'dbm', 'dbm-cap', 'giant'] as const;
+/** Parts run only when named in --only (long, and not for CI). */
+const OPT_IN: readonly string[] = ['giant'];
 /** Default sizes of the dla3d part. */
 const DLA3D_SIZES = [100_000, 1_000_000];
 type Part = (typeof PARTS)[number];
@@ -45,7 +53,7 @@ export function partsFromArgs(argv: string[]): Part[] {
   const i = argv.indexOf('--only');
   const eq = argv.find((a) => a.startsWith('--only='));
   const text = i >= 0 ? argv[i + 1] ?? '' : eq !== undefined ? eq.slice('--only='.length) : undefined;
-  if (text === undefined) return [...PARTS];
+  if (text === undefined) return PARTS.filter((p) => !OPT_IN.includes(p));
   const parts = text.split(',').map((s) => s.trim()).filter((s) => s !== '');
   const bad = parts.find((p) => !(PARTS as readonly string[]).includes(p));
   if (parts.length === 0 || bad !== undefined) throw new RangeError(`--only must be a comma-separated list of ${PARTS.join(', ')}, got "${text}"`);
@@ -64,6 +72,10 @@ async function main(argv: string[]): Promise<number> {
   for (const part of parts) {
     try {
       if (part === 'growth') await runGrowthBenchmark({ sizes: sizesFromArgs(argv) });
+      else if (part === 'giant') {
+        const given = argv.some((a) => a === '--sizes' || a.startsWith('--sizes='));
+        await runGiantBenchmark(giantOptionsFromArgs(argv, given ? sizesFromArgs(argv) : undefined));
+      }
       else if (part === 'dla3d') {
         const given = argv.some((a) => a === '--sizes' || a.startsWith('--sizes='));
         await runGrowthBenchmark({ sizes: given ? sizesFromArgs(argv) : DLA3D_SIZES, model: 'dla-offlattice-3d' });

@@ -82,7 +82,14 @@ export interface GrowthCheckpoint {
   dimension: number;
   /** Particles placed so far (seed included). */
   count: number;
-  /** Centres in arrival order, dimension-strided, at least count·dimension entries (extra ones ignored). */
+  /**
+   * Centres in arrival order, dimension-strided, at least count·dimension
+   * entries (extra ones ignored). A kernel resumed from a checkpoint whose
+   * array has room for every particle of its task (particles·dimension
+   * entries) may keep that array as its own positions: the caller must not
+   * use it afterwards (readers of giant checkpoints allocate it so, to
+   * avoid a second copy of the cluster).
+   */
   positions: Float64Array;
   /** Random generator state (see worker/core/random.ts). */
   rngState: Uint32Array;
@@ -109,6 +116,13 @@ export interface GrowthKernel {
   growTo(target: number, stop?: StopSignal): void;
   /** Snapshot of the full state; the arrays are copies. */
   checkpoint(): GrowthCheckpoint;
+  /**
+   * The same state with `positions` a view of the kernel's own array (no
+   * copy), valid until the next growTo: for writing a giant cluster's
+   * checkpoint in chunks straight to disk. Optional: kernels without it are
+   * checkpointed through checkpoint().
+   */
+  checkpointView?(): GrowthCheckpoint;
   /** A view (not a copy) of the particle centres, valid until the next growTo. */
   positions(): ClusterPositions;
   /** Counters so far (live; copy to keep). */

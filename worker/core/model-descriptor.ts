@@ -63,6 +63,16 @@ export interface ModelReference {
    * value; `note` says why (printed under the consistency panel when they disagree).
    */
   finiteSize?: { belowSize: number; note: string };
+  /**
+   * The parameter that is the dielectric-breakdown exponent η of the model
+   * (growth probability proportional to the harmonic measure to the power
+   * η), if any. A sweep over it gets the D(η) checks of
+   * coordinator/stats/breakdown-exponent.ts (the lower bound (4 − η)/2, D
+   * decreasing in η, the predicted non-fractal transition near η = 4). A
+   * model that declares nothing here and has a parameter named `eta` is
+   * taken to mean that one.
+   */
+  breakdownExponent?: string;
 }
 
 /**

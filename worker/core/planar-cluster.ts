@@ -9,7 +9,7 @@
  */
 import type { ClusterPositions, GrowthResult, GrowthSeries, GrowthTask, MassRadius } from './growth-kernel.js';
 import { ENGINE_VERSION } from './engine-version.js';
-import { countWithin, massRadiusRadii, recordSizes } from './record-sizes.js';
+import { countCentresWithin, massRadiusRadii, recordSizes } from './record-sizes.js';
 import type { StateHasher } from './state-hash.js';
 
 /** Records the model-specific observables of the first `count` centres into `extra`. */
@@ -80,11 +80,8 @@ export class PlanarCluster {
   }
 
   massRadius(recordsPerDecade: number): MassRadius {
-    const dist = new Float64Array(this.n);
-    const xy = this.xy;
-    for (let i = 0; i < this.n; i++) dist[i] = Math.sqrt(xy[2 * i] * xy[2 * i] + xy[2 * i + 1] * xy[2 * i + 1]);
     const radii = massRadiusRadii(this.rMax, recordsPerDecade);
-    return { radii, counts: countWithin(dist, radii) };
+    return { radii, counts: countCentresWithin(this.xy, 2, this.n, radii) };
   }
 
   /** The result of a finished run of `task` grown into this cluster, with the kernel's counters and state hash. */

@@ -46,3 +46,38 @@ export function countWithin(distances: Float64Array, radii: number[]): number[] 
   }
   return counts;
 }
+
+/**
+ * M(r) of dimension-strided centres straight from the positions: the number
+ * of the first `count` centres whose distance from the origin,
+ * sqrt(x² + y² (+ z²)) summed in axis order, is <= r, for each r of an
+ * increasing list. The same counts as countWithin of those distances, without
+ * holding them (a giant cluster would need 16 bytes per particle for the
+ * distances and their sorted copy): each centre is binned at the first
+ * radius that holds it, then the bins are summed.
+ */
+export function countCentresWithin(coords: Float64Array, dimension: number, count: number, radii: number[]): number[] {
+  const m = radii.length;
+  const bins = new Float64Array(m);
+  for (let i = 0, o = 0; i < count; i++, o += dimension) {
+    let s = coords[o] * coords[o];
+    for (let k = 1; k < dimension; k++) s += coords[o + k] * coords[o + k];
+    const d = Math.sqrt(s);
+    if (!(d <= radii[m - 1])) continue;
+    let lo = 0;
+    let hi = m - 1;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (d <= radii[mid]) hi = mid;
+      else lo = mid + 1;
+    }
+    bins[lo]++;
+  }
+  const counts: number[] = [];
+  let total = 0;
+  for (let j = 0; j < m; j++) {
+    total += bins[j];
+    counts.push(total);
+  }
+  return counts;
+}

@@ -8,8 +8,12 @@
  * are computed exactly in floating point (and kept as int32: `| 0`, which is
  * exact for |x| < 2^31 and keeps V8 from boxing them).
  *  - Buckets (level 0, cells of side 2): each occupied cell points to a chain
- *    of buckets, each holding up to 2 centres' coordinates inline (half a
- *    cache line), in arrival order. When the walker's level-0 cell is marked, the
+ *    of buckets, each holding the arrival indices of up to 2 centres, in
+ *    arrival order. The coordinates themselves live once, in arrival order,
+ *    in an interleaved array (x0, y0, x1, y1, …) that the index reads: the
+ *    growth kernel's own positions, or an array the index keeps when none is
+ *    given. Keeping only indices in the buckets (4 bytes per centre instead
+ *    of 16) is what keeps a giant cluster under 48 bytes per particle. When the walker's level-0 cell is marked, the
  *    3 × 3 block of cells around it is scanned exactly, visiting only the
  *    cells that hold centres (a bit grid of them, worker/index/window-bit-grid.ts,
  *    gives a row of the block in one word). The centres found are kept until
@@ -89,8 +93,6 @@ for (let dy = -GAP_RADIUS; dy <= GAP_RADIUS; dy++)
   }
 /** Centres per bucket (a cell of side 2 holds two on average in a DLA cluster; fuller cells chain buckets). */
 const BUCKET = 2;
-/** Float64 words per bucket (x, y per centre). */
-const BUCKET_WORDS = 2 * BUCKET;
 /** At most this many centres are returned by a scan (a 6 × 6 block holds far fewer unit disks). */
 const MAX_NEAR = 256;
 /** Room for the ring's centres (16 cells of side 2 hold at most about 75 unit disks); grown if ever exceeded. */
@@ -109,7 +111,7 @@ export class OccupancyIndex2d {
   /** Centres found by the last exact scan (valid when nearCount >= 0): every centre within 2 of the walker. */
   readonly nearX = new Float64Array(MAX_NEAR);
   readonly nearY = new Float64Array(MAX_NEAR);
-  /** Arrival index (insertion order, from 0) of each centre in nearX/nearY (when built with trackIds). */
+  /** Arrival index (insertion order, from 0) of each centre in nearX/nearY. */
   readonly nearId = new Int32Array(MAX_NEAR);
   /** Number of entries in nearX/nearY, or -1 when the last query did not scan exactly. */
   nearCount = -1;
@@ -131,33 +133,34 @@ export class OccupancyIndex2d {
   private ringCount = -1;
 
   /** Level-0 cell → newest bucket of its chain (-1: none). */
-  private readonly heads: TiledInt32Grid;
-  /** Bucket b holds coordinates at [4b, 4b + 2·fill[b]) as x, y pairs. */
-  private coords: Float64Array;
-  /** ids[4b + j]: arrival index of the j-th centre of bucket b. */
+  private heads: TiledInt32Grid;
+  /** Centres in arrival order, interleaved (x0, y0, x1, y1, …): the owner's array, or the index's own (ownsXy). */
+  private xy: Float64Array;
+  private readonly ownsXy: boolean;
+  /** ids[2b + j]: arrival index of the j-th centre of bucket b (j < fill[b]). */
   private ids: Int32Array;
   private fill: Uint8Array;
   private chain: Int32Array;
   private buckets = 0;
   /** marks[k]: mark cells of side 2^(k+1), k = 0..MAX_LEVEL. */
-  private readonly marks: TiledByteGrid[] = [];
+  private marks: TiledByteGrid[] = [];
   /** One bit per level-0 cell, set when the cell holds a centre (the HOLDS bits of marks[0], laid out for window reads). */
-  private readonly held0: WindowBitGrid;
+  private held0: WindowBitGrid;
   /** Level at which the next search starts (a speed hint only). */
   private guess = 1;
   private count = 0;
 
   /**
-   * `trackIds`: also record arrival indices (nearId); probing needs them,
-   * growth does not, and skipping them saves a memory access per bucket.
+   * `positions`: the interleaved centres in arrival order that the owner
+   * keeps anyway (a growth kernel's array, with room for every particle it
+   * will insert); the index reads centre i at positions[2i], positions[2i + 1]
+   * and never writes them. Without it the index keeps its own copy.
    */
-  constructor(
-    expectedParticles: number,
-    private readonly trackIds = true,
-  ) {
+  constructor(expectedParticles: number, positions?: Float64Array) {
     const expectBuckets = 1024;
-    this.coords = new Float64Array(expectBuckets * 2 * BUCKET);
-    this.ids = new Int32Array(trackIds ? expectBuckets * BUCKET : 0);
+    this.ownsXy = positions === undefined;
+    this.xy = positions ?? new Float64Array(2 * Math.max(16, Math.min(expectedParticles, 1 << 20)));
+    this.ids = new Int32Array(expectBuckets * BUCKET);
     this.fill = new Uint8Array(expectBuckets);
     this.chain = new Int32Array(expectBuckets);
     this.heads = new TiledInt32Grid(-1, Math.max(16, expectedParticles >> 6));
@@ -169,6 +172,25 @@ export class OccupancyIndex2d {
     }
   }
 
+  /**
+   * Give back the index's memory (all but a few bytes) when it will not be
+   * asked again, e.g. once a cluster is complete, so that writing a giant
+   * cluster's outputs does not hold it too. Afterwards the index is empty:
+   * `size` is 0 and queries answer as for no centres.
+   */
+  release(): void {
+    this.heads = new TiledInt32Grid(-1, 4);
+    this.held0 = new WindowBitGrid(4);
+    this.marks = this.marks.map(() => new TiledByteGrid(4));
+    this.ids = new Int32Array(0);
+    this.fill = new Uint8Array(0);
+    this.chain = new Int32Array(0);
+    this.buckets = 0;
+    this.count = 0;
+    this.scanCx = NO_CELL;
+    if (this.ownsXy) this.xy = new Float64Array(0);
+  }
+
   /** Number of centres inserted. */
   get size(): number {
     return this.count;
@@ -176,19 +198,28 @@ export class OccupancyIndex2d {
 
   /** Bytes held by the index. */
   get bytes(): number {
-    let b = this.heads.bytes + this.coords.byteLength + this.ids.byteLength + this.fill.byteLength + this.chain.byteLength;
+    let b = this.heads.bytes + this.ids.byteLength + this.fill.byteLength + this.chain.byteLength + (this.ownsXy ? this.xy.byteLength : 0);
     for (const t of this.marks) b += t.bytes;
     b += this.held0.bytes;
     return b;
   }
 
-  /** Add a centre. Insert in arrival order: scans return centres in that order. */
+  /**
+   * Add a centre. Insert in arrival order: scans return centres in that
+   * order. With an owner's positions array, (px, py) must already be its
+   * entry number `size`.
+   */
   insert(px: number, py: number): void {
+    const id = this.count;
+    if (this.ownsXy) {
+      if (2 * id + 2 > this.xy.length) this.xy = grownFloat64(this.xy, 2 * id + 2);
+      this.xy[2 * id] = px;
+      this.xy[2 * id + 1] = py;
+    }
     this.count++;
     this.scanCx = NO_CELL;
     const cx = Math.floor(px * 0.5) | 0;
     const cy = Math.floor(py * 0.5) | 0;
-    const id = this.count - 1;
     let b = this.heads.get(cx, cy);
     if (b < 0 || this.fill[b] === BUCKET) {
       const nb = this.newBucket();
@@ -197,10 +228,7 @@ export class OccupancyIndex2d {
       this.heads.set(cx, cy, nb);
       b = nb;
     }
-    const slot = BUCKET_WORDS * b + 2 * this.fill[b];
-    this.coords[slot] = px;
-    this.coords[slot + 1] = py;
-    if (this.trackIds) this.ids[BUCKET * b + this.fill[b]] = id;
+    this.ids[BUCKET * b + this.fill[b]] = id;
     this.fill[b]++;
 
     let scale = 0.5;
@@ -248,8 +276,7 @@ export class OccupancyIndex2d {
    * the total cost stays proportional to the number of particles.
    */
   private compact(cap: number): void {
-    const coords = new Float64Array(cap * 2 * BUCKET);
-    const ids = new Int32Array(this.trackIds ? cap * BUCKET : 0);
+    const ids = new Int32Array(cap * BUCKET);
     const fill = new Uint8Array(cap);
     const chain = new Int32Array(cap);
     const pool = this.heads.pool;
@@ -261,8 +288,7 @@ export class OccupancyIndex2d {
       pool[c] = nb;
       let prev = -1;
       while (b >= 0) {
-        coords.set(this.coords.subarray(BUCKET_WORDS * b, BUCKET_WORDS * b + BUCKET_WORDS), BUCKET_WORDS * nb);
-        if (this.trackIds) ids.set(this.ids.subarray(BUCKET * b, BUCKET * b + BUCKET), BUCKET * nb);
+        ids.set(this.ids.subarray(BUCKET * b, BUCKET * b + BUCKET), BUCKET * nb);
         fill[nb] = this.fill[b];
         if (prev >= 0) chain[prev] = nb;
         prev = nb;
@@ -271,7 +297,6 @@ export class OccupancyIndex2d {
       }
       chain[prev] = -1;
     }
-    this.coords = coords;
     this.ids = ids;
     this.fill = fill;
     this.chain = chain;
@@ -348,12 +373,11 @@ export class OccupancyIndex2d {
       }
     } else {
       const heads = this.heads;
-      const coords = this.coords;
+      const xy = this.xy;
       const fill = this.fill;
       const chain = this.chain;
       const nearId = this.nearId;
       const ids = this.ids;
-      const trackIds = this.trackIds;
       n = 0;
       let complete = true;
       // only the cells that hold centres (their bits in held0), row by row
@@ -367,10 +391,11 @@ export class OccupancyIndex2d {
           cells &= cells - 1;
           let b = heads.get(ix, cy + dy);
           while (b >= 0) {
-            const end = BUCKET_WORDS * b + 2 * fill[b];
-            for (let o = BUCKET_WORDS * b; o < end; o += 2) {
-              const px = coords[o];
-              const py = coords[o + 1];
+            const end = BUCKET * b + fill[b];
+            for (let o = BUCKET * b; o < end; o++) {
+              const id = ids[o];
+              const px = xy[2 * id];
+              const py = xy[2 * id + 1];
               const ddx = px - wx;
               const ddy = py - wy;
               const d2 = ddx * ddx + ddy * ddy;
@@ -378,7 +403,7 @@ export class OccupancyIndex2d {
               if (n < MAX_NEAR) {
                 nearX[n] = px;
                 nearY[n] = py;
-                if (trackIds) nearId[n] = ids[o >> 1]; // coords stride 2 per centre, ids stride 1
+                nearId[n] = id;
                 n++;
               } else complete = false;
             }
@@ -421,7 +446,8 @@ export class OccupancyIndex2d {
   /** Copy the centres of the ring of 16 level-0 cells around the 3 × 3 block at (cx, cy) into ringX/ringY. */
   private gatherRing(cx: number, cy: number): void {
     const heads = this.heads;
-    const coords = this.coords;
+    const xy = this.xy;
+    const ids = this.ids;
     const fill = this.fill;
     const chain = this.chain;
     let ringX = this.ringX;
@@ -438,8 +464,8 @@ export class OccupancyIndex2d {
         cells &= cells - 1;
         let b = heads.get(ix, cy + dy);
         while (b >= 0) {
-          const e = BUCKET_WORDS * b + 2 * fill[b];
-          for (let o = BUCKET_WORDS * b; o < e; o += 2) {
+          const e = BUCKET * b + fill[b];
+          for (let o = BUCKET * b; o < e; o++) {
             if (m === ringX.length) {
               // only for centres packed closer than unit disks allow
               this.ringX = growCopy(ringX);
@@ -447,8 +473,9 @@ export class OccupancyIndex2d {
               ringX = this.ringX;
               ringY = this.ringY;
             }
-            ringX[m] = coords[o];
-            ringY[m] = coords[o + 1];
+            const id = ids[o];
+            ringX[m] = xy[2 * id];
+            ringY[m] = xy[2 * id + 1];
             m++;
           }
           b = chain[b];
@@ -463,6 +490,13 @@ export class OccupancyIndex2d {
     const base = this.held0.tileOffset(cx, cy);
     return base < 0 ? -1 : base + (cy & CORE_MASK) + WINDOW_RADIUS;
   }
+}
+
+/** A copy of `a` with room for at least `need` entries (a quarter more at a time, so that the slack stays small). */
+function grownFloat64(a: Float64Array, need: number): Float64Array {
+  const b = new Float64Array(Math.max(need, Math.ceil(a.length * 1.25)));
+  b.set(a);
+  return b;
 }
 
 function growCopy(a: Float64Array): Float64Array<ArrayBuffer> {

@@ -1,10 +1,22 @@
 /**
  * Sparse 2D grids on a TileDirectory (worker/index/tile-directory.ts): int32 cell
  * values (list heads) and byte cell values (occupancy marks). Each pool is
- * one typed array with 64 cells per tile, grown by doubling.
+ * one typed array with 64 cells per tile, grown by poolGrowth (a quarter at
+ * a time once large, so a giant cluster carries little slack).
  */
 
 import { TILE_CELLS, TILE_MASK, TILE_SHIFT, TileDirectory, cellInTile } from './tile-directory.js';
+
+/**
+ * Length of a pool of `unit`-sized tiles grown from `length` to hold tile
+ * `tile`: doubled while small (fewer copies), a quarter more once past
+ * 2^20 entries (the slack stays under 25 % of what is used).
+ */
+export function poolGrowth(length: number, tile: number, unit: number): number {
+  const factor = length < 1 << 20 ? 2 : 1.25;
+  const tiles = Math.max(tile + 1, Math.ceil((length / unit) * factor));
+  return tiles * unit;
+}
 
 export class TiledInt32Grid {
   readonly dir: TileDirectory;
@@ -32,7 +44,7 @@ export class TiledInt32Grid {
   set(ix: number, iy: number, value: number): void {
     const t = this.dir.findOrAdd(ix >> TILE_SHIFT, iy >> TILE_SHIFT);
     if ((t + 1) * TILE_CELLS > this.pool.length) {
-      const bigger = new Int32Array(this.pool.length * 2).fill(this.blank);
+      const bigger = new Int32Array(poolGrowth(this.pool.length, t, TILE_CELLS)).fill(this.blank);
       bigger.set(this.pool);
       this.pool = bigger;
     }
@@ -79,7 +91,7 @@ export class TiledByteGrid {
         const x1 = Math.min(ix + r, (tx << TILE_SHIFT) + TILE_MASK);
         const t = this.dir.findOrAdd(tx, ty);
         if ((t + 1) * TILE_CELLS > this.pool.length) {
-          const bigger = new Uint8Array(this.pool.length * 2);
+          const bigger = new Uint8Array(poolGrowth(this.pool.length, t, TILE_CELLS));
           bigger.set(this.pool);
           this.pool = bigger;
         }
@@ -102,7 +114,7 @@ export class TiledByteGrid {
   orBits(ix: number, iy: number, bits: number): number {
     const t = this.dir.findOrAdd(ix >> TILE_SHIFT, iy >> TILE_SHIFT);
     if ((t + 1) * TILE_CELLS > this.pool.length) {
-      const bigger = new Uint8Array(this.pool.length * 2);
+      const bigger = new Uint8Array(poolGrowth(this.pool.length, t, TILE_CELLS));
       bigger.set(this.pool);
       this.pool = bigger;
     }

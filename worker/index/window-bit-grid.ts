@@ -11,6 +11,7 @@
  */
 
 import { TileDirectory } from './tile-directory.js';
+import { poolGrowth } from './tiled-grids.js';
 
 /** Cells of a window on each side of its centre cell. */
 export const WINDOW_RADIUS = 2;
@@ -62,7 +63,7 @@ export class WindowBitGrid {
       for (let dx = x0; dx <= x1; dx++) {
         const t = this.dir.findOrAdd(tx + dx, ty + dy);
         if ((t + 1) * TILE_ROWS > this.words.length) {
-          const bigger = new Int32Array(this.words.length * 2);
+          const bigger = new Int32Array(poolGrowth(this.words.length, t, TILE_ROWS));
           bigger.set(this.words);
           this.words = bigger;
         }

@@ -42,6 +42,14 @@ export interface RunOptions {
    * walk, and the run checkpoints and stops.
    */
   stopSignal?: StopSignal;
+  /**
+   * Hand checkpoints over with positions that are views of the kernel's own
+   * array (GrowthKernel.checkpointView), not copies: valid only until
+   * onCheckpoint's promise settles (or, for the stopped and final states,
+   * until the caller drops them). For callers that encode or write each
+   * checkpoint at once, so a giant cluster is never copied whole.
+   */
+  viewCheckpoints?: boolean;
   /** Target wall-clock length of a chunk (default 0.1 s). */
   chunkSeconds?: number;
   /** Called between chunks so the host can receive messages (default: yield to the event loop). */
@@ -106,7 +114,7 @@ export async function runTask(run: RunTaskData, opts: RunOptions = {}): Promise<
   const grown = () => spentBefore + (now() - growStart) / 1000;
   const takeCheckpoint = (): CheckpointData => ({
     run,
-    state: kernel.checkpoint(),
+    state: opts.viewCheckpoints && kernel.checkpointView ? kernel.checkpointView() : kernel.checkpoint(),
     growSeconds: grown(),
     startedAtMs,
     resumes,

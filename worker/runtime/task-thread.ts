@@ -56,11 +56,13 @@ function threadMain(): void {
     void (async () => {
       try {
         const run = decodeRunTask(m.task);
-        const checkpoint = m.checkpoint ? decodeCheckpoint(m.checkpoint) : undefined;
+        // room for the whole run: the kernel keeps the decoded positions as its own (no second copy)
+        const checkpoint = m.checkpoint ? decodeCheckpoint(m.checkpoint, run.particles) : undefined;
         let lastProgress = 0;
         const outcome = await runTask(run, {
           checkpoint,
           workerId: m.workerId,
+          viewCheckpoints: true, // each checkpoint is encoded at once, below
           shouldStop: () => stops.has(m.id),
           stopSignal: m.stop,
           onProgress: (p: RunProgress) => {
@@ -70,16 +72,16 @@ function threadMain(): void {
             port.postMessage({ type: 'progress', id: m.id, count: p.count, particles: p.particles, counters: p.counters } satisfies FromThread);
           },
           onCheckpoint: (c: CheckpointData) => {
-            const bytes = encodeCheckpoint(c).slice();
+            const bytes = encodeCheckpoint(c); // a buffer of its own: transferred, not copied
             port.postMessage({ type: 'checkpoint', id: m.id, bytes, count: c.state.count } satisfies FromThread, [bytes.buffer]);
           },
         });
         if (outcome.status === 'done') {
           const result = encodeRunResult(outcome.result).slice();
-          const final = outcome.final ? encodeCheckpoint(outcome.final).slice() : undefined;
+          const final = outcome.final ? encodeCheckpoint(outcome.final) : undefined;
           port.postMessage({ type: 'done', id: m.id, result, final } satisfies FromThread, final ? [result.buffer, final.buffer] : [result.buffer]);
         } else {
-          const cp = encodeCheckpoint(outcome.checkpoint).slice();
+          const cp = encodeCheckpoint(outcome.checkpoint);
           port.postMessage({ type: 'stopped', id: m.id, checkpoint: cp } satisfies FromThread, [cp.buffer]);
         }
       } catch (err) {

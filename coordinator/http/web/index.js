@@ -48,6 +48,14 @@ async function poll() {
       swatch.style.background = colourOf(i);
       return el('span', {}, swatch, s.label);
     }));
+    // sweeps: one link each to their page (their members are rows above)
+    const { sweeps } = await getJson('/sweeps');
+    document.getElementById('sweeps-card').hidden = sweeps.length === 0;
+    document.getElementById('sweeps').replaceChildren(...sweeps.map((sw) => {
+      const li = el('li', { 'data-id': sw.id, 'data-state': sw.state });
+      li.append(el('a', { href: `/sweep/${encodeURIComponent(sw.id)}`, text: sw.name || sw.id }), ` ${sw.parameter} = ${sw.values.join(', ')} `, stateBadge(sw.state), ` ${sw.runs.done} / ${sw.runs.planned} runs`);
+      return li;
+    }));
     document.getElementById('updated').textContent = `last update ${new Date(now).toLocaleTimeString()}`;
     err.hidden = true;
   } catch (e) {

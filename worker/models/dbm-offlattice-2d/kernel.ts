@@ -195,7 +195,7 @@ export class OffLatticeDbm2d implements GrowthKernel {
     this.minStep = p.min_step;
     this.launchMargin = p.launch_margin;
     this.xy = new Float64Array(2 * task.particles);
-    this.index = new OccupancyIndex2d(task.particles, true);
+    this.index = new OccupancyIndex2d(task.particles, this.xy);
     this.sizes = recordSizes(task.particles, task.recordsPerDecade);
     if (checkpoint === undefined) {
       this.rng = Random.forRun(task.ensembleSeed, task.runIndex, STREAM_GROWTH);

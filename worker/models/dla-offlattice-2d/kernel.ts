@@ -68,7 +68,7 @@ import { ENGINE_VERSION } from '../../core/engine-version.js';
 import { OccupancyIndex2d } from '../../index/occupancy-index-2d.js';
 import { returnToCircle, returned } from '../../walkers/poisson-return-2d.js';
 import { Random, STREAM_GROWTH } from '../../core/random.js';
-import { countWithin, massRadiusRadii, recordSizes } from '../../core/record-sizes.js';
+import { countCentresWithin, massRadiusRadii, recordSizes } from '../../core/record-sizes.js';
 import { StateHasher } from '../../core/state-hash.js';
 import { direction, sampleDirection } from '../../walkers/uniform-direction.js';
 import { contact, firstContact } from '../../walkers/segment-contact-2d.js';
@@ -94,6 +94,7 @@ export class OffLatticeDla2d implements GrowthKernel {
   private readonly launchMargin: number;
   /** Centres in arrival order, interleaved: x0, y0, x1, y1, … */
   private readonly xy: Float64Array;
+  /** Released (emptied) once the cluster is complete: nothing queries it then, and outputs are written without it. */
   private readonly index: OccupancyIndex2d;
   private readonly rng: Random;
   private readonly sizes: number[];
@@ -117,8 +118,9 @@ export class OffLatticeDla2d implements GrowthKernel {
     this.maxSteps = limits.maxStepsPerParticle ?? MAX_STEPS_PER_PARTICLE;
     this.minStep = task.model.params.min_step;
     this.launchMargin = task.model.params.launch_margin;
-    this.xy = new Float64Array(2 * task.particles);
-    this.index = new OccupancyIndex2d(task.particles, false);
+    // a checkpoint's positions array with room for the whole run becomes the kernel's own (no second copy)
+    this.xy = checkpoint !== undefined && checkpoint.positions.length >= 2 * task.particles ? checkpoint.positions : new Float64Array(2 * task.particles);
+    this.index = new OccupancyIndex2d(task.particles, this.xy);
     this.sizes = recordSizes(task.particles, task.recordsPerDecade);
     if (checkpoint === undefined) {
       this.rng = Random.forRun(task.ensembleSeed, task.runIndex, STREAM_GROWTH);
@@ -161,12 +163,16 @@ export class OffLatticeDla2d implements GrowthKernel {
   }
 
   checkpoint(): GrowthCheckpoint {
+    return { ...this.checkpointView(), positions: this.xy.slice(0, 2 * this.n) };
+  }
+
+  checkpointView(): GrowthCheckpoint {
     return {
       engineVersion: ENGINE_VERSION,
       task: structuredClone(this.task),
       dimension: 2,
       count: this.n,
-      positions: this.xy.slice(0, 2 * this.n),
+      positions: this.xy.subarray(0, 2 * this.n),
       rngState: this.rng.state(),
       counters: { ...this.counters },
       series: structuredClone(this.series),
@@ -176,9 +182,6 @@ export class OffLatticeDla2d implements GrowthKernel {
 
   result(): GrowthResult {
     if (!this.done) throw new Error(`run ${this.task.runIndex} is not finished (${this.n} of ${this.task.particles} particles)`);
-    const dist = new Float64Array(this.n);
-    const xy = this.xy;
-    for (let i = 0; i < this.n; i++) dist[i] = Math.sqrt(xy[2 * i] * xy[2 * i] + xy[2 * i + 1] * xy[2 * i + 1]);
     const radii = massRadiusRadii(this.rMax, this.task.recordsPerDecade);
     return {
       engineVersion: ENGINE_VERSION,
@@ -188,7 +191,7 @@ export class OffLatticeDla2d implements GrowthKernel {
       ensembleSeed: this.task.ensembleSeed,
       runIndex: this.task.runIndex,
       series: structuredClone(this.series),
-      massRadius: { radii, counts: countWithin(dist, radii) },
+      massRadius: { radii, counts: countCentresWithin(this.xy, 2, this.n, radii) },
       counters: { ...this.counters },
       stateHash: this.stateHash(),
     };
@@ -299,6 +302,7 @@ export class OffLatticeDla2d implements GrowthKernel {
       recordPlanarAnisotropy(this.series.extra, this.xy, 2, n, this.rMax);
       this.nextRecord++;
     }
+    if (this.n === this.task.particles) this.index.release();
   }
 
   /** Add a particle to positions, index and running sums (no record). */
