@@ -16,6 +16,7 @@ import { endianness } from 'node:os';
 import { checkpointFromMessage, ContractError, decodeCheckpoint, encodeCheckpointHeader, type CheckpointData } from './convert.js';
 import { FRAME_PREFIX_BYTES, FRAME_TRAILER_BYTES, frameHead, framePrefix, isCheckpointFrame } from './checkpoint-frame.js';
 import { crc32 } from './crc32.js';
+import { messageOf } from './errors.js';
 import { tendril } from './generated/tendril.js';
 
 /** Float64 values per chunk (1 MiB). */
@@ -78,7 +79,7 @@ export function readCheckpointFile(path: string, roomFor = 0): CheckpointData {
     try {
       m = tendril.Checkpoint.decode(head.subarray(FRAME_PREFIX_BYTES, FRAME_PREFIX_BYTES + p.messageLength));
     } catch (err) {
-      throw new ContractError(`Checkpoint header in "${path}" cannot be decoded: ${(err as Error).message.split('\n')[0]}`);
+      throw new ContractError(`Checkpoint header in "${path}" cannot be decoded: ${messageOf(err)}`);
     }
     const values = bytesOfValues / 8;
     const positions = new Float64Array(Math.max(roomFor * (m.dimension || 2), values));

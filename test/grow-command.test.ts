@@ -172,7 +172,7 @@ describe('tendril grow, bad options', () => {
     ['particles too small', ['--particles', '1'], `tendril: --particles: 1 is out of range; allowed: ${R} 2 to 1000000000`],
     ['particles too large', ['--particles', '1000000001'], `tendril: --particles: 1000000001 is out of range; allowed: ${R} 2 to 1000000000`],
     ['particles fractional', ['--particles', '2.5'], `tendril: --particles: 2.5 is out of range; allowed: ${R} 2 to 1000000000`],
-    ['particles missing', [], 'tendril: --particles is required (an integer from 2 to 1000000000)'],
+    ['particles missing', [], 'tendril: --particles: missing; allowed: an integer from 2 to 1000000000'],
     ['seed negative', ['--particles', '10', '--seed', '-1'], 'tendril: --seed: "-1" is not allowed; allowed: an unsigned 64-bit integer from 0 to 18446744073709551615 in decimal'],
     ['seed 2^64', ['--particles', '10', '--seed', '18446744073709551616'], 'tendril: --seed: "18446744073709551616" is not allowed; allowed: an unsigned 64-bit integer from 0 to 18446744073709551615 in decimal'],
     ['seed hex', ['--particles', '10', '--seed', '0x10'], 'tendril: --seed: "0x10" is not allowed; allowed: an unsigned 64-bit integer from 0 to 18446744073709551615 in decimal'],
@@ -203,7 +203,7 @@ describe('tendril grow, bad options', () => {
 
   it('a missing --out and an --out that is a file are one-line errors', async () => {
     const noOut = await tendril('grow', '--particles', '10', '--seed', '1');
-    expect(noOut.stderr).toBe('tendril: --out is required (the output folder)\n');
+    expect(noOut.stderr).toBe('tendril: --out: missing; allowed: a folder name (created if missing)\n');
     expect(noOut.status).toBe(2);
     const file = join(work, 'a-file');
     writeFileSync(file, 'x');

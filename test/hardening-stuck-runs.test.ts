@@ -6,7 +6,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { OffLatticeDla2d } from '../worker/models/dla-offlattice-2d/kernel.js';
-import { minStepFloor } from '../worker/models/dla-offlattice-2d/descriptor.js';
+import { minStepFloor } from '../worker/core/min-step-floor.js';
 import { createKernel } from '../worker/models/registry.js';
 import { createStopSignal, raiseStop, WalkerStuck } from '../worker/core/stop-signal.js';
 import { SpecError, validateSpec } from '../coordinator/spec/index.js';

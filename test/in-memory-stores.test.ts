@@ -1,10 +1,14 @@
-/** The embedded mode's implementations of the farm's RunSink and CheckpointStore (coordinator/embedded/in-memory-stores.ts). */
+/** The embedded mode's implementations of the farm's RunSink, CheckpointStore, BatchStore and run queue (coordinator/embedded/in-memory-stores.ts, in-memory-queue.ts). */
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { decodeRunResult, encodeCheckpoint, encodeRunResult, type RunTaskData } from '../proto/convert.js';
-import { EmbeddedRunSink, MemoryCheckpointStore } from '../coordinator/embedded/in-memory-stores.js';
+import { EmbeddedRunSink, MemoryBatchStore, MemoryCheckpointStore } from '../coordinator/embedded/in-memory-stores.js';
+import { MemoryRunQueue } from '../coordinator/embedded/in-memory-queue.js';
+import { launchEnsemble } from '../coordinator/farm/launch.js';
+import { advanceAdaptive } from '../coordinator/farm/adaptive.js';
+import { validateSpec } from '../coordinator/spec/index.js';
 import { DirectoryArtifactStore } from '../coordinator/farm/artifacts.js';
 import { ENGINE_VERSION } from '../worker/core/engine-version.js';
 import { createKernel, modelParams } from '../worker/models/registry.js';
@@ -67,5 +71,34 @@ describe('in-memory stores of the embedded mode', () => {
     const pos = sink.finals.get(3)!;
     expect(pos.count).toBe(run.particles);
     expect(pos.coords.subarray(0, 2 * run.particles)).toEqual(coords);
+  });
+
+  it('MemoryRunQueue and MemoryBatchStore carry the farm batch loop: idempotent queueing, one batch step per judgement', async () => {
+    const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 30, clusters: 4, seed: 8, runs_per_job: 2, target: { half_width: 1e-6, max_clusters: 8, min_batch: 4 } });
+    const sink = new EmbeddedRunSink('q1', undefined, () => undefined);
+    const ledger = new MemoryBatchStore(sink);
+    const queue = new MemoryRunQueue();
+    await launchEnsemble(ledger, queue, spec, { ensembleId: 'q1' });
+    await launchEnsemble(new MemoryBatchStore(sink), queue, spec, { ensembleId: 'q1' }); // the same jobs again: ignored
+    expect(queue.queued).toBe(2);
+    const first = queue.takeRuns();
+    expect(first.map((r) => r.runIndex)).toEqual([0, 1, 2, 3]);
+    expect(queue.takeRuns()).toEqual([]);
+    expect(await advanceAdaptive(ledger, queue, 'q1')).toBe('waiting');
+    for (const r of first) {
+      const k = createKernel(r);
+      k.growTo(r.particles);
+      const result = { ...k.result(), ensembleId: 'q1', timings: { growSeconds: 1, startedAtMs: 0, finishedAtMs: 1, resumes: 0, finishedBy: 'test' } };
+      await sink.saveResult(result, encodeRunResult(result));
+    }
+    // the batch is judged once: a second judge of the same batch loses the race and changes nothing
+    const rec = ledger.recordOf('q1')!;
+    expect(await advanceAdaptive(ledger, queue, 'q1')).toBe('extended');
+    expect(await ledger.extendAdaptive('q1', rec.plannedClusters, 99, 99, rec.adaptive!)).toBe(false);
+    const after = ledger.recordOf('q1')!;
+    expect(after.plannedClusters).toBe(8);
+    expect(after.adaptive!.batches.map((b) => [b.fromRun, b.toRun, b.firstJob, b.jobs])).toEqual([[0, 4, 0, 2], [4, 8, 2, 2]]);
+    expect(queue.takeRuns().map((r) => r.runIndex)).toEqual([4, 5, 6, 7]);
+    expect(await ledger.resultCount('q1')).toBe(4);
   });
 });

@@ -125,9 +125,9 @@ describe('summary tables', () => {
     expect(one.stdout.split('\n')[0]).toBe('estimator,at,D,percentile_low,percentile_high,bca_low,bca_high,interval_status');
     const bad = await cli('summary', id, '--prefix', prefix, '--level', '2');
     expect(bad.code).toBe(2);
-    expect(bad.stderr).toBe('tendril: --level (analysis.level): 2 is out of range; allowed: a number from 0.5 to 0.999\n');
+    expect(bad.stderr).toBe('tendril: --level: 2 is out of range; allowed: a number from 0.5 to 0.999\n');
     const badWindow = await cli('summary', id, '--prefix', prefix, '--fit-window', '5000:100');
-    expect(badWindow.stderr).toBe('tendril: --fit-window (analysis.fit_min_size): 5000 is not allowed; allowed: a number below analysis.fit_max_size (100)\n');
+    expect(badWindow.stderr).toBe('tendril: --fit-window FROM: 5000 is not allowed; allowed: a number below --fit-window TO (100)\n');
     const noOut = await cli('summary', id, '--prefix', prefix, '--format', 'html');
     expect(noOut.stderr).toBe('tendril: --out: missing; allowed: a folder name (--format html writes several files)\n');
   }, 90_000);

@@ -45,8 +45,33 @@ function number(flag: string, text: string): number {
   return v;
 }
 
-/** The spec's analysis settings with the command-line overrides applied (validated). */
-export async function analysisSettingsFromCli(base: AnalysisSettings, o: AnalysisCliOptions): Promise<AnalysisSettings> {
+/** The option (and end of a window) that sets each analysis field. */
+const FLAG_OF: Record<string, string> = {
+  fit_min_size: '--fit-window FROM',
+  fit_max_size: '--fit-window TO',
+  mass_radius_min_radius: '--mass-radius-window FROM',
+  mass_radius_max_radius: '--mass-radius-window TO',
+  resamples: '--resamples',
+  level: '--level',
+  local_slope_width: '--local-slope-width',
+};
+
+/**
+ * A spec message about the analysis, worded for the command line: every
+ * analysis field the options set is named by its option (the value and the
+ * allowed range stay); fields that come from the spec keep their spec name.
+ */
+export function cliAnalysisMessage(problem: string, fromCli: ReadonlySet<string>): string {
+  return problem.replace(/analysis\.([a-z_]+)/g, (whole, f: string) => (fromCli.has(f) && FLAG_OF[f] ? FLAG_OF[f] : whole));
+}
+
+/**
+ * The spec's analysis settings with the command-line overrides applied,
+ * validated against the ensemble's own size when it is given (particles and
+ * clusters of its spec): a fit window beyond its particles is refused here,
+ * before any work, not reported as "no statistics" after it.
+ */
+export async function analysisSettingsFromCli(base: AnalysisSettings, o: AnalysisCliOptions, ensemble?: { particles: number; clusters: number }): Promise<AnalysisSettings> {
   const doc: Record<string, unknown> = {};
   if (o.fitWindow !== undefined) window('--fit-window', o.fitWindow, 'fit_min_size', 'fit_max_size', doc);
   if (o.massRadiusWindow !== undefined) window('--mass-radius-window', o.massRadiusWindow, 'mass_radius_min_radius', 'mass_radius_max_radius', doc);
@@ -57,16 +82,9 @@ export async function analysisSettingsFromCli(base: AnalysisSettings, o: Analysi
   if (Object.keys(doc).length === 0) return base;
   const { mergeAnalysisSettings, SpecError } = await import('../spec/index.js');
   try {
-    return mergeAnalysisSettings(base, doc);
+    return mergeAnalysisSettings(base, doc, ensemble);
   } catch (err) {
-    if (err instanceof SpecError) {
-      const flags: Record<string, string> = {
-        fit_min_size: '--fit-window', fit_max_size: '--fit-window', mass_radius_min_radius: '--mass-radius-window', mass_radius_max_radius: '--mass-radius-window',
-        resamples: '--resamples', level: '--level', local_slope_width: '--local-slope-width',
-      };
-      const first = err.problems[0].replace(/^analysis\.([a-z_]+)/, (_m, f: string) => `${flags[f] ?? f} (analysis.${f})`);
-      throw new UsageError(first);
-    }
+    if (err instanceof SpecError) throw new UsageError(cliAnalysisMessage(err.problems[0], new Set(Object.keys(doc))));
     throw err;
   }
 }

@@ -4,7 +4,7 @@ import { writeFile } from 'node:fs/promises';
 import type { RunResultData } from '../../proto/convert.js';
 import type { EnsembleSpec } from '../spec/index.js';
 import type { Command } from 'commander';
-import { ensembleIds, readEnsembleStatus, type EnsembleStatus, type StatusReader } from '../farm/ensemble-status.js';
+import { ensembleIds, readEnsembleStatus, readEnsembleStatuses, type EnsembleStatus, type StatusReader } from '../farm/ensemble-status.js';
 import { readSweepStatus, sweepIds, type SweepStatus } from '../farm/sweep-status.js';
 import type { EnsembleReader } from '../farm/ensemble-reader.js';
 import { formatDuration, formatRate } from '../progress/index.js';
@@ -73,11 +73,8 @@ export function register(program: Command): void {
     .action(async (opts: FarmCliOptions & { json?: boolean }) => {
       const farm = await openReader(opts);
       try {
-        const all: EnsembleStatus[] = [];
-        for (const id of await ensembleIds(farm.reader, farm.prefix, 100)) {
-          const s = await readEnsembleStatus(farm.reader, farm.prefix, id);
-          if (s) all.push(s);
-        }
+        // every status in three round trips, not one ensemble after another
+        const all = (await readEnsembleStatuses(farm.reader, farm.prefix, await ensembleIds(farm.reader, farm.prefix, 100))).filter((s): s is EnsembleStatus => s !== null);
         if (opts.json) process.stdout.write(JSON.stringify(all, null, 2) + '\n');
         else if (all.length === 0) process.stdout.write('no ensembles\n');
         else {
@@ -172,7 +169,7 @@ export function register(program: Command): void {
         if (await summariseSweep(store, id, opts)) return;
         throw new UsageError(`ensemble id: "${id}" is not known to this farm`);
       }
-      const analysis = await analysisSettingsFromCli(rec.spec.analysis, opts);
+      const analysis = await analysisSettingsFromCli(rec.spec.analysis, opts, { particles: rec.spec.particles, clusters: rec.spec.target?.maxClusters ?? rec.plannedClusters });
       const got = (await farmSummary(store, id, defaultSummaryOptions(analysis)))!;
       if (opts.format === 'tables' || opts.format === 'html') {
         const html = opts.format === 'html';

@@ -31,7 +31,7 @@ import type { Command } from 'commander';
 import { UsageError } from '../usage-error.js';
 import { describeRange } from '../../worker/core/value-range.js';
 import { optionNumber, parseRangeOption, parseSeedOption } from './option-values.js';
-import { checkModelParams, createKernel, MODEL_KINDS, modelDescriptor, modelParams } from '../../worker/models/registry.js';
+import { checkModelForSize, checkModelParams, createKernel, MODEL_KINDS, modelDescriptor, modelParams } from '../../worker/models/registry.js';
 import type { ClusterPositions, GrowthCheckpoint, GrowthKernel, GrowthResult, GrowthTask, ModelParams } from '../../worker/core/growth-kernel.js';
 import { writeSnapshotFile } from '../snapshot/cluster-snapshot.js';
 import { DEFAULT_PICTURE_SIZE, renderClusterPng } from '../render/cluster-picture.js';
@@ -133,14 +133,20 @@ export function parseModelOptions(kindRaw: unknown, paramsRaw: unknown): ModelPa
 export function parseGrowOptions(raw: Record<string, unknown>): GrowOptions {
   const need = (key: string, flag: string, what: string): unknown => {
     const v = raw[key];
-    if (v === undefined) throw new UsageError(`--${flag} is required (${what})`);
+    if (v === undefined) throw new UsageError(`--${flag}: missing; allowed: ${what}`);
     return v;
   };
   const particles = parseRangeOption('--particles', need('particles', 'particles', describeRange(GROW_PARTICLES)), GROW_PARTICLES);
   const seed = parseSeedOption('--seed', need('seed', 'seed', 'an unsigned 64-bit integer in decimal'));
-  const outRaw = need('out', 'out', 'the output folder');
-  if (typeof outRaw !== 'string' || outRaw.trim() === '') throw new UsageError(`--out must name a folder, got ${JSON.stringify(String(outRaw))}`);
+  const outRaw = need('out', 'out', 'a folder name (created if missing)');
+  if (typeof outRaw !== 'string' || outRaw.trim() === '') throw new UsageError(`--out: ${JSON.stringify(String(outRaw))} is not allowed; allowed: a folder name`);
   const model = parseModelOptions(raw.model, raw.param);
+  try {
+    // the model's own checks against the cluster size (e.g. the min_step floor), named by the option that set the value
+    checkModelForSize(model, particles);
+  } catch (err) {
+    throw new UsageError(messageOf(err).replace(/^params\./, '--param '));
+  }
   const noPicture = noPictureReason(model.kind);
   if (noPicture !== null && raw.pictureSize !== undefined) throw new UsageError(`--picture-size: not allowed for this model; ${noPicture}`);
   const pictureSize = raw.pictureSize === undefined ? DEFAULT_PICTURE_SIZE : parseRangeOption('--picture-size', raw.pictureSize, PICTURE_SIZE, 'pixels');

@@ -55,7 +55,7 @@ export const MEASURE_FIGURE_FILE = 'probe-measure-figure.png';
 export function parseWindowOption(raw: string): [number, number] {
   const parts = raw.split(':').map((t) => t.trim());
   const nums = parts.map((t) => (/^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/.test(t) ? Number(t) : NaN));
-  if (nums.length !== 2 || windowProblem(nums) !== null) throw new UsageError(`--window must be lo:hi, ${WINDOW_RULE}, got ${JSON.stringify(raw)}`);
+  if (nums.length !== 2 || windowProblem(nums) !== null) throw new UsageError(`--window: ${JSON.stringify(raw)} is not allowed; allowed: lo:hi, ${WINDOW_RULE}`);
   return [nums[0], nums[1]];
 }
 

@@ -103,7 +103,7 @@ async function runSweep(sweep: SweepSpec, opts: RunOptions): Promise<void> {
  * interrupted run); null when interrupted (a partial summary is written).
  */
 async function runInto(spec: EnsembleSpec, out: string, opts: RunOptions, newId: string = newEnsembleId()): Promise<{ ensembleId: string; summary: EnsembleSummaryData } | null> {
-  const analysis = await analysisSettingsFromCli(spec.analysis, opts);
+  const analysis = await analysisSettingsFromCli(spec.analysis, opts, { particles: spec.particles, clusters: spec.target?.maxClusters ?? spec.clusters });
   const doc = specToDocument(spec);
   const metaPath = join(out, 'ensemble.json');
   let ensembleId = newId;

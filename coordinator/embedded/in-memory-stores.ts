@@ -8,12 +8,20 @@
  *   EmbeddedRunSink         results in a Map, optionally also in an artifact
  *                           store under the farm's keys; progress to a
  *                           callback; final positions kept for probing
+ *   MemoryBatchStore        the ensemble's record (planned clusters, jobs,
+ *                           adaptive history) for the farm's batch loop
+ *                           (coordinator/farm/batch-contract.ts BatchStore),
+ *                           its results read from the sink
  */
 import { decodeCheckpoint, type RunResultData, type RunTaskData } from '../../proto/convert.js';
 import type { ClusterPositions } from '../../worker/core/growth-kernel.js';
 import { finalKey, resultKey } from '../../worker/runtime/job-contract.js';
 import type { CheckpointStore, RunSink } from '../../worker/runtime/run-lifecycle.js';
 import type { ArtifactStore } from '../farm/artifacts.js';
+import type { BatchStore } from '../farm/batch-contract.js';
+import type { EnsembleRecord } from '../farm/store.js';
+import type { EnsembleSpec } from '../spec/index.js';
+import type { AdaptiveHistory } from '../summary/adaptive.js';
 import { positionsOf } from '../harmonic/ensemble-probing.js';
 
 /** Checkpoints kept in memory for the life of the process. */
@@ -82,5 +90,56 @@ export class EmbeddedRunSink implements RunSink {
       await this.store.put(finalKey(this.ensembleId, run.runIndex), finalCheckpoint);
       this.finals.set(run.runIndex, null);
     } else this.finals.set(run.runIndex, positionsOf(decodeCheckpoint(finalCheckpoint)));
+  }
+}
+
+/**
+ * The record of one embedded ensemble, with the semantics of the farm's
+ * Redis EnsembleStore for what the batch loop uses (the batch step changes
+ * nothing unless the planned count is the expected one and the outcome is
+ * still running; queued_through never goes down). Results are the sink's.
+ */
+export class MemoryBatchStore implements BatchStore {
+  private readonly records = new Map<string, EnsembleRecord>();
+
+  constructor(private readonly sink: EmbeddedRunSink) {}
+
+  async create(id: string, spec: EnsembleSpec, jobs: number, createdAtMs = Date.now(), adaptive: AdaptiveHistory | null = null): Promise<void> {
+    if (this.records.has(id)) throw new Error(`ensemble ${id} exists already`);
+    this.records.set(id, {
+      id, name: spec.name, spec, createdAtMs, jobs, cancelled: false, plannedClusters: spec.clusters, adaptive: adaptive ? structuredClone(adaptive) : null, queuedThrough: adaptive ? 0 : spec.clusters,
+    });
+  }
+
+  async get(id: string): Promise<EnsembleRecord | null> {
+    return this.recordOf(id);
+  }
+
+  /** The record as it is now (a copy), or null. */
+  recordOf(id: string): EnsembleRecord | null {
+    const r = this.records.get(id);
+    return r ? { ...r, adaptive: r.adaptive ? structuredClone(r.adaptive) : null } : null;
+  }
+
+  async resultCount(_id: string): Promise<number> {
+    return this.sink.results.size;
+  }
+
+  async results(_id: string): Promise<RunResultData[]> {
+    return [...this.sink.results.values()].sort((a, b) => a.runIndex - b.runIndex);
+  }
+
+  async extendAdaptive(id: string, expectedClusters: number, newClusters: number, newJobs: number, history: AdaptiveHistory): Promise<boolean> {
+    const r = this.records.get(id);
+    if (!r || r.plannedClusters !== expectedClusters || !r.adaptive || r.adaptive.outcome !== 'running') return false;
+    r.plannedClusters = newClusters;
+    r.jobs = newJobs;
+    r.adaptive = structuredClone(history);
+    return true;
+  }
+
+  async markQueued(id: string, through: number): Promise<void> {
+    const r = this.records.get(id);
+    if (r && through > r.queuedThrough) r.queuedThrough = through;
   }
 }

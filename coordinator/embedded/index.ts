@@ -7,10 +7,15 @@
  * memory and, given an artifact store, under the farm's keys; checkpoints in
  * the artifact store or in memory).
  *
- * An adaptive spec ([target]) grows batch after batch: after each complete
- * batch the stopping rule (coordinator/summary/adaptive.ts) judges all
- * results so far and either stops or sizes the next batch. A resumed run
- * replays the same decisions, since they depend only on the stored results.
+ * Batches run through the farm's own loop: launchEnsemble queues the first
+ * batch and advanceAdaptive (coordinator/farm/adaptive.ts) judges each
+ * complete batch with the stopping rule and queues the next, on in-memory
+ * implementations of the farm's store and queue (MemoryBatchStore,
+ * MemoryRunQueue; coordinator/farm/batch-contract.ts). This module drains
+ * the queue: it reads each job's runs with the workers' reader, grows them
+ * on its thread pool (runOne, as a worker does) and probes them. A resumed
+ * run replays the same decisions, since they depend only on the stored
+ * results.
  *
  * When an artifact store is given, checkpoints and finished results are kept
  * there (keys as in the farm), so an interrupted `tendril run` continues
@@ -36,12 +41,14 @@ import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
 import { TaskThreadPool, type ThreadRun } from '../../worker/runtime/task-thread.js';
 import { runOne } from '../../worker/runtime/run-lifecycle.js';
 import { TaskRejected } from '../../worker/runtime/task-runner.js';
-import { EmbeddedRunSink, MemoryCheckpointStore } from './in-memory-stores.js';
+import { EmbeddedRunSink, MemoryBatchStore, MemoryCheckpointStore } from './in-memory-stores.js';
+import { MemoryRunQueue } from './in-memory-queue.js';
+import { launchEnsemble } from '../farm/launch.js';
+import { advanceAdaptive } from '../farm/adaptive.js';
 import type { ArtifactStore } from '../farm/artifacts.js';
 import { checkpointKey, finalKey, harmonicKey, hitsKey, resultKey } from '../../worker/runtime/job-contract.js';
-import { planEnsemble, type PlannedJob } from '../plan.js';
 import { maxRunsOf, probeSizesOf, type EnsembleSpec } from '../spec/index.js';
-import { buildSummary, defaultSummaryOptions, judgeBatch, newAdaptiveHistory, type AdaptiveBatch, type AdaptiveHistory, type SummaryOptions } from '../summary/index.js';
+import { buildSummary, defaultSummaryOptions, type AdaptiveBatch, type AdaptiveHistory, type SummaryOptions } from '../summary/index.js';
 import type { EnsembleSummaryData } from '../../proto/convert.js';
 import { messageOf, TendrilError } from '../../proto/errors.js';
 
@@ -173,7 +180,10 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
     }
   };
 
-  const adaptive = spec.target ? newAdaptiveHistory(spec) : null;
+  /** The batch history as the loop last left it (null for a fixed count). */
+  let adaptive: AdaptiveHistory | null = null;
+  const ledger = new MemoryBatchStore(sink);
+  const queue = new MemoryRunQueue();
   const active = new Set<ThreadRun>();
   const onAbort = () => {
     for (const a of active) a.stop();
@@ -298,30 +308,30 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
     if (failures.length > 0) throw new Error(`${failures.length} probe job(s) failed; first: ${failures[0]}`);
   };
 
-  // batches: one for a fixed count; for a [target], batch after batch until the stopping rule says stop
+  // the farm's batch loop on in-memory stand-ins of its store and queue: launchEnsemble queues the first
+  // batch, and after each batch is grown (and probed) advanceAdaptive judges it and queues the next
   opts.signal?.addEventListener('abort', onAbort, { once: true });
   try {
-    let from = 0;
-    for (let b = 0; ; b++) {
-      const batch = planEnsemble(opts.ensembleId, spec, from, planned).jobs.flatMap((j: PlannedJob) => j.runs);
-      adaptive?.batches.push({ batch: b, fromRun: from, toRun: planned, firstJob: 0, jobs: 0, judged: null });
-      await reuse(batch);
-      report();
-      await grow(batch);
-      await probeAll();
-      if (!adaptive) break;
-      const all = [...results.values()].sort((x, y) => x.runIndex - y.runIndex);
-      const j = judgeBatch(spec, all);
-      const { nextBatch, ...judged } = j;
-      adaptive.batches[b].judged = judged;
-      opts.onBatch?.(adaptive.batches[b]);
-      if (j.action !== 'continue') {
-        adaptive.outcome = j.action;
-        adaptive.reason = j.reason;
-        break;
+    const id = opts.ensembleId;
+    await launchEnsemble(ledger, queue, spec, { ensembleId: id });
+    adaptive = ledger.recordOf(id)!.adaptive;
+    for (;;) {
+      const batch = queue.takeRuns();
+      if (batch.length > 0) {
+        await reuse(batch);
+        report();
+        await grow(batch);
+        await probeAll();
       }
-      from = planned;
-      planned += nextBatch;
+      const step = await advanceAdaptive(ledger, queue, id);
+      const rec = ledger.recordOf(id)!;
+      adaptive = rec.adaptive;
+      if (step === 'not-adaptive') break;
+      const judged = adaptive!.batches.filter((b) => b.judged !== null).at(-1);
+      if (step === 'extended' || step === 'finished') opts.onBatch?.(judged!);
+      if (step === 'finished') break;
+      if (step !== 'extended') throw new Error(`embedded batch loop: unexpected step "${step}" with ${results.size} of ${rec.plannedClusters} runs done`);
+      planned = rec.plannedClusters;
     }
   } finally {
     opts.signal?.removeEventListener('abort', onAbort);

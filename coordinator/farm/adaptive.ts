@@ -23,18 +23,23 @@
  *      is stored. Until queued_through reaches the planned count, every call
  *      re-queues the jobs of the batches beyond it, so a crash between the
  *      step and the queueing loses nothing.
+ *
+ * The embedded mode runs this same step on its in-memory store and queue
+ * (coordinator/farm/batch-contract.ts; coordinator/embedded/index.ts drains
+ * the queue, grows the runs, and calls advanceAdaptive after each batch).
  */
 import type { Queue } from 'bullmq';
 import { planEnsemble } from '../plan.js';
 import { judgeBatch, type AdaptiveHistory } from '../summary/adaptive.js';
-import { jobsOfPlan } from './queue.js';
+import { jobsOfPlan } from './launch.js';
 import type { EnsembleStore } from './store.js';
+import type { BatchStore, RunJobQueue } from './batch-contract.js';
 import { messageOf } from '../../proto/errors.js';
 
 export type AdvanceResult = 'not-adaptive' | 'unknown' | 'stopped' | 'waiting' | 'extended' | 'lost-race' | 'finished';
 
 /** Queue the jobs of every batch beyond queued_through (idempotent). */
-async function ensureQueued(store: EnsembleStore, queue: Queue, id: string, history: AdaptiveHistory, queuedThrough: number): Promise<void> {
+async function ensureQueued(store: BatchStore, queue: RunJobQueue, id: string, history: AdaptiveHistory, queuedThrough: number): Promise<void> {
   const rec = await store.get(id);
   if (!rec) return;
   for (const b of history.batches) {
@@ -50,7 +55,7 @@ async function ensureQueued(store: EnsembleStore, queue: Queue, id: string, hist
  * One step of an adaptive ensemble's loop; safe to call any time, from any
  * number of processes at once.
  */
-export async function advanceAdaptive(store: EnsembleStore, queue: Queue, id: string): Promise<AdvanceResult> {
+export async function advanceAdaptive(store: BatchStore, queue: RunJobQueue, id: string): Promise<AdvanceResult> {
   const rec = await store.get(id);
   if (!rec) return 'unknown';
   if (!rec.adaptive) return 'not-adaptive';

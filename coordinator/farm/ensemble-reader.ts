@@ -10,7 +10,7 @@ import type { RunResultData } from '../../proto/convert.js';
 import type { EnsembleSpec } from '../spec/index.js';
 import type { AdaptiveHistory } from '../summary/adaptive.js';
 import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
-import { DEFAULT_PREFIX, ensembleIds, readEnsembleStatus, type EnsembleStatus, type StatusReader } from './ensemble-status.js';
+import { DEFAULT_PREFIX, ensembleIds, readEnsembleStatus, readEnsembleStatuses, type EnsembleStatus, type StatusReader } from './ensemble-status.js';
 
 const specModule = () => import('../spec/index.js');
 const protoModule = () => import('../../proto/convert.js');
@@ -86,5 +86,15 @@ export class EnsembleReader {
 
   async status(id: string, now = Date.now()): Promise<EnsembleStatus | null> {
     return readEnsembleStatus(this.reads, this.prefix, id, now);
+  }
+
+  /** Statuses of many ensembles in two pipelined rounds whatever their number (null for an unknown id). */
+  async statuses(ids: readonly string[], now = Date.now()): Promise<Array<EnsembleStatus | null>> {
+    return readEnsembleStatuses(this.reads, this.prefix, ids, now);
+  }
+
+  /** Statuses of the newest `limit` ensembles, newest first, in three round trips whatever `limit`. */
+  async recentStatuses(limit = 100, now = Date.now()): Promise<EnsembleStatus[]> {
+    return (await this.statuses(await this.ids(limit), now)).filter((s): s is EnsembleStatus => s !== null);
   }
 }

@@ -63,34 +63,68 @@ export function ensembleIds(r: StatusReader, prefix: string, limit = 100): Promi
 }
 
 export async function readEnsembleStatus(r: StatusReader, prefix: string, id: string, now = Date.now()): Promise<EnsembleStatus | null> {
-  const k = (part?: string) => key(prefix, id, part);
-  const h = await r.hgetall(k());
-  if (!h.spec) return null;
+  return (await readEnsembleStatuses(r, prefix, [id], now))[0];
+}
+
+/**
+ * Statuses of many ensembles (null for an unknown id) in two pipelined
+ * rounds whatever their number: every read of every ensemble is sent before
+ * any reply is awaited, then the running marks are checked against stored
+ * results in one more round (only when some are marked). With the id list,
+ * /metrics, GET /ensembles and `tendril list` wait for three round trips.
+ */
+export async function readEnsembleStatuses(r: StatusReader, prefix: string, ids: readonly string[], now = Date.now()): Promise<Array<EnsembleStatus | null>> {
+  const reads = await Promise.all(
+    ids.map((id) => {
+      const k = (part?: string) => key(prefix, id, part);
+      return Promise.all([
+        r.hgetall(k()),
+        r.hlen(k('results')),
+        r.hgetall(k('running')),
+        r.hgetall(k('progress')),
+        r.hgetall(k('failed')),
+        r.hgetall(k('rate')),
+        r.hlen(k('harmonic')),
+        r.hgetall(k('probe-failed')),
+        r.hgetall(k('seen')),
+      ] as const);
+    }),
+  );
+  const running = reads.map(([, , marked, , , , , , seen]) => {
+    // runs whose worker stopped giving signs of life (killed) are waiting to be taken up again, not running
+    const live: Record<string, string> = {};
+    for (const [i, w] of Object.entries(marked)) if (seen[i] === undefined || now - Number(seen[i]) < STALE_RUN_MS) live[i] = w;
+    return live;
+  });
+  // a run whose result is stored is never running, whatever a stale mark says
+  await Promise.all(
+    ids.map(async (id, n) => {
+      const markedRuns = Object.keys(running[n]);
+      if (markedRuns.length === 0 || !reads[n][0].spec) return;
+      const stored = await r.hmget(key(prefix, id, 'results'), ...markedRuns);
+      markedRuns.forEach((i, j) => {
+        if (stored[j] !== null) delete running[n][i];
+      });
+    }),
+  );
+  return ids.map((id, n) => {
+    const [h, doneN, , progress, failed, rate, harmonicN, probeFailed] = reads[n];
+    return h.spec ? statusOf(id, h, { doneN, running: running[n], progress, failed, rate, harmonicN, probeFailed }, now) : null;
+  });
+}
+
+/** An ensemble's status from its record hash and the reads of its run hashes (running marks already checked). */
+function statusOf(
+  id: string,
+  h: Record<string, string>,
+  reads: { doneN: number; running: Record<string, string>; progress: Record<string, string>; failed: Record<string, string>; rate: Record<string, string>; harmonicN: number; probeFailed: Record<string, string> },
+  now: number,
+): EnsembleStatus {
+  const { doneN, running, progress, failed, rate, harmonicN, probeFailed } = reads;
   const spec = JSON.parse(h.spec) as StoredSpecFields;
   const adaptive = h.adaptive ? (JSON.parse(h.adaptive) as StoredAdaptive) : null;
   const createdAtMs = Number(h.created_at_ms ?? 0);
   const cancelled = h.cancelled === '1';
-  const [doneN, marked, progress, failed, rate, harmonicN, probeFailed, seen] = await Promise.all([
-    r.hlen(k('results')),
-    r.hgetall(k('running')),
-    r.hgetall(k('progress')),
-    r.hgetall(k('failed')),
-    r.hgetall(k('rate')),
-    r.hlen(k('harmonic')),
-    r.hgetall(k('probe-failed')),
-    r.hgetall(k('seen')),
-  ]);
-  // runs whose worker stopped giving signs of life (killed) are waiting to be taken up again, not running
-  const running: Record<string, string> = {};
-  for (const [i, w] of Object.entries(marked)) if (seen[i] === undefined || now - Number(seen[i]) < STALE_RUN_MS) running[i] = w;
-  // a run whose result is stored is never running, whatever a stale mark says
-  const markedRuns = Object.keys(running);
-  if (markedRuns.length > 0) {
-    const stored = await r.hmget(k('results'), ...markedRuns);
-    markedRuns.forEach((i, j) => {
-      if (stored[j] !== null) delete running[i];
-    });
-  }
   // probeSizesOf (coordinator/spec): the at_sizes and the final size
   const probeSizes = spec.probe ? (spec.probe.at_sizes?.length ?? 0) + 1 : 0;
   const planned = Number(h.clusters ?? 0);

@@ -105,7 +105,9 @@ export function validateProbeRequest(body: unknown): { settings: ProbeRequestSet
     if (!Array.isArray(p.x) || !Array.isArray(p.y)) return fail(`points: ${show(b.points)} is not allowed; allowed: {x: [...], y: [...], r: number or [...]} with x and y of equal length`);
     const n = p.x.length;
     if (n > MAX_REQUEST_DISKS) fail(`points.x: ${n} values is out of range; allowed: at most ${MAX_REQUEST_DISKS}`);
-    if (n < 1 || p.y.length !== n) fail(`points.y: ${p.y.length} values is not allowed; allowed: as many as points.x (${n}), at least 1`);
+    if (n < 1) fail('points.x: 0 values is not allowed; allowed: at least 1 number');
+    if (p.y.length !== n) fail(`points.y: ${p.y.length} values is not allowed; allowed: as many as points.x (${n})`);
+    if (Array.isArray(p.r) && p.r.length !== n) fail(`points.r: ${p.r.length} values is not allowed; allowed: one number, or as many as points.x (${n})`);
     x = new Float64Array(n); y = new Float64Array(n); r = new Float64Array(n);
     for (let i = 0; i < n; i++) {
       const xi = p.x[i], yi = p.y[i];
@@ -115,7 +117,6 @@ export function validateProbeRequest(body: unknown): { settings: ProbeRequestSet
       if (typeof ri !== 'number' || !(Number.isFinite(ri) && ri > 0)) fail(`points.r${Array.isArray(p.r) ? `[${i}]` : ''}: ${show(ri)} is not allowed; allowed: a finite number > 0 (one for all, or one per point)`);
       x[i] = xi as number; y[i] = yi as number; r[i] = ri as number;
     }
-    if (Array.isArray(p.r) && p.r.length !== n) fail(`points.r: ${p.r.length} values is not allowed; allowed: one number, or as many as points.x (${n})`);
   }
   if (x!.length > MAX_REQUEST_DISKS) fail(`points: ${x!.length} disks is out of range; allowed: at most ${MAX_REQUEST_DISKS}`);
   const shape = probeGeometryProblem({ count: x!.length, x: x!, y: y!, r: r! }, probeSettingsOf(doc).minStep, b.csv !== undefined ? 'csv' : 'points');

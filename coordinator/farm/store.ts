@@ -148,12 +148,15 @@ export class EnsembleStore extends EnsembleReader implements RunSink {
 
   /** Ids of adaptive ensembles still growing (scanning the newest `limit`). */
   async runningAdaptiveIds(limit = 1000): Promise<string[]> {
-    const out: string[] = [];
-    for (const id of await this.ids(limit)) {
-      const [a, c] = await this.redis.hmget(this.k(id), 'adaptive', 'cancelled');
-      if (a && c !== '1' && a.includes('"outcome":"running"')) out.push(id);
-    }
-    return out;
+    const ids = await this.ids(limit);
+    if (ids.length === 0) return [];
+    const tx = this.redis.multi();
+    for (const id of ids) tx.hmget(this.k(id), 'adaptive', 'cancelled');
+    const fields = repliesOf<Array<string | null>>(await tx.exec());
+    return ids.filter((_, n) => {
+      const [a, c] = fields[n];
+      return a !== null && c !== '1' && a.includes('"outcome":"running"');
+    });
   }
 
   async cancel(id: string): Promise<boolean> {
@@ -260,4 +263,13 @@ export class EnsembleStore extends EnsembleReader implements RunSink {
       .zrem(`${this.prefix}:ensembles`, id)
       .exec();
   }
+}
+
+/** The replies of a MULTI … EXEC, in order; throws the first command error (or when the transaction was discarded). */
+function repliesOf<T>(exec: Array<[Error | null, unknown]> | null): T[] {
+  if (exec === null) throw new Error('Redis discarded the transaction');
+  return exec.map(([err, v]) => {
+    if (err) throw err;
+    return v as T;
+  });
 }

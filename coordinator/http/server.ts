@@ -308,9 +308,8 @@ export function buildApi(o: ApiOptions): FastifyInstance {
   );
 
   app.get('/ensembles', { schema: { response: { 200: { type: 'object', properties: { ensembles: { type: 'array', items: STATUS_SCHEMA } } } } } }, async () => {
-    // all statuses at once: their Redis commands go out together instead of one ensemble after another
-    const all = await Promise.all((await o.store.ids(100)).map((id) => o.store.status(id)));
-    return { ensembles: all.filter((s) => s !== null) };
+    // all statuses in one transaction (EnsembleStore.statuses), not one ensemble after another
+    return { ensembles: await o.store.recentStatuses(100) };
   });
 
   app.get<{ Params: { id: string } }>(

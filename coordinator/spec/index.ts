@@ -431,10 +431,11 @@ function analysisDocument(a: AnalysisSettings): { analysis?: Record<string, unkn
  * Validate analysis options given apart from a spec (CLI overrides) with the
  * same schema and messages as the [analysis] table; returns the merged settings.
  */
-export function mergeAnalysisSettings(base: AnalysisSettings, overrideDoc: Record<string, unknown>): AnalysisSettings {
+export function mergeAnalysisSettings(base: AnalysisSettings, overrideDoc: Record<string, unknown>, ensemble?: { particles: number; clusters: number }): AnalysisSettings {
   const merged = { ...analysisDocument(base).analysis, ...overrideDoc };
-  // a stand-in spec of the largest size: checks of the analysis against the ensemble's own size are made with its spec
-  const probe = { model: MODEL_KINDS[0], particles: SPEC_SCHEMA.properties.particles.maximum, clusters: 1, seed: 0, analysis: merged };
+  // checked against the ensemble's own size when it is given (a fit window beyond its particles, resamples × clusters),
+  // else against a stand-in spec of the largest size
+  const probe = { model: MODEL_KINDS[0], particles: ensemble?.particles ?? SPEC_SCHEMA.properties.particles.maximum, clusters: ensemble?.clusters ?? 1, seed: 0, analysis: merged };
   return validateSpec(probe, { maxTotalParticles: Number.MAX_SAFE_INTEGER }).analysis;
 }
 

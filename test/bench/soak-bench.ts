@@ -1,26 +1,29 @@
 /**
- * Soak benchmark (opt-in, never in CI; issue #11): one ensemble grown by two
+ * Soak benchmark (opt-in, never in CI; issue #11): ensembles grown by two
  * `tendril worker` processes on a Redis of its own (AOF, fsync every second)
  * while a seeded chaos loop SIGKILLs a random worker every `--kill-every`
  * seconds (a fresh one replaces it) and `kill -9`s Redis every
- * `--redis-every` seconds (restarted on the same AOF). Reports, as one JSON
- * line:
+ * `--redis-every` seconds (restarted on the same AOF). For `--minutes` of
+ * wall time a new ensemble of `--round-clusters` clusters is launched
+ * whenever the newest one has fewer than two queued runs per worker, so the
+ * chaos lasts that long whatever the machine's speed; then the last
+ * ensembles are finished (the chaos going on) and everything is checked.
+ * Reports, as one JSON line:
  *   runsLost       planned runs with no stored result once the farm is idle
  *   runsDoubled    runs reported grown to completion by more than one job
  *                  (sum of the jobs' `done` counts minus the runs stored)
  *   hashesDiffering  stored state hashes that differ from the same run grown
  *                  undisturbed in this process (every resumed run, plus a
  *                  seeded sample of `--check` others)
- *   workerRssMb    resident memory of workers sampled just before each kill
- *                  (first and last), and of the survivors at the end
- * All three counts must be 0.
+ *   workerRssMb    resident memory of each worker just before it was killed
+ *                  (in kill order), and of the survivors at the end
+ * All three counts must be 0. While it runs, a progress line per kill goes to
+ * stderr (wall minutes, runs done, kills, restarts, RSS of the last victim).
  *
  *   node dist/test/bench/soak-bench.js [--minutes 60] [--kill-every 60] [--redis-every 600]
- *        [--particles 50000] [--check 20]
+ *        [--particles 50000] [--round-clusters 24] [--check 20]
  *
- * The cluster count is sized from one timed run so that the ensemble lasts
- * about `--minutes` on two workers. Needs the compiled tree (npm run build)
- * and redis-server on the PATH.
+ * Needs the compiled tree (npm run build) and redis-server on the PATH.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
@@ -42,6 +45,8 @@ export interface SoakOptions {
   redisEverySeconds: number;
   particles: number;
   check: number;
+  /** Clusters per ensemble (a new one is launched whenever the newest has little left queued). */
+  roundClusters?: number;
   seed?: number;
 }
 
@@ -49,6 +54,9 @@ export interface SoakResult {
   benchmark: 'soak';
   minutes: number;
   wallMinutes: number;
+  /** Wall minutes of chaos (launching plus finishing), before the final checks. */
+  chaosMinutes: number;
+  ensembles: number;
   clusters: number;
   particles: number;
   workerKills: number;
@@ -58,7 +66,7 @@ export interface SoakResult {
   runsResumed: number;
   hashesChecked: number;
   hashesDiffering: number;
-  workerRssMb: { firstKilled: number | null; lastKilled: number | null; survivorsAtEnd: number[] };
+  workerRssMb: { firstKilled: number | null; lastKilled: number | null; killed: number[]; survivorsAtEnd: number[] };
 }
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
@@ -126,16 +134,15 @@ class SoakRedis {
 
 export async function runSoak(o: SoakOptions): Promise<SoakResult> {
   const random = rng(o.seed ?? 20261203);
-  // one undisturbed run sizes the ensemble: two workers for `minutes`
-  const probeSpec = validateSpec({ model: 'dla-offlattice-2d', particles: o.particles, clusters: 1, seed: 1 });
-  const t0 = performance.now();
-  createKernel(growthTaskOf(runTaskFor('size', probeSpec, 0))).growTo(o.particles);
-  const perRun = (performance.now() - t0) / 1000;
-  const clusters = Math.max(4, Math.round((o.minutes * 60 * 2) / perRun));
-  const spec = validateSpec(
-    { name: 'soak', model: 'dla-offlattice-2d', particles: o.particles, clusters, seed: '777', runs_per_job: 1, checkpoint_every_particles: Math.max(1, Math.floor(o.particles / 4)) },
-    { maxTotalParticles: Number.MAX_SAFE_INTEGER },
-  );
+  // ensembles of roundClusters clusters are launched one after another for `minutes` of wall time, each when the
+  // previous one has little left queued, so the chaos lasts `minutes` whatever the machine's speed; then the last
+  // ones are finished (chaos continuing) and everything is checked
+  const roundClusters = o.roundClusters ?? 24;
+  const specOf = (round: number) =>
+    validateSpec(
+      { name: `soak-${round}`, model: 'dla-offlattice-2d', particles: o.particles, clusters: roundClusters, seed: String(777 + round), runs_per_job: 1, checkpoint_every_particles: Math.max(1, Math.floor(o.particles / 4)) },
+      { maxTotalParticles: Number.MAX_SAFE_INTEGER },
+    );
 
   const dir = mkdtempSync(join(tmpdir(), 'tendril-soak-'));
   const redisServer = new SoakRedis(await freePort(), join(dir));
@@ -152,19 +159,39 @@ export async function runSoak(o: SoakOptions): Promise<SoakResult> {
   let workerKills = 0;
   let redisRestarts = 0;
   const killedRss: number[] = [];
+  const ensembles: Array<{ id: string; spec: ReturnType<typeof specOf> }> = [];
   const started = performance.now();
+  const launchEnds = started + o.minutes * 60_000;
   try {
     workers.push(await startBenchWorker(redisServer.url, prefix, artifacts, workerArgs), await startBenchWorker(redisServer.url, prefix, artifacts, workerArgs));
-    const id = await launchEnsemble(store, queue, spec);
     let nextKill = performance.now() + o.killEverySeconds * 1000;
     let nextRedis = performance.now() + o.redisEverySeconds * 1000;
-    // chaos until the ensemble is done (or three times the planned length)
-    const giveUp = performance.now() + 3 * o.minutes * 60_000 + 120_000;
+    // chaos until every ensemble is done (or half an hour past the launching time)
+    const giveUp = launchEnds + 30 * 60_000;
     for (;;) {
       await sleep(500);
       const now = performance.now();
-      const state = await store.status(id).then((s) => s?.state, () => undefined);
-      if (state === 'done' || state === 'failed' || now > giveUp) break;
+      const statuses = await store.statuses(ensembles.map((e) => e.id)).catch(() => undefined);
+      const launching = now < launchEnds;
+      if (statuses) {
+        const last = statuses.at(-1);
+        // a new ensemble when the newest has fewer queued runs than two per worker
+        if (launching && (!last || last.runs.queued < 2 * workers.length)) {
+          const spec = specOf(ensembles.length);
+          const id = await launchEnsemble(store, queue, spec).catch(() => null);
+          if (id) ensembles.push({ id, spec });
+        } else {
+          const allEnded = statuses.every((s) => s !== null && (s.state === 'done' || s.state === 'failed'));
+          if ((!launching && allEnded) || now > giveUp) break;
+        }
+      } else if (now > giveUp) break;
+      if (now >= nextKill && statuses) {
+        // one progress line per kill on stderr, so a soak stopped early still leaves its figures
+        const runsDone = statuses.reduce((t, s) => t + (s?.runs.done ?? 0), 0);
+        process.stderr.write(
+          JSON.stringify({ soakProgress: { wallMinutes: Number(((now - started) / 60_000).toFixed(2)), ensembles: ensembles.length, runsDone, runsPlanned: ensembles.length * roundClusters, workerKills, redisRestarts, killedRssMb: killedRss.slice(-1)[0] ?? null } }) + '\n',
+        );
+      }
       if (now >= nextKill) {
         nextKill = now + o.killEverySeconds * 1000;
         const i = Math.floor(random() * workers.length);
@@ -183,28 +210,36 @@ export async function runSoak(o: SoakOptions): Promise<SoakResult> {
         redisRestarts++;
       }
     }
+    const chaosMinutes = (performance.now() - started) / 60_000;
     const survivorsAtEnd = workers.map((w) => rssMb(w.pid)).filter((v): v is number => v !== null);
-    const results = await store.results(id);
-    const runsLost = spec.clusters - results.length;
+    let runsLost = 0;
+    const stored: Array<{ e: (typeof ensembles)[number]; r: Awaited<ReturnType<typeof store.results>>[number] }> = [];
+    for (const e of ensembles) {
+      const results = await store.results(e.id);
+      runsLost += e.spec.clusters - results.length;
+      for (const r of results) stored.push({ e, r });
+    }
     let jobsDone = 0;
     for (const job of await queue.getCompleted(0, -1)) jobsDone += Number((job.returnvalue as { done?: number } | undefined)?.done ?? 0);
-    const runsDoubled = Math.max(0, jobsDone - results.length);
-    const resumed = results.filter((r) => r.timings.resumes > 0);
-    const others = results.filter((r) => r.timings.resumes === 0);
+    const runsDoubled = Math.max(0, jobsDone - stored.length);
+    const resumed = stored.filter((x) => x.r.timings.resumes > 0);
+    const others = stored.filter((x) => x.r.timings.resumes === 0);
     const sample = [...resumed];
     for (let k = 0; k < o.check && others.length > 0; k++) sample.push(others.splice(Math.floor(random() * others.length), 1)[0]);
     let hashesDiffering = 0;
-    for (const r of sample) {
-      const k = createKernel(growthTaskOf(runTaskFor(id, spec, r.runIndex)));
-      k.growTo(spec.particles);
+    for (const { e, r } of sample) {
+      const k = createKernel(growthTaskOf(runTaskFor(e.id, e.spec, r.runIndex)));
+      k.growTo(e.spec.particles);
       if (k.result().stateHash !== r.stateHash) hashesDiffering++;
     }
     return {
       benchmark: 'soak',
       minutes: o.minutes,
       wallMinutes: (performance.now() - started) / 60_000,
-      clusters: spec.clusters,
-      particles: spec.particles,
+      chaosMinutes,
+      ensembles: ensembles.length,
+      clusters: ensembles.length * roundClusters,
+      particles: o.particles,
       workerKills,
       redisRestarts,
       runsLost,
@@ -212,7 +247,7 @@ export async function runSoak(o: SoakOptions): Promise<SoakResult> {
       runsResumed: resumed.length,
       hashesChecked: sample.length,
       hashesDiffering,
-      workerRssMb: { firstKilled: killedRss[0] ?? null, lastKilled: killedRss[killedRss.length - 1] ?? null, survivorsAtEnd },
+      workerRssMb: { firstKilled: killedRss[0] ?? null, lastKilled: killedRss[killedRss.length - 1] ?? null, killed: killedRss, survivorsAtEnd },
     };
   } finally {
     for (const w of workers) if (w.exitCode === null && w.signalCode === null) w.kill('SIGKILL');
@@ -231,6 +266,7 @@ if (isEntryPoint(import.meta.url)) {
     redisEverySeconds: argValue(argv, '--redis-every', 600),
     particles: argValue(argv, '--particles', 50_000),
     check: argValue(argv, '--check', 20),
+    roundClusters: argValue(argv, '--round-clusters', 24),
   }).then(
     (r) => {
       process.stdout.write(JSON.stringify(r) + '\n');

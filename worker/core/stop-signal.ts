@@ -47,3 +47,21 @@ export function stopRaised(s: StopSignal | undefined): boolean {
 export class WalkerStuck extends Error {
   override name = 'WalkerStuck';
 }
+
+/**
+ * What a walker loop does every STOP_CHECK_EVERY steps, `steps` being the
+ * steps of the current particle counted so far: true when the stop signal
+ * is raised (the caller puts its generator back and returns); throws
+ * WalkerStuck, with the reason (run, particle, the walker's radius, min_step),
+ * once the particle has taken `maxSteps`. Plain arguments: nothing is
+ * allocated in the walker loop.
+ */
+export function walkInterrupted(stop: StopSignal | undefined, steps: number, maxSteps: number, runIndex: number, particle: number, radius: number, minStep: number): boolean {
+  if (stopRaised(stop)) return true;
+  if (steps >= maxSteps) {
+    throw new WalkerStuck(
+      `run ${runIndex}: the walker of particle ${particle} made no progress in ${steps} steps at radius ${radius.toPrecision(6)} (params.min_step = ${minStep} is too small for the float spacing there)`,
+    );
+  }
+  return false;
+}

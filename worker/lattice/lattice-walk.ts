@@ -15,6 +15,7 @@
  * file header.
  */
 import type { Random } from '../core/random.js';
+import { STOP_CHECK_EVERY, stopRaised, type StopSignal } from '../core/stop-signal.js';
 import { TiledByteGrid } from '../index/tiled-grids.js';
 import { returnToCircle, returned } from '../walkers/poisson-return-2d.js';
 import { direction, sampleDirection } from '../walkers/uniform-direction.js';
@@ -43,6 +44,8 @@ export class LatticeWalk {
   jumps = 0;
   steps = 0;
   returns = 0;
+  /** Walker moves (jumps, steps, returns) until the stop signal is read next (carried across walks). */
+  private untilCheck = STOP_CHECK_EVERY;
 
   /** `expectedSites`: a size hint for the storage. */
   constructor(lattice: PlanarLattice, expectedSites: number) {
@@ -64,9 +67,13 @@ export class LatticeWalk {
   /**
    * Run one walker from the launch circle of radius rMax + launchMargin to
    * its first perimeter site (left in atI, atJ); rMax is the largest plane
-   * distance of a cluster site from the seed site (0, 0).
+   * distance of a cluster site from the seed site (0, 0). The stop signal
+   * is read every STOP_CHECK_EVERY moves; when it is raised the walk ends
+   * at once and returns false (the caller puts its generator back to where
+   * the walk began; nothing else here has changed but the move counts).
    */
-  walk(rng: Random, rMax: number, launchMargin: number): void {
+  walk(rng: Random, rMax: number, launchMargin: number, stop?: StopSignal): boolean {
+    let untilCheck = this.untilCheck;
     const lattice = this.lattice;
     const tri = this.triangular;
     const maxLevel = this.maxLevel;
@@ -83,6 +90,13 @@ export class LatticeWalk {
     let x = siteOf.i;
     let y = siteOf.j;
     for (;;) {
+      if (--untilCheck === 0) {
+        untilCheck = STOP_CHECK_EVERY;
+        if (stopRaised(stop)) {
+          this.untilCheck = STOP_CHECK_EVERY;
+          return false;
+        }
+      }
       const px = tri ? x + 0.5 * y : x;
       const py = tri ? y * HALF_SQRT3 : y;
       const r2 = px * px + py * py;
@@ -130,6 +144,8 @@ export class LatticeWalk {
     this.jumps = jumps;
     this.steps = steps;
     this.returns = returns;
+    this.untilCheck = untilCheck;
+    return true;
   }
 
   /** The largest level e (0 … maxLevel) whose cell around (x, y) is unmarked (0: none is). */

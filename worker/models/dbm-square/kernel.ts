@@ -276,6 +276,8 @@ export class DbmSquare implements GrowthKernel {
     const v = new DataView(state.buffer, state.byteOffset, state.byteLength);
     const radius = v.getFloat64(0, true);
     const n = v.getFloat64(8, true);
+    // a checkpoint taken while a solve was stopped holds the boundary already moved out for the next particle
+    if (radius !== this.grid.radius) this.prepareBoundary();
     if (radius !== this.grid.radius) throw new RangeError(`checkpoint modelState: far boundary radius ${radius} does not match the cluster's ${this.grid.radius}`);
     if (n !== state.length / 8 - 2) throw new RangeError(`checkpoint modelState: ${n} potential values announced, ${state.length / 8 - 2} present`);
     const values = new Float64Array(n);

@@ -80,6 +80,7 @@ import { StateHasher } from '../../core/state-hash.js';
 import { checkCheckpointOf } from '../../core/checkpoint-check.js';
 import { recordPlanarAnisotropy } from '../../core/anisotropy.js';
 import { PlanarCluster } from '../../core/planar-cluster.js';
+import { STOP_CHECK_EVERY, stopRaised, type StopSignal } from '../../core/stop-signal.js';
 import { TiledInt32Grid } from '../../index/tiled-grids.js';
 import { LatticeWalk } from '../../lattice/lattice-walk.js';
 import { type PlanarLattice, planeOf, siteOf, toPlane, toSite } from '../../lattice/planar-lattice.js';
@@ -106,6 +107,8 @@ export class DlaLatticeKernel implements GrowthKernel {
   /** Sites hit at least once and not yet joined, in first-hit order (for checkpoints). */
   private hitOrder: number[] = [];
   private readonly rng: Random;
+  /** Generator state at the start of the walker being walked (restored when a stop interrupts it). */
+  private readonly walkerStart = new Uint32Array(4);
 
   constructor(lattice: PlanarLattice, task: GrowthTask, checkpoint?: GrowthCheckpoint) {
     this.task = structuredClone(task);
@@ -152,16 +155,21 @@ export class DlaLatticeKernel implements GrowthKernel {
     return this.cluster.n >= this.task.particles;
   }
 
-  growTo(target: number): void {
+  growTo(target: number, stop?: StopSignal): void {
     const goal = Math.min(target, this.task.particles);
-    while (this.cluster.n < goal) this.addParticle();
+    while (this.cluster.n < goal) if (!this.addParticle(stop)) return;
   }
 
-  /** Launch walkers until a perimeter site reaches m hits, and add it. */
-  private addParticle(): void {
+  /**
+   * Launch walkers until a perimeter site reaches m hits, and add it; false
+   * when the stop signal interrupted a walker. The state is then the one
+   * after the last whole walker (its hits kept, as a checkpoint keeps them),
+   * so a resume continues with the same draws.
+   */
+  private addParticle(stop: StopSignal | undefined): boolean {
     const m = this.hitsToJoin;
     for (;;) {
-      this.walk();
+      if (!this.walk(stop)) return false;
       const i = walkerAt.i;
       const j = walkerAt.j;
       if (m > 1) {
@@ -177,20 +185,29 @@ export class DlaLatticeKernel implements GrowthKernel {
       this.occupy(i, j);
       toPlane(this.lattice, i, j);
       this.cluster.place(planeOf.x, planeOf.y);
-      return;
+      return true;
     }
   }
 
-  /** Run one walker from the launch circle to its first perimeter site (left in walkerAt). */
-  private walk(): void {
+  /**
+   * Run one walker from the launch circle to its first perimeter site (left
+   * in walkerAt); false, with the generator put back to where the walker
+   * began and no counter changed, when the stop signal is raised.
+   */
+  private walk(stop: StopSignal | undefined): boolean {
     const w = this.walker;
-    w.walk(this.rng, this.cluster.rMax, this.launchMargin);
+    this.rng.saveState(this.walkerStart);
+    if (!w.walk(this.rng, this.cluster.rMax, this.launchMargin, stop)) {
+      this.rng.loadState(this.walkerStart);
+      return false;
+    }
     walkerAt.i = w.atI;
     walkerAt.j = w.atJ;
     this.counters.walkers++;
     this.counters.jumps += w.jumps;
     this.counters.steps += w.steps;
     this.counters.returns += w.returns;
+    return true;
   }
 
   private isPerimeter(x: number, y: number): boolean {

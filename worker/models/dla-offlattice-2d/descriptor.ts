@@ -5,34 +5,7 @@
 import type { ModelDescriptor } from '../../core/model-descriptor.js';
 import { OffLatticeDla2d } from './kernel.js';
 import { PLANAR_ANISOTROPY_OBSERVABLES } from '../../core/anisotropy.js';
-import type { GrowthTask } from '../../core/growth-kernel.js';
-
-/**
- * The smallest min_step the float arithmetic can honour for a cluster of
- * `particles`: a straight step must move the walker by at least 2^12 float
- * spacings wherever it can be. Centres are never farther than particles − 1
- * from the origin (a chain of touching unit disks) and walkers step near the
- * cluster, within particles + 1 + launch_margin; the spacing of doubles there
- * is at most that radius × 2^-52, so the floor is radius × 2^-40, and never
- * below 10^-6 (exact arithmetic, no source needed). Returned rounded up to
- * three significant digits, as the message prints it.
- */
-export function minStepFloor(particles: number, launchMargin: number): number {
-  const floor = Math.max(1e-6, (particles + 1 + launchMargin) * 2 ** -40);
-  let shown = Number(floor.toPrecision(3));
-  if (shown < floor) shown = Number((floor * 1.005).toPrecision(3));
-  return shown;
-}
-
-function checkMinStep(task: GrowthTask): void {
-  const { min_step: minStep, launch_margin: margin } = task.model.params;
-  const floor = minStepFloor(task.particles, margin);
-  if (!(minStep >= floor)) {
-    throw new RangeError(
-      `params.min_step: ${minStep} is out of range; allowed: a number from ${floor} to 1 for ${task.particles} particles (particle diameters; a smaller step is lost in the float spacing of the coordinates)`,
-    );
-  }
-}
+import { checkMinStepFloor } from '../../core/min-step-floor.js';
 
 export const dlaOffLattice2d: ModelDescriptor = {
   kind: 'dla-offlattice-2d',
@@ -98,6 +71,6 @@ export const dlaOffLattice2d: ModelDescriptor = {
         '16 clusters of 10^6 particles give three estimates that agree, with R_g covering 1.7100. A disagreement on small clusters is finite size, not a fault; read the local slopes.',
     },
   },
-  check: checkMinStep,
+  check: checkMinStepFloor,
   create: (task, checkpoint) => new OffLatticeDla2d(task, checkpoint),
 };

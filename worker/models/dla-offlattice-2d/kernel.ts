@@ -74,7 +74,7 @@ import { direction, sampleDirection } from '../../walkers/uniform-direction.js';
 import { contact, firstContact } from '../../walkers/segment-contact-2d.js';
 import { checkCheckpointOf } from '../../core/checkpoint-check.js';
 import { recordPlanarAnisotropy } from '../../core/anisotropy.js';
-import { MAX_STEPS_PER_PARTICLE, STOP_CHECK_EVERY, stopRaised, WalkerStuck, type StopSignal } from '../../core/stop-signal.js';
+import { MAX_STEPS_PER_PARTICLE, STOP_CHECK_EVERY, walkInterrupted, type StopSignal } from '../../core/stop-signal.js';
 
 /** The counters of this model (names as declared by its descriptor). */
 export interface OffLatticeDla2dCounters extends Counters {
@@ -233,15 +233,10 @@ export class OffLatticeDla2d implements GrowthKernel {
       if (--untilCheck === 0) {
         untilCheck = STOP_CHECK_EVERY;
         checked += STOP_CHECK_EVERY;
-        if (stopRaised(stop)) {
+        if (walkInterrupted(stop, checked, this.maxSteps, this.task.runIndex, this.n + 1, Math.sqrt(wx * wx + wy * wy), minStep)) {
           rng.loadState(this.particleStart);
           this.untilCheck = STOP_CHECK_EVERY;
           return false;
-        }
-        if (checked >= this.maxSteps) {
-          throw new WalkerStuck(
-            `run ${this.task.runIndex}: the walker of particle ${this.n + 1} made no progress in ${checked} steps at radius ${Math.sqrt(wx * wx + wy * wy).toPrecision(6)} (params.min_step = ${minStep} is too small for the float spacing there)`,
-          );
         }
       }
       let r2 = wx * wx + wy * wy;

@@ -4,6 +4,7 @@
  */
 import type { ModelDescriptor } from '../../core/model-descriptor.js';
 import { OffLatticeDla3d } from './kernel.js';
+import { checkMinStepFloor } from '../../core/min-step-floor.js';
 
 export const dlaOffLattice3d: ModelDescriptor = {
   kind: 'dla-offlattice-3d',
@@ -60,5 +61,6 @@ export const dlaOffLattice3d: ModelDescriptor = {
       { label: 'mean-field value (d² + 1)/(d + 1)', value: 5 / 2, source: 'Muthukumar 1983, Phys. Rev. Lett. 50, 839 (citation from memory)' },
     ],
   },
+  check: checkMinStepFloor,
   create: (task, checkpoint) => new OffLatticeDla3d(task, checkpoint),
 };

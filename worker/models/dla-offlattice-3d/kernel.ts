@@ -72,6 +72,7 @@ import { StateHasher } from '../../core/state-hash.js';
 import { direction3, sampleDirection3d } from '../../walkers/uniform-direction-3d.js';
 import { contact3, firstContact3d } from '../../walkers/segment-contact-3d.js';
 import { checkCheckpointOf } from '../../core/checkpoint-check.js';
+import { MAX_STEPS_PER_PARTICLE, STOP_CHECK_EVERY, walkInterrupted, type StopSignal } from '../../core/stop-signal.js';
 
 /** The counters of this model (names as declared by its descriptor). */
 export interface OffLatticeDla3dCounters extends Counters {
@@ -104,10 +105,17 @@ export class OffLatticeDla3d implements GrowthKernel {
   private sumZ = 0;
   private sumR2 = 0;
   private nextRecord = 0;
+  /** Generator state at the start of the particle being walked (restored when a stop interrupts it). */
+  private readonly particleStart = new Uint32Array(4);
+  /** Walker steps until the stop signal is read next (carried across particles). */
+  private untilCheck = STOP_CHECK_EVERY;
+  /** Most steps one particle may take before the run fails as stuck (MAX_STEPS_PER_PARTICLE; tests lower it). */
+  private readonly maxSteps: number;
 
   /** The task must have passed the registry's checks (worker/models/registry.ts checkTask). */
-  constructor(task: GrowthTask, checkpoint?: GrowthCheckpoint) {
+  constructor(task: GrowthTask, checkpoint?: GrowthCheckpoint, limits: { maxStepsPerParticle?: number } = {}) {
     this.task = structuredClone(task);
+    this.maxSteps = limits.maxStepsPerParticle ?? MAX_STEPS_PER_PARTICLE;
     this.minStep = task.model.params.min_step;
     this.launchMargin = task.model.params.launch_margin;
     this.index = new OccupancyIndex3d(task.particles);
@@ -139,9 +147,9 @@ export class OffLatticeDla3d implements GrowthKernel {
     return this.n >= this.task.particles;
   }
 
-  growTo(target: number): void {
+  growTo(target: number, stop?: StopSignal): void {
     const goal = Math.min(target, this.task.particles);
-    while (this.n < goal) this.addParticle();
+    while (this.n < goal) if (!this.addParticle(stop)) return;
   }
 
   positions(): ClusterPositions {
@@ -197,9 +205,15 @@ export class OffLatticeDla3d implements GrowthKernel {
     return h.digest();
   }
 
-  /** Run walkers from the launch sphere until one sticks, and add it. */
-  private addParticle(): void {
+  /**
+   * Run walkers from the launch sphere until one sticks, and add it; false
+   * (nothing changed) when the stop signal interrupted the walk.
+   */
+  private addParticle(stop: StopSignal | undefined): boolean {
     const rng = this.rng;
+    rng.saveState(this.particleStart);
+    let untilCheck = this.untilCheck;
+    let checked = 0;
     const index = this.index;
     const minStep = this.minStep;
     const rMax = this.rMax;
@@ -217,6 +231,15 @@ export class OffLatticeDla3d implements GrowthKernel {
     let wz = launch * direction3.z;
 
     for (;;) {
+      if (--untilCheck === 0) {
+        untilCheck = STOP_CHECK_EVERY;
+        checked += STOP_CHECK_EVERY;
+        if (walkInterrupted(stop, checked, this.maxSteps, this.task.runIndex, this.n + 1, Math.sqrt(wx * wx + wy * wy + wz * wz), minStep)) {
+          rng.loadState(this.particleStart);
+          this.untilCheck = STOP_CHECK_EVERY;
+          return false;
+        }
+      }
       let r2 = wx * wx + wy * wy + wz * wz;
       if (r2 > launch2) {
         if (returnToSphere(wx, wy, wz, launch, rng)) {
@@ -274,7 +297,9 @@ export class OffLatticeDla3d implements GrowthKernel {
     this.counters.short_steps += shortSteps;
     this.counters.returns += returns;
     this.counters.escapes += escapes;
+    this.untilCheck = untilCheck;
     this.place(wx, wy, wz);
+    return true;
   }
 
   /** Add a particle and take a record if the new size is on the grid. */

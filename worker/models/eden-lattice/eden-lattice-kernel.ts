@@ -42,6 +42,7 @@ import { checkCheckpointOf } from '../../core/checkpoint-check.js';
 import { IncrementalPlanarRecords } from '../../core/incremental-planar-records.js';
 import { PlanarCluster } from '../../core/planar-cluster.js';
 import { PerimeterSites } from '../../lattice/perimeter-sites.js';
+import { STOP_CHECK_EVERY, stopRaised, type StopSignal } from '../../core/stop-signal.js';
 import { type PlanarLattice, planeOf, siteOf, toPlane, toSite } from '../../lattice/planar-lattice.js';
 
 export class EdenLatticeKernel implements GrowthKernel {
@@ -98,12 +99,18 @@ export class EdenLatticeKernel implements GrowthKernel {
     return this.cluster.n >= this.task.particles;
   }
 
-  growTo(target: number): void {
+  /** Every particle is one draw, so a stop (read every STOP_CHECK_EVERY particles) leaves the state after a whole particle. */
+  growTo(target: number, stop?: StopSignal): void {
     const goal = Math.min(target, this.task.particles);
     const rng = this.rng;
     const lattice = this.lattice;
     const perimeter = this.perimeter;
+    let untilCheck = STOP_CHECK_EVERY;
     while (this.cluster.n < goal) {
+      if (--untilCheck === 0) {
+        untilCheck = STOP_CHECK_EVERY;
+        if (stopRaised(stop)) break;
+      }
       const slot = rng.nextBelow(perimeter.count);
       const i = perimeter.perimI[slot];
       const j = perimeter.perimJ[slot];

@@ -46,6 +46,7 @@ import { checkCheckpointOf } from '../../core/checkpoint-check.js';
 import { recordPlanarAnisotropy } from '../../core/anisotropy.js';
 import { recordRadialInterface } from '../../core/radial-interface.js';
 import { PlanarCluster } from '../../core/planar-cluster.js';
+import { STOP_CHECK_EVERY, stopRaised, type StopSignal } from '../../core/stop-signal.js';
 import { TiledInt32Grid } from '../../index/tiled-grids.js';
 
 const MAX_ARCS = 64;
@@ -113,12 +114,18 @@ export class OffLatticeEden2d implements GrowthKernel {
     return this.freeLength[k];
   }
 
-  growTo(target: number): void {
+  /** A stop (read every STOP_CHECK_EVERY particles) leaves the state after a whole particle: no draw of the next one has been made. */
+  growTo(target: number, stop?: StopSignal): void {
     const goal = Math.min(target, this.task.particles);
     const rng = this.rng;
     const xy = this.cluster.xy;
     let redraws = 0;
+    let untilCheck = STOP_CHECK_EVERY;
     while (this.cluster.n < goal) {
+      if (--untilCheck === 0) {
+        untilCheck = STOP_CHECK_EVERY;
+        if (stopRaised(stop)) break;
+      }
       for (;;) {
         const i = this.findByWeight(rng.nextDouble() * this.totalWeight());
         let v = rng.nextDouble() * this.freeLength[i];
