@@ -4,12 +4,13 @@
  * bounded in the spec.
  */
 import { Redis } from 'ioredis';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { EnsembleStore } from '../coordinator/farm/store.js';
 import { launchEnsemble, runQueue } from '../coordinator/farm/queue.js';
 import { farmSummary } from '../coordinator/farm/summary.js';
 import { buildApi } from '../coordinator/http/server.js';
 import { SummaryCache } from '../coordinator/http/summary-cache.js';
+import { SummaryThread } from '../coordinator/farm/summary-thread.js';
 import { runTaskFor } from '../coordinator/plan.js';
 import { renderSummary } from '../coordinator/summary/index.js';
 import { SpecError, validateSpec, type EnsembleSpec } from '../coordinator/spec/index.js';
@@ -27,7 +28,7 @@ let id = '';
 const results: RunResultData[] = [];
 
 beforeAll(async () => {
-  spec = validateSpec({ model: 'dla-offlattice-2d', particles: 300, clusters: 12, seed: 8, analysis: { resamples: 5000 } });
+  spec = validateSpec({ model: 'dla-offlattice-2d', particles: 300, clusters: 12, seed: 8, analysis: { resamples: 50000 } });
   id = await launchEnsemble(store, queue, spec);
   for (let i = 0; i < spec.clusters; i++) {
     const o = await runTask(runTaskFor(id, spec, i));
@@ -56,13 +57,25 @@ describe('summary work is bounded', () => {
   });
 
   it('/health answers while a summary is being computed (the bootstrap runs on a thread)', async () => {
+    // Know when the computation has been handed to the thread (no timer: the
+    // test holds on any machine speed). While the thread works on 50000
+    // resamples of 12 clusters, /health (a few microseconds of main-thread
+    // work) must be answered before the summary settles.
+    let handedOff!: () => void;
+    const onThread = new Promise<void>((r) => (handedOff = r));
+    const build = SummaryThread.prototype.build;
+    const spy = vi.spyOn(SummaryThread.prototype, 'build').mockImplementation(function (this: SummaryThread, input) {
+      const p = build.call(this, input);
+      handedOff();
+      return p;
+    });
     let settled = false;
     const summary = app.inject({ url: `/ensembles/${id}/summary` }).then((r) => {
       settled = true;
       return r;
     });
-    // let the summary request start (status read, results loaded), then ask for /health
-    await new Promise((r) => setTimeout(r, 200));
+    await onThread;
+    spy.mockRestore();
     const health = await app.inject({ url: '/health' });
     expect(health.statusCode).toBe(200);
     expect(settled).toBe(false);
