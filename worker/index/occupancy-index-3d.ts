@@ -31,6 +31,13 @@
  *    bricks over the block say which of its cells to look up. The centres found are kept (in chain order, so the same
  *    set in the same order whatever came before) until the next insert and
  *    reused while the walker stays in the same side-2 cell.
+ *  - Near field (worker/index/near-distance-field-3d.ts): per cell of side 2,
+ *    the distance from its centre to the nearest centre, up to 12. Asked
+ *    first; its bound (stored value − walker's distance to the cell centre)
+ *    is taken alone when it leaves at least FIELD_ACCEPT of free distance,
+ *    else the marks and the exact scan are asked as well and the larger
+ *    bound wins. Near the cluster it is about twice the marks' bound, which
+ *    cut the walk-on-spheres jumps per ball from 171 to about 77 at N = 10^5.
  * Marks are stored as bits in bricks of 4 × 4 × 4 cells (one hash slot:
  * two words of mark bits and two words of "holds a centre" bits); every
  * table is a sparse hash (worker/index/cell-hash-table-3d.ts), so memory
@@ -40,6 +47,15 @@
  */
 
 import { CellHashTable3d } from './cell-hash-table-3d.js';
+import { NearDistanceField3d } from './near-distance-field-3d.js';
+
+/**
+ * A near-field bound of at least this much free distance is taken as it is;
+ * below it the marks and the exact scan (exact up to 2 + m) are asked too and
+ * the larger bound wins. 1 was cheaper than 2 and than 0.3 at N = 10^4 (four
+ * seeds; jumps per ball 62 against 65 and 68).
+ */
+const FIELD_ACCEPT = 1;
 
 /** Mark levels 0..MAX_LEVEL; the coarsest cell has side 2^(MAX_LEVEL+1) = 2^23 diameters. */
 const MAX_LEVEL = 22;
@@ -74,6 +90,7 @@ export class OccupancyIndex3d {
   private readonly marks: CellHashTable3d[] = [];
   /** Wide marks (5 × 5 × 5 blocks) per level: bits in words v0, v1 of each brick. */
   private readonly wide: CellHashTable3d[] = [];
+  private readonly field = new NearDistanceField3d();
   private n = 0;
   /** Level where the last query ended (a starting hint only). */
   private hint = 0;
@@ -105,6 +122,7 @@ export class OccupancyIndex3d {
     let b = this.coords.byteLength + this.next.byteLength + this.heads.bytes + this.nearX.byteLength * 3 + this.nearId.byteLength;
     for (const t of this.marks) b += t.bytes;
     for (const t of this.wide) b += t.bytes;
+    b += this.field.bytes;
     return b;
   }
 
@@ -122,6 +140,8 @@ export class OccupancyIndex3d {
     this.next[i] = this.heads.slots[h + 3];
     this.heads.slots[h + 3] = i;
     this.n = i + 1;
+    // the last exact scan lists earlier centres, which let the field skip cells they already bound
+    this.field.insert(x, y, z, this.nearX, this.nearY, this.nearZ, this.scanCx === NO_CELL ? 0 : this.scanCount);
     this.scanCx = NO_CELL;
 
     for (let k = 0; k <= MAX_LEVEL; k++) {
@@ -196,6 +216,19 @@ export class OccupancyIndex3d {
    * within 2 of the walker (nearCount >= 0); otherwise nearCount is -1.
    */
   query(x: number, y: number, z: number): void {
+    const field = this.field;
+    field.lowerBound(x, y, z);
+    const near = field.bound - 1;
+    if (field.near && near >= FIELD_ACCEPT) {
+      this.free = near;
+      this.nearCount = -1;
+      return;
+    }
+    this.queryMarks(x, y, z);
+    if (near > this.free) this.free = near;
+  }
+
+  private queryMarks(x: number, y: number, z: number): void {
     let k = this.hint;
     if (!this.marked(k, x, y, z)) {
       while (k < MAX_LEVEL && !this.marked(k + 1, x, y, z)) k++;
