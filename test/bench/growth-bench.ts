@@ -11,7 +11,7 @@
  *
  * Prints a table, then one JSON line per size:
  *   {"bench":"growth","model":...,"particles":...,"particlesPerSecond":...,"jumpsPerParticle":...,
- *    "shortStepsPerParticle":...,"returnsPerParticle":...,"wallSeconds":...,"peakRssMB":...,...}
+ *    "shortStepsPerParticle":...,"returnsPerParticle":...,"wallSeconds":...,"cpuSeconds":...,"peakRssMB":...,...}
  * wallSeconds is the growth time inside the child (kernel construction
  * included, process start-up excluded).
  */
@@ -36,6 +36,8 @@ export interface GrowthBenchRow {
   shortStepsPerParticle: number;
   returnsPerParticle: number;
   wallSeconds: number;
+  /** CPU seconds (user + system) of the child over the same span as wallSeconds: the figure to quote on a shared machine. */
+  cpuSeconds: number;
   peakRssMB: number;
   stateHash: string;
   nodeVersion: string;
@@ -64,6 +66,7 @@ function childMain(particles: number, seed: string, model: string): void {
   };
   const progress = createProgress({ total: particles, unit: 'particles', label: `growth bench ${particles}`, mode: 'lines', lineIntervalSeconds: 30 });
   const t0 = performance.now();
+  const cpu0 = process.cpuUsage();
   const kernel = createKernel(task);
   let chunk = 1000;
   while (!kernel.done) {
@@ -72,6 +75,7 @@ function childMain(particles: number, seed: string, model: string): void {
     progress.update(kernel.count);
   }
   const seconds = (performance.now() - t0) / 1000;
+  const cpu = process.cpuUsage(cpu0);
   const result = kernel.result();
   const c = result.counters;
   const row: GrowthBenchRow = {
@@ -85,6 +89,7 @@ function childMain(particles: number, seed: string, model: string): void {
     shortStepsPerParticle: (c.short_steps ?? 0) / particles,
     returnsPerParticle: (c.returns ?? 0) / particles,
     wallSeconds: seconds,
+    cpuSeconds: (cpu.user + cpu.system) / 1e6,
     peakRssMB: process.resourceUsage().maxRSS / 1024, // maxRSS is in kilobytes
     stateHash: result.stateHash,
     nodeVersion: process.version,
@@ -115,7 +120,7 @@ function fixed(v: number, digits: number): string {
 }
 
 export function formatTable(rows: GrowthBenchRow[]): string {
-  const head = ['particles', 'particles/s', 'jumps/particle', 'short steps/particle', 'returns/particle', 'seconds', 'peak RSS MB'];
+  const head = ['particles', 'particles/s', 'jumps/particle', 'short steps/particle', 'returns/particle', 'seconds', 'CPU seconds', 'peak RSS MB'];
   const body = rows.map((r) => [
     String(r.particles),
     fixed(r.particlesPerSecond, 0),
@@ -123,6 +128,7 @@ export function formatTable(rows: GrowthBenchRow[]): string {
     fixed(r.shortStepsPerParticle, 2),
     fixed(r.returnsPerParticle, 2),
     fixed(r.wallSeconds, 2),
+    fixed(r.cpuSeconds, 2),
     fixed(r.peakRssMB, 1),
   ]);
   const widths = head.map((h, i) => Math.max(h.length, ...body.map((b) => b[i].length)));

@@ -7,7 +7,9 @@
  * walker is from the cluster: the distance to the nearest centre is
  * 1-Lipschitz, so for a walker at x in a cell with centre c and stored value
  * v <= d(c),
- *     d(x) >= v − |x − c|        (triangle inequality; exact, derived here).
+ *     d(x) >= v − |x − c|        (triangle inequality; exact, derived here),
+ * and since v >= d(c) − 1/STEPS and d(c) >= d(x) − |x − c|, the bound loses
+ * at most 2|x − c| + 1/STEPS <= 2√3 + 1/16 against d(x) within the cap.
  * With cells of side 2 the loss |x − c| is at most √3 and about 0.96 on
  * average, against the multi-level marks' loss of up to a cell side (the
  * marks' bound averaged 2.5 diameters where the true free distance averaged
@@ -24,7 +26,8 @@
  * rebuild. Inserting a centre visits the cells within CAP of it (about
  * (4/3)π CAP³ / CELL³ of them) and lowers the values it beats.
  *
- * Storage: bricks of 4 × 4 × 4 cells, one byte a cell, in a pool that grows
+ * Storage: bricks of 8 × 8 × 8 cells, one byte a cell (8 × 8 × 8 cut the
+ * hash look-ups of an insert to about a third of 4 × 4 × 4's), in a pool that grows
  * by doubling; a sparse hash (worker/index/cell-hash-table-3d.ts) maps a
  * brick's coordinates to its number in the pool. Only bricks with a cell
  * within CAP of a centre exist, so memory grows with the cluster's
@@ -52,7 +55,7 @@ const MAX_CUTS = 6;
 /** Relative margin on a cut's threshold (far above the rounding of c·u and of |p|² − |n|²). */
 const CUT_MARGIN = 2 ** -30;
 /** Bricks per axis over the cells within CAP of a point (2·CAP/CELL + 1 cells, any alignment). */
-const NEAR_SPAN = ((2 * NEAR_FIELD_CAP / CELL + 1 + 3) >> 2) + 1;
+const NEAR_SPAN = ((2 * NEAR_FIELD_CAP / CELL + 1 + 7) >> 3) + 1;
 const UNKNOWN = -2;
 const ABSENT = -1;
 /** Bricks in the pool at start. */
@@ -64,7 +67,7 @@ export class NearDistanceField3d {
   /** True when the last `lowerBound` found a centre within CAP of the cell's centre. */
   near = false;
   private readonly bricks = new CellHashTable3d(1024, 1);
-  private pool = new Uint8Array(POOL_START * 64).fill(FAR);
+  private pool = new Uint8Array(POOL_START * 512).fill(FAR);
   private brickCount = 0;
   /** Half-spaces of the insert in progress: ux, uy, uz, t, 1/ux per cut. */
   private readonly cut = new Float64Array(5 * MAX_CUTS);
@@ -88,7 +91,7 @@ export class NearDistanceField3d {
    * work, since a cell at least as close to an earlier centre n as to the new
    * one already holds a value no larger than the new one would give (it was
    * lowered by n), so the half-space {c : (c − (p + n)/2)·(p − n) <= 0} is
-   * skipped, by bricks and by stretches of rows. The field does not depend on
+   * skipped, row by row (about half the cells). The field does not depend on
    * which earlier centres are listed.
    */
   insert(px: number, py: number, pz: number, nx: Float64Array, ny: Float64Array, nz: Float64Array, count: number): void {
@@ -118,9 +121,9 @@ export class NearDistanceField3d {
     const z0 = Math.ceil((pz - NEAR_FIELD_CAP) * INV_CELL - 0.5) | 0;
     const z1 = Math.floor((pz + NEAR_FIELD_CAP) * INV_CELL - 0.5) | 0;
     // pool offsets of the bricks over the box, looked up once: UNKNOWN, ABSENT or the offset
-    const bx0 = x0 >> 2;
-    const by0 = y0 >> 2;
-    const bz0 = z0 >> 2;
+    const bx0 = x0 >> 3;
+    const by0 = y0 >> 3;
+    const bz0 = z0 >> 3;
     const near = this.nearBricks;
     near.fill(UNKNOWN);
     let pool = this.pool;
@@ -152,28 +155,28 @@ export class NearDistanceField3d {
             if (hi < ihi) ihi = hi;
           } else if (r >= 0) continue rows;
         }
-        const brickRow = (((k >> 2) - bz0) * NEAR_SPAN + ((j >> 2) - by0)) * NEAR_SPAN - bx0;
-        const cellRow = ((k & 3) << 4) + ((j & 3) << 2);
+        const brickRow = (((k >> 3) - bz0) * NEAR_SPAN + ((j >> 3) - by0)) * NEAR_SPAN - bx0;
+        const cellRow = ((k & 7) << 6) + ((j & 7) << 3);
         for (let i = ilo; i <= ihi; i++) {
           const dx = (i + 0.5) * CELL - px;
           const d2 = dyz2 + dx * dx;
-          const nb = brickRow + (i >> 2);
+          const nb = brickRow + (i >> 3);
           let base = near[nb];
           if (base === UNKNOWN) {
-            const o = this.bricks.find(i >> 2, j >> 2, k >> 2);
-            base = o < 0 ? ABSENT : this.bricks.slots[o + 3] << 6;
+            const o = this.bricks.find(i >> 3, j >> 3, k >> 3);
+            base = o < 0 ? ABSENT : this.bricks.slots[o + 3] << 9;
             near[nb] = base;
           }
-          const v = base === ABSENT ? FAR : pool[base + cellRow + (i & 3)];
+          const v = base === ABSENT ? FAR : pool[base + cellRow + (i & 7)];
           if (d2 < ENTER[v]) {
             const w = Math.floor(Math.sqrt(d2) * STEPS * SHRINK);
             if (w < v) {
               if (base === ABSENT) {
-                base = this.brick(i >> 2, j >> 2, k >> 2) << 6;
+                base = this.brick(i >> 3, j >> 3, k >> 3) << 9;
                 near[nb] = base;
                 pool = this.pool;
               }
-              pool[base + cellRow + (i & 3)] = w;
+              pool[base + cellRow + (i & 7)] = w;
             }
           }
         }
@@ -194,8 +197,8 @@ export class NearDistanceField3d {
     const i = fx | 0;
     const j = fy | 0;
     const k = fz | 0;
-    const o = this.bricks.find(i >> 2, j >> 2, k >> 2);
-    const v = o < 0 ? FAR : this.pool[(this.bricks.slots[o + 3] << 6) + ((k & 3) << 4) + ((j & 3) << 2) + (i & 3)];
+    const o = this.bricks.find(i >> 3, j >> 3, k >> 3);
+    const v = o < 0 ? FAR : this.pool[(this.bricks.slots[o + 3] << 9) + ((k & 7) << 6) + ((j & 7) << 3) + (i & 7)];
     const dx = x - (fx + 0.5) * CELL;
     const dy = y - (fy + 0.5) * CELL;
     const dz = z - (fz + 0.5) * CELL;
@@ -210,7 +213,7 @@ export class NearDistanceField3d {
     const s = t.slots;
     if (s[o + 3] >= 0) return s[o + 3];
     const b = this.brickCount++;
-    if ((b + 1) << 6 > this.pool.length) {
+    if ((b + 1) << 9 > this.pool.length) {
       const grown = new Uint8Array(this.pool.length * 2).fill(FAR);
       grown.set(this.pool);
       this.pool = grown;
