@@ -15,8 +15,10 @@
  * marks' bound averaged 2.5 diameters where the true free distance averaged
  * 5.9). Measured at N = 10^4 (seeds 2–5, jumps per ball): cells of side 1
  * took 52 jumps but cost 50–65 µs a ball to insert at CAP 12; cells of
- * side 2 took 62 at 8–10 µs; CAP 8, 10, 12, 15 gave 73, 78, 62, 58 jumps,
- * and 15 costs about twice 12 to insert.
+ * side 2 took 62 at 8–10 µs; CAP 8, 10, 12, 15 gave 73, 78, 62, 58 jumps.
+ * At N = 10^5 (seed 1, the three run side by side, CPU seconds): marks only
+ * 5.79 s (171 jumps a ball), CAP 12 5.38 s (83), CAP 8 4.90 s (92) — the
+ * insert's cost grows as CAP³ and outweighs the jumps CAP 12 saves.
  *
  * Stored values are min over centres of floor(|c − p| · STEPS · (1 − 2^-40))
  * (the factor keeps floor from rounding up when |c − p| · STEPS lies within
@@ -42,7 +44,7 @@ const INV_CELL = 1 / CELL;
 /** Distances are stored in steps of 1/STEPS diameters. */
 const STEPS = 16;
 /** Distances at or beyond CAP are not stored (the cell reads CAP). */
-export const NEAR_FIELD_CAP = 12;
+export const NEAR_FIELD_CAP = 8;
 const FAR = NEAR_FIELD_CAP * STEPS;
 /** 1 − 2^-40: keeps the rounded-down value below the true distance. */
 const SHRINK = 1 - 2 ** -40;

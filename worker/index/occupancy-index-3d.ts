@@ -32,12 +32,12 @@
  *    set in the same order whatever came before) until the next insert and
  *    reused while the walker stays in the same side-2 cell.
  *  - Near field (worker/index/near-distance-field-3d.ts): per cell of side 2,
- *    the distance from its centre to the nearest centre, up to 12. Asked
+ *    the distance from its centre to the nearest centre, up to 8. Asked
  *    first; its bound (stored value − walker's distance to the cell centre)
  *    is taken alone when it leaves at least FIELD_ACCEPT of free distance,
  *    else the marks and the exact scan are asked as well and the larger
  *    bound wins. Near the cluster it is about twice the marks' bound, which
- *    cut the walk-on-spheres jumps per ball from 171 to about 77 at N = 10^5.
+ *    cut the walk-on-spheres jumps per ball from 171 to 92 at N = 10^5.
  * Marks are stored as bits in bricks of 4 × 4 × 4 cells (one hash slot:
  * two words of mark bits and two words of "holds a centre" bits); every
  * table is a sparse hash (worker/index/cell-hash-table-3d.ts), so memory

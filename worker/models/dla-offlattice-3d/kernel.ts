@@ -28,7 +28,8 @@
  *     uniform on the launch sphere, so this is exact, not a killing bias.
  *  3. Walk-on-spheres: the occupancy index (worker/index/occupancy-index-3d.ts)
  *     gives a lower bound d on the free distance (distance to the nearest
- *     centre, minus 1); the bound r − R_max − 1 from the walker's radius r is
+ *     centre, minus 1; since engine tendril-engine/3 from its near-distance
+ *     field where that is tighter, worker/index/near-distance-field-3d.ts); the bound r − R_max − 1 from the walker's radius r is
  *     also used. When d >= min_step the walker jumps to a uniform point on the
  *     sphere of radius d around it: the exact exit law of Brownian motion
  *     from a ball it cannot leave without first crossing that sphere
