@@ -24,6 +24,7 @@ import { yieldToRunner } from './support/grow.js';
 const CLUSTERS = 16;
 const PARTICLES = 20000;
 // Measured (engine tendril-engine/2, seed 2495): D = 2.515 [2.482, 2.551], local slopes 2.47–2.56.
+// Measured (engine tendril-engine/3, near-distance field, seed 2495): D = 2.492 [2.458, 2.524], local slopes 2.47–2.54.
 
 describe('fractal dimension of off-lattice 3D DLA', () => {
   it(`D from R_g(N) of ${CLUSTERS} clusters of ${PARTICLES} balls lies in (2.2, 2.8), below 3 and above Kesten's bound, with its local slopes`, async () => {
