@@ -132,28 +132,14 @@ export interface ProbeResult {
 /** A planar set of disks, in original coordinates. */
 export type { DiskSet } from './disk-set.js';
 import type { DiskSet } from './disk-set.js';
+import { setDigest } from './set-digest.js';
 
 /**
  * Digest of a disk set: "n-" + FNV-1a (32 bit) over the float64 words of
- * x, y and r of every disk in order. A probe task carries it, so a job never
- * runs on a set other than the one it was planned for; cheap enough to
- * compute without building the geometry.
+ * x, y and r of every disk in order (worker/probe/set-digest.ts).
  */
 export function diskSetDigest(set: DiskSet): string {
-  let h = 0x811c9dc5;
-  const word = new Float64Array(1);
-  const words = new Uint32Array(word.buffer);
-  const mixIn = (v: number): void => {
-    word[0] = v;
-    h = Math.imul(h ^ words[0], 0x01000193);
-    h = Math.imul(h ^ words[1], 0x01000193);
-  };
-  for (let i = 0; i < set.count; i++) {
-    mixIn(set.x[i]);
-    mixIn(set.y[i]);
-    mixIn(typeof set.r === 'number' ? set.r : set.r[i]);
-  }
-  return `${set.count}-${(h >>> 0).toString(16).padStart(8, '0')}`;
+  return setDigest(set.count, [set.x, set.y, set.r], [], '');
 }
 
 /** The prepared set: scaled coordinates and the occupancy index, reusable by many jobs. */
