@@ -7,8 +7,9 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { runQueue } from '../coordinator/farm/queue.js';
 import { EnsembleStore } from '../coordinator/farm/store.js';
 import { buildApi } from '../coordinator/http/server.js';
-import { SpecError, validateSpec } from '../coordinator/spec/index.js';
+import { validateSpec } from '../coordinator/spec/index.js';
 import { deleteKeys, REDIS_URL, uniquePrefix } from './farm-helpers.js';
+import { problemsOf } from './support/spec-problems.js';
 
 const prefix = uniquePrefix('hardwork');
 const redis = new Redis(REDIS_URL, { maxRetriesPerRequest: null });
@@ -23,17 +24,9 @@ afterAll(async () => {
   redis.disconnect();
 });
 
-function problems(doc: unknown, max = 1e10): string[] {
-  try {
-    validateSpec(doc, { maxTotalParticles: max });
-  } catch (err) {
-    if (err instanceof SpecError) return err.problems;
-    throw err;
-  }
-  return [];
-}
-
 const sizes24 = Array.from({ length: 24 }, (_, i) => 2 + i);
+
+const problems = (doc: unknown, max = 1e10): string[] => problemsOf(doc, (d) => validateSpec(d, { maxTotalParticles: max }));
 
 describe('probe work is inside the total-work ceiling', () => {
   it('the audit spec (10^10 walkers at 25 sizes, 102,400 jobs) is refused with one line per problem', () => {
