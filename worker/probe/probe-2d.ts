@@ -336,6 +336,22 @@ export function runProbeJob(geometry: ProbeGeometry, task: ProbeTask): ProbeResu
   counters.jumps = walk.jumps;
   counters.shortSteps = walk.shortSteps;
   counters.returns = walk.returns;
+  return probeResultOf(task, counts, { x: Array.from(cX), y: Array.from(cY), id: Array.from(cId) }, counters);
+}
+
+/**
+ * The result of a probe job from its dense hit counts (kept sparse: the
+ * points hit, ascending, with their counts), its sampled contacts and
+ * counters; launchRadius for ball sets only. Used by the disk, ball and
+ * lattice jobs alike.
+ */
+export function probeResultOf(
+  task: ProbeTask,
+  counts: Float64Array,
+  contacts: { x: number[]; y: number[]; id: number[] },
+  counters: ProbeResult['counters'],
+  launchRadius?: number,
+): ProbeResult {
   const hitIds: number[] = [];
   const hitCounts: number[] = [];
   for (let i = 0; i < counts.length; i++) if (counts[i] > 0) { hitIds.push(i); hitCounts.push(counts[i]); }
@@ -347,10 +363,11 @@ export function runProbeJob(geometry: ProbeGeometry, task: ProbeTask): ProbeResu
     geometryDigest: task.geometryDigest,
     hitIds,
     hitCounts,
-    contactX: Array.from(cX),
-    contactY: Array.from(cY),
-    contactId: Array.from(cId),
+    contactX: contacts.x,
+    contactY: contacts.y,
+    contactId: contacts.id,
     counters,
+    ...(launchRadius === undefined ? {} : { launchRadius }),
   };
 }
 

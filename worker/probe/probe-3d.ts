@@ -50,8 +50,7 @@ import { returnToSphere, returned3 } from '../walkers/poisson-return-3d.js';
 import { Random, STREAM_PROBE, parseSeed } from '../core/random.js';
 import { direction3, sampleDirection3d } from '../walkers/uniform-direction-3d.js';
 import { firstContact3d } from '../walkers/segment-contact-3d.js';
-import { ENGINE_VERSION } from '../core/engine-version.js';
-import { checkProbeTask, type ProbeResult, type ProbeTask } from './probe-2d.js';
+import { checkProbeTask, probeResultOf, type ProbeResult, type ProbeTask } from './probe-2d.js';
 import { setDigest } from './set-digest.js';
 
 /** Default straight-step length near contact, in units of the ball radius. */
@@ -238,23 +237,7 @@ export function runBallProbeJob(g: ProbeGeometry3d, task: ProbeTask): ProbeResul
   const rng = Random.forRun(task.seed, task.jobIndex, STREAM_PROBE);
   const counts = new Float64Array(g.count);
   const c = walkProbes(g, rng, task.walkers, task.minStep, task.launchMargin, counts);
-  const hitIds: number[] = [];
-  const hitCounts: number[] = [];
-  for (let i = 0; i < counts.length; i++) if (counts[i] > 0) { hitIds.push(i); hitCounts.push(counts[i]); }
-  return {
-    engineVersion: ENGINE_VERSION,
-    seed: task.seed,
-    jobIndex: task.jobIndex,
-    walkers: task.walkers,
-    geometryDigest: task.geometryDigest,
-    hitIds,
-    hitCounts,
-    contactX: [],
-    contactY: [],
-    contactId: [],
-    counters: { jumps: c.jumps, shortSteps: c.shortSteps, returns: c.returns },
-    launchRadius: (g.extent + task.launchMargin) * g.radius,
-  };
+  return probeResultOf(task, counts, { x: [], y: [], id: [] }, { jumps: c.jumps, shortSteps: c.shortSteps, returns: c.returns }, (g.extent + task.launchMargin) * g.radius);
 }
 
 /** Newtonian capacity from probe counts (units: a ball of radius a has capacity a), with its binomial standard error. */
