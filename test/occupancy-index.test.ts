@@ -92,9 +92,10 @@ describe('OccupancyIndex2d', () => {
     expect(aboveMarkBound).toBeGreaterThan(1000);
   });
 
-  it('keeps every centre through bucket growth and rewrites (dense packing, full cells)', () => {
+  it('keeps every centre when its lists and grids outgrow what it was sized for (dense packing, full cells)', () => {
     // a square lattice of spacing 1 fills every side-2 cell with 4 centres,
-    // so buckets chain and are rewritten many times while cells are full
+    // and 22,500 centres in an index sized for 16 make its lists and every
+    // reserved grid grow many times
     const index = new OccupancyIndex2d(16);
     const side = 150;
     for (let i = 0; i < side * side; i++) index.insert((i % side) - 75 + 0.5, Math.floor(i / side) - 75 + 0.5);
@@ -121,6 +122,29 @@ describe('OccupancyIndex2d', () => {
       }
       for (const e of expected) expect(listed.has(e)).toBe(true);
     }
+  });
+
+  it('answers the same whether sized for the whole cluster or grown from a small start', () => {
+    // the size given to the constructor only reserves memory: free radii and
+    // near lists (same centres, same order) must not depend on it
+    const rng = Random.forRun(6, 3);
+    const { x, y } = randomCluster(3000, 70, rng);
+    const small = new OccupancyIndex2d(16);
+    const sized = new OccupancyIndex2d(x.length);
+    for (let i = 0; i < x.length; i++) { small.insert(x[i], y[i]); sized.insert(x[i], y[i]); }
+    let exact = 0;
+    for (let q = 0; q < 3000; q++) {
+      const j = rng.nextBelow(x.length);
+      const wx = q % 2 === 0 ? x[j] + (rng.nextDouble() - 0.5) * 5 : (rng.nextDouble() - 0.5) * 300;
+      const wy = q % 2 === 0 ? y[j] + (rng.nextDouble() - 0.5) * 5 : (rng.nextDouble() - 0.5) * 300;
+      small.query(wx, wy);
+      sized.query(wx, wy);
+      expect(sized.free).toBe(small.free);
+      expect(sized.nearCount).toBe(small.nearCount);
+      for (let i = 0; i < small.nearCount; i++) expect(sized.nearId[i]).toBe(small.nearId[i]);
+      if (small.nearCount > 0) exact++;
+    }
+    expect(exact).toBeGreaterThan(500);
   });
 
   it('gives the same answer whatever the order of queries (no hidden state in results)', () => {

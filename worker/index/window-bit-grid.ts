@@ -27,9 +27,14 @@ export class WindowBitGrid {
   /** Tile t's rows are words[t·TILE_ROWS ..]; row r, bit c is cell (16·tx − WINDOW_RADIUS + c, 16·ty − WINDOW_RADIUS + r). Re-read after a set. */
   words: Int32Array;
 
-  constructor(expectedTiles: number) {
+  /**
+   * The directory is sized for `expectedTiles`; the words are reserved for
+   * `reserveTiles` (default `expectedTiles`) tiles: zero-filled, they become
+   * resident only as tiles are used (worker/index/tiled-grids.ts explains).
+   */
+  constructor(expectedTiles: number, reserveTiles = expectedTiles) {
     this.dir = new TileDirectory(expectedTiles);
-    this.words = new Int32Array(Math.max(4, expectedTiles) * TILE_ROWS);
+    this.words = new Int32Array(Math.max(4, expectedTiles, reserveTiles) * TILE_ROWS);
   }
 
   get bytes(): number {
