@@ -18,9 +18,11 @@
  *    are reserved for the tiles a cluster of that size uses (their pages
  *    become resident only when used), so a growing cluster's index is never
  *    copied: this is what keeps a giant cluster under 48 bytes per particle.
- *    The order in which a scan lists centres does not change any answer:
- *    the free radius is a minimum, and a straight step's first contact
- *    (worker/walkers/segment-contact-2d.ts) the smallest contact distance.
+ *    The order in which a scan lists centres (changed from an earlier
+ *    layout; every pinned state hash stayed the same) changes neither the
+ *    free radius (a minimum) nor a straight step's contact distance
+ *    (worker/walkers/segment-contact-2d.ts: the smallest one); only an exact
+ *    tie between two disks, of probability zero, could name another disk.
  *    When the walker's level-0 cell is marked, the
  *    3 × 3 block of cells around it is scanned exactly, visiting only the
  *    cells that hold centres (a bit grid of them, worker/index/window-bit-grid.ts,
@@ -208,7 +210,7 @@ export class OccupancyIndex2d {
     return this.count;
   }
 
-  /** Bytes held by the index. */
+  /** Bytes the index has allocated, reservations included (pages of a reservation no tile uses never become resident). */
   get bytes(): number {
     let b = this.heads.bytes + this.next.byteLength + (this.ownsXy ? this.xy.byteLength : 0);
     for (const t of this.marks) b += t.bytes;
