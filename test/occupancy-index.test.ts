@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { OccupancyIndex2d } from '../worker/index/occupancy-index-2d.js';
 import { Random } from '../worker/core/random.js';
 import { CORE_MASK, WINDOW_RADIUS, WindowBitGrid } from '../worker/index/window-bit-grid.js';
+import { TiledByteGrid, TiledInt32Grid, reservedArray } from '../worker/index/tiled-grids.js';
 
 // The index must give a lower bound on (nearest-centre distance) − 1
 // everywhere, be exact close to the cluster, and list every centre within 2
@@ -251,5 +252,33 @@ describe('WindowBitGrid', () => {
         expect(grid.get(ix, iy)).toBe(set.has(`${ix},${iy}`));
       }
     expect(ones).toBeGreaterThan(5000);
+  });
+});
+
+describe('reservedArray', () => {
+  it('reserves when it can and falls back to the needed length when the reservation is refused', () => {
+    expect(reservedArray((n) => new Uint8Array(n), 64, 4096).length).toBe(4096);
+    expect(reservedArray((n) => new Uint8Array(n), 64, 16).length).toBe(64);
+    // more than a typed array's 2^32 entries: RangeError, so the needed length
+    expect(reservedArray((n) => new Uint8Array(n), 64, 2 ** 33).length).toBe(64);
+    // other errors are not swallowed
+    expect(() => reservedArray(() => { throw new TypeError('boom'); }, 1, 2)).toThrow(TypeError);
+  });
+
+  it('gives grids whose cells read as never written, reserved or not', () => {
+    const reserved = new TiledInt32Grid(0, 4, 1000);
+    const plain = new TiledInt32Grid(-1, 4);
+    for (let i = 0; i < 300; i++) {
+      reserved.set(i * 9, -i * 7, i + 1);
+      plain.set(i * 9, -i * 7, i + 1);
+    }
+    for (let i = 0; i < 300; i++) {
+      expect(reserved.get(i * 9, -i * 7)).toBe(i + 1);
+      expect(reserved.get(i * 9 + 1, -i * 7)).toBe(0);
+      expect(plain.get(i * 9 + 1, -i * 7)).toBe(-1);
+    }
+    const bytes = new TiledByteGrid(4, 1000);
+    for (let i = 0; i < 300; i++) bytes.orBits(i * 9, i * 5, 3);
+    for (let i = 0; i < 300; i++) expect([bytes.get(i * 9, i * 5), bytes.get(i * 9, i * 5 + 1)]).toEqual([3, 0]);
   });
 });

@@ -27,6 +27,22 @@ export function poolGrowth(length: number, tile: number, unit: number): number {
   return tiles * unit;
 }
 
+/**
+ * A zero-filled typed array of `reserve` entries, or of `need` entries when
+ * the system refuses the reservation (e.g. with strict overcommit, where
+ * address space counts as memory) or it exceeds a typed array's 2^32
+ * entries; a grid then grows as it would without a reservation.
+ */
+export function reservedArray<T>(make: (length: number) => T, need: number, reserve: number): T {
+  if (reserve <= need) return make(need);
+  try {
+    return make(reserve);
+  } catch (e) {
+    if (e instanceof RangeError) return make(need);
+    throw e;
+  }
+}
+
 export class TiledInt32Grid {
   readonly dir: TileDirectory;
   /** Cell values, 64 per tile (re-read after a write: it may be reallocated). */
@@ -44,8 +60,8 @@ export class TiledInt32Grid {
     reserveTiles = expectedTiles,
   ) {
     this.dir = new TileDirectory(expectedTiles);
-    const tiles = Math.max(4, blank === 0 ? Math.max(expectedTiles, reserveTiles) : expectedTiles);
-    this.pool = new Int32Array(tiles * TILE_CELLS);
+    const tiles = Math.max(4, expectedTiles);
+    this.pool = reservedArray((n) => new Int32Array(n), tiles * TILE_CELLS, blank === 0 ? reserveTiles * TILE_CELLS : 0);
     if (blank !== 0) this.pool.fill(blank);
   }
 
@@ -122,7 +138,7 @@ export class TiledByteGrid {
   /** The pool is reserved for `reserveTiles` tiles (default `expectedTiles`; see the file's comment), the directory sized for `expectedTiles`. */
   constructor(expectedTiles: number, reserveTiles = expectedTiles) {
     this.dir = new TileDirectory(expectedTiles);
-    this.pool = new Uint8Array(Math.max(4, expectedTiles, reserveTiles) * TILE_CELLS);
+    this.pool = reservedArray((n) => new Uint8Array(n), Math.max(4, expectedTiles) * TILE_CELLS, reserveTiles * TILE_CELLS);
   }
 
   get bytes(): number {

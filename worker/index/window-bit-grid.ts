@@ -11,7 +11,7 @@
  */
 
 import { TileDirectory } from './tile-directory.js';
-import { poolGrowth } from './tiled-grids.js';
+import { poolGrowth, reservedArray } from './tiled-grids.js';
 
 /** Cells of a window on each side of its centre cell. */
 export const WINDOW_RADIUS = 2;
@@ -34,7 +34,7 @@ export class WindowBitGrid {
    */
   constructor(expectedTiles: number, reserveTiles = expectedTiles) {
     this.dir = new TileDirectory(expectedTiles);
-    this.words = new Int32Array(Math.max(4, expectedTiles, reserveTiles) * TILE_ROWS);
+    this.words = reservedArray((n) => new Int32Array(n), Math.max(4, expectedTiles) * TILE_ROWS, reserveTiles * TILE_ROWS);
   }
 
   get bytes(): number {
