@@ -122,4 +122,37 @@ describe('a giant cluster as one farm job', () => {
     expect(await watchExited).toBe(0);
     expect(watchOut).toMatch(new RegExp(`${id}  done .*${PARTICLES}/${PARTICLES} particles`));
   }, 900_000);
+
+  it('the thread writes every checkpoint (and the one of a stop) into the file itself and hands none over; a run resumed from that file ends in the uninterrupted hash', async () => {
+    const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 40_000, clusters: 1, seed: 3, checkpoint_every_particles: 10_000 });
+    const task = runTaskFor('thread-file', spec, 0);
+    const path = join(artifacts, 'thread-file.checkpoint');
+    const handed: Array<{ bytes: Uint8Array | null; count: number }> = [];
+    let second: () => void = () => undefined;
+    const twoCheckpoints = new Promise<void>((r) => (second = r));
+    const h = pool.run(task, {
+      checkpointFile: { path, resume: false },
+      onCheckpoint: (bytes, count) => {
+        handed.push({ bytes, count });
+        if (handed.length === 2) second();
+      },
+    });
+    await twoCheckpoints;
+    h.stop();
+    const stopped = await h.outcome;
+    expect(handed.slice(0, 2)).toEqual([{ bytes: null, count: 10_000 }, { bytes: null, count: 20_000 }]);
+    expect(handed.every((c) => c.bytes === null)).toBe(true);
+    if (stopped.status === 'done') return; // finished before the stop landed (a very fast machine): nothing left to resume
+    expect(stopped).toEqual({ status: 'stopped' });
+    const onDisk = readCheckpointFile(path).state.count;
+    expect(onDisk).toBeGreaterThanOrEqual(20_000);
+    expect(onDisk).toBeLessThan(40_000);
+    const resumed = await pool.run(task, { checkpointFile: { path, resume: true } }).outcome;
+    const reference = await pool.run(task).outcome;
+    expect(resumed.status).toBe('done');
+    expect(reference.status).toBe('done');
+    if (resumed.status !== 'done' || reference.status !== 'done') return;
+    expect(resumed.result.timings.resumes).toBe(1);
+    expect(resumed.result.stateHash).toBe(reference.result.stateHash);
+  }, 300_000);
 });

@@ -55,7 +55,7 @@ export interface CheckpointStore {
 
 /** One event in the life of a run on this worker (for structured logs: one line each). */
 export interface RunEvent {
-  event: 'run started' | 'run checkpointed' | 'run finished' | 'run handed back' | 'run cancelled' | 'run failed';
+  event: 'run started' | 'run resumed' | 'run checkpointed' | 'run finished' | 'run handed back' | 'run cancelled' | 'run failed';
   ensembleId: string;
   runIndex: number;
   /** Particles of the run at the event (for 'run started': 0, or null when it resumes from a checkpoint). */
@@ -65,6 +65,7 @@ export interface RunEvent {
   /** 'run finished': state hash, whether it was counted (false: stored before by another worker), wall seconds. */
   stateHash?: string;
   counted?: boolean;
+  /** 'run finished': wall seconds of the run here; 'run checkpointed' and 'run resumed' of a checkpoint file: seconds its write or read took. */
   seconds?: number;
   /** 'run failed': why. */
   reason?: string;
@@ -132,10 +133,11 @@ export async function runOne(run: RunTaskData, o: RunLifecycleOptions): Promise<
       lastCount = p.count;
       lastCounters = p.counters;
     },
-    onCheckpoint: (bytes, count) => {
+    onResumed: (count, seconds) => event({ event: 'run resumed', particles: count, seconds }),
+    onCheckpoint: (bytes, count, seconds) => {
       if (bytes === null) {
         // written and renamed into place by the thread already
-        event({ event: 'run checkpointed', particles: count });
+        event({ event: 'run checkpointed', particles: count, ...(seconds !== undefined ? { seconds } : {}) });
         return;
       }
       writes = writes

@@ -10,8 +10,10 @@
  *                                                             flag of worker/core/stop-signal.ts)
  *                   { type: 'stop', id }                      checkpoint and stop
  *   thread -> main  { type: 'progress', id, count, particles, counters }
- *                   { type: 'checkpoint', id, bytes?, count }  store it (no reply needed); without
- *                                                             bytes: written to checkpointFile already
+ *                   { type: 'resumed', id, count, seconds }   read checkpointFile (seconds: the read)
+ *                   { type: 'checkpoint', id, bytes?, count, seconds? }  store it (no reply needed); without
+ *                                                             bytes: written to checkpointFile already,
+ *                                                             in `seconds`
  *                   { type: 'checkpoint-failed', id, message } the file could not be written (growth goes on)
  *                   { type: 'done', id, result, final? }      final: the end state when the task keeps positions
  *                   { type: 'stopped', id, checkpoint? }      without checkpoint: written to checkpointFile
@@ -54,7 +56,8 @@ export interface CheckpointFile {
 type ToThread = { type: 'run'; id: number; task: Uint8Array; checkpoint?: Uint8Array; checkpointFile?: CheckpointFile; workerId: string; stop: StopSignal } | { type: 'stop'; id: number };
 type FromThread =
   | { type: 'progress'; id: number; count: number; particles: number; counters: Record<string, number> }
-  | { type: 'checkpoint'; id: number; bytes?: Uint8Array; count: number }
+  | { type: 'resumed'; id: number; count: number; seconds: number }
+  | { type: 'checkpoint'; id: number; bytes?: Uint8Array; count: number; seconds?: number }
   | { type: 'checkpoint-failed'; id: number; message: string }
   | { type: 'done'; id: number; result: Uint8Array; final?: Uint8Array }
   | { type: 'stopped'; id: number; checkpoint?: Uint8Array }
@@ -75,7 +78,12 @@ function threadMain(): void {
         const run = decodeRunTask(m.task);
         const file = m.checkpointFile;
         // room for the whole run: the kernel keeps the decoded positions as its own (no second copy)
-        const checkpoint = file?.resume ? readCheckpointFile(file.path, run.particles) : m.checkpoint ? decodeCheckpoint(m.checkpoint, run.particles) : undefined;
+        let checkpoint: CheckpointData | undefined;
+        if (file?.resume) {
+          const r0 = performance.now();
+          checkpoint = readCheckpointFile(file.path, run.particles);
+          port.postMessage({ type: 'resumed', id: m.id, count: checkpoint.state.count, seconds: (performance.now() - r0) / 1000 } satisfies FromThread);
+        } else if (m.checkpoint) checkpoint = decodeCheckpoint(m.checkpoint, run.particles);
         let lastProgress = 0;
         const outcome = await runTask(run, {
           checkpoint,
@@ -93,8 +101,9 @@ function threadMain(): void {
             if (file) {
               // streamed from the kernel's own positions into a temporary file, renamed into place
               try {
+                const w0 = performance.now();
                 writeCheckpointFile(file.path, c);
-                port.postMessage({ type: 'checkpoint', id: m.id, count: c.state.count } satisfies FromThread);
+                port.postMessage({ type: 'checkpoint', id: m.id, count: c.state.count, seconds: (performance.now() - w0) / 1000 } satisfies FromThread);
               } catch (err) {
                 // the newest stored checkpoint stays the one before; growth goes on
                 port.postMessage({ type: 'checkpoint-failed', id: m.id, message: messageOf(err) } satisfies FromThread);
@@ -140,8 +149,10 @@ export interface ThreadRunHandlers {
   onProgress?: (p: RunProgress) => void;
   /** The run's checkpoint file: the thread resumes from it (when `resume`) and writes every checkpoint into it, streamed. */
   checkpointFile?: CheckpointFile;
-  /** Each checkpoint taken (count: its particles): framed bytes to store, or null when written to checkpointFile already. */
-  onCheckpoint?: (bytes: Uint8Array | null, count: number) => void;
+  /** Each checkpoint taken (count: its particles): framed bytes to store, or null when written to checkpointFile already (in `seconds`). */
+  onCheckpoint?: (bytes: Uint8Array | null, count: number, seconds?: number) => void;
+  /** The run resumed from checkpointFile at `count` particles; `seconds`: the read. */
+  onResumed?: (count: number, seconds: number) => void;
   /** A checkpoint could not be written to checkpointFile (one line); the run goes on. */
   onCheckpointFailed?: (message: string) => void;
   workerId?: string;
@@ -213,7 +224,10 @@ export class TaskThreadPool {
               h.onProgress?.({ runIndex: task.runIndex, count: m.count, particles: m.particles, counters: m.counters });
               break;
             case 'checkpoint':
-              h.onCheckpoint?.(m.bytes ?? null, m.count);
+              h.onCheckpoint?.(m.bytes ?? null, m.count, m.seconds);
+              break;
+            case 'resumed':
+              h.onResumed?.(m.count, m.seconds);
               break;
             case 'checkpoint-failed':
               h.onCheckpointFailed?.(m.message);
