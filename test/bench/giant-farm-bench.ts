@@ -13,8 +13,10 @@
  * in the growth thread), the checkpoint's size, each worker's peak resident
  * memory (VmHWM of /proc/PID/status just before it ends; Linux only) and
  * CPU seconds (utime + stime of /proc/PID/stat), the work lost to the kill
- * (particles last reported before the kill minus the count resumed from;
- * rule: at most one checkpoint interval), and the final state hash.
+ * (the kill comes half-way between the second and third checkpoints; lost =
+ * the particles last reported before the kill, or the newest checkpoint's if
+ * more, minus the count resumed from; rule: at most one checkpoint
+ * interval), and the final state hash.
  *
  *   node dist/test/bench/run-benchmarks.js --only giant-farm [--farm-size 10000000]
  *
@@ -125,12 +127,15 @@ export async function runGiantFarmBenchmark(particles = DEFAULT_GIANT_FARM_SIZE,
     const id = await launchEnsemble(store, queue, spec);
     const written = (p: Proc) => p.log().filter((l) => l.ensembleId === id && l.msg === 'run checkpointed').map((l) => ({ particles: l.particles as number, writeSeconds: l.seconds ?? NaN }));
     process.stderr.write(`giant-farm: growing ${particles} particles as one farm job, checkpoint every ${every}\n`);
-    await until(() => written(first).length >= 2, 1000);
+    // killed half-way between two checkpoints, after the second
+    const progress = async () => Number((await redis.hget(`${prefix}:ensemble:${id}:progress`, '0')) ?? 0);
+    await until(async () => written(first).length >= 2 && (await progress()) >= written(first)[1].particles + every / 2, 1000);
     const firstUsage = usageOf(first.child.pid!);
     first.child.kill('SIGKILL');
     await first.exited;
     const checkpoints = written(first);
-    const killedAtParticles = Number(await redis.hget(`${prefix}:ensemble:${id}:progress`, '0'));
+    // the count last reported (a lower bound of the count at the kill: reports come every second), or the newest checkpoint if larger
+    const killedAtParticles = Math.max(await progress(), checkpoints[checkpoints.length - 1].particles);
     const checkpointBytes = statSync(join(artifacts, checkpointKey(id, 0))).size;
     process.stderr.write(`giant-farm: first worker killed at ${killedAtParticles} particles after ${checkpoints.length} checkpoints; a fresh worker resumes\n`);
 
