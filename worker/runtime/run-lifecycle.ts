@@ -115,7 +115,8 @@ export async function runOne(run: RunTaskData, o: RunLifecycleOptions): Promise<
   event({ event: 'run started', particles: resumed ? null : 0, resumed });
   ev.onRunStarted?.();
   let lastCount = -1;
-  let lastCounters: Record<string, number> = {};
+  /** Counters at the last progress report; null before the first (growth is counted from there). */
+  let lastCounters: Record<string, number> | null = null;
   let reported = -1;
   let writes: Promise<void> = Promise.resolve();
   let cancelled = false;
@@ -124,7 +125,7 @@ export async function runOne(run: RunTaskData, o: RunLifecycleOptions): Promise<
     ...(file ? { checkpointFile: { path: file.path, resume: file.exists } } : {}),
     workerId: o.workerId,
     onProgress: (p) => {
-      if (lastCount >= 0) {
+      if (lastCounters !== null) {
         const deltas: Record<string, number> = {};
         for (const [k, v] of Object.entries(p.counters)) deltas[k] = Math.max(0, v - (lastCounters[k] ?? 0));
         ev.onGrowth?.(run.model.kind, Math.max(0, p.count - lastCount), deltas);
@@ -133,7 +134,15 @@ export async function runOne(run: RunTaskData, o: RunLifecycleOptions): Promise<
       lastCount = p.count;
       lastCounters = p.counters;
     },
-    onResumed: (count, seconds) => event({ event: 'run resumed', particles: count, seconds }),
+    onResumed: (count, seconds) => {
+      // the kernel rebuilds its index next (minutes for a giant cluster, before its first progress report):
+      // meanwhile the ticks report the resumed count, which is also the run's sign of life (store.ts, STALE_RUN_MS)
+      if (lastCount < 0) {
+        lastCount = count;
+        reported = count;
+      }
+      event({ event: 'run resumed', particles: count, seconds });
+    },
     onCheckpoint: (bytes, count, seconds) => {
       if (bytes === null) {
         // written and renamed into place by the thread already
