@@ -55,7 +55,7 @@ afterAll(async () => {
   rmSync(artifacts, { recursive: true, force: true });
 });
 
-interface LogLine { msg: string; ensembleId?: string; particles?: number | null; resumed?: boolean; stateHash?: string }
+interface LogLine { msg: string; ensembleId?: string; particles?: number | null; resumed?: boolean; stateHash?: string; seconds?: number }
 
 const logLines = (text: string): LogLine[] => text.split('\n').filter((l) => l.startsWith('{')).map((l) => JSON.parse(l) as LogLine);
 
@@ -111,6 +111,10 @@ describe('a giant cluster as one farm job', () => {
     expect(result.particles).toBe(PARTICLES);
     const started = logLines(second.output()).find((l) => l.ensembleId === id && l.msg === 'run started');
     expect(started).toMatchObject({ resumed: true, particles: null });
+    // it read the very checkpoint left by the kill (the read timed in its thread)
+    const resumedAt = logLines(second.output()).find((l) => l.ensembleId === id && l.msg === 'run resumed');
+    expect(resumedAt).toMatchObject({ particles: resumeFrom });
+    expect(resumedAt!.seconds).toBeGreaterThanOrEqual(0);
     const ref = await reference;
     expect(ref.status).toBe('done');
     if (ref.status !== 'done') return;
