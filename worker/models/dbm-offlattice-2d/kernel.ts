@@ -111,15 +111,13 @@
 import type { Counters, ClusterPositions, GrowthCheckpoint, GrowthKernel, GrowthResult, GrowthSeries, GrowthTask } from '../../core/growth-kernel.js';
 import { ENGINE_VERSION } from '../../core/engine-version.js';
 import { OccupancyIndex2d } from '../../index/occupancy-index-2d.js';
-import { returnToCircle, returned } from '../../walkers/poisson-return-2d.js';
 import { Random, STREAM_GROWTH } from '../../core/random.js';
 import { countWithin, massRadiusRadii, recordSizes } from '../../core/record-sizes.js';
 import { StateHasher } from '../../core/state-hash.js';
-import { direction, sampleDirection } from '../../walkers/uniform-direction.js';
-import { contact, firstContact } from '../../walkers/segment-contact-2d.js';
+import { PlanarGrowthWalk, WALK_STOPPED } from '../../walkers/planar-growth-walk.js';
 import { checkCheckpointOf } from '../../core/checkpoint-check.js';
 import { recordPlanarAnisotropy } from '../../core/anisotropy.js';
-import { MAX_STEPS_PER_PARTICLE, STOP_CHECK_EVERY, stopRaised, WalkerStuck, type StopSignal } from '../../core/stop-signal.js';
+import { MAX_STEPS_PER_PARTICLE, WalkerStuck, type StopSignal } from '../../core/stop-signal.js';
 
 /** The counters of this model (names as declared by its descriptor). */
 export interface OffLatticeDbm2dCounters extends Counters {
@@ -152,8 +150,6 @@ export class OffLatticeDbm2d implements GrowthKernel {
   private readonly deficit: number;
   private readonly cap: number;
   private readonly capWeight: number;
-  private readonly minStep: number;
-  private readonly launchMargin: number;
   private readonly xy: Float64Array;
   private readonly index: OccupancyIndex2d;
   private readonly rng: Random;
@@ -166,10 +162,8 @@ export class OffLatticeDbm2d implements GrowthKernel {
   private sumR2 = 0;
   private nextRecord = 0;
   private readonly particleStart = new Uint32Array(4);
-  private untilCheck = STOP_CHECK_EVERY;
-  private readonly maxSteps: number;
-  /** Steps of the particle being built (all its walkers), for the stuck check. */
-  private checked = 0;
+  /** The growth walk of every walker (worker/walkers/planar-growth-walk.ts). */
+  private readonly walker: PlanarGrowthWalk;
   /** Work of the particle being built, committed to the counters when it is placed. */
   private pendingJumps = 0;
   private pendingShort = 0;
@@ -183,7 +177,6 @@ export class OffLatticeDbm2d implements GrowthKernel {
   /** The task must have passed the registry's checks (worker/models/registry.ts checkTask). */
   constructor(task: GrowthTask, checkpoint?: GrowthCheckpoint, limits: { maxStepsPerParticle?: number } = {}) {
     this.task = structuredClone(task);
-    this.maxSteps = limits.maxStepsPerParticle ?? MAX_STEPS_PER_PARTICLE;
     const p = task.model.params;
     this.eta = p.eta;
     const extra = this.eta - 1;
@@ -192,8 +185,6 @@ export class OffLatticeDbm2d implements GrowthKernel {
     this.deficit = this.eta < 1 ? 1 - this.eta : 0;
     this.cap = p.recurrence_cap;
     this.capWeight = recurrenceWeight(this.cap, this.deficit);
-    this.minStep = p.min_step;
-    this.launchMargin = p.launch_margin;
     this.xy = new Float64Array(2 * task.particles);
     this.index = new OccupancyIndex2d(task.particles, this.xy);
     this.sizes = recordSizes(task.particles, task.recordsPerDecade);
@@ -213,6 +204,7 @@ export class OffLatticeDbm2d implements GrowthKernel {
       for (let i = 0; i < checkpoint.count; i++) this.append(pos[2 * i], pos[2 * i + 1]);
       while (this.nextRecord < this.sizes.length && this.sizes[this.nextRecord] <= this.n) this.nextRecord++;
     }
+    this.walker = new PlanarGrowthWalk(this.index, this.rng, p.min_step, p.launch_margin, task.runIndex, limits.maxStepsPerParticle ?? MAX_STEPS_PER_PARTICLE);
   }
 
   get count(): number {
@@ -295,7 +287,6 @@ export class OffLatticeDbm2d implements GrowthKernel {
       const i = this.attempt(stop);
       if (i === STOPPED - 1) {
         this.rng.loadState(this.particleStart);
-        this.untilCheck = STOP_CHECK_EVERY;
         return false;
       }
       if (i >= 0) break;
@@ -312,7 +303,7 @@ export class OffLatticeDbm2d implements GrowthKernel {
 
   private beginParticle(): void {
     this.rng.saveState(this.particleStart);
-    this.checked = 0;
+    this.walker.steps = 0;
     this.pendingJumps = 0;
     this.pendingShort = 0;
     this.pendingReturns = 0;
@@ -369,84 +360,27 @@ export class OffLatticeDbm2d implements GrowthKernel {
   }
 
   /**
-   * One walker from the launch circle to its first contact: the arrival
-   * index of the particle it touched (contact point in hitX/hitY), or STOPPED.
-   * The same walk, in the same order of draws, as dla-offlattice-2d.
+   * One walker from the launch circle to its first contact
+   * (worker/walkers/planar-growth-walk.ts, the walk of dla-offlattice-2d):
+   * the arrival index of the particle it touched (contact point in
+   * hitX/hitY), or STOPPED.
    */
   private walk(stop: StopSignal | undefined): number {
-    const rng = this.rng;
-    let untilCheck = this.untilCheck;
-    const index = this.index;
-    const minStep = this.minStep;
-    const rMax = this.rMax;
-    const launch = rMax + 1 + this.launchMargin;
-    const launch2 = launch * launch;
-    let jumps = 0;
-    let shortSteps = 0;
-    let returns = 0;
-    let hit = -1;
-
-    sampleDirection(rng);
-    let wx = launch * direction.x;
-    let wy = launch * direction.y;
-
-    for (;;) {
-      if (--untilCheck === 0) {
-        untilCheck = STOP_CHECK_EVERY;
-        this.checked += STOP_CHECK_EVERY;
-        if (stopRaised(stop)) {
-          this.untilCheck = STOP_CHECK_EVERY;
-          return STOPPED;
-        }
-        if (this.checked >= this.maxSteps) {
-          throw new WalkerStuck(
-            `run ${this.task.runIndex}: the walkers of particle ${this.n + 1} made no progress in ${this.checked} steps at radius ${Math.sqrt(wx * wx + wy * wy).toPrecision(6)} (params.min_step = ${minStep} is too small for the float spacing there, or params.eta = ${this.eta} makes acceptance too rare)`,
-          );
-        }
-      }
-      let r2 = wx * wx + wy * wy;
-      if (r2 > launch2) {
-        returnToCircle(wx, wy, launch, rng);
-        wx = returned.x;
-        wy = returned.y;
-        r2 = launch2;
-        returns++;
-      }
-      index.query(wx, wy);
-      let d = index.free;
-      const reach = rMax + 1 + d;
-      if (r2 > reach * reach) d = Math.sqrt(r2) - rMax - 1;
-
-      sampleDirection(rng);
-      const cx = direction.x;
-      const cy = direction.y;
-
-      if (d >= minStep) {
-        wx += d * cx;
-        wy += d * cy;
-        jumps++;
-        continue;
-      }
-
-      const j = firstContact(index.nearX, index.nearY, index.nearCount, wx, wy, cx, cy, minStep, null, null);
-      shortSteps++;
-      if (j >= 0) {
-        wx += contact.t * cx;
-        wy += contact.t * cy;
-        hit = index.nearId[j];
-        break;
-      }
-      wx += minStep * cx;
-      wy += minStep * cy;
+    const walker = this.walker;
+    let hit: number;
+    try {
+      hit = walker.walk(this.rMax, stop, this.n + 1);
+    } catch (e) {
+      if (e instanceof WalkerStuck) throw new WalkerStuck(`${e.message.slice(0, -1)}, or params.eta = ${this.eta} makes acceptance too rare)`);
+      throw e;
     }
-
-    this.pendingJumps += jumps;
-    this.pendingShort += shortSteps;
-    this.pendingReturns += returns;
+    if (hit === WALK_STOPPED) return STOPPED;
+    this.pendingJumps += walker.jumps;
+    this.pendingShort += walker.shortSteps;
+    this.pendingReturns += walker.returns;
     this.pendingWalkers++;
-    this.untilCheck = untilCheck;
-    this.hitX = wx;
-    this.hitY = wy;
+    this.hitX = walker.hitX;
+    this.hitY = walker.hitY;
     return hit;
   }
 
