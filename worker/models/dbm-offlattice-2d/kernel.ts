@@ -26,8 +26,8 @@
  *    not the Eden model of worker/models/eden-offlattice-2d (whose growth
  *    sites and contact law differ).
  *
- * How it is simulated. One walker is the growth walk of off-lattice DLA
- * (launch circle, exact Poisson return, walk-on-spheres on the occupancy
+ * How it is simulated. One walker is the growth walk of off-lattice DLA,
+ * worker/walkers/planar-growth-walk.ts, shared with that model (launch circle, exact Poisson return, walk-on-spheres on the occupancy
  * index, straight final steps of min_step with the exact contact: see the
  * header of worker/models/dla-offlattice-2d/kernel.ts); it returns the
  * particle i it touched first (an exact sample of ω) and its contact point
