@@ -63,9 +63,13 @@
  *     on i). With g(1) = 1, g(k + 1) = g(k)(k + a)/k, i.e.
  *     g(k) = Γ(k + a)/(Γ(k) Γ(1 + a)), g(G) is an unbiased estimate of ω_i^(−a)
  *     (Σ_k g(k) ω (1 − ω)^(k−1) = ω^(−a), from the binomial series of
- *     (1 − x)^(−1−a)). Accept i with probability g(X)/g(T) <= 1 (one uniform
- *     draw after the walkers); the particle goes at the proposal walker's
- *     contact point.
+ *     (1 − x)^(−1−a)). Accept i with probability g(X)/g(T) <= 1: draw u
+ *     uniform in [0, 1) before the walkers and accept iff u g(T) < g(X).
+ *     g(k) increases with k, and after k misses X >= k + 1, so once
+ *     g(k + 1) > u g(T) the attempt is accepted whatever the later walkers
+ *     do, and they are not released (the same law as releasing them: exact,
+ *     derived here; about 1.6 times fewer walkers per particle at η = 0.5).
+ *     The particle goes at the proposal walker's contact point.
  *     THE APPROXIMATION: capping G at T. An attempt accepts i with probability
  *     ω_i · E[g(min(G, T))]/g(T) = ω_i^η (1 − ε_i)/g(T), where
  *     ε_i = ω_i^a Σ_(k>=T) (g(k) − g(T)) ω_i (1 − ω_i)^(k−1) lies in [0, 1),
@@ -347,8 +351,11 @@ export class OffLatticeDbm2d implements GrowthKernel {
     const py = this.hitY;
     const a = this.deficit;
     const cap = this.cap;
+    // accept iff u·g(T) < g(X); g only grows while walkers miss i, so the
+    // attempt is accepted as soon as g > u·g(T), without the walkers after
+    const threshold = this.rng.nextDouble() * this.capWeight;
     let g = 1;
-    for (let k = 1; k < cap; k++) {
+    for (let k = 1; k < cap && !(threshold < g); k++) {
       const j = this.walk(stop);
       if (j === STOPPED) return STOPPED - 1;
       if (j === i) break;
@@ -356,7 +363,7 @@ export class OffLatticeDbm2d implements GrowthKernel {
     }
     this.hitX = px;
     this.hitY = py;
-    return this.rng.nextDouble() * this.capWeight < g ? i : -1;
+    return threshold < g ? i : -1;
   }
 
   /**
