@@ -35,8 +35,9 @@
  *              by a fresh worker: checkpoint write/read times, worker peak RSS and
  *              CPU seconds, work lost, final state hash
  *   dbm        test/bench/dbm-bench.ts: off-lattice DBM at η = 0.5, 2 (to 10^5)
- *              and 4 (to 10^4): particles/s and walkers per particle against N,
- *              within --dbm-seconds per η (default 600)
+ *              and 4 (to 10^4): particles per CPU second and walkers per particle
+ *              against N, within --dbm-seconds CPU seconds per η (default 600);
+ *              --dbm-etas 0.5,2 runs only those η
  *   dbm-cap    test/bench/dbm-cap-bench.ts: total variation between the capped
  *              η < 1 growth law and the exact one on a 2000-disk cluster, per cap
  */
@@ -47,7 +48,7 @@ import { runProbeBenchmark } from './probe-bench.js';
 import { runProbeScalingBenchmark } from './probe-scaling-bench.js';
 import { runLatticeBenchmark } from './lattice-bench.js';
 import { giantOptionsFromArgs, runGiantBenchmark } from './giant-bench.js';
-import { runDbmBenchmark } from './dbm-bench.js';
+import { DBM_BENCH_PLAN, runDbmBenchmark } from './dbm-bench.js';
 import { runDbmCapBenchmark } from './dbm-cap-bench.js';
 import { giantFarmSizeFromArgs, runGiantFarmBenchmark } from './giant-farm-bench.js';
 
@@ -103,7 +104,14 @@ async function main(argv: string[]): Promise<number> {
         const k = argv.findIndex((a) => a === '--dbm-seconds');
         const budget = k >= 0 ? Number(argv[k + 1]) : 600;
         if (!(budget > 0)) throw new RangeError(`--dbm-seconds must be a positive number of seconds, got "${argv[k + 1]}"`);
-        runDbmBenchmark(budget);
+        const e = argv.findIndex((a) => a === '--dbm-etas');
+        let plan = DBM_BENCH_PLAN;
+        if (e >= 0) {
+          const etas = (argv[e + 1] ?? '').split(',').map(Number);
+          plan = DBM_BENCH_PLAN.filter((p) => etas.includes(p.eta));
+          if (plan.length !== etas.length) throw new RangeError(`--dbm-etas: "${argv[e + 1]}" is not a comma-separated list of η from ${DBM_BENCH_PLAN.map((p) => p.eta).join(', ')}`);
+        }
+        runDbmBenchmark(budget, plan);
       }
       else if (part === 'probe') {
         const r = runProbeBenchmark(1_000_000, 1_000_000);
