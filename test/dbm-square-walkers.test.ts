@@ -69,7 +69,7 @@ async function frequenciesAgainstExact(cluster: [number, number][], eta: number,
   const counts = new Array(perimeter.length).fill(0);
   let walkers = 0;
   for (let t = 0; t < trials; t++) {
-    if (t % 1000 === 0) await yieldToRunner();
+    if (t % 500 === 0) await yieldToRunner();
     const cp = fixedCluster(cluster, { eta }, Random.forRun(seed, t + 1).state());
     const k = createKernel(cp.task, cp);
     k.growTo(cluster.length + 1);
@@ -118,7 +118,7 @@ describe('dbm-square-walkers: selection frequencies against the exact law u^η/�
     const counts = new Array(perimeter.length).fill(0);
     const trials = 5000;
     for (let t = 0; t < trials; t++) {
-      if (t % 1000 === 0) await yieldToRunner();
+      if (t % 500 === 0) await yieldToRunner();
       const k = createKernel(cp.task, { ...cp, rngState: Random.forRun('6', t).state() });
       k.growTo(5);
       const c = k.positions().coords;
@@ -131,28 +131,32 @@ describe('dbm-square-walkers: selection frequencies against the exact law u^η/�
 });
 
 describe('dbm-square-walkers: η = 0, determinism, resume, stop, refusals', () => {
-  it('η = 0 draws the same sites as dbm-square at η = 0 (uniform on the perimeter list; no walkers)', () => {
+  it('η = 0 draws the same sites as dbm-square at η = 0 (uniform on the perimeter list; no walkers)', async () => {
     const a = createKernel(walkTask(3000, { eta: 0 }, 2));
     a.growTo(3000);
+    await yieldToRunner();
     const b = createKernel({ ...walkTask(3000, { eta: 0 }, 2), model: modelParams('dbm-square', { eta: 0 }) });
     b.growTo(3000);
     expect(Array.from(a.positions().coords)).toEqual(Array.from(b.positions().coords));
     expect(a.counters.walkers).toBe(0);
   }, 300_000);
 
-  it('same task, same bits; checkpoints at η = 1.5 resume to the same state hash and counters', () => {
+  it('same task, same bits; checkpoints at η = 1.5 resume to the same state hash and counters', async () => {
     const params = { eta: 1.5 };
     const N = 300;
     const whole = createKernel(walkTask(N, params, 3));
     whole.growTo(N);
     const want = whole.result();
+    await yieldToRunner();
     const again = createKernel(walkTask(N, params, 3));
     again.growTo(N);
     expect(again.result()).toEqual(want);
+    await yieldToRunner();
     const other = createKernel(walkTask(N, params, 4));
     other.growTo(N);
     expect(other.result().stateHash).not.toBe(want.stateHash);
     for (const at of [1, 2, 150, 299]) {
+      await yieldToRunner();
       const first = createKernel(walkTask(N, params, 3));
       first.growTo(at);
       const cp = structuredClone(first.checkpoint());
@@ -163,12 +167,14 @@ describe('dbm-square-walkers: η = 0, determinism, resume, stop, refusals', () =
     }
   }, 300_000);
 
-  it('a stop raised inside a particle (η = 2: about 10^4 walker moves per particle at N = 200) leaves the state after the last whole particle; continuing gives the same bits', () => {
+  it('a stop raised inside a particle (η = 2: about 10^4 walker moves per particle at N = 200) leaves the state after the last whole particle; continuing gives the same bits', async () => {
     const params = { eta: 2 };
     const whole = createKernel(walkTask(300, params, 5));
     whole.growTo(300);
+    await yieldToRunner();
     const k = createKernel(walkTask(300, params, 5));
     k.growTo(200);
+    await yieldToRunner();
     const before = k.checkpoint();
     const stop = createStopSignal();
     raiseStop(stop);
@@ -177,9 +183,11 @@ describe('dbm-square-walkers: η = 0, determinism, resume, stop, refusals', () =
     // a particle here needs more walker moves than one stop check allows (on average): the one being built is abandoned
     expect(after.count).toBeLessThan(300);
     if (after.count === before.count) expect(after).toEqual(before);
+    await yieldToRunner();
     const resumed = createKernel(walkTask(300, params, 5), after);
     resumed.growTo(300);
     expect(resumed.result()).toEqual(whole.result());
+    await yieldToRunner();
     k.growTo(300);
     expect(k.result()).toEqual(whole.result());
   }, 300_000);

@@ -50,7 +50,7 @@ function moves(k: GrowthKernel, names: string[]): number {
 function resumeSize(kind: string): number {
   if (kind === 'dbm-square') return 150;
   if (kind === 'dbm-offlattice-2d') return 300;
-  if (kind === 'dbm-square-walkers') return 400;
+  if (kind === 'dbm-square-walkers') return 200;
   return P;
 }
 const cases: Array<[string, Record<string, number>]> = [
