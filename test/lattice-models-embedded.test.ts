@@ -17,7 +17,7 @@ const SPECS = [
   // the checkpoints carry the potential (modelState of a few hundred kB)
   { model: 'dbm-square', particles: 200, params: { eta: 2 } },
   // the walker sampler: many walkers per particle, empty modelState
-  { model: 'dbm-square-walkers', particles: 600, params: { eta: 2 } },
+  { model: 'dbm-square-walkers', particles: 250, params: { eta: 2 } },
 ];
 
 describe('lattice and Eden models: task runner and embedded mode', () => {
