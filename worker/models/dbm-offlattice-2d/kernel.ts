@@ -113,7 +113,7 @@ import { ENGINE_VERSION } from '../../core/engine-version.js';
 import { OccupancyIndex2d } from '../../index/occupancy-index-2d.js';
 import { returnToCircle, returned } from '../../walkers/poisson-return-2d.js';
 import { Random, STREAM_GROWTH } from '../../core/random.js';
-import { countWithin, massRadiusRadii, recordSizes } from '../../core/record-sizes.js';
+import { countCentresWithin, massRadiusRadii, recordSizes } from '../../core/record-sizes.js';
 import { StateHasher } from '../../core/state-hash.js';
 import { direction, sampleDirection } from '../../walkers/uniform-direction.js';
 import { contact, firstContact } from '../../walkers/segment-contact-2d.js';
@@ -248,9 +248,6 @@ export class OffLatticeDbm2d implements GrowthKernel {
 
   result(): GrowthResult {
     if (!this.done) throw new Error(`run ${this.task.runIndex} is not finished (${this.n} of ${this.task.particles} particles)`);
-    const dist = new Float64Array(this.n);
-    const xy = this.xy;
-    for (let i = 0; i < this.n; i++) dist[i] = Math.sqrt(xy[2 * i] * xy[2 * i] + xy[2 * i + 1] * xy[2 * i + 1]);
     const radii = massRadiusRadii(this.rMax, this.task.recordsPerDecade);
     return {
       engineVersion: ENGINE_VERSION,
@@ -260,7 +257,7 @@ export class OffLatticeDbm2d implements GrowthKernel {
       ensembleSeed: this.task.ensembleSeed,
       runIndex: this.task.runIndex,
       series: structuredClone(this.series),
-      massRadius: { radii, counts: countWithin(dist, radii) },
+      massRadius: { radii, counts: countCentresWithin(this.xy, 2, this.n, radii) },
       counters: { ...this.counters },
       stateHash: this.stateHash(),
     };
