@@ -23,7 +23,7 @@ export const dbmSquareWalkers: ModelDescriptor = {
     'sites of the square lattice; a perimeter site s joins with probability proportional to u(s)^eta, u the Green\'s function of the lattice walk with pole at infinity (dbm-square with its far boundary at infinity), sampled exactly by walkers that enter the cluster; eta = 0 or 1 <= eta <= 6',
   definitionFile: 'worker/models/dbm-square-walkers/kernel.ts',
   params: [
-    { name: 'eta', unit: '', default: 2, min: 0, max: 6, meaning: 'exponent η: growth probability ∝ u^η (0: Eden on perimeter sites; 1: harmonic measure; 0 < η < 1 is refused)' },
+    { name: 'eta', unit: '', default: 1, min: 0, max: 6, meaning: 'exponent η: growth probability ∝ u^η (0: Eden on perimeter sites; 1: harmonic measure; 0 < η < 1 is refused)' },
     dlaParam('launch_margin'),
   ],
   counters: [
