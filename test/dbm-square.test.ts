@@ -12,7 +12,7 @@ import { ENGINE_VERSION } from '../worker/core/engine-version.js';
 import { Random } from '../worker/core/random.js';
 import { createStopSignal, raiseStop } from '../worker/core/stop-signal.js';
 import { DbmSquare } from '../worker/models/dbm-square/kernel.js';
-import { harmonicMeasureFromInfinity, potentialKernel } from './support/lattice-potential.js';
+import { greenWithPoleAtInfinity, potentialKernel } from './support/lattice-potential.js';
 import { ksTwoSample } from './support/ks.js';
 import { finalRg, yieldToRunner } from './support/grow.js';
 
@@ -117,10 +117,7 @@ function fixedCluster(sites: [number, number][], params: Record<string, number>,
  * from memory); so the probabilities are u(s) / Σ_perimeter u.
  */
 function exactLaw(cluster: [number, number][], perimeter: [number, number][]): number[] {
-  const h = harmonicMeasureFromInfinity(cluster);
-  const field = ([x, y]: [number, number]): number => cluster.reduce((s, [zx, zy], k) => s + potentialKernel(x - zx, y - zy) * h[k], 0);
-  const kappa = field(cluster[0]);
-  const u = perimeter.map((s) => field(s) - kappa);
+  const u = greenWithPoleAtInfinity(cluster, perimeter);
   const total = u.reduce((a, b) => a + b, 0);
   return u.map((v) => v / total);
 }

@@ -33,6 +33,7 @@ const MOVES: Record<string, string[]> = {
   'dla-offlattice-3d': ['jumps', 'short_steps'],
   'dla-square': ['jumps', 'steps', 'returns', 'walkers'],
   'dla-triangular': ['jumps', 'steps', 'returns', 'walkers'],
+  'dbm-square-walkers': ['jumps', 'steps', 'returns'],
 };
 
 function moves(k: GrowthKernel, names: string[]): number {
@@ -43,11 +44,13 @@ function moves(k: GrowthKernel, names: string[]): number {
  * Particles per run in the resume check. The breakdown models are checked
  * on smaller clusters: the lattice one solves the potential over a disk that
  * grows with the cluster at every particle, the off-lattice one needs many
- * walkers per particle (about 1/Σω^η).
+ * walkers per particle (about 1/Σω^η), and so does the walker sampler of
+ * the lattice one (dbm-square-walkers, about 1/Σ(u/Z)^η).
  */
 function resumeSize(kind: string): number {
   if (kind === 'dbm-square') return 150;
   if (kind === 'dbm-offlattice-2d') return 300;
+  if (kind === 'dbm-square-walkers') return 200;
   return P;
 }
 const cases: Array<[string, Record<string, number>]> = [

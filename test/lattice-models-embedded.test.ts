@@ -16,6 +16,8 @@ const SPECS = [
   { model: 'dla-triangular', particles: 1500, params: { noise_reduction: 2 } },
   // the checkpoints carry the potential (modelState of a few hundred kB)
   { model: 'dbm-square', particles: 200, params: { eta: 2 } },
+  // the walker sampler: many walkers per particle, empty modelState
+  { model: 'dbm-square-walkers', particles: 250, params: { eta: 2 } },
 ];
 
 describe('lattice and Eden models: task runner and embedded mode', () => {

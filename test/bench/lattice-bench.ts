@@ -9,12 +9,16 @@
  *   lattice  dla-square (m = 1) at 10^5 and 10^6, dla-triangular at 10^5:
  *            particles/s, moves (exact jumps + single steps) per particle,
  *            peak RSS
- *   dbm-lattice  dbm-square at η = 2 at 10^3, 3·10^3 and 10^4 (target: 10^4
- *            in under 5 minutes on one core): particles/s, solver
- *            (conjugate-gradient) iterations per particle, peak RSS
+ *   dbm-lattice  the lattice breakdown model at η = 2 at 10^3, 3·10^3 and
+ *            10^4 (target: 10^4 in under 5 minutes on one core), first with
+ *            the walker sampler (dbm-square-walkers: particles/s, walkers
+ *            per particle, CPU seconds), then with the potential solve
+ *            (dbm-square: solver (conjugate-gradient) iterations per
+ *            particle; hours at 10^4); peak RSS for both
  *
- * `--sizes a,b` replaces the sizes of every model of the part. Prints one
- * line for people and one JSON line per cluster.
+ * `--sizes a,b` replaces the sizes of every model of the part; `--models a,b`
+ * keeps only those models of the part. Prints one line for people and one
+ * JSON line per cluster.
  */
 import { spawn } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
@@ -31,8 +35,10 @@ export interface LatticeBenchRow {
   particlesPerSecond: number;
   /** Counters divided by the particle count. */
   perParticle: Record<string, number>;
-  /** Walker moves (jumps + steps) per particle, for lattice DLA; null for Eden. */
+  /** Walker moves (jumps + steps) per particle, for lattice DLA and the DBM walker sampler; null for Eden. */
   movesPerParticle: number | null;
+  /** Walkers released per particle (lattice DLA, the DBM walker sampler); null for models without walkers. */
+  walkersPerParticle: number | null;
   wallSeconds: number;
   /** CPU time of the growth (user + system), and particles per CPU second: on a shared, loaded machine the wall time also counts time spent waiting for a core. */
   cpuSeconds: number;
@@ -57,7 +63,10 @@ export const LATTICE_BENCH_PLAN: Record<LatticeBenchPart, { model: string; param
     { model: 'dla-square', params: {}, sizes: [100_000, 1_000_000] },
     { model: 'dla-triangular', params: {}, sizes: [100_000] },
   ],
-  'dbm-lattice': [{ model: 'dbm-square', params: { eta: 2 }, sizes: [1_000, 3_000, 10_000] }],
+  'dbm-lattice': [
+    { model: 'dbm-square-walkers', params: { eta: 2 }, sizes: [1_000, 3_000, 10_000] },
+    { model: 'dbm-square', params: { eta: 2 }, sizes: [1_000, 3_000, 10_000] },
+  ],
 };
 
 function childMain(model: string, particles: number, paramsJson: string): void {
@@ -83,6 +92,7 @@ function childMain(model: string, particles: number, paramsJson: string): void {
     particlesPerSecond: particles / seconds,
     perParticle,
     movesPerParticle: c.jumps !== undefined && c.steps !== undefined ? (c.jumps + c.steps) / particles : null,
+    walkersPerParticle: c.walkers !== undefined ? c.walkers / particles : null,
     wallSeconds: seconds,
     cpuSeconds,
     particlesPerCpuSecond: particles / cpuSeconds,
@@ -111,14 +121,17 @@ function runChild(model: string, particles: number, params: Record<string, numbe
   });
 }
 
-/** Run one part ('eden', 'lattice' or 'dbm-lattice'); `sizes` replaces the planned sizes when given. */
-export async function runLatticeBenchmark(part: LatticeBenchPart, sizes?: number[]): Promise<LatticeBenchRow[]> {
+/** Run one part ('eden', 'lattice' or 'dbm-lattice'); `sizes` replaces the planned sizes when given, `models` keeps only those models. */
+export async function runLatticeBenchmark(part: LatticeBenchPart, sizes?: number[], models?: string[]): Promise<LatticeBenchRow[]> {
   const rows: LatticeBenchRow[] = [];
-  for (const p of LATTICE_BENCH_PLAN[part]) {
+  const plan = LATTICE_BENCH_PLAN[part].filter((p) => models === undefined || models.includes(p.model));
+  if (plan.length === 0) throw new RangeError(`--models: none of ${models?.join(', ')} is in the ${part} part; allowed: ${LATTICE_BENCH_PLAN[part].map((p) => p.model).join(', ')}`);
+  for (const p of plan) {
     for (const n of sizes ?? p.sizes) {
       const r = await runChild(p.model, n, p.params);
       const iterations = r.perParticle.solver_iterations;
-      const moves = r.movesPerParticle !== null ? `, ${r.movesPerParticle.toFixed(1)} moves/particle` : iterations !== undefined ? `, ${iterations.toFixed(1)} solver iterations/particle` : '';
+      const walkers = r.walkersPerParticle !== null && r.walkersPerParticle > 1.5 ? `, ${r.walkersPerParticle.toFixed(1)} walkers/particle` : '';
+      const moves = r.movesPerParticle !== null ? `, ${r.movesPerParticle.toFixed(1)} moves/particle${walkers}` : iterations !== undefined ? `, ${iterations.toFixed(1)} solver iterations/particle` : '';
       process.stdout.write(`${part}: ${r.model} ${r.particles}: ${Math.round(r.particlesPerSecond)} particles/s over ${r.wallSeconds.toFixed(1)} s (CPU ${r.cpuSeconds.toFixed(1)} s, ${Math.round(r.particlesPerCpuSecond)} per CPU second)${moves}, peak RSS ${r.peakRssMB.toFixed(0)} MB\n`);
       process.stdout.write(JSON.stringify(r) + '\n');
       rows.push(r);

@@ -22,8 +22,11 @@
  *   lattice    test/bench/lattice-bench.ts: square-lattice DLA at 10^5 and 10^6,
  *              triangular at 10^5: particles/s, moves per particle, peak RSS
  *   dbm-lattice  test/bench/lattice-bench.ts (opt-in: hours at 10^4): the lattice dielectric breakdown
- *              model (dbm-square) at η = 2, 10^3 to 10^4: particles/s, solver
- *              iterations per particle, peak RSS
+ *              model at η = 2, 10^3 to 10^4, with the walker sampler
+ *              (dbm-square-walkers: particles/s, walkers per particle, CPU s)
+ *              and with the potential solve (dbm-square: solver iterations
+ *              per particle); peak RSS. `--models dbm-square-walkers` runs
+ *              only the walker sampler
  *   giant      test/bench/giant-bench.ts (opt-in: only with --only giant): 2D
  *              off-lattice DLA at 10^5, 10^6, 10^7 (--sizes; --giant-1e8 adds
  *              10^8): particles/s, jumps, peak RSS, bytes per particle,
@@ -70,6 +73,17 @@ export function partsFromArgs(argv: string[]): Part[] {
   return parts as Part[];
 }
 
+/** `--models a,b` (or `--models=a,b`): the models kept in a lattice part, or undefined for all. */
+function modelsFromArgs(argv: string[]): string[] | undefined {
+  const i = argv.indexOf('--models');
+  const eq = argv.find((a) => a.startsWith('--models='));
+  const text = i >= 0 ? argv[i + 1] ?? '' : eq !== undefined ? eq.slice('--models='.length) : undefined;
+  if (text === undefined) return undefined;
+  const models = text.split(',').map((s) => s.trim()).filter((s) => s !== '');
+  if (models.length === 0) throw new RangeError(`--models must be a comma-separated list of model kinds, got "${text}"`);
+  return models;
+}
+
 function runAggregate(): void {
   const r = runAggregateBenchmark();
   process.stdout.write(`aggregate: ${r.runs} runs x ${r.sizes} sizes, ${r.resamples} resamples: ${r.seconds.toFixed(2)} s\n`);
@@ -97,7 +111,7 @@ async function main(argv: string[]): Promise<number> {
         const given = argv.some((a) => a === '--sizes' || a.startsWith('--sizes='));
         await runGrowthBenchmark({ sizes: given ? sizesFromArgs(argv) : DLA3D_SIZES, model: 'dla-offlattice-3d' });
       }
-      else if (part === 'eden' || part === 'lattice' || part === 'dbm-lattice') await runLatticeBenchmark(part, argv.some((a) => a === '--sizes' || a.startsWith('--sizes=')) ? sizesFromArgs(argv) : undefined);
+      else if (part === 'eden' || part === 'lattice' || part === 'dbm-lattice') await runLatticeBenchmark(part, argv.some((a) => a === '--sizes' || a.startsWith('--sizes=')) ? sizesFromArgs(argv) : undefined, modelsFromArgs(argv));
       else if (part === 'aggregate') runAggregate();
       else if (part === 'dbm-cap') runDbmCapBenchmark();
       else if (part === 'dbm') {

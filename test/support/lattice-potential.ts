@@ -48,3 +48,18 @@ export function harmonicMeasureFromInfinity(a: [number, number][], kernel: (x1: 
   }
   return Array.from({ length: n }, (_, i) => m[i][k] / m[i][i]);
 }
+
+/**
+ * The Green's function of the square-lattice walk with pole at infinity for the
+ * finite set A, at the sites `at`: u(s) = Σ_z a(s − z) H(z) − κ, H the harmonic
+ * measure from infinity of A and κ the (constant) value of the sum on A
+ * (Lawler & Limic 2010, ch. 6; from memory). u = 0 on A, u is harmonic off A
+ * and grows like (2/π) ln|s|; it is the R_far → ∞ limit of the lattice DBM
+ * potential up to a factor.
+ */
+export function greenWithPoleAtInfinity(a: [number, number][], at: [number, number][]): number[] {
+  const h = harmonicMeasureFromInfinity(a);
+  const field = ([x, y]: [number, number]): number => a.reduce((s, [zx, zy], k) => s + potentialKernel(x - zx, y - zy) * h[k], 0);
+  const kappa = field(a[0]);
+  return at.map((s) => field(s) - kappa);
+}

@@ -175,6 +175,97 @@ export class LatticeWalk {
     return this.triangular ? (near | s.get(x + 1, y - 1) | s.get(x - 1, y + 1)) !== 0 : near !== 0;
   }
 
+  /**
+   * Run one walker from the launch circle, as walk() does (same launch,
+   * return and exact jumps), but through the perimeter until it steps onto
+   * a cluster site: the walk killed on entering the cluster (used by the
+   * walker sampler of the lattice breakdown model,
+   * worker/models/dbm-square-walkers/kernel.ts). The site it stood on just
+   * before that step (an empty site with a cluster neighbour) is left in
+   * (atI, atJ). The jumps stay exact: a jump's square (hexagon) of
+   * half-width L holds no cluster site within distance L of its centre, so
+   * the walk inside it cannot step onto the cluster before its boundary.
+   * Stop signal and return value as in walk().
+   */
+  walkToCluster(rng: Random, rMax: number, launchMargin: number, stop?: StopSignal): boolean {
+    let untilCheck = this.untilCheck;
+    const lattice = this.lattice;
+    const tri = this.triangular;
+    const maxLevel = this.maxLevel;
+    const sites = this.sites;
+    const launch = rMax + launchMargin;
+    const far = 2 * launch + 64;
+    const far2 = far * far;
+    const perUnit = tri ? 1 : SQRT1_2;
+    let jumps = 0;
+    let steps = 0;
+    let returns = 0;
+    sampleDirection(rng);
+    toSite(lattice, launch * direction.x, launch * direction.y);
+    let x = siteOf.i;
+    let y = siteOf.j;
+    for (;;) {
+      if (--untilCheck === 0) {
+        untilCheck = STOP_CHECK_EVERY;
+        if (stopRaised(stop)) {
+          this.untilCheck = STOP_CHECK_EVERY;
+          return false;
+        }
+      }
+      const px = tri ? x + 0.5 * y : x;
+      const py = tri ? y * HALF_SQRT3 : y;
+      const r2 = px * px + py * py;
+      if (r2 > far2) {
+        returnToCircle(px, py, launch, rng);
+        toSite(lattice, returned.x, returned.y);
+        x = siteOf.i;
+        y = siteOf.j;
+        returns++;
+        continue;
+      }
+      let e = this.freeLevel(x, y);
+      const byRadius = Math.floor((Math.sqrt(r2) - rMax) * perUnit) - 1;
+      while (e < maxLevel && 2 << e <= byRadius) e++;
+      if (e >= 1) {
+        if (tri) {
+          sampleHexExit(e, rng);
+          x += hexExit.di;
+          y += hexExit.dj;
+        } else {
+          sampleExit(e, rng);
+          x += exit.dx;
+          y += exit.dy;
+        }
+        jumps++;
+        continue;
+      }
+      let nx = x;
+      let ny = y;
+      if (tri) {
+        const t = rng.nextBelow(6);
+        nx += lattice.di[t];
+        ny += lattice.dj[t];
+      } else {
+        const s = rng.nextInt32() & 3;
+        if (s === 0) nx++;
+        else if (s === 1) nx--;
+        else if (s === 2) ny++;
+        else ny--;
+      }
+      steps++;
+      if (sites.get(nx, ny) !== 0) break;
+      x = nx;
+      y = ny;
+    }
+    this.atI = x;
+    this.atJ = y;
+    this.jumps = jumps;
+    this.steps = steps;
+    this.returns = returns;
+    this.untilCheck = untilCheck;
+    return true;
+  }
+
   /** Add site (x, y) to the cluster storage and marks. */
   occupy(x: number, y: number): void {
     this.sites.orBits(x, y, 1);

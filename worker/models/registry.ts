@@ -18,6 +18,7 @@ import { dlaTriangular } from './dla-triangular/descriptor.js';
 import { dlaOffLattice3d } from './dla-offlattice-3d/descriptor.js';
 import { dbmOffLattice2d } from './dbm-offlattice-2d/descriptor.js';
 import { dbmSquare } from './dbm-square/descriptor.js';
+import { dbmSquareWalkers } from './dbm-square-walkers/descriptor.js';
 
 export const MODELS: readonly ModelDescriptor[] = [
   dlaOffLattice2d,
@@ -29,6 +30,7 @@ export const MODELS: readonly ModelDescriptor[] = [
   dlaOffLattice3d,
   dbmOffLattice2d,
   dbmSquare,
+  dbmSquareWalkers,
 ];
 
 export const MODEL_KINDS: readonly string[] = MODELS.map((m) => m.kind);

@@ -40,8 +40,9 @@
  *
  * How it is simulated (approximations, each with its parameter and test)
  *  A. Far boundary at R_far (params far_factor c, far_margin k): the model
- *     with R_far → ∞ is the limit of interest; at finite R_far the growth
- *     probabilities differ from it. Measured effect: test/dbm-square.test.ts
+ *     with R_far → ∞ is the limit of interest (sampled exactly, with no
+ *     grid, by walkers in worker/models/dbm-square-walkers); at finite R_far
+ *     the growth probabilities differ from it. Measured effect: test/dbm-square.test.ts
  *     compares them on small fixed clusters with the exact limit above
  *     (numbers in the README, "The lattice dielectric breakdown model").
  *  B. Solver tolerance (param tolerance): the potential is solved by
