@@ -19,18 +19,20 @@ import { STOP_CHECK_EVERY, stopRaised, type StopSignal } from '../core/stop-sign
 import { TiledByteGrid } from '../index/tiled-grids.js';
 import { returnToCircle, returned } from '../walkers/poisson-return-2d.js';
 import { direction, sampleDirection } from '../walkers/uniform-direction.js';
-import { MAX_EXIT_LEVEL, exit, sampleExit } from './square-exit-tables.js';
+import { exit, halfWidthAtMost, sampleExitOf } from './square-exit-tables.js';
 import { MAX_HEX_LEVEL, hexExit, sampleHexExit } from './hexagon-exit-tables.js';
 import { HALF_SQRT3, type PlanarLattice, siteOf, toSite } from './planar-lattice.js';
 
 const MARKED = 1;
 const HOLDS = 2;
 const SQRT1_2 = Math.SQRT1_2;
+/** Mark levels on the square lattice: cells of side 2 … 4096. */
+const SQUARE_MARK_LEVELS = 12;
 
 export class LatticeWalk {
   readonly lattice: PlanarLattice;
   private readonly triangular: boolean;
-  /** Largest jump level (tables for L = 2^e up to it) and number of mark levels. */
+  /** Number of mark levels (triangular: also the largest hexagon jump level, radius 2^e). */
   private readonly maxLevel: number;
   /** 1 for cluster sites. */
   private readonly sites: TiledByteGrid;
@@ -51,7 +53,7 @@ export class LatticeWalk {
   constructor(lattice: PlanarLattice, expectedSites: number) {
     this.lattice = lattice;
     this.triangular = lattice.name === 'triangular';
-    this.maxLevel = this.triangular ? MAX_HEX_LEVEL : MAX_EXIT_LEVEL;
+    this.maxLevel = this.triangular ? MAX_HEX_LEVEL : SQUARE_MARK_LEVELS;
     const expect = Math.max(16, expectedSites >> 4);
     this.sites = new TiledByteGrid(expect);
     for (let e = 1; e <= this.maxLevel; e++) this.marks.push(new TiledByteGrid(Math.max(4, expect >> (e + 1))));
@@ -108,22 +110,40 @@ export class LatticeWalk {
         returns++;
         continue;
       }
-      let e = this.freeLevel(x, y);
-      // radial bound: lattice distance >= (|w| − R_max) · perUnit, so a square (hexagon) of half-width floor(that) − 1 is free
-      const byRadius = Math.floor((Math.sqrt(r2) - rMax) * perUnit) - 1;
-      while (e < maxLevel && 2 << e <= byRadius) e++; // 2 << e = 2^(e + 1), e <= maxLevel <= 10
-      if (e >= 1) {
-        if (tri) {
+      if (!tri) {
+        // square lattice: d, a lower bound on the L∞ distance from the walker to the cluster (see the header)
+        const e = this.freeLevel(x, y);
+        let d = 1;
+        if (e >= 1) {
+          const s = 1 << e;
+          const ox = x & (s - 1);
+          const oy = y & (s - 1);
+          d = ox + s + 1;
+          if (2 * s - ox < d) d = 2 * s - ox;
+          if (oy + s + 1 < d) d = oy + s + 1;
+          if (2 * s - oy < d) d = 2 * s - oy;
+        }
+        const byRadius = Math.floor((Math.sqrt(r2) - rMax) * SQRT1_2);
+        if (byRadius > d) d = byRadius;
+        if (d >= 3) {
+          sampleExitOf(halfWidthAtMost(d - 1), rng);
+          x += exit.dx;
+          y += exit.dy;
+          jumps++;
+          continue;
+        }
+      } else {
+        let e = this.freeLevel(x, y);
+        // radial bound: hex distance >= |w| − R_max, so a hexagon of radius floor(that) − 1 is free
+        const byRadius = Math.floor((Math.sqrt(r2) - rMax) * perUnit) - 1;
+        while (e < maxLevel && 2 << e <= byRadius) e++; // 2 << e = 2^(e + 1), e <= maxLevel <= 10
+        if (e >= 1) {
           sampleHexExit(e, rng);
           x += hexExit.di;
           y += hexExit.dj;
-        } else {
-          sampleExit(e, rng);
-          x += exit.dx;
-          y += exit.dy;
+          jumps++;
+          continue;
         }
-        jumps++;
-        continue;
       }
       if (this.isPerimeter(x, y)) break;
       if (tri) {
