@@ -26,21 +26,24 @@
  * L <= 32768) and below the 2^-53 resolution of the sampler. About 30 terms
  * remain whatever L, so a table costs O(L) to build instead of O(L²).
  * Computed in double precision: exact up to rounding (the four sides sum to
- * 1 within 1e-12 for L <= 64 and 1e-10 up to L = 32768; checked, with
+ * 1 within 1e-12 for L <= 64, 1e-10 up to L = 1024 and 1e-9 up to
+ * L = 32768; checked, with
  * chi-square tests against plain step-by-step walks, in
  * test/dla-square.test.ts).
  *
  * Half-widths. Jumps use any half-width of the ladder HALF_WIDTHS: every L
  * from 1 to 32, then L_{i+1} = ceil(L_i · 17/16) up to MAX_HALF_WIDTH =
- * 32768 (141 tables; a walker whose free distance allows L takes the largest
- * ladder entry <= L, at most 6% below it). Tables are built on first use and
- * cached (the largest, L = 32768, holds 65535 doubles and a guide of as many
- * int32: 0.8 MB; all of them together about 7 MB). Sampling picks a side
- * from 2 random bits and k as the first entry of the cumulative table above
- * one 53-bit uniform (found from a guide table: the same index a binary
- * search gives; L = 1 is the plain step). A cumulative entry rounds the
- * law to the 53-bit grid of the uniform: the total variation distance from
- * the exact law is at most (2L − 1)·2^-53 < 10^-11 per jump.
+ * 32768 (a walker whose free distance allows L takes the largest ladder
+ * entry <= L, at most 6% below it). Tables are built on first use and
+ * cached, folded (p_L is even: |k| from a table of L entries, its sign from
+ * one bit) with a guide of one int32 per 4 entries: 9 bytes per unit of L,
+ * 0.3 MB for L = 32768, about 5 MB for the whole ladder. Sampling picks the
+ * side and the sign from 3 bits of one 32-bit word and |k| as the first
+ * entry of the folded cumulative table above one 53-bit uniform (found from
+ * the guide: the same index a binary search gives; L = 1 is the plain
+ * step). A cumulative entry rounds the law to the 53-bit grid of the
+ * uniform: the total variation distance from the exact law is at most
+ * L·2^-53 < 10^-11 per jump.
  */
 import type { Random } from '../core/random.js';
 
@@ -106,26 +109,41 @@ export function halfWidthAtMost(d: number): number {
   return ladderBelow[d < MAX_HALF_WIDTH ? d : MAX_HALF_WIDTH];
 }
 
-/** Cumulative exit tables (normalised to 1 along a side) and their guide tables, by half-width L. */
+/**
+ * Folded cumulative exit tables by half-width L: entry m (0 … L − 1) is the
+ * probability, given the side, that |k| <= m (p_L(0) + 2 Σ_{0<k<=m} p_L(k),
+ * normalised to end at exactly 1); the sign of k is drawn from one bit.
+ * p_L is even in k, so this samples the same law as the unfolded table with
+ * half the memory (which matters: a jump reads a table at random, and the
+ * tables of the whole ladder must stay in cache).
+ */
 const cumulative: (Float64Array | undefined)[] = [];
+/** guides[L][b]: the smallest m with c[m] > b·GUIDE_SPAN / L, a starting point for the search. */
 const guides: (Int32Array | undefined)[] = [];
+/** One guide entry per GUIDE_SPAN table entries. */
+const GUIDE_SPAN = 4;
+
+/** The folded cumulative table of half-width L (built on first use). */
+export function foldedTable(L: number): Float64Array {
+  return cumulative[L] ?? buildTable(L);
+}
 
 function buildTable(L: number): Float64Array {
   const p = sideExitLaw(L);
-  const c = new Float64Array(p.length);
+  const c = new Float64Array(L);
   let s = 0;
-  for (let i = 0; i < p.length; i++) {
-    s += Math.max(0, p[i]);
-    c[i] = s;
+  for (let m = 0; m < L; m++) {
+    const v = Math.max(0, p[L - 1 + m]);
+    s += m === 0 ? v : 2 * v;
+    c[m] = s;
   }
-  for (let i = 0; i < c.length; i++) c[i] /= s;
-  c[c.length - 1] = 1;
+  for (let m = 0; m < L; m++) c[m] /= s;
+  c[L - 1] = 1;
   cumulative[L] = c;
-  // guide[b]: the smallest index with c > b / G (G = c.length), a starting point for the search
-  const G = c.length;
+  const G = Math.ceil(L / GUIDE_SPAN);
   const g = new Int32Array(G);
   for (let b = 0, i = 0; b < G; b++) {
-    while (i < G - 1 && c[i] <= b / G) i++;
+    while (i < L - 1 && c[i] <= b / G) i++;
     g[b] = i;
   }
   guides[L] = g;
@@ -137,7 +155,7 @@ function buildTable(L: number): Float64Array {
  * start at the guide entry of u and walk up while c[i] <= u, then down while
  * c[i − 1] > u. The two walks make the result exactly that of a binary
  * search whatever the starting point (rounding in u·G cannot change it);
- * the guide makes them short (about one step).
+ * the guide makes them short (a few entries of one or two cache lines).
  */
 function firstAbove(c: Float64Array, g: Int32Array, u: number): number {
   let i = g[Math.min(g.length - 1, Math.floor(u * g.length))];
@@ -152,15 +170,18 @@ export const exit = { dx: 0, dy: 0 };
 /**
  * Sample the exit site of the square of half-width L (any L from 1 to
  * MAX_HALF_WIDTH; jumps use ladder entries) from its centre into `exit`.
- * Draws: one 32-bit word for the side, then (L > 1) one 53-bit uniform.
+ * Draws: one 32-bit word w (side: w & 3; sign of k: bit 2 of w), then, when
+ * L > 1, one 53-bit uniform u for |k| (the first folded entry above u).
  */
 export function sampleExitOf(L: number, rng: Random): void {
-  const side = rng.nextInt32() & 3;
+  const w = rng.nextInt32();
+  const side = w & 3;
   let k = 0;
   if (L > 1) {
     const c = cumulative[L] ?? buildTable(L);
     const u = rng.nextDouble();
-    k = firstAbove(c, guides[L]!, u) - (L - 1);
+    k = firstAbove(c, guides[L]!, u);
+    if ((w & 4) !== 0) k = -k;
   }
   switch (side) {
     case 0:
