@@ -96,7 +96,7 @@ describe('square-lattice exit tables (exact first passage from the centre of a s
     for (let e = 0; e <= 15; e++) {
       const p = sideExitLaw(2 ** e);
       const s = p.reduce((a, b) => a + b, 0);
-      expect(Math.abs(4 * s - 1)).toBeLessThan(e <= 6 ? 1e-12 : e <= 10 ? 1e-10 : 1e-9);
+      expect(Math.abs(4 * s - 1)).toBeLessThan(1e-13);
       for (const v of p) expect(v).toBeGreaterThan(0);
     }
     expect(sideExitLaw(1)[0]).toBeCloseTo(0.25, 15);

@@ -1,7 +1,7 @@
 /**
  * The lattice walker of lattice DLA (worker/models/dla-lattice/dla-lattice-kernel.ts),
  * with the sparse storage it walks on: the cluster sites and the multi-level
- * occupancy marks. Shared by the growth kernel and by the lattice probe
+ * cell distances (square lattice) or occupancy marks (triangular lattice). Shared by the growth kernel and by the lattice probe
  * (worker/probe/probe-lattice.ts), so growth and probing sample the same
  * law with the same exact jumps, launch and return.
  *
