@@ -37,8 +37,9 @@ function exitSites(L: number): { key: string[]; p: number[] } {
 }
 
 describe('square-lattice exit tables (exact first passage from the centre of a square)', () => {
-  it('sampleExitOf picks the same site as a binary search of the folded cumulative law for the same draws (guide-table search)', () => {
+  it('sampleExitOf picks the same site as a binary search of the folded cumulative law for the same draws (guide-table search)', async () => {
     for (const L of [2, 16, 37, 1024, 5000]) {
+      await yieldToRunner();
       const p = sideExitLaw(L);
       // folded law of |k|: p(0), then 2 p(m)
       const c = new Float64Array(L);
@@ -138,7 +139,7 @@ describe('square-lattice exit tables (exact first passage from the centre of a s
 describe('dla-square: the distance bound that sizes the jumps', () => {
   // A jump of half-width L is exact only when no perimeter site lies strictly inside the square,
   // i.e. when the L∞ distance to the cluster is at least L + 1 (worker/lattice/lattice-walk.ts).
-  it('never exceeds the true L∞ distance to the cluster (brute force, 3000-site cluster, 30000 points)', () => {
+  it('never exceeds the true L∞ distance to the cluster (brute force, 3000-site cluster, 30000 points)', async () => {
     const k = grown(squareTask(3000, 5));
     const c = k.positions().coords;
     const walk = new LatticeWalk(SQUARE, 3000);
@@ -147,6 +148,7 @@ describe('dla-square: the distance bound that sizes the jumps', () => {
     const rng = Random.forRun('31', 0);
     let tight = 0;
     for (let t = 0; t < 30_000; t++) {
+      if (t % 1000 === 0) await yieldToRunner();
       const span = t < 15_000 ? 80 : 600;
       const x = Math.floor((rng.nextDouble() - 0.5) * 2 * span);
       const y = Math.floor((rng.nextDouble() - 0.5) * 2 * span);
@@ -158,7 +160,7 @@ describe('dla-square: the distance bound that sizes the jumps', () => {
     }
     // and it is useful: at distance 8 or more it is mostly at least half the distance
     expect(tight).toBeGreaterThan(10_000);
-  });
+  }, 600_000);
 });
 
 describe('dla-square: growth probabilities on a small fixed cluster equal the discrete harmonic measure', () => {
