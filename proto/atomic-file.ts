@@ -6,11 +6,14 @@
  * temporary file is removed and the error rethrown. Used by the streamed
  * checkpoint and snapshot writers.
  */
+import { randomBytes } from 'node:crypto';
 import { closeSync, fsyncSync, openSync, renameSync, rmSync, writeSync } from 'node:fs';
+import { threadId } from 'node:worker_threads';
 
 /** Call `write` with a `put` that appends all of its bytes; returns the number of bytes written. */
 export function writeFileAtomically(path: string, write: (put: (bytes: Uint8Array) => void) => void): number {
-  const tmp = `${path}.${process.pid}.tmp`;
+  // unique per writer: two threads, or two hosts on a shared folder (a stalled run taken up while its first worker still lives), never share one
+  const tmp = `${path}.${process.pid}-${threadId}-${randomBytes(4).toString('hex')}.tmp`;
   const fd = openSync(tmp, 'w');
   let written = 0;
   let open = true;

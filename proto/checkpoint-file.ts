@@ -111,3 +111,32 @@ function readFully(fd: number, into: Uint8Array, position: number): void {
     o += r;
   }
 }
+
+/**
+ * The particle count of a checkpoint file, read from its header alone (a
+ * framed file: the first bytes, never the positions); a file written before
+ * frames is decoded whole. Throws ContractError for a file that is neither.
+ */
+export function checkpointFileCount(path: string): number {
+  const fd = openSync(path, 'r');
+  try {
+    const prefix = new Uint8Array(FRAME_PREFIX_BYTES);
+    const got = readSync(fd, prefix, 0, FRAME_PREFIX_BYTES, 0);
+    if (got < FRAME_PREFIX_BYTES || !isCheckpointFrame(prefix)) return decodeCheckpoint(readFileSync(path)).state.count;
+    let p;
+    try {
+      p = framePrefix(prefix);
+    } catch (err) {
+      throw new ContractError((err as Error).message);
+    }
+    const message = new Uint8Array(p.messageLength);
+    readFully(fd, message, FRAME_PREFIX_BYTES);
+    try {
+      return Number(tendril.Checkpoint.decode(message).count ?? 0);
+    } catch (err) {
+      throw new ContractError(`Checkpoint header in "${path}" cannot be decoded: ${messageOf(err)}`);
+    }
+  } finally {
+    closeSync(fd);
+  }
+}

@@ -9,7 +9,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import type { GrowthTask } from '../worker/core/growth-kernel.js';
-import { createStopSignal, raiseStop } from '../worker/core/stop-signal.js';
+import { createStopSignal, raiseStop, WalkerStuck } from '../worker/core/stop-signal.js';
+import { OffLatticeDbm2d } from '../worker/models/dbm-offlattice-2d/kernel.js';
 import { checkModelParams, createKernel, modelParams } from '../worker/models/registry.js';
 import { runEmbedded } from '../coordinator/embedded/index.js';
 import { validateSpec } from '../coordinator/spec/index.js';
@@ -30,6 +31,22 @@ describe('dbm-offlattice-2d at η = 1 is off-lattice DLA', () => {
       expect(dbm.result().counters.walkers).toBe(499);
     }
   });
+});
+
+describe('a breakdown-model particle that makes no progress fails its run', () => {
+  it('min_step 1e-300 (below the float spacing) throws WalkerStuck naming min_step and η (the stuck check of the shared walk, counted over all walkers of the particle)', () => {
+    // built directly, past the registry's floor on min_step, as a task from an older coordinator could be
+    const k = new OffLatticeDbm2d(task({ eta: 2, min_step: 1e-300 }, 200, 1), undefined, { maxStepsPerParticle: 2_000_000 });
+    let err: unknown;
+    try {
+      k.growTo(200);
+    } catch (e) {
+      err = e;
+    }
+    expect(err).toBeInstanceOf(WalkerStuck);
+    expect((err as Error).message).toMatch(/^run 1: the walker of particle \d+ made no progress in \d+ steps at radius [\d.e+-]+ \(params\.min_step = 1e-300 is too small for the float spacing there, or params\.eta = 2 makes acceptance too rare\)$/);
+    expect(k.count).toBeLessThan(200);
+  }, 120_000);
 });
 
 describe('geometry, determinism, resume, refusals', () => {

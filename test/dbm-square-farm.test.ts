@@ -1,13 +1,10 @@
-import { rmSync } from 'node:fs';
-import { Redis } from 'ioredis';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchEnsemble, runQueue } from '../coordinator/farm/queue.js';
-import { EnsembleStore } from '../coordinator/farm/store.js';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { launchEnsemble } from '../coordinator/farm/queue.js';
 import { runTaskFor } from '../coordinator/plan.js';
 import { validateSpec } from '../coordinator/spec/index.js';
 import { growthTaskOf } from '../proto/convert.js';
 import { createKernel } from '../worker/models/registry.js';
-import { deleteKeys, REDIS_URL, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
+import { farmFixture } from './support/farm-fixture.js';
 
 // The lattice DBM on the farm (real Redis, one worker process): its checkpoints
 // carry the potential (modelState), stored in Redis between chunks.
@@ -20,28 +17,10 @@ function directHash(i: number): string {
 }
 
 describe('dbm-square on the farm', () => {
-  const prefix = uniquePrefix('dbmsq');
-  const artifacts = tempDir('dbmsq-artifacts');
-  let redis: Redis;
-  let store: EnsembleStore;
-  let queue: ReturnType<typeof runQueue>;
-  const workers: WorkerProc[] = [];
+  const setup = farmFixture('dbmsq');
 
   beforeAll(async () => {
-    redis = new Redis(REDIS_URL, { maxRetriesPerRequest: null });
-    store = new EnsembleStore(redis, prefix);
-    queue = runQueue(redis, prefix);
-    workers.push(await startWorker({ prefix, artifacts }));
-  });
-
-  afterAll(async () => {
-    for (const w of workers) await stopWorker(w);
-    await queue?.close();
-    if (redis) {
-      await deleteKeys(redis, prefix);
-      redis.disconnect();
-    }
-    rmSync(artifacts, { recursive: true, force: true });
+    await setup.startWorker();
   });
 
   it('the spec takes eta and refuses it out of range with one line', () => {
@@ -50,13 +29,10 @@ describe('dbm-square on the farm', () => {
   });
 
   it('a worker grows the runs with the same hashes as the kernel run directly', async () => {
-    const id = await launchEnsemble(store, queue, spec);
-    const status = await waitFor('ensemble done', async () => {
-      const s = await store.status(id);
-      return s?.state === 'done' ? s : undefined;
-    });
+    const id = await launchEnsemble(setup.store, setup.queue, spec);
+    const status = await setup.waitDone(id);
     expect(status.runs.done).toBe(3);
-    const farm = await store.results(id);
+    const farm = await setup.store.results(id);
     expect(farm.map((r) => r.stateHash)).toEqual([0, 1, 2].map(directHash));
   });
 });

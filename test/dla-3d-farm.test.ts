@@ -1,15 +1,12 @@
-import { rmSync } from 'node:fs';
-import { Redis } from 'ioredis';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { runEmbedded } from '../coordinator/embedded/index.js';
-import { launchEnsemble, runQueue } from '../coordinator/farm/queue.js';
-import { EnsembleStore } from '../coordinator/farm/store.js';
+import { launchEnsemble } from '../coordinator/farm/queue.js';
 import { runTaskFor } from '../coordinator/plan.js';
 import { validateSpec } from '../coordinator/spec/index.js';
 import { decodeCheckpoint, encodeCheckpoint, growthTaskOf, type CheckpointData } from '../proto/convert.js';
 import { createKernel } from '../worker/models/registry.js';
 import { runTask } from '../worker/runtime/task-runner.js';
-import { deleteKeys, REDIS_URL, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
+import { farmFixture } from './support/farm-fixture.js';
 
 // 3D DLA through every path a model takes: the spec, the task runner with
 // checkpoints over the wire format, the embedded mode and the Redis farm.
@@ -56,38 +53,17 @@ describe('3D DLA in specs, task runner and embedded mode', () => {
 });
 
 describe('3D DLA on the farm (real Redis, one worker process)', () => {
-  const prefix = uniquePrefix('dla3d');
-  const artifacts = tempDir('dla3d-artifacts');
-  let redis: Redis;
-  let store: EnsembleStore;
-  let queue: ReturnType<typeof runQueue>;
-  const workers: WorkerProc[] = [];
+  const setup = farmFixture('dla3d');
 
   beforeAll(async () => {
-    redis = new Redis(REDIS_URL, { maxRetriesPerRequest: null });
-    store = new EnsembleStore(redis, prefix);
-    queue = runQueue(redis, prefix);
-    workers.push(await startWorker({ prefix, artifacts }));
-  });
-
-  afterAll(async () => {
-    for (const w of workers) await stopWorker(w);
-    await queue?.close();
-    if (redis) {
-      await deleteKeys(redis, prefix);
-      redis.disconnect();
-    }
-    rmSync(artifacts, { recursive: true, force: true });
+    await setup.startWorker();
   });
 
   it('a worker grows the runs with the same hashes as the kernel run directly', async () => {
-    const id = await launchEnsemble(store, queue, spec);
-    const status = await waitFor('ensemble done', async () => {
-      const s = await store.status(id);
-      return s?.state === 'done' ? s : undefined;
-    });
+    const id = await launchEnsemble(setup.store, setup.queue, spec);
+    const status = await setup.waitDone(id);
     expect(status.runs.done).toBe(4);
-    const farm = await store.results(id);
+    const farm = await setup.store.results(id);
     expect(farm.map((r) => r.stateHash)).toEqual([0, 1, 2, 3].map(directHash));
   });
 });

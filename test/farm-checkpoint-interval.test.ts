@@ -1,11 +1,11 @@
 import { execFile } from 'node:child_process';
-import { existsSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { promisify } from 'node:util';
-import { Redis } from 'ioredis';
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { checkpointKey } from '../worker/runtime/job-contract.js';
-import { CLI, REDIS_URL, ROOT, deleteKeys, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
+import { CLI, REDIS_URL, ROOT, startWorker, waitFor } from './farm-helpers.js';
+import { farmFixture } from './support/farm-fixture.js';
 
 const run = promisify(execFile);
 
@@ -13,17 +13,7 @@ const run = promisify(execFile);
 // run that lasts several seconds leaves a checkpoint in the artifact folder
 // while it is still running (the particle-count trigger is off).
 describe('checkpoints every few seconds', () => {
-  const dir = tempDir('ckpt-interval');
-  const prefix = uniquePrefix('ckpt-interval');
-  const redis = new Redis(REDIS_URL);
-  let worker: WorkerProc | undefined;
-
-  afterAll(async () => {
-    await stopWorker(worker);
-    await deleteKeys(redis, prefix);
-    redis.disconnect();
-    rmSync(dir, { recursive: true, force: true });
-  });
+  const { prefix, artifacts: dir, redis, workers } = farmFixture('ckpt-interval');
 
   it('a long run is checkpointed by time before it finishes', async () => {
     const spec = join(dir, 'long.json');
@@ -31,7 +21,7 @@ describe('checkpoints every few seconds', () => {
     const launched = await run(process.execPath, [CLI, 'launch', spec, '--redis', REDIS_URL, '--prefix', prefix], { cwd: ROOT });
     const id = launched.stdout.trim();
     const artifacts = join(dir, 'artifacts');
-    worker = await startWorker({ prefix, artifacts });
+    workers.push(await startWorker({ prefix, artifacts }));
     const file = join(artifacts, checkpointKey(id, 0));
     await waitFor('a time-based checkpoint', async () => existsSync(file), 30_000);
     // still running: the result is not stored yet

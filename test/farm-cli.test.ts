@@ -1,28 +1,18 @@
 import { execFile } from 'node:child_process';
-import { readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { promisify } from 'node:util';
-import { Redis } from 'ioredis';
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { EnsembleStore } from '../coordinator/farm/store.js';
 import { parseSpec } from '../coordinator/spec/index.js';
 import { runTaskFor } from '../coordinator/plan.js';
 import { growthTaskOf } from '../proto/convert.js';
 import { createKernel } from '../worker/models/registry.js';
-import { privateRedis, CLI, deleteKeys, REDIS_URL, ROOT, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
+import { privateRedis, CLI, REDIS_URL, ROOT, startWorker, waitFor } from './farm-helpers.js';
+import { farmFixture } from './support/farm-fixture.js';
 
 const run = promisify(execFile);
-const dir = tempDir('cli');
-const prefix = uniquePrefix('cli');
-const redis = new Redis(REDIS_URL, { maxRetriesPerRequest: null });
-let worker: WorkerProc | undefined;
-
-afterAll(async () => {
-  await stopWorker(worker);
-  await deleteKeys(redis, prefix);
-  redis.disconnect();
-  rmSync(dir, { recursive: true, force: true });
-});
+const { prefix, artifacts: dir, redis, workers } = farmFixture('cli');
 
 async function cli(...args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
   try {
@@ -81,7 +71,7 @@ describe('tendril CLI (farm and embedded commands)', () => {
     const id = launched.stdout.trim();
     const st = await cli('status', id, '--prefix', prefix, '--json');
     expect(JSON.parse(st.stdout).runs.planned).toBe(3);
-    worker = await startWorker({ prefix, artifacts: join(dir, 'artifacts') });
+    workers.push(await startWorker({ prefix, artifacts: join(dir, 'artifacts') }));
     await waitFor('done', async () => JSON.parse((await cli('status', id, '--prefix', prefix, '--json')).stdout).state === 'done');
     const csvFile = join(dir, 'summary.csv');
     expect((await cli('summary', id, '--prefix', prefix, '--format', 'csv', '--out', csvFile)).code).toBe(0);

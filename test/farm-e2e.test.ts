@@ -1,31 +1,16 @@
-import { rmSync } from 'node:fs';
-import { Redis } from 'ioredis';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { runEmbedded } from '../coordinator/embedded/index.js';
 import { DirectoryArtifactStore } from '../coordinator/farm/artifacts.js';
-import { launchEnsemble, runQueue } from '../coordinator/farm/queue.js';
-import { EnsembleStore } from '../coordinator/farm/store.js';
+import { launchEnsemble } from '../coordinator/farm/queue.js';
 import { runTaskFor } from '../coordinator/plan.js';
 import { validateSpec } from '../coordinator/spec/index.js';
 import { buildSummary } from '../coordinator/summary/index.js';
 import { checkpointKey } from '../worker/runtime/job-contract.js';
 import { growInThreads } from './support/grow-in-thread.js';
-import { deleteKeys, REDIS_URL, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
+import { stopWorker, waitFor } from './farm-helpers.js';
+import { farmFixture } from './support/farm-fixture.js';
 
-const prefix = uniquePrefix('e2e');
-const artifacts = tempDir('e2e-artifacts');
-const redis = new Redis(REDIS_URL, { maxRetriesPerRequest: null });
-const store = new EnsembleStore(redis, prefix);
-const queue = runQueue(redis, prefix);
-const workers: WorkerProc[] = [];
-
-afterAll(async () => {
-  for (const w of workers) await stopWorker(w);
-  await queue.close();
-  await deleteKeys(redis, prefix);
-  redis.disconnect();
-  rmSync(artifacts, { recursive: true, force: true });
-});
+const { artifacts, store, queue, workers, startWorker, waitDone } = farmFixture('e2e');
 
 /** The hash of run i grown directly (on a worker thread: never blocking the test runner). */
 async function directHash(spec: ReturnType<typeof validateSpec>, i: number): Promise<string> {
@@ -35,17 +20,15 @@ async function directHash(spec: ReturnType<typeof validateSpec>, i: number): Pro
 
 describe('farm end to end (real Redis, two worker processes)', () => {
   beforeAll(async () => {
-    workers.push(await startWorker({ prefix, artifacts }), await startWorker({ prefix, artifacts }));
+    await startWorker();
+    await startWorker();
   });
 
   it('two workers give the same per-run hashes as the embedded run of the same spec', async () => {
     // clusters long enough (most of a second) that a busy worker cannot take the next job before the idle one
     const spec = validateSpec({ name: 'e2e', model: 'dla-offlattice-2d', particles: 100000, clusters: 4, seed: '77', runs_per_job: 1 });
     const id = await launchEnsemble(store, queue, spec);
-    const status = await waitFor('ensemble done', async () => {
-      const s = await store.status(id);
-      return s?.state === 'done' ? s : undefined;
-    });
+    const status = await waitDone(id);
     expect(status.runs).toEqual({ planned: 4, queued: 0, running: 0, done: 4, failed: 0 });
     expect(status.particles.done).toBe(4 * 100000);
     const farm = await store.results(id);
@@ -66,12 +49,8 @@ describe('farm end to end (real Redis, two worker processes)', () => {
     await waitFor('a checkpoint', async () => (await cps.get(checkpointKey(id, 0)))?.length, 60_000);
     const victim = workers.pop()!;
     await stopWorker(victim, 'SIGKILL');
-    const replacement = await startWorker({ prefix, artifacts });
-    workers.push(replacement);
-    const s = await waitFor('ensemble done after the crash', async () => {
-      const st = await store.status(id);
-      return st?.state === 'done' ? st : undefined;
-    }, 120_000);
+    await startWorker();
+    const s = await waitDone(id, 'ensemble done after the crash', 120_000);
     expect(s.runs.done).toBe(1);
     const [r] = await store.results(id);
     expect(r.timings.resumes).toBeGreaterThanOrEqual(1);
@@ -95,8 +74,8 @@ describe('farm end to end (real Redis, two worker processes)', () => {
     expect(code).toBe(0);
     const cps = new DirectoryArtifactStore(artifacts);
     expect(await cps.get(checkpointKey(id, 0))).not.toBeNull();
-    workers.push(await startWorker({ prefix, artifacts }));
-    await waitFor('ensemble done after release', async () => (await store.status(id))?.state === 'done', 120_000);
+    await startWorker();
+    await waitDone(id, 'ensemble done after release', 120_000);
     const [r] = await store.results(id);
     expect(r.timings.resumes).toBe(1);
     expect(r.stateHash).toBe(await directHash(spec, 0));
@@ -107,7 +86,7 @@ describe('farm end to end (real Redis, two worker processes)', () => {
     const bad2 = await queue.add('grow', { v: 1, ensembleId: 'nope', tasks: [Buffer.from([0xff, 0xff, 0xff]).toString('base64')] }, { jobId: 'corrupt-2', attempts: 3 });
     const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 1000, clusters: 2, seed: 3 });
     const id = await launchEnsemble(store, queue, spec);
-    await waitFor('good ensemble done', async () => (await store.status(id))?.state === 'done');
+    await waitDone(id, 'good ensemble done');
     const f1 = await waitFor('bad job failed', async () => ((await bad.getState()) === 'failed' ? await queue.getJob('corrupt-1') : undefined));
     const f2 = await waitFor('bad job 2 failed', async () => ((await bad2.getState()) === 'failed' ? await queue.getJob('corrupt-2') : undefined));
     expect(f1!.failedReason).toBe('job payload tasks[0] is not base64 text');

@@ -46,9 +46,14 @@ export async function startWorker(args: { redisUrl?: string; prefix: string; art
   child.stdout!.on('data', (d) => (out += d));
   child.stderr!.on('data', (d) => (out += d));
   const exited = new Promise<number | null>((resolve) => child.once('exit', (code) => resolve(code)));
-  const deadline = Date.now() + 20_000;
+  // generous: a loaded machine (many engineers' tests on 2 cores) takes tens of seconds to start a node process
+  const deadline = Date.now() + 120_000;
   while (!out.includes('ready:')) {
-    if (child.exitCode !== null || Date.now() > deadline) throw new Error(`worker did not start: ${out}`);
+    if (child.exitCode !== null || Date.now() > deadline) {
+      // a worker that never said ready must not live on (it would take jobs and CPU after the test)
+      if (child.exitCode === null) child.kill('SIGKILL');
+      throw new Error(`worker did not start: ${out}`);
+    }
     await sleep(50);
   }
   return { child, output: () => out, exited };

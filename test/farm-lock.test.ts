@@ -1,37 +1,22 @@
-import { rmSync } from 'node:fs';
-import { Redis } from 'ioredis';
-import { afterAll, describe, expect, it } from 'vitest';
-import { launchEnsemble, runQueue } from '../coordinator/farm/queue.js';
-import { EnsembleStore } from '../coordinator/farm/store.js';
+import { describe, expect, it } from 'vitest';
+import { launchEnsemble } from '../coordinator/farm/queue.js';
 import { validateSpec } from '../coordinator/spec/index.js';
-import { deleteKeys, freePort, REDIS_URL, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
+import { freePort, waitFor } from './farm-helpers.js';
+import { farmFixture } from './support/farm-fixture.js';
 
-const prefix = uniquePrefix('lock');
-const artifacts = tempDir('lock-artifacts');
-const redis = new Redis(REDIS_URL, { maxRetriesPerRequest: null });
-const store = new EnsembleStore(redis, prefix);
-const queue = runQueue(redis, prefix);
-const workers: WorkerProc[] = [];
-
-afterAll(async () => {
-  for (const w of workers) await stopWorker(w);
-  await queue.close();
-  await deleteKeys(redis, prefix);
-  redis.disconnect();
-  rmSync(artifacts, { recursive: true, force: true });
-});
+const { store, queue, startWorker, waitDone } = farmFixture('lock');
 
 describe('worker lock renewal and metrics', () => {
   it('a run far longer than the lock duration never stalls (growth is off the main thread); /metrics counts it', async () => {
     const port = await freePort();
     // lock of 1 s, stalled check every 0.5 s, a second worker ready to steal a stalled job
     const extra = ['--lock-ms', '1000', '--stalled-ms', '500'];
-    workers.push(await startWorker({ prefix, artifacts, extra: [...extra, '--metrics-port', String(port)] }));
+    await startWorker({ extra: [...extra, '--metrics-port', String(port)] });
     const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 600000, clusters: 1, seed: 2 });
     const id = await launchEnsemble(store, queue, spec);
     await waitFor('run started', async () => ((await store.status(id))?.runs.running ?? 0) === 1);
-    workers.push(await startWorker({ prefix, artifacts, extra }));
-    await waitFor('done', async () => (await store.status(id))?.state === 'done', 120_000);
+    await startWorker({ extra });
+    await waitDone(id, 'done', 120_000);
     const job = (await queue.getJob(`${id}-0`))!;
     expect(job.stalledCounter).toBe(0);
     expect(job.attemptsStarted).toBe(1);

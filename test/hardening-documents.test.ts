@@ -5,46 +5,21 @@
  * (coordinator/spec/document-limits.ts).
  */
 import { execFile } from 'node:child_process';
-import { rmSync, writeFileSync } from 'node:fs';
+import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { promisify } from 'node:util';
-import { Redis } from 'ioredis';
-import { afterAll, describe, expect, it } from 'vitest';
-import { runQueue } from '../coordinator/farm/queue.js';
-import { EnsembleStore } from '../coordinator/farm/store.js';
-import { buildApi } from '../coordinator/http/server.js';
-import { SpecError, validateSpec } from '../coordinator/spec/index.js';
+import { describe, expect, it } from 'vitest';
 import { excerpt, fieldKey, MAX_LISTED_PROBLEMS, nestingProblem } from '../coordinator/spec/document-limits.js';
-import { CLI, deleteKeys, REDIS_URL, ROOT, tempDir, uniquePrefix } from './farm-helpers.js';
+import { CLI, ROOT } from './farm-helpers.js';
+import { problemsOf } from './support/spec-problems.js';
+import { farmFixture } from './support/farm-fixture.js';
 
 const TOKEN = 'hardening-documents-token';
-const prefix = uniquePrefix('harddoc');
-const dir = tempDir('harddoc');
-const redis = new Redis(REDIS_URL, { maxRetriesPerRequest: null });
-const store = new EnsembleStore(redis, prefix);
-const queue = runQueue(redis, prefix);
-const app = buildApi({ store, queue, token: TOKEN, limits: { maxTotalParticles: 1e9 }, bodyLimit: 4 << 20 });
+const { artifacts: dir, api } = farmFixture('harddoc');
+const app = api({ token: TOKEN, limits: { maxTotalParticles: 1e9 }, bodyLimit: 4 << 20 });
 const auth = { authorization: `Bearer ${TOKEN}`, 'content-type': 'application/json' };
 
-afterAll(async () => {
-  await app.close();
-  await queue.close();
-  await deleteKeys(redis, prefix);
-  redis.disconnect();
-  rmSync(dir, { recursive: true, force: true });
-});
-
 const nested = (depth: number) => '{"a":'.repeat(depth) + '1' + '}'.repeat(depth);
-
-function problems(doc: unknown): string[] {
-  try {
-    validateSpec(doc);
-  } catch (err) {
-    if (err instanceof SpecError) return err.problems;
-    throw err;
-  }
-  return [];
-}
 
 describe('deep nesting', () => {
   it.each([
@@ -82,7 +57,7 @@ describe('error building is bounded', () => {
   it('a document of 100,000 unknown keys lists at most 20 problems, each one bounded line', () => {
     const doc: Record<string, number> = {};
     for (let i = 0; i < 100_000; i++) doc[`k${i}`] = i;
-    const p = problems(doc);
+    const p = problemsOf(doc);
     expect(p.length).toBe(MAX_LISTED_PROBLEMS + 1);
     expect(p[MAX_LISTED_PROBLEMS]).toBe(`spec: more problems than these ${MAX_LISTED_PROBLEMS}; allowed: fix these and submit again to see the rest`);
     for (const line of p) {
@@ -92,9 +67,9 @@ describe('error building is bounded', () => {
   });
 
   it('key names with newlines or terminal escapes are printed escaped', async () => {
-    const p = problems({ model: 'dla-offlattice-2d', particles: 10, clusters: 1, seed: 1, 'bad\nkey\u001b[31m': 1 });
+    const p = problemsOf({ model: 'dla-offlattice-2d', particles: 10, clusters: 1, seed: 1, 'bad\nkey\u001b[31m': 1 });
     expect(p[0]).toBe('"bad\\nkey\\u001b[31m": unknown field; allowed fields: name, model, params, particles, clusters, seed, records_per_decade, observables, checkpoint_interval_seconds, checkpoint_every_particles, runs_per_job, analysis, probe, positions, target');
-    const q = problems({ model: 'dla-offlattice-2d', particles: 10, clusters: 1, seed: 1, params: { 'x\u001b]0;pwn\u0007': 1 } });
+    const q = problemsOf({ model: 'dla-offlattice-2d', particles: 10, clusters: 1, seed: 1, params: { 'x\u001b]0;pwn\u0007': 1 } });
     expect(q[0]).toMatch(/^params\."x\\u001b\]0;pwn\\u0007": not a parameter of dla-offlattice-2d/);
     const r = await app.inject({ method: 'POST', url: '/probes', headers: auth, payload: JSON.stringify({ walkers: 100, seed: 1, csv: '0,0,1', 'k\r\n\u009b2J': 1 }) });
     expect(r.json().error).toMatch(/^"k\\r\\n\\u009b2J": unknown field; allowed fields: name, csv, points, walkers, /);

@@ -5,36 +5,19 @@
  * token is checked before a body is read.
  */
 import { request } from 'node:http';
-import { rmSync } from 'node:fs';
-import { Redis } from 'ioredis';
-import { afterAll, describe, expect, it } from 'vitest';
-import { runQueue } from '../coordinator/farm/queue.js';
-import { EnsembleStore } from '../coordinator/farm/store.js';
+import { describe, expect, it } from 'vitest';
 import { ProbeRequestStore, validateProbeRequest } from '../coordinator/farm/probe-requests.js';
 import { FarmProbeHandler } from '../coordinator/farm/probe-jobs.js';
 import { DirectoryArtifactStore } from '../coordinator/farm/artifacts.js';
-import { buildApi } from '../coordinator/http/server.js';
 import { validateSpec, SpecError } from '../coordinator/spec/index.js';
 import { ProbeGeometry } from '../worker/probe/probe-2d.js';
 import type { ProbeJobData } from '../worker/runtime/job-contract.js';
-import { deleteKeys, REDIS_URL, tempDir, uniquePrefix } from './farm-helpers.js';
+import { farmFixture } from './support/farm-fixture.js';
 
 const TOKEN = 'hardening-probe-token';
-const prefix = uniquePrefix('hardprobe');
-const artifactsDir = tempDir('hardprobe-artifacts');
-const redis = new Redis(REDIS_URL, { maxRetriesPerRequest: null });
-const store = new EnsembleStore(redis, prefix);
-const queue = runQueue(redis, prefix);
-const app = buildApi({ store, queue, token: TOKEN, limits: { maxTotalParticles: 1e9 } });
+const { prefix, artifacts: artifactsDir, redis, store, queue, api } = farmFixture('hardprobe');
+const app = api({ token: TOKEN, limits: { maxTotalParticles: 1e9 } });
 const auth = { authorization: `Bearer ${TOKEN}` };
-
-afterAll(async () => {
-  await app.close();
-  await queue.close();
-  await deleteKeys(redis, prefix);
-  redis.disconnect();
-  rmSync(artifactsDir, { recursive: true, force: true });
-});
 
 const post = (body: unknown, headers: Record<string, string> = auth) => app.inject({ method: 'POST', url: '/probes', payload: body as object, headers });
 

@@ -1,45 +1,22 @@
 /**
  * Issue #11 item 10, the smaller findings: each with the input that showed it.
  */
-import { rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { Worker } from 'node:worker_threads';
-import { Redis } from 'ioredis';
-import { afterAll, describe, expect, it } from 'vitest';
-import { cancelEnsemble, launchEnsemble, runQueue } from '../coordinator/farm/queue.js';
-import { EnsembleStore, STALE_RUN_MS } from '../coordinator/farm/store.js';
+import { describe, expect, it } from 'vitest';
+import { cancelEnsemble, launchEnsemble } from '../coordinator/farm/queue.js';
+import { STALE_RUN_MS } from '../coordinator/farm/store.js';
 import { validateProbeRequest } from '../coordinator/farm/probe-requests.js';
-import { buildApi } from '../coordinator/http/server.js';
-import { parseSpecText, SpecError, validateSpec } from '../coordinator/spec/index.js';
+import { parseSpecText, validateSpec } from '../coordinator/spec/index.js';
 import { openFarm } from '../coordinator/commands/farm-options.js';
-import { deleteKeys, privateRedis, REDIS_URL, ROOT, tempDir, uniquePrefix } from './farm-helpers.js';
+import { privateRedis, ROOT } from './farm-helpers.js';
+import { problemsOf } from './support/spec-problems.js';
+import { farmFixture } from './support/farm-fixture.js';
 
 const TOKEN = 'hardening-small-token';
-const prefix = uniquePrefix('hardsmall');
-const dir = tempDir('hardsmall');
-const redis = new Redis(REDIS_URL, { maxRetriesPerRequest: null });
-const store = new EnsembleStore(redis, prefix);
-const queue = runQueue(redis, prefix);
-const app = buildApi({ store, queue, token: TOKEN, limits: { maxTotalParticles: 1e9 } });
+const { store, queue, api } = farmFixture('hardsmall');
+const app = api({ token: TOKEN, limits: { maxTotalParticles: 1e9 } });
 const auth = { authorization: `Bearer ${TOKEN}` };
-
-afterAll(async () => {
-  await app.close();
-  await queue.close();
-  await deleteKeys(redis, prefix);
-  redis.disconnect();
-  rmSync(dir, { recursive: true, force: true });
-});
-
-function problems(doc: unknown): string[] {
-  try {
-    validateSpec(doc);
-  } catch (err) {
-    if (err instanceof SpecError) return err.problems;
-    throw err;
-  }
-  return [];
-}
 
 describe('smaller findings', () => {
   it('{"toml": ...} sent as JSON is an unknown field, not parsed as TOML', async () => {
@@ -66,18 +43,18 @@ describe('smaller findings', () => {
   });
 
   it('contradictions are refused before any work: min_clusters above max_clusters, a fit window beyond the particles', () => {
-    expect(problems({ model: 'dla-offlattice-2d', particles: 100, seed: 1, target: { half_width: 0.05, max_clusters: 10, min_clusters: 20 } })).toContain(
+    expect(problemsOf({ model: 'dla-offlattice-2d', particles: 100, seed: 1, target: { half_width: 0.05, max_clusters: 10, min_clusters: 20 } })).toContain(
       'target.min_clusters: 20 is out of range; allowed: an integer from 2 to target.max_clusters (10)',
     );
-    expect(problems({ model: 'dla-offlattice-2d', particles: 100, clusters: 4, seed: 1, analysis: { fit_min_size: 500 } })).toEqual([
+    expect(problemsOf({ model: 'dla-offlattice-2d', particles: 100, clusters: 4, seed: 1, analysis: { fit_min_size: 500 } })).toEqual([
       'analysis.fit_min_size: 500 is out of range; allowed: a number from 1 to below particles (100)',
     ]);
   });
 
   it('NaN and infinities are quoted as such, not as null', () => {
-    expect(problems(parseSpecText('model = "dla-offlattice-2d"\nparticles = inf\nclusters = 1\nseed = 1', 'toml'))).toEqual(['particles: Infinity is not allowed; allowed: an integer from 2 to 100000000']);
-    expect(problems(parseSpecText('model = "dla-offlattice-2d"\nparticles = 10\nclusters = 1\nseed = 1\n[analysis]\nlevel = -inf', 'toml'))).toEqual(['analysis.level: -Infinity is not allowed; allowed: a number from 0.5 to 0.999']);
-    expect(problems(parseSpecText('model = "dla-offlattice-2d"\nparticles = 10\nclusters = 1\nseed = 1\n[params]\nmin_step = nan', 'toml'))[0]).toMatch(/^params\.min_step: NaN /);
+    expect(problemsOf(parseSpecText('model = "dla-offlattice-2d"\nparticles = inf\nclusters = 1\nseed = 1', 'toml'))).toEqual(['particles: Infinity is not allowed; allowed: an integer from 2 to 100000000']);
+    expect(problemsOf(parseSpecText('model = "dla-offlattice-2d"\nparticles = 10\nclusters = 1\nseed = 1\n[analysis]\nlevel = -inf', 'toml'))).toEqual(['analysis.level: -Infinity is not allowed; allowed: a number from 0.5 to 0.999']);
+    expect(problemsOf(parseSpecText('model = "dla-offlattice-2d"\nparticles = 10\nclusters = 1\nseed = 1\n[params]\nmin_step = nan', 'toml'))[0]).toMatch(/^params\.min_step: NaN /);
   });
 
   it('a cancelled ensemble lists nothing queued', async () => {

@@ -9,36 +9,27 @@ import { OffLatticeDla2d } from '../worker/models/dla-offlattice-2d/kernel.js';
 import { minStepFloor } from '../worker/core/min-step-floor.js';
 import { createKernel } from '../worker/models/registry.js';
 import { createStopSignal, raiseStop, WalkerStuck } from '../worker/core/stop-signal.js';
-import { SpecError, validateSpec } from '../coordinator/spec/index.js';
+import { validateSpec } from '../coordinator/spec/index.js';
 import { TaskThreadPool } from '../worker/runtime/task-thread.js';
 import { runTaskFor } from '../coordinator/plan.js';
 import { dlaTask } from './support/grow.js';
-
-function specProblems(doc: unknown): string[] {
-  try {
-    validateSpec(doc);
-  } catch (err) {
-    if (err instanceof SpecError) return err.problems;
-    throw err;
-  }
-  return [];
-}
+import { problemsOf } from './support/spec-problems.js';
 
 describe('min_step is bounded by the float spacing', () => {
   it.each([1e-15, 1e-300, 5e-7])('a spec with min_step %s is refused with one line naming the field and the floor', (v) => {
-    const p = specProblems({ model: 'dla-offlattice-2d', particles: 2000, clusters: 1, seed: 1, params: { min_step: v } });
+    const p = problemsOf({ model: 'dla-offlattice-2d', particles: 2000, clusters: 1, seed: 1, params: { min_step: v } });
     expect(p).toEqual([`params.min_step: ${v} is out of range; allowed: a number from 0.000001 to 1 for 2000 particles (particle diameters; a smaller step is lost in the float spacing of the coordinates)`]);
   });
 
   it('the floor rises with the largest possible radius (particles × 2^-40)', () => {
     expect(minStepFloor(1000, 2)).toBe(1e-6);
     expect(minStepFloor(100_000_000, 2)).toBeGreaterThanOrEqual((100_000_003) * 2 ** -40);
-    expect(specProblems({ model: 'dla-offlattice-2d', particles: 100_000_000, clusters: 1, seed: 1, params: { min_step: 1e-5 } })[0]).toMatch(
+    expect(problemsOf({ model: 'dla-offlattice-2d', particles: 100_000_000, clusters: 1, seed: 1, params: { min_step: 1e-5 } })[0]).toMatch(
       /^params\.min_step: 0\.00001 is out of range; allowed: a number from 0\.0000914 to 1 for 100000000 particles/,
     );
     // the default and the values the tests use stay allowed
-    expect(specProblems({ model: 'dla-offlattice-2d', particles: 100_000_000, clusters: 1, seed: 1, params: {} })).toEqual([]);
-    expect(specProblems({ model: 'dla-offlattice-2d', particles: 2000, clusters: 1, seed: 1, params: { min_step: 1e-6 } })).toEqual([]);
+    expect(problemsOf({ model: 'dla-offlattice-2d', particles: 100_000_000, clusters: 1, seed: 1, params: {} })).toEqual([]);
+    expect(problemsOf({ model: 'dla-offlattice-2d', particles: 2000, clusters: 1, seed: 1, params: { min_step: 1e-6 } })).toEqual([]);
   });
 
   it('a task below the floor is refused by the kernel registry too (tasks straight from the queue)', () => {

@@ -2,38 +2,17 @@
  * Issue #11 item 8: probe walkers and probe jobs count in the total-work
  * ceiling of a spec (and of a probe request on the API).
  */
-import { Redis } from 'ioredis';
-import { afterAll, describe, expect, it } from 'vitest';
-import { runQueue } from '../coordinator/farm/queue.js';
-import { EnsembleStore } from '../coordinator/farm/store.js';
-import { buildApi } from '../coordinator/http/server.js';
-import { SpecError, validateSpec } from '../coordinator/spec/index.js';
-import { deleteKeys, REDIS_URL, uniquePrefix } from './farm-helpers.js';
+import { describe, expect, it } from 'vitest';
+import { validateSpec } from '../coordinator/spec/index.js';
+import { farmFixture } from './support/farm-fixture.js';
+import { problemsOf } from './support/spec-problems.js';
 
-const prefix = uniquePrefix('hardwork');
-const redis = new Redis(REDIS_URL, { maxRetriesPerRequest: null });
-const store = new EnsembleStore(redis, prefix);
-const queue = runQueue(redis, prefix);
-const app = buildApi({ store, queue, token: 't0k3n', limits: { maxTotalParticles: 1e9 } });
-
-afterAll(async () => {
-  await app.close();
-  await queue.close();
-  await deleteKeys(redis, prefix);
-  redis.disconnect();
-});
-
-function problems(doc: unknown, max = 1e10): string[] {
-  try {
-    validateSpec(doc, { maxTotalParticles: max });
-  } catch (err) {
-    if (err instanceof SpecError) return err.problems;
-    throw err;
-  }
-  return [];
-}
+const { api } = farmFixture('hardwork');
+const app = api({ token: 't0k3n', limits: { maxTotalParticles: 1e9 } });
 
 const sizes24 = Array.from({ length: 24 }, (_, i) => 2 + i);
+
+const problems = (doc: unknown, max = 1e10): string[] => problemsOf(doc, (d) => validateSpec(d, { maxTotalParticles: max }));
 
 describe('probe work is inside the total-work ceiling', () => {
   it('the audit spec (10^10 walkers at 25 sizes, 102,400 jobs) is refused with one line per problem', () => {

@@ -2,14 +2,14 @@
  * The Eden kernels' incremental records (worker/core/incremental-planar-records.ts)
  * against the full passes they replace (worker/core/anisotropy.ts,
  * worker/core/radial-interface.ts), and the exact rewrites that made Eden
- * faster: countWithin by binary search, Random.nextBelow without a floating
+ * faster: countCentresWithin by binary search, Random.nextBelow without a floating
  * modulo, TiledInt32Grid.cellIndexNear.
  */
 import { describe, expect, it } from 'vitest';
 import { IncrementalPlanarRecords } from '../worker/core/incremental-planar-records.js';
 import { recordPlanarAnisotropy } from '../worker/core/anisotropy.js';
 import { recordRadialInterface } from '../worker/core/radial-interface.js';
-import { countWithin } from '../worker/core/record-sizes.js';
+import { countCentresWithin } from '../worker/core/record-sizes.js';
 import { Random } from '../worker/core/random.js';
 import { TiledInt32Grid } from '../worker/index/tiled-grids.js';
 import { createKernel, modelParams } from '../worker/models/registry.js';
@@ -91,14 +91,33 @@ describe('incremental planar records equal the full passes', () => {
 });
 
 describe('exact rewrites behind the Eden speed-up', () => {
-  it('countWithin equals counting over the sorted distances (ties, radii equal to distances, NaN)', () => {
+  it('countCentresWithin equals counting over the sorted distances (ties, radii equal to distances, NaN; 1, 2 and 3 axes)', () => {
     const rng = Random.forRun('6', 0, 2);
     const d = new Float64Array(5000);
     for (let i = 0; i < d.length; i++) d[i] = i % 7 === 0 ? 10 ** ((i % 40) / 10) : i % 97 === 0 ? NaN : 60 * rng.nextDouble();
     const radii = Array.from({ length: 20 }, (_, j) => 10 ** (j / 10));
-    const sorted = Float64Array.from(d).sort();
-    const expected = radii.map((r) => sorted.filter((v) => v <= r).length);
-    expect(countWithin(d, radii)).toEqual(expected);
+    const countSorted = (dist: Float64Array): number[] => {
+      const sorted = Float64Array.from(dist).sort();
+      return radii.map((r) => sorted.filter((v) => v <= r).length);
+    };
+    // one axis: the distance of centre x is |x|, so the distances themselves are counted
+    expect(countCentresWithin(d, 1, d.length, radii)).toEqual(countSorted(d));
+    for (const dimension of [2, 3]) {
+      const coords = new Float64Array(dimension * d.length);
+      const dist = new Float64Array(d.length);
+      for (let i = 0; i < d.length; i++) {
+        let s = 0;
+        for (let k = 0; k < dimension; k++) {
+          const v = k === 0 && i % 97 === 0 ? NaN : i % 7 === 0 && k > 0 ? 0 : 40 * rng.nextDouble() - 20;
+          coords[dimension * i + k] = v;
+          s += v * v;
+        }
+        dist[i] = Math.sqrt(s);
+      }
+      expect(countCentresWithin(coords, dimension, d.length, radii)).toEqual(countSorted(dist));
+      // only the first count centres are counted
+      expect(countCentresWithin(coords, dimension, 100, radii)).toEqual(countSorted(dist.subarray(0, 100)));
+    }
   });
 
   it('Random.nextBelow gives the values of the textbook r % n rejection rule', () => {

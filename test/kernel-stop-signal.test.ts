@@ -138,7 +138,7 @@ describe('3D off-lattice: stuck walkers and threads', () => {
       const o = await h.outcome;
       expect(o.status).toBe('stopped');
       if (o.status !== 'stopped') return;
-      const state = decodeCheckpoint(o.checkpoint).state as GrowthCheckpoint;
+      const state = decodeCheckpoint(o.checkpoint!).state as GrowthCheckpoint;
       expect(state.count).toBeLessThan(200_000);
       const fresh = createKernel({ model: spec.model, particles: 200_000, ensembleSeed: spec.seed, runIndex: 0, recordsPerDecade: spec.recordsPerDecade });
       fresh.growTo(state.count);

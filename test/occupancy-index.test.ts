@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { OccupancyIndex2d } from '../worker/index/occupancy-index-2d.js';
 import { Random } from '../worker/core/random.js';
 import { CORE_MASK, WINDOW_RADIUS, WindowBitGrid } from '../worker/index/window-bit-grid.js';
+import { TiledByteGrid, TiledInt32Grid, reservedArray } from '../worker/index/tiled-grids.js';
 
 // The index must give a lower bound on (nearest-centre distance) − 1
 // everywhere, be exact close to the cluster, and list every centre within 2
@@ -92,9 +93,10 @@ describe('OccupancyIndex2d', () => {
     expect(aboveMarkBound).toBeGreaterThan(1000);
   });
 
-  it('keeps every centre through bucket growth and rewrites (dense packing, full cells)', () => {
+  it('keeps every centre when its lists and grids outgrow what it was sized for (dense packing, full cells)', () => {
     // a square lattice of spacing 1 fills every side-2 cell with 4 centres,
-    // so buckets chain and are rewritten many times while cells are full
+    // and 22,500 centres in an index sized for 16 make its lists and every
+    // reserved grid grow many times
     const index = new OccupancyIndex2d(16);
     const side = 150;
     for (let i = 0; i < side * side; i++) index.insert((i % side) - 75 + 0.5, Math.floor(i / side) - 75 + 0.5);
@@ -121,6 +123,29 @@ describe('OccupancyIndex2d', () => {
       }
       for (const e of expected) expect(listed.has(e)).toBe(true);
     }
+  });
+
+  it('answers the same whether sized for the whole cluster or grown from a small start', () => {
+    // the size given to the constructor only reserves memory: free radii and
+    // near lists (same centres, same order) must not depend on it
+    const rng = Random.forRun(6, 3);
+    const { x, y } = randomCluster(3000, 70, rng);
+    const small = new OccupancyIndex2d(16);
+    const sized = new OccupancyIndex2d(x.length);
+    for (let i = 0; i < x.length; i++) { small.insert(x[i], y[i]); sized.insert(x[i], y[i]); }
+    let exact = 0;
+    for (let q = 0; q < 3000; q++) {
+      const j = rng.nextBelow(x.length);
+      const wx = q % 2 === 0 ? x[j] + (rng.nextDouble() - 0.5) * 5 : (rng.nextDouble() - 0.5) * 300;
+      const wy = q % 2 === 0 ? y[j] + (rng.nextDouble() - 0.5) * 5 : (rng.nextDouble() - 0.5) * 300;
+      small.query(wx, wy);
+      sized.query(wx, wy);
+      expect(sized.free).toBe(small.free);
+      expect(sized.nearCount).toBe(small.nearCount);
+      for (let i = 0; i < small.nearCount; i++) expect(sized.nearId[i]).toBe(small.nearId[i]);
+      if (small.nearCount > 0) exact++;
+    }
+    expect(exact).toBeGreaterThan(500);
   });
 
   it('gives the same answer whatever the order of queries (no hidden state in results)', () => {
@@ -227,5 +252,33 @@ describe('WindowBitGrid', () => {
         expect(grid.get(ix, iy)).toBe(set.has(`${ix},${iy}`));
       }
     expect(ones).toBeGreaterThan(5000);
+  });
+});
+
+describe('reservedArray', () => {
+  it('reserves when it can and falls back to the needed length when the reservation is refused', () => {
+    expect(reservedArray((n) => new Uint8Array(n), 64, 4096).length).toBe(4096);
+    expect(reservedArray((n) => new Uint8Array(n), 64, 16).length).toBe(64);
+    // more than a typed array's 2^32 entries: RangeError, so the needed length
+    expect(reservedArray((n) => new Uint8Array(n), 64, 2 ** 33).length).toBe(64);
+    // other errors are not swallowed
+    expect(() => reservedArray(() => { throw new TypeError('boom'); }, 1, 2)).toThrow(TypeError);
+  });
+
+  it('gives grids whose cells read as never written, reserved or not', () => {
+    const reserved = new TiledInt32Grid(0, 4, 1000);
+    const plain = new TiledInt32Grid(-1, 4);
+    for (let i = 0; i < 300; i++) {
+      reserved.set(i * 9, -i * 7, i + 1);
+      plain.set(i * 9, -i * 7, i + 1);
+    }
+    for (let i = 0; i < 300; i++) {
+      expect(reserved.get(i * 9, -i * 7)).toBe(i + 1);
+      expect(reserved.get(i * 9 + 1, -i * 7)).toBe(0);
+      expect(plain.get(i * 9 + 1, -i * 7)).toBe(-1);
+    }
+    const bytes = new TiledByteGrid(4, 1000);
+    for (let i = 0; i < 300; i++) bytes.orBits(i * 9, i * 5, 3);
+    for (let i = 0; i < 300; i++) expect([bytes.get(i * 9, i * 5), bytes.get(i * 9, i * 5 + 1)]).toEqual([3, 0]);
   });
 });

@@ -4,12 +4,9 @@
  * mode and the farm on real Redis, the 3D summary fields, and the refusals.
  * Exact checks named beside each.
  */
-import { rmSync } from 'node:fs';
-import { Redis } from 'ioredis';
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { runEmbedded } from '../coordinator/embedded/index.js';
-import { launchEnsemble, runQueue } from '../coordinator/farm/queue.js';
-import { EnsembleStore } from '../coordinator/farm/store.js';
+import { launchEnsemble } from '../coordinator/farm/queue.js';
 import { farmSummary } from '../coordinator/farm/summary.js';
 import { analyseProbedCluster, clusterPrefix, probeTasksOfSet } from '../coordinator/harmonic/ensemble-probing.js';
 import { analyseResults } from '../coordinator/harmonic/probe-run.js';
@@ -26,18 +23,13 @@ import { planProbeJobs } from '../worker/probe/probe-2d.js';
 import { ProbeGeometry3d, runBallProbeJob, runProbe3dJob, type BallSet } from '../worker/probe/probe-3d.js';
 import { prepareProbe, probeSetDigest } from '../worker/probe/probe-set.js';
 import { ProbeJobFailed, ProbeThreadPool } from '../worker/runtime/probe-thread-pool.js';
-import { deleteKeys, REDIS_URL, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
+import { farmFixture } from './support/farm-fixture.js';
 
 const doc = {
   name: 'probe 3d ensemble test', model: 'dla-offlattice-3d', particles: 400, clusters: 4, seed: '2718',
   probe: { walkers: 4000, jobs: 2, at_sizes: [100, 200], q: [0, 1, 2, 3] },
 };
 const spec = validateSpec(doc);
-
-const dirs: string[] = [];
-afterAll(() => {
-  for (const d of dirs) rmSync(d, { recursive: true, force: true });
-});
 
 function directRecords(runIndex: number) {
   const k = createKernel(growthTaskOf(runTaskFor('x', spec, runIndex)));
@@ -219,27 +211,13 @@ describe('embedded probing of a 3D ensemble', () => {
 });
 
 describe('farm probing of a 3D ensemble (real Redis, two worker processes)', () => {
-  const prefix = uniquePrefix('probe3d');
-  const artifacts = tempDir('probe3d-artifacts');
-  dirs.push(artifacts);
-  const redis = new Redis(REDIS_URL, { maxRetriesPerRequest: null });
-  const store = new EnsembleStore(redis, prefix);
-  const queue = runQueue(redis, prefix);
-  const workers: WorkerProc[] = [];
-  afterAll(async () => {
-    for (const w of workers) await stopWorker(w);
-    await queue.close();
-    await deleteKeys(redis, prefix);
-    redis.disconnect();
-  });
+  const { store, queue, startWorker, waitDone } = farmFixture('probe3d');
 
   it('stores the embedded records once per (run, size) and the same 3D section', async () => {
-    workers.push(await startWorker({ prefix, artifacts }), await startWorker({ prefix, artifacts }));
+    await startWorker();
+    await startWorker();
     const id = await launchEnsemble(store, queue, spec);
-    const status = await waitFor('probed 3D ensemble done', async () => {
-      const st = await store.status(id);
-      return st?.state === 'done' ? st : undefined;
-    }, 120_000);
+    const status = await waitDone(id, 'probed 3D ensemble done', 120_000);
     expect(status.probes).toEqual({ planned: 12, done: 12, failed: 0, failures: [] });
     const local = await runEmbedded(spec, { ensembleId: 'local3d', threads: 2 });
     expect(await store.harmonicRecords(id)).toEqual(local.harmonic);

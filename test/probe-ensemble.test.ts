@@ -7,15 +7,12 @@
  * test/probe-kernel.test.ts, test/harmonic-measures.test.ts and
  * test/harmonic-growth.slow.test.ts.
  */
-import { axisOf } from '../worker/core/positions.js';
 import { rmSync } from 'node:fs';
-import { Redis } from 'ioredis';
 import { afterAll, describe, expect, it } from 'vitest';
 import { EmbeddedAborted, runEmbedded, type EmbeddedProgress } from '../coordinator/embedded/index.js';
 import { DirectoryArtifactStore } from '../coordinator/farm/artifacts.js';
 import { probeResultKey } from '../worker/runtime/job-contract.js';
-import { launchEnsemble, runQueue } from '../coordinator/farm/queue.js';
-import { EnsembleStore } from '../coordinator/farm/store.js';
+import { launchEnsemble } from '../coordinator/farm/queue.js';
 import { farmSummary } from '../coordinator/farm/summary.js';
 import { analyseProbedCluster, clusterPrefix, prefixDigest, probeSeedOf, probeTasksOf } from '../coordinator/harmonic/ensemble-probing.js';
 import { runTaskFor } from '../coordinator/plan.js';
@@ -25,7 +22,8 @@ import { decodeEnsembleSummary, growthTaskOf } from '../proto/convert.js';
 import { createKernel } from '../worker/models/registry.js';
 import { planProbeJobs, ProbeGeometry, runProbeJob, type DiskSet } from '../worker/probe/probe-2d.js';
 import { ProbeJobFailed, ProbeThreadPool } from '../worker/runtime/probe-thread-pool.js';
-import { deleteKeys, REDIS_URL, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
+import { stopWorker, tempDir, waitFor } from './farm-helpers.js';
+import { farmFixture } from './support/farm-fixture.js';
 
 const doc = {
   name: 'probe ensemble test', model: 'dla-offlattice-2d', particles: 700, clusters: 3, seed: '31337',
@@ -167,24 +165,13 @@ describe('probe threads', () => {
 });
 
 describe('farm probing (real Redis, two worker processes)', () => {
-  const prefix = uniquePrefix('probe');
-  const artifacts = tempDir('probe-artifacts');
-  dirs.push(artifacts);
-  const redis = new Redis(REDIS_URL, { maxRetriesPerRequest: null });
-  const store = new EnsembleStore(redis, prefix);
-  const queue = runQueue(redis, prefix);
-  const workers: WorkerProc[] = [];
-  afterAll(async () => {
-    for (const w of workers) await stopWorker(w);
-    await queue.close();
-    await deleteKeys(redis, prefix);
-    redis.disconnect();
-  });
+  const { artifacts, store, queue, workers, startWorker, waitDone } = farmFixture('probe');
 
   it('stores the embedded records once per (run, size), also when a worker is killed while probing', async () => {
     // bigger probes, so that a job is still running when the worker is killed
     const s = validateSpec({ ...doc, probe: { ...doc.probe, walkers: 60000, jobs: 6 } });
-    workers.push(await startWorker({ prefix, artifacts }), await startWorker({ prefix, artifacts }));
+    await startWorker();
+    await startWorker();
     const id = await launchEnsemble(store, queue, s);
     const cps = new DirectoryArtifactStore(artifacts);
     // kill one worker as soon as some probe job result is stored
@@ -193,11 +180,8 @@ describe('farm probing (real Redis, two worker processes)', () => {
       return false;
     }, 60_000);
     await stopWorker(workers.shift(), 'SIGKILL');
-    workers.push(await startWorker({ prefix, artifacts }));
-    const status = await waitFor('probed ensemble done', async () => {
-      const st = await store.status(id);
-      return st?.state === 'done' ? st : undefined;
-    }, 120_000);
+    await startWorker();
+    const status = await waitDone(id, 'probed ensemble done', 120_000);
     expect(status.probes).toEqual({ planned: 9, done: 9, failed: 0, failures: [] });
     const local = await runEmbedded(s, { ensembleId: 'local', threads: 2 });
     expect(await store.harmonicRecords(id)).toEqual(local.harmonic);

@@ -4,34 +4,16 @@
  * embedded path with the same set, seed, walkers and jobs, and bad requests
  * get one-line errors.
  */
-import { rmSync } from 'node:fs';
-import { Redis } from 'ioredis';
-import { afterAll, describe, expect, it } from 'vitest';
-import { runQueue } from '../coordinator/farm/queue.js';
-import { EnsembleStore } from '../coordinator/farm/store.js';
+import { describe, expect, it } from 'vitest';
 import { ProbeRequestStore, validateProbeRequest } from '../coordinator/farm/probe-requests.js';
 import { runProbes } from '../coordinator/harmonic/probe-run.js';
-import { buildApi } from '../coordinator/http/server.js';
-import { deleteKeys, REDIS_URL, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
+import { waitFor } from './farm-helpers.js';
+import { farmFixture } from './support/farm-fixture.js';
 
 const TOKEN = 'probe-request-token';
-const prefix = uniquePrefix('probereq');
-const artifacts = tempDir('probereq-artifacts');
-const redis = new Redis(REDIS_URL, { maxRetriesPerRequest: null });
-const store = new EnsembleStore(redis, prefix);
-const queue = runQueue(redis, prefix);
-const app = buildApi({ store, queue, token: TOKEN, limits: { maxTotalParticles: 1e9 } });
-const workers: WorkerProc[] = [];
+const { prefix, redis, startWorker, api } = farmFixture('probereq');
+const app = api({ token: TOKEN, limits: { maxTotalParticles: 1e9 } });
 const auth = { authorization: `Bearer ${TOKEN}` };
-
-afterAll(async () => {
-  for (const w of workers) await stopWorker(w);
-  await app.close();
-  await queue.close();
-  await deleteKeys(redis, prefix);
-  redis.disconnect();
-  rmSync(artifacts, { recursive: true, force: true });
-});
 
 describe('POST /probes', () => {
   it('refuses bad requests with one line naming the field', async () => {
@@ -62,7 +44,7 @@ describe('POST /probes', () => {
   });
 
   it('probes a point set on the farm with the same result as the embedded probe', async () => {
-    workers.push(await startWorker({ prefix, artifacts }));
+    await startWorker();
     // an L-shaped row of touching disks (our own demo shape)
     const x: number[] = [];
     const y: number[] = [];

@@ -1,8 +1,9 @@
 /** Sweep specs (coordinator/spec/sweep.ts): syntax, one-line errors, derived member seeds. */
 import { describe, expect, it } from 'vitest';
 import { isSweepDocument, launchDocumentProblems, MAX_SWEEP_VALUES, memberSeed, sweepToDocument, validateLaunch, type SweepSpec } from '../coordinator/spec/sweep.js';
-import { SpecError, validateSpec } from '../coordinator/spec/index.js';
+import { validateSpec } from '../coordinator/spec/index.js';
 import { Random } from '../worker/core/random.js';
+import { problemsOf } from './support/spec-problems.js';
 
 const base = { name: 'nr', model: 'dla-square', particles: 500, clusters: 3, seed: 42 };
 
@@ -10,16 +11,6 @@ function sweepOf(doc: unknown): SweepSpec {
   const l = validateLaunch(doc);
   if (l.kind !== 'sweep') throw new Error('not a sweep');
   return l.sweep;
-}
-
-function problemsOf(doc: unknown): string[] {
-  try {
-    validateLaunch(doc);
-  } catch (err) {
-    if (err instanceof SpecError) return err.problems;
-    throw err;
-  }
-  return [];
 }
 
 describe('sweep syntax', () => {
@@ -78,7 +69,7 @@ describe('sweep errors: one line naming the field, the value and what is allowed
   ];
   for (const [what, params, re] of cases) {
     it(what, () => {
-      const p = problemsOf({ ...base, params });
+      const p = problemsOf({ ...base, params }, validateLaunch);
       expect(p.length).toBeGreaterThan(0);
       expect(p[0]).toMatch(re);
       for (const line of p) expect(line).not.toContain('\n');
@@ -89,7 +80,7 @@ describe('sweep errors: one line naming the field, the value and what is allowed
 
   it('a member refused by the model size check names its element', () => {
     // dla-offlattice-2d: min_step at least (particles + 1 + launch_margin)·2^-40 (the float spacing), 9.1e-5 for 10^8 particles
-    const p = problemsOf({ ...base, model: 'dla-offlattice-2d', particles: 100_000_000, clusters: 1, params: { min_step: [1e-6, 0.5] } });
+    const p = problemsOf({ ...base, model: 'dla-offlattice-2d', particles: 100_000_000, clusters: 1, params: { min_step: [1e-6, 0.5] } }, validateLaunch);
     expect(p).toHaveLength(1);
     expect(p[0]).toMatch(/^params\.min_step\[0\]: 0\.000001 is out of range; allowed: a number from [0-9.e-]+ to 1 for 100000000 particles/);
   });
@@ -101,11 +92,11 @@ describe('sweep errors: one line naming the field, the value and what is allowed
   });
 
   it('other fields of the spec are still checked, once', () => {
-    expect(problemsOf({ ...base, particles: 1, params: { noise_reduction: [1, 2] } })).toEqual([expect.stringMatching(/^particles: 1 is out of range/)]);
+    expect(problemsOf({ ...base, particles: 1, params: { noise_reduction: [1, 2] } }, validateLaunch)).toEqual([expect.stringMatching(/^particles: 1 is out of range/)]);
   });
 
   it('the total work of all members counts against the ceiling', () => {
-    const p = problemsOf({ ...base, particles: 1000, clusters: 10, params: { noise_reduction: [1, 2, 3] } });
+    const p = problemsOf({ ...base, particles: 1000, clusters: 10, params: { noise_reduction: [1, 2, 3] } }, validateLaunch);
     expect(p).toEqual([]);
     expect(() => validateLaunch({ ...base, particles: 1000, clusters: 10, params: { noise_reduction: [1, 2, 3] } }, { maxTotalParticles: 25_000 })).toThrow(
       /^particles × clusters × values of params\.noise_reduction: 1000 × 10 × 3 = 30000 is above the total-work ceiling; allowed: at most 25000/,

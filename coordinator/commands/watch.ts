@@ -23,7 +23,8 @@ export function register(program: Command): void {
       // an ensemble id, or a sweep id (then the bar counts the particles of all its members)
       const read = async (): Promise<EnsembleStatus | SweepStatus | null> => (await readSweepStatus(farm.reader, farm.prefix, id)) ?? (await readEnsembleStatus(farm.reader, farm.prefix, id));
       let s: EnsembleStatus | SweepStatus = (await readSweepStatus(farm.reader, farm.prefix, id)) ?? (await requireStatus(farm.reader, farm.prefix, id));
-      const bar = createProgress({ total: s.particles.total, unit: 'particles', label: s.name, mode: opts.progress as 'auto' });
+      // lines mode: one line per refresh (the default of 10 s would hide the refreshes in between)
+      const bar = createProgress({ total: s.particles.total, unit: 'particles', label: s.name, mode: opts.progress as 'auto', lineIntervalSeconds: opts.every });
       let stop = false;
       const onSig = () => (stop = true);
       process.once('SIGINT', onSig);

@@ -5,7 +5,9 @@
  *
  * Logs: one JSON line per event on stderr (pino), at the level of
  * --log-level (default info, or TENDRIL_LOG_LEVEL): each run's start,
- * checkpoint, finish, hand-back, cancel and failure at info (failures at
+ * resume (particles and seconds of the checkpoint read), checkpoint
+ * (particles and seconds of the write), finish, hand-back, cancel and
+ * failure at info (failures at
  * warn), with ensembleId, runIndex, particles and workerId; other remarks
  * (queue errors, shutdown) as msg lines.
  *

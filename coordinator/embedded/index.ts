@@ -31,6 +31,7 @@
  */
 import { availableParallelism } from 'node:os';
 import { decodeCheckpoint, decodeRunResult, type RunResultData, type RunTaskData } from '../../proto/convert.js';
+import { checkpointFileCount } from '../../proto/checkpoint-file.js';
 import { axisOf } from '../../worker/core/positions.js';
 import { probedPointsOf } from '../../worker/probe/probe-set.js';
 import type { DiskSet } from '../../worker/probe/disk-set.js';
@@ -39,7 +40,7 @@ import type { ProbeResult } from '../../worker/probe/probe-2d.js';
 import { analyseProbedCluster, breakdownEtaOf, clusterPrefix, positionsOf, probeTasksOfSet } from '../harmonic/ensemble-probing.js';
 import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
 import { TaskThreadPool, type ThreadRun } from '../../worker/runtime/task-thread.js';
-import { runOne } from '../../worker/runtime/run-lifecycle.js';
+import { runOne, type CheckpointStore } from '../../worker/runtime/run-lifecycle.js';
 import { TaskRejected } from '../../worker/runtime/task-runner.js';
 import { EmbeddedRunSink, MemoryBatchStore, MemoryCheckpointStore } from './in-memory-stores.js';
 import { MemoryRunQueue } from './in-memory-queue.js';
@@ -129,7 +130,7 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
   const probeSizes = probeSizesOf(spec);
   const probePool = probe ? new ProbeThreadPool(pool.size) : null;
   const sink = new EmbeddedRunSink(opts.ensembleId, store, () => report());
-  const checkpoints = store ?? new MemoryCheckpointStore();
+  const checkpoints: CheckpointStore = store ?? new MemoryCheckpointStore();
   const { results, live } = sink;
   /** Clusters not yet probed: their final positions, or null when they wait in the store. */
   const finals = sink.finals;
@@ -208,9 +209,17 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
         .filter((run) => !results.has(run.runIndex))
         .map(async (run) => {
           if (opts.signal?.aborted) return;
-          const held = await checkpoints.get(checkpointKey(opts.ensembleId, run.runIndex));
-          if (held) {
-            try { replayed += decodeCheckpoint(held).state.count; } catch { /* the thread reports an unreadable checkpoint */ }
+          // the particles grown before: a checkpoint file's header alone (never the whole cluster), else the stored bytes
+          const key = checkpointKey(opts.ensembleId, run.runIndex);
+          const file = checkpoints.checkpointFile ? await checkpoints.checkpointFile(key) : null;
+          try {
+            if (file) replayed += file.exists ? checkpointFileCount(file.path) : 0;
+            else {
+              const held = await checkpoints.get(key);
+              if (held) replayed += decodeCheckpoint(held).state.count;
+            }
+          } catch {
+            // the thread reports an unreadable checkpoint
           }
           try {
             await runOne(run, {

@@ -5,6 +5,12 @@
  * interface. Writes are atomic (temporary file + rename), so a reader never
  * sees half a checkpoint, even when a worker is killed mid-write. The keys
  * are listed in the job contract (worker/runtime/job-contract.ts).
+ *
+ * Checkpoints of running runs do not pass through put/get as whole buffers:
+ * the growth thread writes each one straight into the key's file and a
+ * resumed run reads it back from there, in chunks (checkpointFile below,
+ * proto/checkpoint-file.ts), so a giant cluster's checkpoint is never one
+ * buffer in the worker, nor a base64 string, nor anything in Redis.
  */
 import { mkdir, readFile, rename, rm, stat, writeFile, readdir } from 'node:fs/promises';
 import { hostname } from 'node:os';
@@ -14,6 +20,13 @@ import { messageOf } from '../../proto/errors.js';
 
 export interface ArtifactStore {
   put(key: string, bytes: Uint8Array): Promise<void>;
+  /**
+   * The local file of `key`, for writers and readers that stream it in
+   * chunks (proto/checkpoint-file.ts: temporary file, flushed, renamed)
+   * instead of handing whole buffers to put/get; its folder exists once this
+   * resolves. `exists`: whether an artifact is stored under the key now.
+   */
+  checkpointFile(key: string): Promise<{ path: string; exists: boolean }>;
   /** The bytes, or null when there is no artifact under the key. */
   get(key: string): Promise<Uint8Array | null>;
   delete(key: string): Promise<void>;
@@ -47,6 +60,17 @@ export class DirectoryArtifactStore implements ArtifactStore {
       await rename(tmp, p);
     } catch (err) {
       await rm(tmp, { force: true });
+      throw err;
+    }
+  }
+
+  async checkpointFile(key: string): Promise<{ path: string; exists: boolean }> {
+    const p = this.path(key);
+    await mkdir(join(p, '..'), { recursive: true });
+    try {
+      return { path: p, exists: (await stat(p)).isFile() };
+    } catch (err) {
+      if ((err as NodeJS.ErrnoException).code === 'ENOENT') return { path: p, exists: false };
       throw err;
     }
   }

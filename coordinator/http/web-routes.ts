@@ -13,8 +13,9 @@
  *   GET /ensembles/:id/figures/:name.svg  one report figure (SVG)
  *   GET /ensembles/:id/cluster.png      run 0 grown again (coordinator/http/ensemble-figures.ts)
  *
- * The pages are static: their scripts read the JSON API that the CLI uses
- * (/ensembles, /ensembles/:id) and the figure routes above.
+ * The pages are static (each one the shared head of web/page.html around its
+ * own body, coordinator/http/web-page.ts): their scripts read the JSON API
+ * that the CLI uses (/ensembles, /ensembles/:id) and the figure routes above.
  */
 import { readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
@@ -25,6 +26,7 @@ import { ENSEMBLE_ID_PATTERN } from '../plan.js';
 import { parseRichText } from '../report/index.js';
 import type { SummaryOptions } from '../summary/index.js';
 import { EnsembleFigures } from './ensemble-figures.js';
+import { fillPage, PAGES, type PageName } from './web-page.js';
 import { TendrilError } from '../../proto/errors.js';
 
 const WEB_DIR = join(dirname(fileURLToPath(import.meta.url)), 'web');
@@ -52,10 +54,13 @@ class NotFound extends TendrilError {
 
 export function registerWebRoutes(app: FastifyInstance, o: WebOptions): void {
   const files = new Map<string, Buffer>();
+  const read = (name: string): string => readFileSync(join(WEB_DIR, name), 'utf8');
+  // a page is the shared shell around its own body (coordinator/http/web-page.ts)
   const asset = (name: string): Buffer => {
     let b = files.get(name);
     if (!b) {
-      b = readFileSync(join(WEB_DIR, name));
+      const page = Object.hasOwn(PAGES, name) ? PAGES[name as PageName] : undefined;
+      b = page ? Buffer.from(fillPage(read('page.html'), { title: page.title, script: page.script, body: read(page.body) })) : readFileSync(join(WEB_DIR, name));
       files.set(name, b);
     }
     return b;

@@ -29,9 +29,15 @@
  *              10^8): particles/s, jumps, peak RSS, bytes per particle,
  *              checkpoint write/read times; --kill-resume [--kill-size N]
  *              SIGKILLs a tendril grow after a checkpoint and resumes it
+ *   giant-farm test/bench/giant-farm-bench.ts (opt-in: only with --only giant-farm):
+ *              one 2D off-lattice DLA cluster of 10^7 (--farm-size) as one farm job
+ *              on one worker over Redis, SIGKILLed after two checkpoints and resumed
+ *              by a fresh worker: checkpoint write/read times, worker peak RSS and
+ *              CPU seconds, work lost, final state hash
  *   dbm        test/bench/dbm-bench.ts: off-lattice DBM at η = 0.5, 2 (to 10^5)
- *              and 4 (to 10^4): particles/s and walkers per particle against N,
- *              within --dbm-seconds per η (default 600)
+ *              and 4 (to 10^4): particles per CPU second and walkers per particle
+ *              against N, within --dbm-seconds CPU seconds per η (default 600);
+ *              --dbm-etas 0.5,2 runs only those η
  *   dbm-cap    test/bench/dbm-cap-bench.ts: total variation between the capped
  *              η < 1 growth law and the exact one on a 2000-disk cluster, per cap
  */
@@ -42,12 +48,13 @@ import { runProbeBenchmark } from './probe-bench.js';
 import { runProbeScalingBenchmark } from './probe-scaling-bench.js';
 import { runLatticeBenchmark } from './lattice-bench.js';
 import { giantOptionsFromArgs, runGiantBenchmark } from './giant-bench.js';
-import { runDbmBenchmark } from './dbm-bench.js';
+import { DBM_BENCH_PLAN, runDbmBenchmark } from './dbm-bench.js';
 import { runDbmCapBenchmark } from './dbm-cap-bench.js';
+import { giantFarmSizeFromArgs, runGiantFarmBenchmark } from './giant-farm-bench.js';
 
-const PARTS = ['growth', 'dla3d', 'aggregate', 'probe', 'probe-scaling', 'farm', 'eden', 'lattice', 'dbm', 'dbm-cap', 'dbm-lattice', 'giant'] as const;
+const PARTS = ['growth', 'dla3d', 'aggregate', 'probe', 'probe-scaling', 'farm', 'eden', 'lattice', 'dbm', 'dbm-cap', 'dbm-lattice', 'giant', 'giant-farm'] as const;
 /** Parts run only when named in --only (long, and not for CI). */
-const OPT_IN: readonly string[] = ['giant', 'dbm-lattice'];
+const OPT_IN: readonly string[] = ['giant', 'dbm-lattice', 'giant-farm'];
 /** Default sizes of the dla3d part. */
 const DLA3D_SIZES = [100_000, 1_000_000];
 type Part = (typeof PARTS)[number];
@@ -79,6 +86,13 @@ async function main(argv: string[]): Promise<number> {
         const given = argv.some((a) => a === '--sizes' || a.startsWith('--sizes='));
         await runGiantBenchmark(giantOptionsFromArgs(argv, given ? sizesFromArgs(argv) : undefined));
       }
+      else if (part === 'giant-farm') {
+        const r = await runGiantFarmBenchmark(giantFarmSizeFromArgs(argv), process.env.REDIS_URL);
+        process.stdout.write(
+          `giant-farm: ${r.particles} particles as one farm job: checkpoint ${(r.checkpointBytes / 1e6).toFixed(0)} MB written in ${r.checkpoints.map((c) => c.writeSeconds.toFixed(2)).join(', ')} s, read in ${r.resumeReadSeconds.toFixed(2)} s; lost ${r.lostParticles} particles (interval ${r.checkpointEveryParticles}); peak RSS ${r.firstWorker.peakRssMB} / ${r.secondWorker.peakRssMB} MiB; hash ${r.stateHash}\n`,
+        );
+        process.stdout.write(JSON.stringify(r) + '\n');
+      }
       else if (part === 'dla3d') {
         const given = argv.some((a) => a === '--sizes' || a.startsWith('--sizes='));
         await runGrowthBenchmark({ sizes: given ? sizesFromArgs(argv) : DLA3D_SIZES, model: 'dla-offlattice-3d' });
@@ -90,7 +104,14 @@ async function main(argv: string[]): Promise<number> {
         const k = argv.findIndex((a) => a === '--dbm-seconds');
         const budget = k >= 0 ? Number(argv[k + 1]) : 600;
         if (!(budget > 0)) throw new RangeError(`--dbm-seconds must be a positive number of seconds, got "${argv[k + 1]}"`);
-        runDbmBenchmark(budget);
+        const e = argv.findIndex((a) => a === '--dbm-etas');
+        let plan = DBM_BENCH_PLAN;
+        if (e >= 0) {
+          const etas = (argv[e + 1] ?? '').split(',').map(Number);
+          plan = DBM_BENCH_PLAN.filter((p) => etas.includes(p.eta));
+          if (plan.length !== etas.length) throw new RangeError(`--dbm-etas: "${argv[e + 1]}" is not a comma-separated list of η from ${DBM_BENCH_PLAN.map((p) => p.eta).join(', ')}`);
+        }
+        runDbmBenchmark(budget, plan);
       }
       else if (part === 'probe') {
         const r = runProbeBenchmark(1_000_000, 1_000_000);

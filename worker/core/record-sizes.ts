@@ -36,44 +36,14 @@ export function massRadiusRadii(maxRadius: number, perDecade: number): number[] 
 }
 
 /**
- * M(r): number of the given distances that are <= r, for each r of an
- * increasing list. One pass with a binary search per distance into the
- * radii (a histogram of the first radius each distance is <= to, then its
- * running sum): the same counts as sorting the distances, in O(n log k)
- * instead of O(n log n). A NaN distance is <= no radius and is not counted.
- */
-export function countWithin(distances: Float64Array, radii: number[]): number[] {
-  const k = radii.length;
-  const firstAtOrAbove = new Float64Array(k + 1);
-  for (let i = 0; i < distances.length; i++) {
-    const d = distances[i];
-    let lo = 0;
-    let hi = k;
-    // smallest j with d <= radii[j] (k when there is none)
-    while (lo < hi) {
-      const mid = (lo + hi) >> 1;
-      if (d <= radii[mid]) hi = mid;
-      else lo = mid + 1;
-    }
-    firstAtOrAbove[lo]++;
-  }
-  const counts: number[] = [];
-  let c = 0;
-  for (let j = 0; j < k; j++) {
-    c += firstAtOrAbove[j];
-    counts.push(c);
-  }
-  return counts;
-}
-
-/**
  * M(r) of dimension-strided centres straight from the positions: the number
  * of the first `count` centres whose distance from the origin,
  * sqrt(x² + y² (+ z²)) summed in axis order, is <= r, for each r of an
- * increasing list. The same counts as countWithin of those distances, without
- * holding them (a giant cluster would need 16 bytes per particle for the
- * distances and their sorted copy): each centre is binned at the first
- * radius that holds it, then the bins are summed.
+ * increasing list, without holding the distances (a giant cluster would
+ * need 8 bytes per particle for them): each centre is binned at the first
+ * radius that holds it (a binary search into the radii), then the bins are
+ * summed; the same counts as sorting the distances, in O(n log k) instead
+ * of O(n log n). A NaN distance is <= no radius and is not counted.
  */
 export function countCentresWithin(coords: Float64Array, dimension: number, count: number, radii: number[]): number[] {
   const m = radii.length;

@@ -7,13 +7,23 @@
  * All cell sides are powers of two, so cell coordinates floor(x · 2^-(k+1))
  * are computed exactly in floating point (and kept as int32: `| 0`, which is
  * exact for |x| < 2^31 and keeps V8 from boxing them).
- *  - Buckets (level 0, cells of side 2): each occupied cell points to a chain
- *    of buckets, each holding the arrival indices of up to 2 centres, in
- *    arrival order. The coordinates themselves live once, in arrival order,
- *    in an interleaved array (x0, y0, x1, y1, …) that the index reads: the
- *    growth kernel's own positions, or an array the index keeps when none is
- *    given. Keeping only indices in the buckets (4 bytes per centre instead
- *    of 16) is what keeps a giant cluster under 48 bytes per particle. When the walker's level-0 cell is marked, the
+ *  - Lists (level 0, cells of side 2): each occupied cell holds (one plus)
+ *    the arrival index of its newest centre, and next[i] is the arrival index
+ *    of the centre inserted into the same cell before centre i (−1: none),
+ *    so a cell's centres are listed newest first. The coordinates themselves
+ *    live once, in arrival order, in an interleaved array (x0, y0, x1, y1, …)
+ *    that the index reads: the growth kernel's own positions, or an array the
+ *    index keeps when none is given. `next` takes 4 bytes per centre and is
+ *    sized once for the expected number of particles, and the tiled grids
+ *    are reserved for the tiles a cluster of that size uses (their pages
+ *    become resident only when used), so a growing cluster's index is never
+ *    copied: this is what keeps a giant cluster under 48 bytes per particle.
+ *    The order in which a scan lists centres (changed from an earlier
+ *    layout; every pinned state hash stayed the same) changes neither the
+ *    free radius (a minimum) nor a straight step's contact distance
+ *    (worker/walkers/segment-contact-2d.ts: the smallest one); only an exact
+ *    tie between two disks, of probability zero, could name another disk.
+ *    When the walker's level-0 cell is marked, the
  *    3 × 3 block of cells around it is scanned exactly, visiting only the
  *    cells that hold centres (a bit grid of them, worker/index/window-bit-grid.ts,
  *    gives a row of the block in one word). The centres found are kept until
@@ -38,7 +48,6 @@
  * of particles, not with the area.
  */
 
-import { TILE_CELLS } from './tile-directory.js';
 import { TiledByteGrid, TiledInt32Grid } from './tiled-grids.js';
 import { CORE_MASK, WINDOW_RADIUS, WindowBitGrid } from './window-bit-grid.js';
 
@@ -91,8 +100,16 @@ for (let dy = -GAP_RADIUS; dy <= GAP_RADIUS; dy++)
     while (u < GAP_STEPS && (DILATION * GAP_PER_SIDE + u + 1) ** 2 <= gap2) u++;
     CLOSENESS[(dy + GAP_RADIUS) * (2 * GAP_RADIUS + 1) + dx + GAP_RADIUS] = u < 0 ? GAP_STEPS : GAP_STEPS - u;
   }
-/** Centres per bucket (a cell of side 2 holds two on average in a DLA cluster; fuller cells chain buckets). */
-const BUCKET = 2;
+/**
+ * Tiles reserved per expected particle in each grid (see the constructor):
+ * about twice the tiles per particle of a 10^6-particle off-lattice DLA
+ * cluster (seed 7: 0.0256 list tiles, 0.0330 level-0 and 0.0103 level-1
+ * mark tiles, 0.0089 bit-grid tiles per particle; measured on 2026-12-03).
+ * A reservation costs address space only; a denser cluster grows the grid.
+ */
+const RESERVE_HEADS = 0.05;
+const RESERVE_MARKS = 0.066;
+const RESERVE_HELD = 0.018;
 /** At most this many centres are returned by a scan (a 6 × 6 block holds far fewer unit disks). */
 const MAX_NEAR = 256;
 /** Room for the ring's centres (16 cells of side 2 hold at most about 75 unit disks); grown if ever exceeded. */
@@ -132,16 +149,13 @@ export class OccupancyIndex2d {
   private ringY = new Float64Array(RING_START);
   private ringCount = -1;
 
-  /** Level-0 cell → newest bucket of its chain (-1: none). */
+  /** Level-0 cell → 1 + arrival index of its newest centre (0: none). */
   private heads: TiledInt32Grid;
   /** Centres in arrival order, interleaved (x0, y0, x1, y1, …): the owner's array, or the index's own (ownsXy). */
   private xy: Float64Array;
   private readonly ownsXy: boolean;
-  /** ids[2b + j]: arrival index of the j-th centre of bucket b (j < fill[b]). */
-  private ids: Int32Array;
-  private fill: Uint8Array;
-  private chain: Int32Array;
-  private buckets = 0;
+  /** next[i]: arrival index of the centre inserted into centre i's cell before it (−1: none). */
+  private next: Int32Array;
   /** marks[k]: mark cells of side 2^(k+1), k = 0..MAX_LEVEL. */
   private marks: TiledByteGrid[] = [];
   /** One bit per level-0 cell, set when the cell holds a centre (the HOLDS bits of marks[0], laid out for window reads). */
@@ -157,18 +171,21 @@ export class OccupancyIndex2d {
    * and never writes them. Without it the index keeps its own copy.
    */
   constructor(expectedParticles: number, positions?: Float64Array) {
-    const expectBuckets = 1024;
+    const n = Math.max(16, expectedParticles);
     this.ownsXy = positions === undefined;
-    this.xy = positions ?? new Float64Array(2 * Math.max(16, Math.min(expectedParticles, 1 << 20)));
-    this.ids = new Int32Array(expectBuckets * BUCKET);
-    this.fill = new Uint8Array(expectBuckets);
-    this.chain = new Int32Array(expectBuckets);
-    this.heads = new TiledInt32Grid(-1, Math.max(16, expectedParticles >> 6));
-    this.held0 = new WindowBitGrid(Math.max(16, expectedParticles >> 8));
-    let expect = Math.max(16, expectedParticles >> 5);
+    this.xy = positions ?? new Float64Array(2 * Math.min(n, 1 << 20));
+    // zero-filled and written in arrival order: only the pages in use are resident
+    this.next = new Int32Array(n);
+    // directories sized for about as many tiles as a DLA cluster uses, pools
+    // reserved for about twice that (address space only until used)
+    this.heads = new TiledInt32Grid(0, Math.max(16, n >> 5), Math.ceil(n * RESERVE_HEADS));
+    this.held0 = new WindowBitGrid(Math.max(16, n >> 7), Math.ceil(n * RESERVE_HELD));
+    let expect = Math.max(16, n >> 5);
+    let reserve = n * RESERVE_MARKS;
     for (let k = 0; k <= MAX_LEVEL; k++) {
-      this.marks.push(new TiledByteGrid(Math.max(4, expect)));
+      this.marks.push(new TiledByteGrid(Math.max(4, expect), Math.ceil(reserve)));
       expect = expect >> 2;
+      reserve = reserve / 3;
     }
   }
 
@@ -179,13 +196,10 @@ export class OccupancyIndex2d {
    * `size` is 0 and queries answer as for no centres.
    */
   release(): void {
-    this.heads = new TiledInt32Grid(-1, 4);
+    this.heads = new TiledInt32Grid(0, 4);
     this.held0 = new WindowBitGrid(4);
     this.marks = this.marks.map(() => new TiledByteGrid(4));
-    this.ids = new Int32Array(0);
-    this.fill = new Uint8Array(0);
-    this.chain = new Int32Array(0);
-    this.buckets = 0;
+    this.next = new Int32Array(0);
     this.count = 0;
     this.scanCx = NO_CELL;
     if (this.ownsXy) this.xy = new Float64Array(0);
@@ -196,9 +210,9 @@ export class OccupancyIndex2d {
     return this.count;
   }
 
-  /** Bytes held by the index. */
+  /** Bytes the index has allocated, reservations included (pages of a reservation no tile uses never become resident). */
   get bytes(): number {
-    let b = this.heads.bytes + this.ids.byteLength + this.fill.byteLength + this.chain.byteLength + (this.ownsXy ? this.xy.byteLength : 0);
+    let b = this.heads.bytes + this.next.byteLength + (this.ownsXy ? this.xy.byteLength : 0);
     for (const t of this.marks) b += t.bytes;
     b += this.held0.bytes;
     return b;
@@ -220,16 +234,11 @@ export class OccupancyIndex2d {
     this.scanCx = NO_CELL;
     const cx = Math.floor(px * 0.5) | 0;
     const cy = Math.floor(py * 0.5) | 0;
-    let b = this.heads.get(cx, cy);
-    if (b < 0 || this.fill[b] === BUCKET) {
-      const nb = this.newBucket();
-      // newBucket may have rewritten the buckets (renumbering them): read the head again
-      this.chain[nb] = this.heads.get(cx, cy);
-      this.heads.set(cx, cy, nb);
-      b = nb;
-    }
-    this.ids[BUCKET * b + this.fill[b]] = id;
-    this.fill[b]++;
+    if (id >= this.next.length) this.next = grownInt32(this.next, id + 1);
+    const cell = this.heads.cellIndex(cx, cy);
+    const pool = this.heads.pool;
+    this.next[id] = pool[cell] - 1;
+    pool[cell] = id + 1;
 
     let scale = 0.5;
     for (let k = 0; k <= MAX_LEVEL; k++, scale *= 0.5) {
@@ -258,48 +267,6 @@ export class OccupancyIndex2d {
           }
         }
     }
-  }
-
-  private newBucket(): number {
-    // the bucket arrays grow by a quarter at a time, and each growth
-    // rewrites them in spatial order
-    if (this.buckets >= this.fill.length) this.compact(Math.ceil(this.fill.length * 1.25) + 64);
-    return this.buckets++;
-  }
-
-  /**
-   * Rewrite the buckets in spatial order (tile by tile, cell by cell, each
-   * cell's chain kept in its order), so that an exact scan reads a few
-   * neighbouring cache lines instead of buckets scattered in arrival order.
-   * Scan results are unchanged: every cell lists the same centres in the
-   * same order. Done each time the bucket arrays grow (by a quarter), so
-   * the total cost stays proportional to the number of particles.
-   */
-  private compact(cap: number): void {
-    const ids = new Int32Array(cap * BUCKET);
-    const fill = new Uint8Array(cap);
-    const chain = new Int32Array(cap);
-    const pool = this.heads.pool;
-    const cells = this.heads.dir.count * TILE_CELLS;
-    let nb = 0;
-    for (let c = 0; c < cells; c++) {
-      let b = pool[c];
-      if (b < 0) continue;
-      pool[c] = nb;
-      let prev = -1;
-      while (b >= 0) {
-        ids.set(this.ids.subarray(BUCKET * b, BUCKET * b + BUCKET), BUCKET * nb);
-        fill[nb] = this.fill[b];
-        if (prev >= 0) chain[prev] = nb;
-        prev = nb;
-        nb++;
-        b = this.chain[b];
-      }
-      chain[prev] = -1;
-    }
-    this.ids = ids;
-    this.fill = fill;
-    this.chain = chain;
   }
 
   /** Lower bound on (distance from (wx, wy) to the nearest centre) − 1; see `query`. */
@@ -374,10 +341,8 @@ export class OccupancyIndex2d {
     } else {
       const heads = this.heads;
       const xy = this.xy;
-      const fill = this.fill;
-      const chain = this.chain;
+      const next = this.next;
       const nearId = this.nearId;
-      const ids = this.ids;
       n = 0;
       let complete = true;
       // only the cells that hold centres (their bits in held0), row by row
@@ -389,25 +354,19 @@ export class OccupancyIndex2d {
         while (cells !== 0) {
           const ix = cx - 1 + (31 - clz32(cells & -cells));
           cells &= cells - 1;
-          let b = heads.get(ix, cy + dy);
-          while (b >= 0) {
-            const end = BUCKET * b + fill[b];
-            for (let o = BUCKET * b; o < end; o++) {
-              const id = ids[o];
-              const px = xy[2 * id];
-              const py = xy[2 * id + 1];
-              const ddx = px - wx;
-              const ddy = py - wy;
-              const d2 = ddx * ddx + ddy * ddy;
-              if (d2 < best) best = d2;
-              if (n < MAX_NEAR) {
-                nearX[n] = px;
-                nearY[n] = py;
-                nearId[n] = id;
-                n++;
-              } else complete = false;
-            }
-            b = chain[b];
+          for (let id = heads.get(ix, cy + dy) - 1; id >= 0; id = next[id]) {
+            const px = xy[2 * id];
+            const py = xy[2 * id + 1];
+            const ddx = px - wx;
+            const ddy = py - wy;
+            const d2 = ddx * ddx + ddy * ddy;
+            if (d2 < best) best = d2;
+            if (n < MAX_NEAR) {
+              nearX[n] = px;
+              nearY[n] = py;
+              nearId[n] = id;
+              n++;
+            } else complete = false;
           }
         }
       }
@@ -447,9 +406,7 @@ export class OccupancyIndex2d {
   private gatherRing(cx: number, cy: number): void {
     const heads = this.heads;
     const xy = this.xy;
-    const ids = this.ids;
-    const fill = this.fill;
-    const chain = this.chain;
+    const next = this.next;
     let ringX = this.ringX;
     let ringY = this.ringY;
     let m = 0;
@@ -462,23 +419,17 @@ export class OccupancyIndex2d {
       while (cells !== 0) {
         const ix = cx - 2 + (31 - clz32(cells & -cells));
         cells &= cells - 1;
-        let b = heads.get(ix, cy + dy);
-        while (b >= 0) {
-          const e = BUCKET * b + fill[b];
-          for (let o = BUCKET * b; o < e; o++) {
-            if (m === ringX.length) {
-              // only for centres packed closer than unit disks allow
-              this.ringX = growCopy(ringX);
-              this.ringY = growCopy(ringY);
-              ringX = this.ringX;
-              ringY = this.ringY;
-            }
-            const id = ids[o];
-            ringX[m] = xy[2 * id];
-            ringY[m] = xy[2 * id + 1];
-            m++;
+        for (let id = heads.get(ix, cy + dy) - 1; id >= 0; id = next[id]) {
+          if (m === ringX.length) {
+            // only for centres packed closer than unit disks allow
+            this.ringX = growCopy(ringX);
+            this.ringY = growCopy(ringY);
+            ringX = this.ringX;
+            ringY = this.ringY;
           }
-          b = chain[b];
+          ringX[m] = xy[2 * id];
+          ringY[m] = xy[2 * id + 1];
+          m++;
         }
       }
     }
@@ -495,6 +446,13 @@ export class OccupancyIndex2d {
 /** A copy of `a` with room for at least `need` entries (a quarter more at a time, so that the slack stays small). */
 function grownFloat64(a: Float64Array, need: number): Float64Array {
   const b = new Float64Array(Math.max(need, Math.ceil(a.length * 1.25)));
+  b.set(a);
+  return b;
+}
+
+/** A copy of `a` with room for at least `need` entries (a quarter more at a time). */
+function grownInt32(a: Int32Array, need: number): Int32Array {
+  const b = new Int32Array(Math.max(need, Math.ceil(a.length * 1.25)));
   b.set(a);
   return b;
 }

@@ -3,6 +3,15 @@
  * values (list heads) and byte cell values (occupancy marks). Each pool is
  * one typed array with 64 cells per tile, grown by poolGrowth (a quarter at
  * a time once large, so a giant cluster carries little slack).
+ *
+ * A pool can also be *reserved* for more tiles than expected (`reserveTiles`)
+ * when its blank value is 0: a large zero-filled typed array is mapped by
+ * the allocator without touching its pages (measured on Node 20 / Linux:
+ * allocating a 1 GB Int32Array left the resident size unchanged), and tiles
+ * are numbered in allocation order, so only the pages of the tiles in use
+ * become resident. A pool reserved for every tile a run will need never
+ * grows, so it is never copied: no old and new copies side by side, no
+ * discarded array waiting for the garbage collector.
  */
 
 import { TILE_CELLS, TILE_MASK, TILE_SHIFT, TileDirectory, cellInTile } from './tile-directory.js';
@@ -18,18 +27,42 @@ export function poolGrowth(length: number, tile: number, unit: number): number {
   return tiles * unit;
 }
 
+/**
+ * A zero-filled typed array of `reserve` entries, or of `need` entries when
+ * the system refuses the reservation (e.g. with strict overcommit, where
+ * address space counts as memory) or it exceeds a typed array's 2^32
+ * entries; a grid then grows as it would without a reservation.
+ */
+export function reservedArray<T>(make: (length: number) => T, need: number, reserve: number): T {
+  if (reserve <= need) return make(need);
+  try {
+    return make(reserve);
+  } catch (e) {
+    if (e instanceof RangeError) return make(need);
+    throw e;
+  }
+}
+
 export class TiledInt32Grid {
   readonly dir: TileDirectory;
   /** Cell values, 64 per tile (re-read after a write: it may be reallocated). */
   pool: Int32Array;
 
-  /** `blank` is the value of a cell never written. */
+  /**
+   * `blank` is the value of a cell never written. With blank 0 the pool is
+   * reserved for `reserveTiles` tiles (default `expectedTiles`) without
+   * becoming resident (see the file's comment); the directory is sized for
+   * `expectedTiles`.
+   */
   constructor(
     private readonly blank: number,
     expectedTiles: number,
+    reserveTiles = expectedTiles,
   ) {
     this.dir = new TileDirectory(expectedTiles);
-    this.pool = new Int32Array(Math.max(4, expectedTiles) * TILE_CELLS).fill(blank);
+    const tiles = Math.max(4, expectedTiles);
+    this.pool = reservedArray((n) => new Int32Array(n), tiles * TILE_CELLS, blank === 0 ? reserveTiles * TILE_CELLS : 0);
+    if (blank !== 0) this.pool.fill(blank);
   }
 
   get bytes(): number {
@@ -55,7 +88,8 @@ export class TiledInt32Grid {
   cellIndex(ix: number, iy: number): number {
     const t = this.dir.findOrAdd(ix >> TILE_SHIFT, iy >> TILE_SHIFT);
     if ((t + 1) * TILE_CELLS > this.pool.length) {
-      const bigger = new Int32Array(poolGrowth(this.pool.length, t, TILE_CELLS)).fill(this.blank);
+      const bigger = new Int32Array(poolGrowth(this.pool.length, t, TILE_CELLS));
+      if (this.blank !== 0) bigger.fill(this.blank);
       bigger.set(this.pool);
       this.pool = bigger;
     }
@@ -101,9 +135,10 @@ export class TiledByteGrid {
   /** Cell values, 64 per tile (one cache line); never-written cells are 0. */
   pool: Uint8Array;
 
-  constructor(expectedTiles: number) {
+  /** The pool is reserved for `reserveTiles` tiles (default `expectedTiles`; see the file's comment), the directory sized for `expectedTiles`. */
+  constructor(expectedTiles: number, reserveTiles = expectedTiles) {
     this.dir = new TileDirectory(expectedTiles);
-    this.pool = new Uint8Array(Math.max(4, expectedTiles) * TILE_CELLS);
+    this.pool = reservedArray((n) => new Uint8Array(n), Math.max(4, expectedTiles) * TILE_CELLS, reserveTiles * TILE_CELLS);
   }
 
   get bytes(): number {

@@ -11,7 +11,7 @@
  */
 
 import { TileDirectory } from './tile-directory.js';
-import { poolGrowth } from './tiled-grids.js';
+import { poolGrowth, reservedArray } from './tiled-grids.js';
 
 /** Cells of a window on each side of its centre cell. */
 export const WINDOW_RADIUS = 2;
@@ -27,9 +27,14 @@ export class WindowBitGrid {
   /** Tile t's rows are words[t·TILE_ROWS ..]; row r, bit c is cell (16·tx − WINDOW_RADIUS + c, 16·ty − WINDOW_RADIUS + r). Re-read after a set. */
   words: Int32Array;
 
-  constructor(expectedTiles: number) {
+  /**
+   * The directory is sized for `expectedTiles`; the words are reserved for
+   * `reserveTiles` (default `expectedTiles`) tiles: zero-filled, they become
+   * resident only as tiles are used (worker/index/tiled-grids.ts explains).
+   */
+  constructor(expectedTiles: number, reserveTiles = expectedTiles) {
     this.dir = new TileDirectory(expectedTiles);
-    this.words = new Int32Array(Math.max(4, expectedTiles) * TILE_ROWS);
+    this.words = reservedArray((n) => new Int32Array(n), Math.max(4, expectedTiles) * TILE_ROWS, reserveTiles * TILE_ROWS);
   }
 
   get bytes(): number {

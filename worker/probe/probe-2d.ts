@@ -132,28 +132,14 @@ export interface ProbeResult {
 /** A planar set of disks, in original coordinates. */
 export type { DiskSet } from './disk-set.js';
 import type { DiskSet } from './disk-set.js';
+import { setDigest } from './set-digest.js';
 
 /**
  * Digest of a disk set: "n-" + FNV-1a (32 bit) over the float64 words of
- * x, y and r of every disk in order. A probe task carries it, so a job never
- * runs on a set other than the one it was planned for; cheap enough to
- * compute without building the geometry.
+ * x, y and r of every disk in order (worker/probe/set-digest.ts).
  */
 export function diskSetDigest(set: DiskSet): string {
-  let h = 0x811c9dc5;
-  const word = new Float64Array(1);
-  const words = new Uint32Array(word.buffer);
-  const mixIn = (v: number): void => {
-    word[0] = v;
-    h = Math.imul(h ^ words[0], 0x01000193);
-    h = Math.imul(h ^ words[1], 0x01000193);
-  };
-  for (let i = 0; i < set.count; i++) {
-    mixIn(set.x[i]);
-    mixIn(set.y[i]);
-    mixIn(typeof set.r === 'number' ? set.r : set.r[i]);
-  }
-  return `${set.count}-${(h >>> 0).toString(16).padStart(8, '0')}`;
+  return setDigest(set.count, [set.x, set.y, set.r], [], '');
 }
 
 /** The prepared set: scaled coordinates and the occupancy index, reusable by many jobs. */
@@ -350,6 +336,22 @@ export function runProbeJob(geometry: ProbeGeometry, task: ProbeTask): ProbeResu
   counters.jumps = walk.jumps;
   counters.shortSteps = walk.shortSteps;
   counters.returns = walk.returns;
+  return probeResultOf(task, counts, { x: Array.from(cX), y: Array.from(cY), id: Array.from(cId) }, counters);
+}
+
+/**
+ * The result of a probe job from its dense hit counts (kept sparse: the
+ * points hit, ascending, with their counts), its sampled contacts and
+ * counters; launchRadius for ball sets only. Used by the disk, ball and
+ * lattice jobs alike.
+ */
+export function probeResultOf(
+  task: ProbeTask,
+  counts: Float64Array,
+  contacts: { x: number[]; y: number[]; id: number[] },
+  counters: ProbeResult['counters'],
+  launchRadius?: number,
+): ProbeResult {
   const hitIds: number[] = [];
   const hitCounts: number[] = [];
   for (let i = 0; i < counts.length; i++) if (counts[i] > 0) { hitIds.push(i); hitCounts.push(counts[i]); }
@@ -361,10 +363,11 @@ export function runProbeJob(geometry: ProbeGeometry, task: ProbeTask): ProbeResu
     geometryDigest: task.geometryDigest,
     hitIds,
     hitCounts,
-    contactX: Array.from(cX),
-    contactY: Array.from(cY),
-    contactId: Array.from(cId),
+    contactX: contacts.x,
+    contactY: contacts.y,
+    contactId: contacts.id,
     counters,
+    ...(launchRadius === undefined ? {} : { launchRadius }),
   };
 }
 

@@ -50,8 +50,8 @@ import { returnToSphere, returned3 } from '../walkers/poisson-return-3d.js';
 import { Random, STREAM_PROBE, parseSeed } from '../core/random.js';
 import { direction3, sampleDirection3d } from '../walkers/uniform-direction-3d.js';
 import { firstContact3d } from '../walkers/segment-contact-3d.js';
-import { ENGINE_VERSION } from '../core/engine-version.js';
-import { checkProbeTask, type ProbeResult, type ProbeTask } from './probe-2d.js';
+import { checkProbeTask, probeResultOf, type ProbeResult, type ProbeTask } from './probe-2d.js';
+import { setDigest } from './set-digest.js';
 
 /** Default straight-step length near contact, in units of the ball radius. */
 export const DEFAULT_PROBE3D_MIN_STEP = 0.02;
@@ -135,25 +135,12 @@ export class ProbeGeometry3d {
 
 /**
  * Digest of a ball set: "n-b" + FNV-1a (32 bit) over the float64 words of
- * x, y, z of every ball in order, then the radius. The "b" keeps a ball set's
- * digest apart from a disk set's (worker/probe/probe-2d.ts diskSetDigest).
+ * x, y, z of every ball in order, then the radius (worker/probe/set-digest.ts).
+ * The "b" keeps a ball set's digest apart from a disk set's
+ * (worker/probe/probe-2d.ts diskSetDigest).
  */
 export function ballSetDigest(set: BallSet): string {
-  let h = 0x811c9dc5;
-  const word = new Float64Array(1);
-  const words = new Uint32Array(word.buffer);
-  const mixIn = (v: number): void => {
-    word[0] = v;
-    h = Math.imul(h ^ words[0], 0x01000193);
-    h = Math.imul(h ^ words[1], 0x01000193);
-  };
-  for (let i = 0; i < set.count; i++) {
-    mixIn(set.x[i]);
-    mixIn(set.y[i]);
-    mixIn(set.z[i]);
-  }
-  mixIn(set.radius);
-  return `${set.count}-b${(h >>> 0).toString(16).padStart(8, '0')}`;
+  return setDigest(set.count, [set.x, set.y, set.z], [set.radius], 'b');
 }
 
 export function checkProbe3dTask(t: Probe3dTask): void {
@@ -250,23 +237,7 @@ export function runBallProbeJob(g: ProbeGeometry3d, task: ProbeTask): ProbeResul
   const rng = Random.forRun(task.seed, task.jobIndex, STREAM_PROBE);
   const counts = new Float64Array(g.count);
   const c = walkProbes(g, rng, task.walkers, task.minStep, task.launchMargin, counts);
-  const hitIds: number[] = [];
-  const hitCounts: number[] = [];
-  for (let i = 0; i < counts.length; i++) if (counts[i] > 0) { hitIds.push(i); hitCounts.push(counts[i]); }
-  return {
-    engineVersion: ENGINE_VERSION,
-    seed: task.seed,
-    jobIndex: task.jobIndex,
-    walkers: task.walkers,
-    geometryDigest: task.geometryDigest,
-    hitIds,
-    hitCounts,
-    contactX: [],
-    contactY: [],
-    contactId: [],
-    counters: { jumps: c.jumps, shortSteps: c.shortSteps, returns: c.returns },
-    launchRadius: (g.extent + task.launchMargin) * g.radius,
-  };
+  return probeResultOf(task, counts, { x: [], y: [], id: [] }, { jumps: c.jumps, shortSteps: c.shortSteps, returns: c.returns }, (g.extent + task.launchMargin) * g.radius);
 }
 
 /** Newtonian capacity from probe counts (units: a ball of radius a has capacity a), with its binomial standard error. */

@@ -34,13 +34,12 @@
  * Jobs and determinism as for disks (worker/probe/probe-2d.ts): job j uses
  * Random.forRun(seed, j, STREAM_PROBE) and is a function of (set, task).
  */
-import { ENGINE_VERSION } from '../core/engine-version.js';
 import { Random, STREAM_PROBE } from '../core/random.js';
 import { TiledInt32Grid } from '../index/tiled-grids.js';
 import { LatticeWalk } from '../lattice/lattice-walk.js';
 import { SQUARE, TRIANGULAR, type PlanarLattice, planeOf, siteOf, toPlane, toSite } from '../lattice/planar-lattice.js';
 import type { DiskSet } from './disk-set.js';
-import { checkProbeTask, diskSetDigest, type ProbeResult, type ProbeTask } from './probe-2d.js';
+import { checkProbeTask, diskSetDigest, probeResultOf, type ProbeResult, type ProbeTask } from './probe-2d.js';
 
 /** Launch margin of lattice probes, lattice spacings (the lattice DLA kernel's default). */
 export const LATTICE_PROBE_LAUNCH_MARGIN = 8;
@@ -160,11 +159,5 @@ export function runLatticeProbeJob(g: LatticeProbeGeometry, task: ProbeTask): Pr
       cId.push(id);
     }
   }
-  const hitIds: number[] = [];
-  const hitCounts: number[] = [];
-  for (let k = 0; k < counts.length; k++) if (counts[k] > 0) { hitIds.push(k); hitCounts.push(counts[k]); }
-  return {
-    engineVersion: ENGINE_VERSION, seed: task.seed, jobIndex: task.jobIndex, walkers: task.walkers, geometryDigest: task.geometryDigest,
-    hitIds, hitCounts, contactX: cX, contactY: cY, contactId: cId, counters,
-  };
+  return probeResultOf(task, counts, { x: cX, y: cY, id: cId }, counters);
 }

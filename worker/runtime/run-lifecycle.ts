@@ -5,7 +5,9 @@
  * embedded mode (coordinator/embedded/, with in-memory implementations and
  * the directory store).
  *
- *   resume from the newest checkpoint (CheckpointStore), grow in a thread,
+ *   resume from the newest checkpoint (CheckpointStore; a store in a folder
+ *   has the thread read and write the checkpoint file itself, streamed),
+ *   grow in a thread,
  *   checkpoint while growing, report progress and watch for cancellation
  *   every progressIntervalMs; when done: hand over the final positions if
  *   the task keeps them, store the result once, drop the checkpoint; when
@@ -41,11 +43,19 @@ export interface CheckpointStore {
   put(key: string, bytes: Uint8Array): Promise<void>;
   get(key: string): Promise<Uint8Array | null>;
   delete(key: string): Promise<void>;
+  /**
+   * Stores kept in a folder: the local file of `key` (its folder created)
+   * and whether it exists. The growth thread then writes every checkpoint of
+   * the run straight into it and resumes by reading it, streamed in chunks
+   * (proto/checkpoint-file.ts), so no checkpoint crosses between the threads
+   * as a buffer. Stores without it (in memory) get and put whole buffers.
+   */
+  checkpointFile?(key: string): Promise<{ path: string; exists: boolean }>;
 }
 
 /** One event in the life of a run on this worker (for structured logs: one line each). */
 export interface RunEvent {
-  event: 'run started' | 'run checkpointed' | 'run finished' | 'run handed back' | 'run cancelled' | 'run failed';
+  event: 'run started' | 'run resumed' | 'run checkpointed' | 'run finished' | 'run handed back' | 'run cancelled' | 'run failed';
   ensembleId: string;
   runIndex: number;
   /** Particles of the run at the event (for 'run started': 0, or null when it resumes from a checkpoint). */
@@ -55,6 +65,7 @@ export interface RunEvent {
   /** 'run finished': state hash, whether it was counted (false: stored before by another worker), wall seconds. */
   stateHash?: string;
   counted?: boolean;
+  /** 'run finished': wall seconds of the run here; 'run checkpointed' and 'run resumed' of a checkpoint file: seconds its write or read took. */
   seconds?: number;
   /** 'run failed': why. */
   reason?: string;
@@ -95,21 +106,26 @@ export async function runOne(run: RunTaskData, o: RunLifecycleOptions): Promise<
   const key = checkpointKey(run.ensembleId, run.runIndex);
   // atomic with the result check: a run another worker has just finished is not marked running nor grown again
   if (!(await sink.runStarted(run.ensembleId, run.runIndex, o.workerId))) return 'skipped';
-  const checkpoint = (await checkpoints.get(key)) ?? undefined;
+  // a store in a folder: the thread reads and writes the file itself (streamed); else whole buffers pass through here
+  const file = checkpoints.checkpointFile ? await checkpoints.checkpointFile(key) : null;
+  const checkpoint = file ? undefined : ((await checkpoints.get(key)) ?? undefined);
+  const resumed = file ? file.exists : checkpoint !== undefined;
   const event = (e: Omit<RunEvent, 'ensembleId' | 'runIndex'>) => ev.onRunEvent?.({ ensembleId: run.ensembleId, runIndex: run.runIndex, ...e });
   const t0 = Date.now();
-  event({ event: 'run started', particles: checkpoint ? null : 0, resumed: checkpoint !== undefined });
+  event({ event: 'run started', particles: resumed ? null : 0, resumed });
   ev.onRunStarted?.();
   let lastCount = -1;
-  let lastCounters: Record<string, number> = {};
+  /** Counters at the last progress report; null before the first (growth is counted from there). */
+  let lastCounters: Record<string, number> | null = null;
   let reported = -1;
   let writes: Promise<void> = Promise.resolve();
   let cancelled = false;
   const handle = o.pool.run(run, {
     checkpoint,
+    ...(file ? { checkpointFile: { path: file.path, resume: file.exists } } : {}),
     workerId: o.workerId,
     onProgress: (p) => {
-      if (lastCount >= 0) {
+      if (lastCounters !== null) {
         const deltas: Record<string, number> = {};
         for (const [k, v] of Object.entries(p.counters)) deltas[k] = Math.max(0, v - (lastCounters[k] ?? 0));
         ev.onGrowth?.(run.model.kind, Math.max(0, p.count - lastCount), deltas);
@@ -118,13 +134,27 @@ export async function runOne(run: RunTaskData, o: RunLifecycleOptions): Promise<
       lastCount = p.count;
       lastCounters = p.counters;
     },
-    onCheckpoint: (bytes) => {
-      const at = lastCount >= 0 ? lastCount : null;
+    onResumed: (count, seconds) => {
+      // the kernel rebuilds its index next (minutes for a giant cluster, before its first progress report):
+      // meanwhile the ticks report the resumed count, which is also the run's sign of life (store.ts, STALE_RUN_MS)
+      if (lastCount < 0) {
+        lastCount = count;
+        reported = count;
+      }
+      event({ event: 'run resumed', particles: count, seconds });
+    },
+    onCheckpoint: (bytes, count, seconds) => {
+      if (bytes === null) {
+        // written and renamed into place by the thread already
+        event({ event: 'run checkpointed', particles: count, ...(seconds !== undefined ? { seconds } : {}) });
+        return;
+      }
       writes = writes
         .then(() => checkpoints.put(key, bytes))
-        .then(() => event({ event: 'run checkpointed', particles: at }))
+        .then(() => event({ event: 'run checkpointed', particles: count }))
         .catch((err) => ev.log?.(`checkpoint of run ${run.runIndex} not stored: ${messageOf(err)}`));
     },
+    onCheckpointFailed: (message) => ev.log?.(`checkpoint of run ${run.runIndex} not stored: ${message}`),
   });
   o.onStart?.(handle);
   let tick: Promise<void> = Promise.resolve();
@@ -172,7 +202,7 @@ export async function runOne(run: RunTaskData, o: RunLifecycleOptions): Promise<
         event({ event: 'run cancelled', particles: lastCount >= 0 ? lastCount : null });
         return 'cancelled';
       }
-      await checkpoints.put(key, outcome.checkpoint);
+      if (outcome.checkpoint) await checkpoints.put(key, outcome.checkpoint); // else written by the thread
       await sink.runReleased(run.ensembleId, run.runIndex);
       event({ event: 'run handed back', particles: lastCount >= 0 ? lastCount : null });
       return 'released';

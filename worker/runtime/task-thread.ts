@@ -5,14 +5,25 @@
  * worker/runtime/task-runner.ts.
  *
  * Messages (all payloads are protobuf bytes of proto/tendril.proto):
- *   main -> thread  { type: 'run', id, task, checkpoint?, stop }   start a run (stop: the shared
+ *   main -> thread  { type: 'run', id, task, checkpoint?, checkpointFile?, stop }
+ *                                                             start a run (stop: the shared
  *                                                             flag of worker/core/stop-signal.ts)
  *                   { type: 'stop', id }                      checkpoint and stop
  *   thread -> main  { type: 'progress', id, count, particles, counters }
- *                   { type: 'checkpoint', id, bytes, count }  store it (no reply needed)
+ *                   { type: 'resumed', id, count, seconds }   read checkpointFile (seconds: the read)
+ *                   { type: 'checkpoint', id, bytes?, count, seconds? }  store it (no reply needed); without
+ *                                                             bytes: written to checkpointFile already,
+ *                                                             in `seconds`
+ *                   { type: 'checkpoint-failed', id, message } the file could not be written (growth goes on)
  *                   { type: 'done', id, result, final? }      final: the end state when the task keeps positions
- *                   { type: 'stopped', id, checkpoint }
+ *                   { type: 'stopped', id, checkpoint? }      without checkpoint: written to checkpointFile
  *                   { type: 'failed', id, message, rejected }
+ *
+ * With checkpointFile { path, resume } (a checkpoint store in a folder) the
+ * thread resumes by reading that file and writes every checkpoint into it,
+ * streamed in chunks of 1 MiB straight from the kernel's positions with a
+ * temporary file renamed into place (proto/checkpoint-file.ts): a giant
+ * cluster's checkpoint never exists as one buffer in either thread.
  *
  * This one file is both the pool (imported on the main thread) and the
  * thread's entry point (when loaded as a Worker).
@@ -31,16 +42,25 @@ import {
   type RunResultData,
   type RunTaskData,
 } from '../../proto/convert.js';
+import { readCheckpointFile, writeCheckpointFile } from '../../proto/checkpoint-file.js';
 import { runTask, type RunProgress } from './task-runner.js';
 import { createStopSignal, raiseStop, type StopSignal } from '../core/stop-signal.js';
 import { kindOf, messageOf } from '../../proto/errors.js';
 
-type ToThread = { type: 'run'; id: number; task: Uint8Array; checkpoint?: Uint8Array; workerId: string; stop: StopSignal } | { type: 'stop'; id: number };
+/** The checkpoint file of a run: where the thread writes its checkpoints, and whether it resumes from it. */
+export interface CheckpointFile {
+  path: string;
+  resume: boolean;
+}
+
+type ToThread = { type: 'run'; id: number; task: Uint8Array; checkpoint?: Uint8Array; checkpointFile?: CheckpointFile; workerId: string; stop: StopSignal } | { type: 'stop'; id: number };
 type FromThread =
   | { type: 'progress'; id: number; count: number; particles: number; counters: Record<string, number> }
-  | { type: 'checkpoint'; id: number; bytes: Uint8Array; count: number }
+  | { type: 'resumed'; id: number; count: number; seconds: number }
+  | { type: 'checkpoint'; id: number; bytes?: Uint8Array; count: number; seconds?: number }
+  | { type: 'checkpoint-failed'; id: number; message: string }
   | { type: 'done'; id: number; result: Uint8Array; final?: Uint8Array }
-  | { type: 'stopped'; id: number; checkpoint: Uint8Array }
+  | { type: 'stopped'; id: number; checkpoint?: Uint8Array }
   | { type: 'failed'; id: number; message: string; rejected: boolean };
 
 // ------------------------------------------------------------ thread side
@@ -56,8 +76,14 @@ function threadMain(): void {
     void (async () => {
       try {
         const run = decodeRunTask(m.task);
+        const file = m.checkpointFile;
         // room for the whole run: the kernel keeps the decoded positions as its own (no second copy)
-        const checkpoint = m.checkpoint ? decodeCheckpoint(m.checkpoint, run.particles) : undefined;
+        let checkpoint: CheckpointData | undefined;
+        if (file?.resume) {
+          const r0 = performance.now();
+          checkpoint = readCheckpointFile(file.path, run.particles);
+          port.postMessage({ type: 'resumed', id: m.id, count: checkpoint.state.count, seconds: (performance.now() - r0) / 1000 } satisfies FromThread);
+        } else if (m.checkpoint) checkpoint = decodeCheckpoint(m.checkpoint, run.particles);
         let lastProgress = 0;
         const outcome = await runTask(run, {
           checkpoint,
@@ -72,6 +98,18 @@ function threadMain(): void {
             port.postMessage({ type: 'progress', id: m.id, count: p.count, particles: p.particles, counters: p.counters } satisfies FromThread);
           },
           onCheckpoint: (c: CheckpointData) => {
+            if (file) {
+              // streamed from the kernel's own positions into a temporary file, renamed into place
+              try {
+                const w0 = performance.now();
+                writeCheckpointFile(file.path, c);
+                port.postMessage({ type: 'checkpoint', id: m.id, count: c.state.count, seconds: (performance.now() - w0) / 1000 } satisfies FromThread);
+              } catch (err) {
+                // the newest stored checkpoint stays the one before; growth goes on
+                port.postMessage({ type: 'checkpoint-failed', id: m.id, message: messageOf(err) } satisfies FromThread);
+              }
+              return;
+            }
             const bytes = encodeCheckpoint(c); // a buffer of its own: transferred, not copied
             port.postMessage({ type: 'checkpoint', id: m.id, bytes, count: c.state.count } satisfies FromThread, [bytes.buffer]);
           },
@@ -80,6 +118,9 @@ function threadMain(): void {
           const result = encodeRunResult(outcome.result).slice();
           const final = outcome.final ? encodeCheckpoint(outcome.final) : undefined;
           port.postMessage({ type: 'done', id: m.id, result, final } satisfies FromThread, final ? [result.buffer, final.buffer] : [result.buffer]);
+        } else if (file) {
+          writeCheckpointFile(file.path, outcome.checkpoint); // a failure fails the run (retried): the stop must not lose its state silently
+          port.postMessage({ type: 'stopped', id: m.id } satisfies FromThread);
         } else {
           const cp = encodeCheckpoint(outcome.checkpoint);
           port.postMessage({ type: 'stopped', id: m.id, checkpoint: cp } satisfies FromThread, [cp.buffer]);
@@ -106,14 +147,21 @@ export interface ThreadRunHandlers {
   /** Resume from this checkpoint (decoded, or protobuf bytes as stored). */
   checkpoint?: CheckpointData | Uint8Array;
   onProgress?: (p: RunProgress) => void;
-  /** Receives each checkpoint as protobuf bytes (store them). */
-  onCheckpoint?: (bytes: Uint8Array, count: number) => void;
+  /** The run's checkpoint file: the thread resumes from it (when `resume`) and writes every checkpoint into it, streamed. */
+  checkpointFile?: CheckpointFile;
+  /** Each checkpoint taken (count: its particles): framed bytes to store, or null when written to checkpointFile already (in `seconds`). */
+  onCheckpoint?: (bytes: Uint8Array | null, count: number, seconds?: number) => void;
+  /** The run resumed from checkpointFile at `count` particles; `seconds`: the read. */
+  onResumed?: (count: number, seconds: number) => void;
+  /** A checkpoint could not be written to checkpointFile (one line); the run goes on. */
+  onCheckpointFailed?: (message: string) => void;
   workerId?: string;
 }
 
 export type ThreadOutcome =
   | { status: 'done'; result: RunResultData; resultBytes: Uint8Array; /** Final state (Checkpoint protobuf) when the task keeps positions. */ final?: Uint8Array }
-  | { status: 'stopped'; checkpoint: Uint8Array }
+  /** checkpoint: the state to store, absent when the thread wrote it to checkpointFile. */
+  | { status: 'stopped'; checkpoint?: Uint8Array }
   /** Stopped before it got a thread: nothing ran and nothing changed (keep any earlier checkpoint as it is). */
   | { status: 'unstarted' }
   | { status: 'failed'; message: string; rejected: boolean };
@@ -176,7 +224,13 @@ export class TaskThreadPool {
               h.onProgress?.({ runIndex: task.runIndex, count: m.count, particles: m.particles, counters: m.counters });
               break;
             case 'checkpoint':
-              h.onCheckpoint?.(m.bytes, m.count);
+              h.onCheckpoint?.(m.bytes ?? null, m.count, m.seconds);
+              break;
+            case 'resumed':
+              h.onResumed?.(m.count, m.seconds);
+              break;
+            case 'checkpoint-failed':
+              h.onCheckpointFailed?.(m.message);
               break;
             case 'done':
               try {
@@ -186,7 +240,7 @@ export class TaskThreadPool {
               }
               break;
             case 'stopped':
-              finish({ status: 'stopped', checkpoint: m.checkpoint }, false);
+              finish(m.checkpoint ? { status: 'stopped', checkpoint: m.checkpoint } : { status: 'stopped' }, false);
               break;
             case 'failed':
               finish({ status: 'failed', message: m.message, rejected: m.rejected }, false);
@@ -203,6 +257,7 @@ export class TaskThreadPool {
           id,
           task: encodeRunTask(task),
           checkpoint: h.checkpoint instanceof Uint8Array ? h.checkpoint : h.checkpoint ? encodeCheckpoint(h.checkpoint) : undefined,
+          ...(h.checkpointFile ? { checkpointFile: h.checkpointFile } : {}),
           workerId: h.workerId ?? 'embedded',
           stop: stopSignal,
         };

@@ -66,15 +66,13 @@
 import type { Counters, ClusterPositions, GrowthCheckpoint, GrowthKernel, GrowthResult, GrowthSeries, GrowthTask } from '../../core/growth-kernel.js';
 import { ENGINE_VERSION } from '../../core/engine-version.js';
 import { OccupancyIndex2d } from '../../index/occupancy-index-2d.js';
-import { returnToCircle, returned } from '../../walkers/poisson-return-2d.js';
 import { Random, STREAM_GROWTH } from '../../core/random.js';
 import { countCentresWithin, massRadiusRadii, recordSizes } from '../../core/record-sizes.js';
 import { StateHasher } from '../../core/state-hash.js';
-import { direction, sampleDirection } from '../../walkers/uniform-direction.js';
-import { contact, firstContact } from '../../walkers/segment-contact-2d.js';
+import { PlanarGrowthWalk, WALK_STOPPED } from '../../walkers/planar-growth-walk.js';
 import { checkCheckpointOf } from '../../core/checkpoint-check.js';
 import { recordPlanarAnisotropy } from '../../core/anisotropy.js';
-import { MAX_STEPS_PER_PARTICLE, STOP_CHECK_EVERY, walkInterrupted, type StopSignal } from '../../core/stop-signal.js';
+import { MAX_STEPS_PER_PARTICLE, type StopSignal } from '../../core/stop-signal.js';
 
 /** The counters of this model (names as declared by its descriptor). */
 export interface OffLatticeDla2dCounters extends Counters {
@@ -90,8 +88,6 @@ export class OffLatticeDla2d implements GrowthKernel {
   readonly task: GrowthTask;
   readonly dimension = 2;
   readonly counters: OffLatticeDla2dCounters;
-  private readonly minStep: number;
-  private readonly launchMargin: number;
   /** Centres in arrival order, interleaved: x0, y0, x1, y1, … */
   private readonly xy: Float64Array;
   /** Released (emptied) once the cluster is complete: nothing queries it then, and outputs are written without it. */
@@ -107,17 +103,12 @@ export class OffLatticeDla2d implements GrowthKernel {
   private nextRecord = 0;
   /** Generator state at the start of the particle being walked (restored when a stop interrupts it). */
   private readonly particleStart = new Uint32Array(4);
-  /** Walker steps until the stop signal is read next (carried across particles). */
-  private untilCheck = STOP_CHECK_EVERY;
-  /** Most steps one particle may take before the run fails as stuck (MAX_STEPS_PER_PARTICLE; tests lower it). */
-  private readonly maxSteps: number;
+  /** The growth walk (worker/walkers/planar-growth-walk.ts). */
+  private readonly walker: PlanarGrowthWalk;
 
   /** The task must have passed the registry's checks (worker/models/registry.ts checkTask). */
   constructor(task: GrowthTask, checkpoint?: GrowthCheckpoint, limits: { maxStepsPerParticle?: number } = {}) {
     this.task = structuredClone(task);
-    this.maxSteps = limits.maxStepsPerParticle ?? MAX_STEPS_PER_PARTICLE;
-    this.minStep = task.model.params.min_step;
-    this.launchMargin = task.model.params.launch_margin;
     // a checkpoint's positions array with room for the whole run becomes the kernel's own (no second copy)
     this.xy = checkpoint !== undefined && checkpoint.positions.length >= 2 * task.particles ? checkpoint.positions : new Float64Array(2 * task.particles);
     this.index = new OccupancyIndex2d(task.particles, this.xy);
@@ -138,6 +129,9 @@ export class OffLatticeDla2d implements GrowthKernel {
       for (let i = 0; i < checkpoint.count; i++) this.append(p[2 * i], p[2 * i + 1]);
       while (this.nextRecord < this.sizes.length && this.sizes[this.nextRecord] <= this.n) this.nextRecord++;
     }
+    // most steps one particle may take before the run fails as stuck (MAX_STEPS_PER_PARTICLE; tests lower it)
+    const maxSteps = limits.maxStepsPerParticle ?? MAX_STEPS_PER_PARTICLE;
+    this.walker = new PlanarGrowthWalk(this.index, this.rng, task.model.params.min_step, task.model.params.launch_margin, task.runIndex, maxSteps);
   }
 
   get count(): number {
@@ -211,79 +205,17 @@ export class OffLatticeDla2d implements GrowthKernel {
    * (nothing changed) when the stop signal interrupted the walk.
    */
   private addParticle(stop: StopSignal | undefined): boolean {
-    const rng = this.rng;
-    rng.saveState(this.particleStart);
-    let untilCheck = this.untilCheck;
-    let checked = 0;
-    const index = this.index;
-    const minStep = this.minStep;
-    const rMax = this.rMax;
-    const launch = rMax + 1 + this.launchMargin;
-    const launch2 = launch * launch;
-    let jumps = 0;
-    let shortSteps = 0;
-    let returns = 0;
-
-    // uniform point on the launch circle
-    sampleDirection(rng);
-    let wx = launch * direction.x;
-    let wy = launch * direction.y;
-
-    for (;;) {
-      if (--untilCheck === 0) {
-        untilCheck = STOP_CHECK_EVERY;
-        checked += STOP_CHECK_EVERY;
-        if (walkInterrupted(stop, checked, this.maxSteps, this.task.runIndex, this.n + 1, Math.sqrt(wx * wx + wy * wy), minStep)) {
-          rng.loadState(this.particleStart);
-          this.untilCheck = STOP_CHECK_EVERY;
-          return false;
-        }
-      }
-      let r2 = wx * wx + wy * wy;
-      if (r2 > launch2) {
-        returnToCircle(wx, wy, launch, rng);
-        wx = returned.x;
-        wy = returned.y;
-        r2 = launch2;
-        returns++;
-      }
-      index.query(wx, wy);
-      let d = index.free;
-      // the disk of radius r − R_max − 1 around the walker is free too
-      const reach = rMax + 1 + d;
-      if (r2 > reach * reach) d = Math.sqrt(r2) - rMax - 1;
-
-      sampleDirection(rng);
-      const cx = direction.x;
-      const cy = direction.y;
-
-      if (d >= minStep) {
-        // walk-on-spheres: exact exit point of the free disk of radius d
-        wx += d * cx;
-        wy += d * cy;
-        jumps++;
-        continue;
-      }
-
-      // Final approach: straight step of length minStep, stopping at the
-      // first contact. Every centre within 1 + minStep is in index.nearX/Y
-      // (d < minStep <= 1 means the exact scan answered).
-      const hit = firstContact(index.nearX, index.nearY, index.nearCount, wx, wy, cx, cy, minStep, null, null);
-      shortSteps++;
-      if (hit >= 0) {
-        wx += contact.t * cx;
-        wy += contact.t * cy;
-        break;
-      }
-      wx += minStep * cx;
-      wy += minStep * cy;
+    this.rng.saveState(this.particleStart);
+    const walker = this.walker;
+    walker.steps = 0;
+    if (walker.walk(this.rMax, stop, this.n + 1) === WALK_STOPPED) {
+      this.rng.loadState(this.particleStart);
+      return false;
     }
-
-    this.counters.jumps += jumps;
-    this.counters.short_steps += shortSteps;
-    this.counters.returns += returns;
-    this.untilCheck = untilCheck;
-    this.place(wx, wy);
+    this.counters.jumps += walker.jumps;
+    this.counters.short_steps += walker.shortSteps;
+    this.counters.returns += walker.returns;
+    this.place(walker.hitX, walker.hitY);
     return true;
   }
 

@@ -67,7 +67,7 @@ import { ENGINE_VERSION } from '../../core/engine-version.js';
 import { OccupancyIndex3d } from '../../index/occupancy-index-3d.js';
 import { returnToSphere, returned3 } from '../../walkers/poisson-return-3d.js';
 import { Random, STREAM_GROWTH } from '../../core/random.js';
-import { countWithin, massRadiusRadii, recordSizes } from '../../core/record-sizes.js';
+import { countCentresWithin, massRadiusRadii, recordSizes } from '../../core/record-sizes.js';
 import { StateHasher } from '../../core/state-hash.js';
 import { direction3, sampleDirection3d } from '../../walkers/uniform-direction-3d.js';
 import { contact3, firstContact3d } from '../../walkers/segment-contact-3d.js';
@@ -177,9 +177,6 @@ export class OffLatticeDla3d implements GrowthKernel {
 
   result(): GrowthResult {
     if (!this.done) throw new Error(`run ${this.task.runIndex} is not finished (${this.n} of ${this.task.particles} particles)`);
-    const dist = new Float64Array(this.n);
-    const p = this.xyz;
-    for (let i = 0; i < this.n; i++) dist[i] = Math.sqrt(p[3 * i] * p[3 * i] + p[3 * i + 1] * p[3 * i + 1] + p[3 * i + 2] * p[3 * i + 2]);
     const radii = massRadiusRadii(this.rMax, this.task.recordsPerDecade);
     return {
       engineVersion: ENGINE_VERSION,
@@ -189,7 +186,7 @@ export class OffLatticeDla3d implements GrowthKernel {
       ensembleSeed: this.task.ensembleSeed,
       runIndex: this.task.runIndex,
       series: structuredClone(this.series),
-      massRadius: { radii, counts: countWithin(dist, radii) },
+      massRadius: { radii, counts: countCentresWithin(this.xyz, 3, this.n, radii) },
       counters: { ...this.counters },
       stateHash: this.stateHash(),
     };

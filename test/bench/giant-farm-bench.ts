@@ -1,0 +1,208 @@
+/**
+ * `npm run bench -- --only giant-farm` (opt-in: not part of a plain
+ * `npm run bench`, nor of CI): one giant off-lattice DLA cluster in the
+ * plane (dla-offlattice-2d, default parameters, seed 7, one cluster) grown
+ * as one farm job by one `tendril worker` (one thread) over Redis
+ * (REDIS_URL), with a checkpoint every N/5 particles streamed by the growth
+ * thread into the artifact folder.
+ *
+ * The first worker is SIGKILLed once two checkpoints are stored; a fresh
+ * worker resumes from the newest and finishes. Printed as one JSON line:
+ * the write time of each checkpoint and the read time of the resume (both
+ * from the workers' 'run checkpointed' / 'run resumed' log lines, measured
+ * in the growth thread), the checkpoint's size, each worker's peak resident
+ * memory (VmHWM of /proc/PID/status just before it ends; Linux only) and
+ * CPU seconds (utime + stime of /proc/PID/stat), the work lost to the kill
+ * (the kill comes half-way between the second and third checkpoints; lost =
+ * the particles last reported before the kill, or the newest checkpoint's if
+ * more, minus the count resumed from; rule: at most one checkpoint
+ * interval), and the final state hash.
+ *
+ *   node dist/test/bench/run-benchmarks.js --only giant-farm [--farm-size 10000000]
+ *
+ * Needs the compiled tree (npm run build) and Redis at REDIS_URL.
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync, statSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { Redis } from 'ioredis';
+import { launchEnsemble, runQueue } from '../../coordinator/farm/queue.js';
+import { EnsembleStore } from '../../coordinator/farm/store.js';
+import { validateSpec } from '../../coordinator/spec/index.js';
+import { checkpointKey } from '../../worker/runtime/job-contract.js';
+import { ENGINE_VERSION } from '../../worker/core/engine-version.js';
+import { argValue, isEntryPoint } from './bench-process.js';
+
+const CLI = join(fileURLToPath(import.meta.url), '..', '..', '..', 'coordinator', 'cli.js');
+export const DEFAULT_GIANT_FARM_SIZE = 10_000_000;
+const SEED = '7';
+const CHECKPOINTS_PER_RUN = 5;
+
+export interface GiantFarmRow {
+  bench: 'giant-farm';
+  engineVersion: string;
+  particles: number;
+  seed: string;
+  checkpointEveryParticles: number;
+  /** Checkpoints written by the first worker: particles and seconds of each write (in its growth thread). */
+  checkpoints: Array<{ particles: number; writeSeconds: number }>;
+  /** Bytes of the newest checkpoint file at the kill. */
+  checkpointBytes: number;
+  killedAtParticles: number;
+  resumedFromParticles: number;
+  lostParticles: number;
+  /** lost <= checkpointEveryParticles. */
+  lostWithinOneInterval: boolean;
+  resumeReadSeconds: number;
+  /** Checkpoints written by the second worker. */
+  resumedCheckpoints: Array<{ particles: number; writeSeconds: number }>;
+  firstWorker: { peakRssMB: number; cpuSeconds: number };
+  secondWorker: { peakRssMB: number; cpuSeconds: number };
+  /** Peak RSS of the worker that grew the cluster to its end, per particle. */
+  bytesPerParticle: number;
+  growSecondsTotal: number;
+  resumes: number;
+  stateHash: string;
+  nodeVersion: string;
+}
+
+interface LogLine { msg: string; ensembleId?: string; particles?: number | null; seconds?: number }
+
+interface Proc {
+  child: ChildProcess;
+  log: () => LogLine[];
+  exited: Promise<void>;
+}
+
+function startWorker(redisUrl: string, prefix: string, artifacts: string): Promise<Proc> {
+  const child = spawn(process.execPath, [CLI, 'worker', '--redis', redisUrl, '--prefix', prefix, '--artifacts', artifacts, '--concurrency', '1', '--progress-ms', '1000', '--log-level', 'info'], {
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  let err = '';
+  let out = '';
+  child.stderr!.on('data', (d) => (err += d));
+  const exited = new Promise<void>((resolve) => child.once('exit', () => resolve()));
+  const log = () => err.split('\n').filter((l) => l.startsWith('{')).map((l) => JSON.parse(l) as LogLine);
+  return new Promise((resolve, reject) => {
+    child.stdout!.on('data', (d) => {
+      out += d;
+      if (out.includes('ready:')) resolve({ child, log, exited });
+    });
+    child.once('exit', (code) => reject(new Error(`worker exited with ${code}: ${err.slice(-500)}`)));
+  });
+}
+
+/** Peak resident memory (MiB) and CPU seconds (user + system) of a live Linux process. */
+function usageOf(pid: number): { peakRssMB: number; cpuSeconds: number } {
+  const status = readFileSync(`/proc/${pid}/status`, 'utf8');
+  const hwm = Number(/^VmHWM:\s+(\d+) kB$/m.exec(status)?.[1] ?? NaN);
+  // fields after the command name in parentheses: utime and stime are the 14th and 15th of the whole line
+  const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+  const rest = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+  const ticks = Number(rest[11]) + Number(rest[12]);
+  return { peakRssMB: Math.round((hwm / 1024) * 10) / 10, cpuSeconds: ticks / 100 };
+}
+
+async function until(fn: () => Promise<boolean> | boolean, pollMs = 250): Promise<void> {
+  while (!(await fn())) await new Promise((r) => setTimeout(r, pollMs));
+}
+
+export async function runGiantFarmBenchmark(particles = DEFAULT_GIANT_FARM_SIZE, redisUrl = process.env.REDIS_URL ?? 'redis://127.0.0.1:6379'): Promise<GiantFarmRow> {
+  const every = Math.max(1, Math.floor(particles / CHECKPOINTS_PER_RUN));
+  const spec = validateSpec(
+    { name: `giant farm ${particles}`, model: 'dla-offlattice-2d', particles, clusters: 1, seed: SEED, checkpoint_every_particles: every, checkpoint_interval_seconds: 86_400 },
+    { maxTotalParticles: Number.MAX_SAFE_INTEGER },
+  );
+  const prefix = `tendril-bench-giant-farm-${process.pid}-${Date.now().toString(36)}`;
+  const artifacts = mkdtempSync(join(tmpdir(), 'tendril-giant-farm-'));
+  const redis = new Redis(redisUrl, { maxRetriesPerRequest: null });
+  const store = new EnsembleStore(redis, prefix);
+  const queue = runQueue(redis, prefix);
+  const procs: Proc[] = [];
+  try {
+    const first = await startWorker(redisUrl, prefix, artifacts);
+    procs.push(first);
+    const id = await launchEnsemble(store, queue, spec);
+    const written = (p: Proc) => p.log().filter((l) => l.ensembleId === id && l.msg === 'run checkpointed').map((l) => ({ particles: l.particles as number, writeSeconds: l.seconds ?? NaN }));
+    process.stderr.write(`giant-farm: growing ${particles} particles as one farm job, checkpoint every ${every}\n`);
+    // killed half-way between two checkpoints, after the second
+    const progress = async () => Number((await redis.hget(`${prefix}:ensemble:${id}:progress`, '0')) ?? 0);
+    await until(async () => written(first).length >= 2 && (await progress()) >= written(first)[1].particles + every / 2, 1000);
+    const firstUsage = usageOf(first.child.pid!);
+    first.child.kill('SIGKILL');
+    await first.exited;
+    const checkpoints = written(first);
+    // the count last reported (a lower bound of the count at the kill: reports come every second), or the newest checkpoint if larger
+    const killedAtParticles = Math.max(await progress(), checkpoints[checkpoints.length - 1].particles);
+    const checkpointBytes = statSync(join(artifacts, checkpointKey(id, 0))).size;
+    process.stderr.write(`giant-farm: first worker killed at ${killedAtParticles} particles after ${checkpoints.length} checkpoints; a fresh worker resumes\n`);
+
+    const second = await startWorker(redisUrl, prefix, artifacts);
+    procs.push(second);
+    let secondUsage = { peakRssMB: NaN, cpuSeconds: NaN };
+    await until(async () => {
+      // sampled while alive: the last sample before the result is stored is the peak of growth
+      if (second.child.exitCode === null) secondUsage = usageOf(second.child.pid!);
+      return (await store.status(id))?.state === 'done';
+    }, 1000);
+    secondUsage = usageOf(second.child.pid!);
+    const resumed = second.log().find((l) => l.ensembleId === id && l.msg === 'run resumed');
+    if (!resumed) throw new Error('the second worker did not log a resume');
+    const [result] = await store.results(id);
+    const resumedFromParticles = resumed.particles as number;
+    const lostParticles = killedAtParticles - resumedFromParticles;
+    return {
+      bench: 'giant-farm',
+      engineVersion: ENGINE_VERSION,
+      particles,
+      seed: SEED,
+      checkpointEveryParticles: every,
+      checkpoints,
+      checkpointBytes,
+      killedAtParticles,
+      resumedFromParticles,
+      lostParticles,
+      lostWithinOneInterval: lostParticles <= every,
+      resumeReadSeconds: resumed.seconds ?? NaN,
+      resumedCheckpoints: written(second),
+      firstWorker: firstUsage,
+      secondWorker: secondUsage,
+      bytesPerParticle: Math.round((secondUsage.peakRssMB * 1024 * 1024) / particles),
+      growSecondsTotal: result.timings.growSeconds,
+      resumes: result.timings.resumes,
+      stateHash: result.stateHash,
+      nodeVersion: process.version,
+    };
+  } finally {
+    for (const p of procs) if (p.child.exitCode === null && p.child.signalCode === null) {
+      p.child.kill('SIGTERM');
+      await p.exited;
+    }
+    await queue.close();
+    let cursor = '0';
+    do {
+      const [next, keys] = await redis.scan(cursor, 'MATCH', `${prefix}:*`, 'COUNT', 500);
+      cursor = next;
+      if (keys.length) await redis.del(...keys);
+    } while (cursor !== '0');
+    redis.disconnect();
+    rmSync(artifacts, { recursive: true, force: true });
+  }
+}
+
+/** `--farm-size N` from the arguments, default 10^7. */
+export function giantFarmSizeFromArgs(argv: string[]): number {
+  return argValue(argv, '--farm-size', DEFAULT_GIANT_FARM_SIZE);
+}
+
+if (isEntryPoint(import.meta.url)) {
+  runGiantFarmBenchmark(giantFarmSizeFromArgs(process.argv.slice(2))).then(
+    (r) => process.stdout.write(JSON.stringify(r) + '\n'),
+    (err: Error) => {
+      process.stderr.write(`giant-farm-bench: ${err.message}\n`);
+      process.exit(1);
+    },
+  );
+}
