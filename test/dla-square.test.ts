@@ -5,9 +5,11 @@ import type { GrowthCheckpoint, GrowthKernel, GrowthTask } from '../worker/core/
 import { Random } from '../worker/core/random.js';
 import { yieldToRunner } from './support/grow.js';
 import { ENGINE_VERSION } from '../worker/core/engine-version.js';
-import { exit, sampleExit, sideExitLaw } from '../worker/lattice/square-exit-tables.js';
+import { HALF_WIDTHS, MAX_HALF_WIDTH, exit, halfWidthAtMost, sampleExitOf, sideExitLaw } from '../worker/lattice/square-exit-tables.js';
 import { harmonicMeasureFromInfinity, potentialKernel } from './support/lattice-potential.js';
 import type { DlaSquare } from '../worker/models/dla-square/kernel.js';
+import { LatticeWalk } from '../worker/lattice/lattice-walk.js';
+import { SQUARE } from '../worker/lattice/planar-lattice.js';
 
 function squareTask(particles: number, runIndex = 0, seed = '21', params: Record<string, number> = {}): GrowthTask {
   return { model: modelParams('dla-square', params), particles, ensembleSeed: seed, runIndex, recordsPerDecade: 10 };
@@ -35,20 +37,22 @@ function exitSites(L: number): { key: string[]; p: number[] } {
 }
 
 describe('square-lattice exit tables (exact first passage from the centre of a square)', () => {
-  it('sampleExit picks the same site as a binary search of the cumulative law for the same draws (guide-table search)', () => {
-    for (const e of [1, 4, 10]) {
-      const L = 2 ** e;
+  it('sampleExitOf picks the same site as a binary search of the folded cumulative law for the same draws (guide-table search)', async () => {
+    for (const L of [2, 16, 37, 1024, 5000]) {
+      await yieldToRunner();
       const p = sideExitLaw(L);
-      const c = new Float64Array(p.length);
+      // folded law of |k|: p(0), then 2 p(m)
+      const c = new Float64Array(L);
       let s = 0;
-      p.forEach((v, i) => (c[i] = s += Math.max(0, v)));
+      for (let m = 0; m < L; m++) c[m] = s += (m === 0 ? 1 : 2) * Math.max(0, p[L - 1 + m]);
       c.forEach((v, i) => (c[i] = v / s));
-      c[c.length - 1] = 1;
-      const a = Random.forRun('5', e, 3);
+      c[L - 1] = 1;
+      const a = Random.forRun('5', L, 3);
       const b = Random.fromState(a.state());
       for (let t = 0; t < 20_000; t++) {
-        sampleExit(e, a);
-        const side = b.nextInt32() & 3;
+        sampleExitOf(L, a);
+        const w = b.nextInt32();
+        const side = w & 3;
         const u = b.nextDouble();
         let lo = 0;
         let hi = c.length - 1;
@@ -57,17 +61,43 @@ describe('square-lattice exit tables (exact first passage from the centre of a s
           if (c[mid] > u) hi = mid;
           else lo = mid + 1;
         }
-        const k = lo - (L - 1);
+        const k = (w & 4) !== 0 ? -lo : lo;
         expect([exit.dx, exit.dy]).toEqual([[L, k], [-L, k], [k, L], [k, -L]][side]);
       }
     }
   });
 
+  it('the truncated series (weights below 1e-40 dropped) equals the full sum to rounding', () => {
+    for (const L of [2, 7, 64, 300, 1024]) {
+      const full = sideExitLaw(L, false);
+      const cut = sideExitLaw(L);
+      let worst = 0;
+      for (let i = 0; i < full.length; i++) worst = Math.max(worst, Math.abs(full[i] - cut[i]) / full[i]);
+      expect(worst).toBeLessThan(1e-9);
+    }
+  });
+
+  it('the ladder of half-widths: 1 … 32 then steps of at most 1/16, up to MAX_HALF_WIDTH; halfWidthAtMost is the largest entry <= d', () => {
+    for (let L = 1; L <= 32; L++) expect(HALF_WIDTHS[L - 1]).toBe(L);
+    for (let i = 32; i < HALF_WIDTHS.length; i++) {
+      expect(HALF_WIDTHS[i]).toBeGreaterThan(HALF_WIDTHS[i - 1]);
+      expect(HALF_WIDTHS[i]).toBeLessThanOrEqual(Math.ceil((HALF_WIDTHS[i - 1] * 17) / 16));
+    }
+    expect(HALF_WIDTHS[HALF_WIDTHS.length - 1]).toBe(MAX_HALF_WIDTH);
+    for (const d of [1, 5, 32, 33, 34, 35, 100, 999, 4097, MAX_HALF_WIDTH, MAX_HALF_WIDTH + 5]) {
+      const L = halfWidthAtMost(d);
+      expect(L).toBeLessThanOrEqual(d);
+      expect(HALF_WIDTHS.includes(L)).toBe(true);
+      const next = HALF_WIDTHS.find((h) => h > L);
+      if (next !== undefined) expect(next).toBeGreaterThan(Math.min(d, MAX_HALF_WIDTH));
+    }
+  });
+
   it('sum to 1 and match hand-computed values (exact: L = 1 and L = 2 by first-step analysis)', () => {
-    for (let e = 0; e <= 10; e++) {
+    for (let e = 0; e <= 15; e++) {
       const p = sideExitLaw(2 ** e);
       const s = p.reduce((a, b) => a + b, 0);
-      expect(Math.abs(4 * s - 1)).toBeLessThan(e <= 6 ? 1e-12 : 1e-10);
+      expect(Math.abs(4 * s - 1)).toBeLessThan(1e-13);
       for (const v of p) expect(v).toBeGreaterThan(0);
     }
     expect(sideExitLaw(1)[0]).toBeCloseTo(0.25, 15);
@@ -77,15 +107,14 @@ describe('square-lattice exit tables (exact first passage from the centre of a s
     expect(p2[0]).toBeCloseTo(1 / 16, 14);
   });
 
-  for (const e of [2, 3]) {
-    const L = 2 ** e;
+  for (const L of [3, 4, 5, 8]) {
     it(`L = ${L}: plain step-by-step walks and tabulated jumps both follow the exact law (chi-square, significance 0.001)`, () => {
       const { key, p } = exitSites(L);
       const index = new Map(key.map((k, i) => [k, i]));
       const walks = 30_000;
       const plain = new Array(key.length).fill(0);
       const jumped = new Array(key.length).fill(0);
-      const rng = Random.forRun('77', e);
+      const rng = Random.forRun('77', L);
       for (let w = 0; w < walks; w++) {
         let x = 0;
         let y = 0;
@@ -97,7 +126,7 @@ describe('square-lattice exit tables (exact first passage from the centre of a s
           else y--;
         }
         plain[index.get(`${x},${y}`)!]++;
-        sampleExit(e, rng);
+        sampleExitOf(L, rng);
         jumped[index.get(`${exit.dx},${exit.dy}`)!]++;
       }
       const crit = chi2Critical999(key.length - 1);
@@ -105,6 +134,33 @@ describe('square-lattice exit tables (exact first passage from the centre of a s
       expect(chiSquare(jumped, p, walks)).toBeLessThan(crit);
     });
   }
+});
+
+describe('dla-square: the distance bound that sizes the jumps', () => {
+  // A jump of half-width L is exact only when no perimeter site lies strictly inside the square,
+  // i.e. when the L∞ distance to the cluster is at least L + 1 (worker/lattice/lattice-walk.ts).
+  it('never exceeds the true L∞ distance to the cluster (brute force, 3000-site cluster, 30000 points)', async () => {
+    const k = grown(squareTask(3000, 5));
+    const c = k.positions().coords;
+    const walk = new LatticeWalk(SQUARE, 3000);
+    for (let n = 0; n < k.count; n++) walk.occupy(c[2 * n], c[2 * n + 1]);
+    const bound = (x: number, y: number): number => (walk as unknown as { distanceBound(x: number, y: number): number }).distanceBound(x, y);
+    const rng = Random.forRun('31', 0);
+    let tight = 0;
+    for (let t = 0; t < 30_000; t++) {
+      if (t % 1000 === 0) await yieldToRunner();
+      const span = t < 15_000 ? 80 : 600;
+      const x = Math.floor((rng.nextDouble() - 0.5) * 2 * span);
+      const y = Math.floor((rng.nextDouble() - 0.5) * 2 * span);
+      let d = Infinity;
+      for (let n = 0; n < k.count; n++) d = Math.min(d, Math.max(Math.abs(c[2 * n] - x), Math.abs(c[2 * n + 1] - y)));
+      const b = bound(x, y);
+      expect(b).toBeLessThanOrEqual(Math.max(d, 1));
+      if (d >= 8 && b >= 0.5 * d) tight++;
+    }
+    // and it is useful: at distance 8 or more it is mostly at least half the distance
+    expect(tight).toBeGreaterThan(10_000);
+  }, 600_000);
 });
 
 describe('dla-square: growth probabilities on a small fixed cluster equal the discrete harmonic measure', () => {
@@ -163,7 +219,7 @@ describe('dla-square: growth probabilities on a small fixed cluster equal the di
         counts[index.get(`${c[8]},${c[9]}`)!]++;
       }
       expect(chiSquare(counts, exact, trials)).toBeLessThan(chi2Critical999(perimeter.length - 1));
-    });
+    }, 600_000);
   }
 });
 

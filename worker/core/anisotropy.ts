@@ -27,8 +27,12 @@
  * record sizes.
  */
 
-/** Result fields of anisotropyOf (reused, to keep hot paths free of allocation). */
-export const anisotropy = { amplitude: 0, shellCount: 0, axisRatio: 1 };
+/**
+ * Result fields of anisotropyOf (reused, to keep hot paths free of
+ * allocation): A_k, the shell count n, Q_k, and the shell means of cos kθ
+ * and sin kθ (A_k = |meanCos + i meanSin|).
+ */
+export const anisotropy = { amplitude: 0, shellCount: 0, axisRatio: 1, meanCos: 0, meanSin: 0 };
 
 const MAX_FOLD = 12;
 const AXIS_COS = new Float64Array(2 * MAX_FOLD);
@@ -97,6 +101,8 @@ export function anisotropyOf(coords: Float64Array, stride: number, count: number
   }
   anisotropy.shellCount = n;
   anisotropy.amplitude = n > 0 ? Math.sqrt(sc * sc + ss * ss) / n : 0;
+  anisotropy.meanCos = n > 0 ? sc / n : 0;
+  anisotropy.meanSin = n > 0 ? ss / n : 0;
   anisotropy.axisRatio = diag > 0 ? axis / diag : 1;
 }
 

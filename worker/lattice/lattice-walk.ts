@@ -1,7 +1,7 @@
 /**
  * The lattice walker of lattice DLA (worker/models/dla-lattice/dla-lattice-kernel.ts),
  * with the sparse storage it walks on: the cluster sites and the multi-level
- * occupancy marks. Shared by the growth kernel and by the lattice probe
+ * cell distances (square lattice) or occupancy marks (triangular lattice). Shared by the growth kernel and by the lattice probe
  * (worker/probe/probe-lattice.ts), so growth and probing sample the same
  * law with the same exact jumps, launch and return.
  *
@@ -19,18 +19,55 @@ import { STOP_CHECK_EVERY, stopRaised, type StopSignal } from '../core/stop-sign
 import { TiledByteGrid } from '../index/tiled-grids.js';
 import { returnToCircle, returned } from '../walkers/poisson-return-2d.js';
 import { direction, sampleDirection } from '../walkers/uniform-direction.js';
-import { MAX_EXIT_LEVEL, exit, sampleExit } from './square-exit-tables.js';
+import { exit, halfWidthAtMost, sampleExitOf } from './square-exit-tables.js';
 import { MAX_HEX_LEVEL, hexExit, sampleHexExit } from './hexagon-exit-tables.js';
 import { HALF_SQRT3, type PlanarLattice, siteOf, toSite } from './planar-lattice.js';
 
 const MARKED = 1;
 const HOLDS = 2;
 const SQRT1_2 = Math.SQRT1_2;
+/** Distance-map levels on the square lattice: cells of side 2 … 4096. */
+const SQUARE_MARK_LEVELS = 12;
+/**
+ * Cap C of the square lattice's cell distances: a cell stores C − c, with c
+ * the Chebyshev distance in cells to the nearest cell holding a cluster
+ * site, when c < C, and 0 (never written) when c >= C; C itself means the
+ * cell holds a site.
+ */
+const DIST_CAP = 8;
+/** raiseBlock values of the (2C − 1)² block around a newly held cell: C − max(|dx|, |dy|). */
+const DIST_BLOCK: Uint8Array = (() => {
+  const r = DIST_CAP - 1;
+  const w = 2 * r + 1;
+  const v = new Uint8Array(w * w);
+  for (let dy = -r; dy <= r; dy++) for (let dx = -r; dx <= r; dx++) v[(dy + r) * w + dx + r] = DIST_CAP - Math.max(Math.abs(dx), Math.abs(dy));
+  return v;
+})();
+
+/**
+ * Lower bound on the L∞ distance from site (x, y) to every cluster site in
+ * a cell of side s = 2^e at Chebyshev cell distance >= c from the walker's
+ * cell (exact, derived here): such a site differs from the walker's cell by
+ * at least c cells along x or along y; along x, a cell c to the right
+ * starts c·s − ox sites away (ox = x mod s), one c to the left ends
+ * ox + (c − 1)·s + 1 away; the same along y. So the distance is at least
+ * (c − 1)·s + min(s − ox, ox + 1, s − oy, oy + 1).
+ */
+function cellBound(e: number, c: number, x: number, y: number): number {
+  const s = 1 << e;
+  const ox = x & (s - 1);
+  const oy = y & (s - 1);
+  let m = s - ox;
+  if (ox + 1 < m) m = ox + 1;
+  if (s - oy < m) m = s - oy;
+  if (oy + 1 < m) m = oy + 1;
+  return (c - 1) * s + m;
+}
 
 export class LatticeWalk {
   readonly lattice: PlanarLattice;
   private readonly triangular: boolean;
-  /** Largest jump level (tables for L = 2^e up to it) and number of mark levels. */
+  /** Number of mark levels (triangular: also the largest hexagon jump level, radius 2^e). */
   private readonly maxLevel: number;
   /** 1 for cluster sites. */
   private readonly sites: TiledByteGrid;
@@ -51,7 +88,7 @@ export class LatticeWalk {
   constructor(lattice: PlanarLattice, expectedSites: number) {
     this.lattice = lattice;
     this.triangular = lattice.name === 'triangular';
-    this.maxLevel = this.triangular ? MAX_HEX_LEVEL : MAX_EXIT_LEVEL;
+    this.maxLevel = this.triangular ? MAX_HEX_LEVEL : SQUARE_MARK_LEVELS;
     const expect = Math.max(16, expectedSites >> 4);
     this.sites = new TiledByteGrid(expect);
     for (let e = 1; e <= this.maxLevel; e++) this.marks.push(new TiledByteGrid(Math.max(4, expect >> (e + 1))));
@@ -108,22 +145,30 @@ export class LatticeWalk {
         returns++;
         continue;
       }
-      let e = this.freeLevel(x, y);
-      // radial bound: lattice distance >= (|w| − R_max) · perUnit, so a square (hexagon) of half-width floor(that) − 1 is free
-      const byRadius = Math.floor((Math.sqrt(r2) - rMax) * perUnit) - 1;
-      while (e < maxLevel && 2 << e <= byRadius) e++; // 2 << e = 2^(e + 1), e <= maxLevel <= 10
-      if (e >= 1) {
-        if (tri) {
+      if (!tri) {
+        // square lattice: d, a lower bound on the L∞ distance from the walker to the cluster (see the header)
+        let d = this.distanceBound(x, y);
+        const byRadius = Math.floor((Math.sqrt(r2) - rMax) * SQRT1_2);
+        if (byRadius > d) d = byRadius;
+        if (d >= 3) {
+          sampleExitOf(halfWidthAtMost(d - 1), rng);
+          x += exit.dx;
+          y += exit.dy;
+          jumps++;
+          continue;
+        }
+      } else {
+        let e = this.freeLevel(x, y);
+        // radial bound: hex distance >= |w| − R_max, so a hexagon of radius floor(that) − 1 is free
+        const byRadius = Math.floor((Math.sqrt(r2) - rMax) * perUnit) - 1;
+        while (e < maxLevel && 2 << e <= byRadius) e++; // 2 << e = 2^(e + 1), e <= maxLevel <= 10
+        if (e >= 1) {
           sampleHexExit(e, rng);
           x += hexExit.di;
           y += hexExit.dj;
-        } else {
-          sampleExit(e, rng);
-          x += exit.dx;
-          y += exit.dy;
+          jumps++;
+          continue;
         }
-        jumps++;
-        continue;
       }
       if (this.isPerimeter(x, y)) break;
       if (tri) {
@@ -148,7 +193,43 @@ export class LatticeWalk {
     return true;
   }
 
-  /** The largest level e (0 … maxLevel) whose cell around (x, y) is unmarked (0: none is). */
+  /**
+   * Square lattice: a lower bound on the L∞ distance from (x, y) to the
+   * cluster, from the cell distances. Finds the finest level e whose cell
+   * distance c_e is below the cap (the next finer level is capped, or e = 1):
+   * there the bound (c_e − 1)·2^e + … is within about 2^e of the distance,
+   * and c_e >= C/2 unless e = 1; the capped level e − 1 gives a second bound
+   * (c = C); the larger is returned (1 when neither says more).
+   */
+  private distanceBound(x: number, y: number): number {
+    const marks = this.marks;
+    const top = this.maxLevel;
+    let e = this.guess;
+    let v = marks[e - 1].get(x >> e, y >> e);
+    if (v === 0) {
+      while (e < top) {
+        e++;
+        v = marks[e - 1].get(x >> e, y >> e);
+        if (v !== 0) break;
+      }
+    } else {
+      while (e > 1) {
+        const w = marks[e - 2].get(x >> (e - 1), y >> (e - 1));
+        if (w === 0) break;
+        e--;
+        v = w;
+      }
+    }
+    this.guess = e;
+    let d = cellBound(e, DIST_CAP - v, x, y);
+    if (e > 1 && v !== 0) {
+      const below = cellBound(e - 1, DIST_CAP, x, y);
+      if (below > d) d = below;
+    }
+    return d > 1 ? d : 1;
+  }
+
+  /** Triangular lattice: the largest level e (0 … maxLevel) whose cell around (x, y) is unmarked (0: none is). */
   private freeLevel(x: number, y: number): number {
     let e = this.guess;
     const marks = this.marks;
@@ -269,6 +350,16 @@ export class LatticeWalk {
   /** Add site (x, y) to the cluster storage and marks. */
   occupy(x: number, y: number): void {
     this.sites.orBits(x, y, 1);
+    if (!this.triangular) {
+      for (let e = 1; e <= this.maxLevel; e++) {
+        const g = this.marks[e - 1];
+        const cx = x >> e;
+        const cy = y >> e;
+        if (g.get(cx, cy) === DIST_CAP) continue;
+        g.raiseBlock(cx, cy, DIST_CAP - 1, DIST_BLOCK, 0);
+      }
+      return;
+    }
     for (let e = 1; e <= this.maxLevel; e++) {
       const g = this.marks[e - 1];
       const cx = x >> e;

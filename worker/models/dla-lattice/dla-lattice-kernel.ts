@@ -40,29 +40,41 @@
  *     rounding) to the point where a planar Brownian motion from its
  *     position first hits the launch circle (the exact exterior Poisson
  *     kernel, worker/walkers/poisson-return-2d.ts). It is never killed.
- *  3. Exact jumps: when no cluster site lies within distance L of the walker
- *     (L = 2^e >= 2; L∞ distance in lattice coordinates on the square
- *     lattice, hex distance on the triangular one), the walker jumps to the
- *     site where the lattice walk from the centre of that square (hexagon)
- *     first reaches its boundary, sampled from the exact exit law
- *     (worker/lattice/square-exit-tables.ts, worker/lattice/hexagon-exit-tables.ts).
- *     No perimeter site lies inside, so the walk cannot stop before the
- *     boundary: the jump samples the lattice walk's own law. L is the
- *     largest power of two (up to the largest table) allowed by two lower
- *     bounds on the distance to the cluster: multi-level occupancy marks in
- *     lattice coordinates (level e: cells of side 2^e; a cell is marked when
- *     a cluster site lies in the 3 × 3 block of cells around it, so an
+ *  3. Exact jumps. Square lattice: when the L∞ distance (in lattice
+ *     coordinates) from the walker to the cluster is at least d >= 3, the
+ *     walker jumps to the site where the lattice walk from the centre of
+ *     the square of half-width L first reaches its boundary, with L the
+ *     largest entry <= d − 1 of a ladder of half-widths (1 … 32, then
+ *     steps of 1/16, up to 32768), sampled from the exact exit law
+ *     (worker/lattice/square-exit-tables.ts). Every site strictly inside
+ *     that square is at L∞ distance >= 2 from the cluster, hence neither a
+ *     cluster site nor a perimeter site (a perimeter site is a nearest
+ *     neighbour of a cluster site: L∞ distance 1), so the walk cannot stop
+ *     before the boundary and the jump samples the lattice walk's own law;
+ *     the boundary site is then checked like any other. d is a lower bound
+ *     on the distance, the larger of two: capped cell distances (levels
+ *     e = 1 … 12, cells of side 2^e; each cell stores the Chebyshev
+ *     distance in cells, capped at 8, to the nearest cell holding a
+ *     cluster site; a cell distance c proves an L∞ distance of at least
+ *     (c − 1)·2^e plus the walker's distance to its cell's edge, derived in
+ *     worker/lattice/lattice-walk.ts), and the radial bound
+ *     (|w| − R_max)/√2. Triangular lattice: when no cluster site lies within
+ *     hex distance L = 2^e (e >= 1, up to 64) of the walker, it jumps to the
+ *     exit site of that hexagon (worker/lattice/hexagon-exit-tables.ts); L
+ *     is the largest power of two allowed by multi-level occupancy marks
+ *     (level e: cells of side 2^e in lattice coordinates; a cell is marked
+ *     when a cluster site lies in the 3 × 3 block of cells around it, so an
  *     unmarked cell proves an L∞ distance — and so a hex distance — of at
- *     least 2^e + 1), and the walker's plane radius |w| − R_max (times 1/√2
- *     for the L∞ distance on the square lattice; the hex distance is at
- *     least the Euclidean one).
+ *     least 2^e + 1) and by the radial bound |w| − R_max.
  *  4. Near the cluster (no level unmarked): single steps; at each site the
  *     nearest neighbours are looked up and a perimeter site stops the walker.
  * Everything but 1 and 2 samples the lattice walk exactly.
  *
  * Storage is sparse (8 × 8 tiles, worker/index/tiled-grids.ts): cluster
- * sites, hit counts (m > 1) and the marks of every level; memory grows with
- * the number of particles, not with the area of the bounding box.
+ * sites, hit counts (m > 1) and the cell distances (square) or marks
+ * (triangular) of every level, written only within 7 (1) cells of a cell
+ * holding a site; memory grows with the number of particles, not with the
+ * area of the bounding box.
  *
  * Determinism and checkpoints: Random.forRun(ensembleSeed, runIndex,
  * STREAM_GROWTH), consumed in a fixed order. A checkpoint holds positions
