@@ -304,21 +304,29 @@ export class LatticeWalk {
         returns++;
         continue;
       }
-      let e = this.freeLevel(x, y);
-      const byRadius = Math.floor((Math.sqrt(r2) - rMax) * perUnit) - 1;
-      while (e < maxLevel && 2 << e <= byRadius) e++;
-      if (e >= 1) {
-        if (tri) {
+      if (!tri) {
+        // square lattice: the jump walk() takes (its square holds no site within L∞ distance 1 of the cluster, so no cluster site either)
+        let d = this.distanceBound(x, y);
+        const byRadius = Math.floor((Math.sqrt(r2) - rMax) * SQRT1_2);
+        if (byRadius > d) d = byRadius;
+        if (d >= 3) {
+          sampleExitOf(halfWidthAtMost(d - 1), rng);
+          x += exit.dx;
+          y += exit.dy;
+          jumps++;
+          continue;
+        }
+      } else {
+        let e = this.freeLevel(x, y);
+        const byRadius = Math.floor((Math.sqrt(r2) - rMax) * perUnit) - 1;
+        while (e < maxLevel && 2 << e <= byRadius) e++;
+        if (e >= 1) {
           sampleHexExit(e, rng);
           x += hexExit.di;
           y += hexExit.dj;
-        } else {
-          sampleExit(e, rng);
-          x += exit.dx;
-          y += exit.dy;
+          jumps++;
+          continue;
         }
-        jumps++;
-        continue;
       }
       let nx = x;
       let ny = y;
