@@ -347,7 +347,7 @@ export const CSS = `
 body { font-family: ${FONT_FAMILY}; margin: 24px auto; max-width: 1120px; padding: 0 16px; color: #111; line-height: 1.4; }
 h1 { font-size: 26px; margin-bottom: 6px; } h2 { margin-top: 34px; border-bottom: 1px solid #ccc; padding-bottom: 4px; } h3 { margin-bottom: 6px; }
 table { border-collapse: collapse; margin: 8px 0 14px; font-size: 14px; display: block; max-width: 100%; overflow-x: auto; }
-td:not(.num) { overflow-wrap: anywhere; } td code { white-space: pre-wrap; overflow-wrap: anywhere; }
+td:not(.num) { overflow-wrap: anywhere; } td[data-status] { overflow-wrap: normal; white-space: nowrap; } td code { white-space: pre-wrap; overflow-wrap: anywhere; }
 th, td { border: 1px solid #d0d0d0; padding: 4px 8px; text-align: left; vertical-align: top; }
 thead th { background: #f2f2f2; } td.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
 td.ok { color: #05620f; } .warn { color: #a00000; } .na { color: #777; }
