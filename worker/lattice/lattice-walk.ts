@@ -110,7 +110,20 @@ export class LatticeWalk {
    * the walk began; nothing else here has changed but the move counts).
    */
   walk(rng: Random, rMax: number, launchMargin: number, stop?: StopSignal): boolean {
+    return this.run(rng, rMax, launchMargin, stop, false);
+  }
+
+  /**
+   * The one walk loop behind walk() and walkToCluster(): launch, exact
+   * return of far walkers, exact jumps, single steps. It ends at the first
+   * perimeter site (intoCluster false) or on the last site before a step
+   * onto the cluster (intoCluster true); the random draws are the same
+   * either way up to that end. A jump's square (hexagon) holds no site
+   * within distance 1 of the cluster, so it is exact for both ends.
+   */
+  private run(rng: Random, rMax: number, launchMargin: number, stop: StopSignal | undefined, intoCluster: boolean): boolean {
     let untilCheck = this.untilCheck;
+    const sites = this.sites;
     const lattice = this.lattice;
     const tri = this.triangular;
     const maxLevel = this.maxLevel;
@@ -170,19 +183,24 @@ export class LatticeWalk {
           continue;
         }
       }
-      if (this.isPerimeter(x, y)) break;
+      if (!intoCluster && this.isPerimeter(x, y)) break;
+      let nx = x;
+      let ny = y;
       if (tri) {
         const t = rng.nextBelow(6);
-        x += lattice.di[t];
-        y += lattice.dj[t];
+        nx += lattice.di[t];
+        ny += lattice.dj[t];
       } else {
         const s = rng.nextInt32() & 3;
-        if (s === 0) x++;
-        else if (s === 1) x--;
-        else if (s === 2) y++;
-        else y--;
+        if (s === 0) nx++;
+        else if (s === 1) nx--;
+        else if (s === 2) ny++;
+        else ny--;
       }
       steps++;
+      if (intoCluster && sites.get(nx, ny) !== 0) break;
+      x = nx;
+      y = ny;
     }
     this.atI = x;
     this.atJ = y;
@@ -269,90 +287,7 @@ export class LatticeWalk {
    * Stop signal and return value as in walk().
    */
   walkToCluster(rng: Random, rMax: number, launchMargin: number, stop?: StopSignal): boolean {
-    let untilCheck = this.untilCheck;
-    const lattice = this.lattice;
-    const tri = this.triangular;
-    const maxLevel = this.maxLevel;
-    const sites = this.sites;
-    const launch = rMax + launchMargin;
-    const far = 2 * launch + 64;
-    const far2 = far * far;
-    const perUnit = tri ? 1 : SQRT1_2;
-    let jumps = 0;
-    let steps = 0;
-    let returns = 0;
-    sampleDirection(rng);
-    toSite(lattice, launch * direction.x, launch * direction.y);
-    let x = siteOf.i;
-    let y = siteOf.j;
-    for (;;) {
-      if (--untilCheck === 0) {
-        untilCheck = STOP_CHECK_EVERY;
-        if (stopRaised(stop)) {
-          this.untilCheck = STOP_CHECK_EVERY;
-          return false;
-        }
-      }
-      const px = tri ? x + 0.5 * y : x;
-      const py = tri ? y * HALF_SQRT3 : y;
-      const r2 = px * px + py * py;
-      if (r2 > far2) {
-        returnToCircle(px, py, launch, rng);
-        toSite(lattice, returned.x, returned.y);
-        x = siteOf.i;
-        y = siteOf.j;
-        returns++;
-        continue;
-      }
-      if (!tri) {
-        // square lattice: the jump walk() takes (its square holds no site within L∞ distance 1 of the cluster, so no cluster site either)
-        let d = this.distanceBound(x, y);
-        const byRadius = Math.floor((Math.sqrt(r2) - rMax) * SQRT1_2);
-        if (byRadius > d) d = byRadius;
-        if (d >= 3) {
-          sampleExitOf(halfWidthAtMost(d - 1), rng);
-          x += exit.dx;
-          y += exit.dy;
-          jumps++;
-          continue;
-        }
-      } else {
-        let e = this.freeLevel(x, y);
-        const byRadius = Math.floor((Math.sqrt(r2) - rMax) * perUnit) - 1;
-        while (e < maxLevel && 2 << e <= byRadius) e++;
-        if (e >= 1) {
-          sampleHexExit(e, rng);
-          x += hexExit.di;
-          y += hexExit.dj;
-          jumps++;
-          continue;
-        }
-      }
-      let nx = x;
-      let ny = y;
-      if (tri) {
-        const t = rng.nextBelow(6);
-        nx += lattice.di[t];
-        ny += lattice.dj[t];
-      } else {
-        const s = rng.nextInt32() & 3;
-        if (s === 0) nx++;
-        else if (s === 1) nx--;
-        else if (s === 2) ny++;
-        else ny--;
-      }
-      steps++;
-      if (sites.get(nx, ny) !== 0) break;
-      x = nx;
-      y = ny;
-    }
-    this.atI = x;
-    this.atJ = y;
-    this.jumps = jumps;
-    this.steps = steps;
-    this.returns = returns;
-    this.untilCheck = untilCheck;
-    return true;
+    return this.run(rng, rMax, launchMargin, stop, true);
   }
 
   /** Add site (x, y) to the cluster storage and marks. */
