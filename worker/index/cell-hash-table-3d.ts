@@ -21,6 +21,11 @@ export class CellHashTable3d {
   /** log2 of the words per slot: 2 (one value) or 3 (four values). */
   private readonly shift: number;
   private used = 0;
+  /** The last cell `find` found (lastX = EMPTY_KEY_3D: none) and its slot's offset. */
+  private lastX = EMPTY_KEY_3D;
+  private lastY = 0;
+  private lastZ = 0;
+  private lastOffset = -1;
 
   constructor(expectedEntries = 1024, values: 1 | 4 = 4) {
     this.shift = values === 1 ? 2 : 3;
@@ -47,8 +52,13 @@ export class CellHashTable3d {
     return this.slots.byteLength;
   }
 
-  /** Word offset of the slot of (ix, iy, iz), or -1 when the cell is absent. Values are at offset + 3 … offset + 6. */
+  /**
+   * Word offset of the slot of (ix, iy, iz), or -1 when the cell is absent. Values are at offset + 3 … offset + 6.
+   * The last cell found is remembered (a walker asks about the same brick many times in a row); a present
+   * cell's offset only moves when the table grows, which forgets it.
+   */
   find(ix: number, iy: number, iz: number): number {
+    if (ix === this.lastX && iy === this.lastY && iz === this.lastZ) return this.lastOffset;
     const slots = this.slots;
     const mask = this.mask;
     const shift = this.shift;
@@ -56,7 +66,13 @@ export class CellHashTable3d {
     for (;;) {
       const o = i << shift;
       const k = slots[o];
-      if (k === ix && slots[o + 1] === iy && slots[o + 2] === iz) return o;
+      if (k === ix && slots[o + 1] === iy && slots[o + 2] === iz) {
+        this.lastX = ix;
+        this.lastY = iy;
+        this.lastZ = iz;
+        this.lastOffset = o;
+        return o;
+      }
       if (k === EMPTY_KEY_3D) return -1;
       i = (i + 1) & mask;
     }
@@ -113,6 +129,7 @@ export class CellHashTable3d {
     }
     this.slots = slots;
     this.mask = mask;
+    this.lastX = EMPTY_KEY_3D;
   }
 }
 

@@ -68,6 +68,13 @@ export class NearDistanceField3d {
   bound = 0;
   /** True when the last `lowerBound` found a centre within CAP of the cell's centre. */
   near = false;
+  /**
+   * After `lowerBound`, when `near`: a number above the distance from the
+   * point's cell centre to the nearest centre ((stored value + 2)/STEPS: one
+   * step for the rounding down, one to spare for SHRINK and the rounding of
+   * the square root).
+   */
+  cellAbove = 0;
   private readonly bricks = new CellHashTable3d(1024, 1);
   private pool = new Uint8Array(POOL_START * 512).fill(FAR);
   private brickCount = 0;
@@ -205,6 +212,7 @@ export class NearDistanceField3d {
     const dy = y - (fy + 0.5) * CELL;
     const dz = z - (fz + 0.5) * CELL;
     this.near = v < FAR;
+    this.cellAbove = (v + 2) / STEPS;
     this.bound = v / STEPS - Math.sqrt(dx * dx + dy * dy + dz * dz);
   }
 
