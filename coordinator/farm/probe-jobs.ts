@@ -27,7 +27,6 @@ import type { ArtifactStore } from './artifacts.js';
 import type { EnsembleStore } from './store.js';
 import type { ProbeRequestStore } from './probe-requests.js';
 import { analyseResults } from '../harmonic/probe-run.js';
-import type { DiskSet } from '../../worker/probe/probe-2d.js';
 import type { ProbeSet } from '../../worker/probe/probe-set.js';
 import type { ClusterPositions } from '../../worker/core/growth-kernel.js';
 
@@ -75,7 +74,7 @@ export class FarmProbeHandler implements ProbeJobHandler {
   /** The last final state read (jobs of one cluster tend to come together). */
   private cached: { key: string; final: ClusterPositions } | null = null;
 
-  private cachedRequest: { id: string; set: DiskSet } | null = null;
+  private cachedRequest: { id: string; set: ProbeSet } | null = null;
   /** The spec of the last ensemble seen (a spec never changes; reading and validating it once per job was wasted work). */
   private cachedSpec: { id: string; spec: EnsembleSpec } | null = null;
 
@@ -89,7 +88,7 @@ export class FarmProbeHandler implements ProbeJobHandler {
     this.pool = new ProbeThreadPool(threads);
   }
 
-  private async requestSet(id: string): Promise<DiskSet> {
+  private async requestSet(id: string): Promise<ProbeSet> {
     if (this.cachedRequest?.id === id) return this.cachedRequest.set;
     const set = await this.requests!.set(id);
     if (!set) throw new ProbeJobRefused(`probe request ${id} has no point set`);

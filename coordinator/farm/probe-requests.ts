@@ -10,7 +10,8 @@
  * `tendril probe` with the same set, seed, walkers and jobs.
  *
  * Keys (P = prefix):
- *   P:probe:ID        hash: request (settings JSON), set (float64 x | y | r, little-endian),
+ *   P:probe:ID        hash: request (settings JSON, with dimension 2 or 3, and radius in 3D),
+ *                     set (float64 x | y | r, little-endian; balls: x | y | z, the radius in request),
  *                     created_at_ms, measures (HarmonicMeasures JSON, once analysed),
  *                     hits (float64 per disk, once analysed), failed (reason),
  *                     cancelled (time in ms, once cancelled: its jobs are skipped, a running one is stopped)
@@ -21,7 +22,10 @@
 import { randomBytes } from 'node:crypto';
 import type { Queue } from 'bullmq';
 import type { Redis } from 'ioredis';
-import { diskSetDigest, planProbeJobs, DEFAULT_PROBE_LAUNCH_MARGIN, type DiskSet } from '../../worker/probe/probe-2d.js';
+import type { DiskSet } from '../../worker/probe/probe-2d.js';
+import type { BallSet } from '../../worker/probe/probe-3d.js';
+import { isBallSet, probeSetDigest, type ProbeSet } from '../../worker/probe/probe-set.js';
+import { planProbeRun } from '../harmonic/probe-run.js';
 import { quoteValue } from '../../worker/core/value-range.js';
 import { JOB_PAYLOAD_VERSION, type ProbeJobData } from '../../worker/runtime/job-contract.js';
 import { parseDiskCsv } from '../harmonic/probe-input.js';
@@ -49,7 +53,9 @@ export const MAX_REQUEST_DISKS = 2_000_000;
 /**
  * The JSON schema of a POST /probes body: the shared probe settings
  * (coordinator/harmonic/probe-settings.ts), a seed, an optional name, and the
- * set as csv text or points (their contents are checked by validateProbeRequest).
+ * set as csv text or points (their contents are checked by validateProbeRequest);
+ * points with a z array are balls in 3D (one radius r), probed as the spec
+ * path probes a dla-offlattice-3d cluster (worker/probe/probe-set.ts).
  */
 export const PROBE_REQUEST_SCHEMA = {
   $id: 'tendril/probe-request',
@@ -59,7 +65,7 @@ export const PROBE_REQUEST_SCHEMA = {
   properties: {
     name: NAME_SCHEMA,
     csv: { type: 'string', description: 'text of x,y,r rows' },
-    points: { type: 'object', description: '{x: [...], y: [...], r: number or [...]} with x and y of equal length' },
+    points: { type: 'object', description: '{x: [...], y: [...], r: number or [...]} with x and y of equal length; with z: [...] as well, balls in 3D of one radius r' },
     ...PROBE_SETTINGS_PROPERTIES,
     seed: SEED_SCHEMA,
   },
@@ -68,12 +74,16 @@ export const PROBE_REQUEST_SCHEMA = {
 /** The schema-level problems of a probe request body, one line each. */
 export const probeRequestProblems: Checker = compileChecker(PROBE_REQUEST_SCHEMA);
 
+/** The set of a probe request: disks (x, y, r per disk) or balls in 3D (x, y, z, one radius). */
+export type RequestSet = (DiskSet & { x: Float64Array; y: Float64Array; r: Float64Array }) | BallSet;
+
 /**
- * Check a request body: { name?, csv? | points?: {x: [...], y: [...], r: number | [...]},
- * walkers, seed, jobs?, q?, contact_sample?, min_step?, window? }. Throws ProbeRequestError with one
- * line naming the field, the value and what is allowed.
+ * Check a request body: { name?, csv? | points?: {x: [...], y: [...], z?: [...], r: number | [...]},
+ * walkers, seed, jobs?, q?, contact_sample?, min_step?, window? }. Points with z are balls in 3D
+ * (one radius r; no contact_sample). Throws ProbeRequestError with one line naming the field, the
+ * value and what is allowed.
  */
-export function validateProbeRequest(body: unknown): { settings: ProbeRequestSettings; set: DiskSet & { x: Float64Array; y: Float64Array; r: Float64Array } } {
+export function validateProbeRequest(body: unknown): { settings: ProbeRequestSettings; set: RequestSet } {
   const fail = (m: string): never => {
     throw new ProbeRequestError(m);
   };
@@ -93,6 +103,7 @@ export function validateProbeRequest(body: unknown): { settings: ProbeRequestSet
   if (settingsProblems.length > 0) fail(settingsProblems[0]);
   if ((b.csv === undefined) === (b.points === undefined)) fail('csv, points: exactly one must be given; allowed: csv (text of x,y,r rows) or points ({x: [...], y: [...], r: number or [...]})');
   let x: Float64Array, y: Float64Array, r: Float64Array;
+  let z: Float64Array | undefined;
   if (b.csv !== undefined) {
     try {
       const s = parseDiskCsv(b.csv as string, 'csv');
@@ -108,6 +119,19 @@ export function validateProbeRequest(body: unknown): { settings: ProbeRequestSet
     if (n < 1) fail('points.x: 0 values is not allowed; allowed: at least 1 number');
     if (p.y.length !== n) fail(`points.y: ${p.y.length} values is not allowed; allowed: as many as points.x (${n})`);
     if (Array.isArray(p.r) && p.r.length !== n) fail(`points.r: ${p.r.length} values is not allowed; allowed: one number, or as many as points.x (${n})`);
+    if (p.z !== undefined) {
+      // balls in 3D: one radius, no contact points (as a [probe] table of a 3D model)
+      if (!Array.isArray(p.z)) fail(`points.z: ${show(p.z)} is not allowed; allowed: an array of as many numbers as points.x (${n}), for balls in 3D`);
+      if ((p.z as unknown[]).length !== n) fail(`points.z: ${(p.z as unknown[]).length} values is not allowed; allowed: as many as points.x (${n})`);
+      if (typeof p.r !== 'number') fail(`points.r: ${show(p.r)} is not allowed; allowed: one number > 0 for balls (points with z): every ball has the same radius`);
+      if (b.contact_sample !== undefined) fail(`contact_sample: ${show(b.contact_sample)} is not used for balls (points with z); allowed: no contact_sample (3D probes keep no contact points: the Newtonian capacity comes from the share of probes that hit)`);
+      z = new Float64Array(n);
+      for (let i = 0; i < n; i++) {
+        const zi = (p.z as unknown[])[i];
+        if (typeof zi !== 'number' || !Number.isFinite(zi)) fail(`points.z[${i}]: ${show(zi)} is not allowed; allowed: a finite number`);
+        z[i] = zi as number;
+      }
+    }
     x = new Float64Array(n); y = new Float64Array(n); r = new Float64Array(n);
     for (let i = 0; i < n; i++) {
       const xi = p.x[i], yi = p.y[i];
@@ -119,12 +143,16 @@ export function validateProbeRequest(body: unknown): { settings: ProbeRequestSet
     }
   }
   if (x!.length > MAX_REQUEST_DISKS) fail(`points: ${x!.length} disks is out of range; allowed: at most ${MAX_REQUEST_DISKS}`);
-  const shape = probeGeometryProblem({ count: x!.length, x: x!, y: y!, r: r! }, probeSettingsOf(doc).minStep, b.csv !== undefined ? 'csv' : 'points');
+  const shape = probeGeometryProblem({ count: x!.length, x: x!, y: y!, r: r!, ...(z ? { z } : {}) }, probeSettingsOf(doc).minStep, b.csv !== undefined ? 'csv' : 'points');
   if (shape !== null) fail(shape);
-  return {
-    settings: { name: (b.name as string | undefined) ?? 'probe', seed: BigInt(b.seed as string | number).toString(), ...probeSettingsOf(doc) },
-    set: { count: x!.length, x: x!, y: y!, r: r! },
-  };
+  const settings = { name: (b.name as string | undefined) ?? 'probe', seed: BigInt(b.seed as string | number).toString(), ...probeSettingsOf(doc) };
+  if (z) return { settings: { ...settings, contactSample: 0 }, set: { count: x!.length, x: x!, y: y!, z, radius: r![0] } };
+  return { settings, set: { count: x!.length, x: x!, y: y!, r: r! } };
+}
+
+/** The three float64 axes a request set is stored as: x | y | r (disks) or x | y | z (balls). */
+function storedAxes(set: RequestSet): [Float64Array, Float64Array, Float64Array] {
+  return isBallSet(set) ? [set.x, set.y, set.z] : [set.x, set.y, set.r];
 }
 
 export interface ProbeRequestStatus {
@@ -132,6 +160,9 @@ export interface ProbeRequestStatus {
   name: string;
   state: 'running' | 'done' | 'failed' | 'cancelled';
   createdAt: string;
+  /** 2: disks in the plane; 3: balls. */
+  dimension: 2 | 3;
+  /** Disks (or balls, in 3D) in the set. */
   disks: number;
   walkers: number;
   jobs: { planned: number; done: number };
@@ -146,30 +177,34 @@ export class ProbeRequestStore {
     return part ? `${this.prefix}:probe:${id}:${part}` : `${this.prefix}:probe:${id}`;
   }
 
-  async create(id: string, settings: ProbeRequestSettings, set: { count: number; x: Float64Array; y: Float64Array; r: Float64Array }, createdAtMs = Date.now()): Promise<void> {
+  async create(id: string, settings: ProbeRequestSettings, set: RequestSet, createdAtMs = Date.now()): Promise<void> {
     const n = set.count;
     const bytes = Buffer.alloc(24 * n);
+    const [a0, a1, a2] = storedAxes(set);
     for (let i = 0; i < n; i++) {
-      bytes.writeDoubleLE(set.x[i], 8 * i);
-      bytes.writeDoubleLE(set.y[i], 8 * (n + i));
-      bytes.writeDoubleLE(set.r[i], 8 * (2 * n + i));
+      bytes.writeDoubleLE(a0[i], 8 * i);
+      bytes.writeDoubleLE(a1[i], 8 * (n + i));
+      bytes.writeDoubleLE(a2[i], 8 * (2 * n + i));
     }
-    const ok = await this.redis.hsetnx(this.k(id), 'request', JSON.stringify({ ...settings, disks: n, digest: diskSetDigest(set) }));
+    const shape = isBallSet(set) ? { dimension: 3, radius: set.radius } : { dimension: 2 };
+    const ok = await this.redis.hsetnx(this.k(id), 'request', JSON.stringify({ ...settings, disks: n, ...shape, digest: probeSetDigest(set) }));
     if (!ok) throw new Error(`probe request ${id} exists already`);
     await this.redis.multi().hset(this.k(id), { set: bytes, created_at_ms: String(createdAtMs) }).zadd(`${this.prefix}:probes`, createdAtMs, id).exec();
   }
 
-  async settings(id: string): Promise<(ProbeRequestSettings & { disks: number; digest: string }) | null> {
+  /** The stored settings (dimension absent: a request stored before 3D sets, planar). */
+  async settings(id: string): Promise<(ProbeRequestSettings & { disks: number; digest: string; dimension?: 2 | 3; radius?: number }) | null> {
     const s = await this.redis.hget(this.k(id), 'request');
     return s ? JSON.parse(s) : null;
   }
 
-  async set(id: string): Promise<DiskSet | null> {
-    const b = await this.redis.hgetBuffer(this.k(id), 'set');
-    if (!b) return null;
+  async set(id: string): Promise<ProbeSet | null> {
+    const [b, s] = await Promise.all([this.redis.hgetBuffer(this.k(id), 'set'), this.settings(id)]);
+    if (!b || !s) return null;
     const n = b.length / 24;
     const all = new Float64Array(3 * n);
     for (let i = 0; i < 3 * n; i++) all[i] = b.readDoubleLE(8 * i);
+    if (s.dimension === 3) return { count: n, x: all.subarray(0, n), y: all.subarray(n, 2 * n), z: all.subarray(2 * n), radius: s.radius! };
     return { count: n, x: all.subarray(0, n), y: all.subarray(n, 2 * n), r: all.subarray(2 * n) };
   }
 
@@ -219,7 +254,7 @@ export class ProbeRequestStore {
     if (!s) return null;
     return {
       id, name: s.name, state: measures ? 'done' : cancelled ? 'cancelled' : failed ? 'failed' : 'running', createdAt: new Date(Number(created ?? 0)).toISOString(),
-      disks: s.disks, walkers: s.walkers, jobs: { planned: s.jobs, done }, failure: failed, measures: measures ? JSON.parse(measures) : null,
+      dimension: s.dimension ?? 2, disks: s.disks, walkers: s.walkers, jobs: { planned: s.jobs, done }, failure: failed, measures: measures ? JSON.parse(measures) : null,
     };
   }
 
@@ -234,10 +269,10 @@ export function newProbeRequestId(now = Date.now()): string {
 }
 
 /** Record a request and queue its jobs (job ids "ID-J": queued once). */
-export async function launchProbeRequest(store: ProbeRequestStore, queue: Queue, settings: ProbeRequestSettings, set: { count: number; x: Float64Array; y: Float64Array; r: Float64Array }, attempts = 5): Promise<string> {
+export async function launchProbeRequest(store: ProbeRequestStore, queue: Queue, settings: ProbeRequestSettings, set: RequestSet, attempts = 5): Promise<string> {
   const id = newProbeRequestId();
   await store.create(id, settings, set);
-  const tasks = planProbeJobs(diskSetDigest(set), settings.seed, settings.walkers, settings.jobs, settings.contactSample, settings.minStep, DEFAULT_PROBE_LAUNCH_MARGIN);
+  const tasks = planProbeRun(set, probeSetDigest(set), settings);
   const jobs = tasks.map((task) => ({
     name: 'probe',
     data: { v: JOB_PAYLOAD_VERSION, kind: 'probe', source: 'request', ensembleId: id, runIndex: 0, size: set.count, task } satisfies ProbeJobData,

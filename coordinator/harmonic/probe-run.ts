@@ -37,11 +37,21 @@ export interface ProbeRun {
   seconds: number;
 }
 
+/**
+ * The jobs of probing a set with these settings (job j draws from the probe
+ * stream j of the seed): the one plan of `tendril probe` on a set and of a
+ * probe request on the farm (coordinator/farm/probe-requests.ts), so both give
+ * the same measures. A ball set keeps no contact points.
+ */
+export function planProbeRun(set: ProbeSet, digest: string, o: Pick<ProbeRunOptions, 'walkers' | 'seed' | 'jobs' | 'contactSample' | 'minStep' | 'launchMargin'>): ProbeTask[] {
+  return planProbeJobs(digest, o.seed, o.walkers, o.jobs, isBallSet(set) ? 0 : o.contactSample,
+    o.minStep ?? DEFAULT_PROBE_MIN_STEP, o.launchMargin ?? DEFAULT_PROBE_LAUNCH_MARGIN);
+}
+
 export async function runProbes(set: ProbeSet, o: ProbeRunOptions): Promise<ProbeRun> {
   const geometry = o.threads <= 1 ? prepareProbe(set) : null;
   const digest = geometry ? geometry.digest : probeSetDigest(set);
-  const tasks = planProbeJobs(digest, o.seed, o.walkers, o.jobs, isBallSet(set) ? 0 : o.contactSample,
-    o.minStep ?? DEFAULT_PROBE_MIN_STEP, o.launchMargin ?? DEFAULT_PROBE_LAUNCH_MARGIN);
+  const tasks = planProbeRun(set, digest, o);
   const t0 = performance.now();
   let results: ProbeResult[];
   if (o.threads <= 1) {

@@ -15,9 +15,11 @@
  *   GET  /sweeps/:id/figure.svg      its D(parameter) plot (the web page of a sweep is /sweep/:id)
  *   POST /probes                     probe a point set of your own on the farm: body = {csv | points,
  *                                    walkers, seed, jobs?, q?, contact_sample?, min_step?, window?, name?};
- *                                    token required; 201 {id, status}
- *   GET  /probes/:id                 state, jobs done, and the harmonic measures once analysed
- *   GET  /probes/:id/hits            CSV index,x,y,r,hits,measure per disk (once analysed)
+ *                                    points with z ({x, y, z, r: one number}) are balls in 3D (e.g. a
+ *                                    dla-offlattice-3d cluster); token required; 201 {id, status}
+ *   GET  /probes/:id                 state, dimension, jobs done, and the harmonic measures once analysed
+ *   GET  /probes/:id/hits            CSV index,x,y,r,hits,measure per disk (3D: index,x,y,z,r,hits,measure
+ *                                    per ball, measure = share of the probes that hit) once analysed
  *   POST /probes/:id/cancel          cancel a probe request (also DELETE /probes/:id); token required:
  *                                    its queued jobs are skipped and running ones stopped within seconds
  *   GET  /, /view/:id, /web/*, /ensembles/:id/figures[/NAME.svg], /ensembles/:id/cluster.png
@@ -64,6 +66,7 @@ import { sweepToCsv, sweepToJson } from '../summary/sweep-summary.js';
 import { sweepFigure } from '../report/sweep-report.js';
 import { launchProbeRequest, PROBE_REQUEST_SCHEMA, probeRequestProblems, ProbeRequestError, ProbeRequestStore, validateProbeRequest } from '../farm/probe-requests.js';
 import { registerWebRoutes } from './web-routes.js';
+import { isBallSet } from '../../worker/probe/probe-set.js';
 import { CSV_TABLE_NAMES, renderSummary, SUMMARY_FORMATS, type SummaryFormat, type SummaryOptions } from '../summary/index.js';
 import { messageOf, TendrilError } from '../../proto/errors.js';
 
@@ -470,8 +473,17 @@ export function buildApi(o: ApiOptions): FastifyInstance {
     const s = await probeStatus(req.params.id);
     const [set, hits] = await Promise.all([probeStore.set(s.id), probeStore.hits(s.id)]);
     if (!set || !hits) throw new ApiError(409, `id: "${s.id}" is not analysed yet (state ${s.state}, ${s.jobs.done} of ${s.jobs.planned} jobs done)`);
-    const lines = ['index,x,y,r,hits,measure'];
-    for (let i = 0; i < set.count; i++) lines.push(`${i},${set.x[i]},${set.y[i]},${typeof set.r === 'number' ? set.r : set.r[i]},${hits[i]},${hits[i] / s.walkers}`);
+    let lines: string[];
+    if (isBallSet(set)) {
+      // balls in 3D: a probe may escape, so the measure is the share of the probes that hit (as `tendril probe` on a 3D snapshot)
+      let total = 0;
+      for (let i = 0; i < set.count; i++) total += hits[i];
+      lines = ['index,x,y,z,r,hits,measure'];
+      for (let i = 0; i < set.count; i++) lines.push(`${i},${set.x[i]},${set.y[i]},${set.z[i]},${set.radius},${hits[i]},${total > 0 ? hits[i] / total : 0}`);
+    } else {
+      lines = ['index,x,y,r,hits,measure'];
+      for (let i = 0; i < set.count; i++) lines.push(`${i},${set.x[i]},${set.y[i]},${typeof set.r === 'number' ? set.r : set.r[i]},${hits[i]},${hits[i] / s.walkers}`);
+    }
     return reply.header('content-type', 'text/csv; charset=utf-8').header('content-disposition', `attachment; filename="${s.id}-hits.csv"`).send(lines.join('\n') + '\n');
   });
 

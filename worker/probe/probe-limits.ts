@@ -20,6 +20,9 @@
  */
 import type { DiskSet } from './disk-set.js';
 
+/** A set whose shape is checked: disks, or balls when z is given (their radius as r). */
+export type SizedSet = DiskSet & { z?: ArrayLike<number> };
+
 /** Largest extent of a probed set, in largest contact radii. */
 export const MAX_PROBE_EXTENT = 1e7;
 /** Smallest contact radius relative to the largest. */
@@ -33,10 +36,15 @@ export function probeMinStepFloor(extent: number): number {
   return shown;
 }
 
-/** Extent of the set in largest contact radii (Infinity when the arithmetic overflows), and the radius ratio. */
-export function probeSetShape(set: DiskSet): { extent: number; radiusRatio: number } {
+/** Extent of the set in largest contact radii (Infinity when the arithmetic overflows), and the radius ratio; a set with z (balls in 3D) counts its z axis too. */
+export function probeSetShape(set: SizedSet): { extent: number; radiusRatio: number } {
   const n = set.count;
-  let minX = Infinity, maxX = -Infinity, minY = Infinity, maxY = -Infinity, rMax = 0, rMin = Infinity;
+  let minX = Infinity, maxX = -Infinity, minY = Infinity, maxY = -Infinity, minZ = 0, maxZ = 0, rMax = 0, rMin = Infinity;
+  const z = set.z;
+  if (z !== undefined && n > 0) {
+    minZ = Infinity;
+    maxZ = -Infinity;
+  }
   for (let i = 0; i < n; i++) {
     const x = set.x[i], y = set.y[i];
     const r = typeof set.r === 'number' ? set.r : set.r[i];
@@ -44,13 +52,18 @@ export function probeSetShape(set: DiskSet): { extent: number; radiusRatio: numb
     if (x > maxX) maxX = x;
     if (y < minY) minY = y;
     if (y > maxY) maxY = y;
+    if (z !== undefined) {
+      if (z[i] < minZ) minZ = z[i];
+      if (z[i] > maxZ) maxZ = z[i];
+    }
     if (r > rMax) rMax = r;
     if (r < rMin) rMin = r;
   }
-  // half the diagonal of the bounding box plus the largest radius bounds every disk edge from the middle
+  // half the diagonal of the bounding box plus the largest radius bounds every disk (ball) edge from the middle
   const hx = 0.5 * maxX - 0.5 * minX;
   const hy = 0.5 * maxY - 0.5 * minY;
-  const extent = (Math.hypot(hx, hy) + rMax) / rMax;
+  const hz = 0.5 * maxZ - 0.5 * minZ;
+  const extent = ((z === undefined ? Math.hypot(hx, hy) : Math.hypot(hx, hy, hz)) + rMax) / rMax;
   return { extent: Number.isFinite(extent) ? extent : Infinity, radiusRatio: rMin / rMax };
 }
 
@@ -58,7 +71,7 @@ export function probeSetShape(set: DiskSet): { extent: number; radiusRatio: numb
  * The one-line problem of a set (and the probe step), or null. `field` names
  * the set as the caller knows it ("points", "csv", "INPUT file.csv").
  */
-export function probeGeometryProblem(set: DiskSet, minStep: number | null, field: string, stepField = 'min_step'): string | null {
+export function probeGeometryProblem(set: SizedSet, minStep: number | null, field: string, stepField = 'min_step'): string | null {
   if (set.count < 1) return null;
   const { extent, radiusRatio } = probeSetShape(set);
   if (!(extent <= MAX_PROBE_EXTENT)) {
