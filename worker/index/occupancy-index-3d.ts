@@ -9,6 +9,8 @@
  * are exact in floating point (kept as int32; exact for |x| < 2^31).
  *  - Chains (cells of side 2): each occupied cell holds the newest particle's
  *    arrival index; `next` links it to the previous particle of the same cell.
+ *    The heads are stored 64 to a brick of 4 × 4 × 4 cells (one hash look-up
+ *    per brick, not one per cell, in the exact scan).
  *  - Marks at every level k = 0 … MAX_LEVEL, cells of side s = 2^(k+1): a cell
  *    is *marked* when a centre lies in the 3 × 3 × 3 block of cells centred
  *    on it. If the walker's cell is unmarked, every centre is outside that
@@ -27,10 +29,13 @@
  *    k + 1, read once per query.
  *  - When even level 0 is marked, the 3 × 3 × 3 block of side-2 cells around
  *    the walker is scanned exactly: it holds every centre within 2 + m of
- *    the walker. The level-0 "holds a centre" bits of the (at most eight)
- *    bricks over the block say which of its cells to look up. The centres found are kept (in chain order, so the same
- *    set in the same order whatever came before) until the next insert and
- *    reused while the walker stays in the same side-2 cell.
+ *    the walker. The head bricks (at most eight) over the block give its
+ *    cells' chains. The centres found are kept (in chain order, so the same
+ *    set in the same order whatever came before) until the next insert, for
+ *    the last SCAN_CACHE cells scanned, and reused whenever the walker is in
+ *    one of those side-2 cells. When the near field shows a centre within 3
+ *    of the centre of the walker's side-2 cell, level 0 is marked and the
+ *    level search is skipped.
  *  - Near field (worker/index/near-distance-field-3d.ts): per cell of side 2,
  *    the distance from its centre to the nearest centre, up to 8. Asked
  *    first; its bound (stored value − walker's distance to the cell centre)
@@ -39,7 +44,8 @@
  *    bound wins. Near the cluster it is about twice the marks' bound, which
  *    cut the walk-on-spheres jumps per ball from 171 to 92 at N = 10^5.
  * Marks are stored as bits in bricks of 4 × 4 × 4 cells (one hash slot:
- * two words of mark bits and two words of "holds a centre" bits); every
+ * two words of mark bits and two words of "holds a centre" bits, set a
+ * brick at a time by one OR of a mask per brick the block overlaps); every
  * table is a sparse hash (worker/index/cell-hash-table-3d.ts), so memory
  * grows with the number of particles, not with the volume. A particle whose
  * level-k cell already holds a centre needs no marks at levels >= k (they
@@ -94,7 +100,11 @@ export class OccupancyIndex3d {
   /** The centres in arrival order, interleaved x, y, z (the kernel's positions are this array). */
   readonly coords: Float64Array;
   private readonly next: Int32Array;
-  private readonly heads: CellHashTable3d;
+  /** Bricks of 4 × 4 × 4 side-2 cells that hold a centre: brick number in headPool. */
+  private readonly headBricks: CellHashTable3d;
+  /** Per brick, the newest arrival index of each of its 64 cells (-1: empty); `next` links the rest. */
+  private headPool: Int32Array;
+  private headBrickCount = 0;
   private readonly marks: CellHashTable3d[] = [];
   /** Wide marks (5 × 5 × 5 blocks) per level: bits in words v0, v1 of each brick. */
   private readonly wide: CellHashTable3d[] = [];
@@ -124,7 +134,8 @@ export class OccupancyIndex3d {
     this.coords = new Float64Array(3 * capacity);
     this.next = new Int32Array(capacity);
     const expected = Math.min(capacity, 1 << 20);
-    this.heads = new CellHashTable3d(expected >> 1, 1);
+    this.headBricks = new CellHashTable3d(expected >> 4, 1);
+    this.headPool = new Int32Array(64 * Math.max(16, expected >> 4)).fill(-1);
     for (let k = 0; k <= MAX_LEVEL; k++) {
       // mark bricks are few (each covers 4 × 4 × 4 cells): start small and let them grow
       this.marks.push(new CellHashTable3d(256));
@@ -145,7 +156,7 @@ export class OccupancyIndex3d {
 
   /** Bytes held by the index. */
   get bytes(): number {
-    let b = this.coords.byteLength + this.next.byteLength + this.heads.bytes;
+    let b = this.coords.byteLength + this.next.byteLength + this.headBricks.bytes + this.headPool.byteLength;
     for (let e = 0; e < SCAN_CACHE; e++) b += this.cacheX[e].byteLength * 3 + this.cacheId[e].byteLength;
     for (const t of this.marks) b += t.bytes;
     for (const t of this.wide) b += t.bytes;
@@ -163,9 +174,20 @@ export class OccupancyIndex3d {
     const cx0 = Math.floor(x * 0.5) | 0;
     const cy0 = Math.floor(y * 0.5) | 0;
     const cz0 = Math.floor(z * 0.5) | 0;
-    const h = this.heads.slotFor(cx0, cy0, cz0, -1);
-    this.next[i] = this.heads.slots[h + 3];
-    this.heads.slots[h + 3] = i;
+    const h = this.headBricks.slotFor(cx0 >> 2, cy0 >> 2, cz0 >> 2, -1);
+    let brick = this.headBricks.slots[h + 3];
+    if (brick < 0) {
+      brick = this.headBrickCount++;
+      this.headBricks.slots[h + 3] = brick;
+      if (64 * (brick + 1) > this.headPool.length) {
+        const grown = new Int32Array(2 * this.headPool.length).fill(-1);
+        grown.set(this.headPool);
+        this.headPool = grown;
+      }
+    }
+    const cell = 64 * brick + ((cx0 & 3) | ((cy0 & 3) << 2) | ((cz0 & 3) << 4));
+    this.next[i] = this.headPool[cell];
+    this.headPool[cell] = i;
     this.n = i + 1;
     // the last exact scan lists earlier centres, which let the field skip cells they already bound
     this.field.insert(x, y, z, this.nearX, this.nearY, this.nearZ, this.scanCx === NO_CELL ? 0 : this.scanCount);
@@ -184,27 +206,8 @@ export class OccupancyIndex3d {
       const bit = 1 << (b & 31);
       if ((t.slots[w] & bit) !== 0) break; // an earlier centre shares this cell: levels >= k are marked
       t.slots[w] |= bit;
-      for (let dz = -1; dz <= 1; dz++)
-        for (let dy = -1; dy <= 1; dy++)
-          for (let dx = -1; dx <= 1; dx++) {
-            const ex = cx + dx;
-            const ey = cy + dy;
-            const ez = cz + dz;
-            const eb = (ex & 3) | ((ey & 3) << 2) | ((ez & 3) << 4);
-            const eo = t.slotFor(ex >> 2, ey >> 2, ez >> 2, 0);
-            t.slots[eo + 3 + (eb >> 5)] |= 1 << (eb & 31);
-          }
-      const w2 = this.wide[k];
-      for (let dz = -2; dz <= 2; dz++)
-        for (let dy = -2; dy <= 2; dy++)
-          for (let dx = -2; dx <= 2; dx++) {
-            const ex = cx + dx;
-            const ey = cy + dy;
-            const ez = cz + dz;
-            const eb = (ex & 3) | ((ey & 3) << 2) | ((ez & 3) << 4);
-            const eo = w2.slotFor(ex >> 2, ey >> 2, ez >> 2, 0);
-            w2.slots[eo + 3 + (eb >> 5)] |= 1 << (eb & 31);
-          }
+      markBlock(t, cx, cy, cz, 1);
+      markBlock(this.wide[k], cx, cy, cz, 2);
     }
   }
 
@@ -340,16 +343,14 @@ export class OccupancyIndex3d {
     let c = 0;
     const xyz = this.coords;
     const next = this.next;
-    const heads = this.heads;
-    const t = this.marks[0];
+    const heads = this.headBricks;
+    const pool = this.headPool;
     for (let bz = (cz - 1) >> 2; bz <= (cz + 1) >> 2; bz++)
       for (let by = (cy - 1) >> 2; by <= (cy + 1) >> 2; by++)
         for (let bx = (cx - 1) >> 2; bx <= (cx + 1) >> 2; bx++) {
-          const o = t.find(bx, by, bz);
+          const o = heads.find(bx, by, bz);
           if (o < 0) continue;
-          const lo = t.slots[o + 5];
-          const hi = t.slots[o + 6];
-          if ((lo | hi) === 0) continue;
+          const base = heads.slots[o + 3] << 6;
           const z0 = Math.max(cz - 1, bz << 2), z1 = Math.min(cz + 1, (bz << 2) + 3);
           const y0 = Math.max(cy - 1, by << 2), y1 = Math.min(cy + 1, (by << 2) + 3);
           const x0 = Math.max(cx - 1, bx << 2), x1 = Math.min(cx + 1, (bx << 2) + 3);
@@ -357,9 +358,7 @@ export class OccupancyIndex3d {
             for (let y = y0; y <= y1; y++)
               for (let x = x0; x <= x1; x++) {
                 const b = (x & 3) | ((y & 3) << 2) | ((z & 3) << 4);
-                if (((b < 32 ? lo : hi) & (1 << (b & 31))) === 0) continue;
-                const h = heads.find(x, y, z);
-                for (let i = heads.slots[h + 3]; i >= 0; i = next[i]) {
+                for (let i = pool[base + b]; i >= 0; i = next[i]) {
                   if (c === this.nearX.length) this.growNear();
                   this.nearX[c] = xyz[3 * i];
                   this.nearY[c] = xyz[3 * i + 1];
@@ -393,6 +392,39 @@ export class OccupancyIndex3d {
     this.cacheY[e] = this.nearY;
     this.cacheZ[e] = this.nearZ;
     this.cacheId[e] = id;
+  }
+}
+
+/**
+ * Set the mark bits of the (2r + 1)³ cells around cell (cx, cy, cz) in a
+ * level's table (bits in words v0, v1 of each brick of 4 × 4 × 4 cells):
+ * one OR of a bit mask per brick the block overlaps, not one per cell.
+ */
+function markBlock(t: CellHashTable3d, cx: number, cy: number, cz: number, r: number): void {
+  for (let bz = (cz - r) >> 2; bz <= (cz + r) >> 2; bz++) {
+    const z0 = Math.max(cz - r, bz << 2) & 3;
+    const z1 = Math.min(cz + r, (bz << 2) + 3) & 3;
+    for (let by = (cy - r) >> 2; by <= (cy + r) >> 2; by++) {
+      const y0 = Math.max(cy - r, by << 2) & 3;
+      const y1 = Math.min(cy + r, (by << 2) + 3) & 3;
+      for (let bx = (cx - r) >> 2; bx <= (cx + r) >> 2; bx++) {
+        const x0 = Math.max(cx - r, bx << 2) & 3;
+        const x1 = Math.min(cx + r, (bx << 2) + 3) & 3;
+        // cell bit b = x + 4y + 16z: a row of x bits, a plane of rows, then z = 0, 1 in v0 and z = 2, 3 in v1
+        const row = ((1 << (x1 - x0 + 1)) - 1) << x0;
+        let plane = 0;
+        for (let y = y0; y <= y1; y++) plane |= row << (4 * y);
+        let lo = 0;
+        let hi = 0;
+        for (let z = z0; z <= z1; z++) {
+          if (z < 2) lo |= plane << (16 * z);
+          else hi |= plane << (16 * (z - 2));
+        }
+        const o = t.slotFor(bx, by, bz, 0);
+        t.slots[o + 3] |= lo;
+        t.slots[o + 4] |= hi;
+      }
+    }
   }
 }
 
