@@ -44,8 +44,9 @@
  *    bound wins. Near the cluster it is about twice the marks' bound, which
  *    cut the walk-on-spheres jumps per ball from 171 to 92 at N = 10^5.
  * Marks are stored as bits in bricks of 4 × 4 × 4 cells (one hash slot:
- * two words of mark bits and two words of "holds a centre" bits, set a
- * brick at a time by one OR of a mask per brick the block overlaps); every
+ * two words of mark bits and two words of wide-mark bits, so a query finds
+ * both in one slot; set a brick at a time by one OR of a mask per brick the
+ * block overlaps); the "holds a centre" bits per level are a table of their own; every
  * table is a sparse hash (worker/index/cell-hash-table-3d.ts), so memory
  * grows with the number of particles, not with the volume. A particle whose
  * level-k cell already holds a centre needs no marks at levels >= k (they
@@ -106,8 +107,11 @@ export class OccupancyIndex3d {
   private headPool: Int32Array;
   private headBrickCount = 0;
   private readonly marks: CellHashTable3d[] = [];
-  /** Wide marks (5 × 5 × 5 blocks) per level: bits in words v0, v1 of each brick. */
-  private readonly wide: CellHashTable3d[] = [];
+  /**
+   * Per level, the cells that hold a centre: bits in words v0, v1 of each brick (the marks' tables
+   * hold the marks in v0, v1 and the wide marks in v2, v3, so that a query reads both from one slot).
+   */
+  private readonly holds: CellHashTable3d[] = [];
   private readonly field = new NearDistanceField3d();
   private n = 0;
   /** Level where the last query ended (a starting hint only). */
@@ -139,7 +143,7 @@ export class OccupancyIndex3d {
     for (let k = 0; k <= MAX_LEVEL; k++) {
       // mark bricks are few (each covers 4 × 4 × 4 cells): start small and let them grow
       this.marks.push(new CellHashTable3d(256));
-      this.wide.push(new CellHashTable3d(256));
+      this.holds.push(new CellHashTable3d(256));
     }
     for (let e = 0; e < SCAN_CACHE; e++) {
       this.cacheX.push(e === 0 ? this.nearX : new Float64Array(NEAR_START));
@@ -159,7 +163,7 @@ export class OccupancyIndex3d {
     let b = this.coords.byteLength + this.next.byteLength + this.headBricks.bytes + this.headPool.byteLength;
     for (let e = 0; e < SCAN_CACHE; e++) b += this.cacheX[e].byteLength * 3 + this.cacheId[e].byteLength;
     for (const t of this.marks) b += t.bytes;
-    for (const t of this.wide) b += t.bytes;
+    for (const t of this.holds) b += t.bytes;
     b += this.field.bytes;
     return b;
   }
@@ -195,30 +199,30 @@ export class OccupancyIndex3d {
     this.cacheCx.fill(NO_CELL); // the new centre may belong to any kept scan
 
     for (let k = 0; k <= MAX_LEVEL; k++) {
-      const t = this.marks[k];
+      const h = this.holds[k];
       const sc = SCALES[k];
       const cx = Math.floor(x * sc) | 0;
       const cy = Math.floor(y * sc) | 0;
       const cz = Math.floor(z * sc) | 0;
       const b = (cx & 3) | ((cy & 3) << 2) | ((cz & 3) << 4);
-      const o = t.slotFor(cx >> 2, cy >> 2, cz >> 2, 0);
-      const w = o + 5 + (b >> 5);
+      const o = h.slotFor(cx >> 2, cy >> 2, cz >> 2, 0);
+      const w = o + 3 + (b >> 5);
       const bit = 1 << (b & 31);
-      if ((t.slots[w] & bit) !== 0) break; // an earlier centre shares this cell: levels >= k are marked
-      t.slots[w] |= bit;
-      markBlock(t, cx, cy, cz, 1);
-      markBlock(this.wide[k], cx, cy, cz, 2);
+      if ((h.slots[w] & bit) !== 0) break; // an earlier centre shares this cell: levels >= k are marked
+      h.slots[w] |= bit;
+      markBlock(this.marks[k], cx, cy, cz, 1, 3);
+      markBlock(this.marks[k], cx, cy, cz, 2, 5);
     }
   }
 
   /** True when the level-k cell of (x, y, z) is marked. */
   private marked(k: number, x: number, y: number, z: number): boolean {
-    return markedIn(this.marks[k], SCALES[k], x, y, z);
+    return markedIn(this.marks[k], SCALES[k], x, y, z, 3);
   }
 
   /** True when the level-k cell of (x, y, z) is widely marked. */
   private widelyMarked(k: number, x: number, y: number, z: number): boolean {
-    return markedIn(this.wide[k], SCALES[k], x, y, z);
+    return markedIn(this.marks[k], SCALES[k], x, y, z, 5);
   }
 
   /**
@@ -397,10 +401,10 @@ export class OccupancyIndex3d {
 
 /**
  * Set the mark bits of the (2r + 1)³ cells around cell (cx, cy, cz) in a
- * level's table (bits in words v0, v1 of each brick of 4 × 4 × 4 cells):
+ * level's table (bits in words `word`, `word` + 1 of each brick of 4 × 4 × 4 cells):
  * one OR of a bit mask per brick the block overlaps, not one per cell.
  */
-function markBlock(t: CellHashTable3d, cx: number, cy: number, cz: number, r: number): void {
+function markBlock(t: CellHashTable3d, cx: number, cy: number, cz: number, r: number, word: number): void {
   for (let bz = (cz - r) >> 2; bz <= (cz + r) >> 2; bz++) {
     const z0 = Math.max(cz - r, bz << 2) & 3;
     const z1 = Math.min(cz + r, (bz << 2) + 3) & 3;
@@ -421,20 +425,20 @@ function markBlock(t: CellHashTable3d, cx: number, cy: number, cz: number, r: nu
           else hi |= plane << (16 * (z - 2));
         }
         const o = t.slotFor(bx, by, bz, 0);
-        t.slots[o + 3] |= lo;
-        t.slots[o + 4] |= hi;
+        t.slots[o + word] |= lo;
+        t.slots[o + word + 1] |= hi;
       }
     }
   }
 }
 
-/** True when the cell of (x, y, z) in a level's table (cells of side 1/sc) is marked. */
-function markedIn(t: CellHashTable3d, sc: number, x: number, y: number, z: number): boolean {
+/** True when the cell of (x, y, z) in a level's table (cells of side 1/sc) has its bit set in words `word`, `word` + 1. */
+function markedIn(t: CellHashTable3d, sc: number, x: number, y: number, z: number, word: number): boolean {
   const cx = Math.floor(x * sc) | 0;
   const cy = Math.floor(y * sc) | 0;
   const cz = Math.floor(z * sc) | 0;
   const o = t.find(cx >> 2, cy >> 2, cz >> 2);
   if (o < 0) return false;
   const b = (cx & 3) | ((cy & 3) << 2) | ((cz & 3) << 4);
-  return (t.slots[o + 3 + (b >> 5)] & (1 << (b & 31))) !== 0;
+  return (t.slots[o + word + (b >> 5)] & (1 << (b & 31))) !== 0;
 }
