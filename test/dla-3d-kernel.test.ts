@@ -176,4 +176,39 @@ describe('3D occupancy index', () => {
     const fb = [...pts].reverse().map(([x, y, z]) => (b.query(x, y, z), b.free)).reverse();
     expect(fb).toEqual(fa);
   });
+
+  it('a kept exact scan gives the very list and bound of a fresh index (walkers stepping back into cells they left)', () => {
+    const k = grown(task3d(300, 0, '8'));
+    const p = k.positions();
+    const build = (): OccupancyIndex3d => {
+      const ix = new OccupancyIndex3d(p.count);
+      for (let i = 0; i < p.count; i++) ix.insert(p.coords[3 * i], p.coords[3 * i + 1], p.coords[3 * i + 2]);
+      return ix;
+    };
+    // nine points next to the cluster (1.2 diameters from a centre), in turn eight times: more cells than
+    // the index keeps, so scans are kept, reused and replaced
+    const rng = Random.forRun(9, 0);
+    const pts: number[][] = [];
+    for (let q = 0; q < 9; q++) {
+      const i = Math.floor(rng.nextDouble() * p.count);
+      const u = [rng.nextSigned(), rng.nextSigned(), rng.nextSigned()];
+      const l = Math.hypot(u[0], u[1], u[2]) || 1;
+      pts.push([0, 1, 2].map((a) => p.coords[3 * i + a] + (1.2 * u[a]) / l));
+    }
+    const fresh = pts.map(([x, y, z]) => {
+      const ix = build();
+      ix.query(x, y, z);
+      return { free: ix.free, count: ix.nearCount, x: Array.from(ix.nearX.subarray(0, Math.max(0, ix.nearCount))), id: Array.from(ix.nearId.subarray(0, Math.max(0, ix.nearCount))) };
+    });
+    expect(fresh.filter((f) => f.count > 0).length).toBeGreaterThan(5); // most of them take the exact scan
+    const kept = build();
+    for (let round = 0; round < 8; round++) {
+      const order = round % 2 === 0 ? [...pts.keys()] : [...pts.keys()].reverse().filter((_, j) => j % 3 !== 1);
+      for (const q of order) {
+        const [x, y, z] = pts[q];
+        kept.query(x, y, z);
+        expect({ free: kept.free, count: kept.nearCount, x: Array.from(kept.nearX.subarray(0, Math.max(0, kept.nearCount))), id: Array.from(kept.nearId.subarray(0, Math.max(0, kept.nearCount))) }).toEqual(fresh[q]);
+      }
+    }
+  });
 });
