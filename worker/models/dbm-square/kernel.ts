@@ -84,7 +84,8 @@ import { recordPlanarAnisotropy } from '../../core/anisotropy.js';
 import { PlanarCluster } from '../../core/planar-cluster.js';
 import type { StopSignal } from '../../core/stop-signal.js';
 import { PerimeterSites } from '../../lattice/perimeter-sites.js';
-import { SQUARE, siteOf, toSite } from '../../lattice/planar-lattice.js';
+import { SQUARE } from '../../lattice/planar-lattice.js';
+import { replayCheckpointSites } from '../../lattice/checkpoint-site-replay.js';
 import { CLUSTER, PotentialGrid } from './potential-grid.js';
 import { EnclosedRegions } from './enclosed-regions.js';
 
@@ -123,18 +124,10 @@ export class DbmSquare implements GrowthKernel {
       this.rng = Random.fromState(checkpoint.rngState);
       this.counters = { solver_iterations: checkpoint.counters.solver_iterations ?? 0, perimeter_sites: 0 };
       this.cluster = new PlanarCluster(task.particles, task.recordsPerDecade, recordExtra, checkpoint.series);
-      const pos = checkpoint.positions;
-      for (let k = 0; k < checkpoint.count; k++) {
-        const x = pos[2 * k];
-        const y = pos[2 * k + 1];
-        toSite(SQUARE, x, y);
-        const i = siteOf.i;
-        const j = siteOf.j;
-        if (i !== x || j !== y) throw new RangeError(`checkpoint position ${k} is not a lattice site`);
-        if (k > 0 && this.perimeter.valueAt(i, j) <= 0) throw new RangeError(`checkpoint position ${k} is not a perimeter site of the cluster before it`);
+      replayCheckpointSites(SQUARE, checkpoint.positions, checkpoint.count, this.perimeter, (i, j, k) => {
         if (k > 0) this.prepareBoundary();
         this.join(i, j, true);
-      }
+      });
       this.cluster.resumeRecords();
       this.restorePotential(checkpoint.modelState);
     }
