@@ -76,7 +76,6 @@
  * planar anisotropy measures (worker/core/anisotropy.ts, fold 4).
  */
 import type { Counters, ClusterPositions, GrowthCheckpoint, GrowthKernel, GrowthResult, GrowthTask } from '../../core/growth-kernel.js';
-import { ENGINE_VERSION } from '../../core/engine-version.js';
 import { Random, STREAM_GROWTH } from '../../core/random.js';
 import { StateHasher } from '../../core/state-hash.js';
 import { checkCheckpointOf } from '../../core/checkpoint-check.js';
@@ -294,17 +293,7 @@ export class DbmSquare implements GrowthKernel {
   }
 
   checkpoint(): GrowthCheckpoint {
-    return {
-      engineVersion: ENGINE_VERSION,
-      task: structuredClone(this.task),
-      dimension: 2,
-      count: this.cluster.n,
-      positions: this.cluster.xy.slice(0, 2 * this.cluster.n),
-      rngState: this.rng.state(),
-      counters: { solver_iterations: this.counters.solver_iterations, perimeter_sites: this.perimeter.count },
-      series: structuredClone(this.cluster.series),
-      modelState: this.potentialState(),
-    };
+    return this.cluster.checkpoint(this.task, this.rng.state(), { solver_iterations: this.counters.solver_iterations, perimeter_sites: this.perimeter.count }, this.potentialState());
   }
 
   result(): GrowthResult {

@@ -35,7 +35,6 @@
  * which states the one reassociation this brings to fold_amplitude_k).
  */
 import type { Counters, ClusterPositions, GrowthCheckpoint, GrowthKernel, GrowthResult, GrowthTask } from '../../core/growth-kernel.js';
-import { ENGINE_VERSION } from '../../core/engine-version.js';
 import { Random, STREAM_GROWTH } from '../../core/random.js';
 import { StateHasher } from '../../core/state-hash.js';
 import { checkCheckpointOf } from '../../core/checkpoint-check.js';
@@ -131,17 +130,7 @@ export class EdenLatticeKernel implements GrowthKernel {
   }
 
   checkpoint(): GrowthCheckpoint {
-    return {
-      engineVersion: ENGINE_VERSION,
-      task: structuredClone(this.task),
-      dimension: 2,
-      count: this.cluster.n,
-      positions: this.cluster.xy.slice(0, 2 * this.cluster.n),
-      rngState: this.rng.state(),
-      counters: { perimeter_sites: this.perimeter.count },
-      series: structuredClone(this.cluster.series),
-      modelState: new Uint8Array(0),
-    };
+    return this.cluster.checkpoint(this.task, this.rng.state(), { perimeter_sites: this.perimeter.count }, new Uint8Array(0));
   }
 
   result(): GrowthResult {
