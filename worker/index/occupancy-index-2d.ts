@@ -134,6 +134,14 @@ export class OccupancyIndex2d {
   nearCount = -1;
   /** Result of the last `query`: a lower bound on (nearest centre distance) − 1. */
   free = 0;
+  /**
+   * Work counters for benchmarks (one increment each, never read in a run):
+   * exact scans; among them the scans that gathered their 3 × 3 block afresh
+   * (the others reused the last one); and the gathers of the ring around it.
+   */
+  exactScans = 0;
+  blockGathers = 0;
+  ringGathers = 0;
 
   /**
    * The last exact scan's 3 × 3 block (level-0 cell of its centre; NO_CELL
@@ -329,6 +337,7 @@ export class OccupancyIndex2d {
     const nearY = this.nearY;
     let best = Infinity;
     let n: number;
+    this.exactScans++;
     if (cx === this.scanCx && cy === this.scanCy) {
       // same block as the last scan, no insert since: its centres are still in nearX/nearY
       n = this.scanCount;
@@ -344,6 +353,7 @@ export class OccupancyIndex2d {
       const next = this.next;
       const nearId = this.nearId;
       n = 0;
+      this.blockGathers++;
       let complete = true;
       // only the cells that hold centres (their bits in held0), row by row
       const row0 = this.heldRow0(cx, cy);
@@ -410,6 +420,7 @@ export class OccupancyIndex2d {
     let ringX = this.ringX;
     let ringY = this.ringY;
     let m = 0;
+    this.ringGathers++;
     const row0 = this.heldRow0(cx, cy);
     const words = this.held0.words;
     const shift = (cx & CORE_MASK) + WINDOW_RADIUS - 2; // bit 0: column cx - 2
