@@ -168,6 +168,8 @@ export class OccupancyIndex2d {
   private marks: TiledByteGrid[] = [];
   /** One bit per level-0 cell, set when the cell holds a centre (the HOLDS bits of marks[0], laid out for window reads). */
   private held0: WindowBitGrid;
+  /** Cells newly marked by an insert's raiseBlock, as (x, y) pairs (scratch). */
+  private readonly freshMarks = new Int32Array(2 * (2 * DILATION + 1) ** 2);
   /** Level at which the next search starts (a speed hint only). */
   private guess = 1;
   private count = 0;
@@ -258,22 +260,16 @@ export class OccupancyIndex2d {
       // every coarser cell containing it: nothing left to do.
       if ((old & HOLDS) !== 0) break;
       if (k === 0) this.held0.set(ix, iy);
-      t.raiseBlock(ix, iy, GAP_RADIUS, CLOSENESS, GAP_SHIFT);
-      const below = k > 0 ? this.marks[k - 1] : null;
-      for (let dy = -DILATION; dy <= DILATION; dy++)
-        for (let dx = -DILATION; dx <= DILATION; dx++) {
-          const was = dx === 0 && dy === 0 ? old : t.orBits(ix + dx, iy + dy, MARKED);
-          if ((was & MARKED) === 0 && below !== null) {
-            // newly marked: tell its four children, so that a query can stop
-            // at the largest unmarked level with one lookup
-            const jx = 2 * (ix + dx);
-            const jy = 2 * (iy + dy);
-            below.orBits(jx, jy, PARENT);
-            below.orBits(jx + 1, jy, PARENT);
-            below.orBits(jx, jy + 1, PARENT);
-            below.orBits(jx + 1, jy + 1, PARENT);
-          }
-        }
+      // closeness around the cell, and MARKED on its block (the cell itself has it already)
+      const fresh = this.freshMarks;
+      const m = t.raiseBlock(ix, iy, GAP_RADIUS, CLOSENESS, GAP_SHIFT, DILATION, MARKED, fresh);
+      if (k === 0) continue;
+      // Newly marked cells (the centre cell when `old` lacked MARKED) tell
+      // their four children, so that a query can stop at the largest
+      // unmarked level with one lookup.
+      const below = this.marks[k - 1];
+      if ((old & MARKED) === 0) markChildren(below, ix, iy);
+      for (let j = 0; j < m; j++) markChildren(below, fresh[2 * j], fresh[2 * j + 1]);
     }
   }
 
@@ -452,6 +448,16 @@ export class OccupancyIndex2d {
     const base = this.held0.tileOffset(cx, cy);
     return base < 0 ? -1 : base + (cy & CORE_MASK) + WINDOW_RADIUS;
   }
+}
+
+/** Set the PARENT bit of the four children (in the finer grid `below`) of cell (x, y). */
+function markChildren(below: TiledByteGrid, x: number, y: number): void {
+  const jx = 2 * x;
+  const jy = 2 * y;
+  below.orBits(jx, jy, PARENT);
+  below.orBits(jx + 1, jy, PARENT);
+  below.orBits(jx, jy + 1, PARENT);
+  below.orBits(jx + 1, jy + 1, PARENT);
 }
 
 /** A copy of `a` with room for at least `need` entries (a quarter more at a time, so that the slack stays small). */
