@@ -111,7 +111,7 @@ export function describeAnalysis(s: EnsembleSummaryData): string {
       lines.push(
         `isotropic noise at N = ${noise.sizes[i]} (mean shell count n = ${Math.round(noise.shellCount[i])}): sqrt(pi/(4n)) = ${noise.mean[i].toPrecision(3)}, ${Math.round(noise.quantile * 100)}% quantile sqrt(ln 20/n) = ${noise.threshold[i].toPrecision(3)}; ` +
           noise.verdicts.map((v) => `${v.name} ${v.verdict}`).join(', ') +
-          ` (rule: lower end of the band above the ${Math.round(noise.quantile * 100)}% quantile)`,
+          ` (rule: lower end of the band above the ${Math.round(noise.quantile * 100)}% quantile; angles along a branch are correlated, so isotropic DLA is above it too: compare with an isotropic baseline, tendril run --baseline)`,
       );
     } else if (parts.length > 0 && noise === null) lines.push('isotropic noise: not available (some run lacks shell_count: resumed from a checkpoint written before it was recorded)');
     const g = obs.interfaceGrowth;

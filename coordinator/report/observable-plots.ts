@@ -10,6 +10,7 @@
  */
 import type { FoldNoise, ObservableBand, ObservableSection } from '../stats/observable-bands.js';
 import { compareWithBaseline, type AnisotropyComparison } from '../stats/anisotropy-comparison.js';
+import { ABOVE_NOISE_RULE, NOISE_CAVEAT } from '../stats/fold-noise.js';
 import type { Figure } from './plots.js';
 import { COLOURS, Plot } from './svg-plot.js';
 
@@ -52,38 +53,40 @@ function anisotropyFigure(s: ObservableSection, kind: 'fold_amplitude' | 'axis_r
 
 /** The noise level √(π/(4n)) (dashed) and its 95% quantile (dotted), n the shell count of each cluster, averaged over clusters. */
 function noiseLines(p: Plot, noise: FoldNoise, colour: string, whose: string): void {
-  p.line(noise.sizes, noise.mean, { colour, width: 1.2, dash: '6 4' }, `noise${whose}: mean √(π/(4n)) for n independent angles`);
-  p.line(noise.sizes, noise.threshold, { colour, width: 1.2, dash: '1.5 3' }, `noise${whose}: ${Math.round(noise.quantile * 100)}% quantile √(ln 20 / n)`);
+  p.line(noise.sizes, noise.mean, { colour, width: 1.2, dash: '6 4' }, `isotropic noise, mean √(π/(4n)) (n: shell count${whose})`);
+  p.line(noise.sizes, noise.threshold, { colour, width: 1.2, dash: '1.5 3' }, `isotropic noise, ${Math.round(noise.quantile * 100)}% quantile √(ln 20 / n)`);
 }
 
-function noiseCaption(s: ObservableSection, whose = ''): string {
+const NOISE_DEFINITION =
+  'the isotropic noise level for n independent uniform angles, n the recorded number of particles in the outer shell of each cluster: ' +
+  'mean √(π/(4n)) (dashed) and 95% quantile √(ln 20 / n) (dotted) of the Rayleigh law of A_{k}, averaged over clusters (Mardia & Jupp 2000, Directional Statistics, §6.3.1)';
+
+/** The noise verdicts of one ensemble (only fold `fold` when given), or why there are none. */
+function noiseVerdicts(s: ObservableSection, fold?: number): string {
   const noise = s.foldNoise;
-  if (noise === undefined || noise === null) {
-    return `No noise level${whose}: ${noise === undefined ? 'the summary predates' : 'some run lacks'} the shell count n (observable shell_count). `;
-  }
-  const verdicts = noise.verdicts.map((v) => `A_{${v.name.replace('fold_amplitude_', '')}} at N = ${v.size}: ${v.verdict} (band low ${fmt(v.bandLow)} vs ${fmt(v.threshold)})`).join('; ');
-  return (
-    `Dashed/dotted${whose}: the isotropic noise level for n independent uniform angles, n the number of particles in the shell of each cluster (shell_count), ` +
-    `mean √(π/(4n)) and ${Math.round(noise.quantile * 100)}% quantile √(ln 20 / n) of the Rayleigh law, averaged over clusters (Mardia & Jupp 2000, Directional Statistics, §6.3.1). ` +
-    `Verdict${whose}: ${verdicts}. Rule: ${noise.rule}. `
-  );
+  if (noise === undefined || noise === null) return `no noise level (${noise === undefined ? 'the summary predates' : 'some run lacks'} the recorded shell count n)`;
+  return noise.verdicts
+    .filter((v) => fold === undefined || v.name === `fold_amplitude_${fold}`)
+    .map((v) => `A_{${v.name.replace('fold_amplitude_', '')}} at N = ${v.size} ${v.verdict} (band low ${fmt(v.bandLow)} vs ${fmt(v.threshold)})`)
+    .join('; ');
+}
+
+function noiseCaption(s: ObservableSection): string {
+  return `Grey: ${NOISE_DEFINITION}. Verdict: ${noiseVerdicts(s)}. Rule: ${ABOVE_NOISE_RULE}. ${NOISE_CAVEAT} `;
 }
 
 function fmt(v: number): string {
   return Number.isFinite(v) ? v.toPrecision(3) : 'n/a';
 }
 
-/** Largest relative difference of two noise levels at which the combined figure draws only one of them. */
-const NOISE_DRAW_BOTH = 0.1;
-
-/** Largest |a/b − 1| of the mean noise levels over the sizes both record; null when they share none. */
-function noiseDifference(a: FoldNoise, b: FoldNoise): number | null {
-  let worst: number | null = null;
-  a.sizes.forEach((n, i) => {
-    const j = b.sizes.indexOf(n);
-    if (j >= 0) worst = Math.max(worst ?? 0, Math.abs(a.mean[i] / b.mean[j] - 1));
-  });
-  return worst;
+/** The baseline's own noise level at the largest size both record, beside the drawn one. */
+function baselineNoiseNote(own: FoldNoise, base: FoldNoise, label: string): string {
+  const common = own.sizes.filter((n) => base.sizes.includes(n));
+  if (common.length === 0) return '';
+  const n = common[common.length - 1];
+  const a = own.mean[own.sizes.indexOf(n)];
+  const b = base.mean[base.sizes.indexOf(n)];
+  return `The noise level from the shell counts of ${label} (not drawn) is ${fmt(b)} at N = ${n} against ${fmt(a)} drawn (${((b / a - 1) * 100).toFixed(1)}%). `;
 }
 
 const VERDICT_PHRASE: Record<AnisotropyComparison['verdict'], string> = {
@@ -130,17 +133,11 @@ export function anisotropyComparisonFigure(own: LabelledObservables, baseline: L
   };
   draw(a, own.observables, COLOURS.blue, own.label);
   draw(b, baseline.observables, COLOURS.vermillion, `${baseline.label} (baseline)`);
-  // one grey noise pair (the two ensembles' shells hold nearly the same n at equal N); the baseline's
-  // own pair is drawn too only when it differs by more than NOISE_DRAW_BOTH somewhere
+  // one grey noise pair, from this ensemble's shell counts; the baseline's is quoted in the caption
   const ownNoise = own.observables.foldNoise ?? null;
   const baseNoise = baseline.observables.foldNoise ?? null;
-  const apart = ownNoise && baseNoise ? noiseDifference(ownNoise, baseNoise) : null;
-  if (ownNoise) noiseLines(p, ownNoise, COLOURS.grey, ` (n of ${own.label})`);
-  if (baseNoise && (!ownNoise || apart === null || apart > NOISE_DRAW_BOTH)) noiseLines(p, baseNoise, COLOURS.purple, ` (n of ${baseline.label})`);
-  const noiseNote =
-    ownNoise && baseNoise && apart !== null && apart <= NOISE_DRAW_BOTH
-      ? `The noise level of ${baseline.label} (its own shell counts) differs from the grey one by at most ${(apart * 100).toFixed(1)}% at the sizes both record and is not drawn separately. `
-      : '';
+  if (ownNoise) noiseLines(p, ownNoise, COLOURS.grey, ` of ${own.label}`);
+  const noiseNote = baseNoise && ownNoise ? baselineNoiseNote(ownNoise, baseNoise, baseline.label) : '';
   const c = comparison;
   const verdict =
     c.size === null || !c.own || !c.baseline
@@ -151,10 +148,10 @@ export function anisotropyComparisonFigure(own: LabelledObservables, baseline: L
     `Lattice anisotropy against an isotropic baseline: the ${fold}-fold angular Fourier amplitude of the particles between R_max/2 and R_max (worker/core/anisotropy.ts) ` +
     `of ${own.label} (blue) and ${baseline.label} (vermillion), ensemble means with percentile bootstrap bands over whole clusters. ` +
     verdict +
-    noiseCaption(own.observables, ` of ${own.label}`) +
-    noiseCaption(baseline.observables, ` of ${baseline.label}`) +
+    `Grey: ${NOISE_DEFINITION}, n of the ${own.label} clusters. ` +
     noiseNote +
-    'Angles within a DLA cluster are correlated along its branches, so even the isotropic baseline lies far above the independent-angle noise: the baseline, not the noise line, is the reference for anisotropy.';
+    `Noise verdicts: ${own.label}: ${noiseVerdicts(own.observables, fold)}; ${baseline.label}: ${noiseVerdicts(baseline.observables, fold)}. Rule: ${ABOVE_NOISE_RULE}. ` +
+    NOISE_CAVEAT;
   return { figure: { name: figName, title, caption, svg: p.toSvg(), note: null }, comparison };
 }
 

@@ -51,8 +51,11 @@ export function isotropicFoldQuantile(n: number, p: number = NOISE_QUANTILE): nu
 /** The rule of aboveNoise, printed beside every verdict. */
 export const ABOVE_NOISE_RULE =
   `'above noise' when the lower end of the bootstrap band of the ensemble mean A_k lies above the mean over clusters of √(ln 20 / n) ` +
-  `(the ${Math.round(NOISE_QUANTILE * 100)}% quantile of A_k for n independent uniform angles, Rayleigh law; n = the cluster's shell count), 'within noise' otherwise; ` +
-  'angles within a cluster are correlated (branches), so an isotropic model can be above this noise: anisotropy is judged against an isotropic baseline ensemble';
+  `(the ${Math.round(NOISE_QUANTILE * 100)}% quantile of A_k for n independent uniform angles, Rayleigh law; n = the cluster's shell count), 'within noise' otherwise`;
+
+/** What "above noise" does not mean, said beside the verdicts. */
+export const NOISE_CAVEAT =
+  'Angles within a DLA cluster are correlated along its branches, so even an isotropic model lies above the independent-angle noise: anisotropy is judged against an isotropic baseline ensemble (tendril run --baseline), not against this noise.';
 
 /** Verdict of one ensemble mean A_k with band lower end `lo` against the noise threshold `threshold` (ABOVE_NOISE_RULE). */
 export function aboveNoise(lo: number, threshold: number): 'above noise' | 'within noise' | 'unknown' {
