@@ -11,6 +11,8 @@
 import { describe, expect, it } from 'vitest';
 import type { GrowthResult } from '../worker/core/growth-kernel.js';
 import { recordPlanarAnisotropy } from '../worker/core/anisotropy.js';
+import { createKernel, modelParams } from '../worker/models/registry.js';
+import { decodeRunResult, encodeRunResult } from '../proto/convert.js';
 import { Random } from '../worker/core/random.js';
 import { aboveNoise, isotropicFoldMean, isotropicFoldQuantile } from '../coordinator/stats/fold-noise.js';
 import { observableSection } from '../coordinator/stats/observable-bands.js';
@@ -137,4 +139,40 @@ describe('foldNoise in the summary: the noise level from the recorded shell coun
     expect(aboveNoise(0.2, 0.1)).toBe('above noise');
     expect(aboveNoise(0.05, 0.1)).toBe('within noise');
   });
+});
+
+describe('shell_count in the kernels\' records and across checkpoints', () => {
+  for (const kind of ['dla-square', 'dla-offlattice-2d', 'eden-triangular']) {
+    it(`${kind}: one shell count per record, equal after a resume; a checkpoint from before shell_count resumes without it`, () => {
+      const task = { model: modelParams(kind), particles: 3000, ensembleSeed: '14', runIndex: 0, recordsPerDecade: 10 };
+      const whole = createKernel(task);
+      whole.growTo(3000);
+      const w = whole.result();
+      expect(w.series.extra.shell_count).toHaveLength(w.series.sizes.length);
+      // n counts the particles with R_max/2 < r <= R_max: at least the outermost one, at most N
+      w.series.extra.shell_count.forEach((n, i) => {
+        expect(Number.isInteger(n)).toBe(true);
+        expect(n).toBeGreaterThanOrEqual(1);
+        expect(n).toBeLessThanOrEqual(w.series.sizes[i]);
+      });
+      const first = createKernel(task);
+      first.growTo(1000);
+      const cp = structuredClone(first.checkpoint());
+      const resumed = createKernel(task, cp);
+      resumed.growTo(3000);
+      expect(resumed.result().series.extra).toEqual(w.series.extra);
+      expect(resumed.result().stateHash).toBe(w.stateHash);
+      // a checkpoint written before shell_count existed: the series goes on without it, and the result stays valid
+      const old = structuredClone(first.checkpoint());
+      delete old.series.extra.shell_count;
+      const legacy = createKernel(task, old);
+      legacy.growTo(3000);
+      const r = legacy.result();
+      expect(r.stateHash).toBe(w.stateHash);
+      expect(r.series.extra.shell_count).toBeUndefined();
+      expect(r.series.extra.fold_amplitude_4).toEqual(w.series.extra.fold_amplitude_4);
+      const wire = { ...r, ensembleId: 'e', timings: { growSeconds: 0, startedAtMs: 0, finishedAtMs: 0, resumes: 1, finishedBy: 'test' } };
+      expect(decodeRunResult(encodeRunResult(wire)).series.extra.fold_amplitude_4).toHaveLength(r.series.sizes.length);
+    });
+  }
 });
