@@ -122,6 +122,8 @@ import { PlanarGrowthWalk, WALK_STOPPED } from '../../walkers/planar-growth-walk
 import { checkCheckpointOf } from '../../core/checkpoint-check.js';
 import { recordPlanarAnisotropy } from '../../core/anisotropy.js';
 import { MAX_STEPS_PER_PARTICLE, WalkerStuck, type StopSignal } from '../../core/stop-signal.js';
+import { HitHistory } from './hit-history.js';
+import { RecurrencePower } from './recurrence-power.js';
 
 /** The counters of this model (names as declared by its descriptor). */
 export interface OffLatticeDbm2dCounters extends Counters {
@@ -130,7 +132,12 @@ export interface OffLatticeDbm2dCounters extends Counters {
   jumps: number;
   short_steps: number;
   returns: number;
+  capped: number;
 }
+
+/** params.method: 0 the exact method for η > 1, 1 the history method. */
+export const METHOD_EXACT = 0;
+export const METHOD_HISTORY = 1;
 
 /** A walk interrupted by the stop signal (internal: addParticle turns it into `false`). */
 const STOPPED = -1;
@@ -154,6 +161,16 @@ export class OffLatticeDbm2d implements GrowthKernel {
   private readonly deficit: number;
   private readonly cap: number;
   private readonly capWeight: number;
+  /** History method (η > 1, params.history_gaps > 0): the hit history, h_g, the headroom and the normaliser H. */
+  private readonly history: HitHistory | null;
+  private readonly power: RecurrencePower | null;
+  private readonly headroom: number;
+  private normaliser = 1;
+  /** Largest h_g of the particle being built (sets H for the next one). */
+  private largestWeight = 0;
+  private pendingCapped = 0;
+  /** The particle the last accepted attempt grew on. */
+  private grownOn = 0;
   private readonly xy: Float64Array;
   private readonly index: OccupancyIndex2d;
   private readonly rng: Random;
@@ -189,23 +206,28 @@ export class OffLatticeDbm2d implements GrowthKernel {
     this.deficit = this.eta < 1 ? 1 - this.eta : 0;
     this.cap = p.recurrence_cap;
     this.capWeight = recurrenceWeight(this.cap, this.deficit);
+    const useHistory = this.eta > 1 && (p.method ?? METHOD_EXACT) === METHOD_HISTORY;
+    this.history = useHistory ? new HitHistory(task.particles, Math.floor(extra) + 1 + (p.history_extra_gaps ?? 0)) : null;
+    this.power = this.history === null ? null : new RecurrencePower(extra);
+    this.headroom = p.history_headroom ?? 1;
     this.xy = new Float64Array(2 * task.particles);
     this.index = new OccupancyIndex2d(task.particles, this.xy);
     this.sizes = recordSizes(task.particles, task.recordsPerDecade);
     if (checkpoint === undefined) {
       this.rng = Random.forRun(task.ensembleSeed, task.runIndex, STREAM_GROWTH);
-      this.counters = { walkers: 0, attempts: 0, jumps: 0, short_steps: 0, returns: 0 };
+      this.counters = { walkers: 0, attempts: 0, jumps: 0, short_steps: 0, returns: 0, capped: 0 };
       this.series = { sizes: [], radiusOfGyration: [], maxRadius: [], centerOffset: [], extra: {} };
       this.place(0, 0);
     } else {
       checkCheckpointOf(task, 2, checkpoint);
-      if (checkpoint.modelState.length !== 0) throw new RangeError(`checkpoint modelState must be empty for ${task.model.kind}, got ${checkpoint.modelState.length} bytes`);
+      if (this.history === null && checkpoint.modelState.length !== 0) throw new RangeError(`checkpoint modelState must be empty for ${task.model.kind} with the exact method, got ${checkpoint.modelState.length} bytes`);
+      if (this.history !== null) this.normaliser = this.history.load(checkpoint.modelState, checkpoint.count);
       this.rng = Random.fromState(checkpoint.rngState);
       const c = checkpoint.counters;
-      this.counters = { walkers: c.walkers ?? 0, attempts: c.attempts ?? 0, jumps: c.jumps ?? 0, short_steps: c.short_steps ?? 0, returns: c.returns ?? 0 };
+      this.counters = { walkers: c.walkers ?? 0, attempts: c.attempts ?? 0, jumps: c.jumps ?? 0, short_steps: c.short_steps ?? 0, returns: c.returns ?? 0, capped: c.capped ?? 0 };
       this.series = structuredClone(checkpoint.series);
       const pos = checkpoint.positions;
-      for (let i = 0; i < checkpoint.count; i++) this.append(pos[2 * i], pos[2 * i + 1]);
+      for (let i = 0; i < checkpoint.count; i++) this.append(pos[2 * i], pos[2 * i + 1], false);
       while (this.nextRecord < this.sizes.length && this.sizes[this.nextRecord] <= this.n) this.nextRecord++;
     }
     this.walker = new PlanarGrowthWalk(this.index, this.rng, p.min_step, p.launch_margin, task.runIndex, limits.maxStepsPerParticle ?? MAX_STEPS_PER_PARTICLE);
@@ -238,7 +260,7 @@ export class OffLatticeDbm2d implements GrowthKernel {
       rngState: this.rng.state(),
       counters: { ...this.counters },
       series: structuredClone(this.series),
-      modelState: new Uint8Array(0),
+      modelState: this.history === null ? new Uint8Array(0) : this.history.serialise(this.n, this.normaliser),
     };
   }
 
@@ -259,12 +281,20 @@ export class OffLatticeDbm2d implements GrowthKernel {
     };
   }
 
-  /** Digest of count, positions, generator state and the walk counters (the fields dla-offlattice-2d hashes). */
+  /**
+   * Digest of count, positions, generator state and the walk counters (the
+   * fields dla-offlattice-2d hashes), and with the history method also the
+   * hit history and the normaliser.
+   */
   stateHash(): string {
     const h = new StateHasher();
     h.word(2).integer(this.n).float64Strided(this.xy, this.n, 2, 0).float64Strided(this.xy, this.n, 2, 1);
     for (const w of this.rng.state()) h.word(w);
     h.integer(this.counters.jumps).integer(this.counters.short_steps).integer(this.counters.returns);
+    if (this.history !== null) {
+      this.history.hashInto(h, this.n);
+      h.float64(this.normaliser);
+    }
     return h.digest();
   }
 
@@ -288,9 +318,13 @@ export class OffLatticeDbm2d implements GrowthKernel {
       const i = this.attempt(stop);
       if (i === STOPPED - 1) {
         this.rng.loadState(this.particleStart);
+        this.history?.undo();
         return false;
       }
-      if (i >= 0) break;
+      if (i >= 0) {
+        this.grownOn = i;
+        break;
+      }
     }
     const c = this.counters;
     c.jumps += this.pendingJumps;
@@ -298,6 +332,8 @@ export class OffLatticeDbm2d implements GrowthKernel {
     c.returns += this.pendingReturns;
     c.walkers += this.pendingWalkers;
     c.attempts += this.pendingAttempts;
+    c.capped += this.pendingCapped;
+    if (this.history !== null) this.normaliser = Math.min(1, this.headroom * this.largestWeight);
     this.place(this.hitX, this.hitY);
     return true;
   }
@@ -310,6 +346,9 @@ export class OffLatticeDbm2d implements GrowthKernel {
     this.pendingReturns = 0;
     this.pendingWalkers = 0;
     this.pendingAttempts = 0;
+    this.pendingCapped = 0;
+    this.largestWeight = 0;
+    this.history?.mark();
   }
 
   /**
@@ -323,6 +362,7 @@ export class OffLatticeDbm2d implements GrowthKernel {
     if (i === STOPPED) return STOPPED - 1;
     const eta = this.eta;
     if (eta === 1) return i;
+    if (this.history !== null) return this.historyAttempt(i, stop);
     if (eta > 1) {
       for (let m = 0; m < this.wholeExtra; m++) {
         const j = this.walk(stop);
@@ -364,6 +404,39 @@ export class OffLatticeDbm2d implements GrowthKernel {
   }
 
   /**
+   * The rest of a history-method attempt whose proposal walker touched i
+   * (header, "η > 1, history method"): −1 rejected, i accepted (contact point
+   * of the proposal in hitX/hitY), −2 stopped.
+   */
+  private historyAttempt(i: number, stop: StopSignal | undefined): number {
+    const history = this.history as HitHistory;
+    const power = this.power as RecurrencePower;
+    const need = power.minGaps;
+    const bar = this.rng.nextDouble() * this.normaliser;
+    let gaps = history.window(i);
+    if (gaps < need) {
+      // too few gaps since i's birth or reset: fresh walkers until i has
+      // `need` hits, or until even a hit now could not reach the bar
+      // (h_need decreases with the span: rejected whatever comes later)
+      const px = this.hitX;
+      const py = this.hitY;
+      const born = history.birth[i];
+      while (gaps < need) {
+        if (!(bar < power.weight(need, Math.max(need, history.clock + 1 - born)))) return -1;
+        const j = this.walk(stop);
+        if (j === STOPPED) return STOPPED - 1;
+        if (j === i) gaps = history.window(i);
+      }
+      this.hitX = px;
+      this.hitY = py;
+    }
+    const h = power.weight(gaps, history.span);
+    if (h > this.largestWeight) this.largestWeight = h;
+    if (h > this.normaliser) this.pendingCapped++;
+    return bar < h ? i : -1;
+  }
+
+  /**
    * One walker from the launch circle to its first contact
    * (worker/walkers/planar-growth-walk.ts, the walk of dla-offlattice-2d):
    * the arrival index of the particle it touched (contact point in
@@ -383,6 +456,7 @@ export class OffLatticeDbm2d implements GrowthKernel {
     this.pendingShort += walker.shortSteps;
     this.pendingReturns += walker.returns;
     this.pendingWalkers++;
+    this.history?.record(hit);
     this.hitX = walker.hitX;
     this.hitY = walker.hitY;
     return hit;
@@ -390,7 +464,7 @@ export class OffLatticeDbm2d implements GrowthKernel {
 
   /** Add a particle and take a record if the new size is on the grid. */
   private place(px: number, py: number): void {
-    this.append(px, py);
+    this.append(px, py, true);
     if (this.nextRecord < this.sizes.length && this.n === this.sizes[this.nextRecord]) {
       const n = this.n;
       const mx = this.sumX / n;
@@ -405,9 +479,19 @@ export class OffLatticeDbm2d implements GrowthKernel {
     }
   }
 
-  /** Add a particle to positions, index and running sums (no record). */
-  private append(px: number, py: number): void {
+  /**
+   * Add a particle to positions, index and running sums (no record). With the
+   * history method and `grown` (not when rebuilding from a checkpoint), the
+   * new particle is born now and the particle it grew on forgets its hits
+   * (header, approximation 2).
+   */
+  private append(px: number, py: number, grown: boolean): void {
     const i = this.n;
+    const history = this.history;
+    if (history !== null && grown) {
+      history.restart(i);
+      if (i > 0) history.restart(this.grownOn);
+    }
     this.xy[2 * i] = px;
     this.xy[2 * i + 1] = py;
     this.index.insert(px, py);
