@@ -61,10 +61,10 @@ export const dbmOffLattice2d: ModelDescriptor = {
     {
       name: 'history_headroom',
       unit: '',
-      default: 16,
+      default: 64,
       min: 1,
       max: 1_000_000,
-      meaning: 'history method only: the acceptance normaliser is this times the largest estimate of ω^(η−1) met while growing the previous particle, capped at 1 (larger: fewer capped acceptances, more walkers)',
+      meaning: 'history method only: the acceptance normaliser H is this times the running mean of the estimates of ω^(η−1) over recent proposals, at most 1; estimates above H are cut to H (larger: fewer cut, more walkers)',
     },
     dlaParam('min_step'),
     dlaParam('launch_margin'),

@@ -7,9 +7,13 @@
  * so that a stop can put the history back where that particle began.
  *
  * Serialised form (the checkpoint's modelState): float64 words
- * [clock, normaliser, then per particle: hits, birth, k + 1 ring slots].
+ * [clock, the kernel's normaliser and its two sums, then per particle: hits,
+ * birth, k + 1 ring slots].
  */
 import type { StateHasher } from '../../core/state-hash.js';
+
+/** Words before the per-particle part: the clock and the kernel's three numbers. */
+const HEAD = 4;
 
 export class HitHistory {
   /** Walkers released so far (the clock of the last one). */
@@ -97,14 +101,14 @@ export class HitHistory {
   /** Length in walkers of the last `window`. */
   span = 0;
 
-  /** Serialise the first n particles' history and the normaliser. */
-  serialise(n: number, normaliser: number): Uint8Array {
+  /** Serialise the first n particles' history and the kernel's EXTRA_WORDS numbers (normaliser and its sums). */
+  serialise(n: number, extra: [number, number, number]): Uint8Array {
     const r = this.ring;
-    const out = new Float64Array(2 + n * (2 + r));
+    const out = new Float64Array(HEAD + n * (2 + r));
     out[0] = this.clock;
-    out[1] = normaliser;
+    out.set(extra, 1);
     for (let i = 0; i < n; i++) {
-      const o = 2 + i * (2 + r);
+      const o = HEAD + i * (2 + r);
       out[o] = this.hits[i];
       out[o + 1] = this.birth[i];
       for (let s = 0; s < r; s++) out[o + 2 + s] = this.times[r * i + s];
@@ -112,21 +116,21 @@ export class HitHistory {
     return new Uint8Array(out.buffer);
   }
 
-  /** Load what `serialise` wrote for n particles; returns the normaliser. Throws one line when the size does not fit. */
-  load(bytes: Uint8Array, n: number): number {
+  /** Load what `serialise` wrote for n particles; returns the kernel's numbers. Throws one line when the size does not fit. */
+  load(bytes: Uint8Array, n: number): [number, number, number] {
     const r = this.ring;
-    const words = 2 + n * (2 + r);
+    const words = HEAD + n * (2 + r);
     if (bytes.length !== 8 * words) throw new RangeError(`checkpoint modelState must hold the hit history of ${n} particles with ${this.gaps} recurrence gaps (${8 * words} bytes), got ${bytes.length} bytes`);
     const w = new Float64Array(bytes.slice().buffer);
     this.clock = w[0];
     for (let i = 0; i < n; i++) {
-      const o = 2 + i * (2 + r);
+      const o = HEAD + i * (2 + r);
       this.hits[i] = w[o];
       this.birth[i] = w[o + 1];
       for (let s = 0; s < r; s++) this.times[r * i + s] = w[o + 2 + s];
     }
     this.clockAtMark = this.clock;
-    return w[1];
+    return [w[1], w[2], w[3]];
   }
 
   /** Feed the first n particles' history into a state hash. */

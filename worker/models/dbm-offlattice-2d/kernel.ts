@@ -135,6 +135,9 @@ export interface OffLatticeDbm2dCounters extends Counters {
   capped: number;
 }
 
+/** History method: the normaliser follows the mean estimate over about this many proposals. */
+const NORMALISER_MEMORY = 4096;
+
 /** params.method: 0 the exact method for η > 1, 1 the history method. */
 export const METHOD_EXACT = 0;
 export const METHOD_HISTORY = 1;
@@ -166,8 +169,10 @@ export class OffLatticeDbm2d implements GrowthKernel {
   private readonly power: RecurrencePower | null;
   private readonly headroom: number;
   private normaliser = 1;
-  /** Largest h_g of the particle being built (sets H for the next one). */
-  private largestWeight = 0;
+  /** Decayed sums of the proposals' h_g and of their number (H = min(1, headroom · mean)); this particle's part. */
+  private weightSum = 0;
+  private weightCount = 0;
+  private pendingWeightSum = 0;
   private pendingCapped = 0;
   /** The particle the last accepted attempt grew on. */
   private grownOn = 0;
@@ -221,7 +226,7 @@ export class OffLatticeDbm2d implements GrowthKernel {
     } else {
       checkCheckpointOf(task, 2, checkpoint);
       if (this.history === null && checkpoint.modelState.length !== 0) throw new RangeError(`checkpoint modelState must be empty for ${task.model.kind} with the exact method, got ${checkpoint.modelState.length} bytes`);
-      if (this.history !== null) this.normaliser = this.history.load(checkpoint.modelState, checkpoint.count);
+      if (this.history !== null) [this.normaliser, this.weightSum, this.weightCount] = this.history.load(checkpoint.modelState, checkpoint.count);
       this.rng = Random.fromState(checkpoint.rngState);
       const c = checkpoint.counters;
       this.counters = { walkers: c.walkers ?? 0, attempts: c.attempts ?? 0, jumps: c.jumps ?? 0, short_steps: c.short_steps ?? 0, returns: c.returns ?? 0, capped: c.capped ?? 0 };
@@ -260,7 +265,7 @@ export class OffLatticeDbm2d implements GrowthKernel {
       rngState: this.rng.state(),
       counters: { ...this.counters },
       series: structuredClone(this.series),
-      modelState: this.history === null ? new Uint8Array(0) : this.history.serialise(this.n, this.normaliser),
+      modelState: this.history === null ? new Uint8Array(0) : this.history.serialise(this.n, [this.normaliser, this.weightSum, this.weightCount]),
     };
   }
 
@@ -293,7 +298,7 @@ export class OffLatticeDbm2d implements GrowthKernel {
     h.integer(this.counters.jumps).integer(this.counters.short_steps).integer(this.counters.returns);
     if (this.history !== null) {
       this.history.hashInto(h, this.n);
-      h.float64(this.normaliser);
+      h.float64(this.normaliser).float64(this.weightSum).float64(this.weightCount);
     }
     return h.digest();
   }
@@ -333,7 +338,13 @@ export class OffLatticeDbm2d implements GrowthKernel {
     c.walkers += this.pendingWalkers;
     c.attempts += this.pendingAttempts;
     c.capped += this.pendingCapped;
-    if (this.history !== null) this.normaliser = Math.min(1, this.headroom * this.largestWeight);
+    if (this.history !== null) {
+      // decayed mean of h over about the last NORMALISER_MEMORY proposals
+      const keep = Math.pow(1 - 1 / NORMALISER_MEMORY, this.pendingAttempts);
+      this.weightSum = this.weightSum * keep + this.pendingWeightSum;
+      this.weightCount = this.weightCount * keep + this.pendingAttempts;
+      this.normaliser = Math.min(1, (this.headroom * this.weightSum) / this.weightCount);
+    }
     this.place(this.hitX, this.hitY);
     return true;
   }
@@ -347,7 +358,7 @@ export class OffLatticeDbm2d implements GrowthKernel {
     this.pendingWalkers = 0;
     this.pendingAttempts = 0;
     this.pendingCapped = 0;
-    this.largestWeight = 0;
+    this.pendingWeightSum = 0;
     this.history?.mark();
   }
 
@@ -422,7 +433,11 @@ export class OffLatticeDbm2d implements GrowthKernel {
       const py = this.hitY;
       const born = history.birth[i];
       while (gaps < need) {
-        if (!(bar < power.weight(need, Math.max(need, history.clock + 1 - born)))) return -1;
+        const most = power.weight(need, Math.max(need, history.clock + 1 - born));
+        if (!(bar < most)) {
+          this.pendingWeightSum += most;
+          return -1;
+        }
         const j = this.walk(stop);
         if (j === STOPPED) return STOPPED - 1;
         if (j === i) gaps = history.window(i);
@@ -431,7 +446,7 @@ export class OffLatticeDbm2d implements GrowthKernel {
       this.hitY = py;
     }
     const h = power.weight(gaps, history.span);
-    if (h > this.largestWeight) this.largestWeight = h;
+    this.pendingWeightSum += h;
     if (h > this.normaliser) this.pendingCapped++;
     return bar < h ? i : -1;
   }
