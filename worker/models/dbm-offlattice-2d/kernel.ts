@@ -36,7 +36,8 @@
  *  1. Proposal: one walker; it touches particle i (probability ω_i).
  *  2. η = 1: accept i always (this path consumes the random stream exactly
  *     as dla-offlattice-2d does, so η = 1 gives its state hashes).
- *  3. η > 1, η − 1 = m + f (m integer, 0 <= f < 1):
+ *  3. η > 1 with params.method = 0 (the exact method), η − 1 = m + f
+ *     (m integer, 0 <= f < 1):
  *     a) m more walkers; the attempt fails unless every one touches i
  *        (probability ω_i^m);
  *     b) if f > 0, a Bernoulli factory for ω_i^f: draw u uniform in [0, 1);
@@ -56,6 +57,57 @@
  *     the same particle". The contact point is an exact sample of the
  *     measure restricted to i: acceptance depends only on which particle each
  *     walker touched, never on where.
+ *  3h. η > 1 with params.method = 1 (the history method, the default):
+ *     every walker released is recorded in a hit history (hit-history.ts):
+ *     a walker clock t (walkers so far), and per particle the clock of its
+ *     birth or last reset and of its last k + 1 hits since then, where
+ *     b = η − 1 and k = floor(b) + 1 + params.history_extra_gaps. After the
+ *     proposal on i (step 1), the window of i's hits ending at this one spans
+ *     g = min(k, hits of i since birth/reset) recurrence gaps (the birth
+ *     starts the first gap) and S walkers. If g < g0 = floor(b) + 1 (i is
+ *     young), fresh walkers are released (and recorded) until i has g0
+ *     hits, so g = g0. The estimate is h_g(S) = Π_{j=g}^{S−1} (1 − b/j)
+ *     (recurrence-power.ts). On a frozen cluster the g gaps are independent
+ *     geometric with mean 1/ω_i, S is negative binomial, and
+ *     E[h_g(S)] = ω_i^b exactly: Σ_s h_g(s) C(s − 1, g − 1) ω^g (1 − ω)^(s−g)
+ *     = ω^b follows from the binomial series of (1 − x)^(b − g) (positive
+ *     coefficients since g > b), and 0 < h_g <= 1. The attempt accepts i iff
+ *     u H < h_g(S), u uniform in [0, 1) drawn before any fresh walker, with
+ *     the normaliser H = min(1, params.history_headroom × the mean of h over
+ *     recent proposals), a decayed mean over about NORMALISER_MEMORY =
+ *     4096 proposals, updated only when a particle is placed (fixed while
+ *     one is built). h_g decreases with S, so a young particle's fresh
+ *     walkers stop as soon as even a hit at the next walker could not reach
+ *     u H (rejected: the same law with fewer walkers). Accepted, the disk
+ *     goes at the proposal walker's contact point. When a disk is placed it
+ *     is born (no hits) and the particle it grew on forgets its hits (reset).
+ *     An attempt then accepts i with probability ω_i E[min(1, h/H)], which
+ *     is ω_i^η / H (the same factor for every particle) when nothing below
+ *     is at work; the walkers per particle drop from about 1/Σ ω^η to about
+ *     H/Σ ω^η plus the fresh walkers of young particles.
+ *     THE APPROXIMATIONS (none vanishes at the defaults; the slow test
+ *     test/dbm-offlattice-history.slow.test.ts compares the defaults with
+ *     the exact method at η = 2, N = 200 and η = 4, N = 50):
+ *      (a) stale history: the gaps of a window were recorded while the
+ *          cluster was smaller, so h estimates a past ω_i. Resetting the
+ *          particle grown on removes the largest change (its ω drops most);
+ *          other particles keep windows of up to k gaps. Smaller k (history_
+ *          extra_gaps = 0, the default) is less stale. Exact only on a frozen
+ *          cluster.
+ *      (b) shared history: consecutive attempts reuse the same recorded hits,
+ *          so they are not independent, and the first accepted attempt is
+ *          not exactly distributed as ω^η/Σ ω^η even on a frozen cluster
+ *          (the effect is of order the ω of the particles involved).
+ *      (c) cut weights: when h_g(S) > H the acceptance is 1 instead of h/H,
+ *          which under-weights particles whose estimate fluctuates above H
+ *          (the counter `capped` counts such acceptances). It vanishes as
+ *          history_headroom → ∞ (H → 1: no speed-up left). Measured capped
+ *          fractions at the default 64: about 1% of particles at η = 2 and
+ *          about 14% at η = 4 (test/bench/dbm-bench.ts), so at η = 4 this
+ *          bias is not small.
+ *      (d) the normaliser H is computed from the same history; any H common
+ *          to all particles cancels except through (c).
+ *     η = 1 never uses the history (step 2), so its hashes stay those of DLA.
  *  4. 0 <= η < 1, a = 1 − η: the recurrence estimator with cap T
  *     (params.recurrence_cap). Release up to T − 1 more walkers; X is the
  *     index of the first one that touches i, or T when none does (X =
@@ -96,20 +148,28 @@
  * for ω^f and the capped recurrence estimator are our own constructions from
  * the binomial series above (no source needed beyond it). The recurrence-time
  * estimators of Somfai, Goold, Ball, DeVita & Sander 2004 (Phys. Rev. E 70,
- * 051403) were not used: the paper's text was not available to us.
+ * 051403) are the published idea behind the history method (estimate the
+ * growth weight of a particle from the recurrence times of walker hits on
+ * it); the paper's text was not available to us, so h_g, the young-particle
+ * completion, the reset and the normaliser are our own constructions,
+ * derived above.
  *
  * Counters: walkers (every walker released), attempts (proposal walkers),
- * and the walk counters of DLA (jumps, short_steps, returns). Walkers per
+ * capped (history method, approximation (c)), and the walk counters of DLA (jumps, short_steps, returns). Walkers per
  * particle = walkers / (particles − 1).
  *
  * Determinism: the random stream is Random.forRun(ensembleSeed, runIndex,
  * STREAM_GROWTH), consumed per particle in a fixed order. A stop abandons the
  * particle being built (all its attempts), restores the generator to where
  * that particle began, and leaves the state after the last whole particle.
- * Checkpoints hold positions, generator state, counters and records; the
+ * The history method records its walkers in an undo journal while a
+ * particle is built; a stop undoes them too. Checkpoints hold positions,
+ * generator state, counters and records, and with the history method the
+ * hit history, H and its two decayed sums (modelState; empty otherwise); the
  * index is rebuilt from positions. The state hash covers the same fields as
  * dla-offlattice-2d's (count, positions, generator state, jumps, short_steps,
- * returns), so η = 1 reproduces its hashes.
+ * returns), so η = 1 reproduces its hashes, and with the history method also
+ * the history and H.
  */
 
 import type { Counters, ClusterPositions, GrowthCheckpoint, GrowthKernel, GrowthResult, GrowthSeries, GrowthTask } from '../../core/growth-kernel.js';
