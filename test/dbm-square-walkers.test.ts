@@ -9,7 +9,6 @@
 import { describe, expect, it } from 'vitest';
 import { checkModelForSize, createKernel, modelParams } from '../worker/models/registry.js';
 import type { GrowthCheckpoint, GrowthTask } from '../worker/core/growth-kernel.js';
-import { ENGINE_VERSION } from '../worker/core/engine-version.js';
 import { Random } from '../worker/core/random.js';
 import { createStopSignal, raiseStop } from '../worker/core/stop-signal.js';
 import { DbmSquareWalkers } from '../worker/models/dbm-square-walkers/kernel.js';
@@ -17,39 +16,19 @@ import { SpecError, validateSpec } from '../coordinator/spec/index.js';
 import { validateLaunch } from '../coordinator/spec/sweep.js';
 import { greenWithPoleAtInfinity } from './support/lattice-potential.js';
 import { yieldToRunner } from './support/grow.js';
+import { chi2Critical999 } from './support/chi-square.js';
+import { fixedClusterCheckpoint, latticeDbmTask, L_TETROMINO, RING } from './support/lattice-dbm-fixtures.js';
 
 const KIND = 'dbm-square-walkers';
 
 function walkTask(particles: number, params: Record<string, number> = {}, runIndex = 0, seed = '31'): GrowthTask {
-  return { model: modelParams(KIND, params), particles, ensembleSeed: seed, runIndex, recordsPerDecade: 10 };
+  return latticeDbmTask(KIND, particles, params, runIndex, seed);
 }
 
-/** Upper 0.001 point of chi-square(k) by the Wilson–Hilferty approximation (Wilson & Hilferty 1931, PNAS 17, 684; from memory). */
-function chi2Critical999(k: number): number {
-  const z = 3.0902;
-  return k * (1 - 2 / (9 * k) + z * Math.sqrt(2 / (9 * k))) ** 3;
-}
-
-/** A checkpoint holding exactly the fixed cluster `sites` (each a perimeter site of the ones before), with generator state `rng`. */
+/** A checkpoint holding exactly the fixed cluster `sites` (each a perimeter site of the ones before), with generator state `rng`; RING's inside has u = 0. */
 function fixedCluster(sites: [number, number][], params: Record<string, number>, rng: Uint32Array): GrowthCheckpoint {
-  const task = walkTask(sites.length + 1, params);
-  return {
-    engineVersion: ENGINE_VERSION,
-    task,
-    dimension: 2,
-    count: sites.length,
-    positions: Float64Array.from(sites.flat()),
-    rngState: rng,
-    counters: {},
-    series: { sizes: [], radiusOfGyration: [], maxRadius: [], centerOffset: [], extra: {} },
-    modelState: new Uint8Array(0),
-  };
+  return fixedClusterCheckpoint(walkTask(sites.length + 1, params), sites, rng);
 }
-
-// The L-tetromino (perimeter sites with 1 and 2 cluster neighbours), grown from the seed in this order.
-const L_TETROMINO: [number, number][] = [[0, 0], [1, 0], [2, 0], [0, 1]];
-// A closed ring round (1, 1): its inside is a perimeter site with u = 0 (4 cluster neighbours).
-const RING: [number, number][] = [[0, 0], [1, 0], [2, 0], [2, 1], [2, 2], [1, 2], [0, 2], [0, 1]];
 
 /**
  * Exact check (exact, derived here: the kernel header derives the sampler's law u^η/Σu^η; u from

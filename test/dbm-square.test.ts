@@ -7,35 +7,24 @@
  */
 import { describe, expect, it } from 'vitest';
 import { createKernel, modelParams } from '../worker/models/registry.js';
-import type { GrowthCheckpoint, GrowthKernel, GrowthTask } from '../worker/core/growth-kernel.js';
-import { ENGINE_VERSION } from '../worker/core/engine-version.js';
+import type { GrowthKernel, GrowthTask } from '../worker/core/growth-kernel.js';
 import { Random } from '../worker/core/random.js';
 import { createStopSignal, raiseStop } from '../worker/core/stop-signal.js';
 import { DbmSquare } from '../worker/models/dbm-square/kernel.js';
 import { greenWithPoleAtInfinity, potentialKernel } from './support/lattice-potential.js';
 import { ksTwoSample } from './support/ks.js';
 import { finalRg, yieldToRunner } from './support/grow.js';
+import { chi2Critical999, chiSquare } from './support/chi-square.js';
+import { fixedClusterCheckpoint, latticeDbmTask, L_TETROMINO, RING } from './support/lattice-dbm-fixtures.js';
 
 function dbmTask(particles: number, params: Record<string, number> = {}, runIndex = 0, seed = '31'): GrowthTask {
-  return { model: modelParams('dbm-square', params), particles, ensembleSeed: seed, runIndex, recordsPerDecade: 10 };
+  return latticeDbmTask('dbm-square', particles, params, runIndex, seed);
 }
 
 function grown(task: GrowthTask): GrowthKernel {
   const k = createKernel(task);
   k.growTo(task.particles);
   return k;
-}
-
-/** Upper 0.001 point of chi-square(k) by the Wilson–Hilferty approximation (Wilson & Hilferty 1931, PNAS 17, 684; from memory). */
-function chi2Critical999(k: number): number {
-  const z = 3.0902;
-  return k * (1 - 2 / (9 * k) + z * Math.sqrt(2 / (9 * k))) ** 3;
-}
-
-function chiSquare(counts: number[], probs: ArrayLike<number>, total: number): number {
-  let s = 0;
-  for (let i = 0; i < counts.length; i++) s += (counts[i] - total * probs[i]) ** 2 / (total * probs[i]);
-  return s;
 }
 
 /**
@@ -96,18 +85,7 @@ function fixedCluster(sites: [number, number][], params: Record<string, number>,
     v.setFloat64(8, unknowns, true);
     for (let k = 0; k < unknowns; k++) v.setFloat64(16 + 8 * k, 1, true);
   }
-  const cp: GrowthCheckpoint = {
-    engineVersion: ENGINE_VERSION,
-    task,
-    dimension: 2,
-    count: sites.length,
-    positions: Float64Array.from(sites.flat()),
-    rngState: rng,
-    counters: {},
-    series: { sizes: [], radiusOfGyration: [], maxRadius: [], centerOffset: [], extra: {} },
-    modelState,
-  };
-  return createKernel(task, cp) as DbmSquare;
+  return createKernel(task, fixedClusterCheckpoint(task, sites, rng, modelState)) as DbmSquare;
 }
 
 /**
@@ -127,9 +105,6 @@ function totalVariation(a: ArrayLike<number>, b: ArrayLike<number>): number {
   for (let i = 0; i < a.length; i++) s += Math.abs(a[i] - b[i]);
   return s / 2;
 }
-
-// The L-tetromino as in test/dla-square.test.ts, grown from the seed in this order.
-const L_TETROMINO: [number, number][] = [[0, 0], [1, 0], [2, 0], [0, 1]];
 
 describe('dbm-square: the potential solver against closed forms', () => {
   it('single seed, far boundary at R_far = 120: φ(x)/φ(1,0) = a(x) with a(1,1) = 4/π, a(2,0) = 4 − 8/π, a(2,1) = 8/π − 1 (Spitzer 1964, Principles of Random Walk, §15; values from memory) to 1e-4', () => {
@@ -252,8 +227,7 @@ describe('dbm-square: growth probabilities on a small fixed cluster', () => {
 describe('dbm-square: holes', () => {
   it('a closed ring makes its inside a hole: φ = 0 there, so it never grows for η > 0; at η = 0 it is a perimeter site like any other', () => {
     // grown in this order from the seed: the last site closes the ring round (1, 1)
-    const ring: [number, number][] = [[0, 0], [1, 0], [2, 0], [2, 1], [2, 2], [1, 2], [0, 2], [0, 1]];
-    const k = fixedCluster(ring, { eta: 0.5 });
+    const k = fixedCluster(RING, { eta: 0.5 });
     expect(k.holeSites).toBe(1);
     const p = k.growthProbabilities();
     const perimeter = k.perimeterSites();
@@ -261,7 +235,7 @@ describe('dbm-square: holes', () => {
     expect(inside).toBeGreaterThanOrEqual(0);
     expect(p[inside]).toBe(0);
     for (let s = 0; s < p.length; s++) if (s !== inside) expect(p[s]).toBeGreaterThan(0);
-    const flat = fixedCluster(ring, { eta: 0 });
+    const flat = fixedCluster(RING, { eta: 0 });
     expect(flat.growthProbabilities()[inside]).toBe(1 / perimeter.length);
   });
 });

@@ -210,6 +210,16 @@ describe('Eden kernels: determinism, checkpoints, descriptors', () => {
     cp.positions[2 * 9] += 5;
     expect(() => createKernel(edenTask('eden-square', 100), cp)).toThrow(/checkpoint position 9 is not a perimeter site/);
   });
+
+  it('a checkpoint position that is not a lattice site is refused, not rounded to the nearest site', () => {
+    for (const kind of ['eden-square', 'eden-triangular']) {
+      const k = createKernel(edenTask(kind, 100));
+      k.growTo(10);
+      const cp = k.checkpoint();
+      cp.positions[2 * 9] += 0.25;
+      expect(() => createKernel(edenTask(kind, 100), cp)).toThrow(/^checkpoint position 9 is not a lattice site$/);
+    }
+  });
 });
 
 describe('Eden: mass–radius dimension D = 2 (exact: compact clusters)', () => {

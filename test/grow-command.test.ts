@@ -1,6 +1,6 @@
 import { runNode } from './support/run-node.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { defaultModelParams } from '../worker/models/registry.js';
+import { defaultModelParams, MODEL_KINDS } from '../worker/models/registry.js';
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -183,7 +183,8 @@ describe('tendril grow, bad options', () => {
     ['launch_margin too large', ['--particles', '10', '--param', 'launch_margin=1e4'], 'tendril: --param launch_margin: 10000 is out of range; allowed: a number above 0 and at most 1000 (particle diameters, for dla-offlattice-2d)'],
     ['unknown parameter', ['--particles', '10', '--param', 'eta=2'], 'tendril: --param eta: not a parameter of dla-offlattice-2d; allowed: min_step, launch_margin'],
     ['parameter without a value', ['--particles', '10', '--param', 'min_step'], 'tendril: --param: "min_step" is not allowed; allowed: NAME=VALUE with NAME one of min_step, launch_margin'],
-    ['unknown model', ['--particles', '10', '--model', 'dla-3d-foo'], 'tendril: --model: "dla-3d-foo" is not a model; allowed: one of dla-offlattice-2d, eden-square, eden-triangular, eden-offlattice-2d, dla-square, dla-triangular, dla-offlattice-3d, dbm-offlattice-2d, dbm-square, dbm-square-walkers (see tendril models)'],
+    // every registered model in registry order (a new model needs no edit here)
+    ['unknown model', ['--particles', '10', '--model', 'dla-3d-foo'], `tendril: --model: "dla-3d-foo" is not a model; allowed: one of ${MODEL_KINDS.join(', ')} (see tendril models)`],
     ['picture-size too small', ['--particles', '10', '--picture-size', '63'], `tendril: --picture-size: 63 is out of range; allowed: ${R} 64 to 8192 (pixels)`],
     ['picture-size too large', ['--particles', '10', '--picture-size', '8193'], `tendril: --picture-size: 8193 is out of range; allowed: ${R} 64 to 8192 (pixels)`],
     ['records-per-decade too small', ['--particles', '10', '--records-per-decade', '9'], `tendril: --records-per-decade: 9 is out of range; allowed: ${R} 10 to 100`],

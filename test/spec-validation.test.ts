@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { parseSpec, parseSpecText, SpecError, specToDocument, validateSpec, limitsFromEnv, formatOf } from '../coordinator/spec/index.js';
+import { MODEL_KINDS } from '../worker/models/registry.js';
 
 const good = `
 name = "demo"
@@ -76,7 +77,8 @@ describe('ensemble spec', () => {
     ['particles not an integer', { ...base, particles: 10.5 }, 'particles: 10.5 is not allowed; allowed: an integer from 2 to 100000000'],
     ['particles a string', { ...base, particles: '1000' }, 'particles: "1000" is not allowed; allowed: an integer from 2 to 100000000'],
     ['clusters too many', { ...base, clusters: 100001 }, 'clusters: 100001 is out of range; allowed: an integer from 1 to 100000'],
-    ['unknown model', { ...base, model: 'dla-3d' }, 'model: "dla-3d" is not allowed; allowed: one of "dla-offlattice-2d", "eden-square", "eden-triangular", "eden-offlattice-2d", "dla-square", "dla-triangular", "dla-offlattice-3d", "dbm-offlattice-2d", "dbm-square", "dbm-square-walkers"'],
+    // every registered model, quoted, in registry order (a new model needs no edit here)
+    ['unknown model', { ...base, model: 'dla-3d' }, `model: "dla-3d" is not allowed; allowed: one of ${MODEL_KINDS.map((k) => `"${k}"`).join(', ')}`],
     ['missing seed', { model: 'dla-offlattice-2d', particles: 10, clusters: 1 }, 'seed: missing; allowed: ensemble seed: an unsigned 64-bit integer (a string of decimal digits, or an integer below 2^53)'],
     ['negative seed', { ...base, seed: -1 }, 'seed: -1 is not allowed; allowed: ensemble seed: an unsigned 64-bit integer (a string of decimal digits, or an integer below 2^53)'],
     ['seed above 2^64', { ...base, seed: '18446744073709551616' }, 'seed: "18446744073709551616" is out of range; allowed: an integer from 0 to 18446744073709551615'],

@@ -148,16 +148,18 @@ export function register(program: Command): void {
         .option('--format <format>', 'json, csv, pb, tables (a folder of CSV files) or html (report.html with plots, into a folder)', 'json')
         .option('--table <name>', `CSV table for --format csv: ${CSV_TABLE_NAMES.join(', ')}`, 'series')
         .option('--out <path>', 'file (json, csv, pb) or folder (tables, html); default standard output for json and csv')
-        .option('--artifacts <dir>', "the workers' artifact folder, where --format html finds the sample cluster and the harmonic-measure picture (default: TENDRIL_ARTIFACTS)"),
+        .option('--artifacts <dir>', "the workers' artifact folder, where --format html finds the sample cluster and the harmonic-measure picture (default: TENDRIL_ARTIFACTS)")
+        .option('--baseline <dir>', 'with --format html: the folder of an earlier summary (tendril run --out, or --format html --out) of an isotropic model, drawn with this ensemble in the anisotropy figure'),
     ),
-  ).action(async (id: string, opts: FarmCliOptions & AnalysisCliOptions & { format: string; table: string; out?: string; artifacts?: string }) => {
+  ).action(async (id: string, opts: FarmCliOptions & AnalysisCliOptions & { format: string; table: string; out?: string; artifacts?: string; baseline?: string }) => {
     const formats = [...SUMMARY_FORMATS, 'tables', 'html'];
     if (!formats.includes(opts.format)) throw new UsageError(`--format: "${opts.format}" is not allowed; allowed: ${formats.join(', ')}`);
     if (!CSV_TABLE_NAMES.includes(opts.table)) throw new UsageError(`--table: "${opts.table}" is not allowed; allowed: ${CSV_TABLE_NAMES.join(', ')}`);
     if (opts.format === 'pb' && !opts.out && process.stdout.isTTY) throw new UsageError('--out: missing; allowed: a file name (protobuf is not written to a terminal)');
     if ((opts.format === 'tables' || opts.format === 'html') && !opts.out) throw new UsageError(`--out: missing; allowed: a folder name (--format ${opts.format} writes several files)`);
-    const [{ farmSummary }, { defaultSummaryOptions, renderSummary }, { describeAnalysis, writeSummaryFiles }, { analysisSettingsFromCli }] = await Promise.all([
-      import('../farm/summary.js'), import('../summary/index.js'), import('./summary-files.js'), import('./analysis-options.js'),
+    if (opts.baseline !== undefined && opts.format !== 'html') throw new UsageError(`--baseline: given with --format ${opts.format}; allowed: only with --format html`);
+    const [{ farmSummary }, { defaultSummaryOptions, renderSummary }, { describeAnalysis, describeBaseline, writeSummaryFiles }, { analysisSettingsFromCli }, { loadBaseline }] = await Promise.all([
+      import('../farm/summary.js'), import('../summary/index.js'), import('./summary-files.js'), import('./analysis-options.js'), import('./anisotropy-baseline.js'),
     ]);
     // read through the small RESP client: the summary needs no ioredis (start-up time)
     const farm = await openReader(opts);
@@ -169,15 +171,16 @@ export function register(program: Command): void {
         if (await summariseSweep(store, id, opts)) return;
         throw new UsageError(`ensemble id: "${id}" is not known to this farm`);
       }
+      const baseline = opts.baseline !== undefined ? await loadBaseline(opts.baseline, rec.spec.model.kind) : undefined;
       const analysis = await analysisSettingsFromCli(rec.spec.analysis, opts, { particles: rec.spec.particles, clusters: rec.spec.target?.maxClusters ?? rec.plannedClusters });
       const got = (await farmSummary(store, id, defaultSummaryOptions(analysis)))!;
       if (opts.format === 'tables' || opts.format === 'html') {
         const html = opts.format === 'html';
         const pictures = html ? await farmReportPictures(id, rec.spec, got.results, opts.artifacts ?? (process.env.TENDRIL_ARTIFACTS || undefined)) : null;
         const written = await writeSummaryFiles(opts.out!, got.summary, got.results, rec.spec, {
-          report: html, json: html, tables: true, ensembleId: id, sampleCluster: pictures?.sampleCluster, measurePicture: pictures?.measurePicture, pictureNotes: pictures?.notes,
+          report: html, json: html, tables: true, ensembleId: id, sampleCluster: pictures?.sampleCluster, measurePicture: pictures?.measurePicture, pictureNotes: pictures?.notes, baseline,
         });
-        process.stdout.write(describeAnalysis(got.summary) + `wrote ${written.join(', ')} into ${opts.out}\n`);
+        process.stdout.write(describeAnalysis(got.summary) + (baseline ? describeBaseline(got.summary, baseline) : '') + `wrote ${written.join(', ')} into ${opts.out}\n`);
         return;
       }
       const bytes = renderSummary(got.summary, opts.format as SummaryFormat, opts.table);

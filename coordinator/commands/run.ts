@@ -17,7 +17,8 @@ import { specToDocument, type EnsembleSpec } from '../spec/index.js';
 import { buildSummary, defaultSummaryOptions } from '../summary/index.js';
 import { UsageError } from '../usage-error.js';
 import { addAnalysisOptions, analysisSettingsFromCli, type AnalysisCliOptions } from './analysis-options.js';
-import { describeAnalysis, writeSummaryFiles } from './summary-files.js';
+import { describeAnalysis, describeBaseline, writeSummaryFiles } from './summary-files.js';
+import { loadBaseline, type ReportBaseline } from './anisotropy-baseline.js';
 import { clusterMeasurePicture, reportPictures } from './report-pictures.js';
 import { loadLaunchFile, positiveInt } from './spec-file.js';
 import { memberFolder, sweepToDocument, type SweepSpec } from '../spec/sweep.js';
@@ -32,6 +33,9 @@ interface RunOptions extends AnalysisCliOptions {
   threads?: number;
   maxTotalParticles?: number;
   progress: string;
+  baseline?: string;
+  /** The loaded --baseline (set by the action). */
+  baselineData?: ReportBaseline;
 }
 
 export function register(program: Command): void {
@@ -43,7 +47,8 @@ export function register(program: Command): void {
     .option('--threads <n>', 'worker threads (default: available cores)', positiveInt('--threads', 1024))
     .option('--max-total-particles <n>', 'raise the ceiling on particles × clusters', positiveInt('--max-total-particles', Number.MAX_SAFE_INTEGER))
     .option('--progress <mode>', 'progress display: auto, bar, lines or none', 'auto')
-    .option('--no-report', 'skip report.html and its plots');
+    .option('--no-report', 'skip report.html and its plots')
+    .option('--baseline <dir>', 'the --out folder of an earlier tendril run of an isotropic model (e.g. dla-offlattice-2d): the report draws its k-fold anisotropy with this one on the same axes');
   addAnalysisOptions(cmd).action(async (specPath: string, opts: RunOptions) => {
     if (!['auto', 'bar', 'lines', 'none'].includes(opts.progress)) {
       throw new UsageError(`--progress: "${opts.progress}" is not allowed; allowed: auto, bar, lines, none`);
@@ -51,6 +56,9 @@ export function register(program: Command): void {
     const launchable = await loadLaunchFile(specPath, opts.maxTotalParticles);
     // CLI analysis options are checked before any folder is made
     await analysisSettingsFromCli(launchable.kind === 'single' ? launchable.spec.analysis : launchable.sweep.members[0].analysis, opts);
+    if (opts.baseline !== undefined) {
+      opts.baselineData = await loadBaseline(opts.baseline, launchable.kind === 'single' ? launchable.spec.model.kind : launchable.sweep.members[0].model.kind);
+    }
     // refused before any growth when unusable (a file, an unwritable parent); never a raw EEXIST/ENOTDIR
     makeOutFolder(checkOutFolder(opts.out), opts.out);
     if (launchable.kind === 'single') {
@@ -155,11 +163,13 @@ async function runInto(spec: EnsembleSpec, out: string, opts: RunOptions, newId:
       sampleCluster: pictures?.sampleCluster,
       measurePicture: pictures?.measurePicture,
       pictureNotes: pictures?.notes,
+      baseline: opts.baselineData,
     });
     process.stdout.write(
       `${spec.name}: ${s.clustersDone} clusters of ${spec.particles} particles in ${outcome.wallSeconds.toFixed(1)} s` +
         (outcome.reused > 0 ? ` (${outcome.reused} taken from an earlier run)` : '') +
         '\n' + describeAnalysis(s) +
+        (opts.baselineData ? describeBaseline(s, opts.baselineData) : '') +
         `wrote ${written.map((f) => join(out, f)).join(', ')}\n`,
     );
     return { ensembleId, summary: s };

@@ -11,6 +11,8 @@ import { writeEnsembleReport, type SampleClusterInput } from '../report/index.js
 import type { EnsembleSpec } from '../spec/index.js';
 import { analysisOf, CSV_TABLES, harmonicOfSummary, summaryToJson, summaryToProtobuf, type AdaptiveHistory } from '../summary/index.js';
 import type { ObservableSection } from '../stats/observable-bands.js';
+import { compareWithBaseline } from '../stats/anisotropy-comparison.js';
+import type { ReportBaseline } from './anisotropy-baseline.js';
 
 export interface SummaryFilesOptions {
   /** Write report.html and plots/ (default true). */
@@ -26,6 +28,8 @@ export interface SummaryFilesOptions {
   measurePicture?: { runIndex: number; size: number; png: Uint8Array };
   /** Why a picture is missing (coordinator/commands/report-pictures.ts). */
   pictureNotes?: { sampleCluster?: string; measurePicture?: string };
+  /** An isotropic baseline ensemble for the combined anisotropy figure (`--baseline`, coordinator/commands/anisotropy-baseline.ts). */
+  baseline?: ReportBaseline;
 }
 
 /** Writes the files and returns their names relative to `dir`. */
@@ -51,10 +55,23 @@ export async function writeSummaryFiles(
   }
   const analysis = analysisOf(s);
   if ((o.report ?? true) && analysis) {
-    const files = await writeEnsembleReport(dir, { analysis, runs, spec, sampleCluster: o.sampleCluster, measurePicture: o.measurePicture, pictureNotes: o.pictureNotes, ensembleId: o.ensembleId ?? s.ensembleId, title: s.partial ? `${s.name} (partial: ${s.clustersDone} of ${s.clustersPlanned} clusters)` : undefined });
+    const files = await writeEnsembleReport(dir, { analysis, runs, spec, sampleCluster: o.sampleCluster, measurePicture: o.measurePicture, pictureNotes: o.pictureNotes, baseline: o.baseline, ensembleId: o.ensembleId ?? s.ensembleId, title: s.partial ? `${s.name} (partial: ${s.clustersDone} of ${s.clustersPlanned} clusters)` : undefined });
     written.push('report.html', `plots/ (${files.svgs.length} SVG, ${files.pngs.length} PNG)`);
   }
   return written;
+}
+
+/** One line: this ensemble's k-fold amplitude against the baseline's, with the verdict and its rule (coordinator/stats/anisotropy-comparison.ts); '' when this summary has no observables. */
+export function describeBaseline(s: EnsembleSummaryData, baseline: ReportBaseline): string {
+  const obs = observablesOfSummary(s);
+  if (!obs) return '';
+  const c = compareWithBaseline(obs, baseline.observables, baseline.fold);
+  const at = (p: { mean: number; lo: number; hi: number } | null) => (p ? `${p.mean.toFixed(4)} [${p.lo.toFixed(4)}, ${p.hi.toFixed(4)}]` : 'n/a');
+  return (
+    `fold_amplitude_${c.fold} against the baseline ${baseline.label} (${baseline.dir})` +
+    (c.size === null ? ': no common size' : ` at N = ${c.size}: ${at(c.own)} against ${at(c.baseline)}`) +
+    `: ${c.verdict} (rule: the two bands do not overlap)\n`
+  );
 }
 
 /** A few lines for people: D from each estimator with its interval, and the adaptive outcome. */
@@ -88,6 +105,15 @@ export function describeAnalysis(s: EnsembleSummaryData): string {
     const parts = ['fold_amplitude_4', 'axis_ratio_4', 'fold_amplitude_6', 'axis_ratio_6'].map((n) => [n, at(n)]).filter(([, v]) => v !== null);
     const last = obs.bands[0]?.sizes.at(-1);
     if (parts.length > 0) lines.push(`anisotropy at N = ${last} (mean [${Math.round(obs.level * 100)}% percentile band]): ${parts.map(([n, v]) => `${n} ${v}`).join(', ')}`);
+    const noise = obs.foldNoise;
+    if (noise) {
+      const i = noise.sizes.length - 1;
+      lines.push(
+        `isotropic noise at N = ${noise.sizes[i]} (mean shell count n = ${Math.round(noise.shellCount[i])}): sqrt(pi/(4n)) = ${noise.mean[i].toPrecision(3)}, ${Math.round(noise.quantile * 100)}% quantile sqrt(ln 20/n) = ${noise.threshold[i].toPrecision(3)}; ` +
+          noise.verdicts.map((v) => `${v.name} ${v.verdict}`).join(', ') +
+          ` (rule: lower end of the band above the ${Math.round(noise.quantile * 100)}% quantile; angles along a branch are correlated, so isotropic DLA is above it too: compare with an isotropic baseline, tendril run --baseline)`,
+      );
+    } else if (parts.length > 0 && noise === null) lines.push('isotropic noise: not available (some run lacks shell_count: resumed from a checkpoint written before it was recorded)');
     const g = obs.interfaceGrowth;
     if (g) {
       const iv = g.interval.bca ?? g.interval.percentile;

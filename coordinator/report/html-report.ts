@@ -27,7 +27,7 @@ import { clusterFigure, comparisonFigure, correctionsFigure, estimatorFigure, lo
 import { evRange, harmonicFigures, measurePictureFigure, sizesLargestFirst, type MeasurePictureInput } from './harmonic-plots.js';
 import { embeddableFonts, pngRenderer } from './png-plot.js';
 import { clusterPicture3d } from './cluster-viewer-3d.js';
-import { observableFigures } from './observable-plots.js';
+import { anisotropyComparisonFigure, observableFigures } from './observable-plots.js';
 import type { ObservableSection } from '../stats/observable-bands.js';
 import { escapeXml, FONT_FAMILY, parseRichText } from './svg-plot.js';
 
@@ -50,6 +50,11 @@ export interface ReportInput {
   measurePicture?: MeasurePictureInput;
   /** Why a picture is missing (coordinator/commands/report-pictures.ts), said in the notes instead of "was not given". */
   pictureNotes?: { sampleCluster?: string; measurePicture?: string };
+  /**
+   * An isotropic baseline ensemble (`tendril run --baseline`): its k-fold
+   * amplitude is drawn with this ensemble's in one figure.
+   */
+  baseline?: { own: string; label: string; fold: number; observables: ObservableSection };
   /** Page title; default from the spec name or the model kind. */
   title?: string;
   /** Ensemble id, shown in the header when given. */
@@ -395,6 +400,12 @@ export function buildEnsembleReport(input: ReportInput): { html: string; figures
   if (a.estimators.massRadius.reason !== 'not requested') figures.push(localSlopesFigure(a, 'r'));
   if (a.options.corrections) figures.push(correctionsFigure(a, data));
   figures.push(...observableFigures(a.observables));
+  if (input.baseline) {
+    const base = input.baseline;
+    const combined = a.observables ? anisotropyComparisonFigure({ label: base.own, observables: a.observables }, { label: base.label, observables: base.observables }, base.fold) : null;
+    if (combined) figures.push(combined.figure);
+    else notes.push(`no figure against the baseline ${base.label}: this ensemble has no fold_amplitude_${base.fold} observable`);
+  }
   const extraPngs: { name: string; png: Buffer }[] = [];
   let viewer3d: string | null = null;
   if (input.sampleCluster !== undefined) {

@@ -1,11 +1,16 @@
 /**
  * Figures of the model observables of an ensemble (statistics.observables,
  * coordinator/stats/observable-bands.ts): lattice anisotropy against N with
- * bootstrap bands (the same measures on off-lattice clusters are the
- * isotropic baseline), and the Eden interface width against the mean radius
- * with its fitted growth exponent beside the KPZ slope 1/3.
+ * bootstrap bands and the isotropic noise level of the k-fold amplitude
+ * (coordinator/stats/fold-noise.ts), the Eden interface width against the
+ * mean radius with its fitted growth exponent beside the KPZ slope 1/3, and,
+ * when the report is given an isotropic baseline ensemble (`tendril run
+ * --baseline`), one figure with this ensemble's k-fold amplitude and the
+ * baseline's on the same axes (coordinator/stats/anisotropy-comparison.ts).
  */
-import type { ObservableBand, ObservableSection } from '../stats/observable-bands.js';
+import type { FoldNoise, ObservableBand, ObservableSection } from '../stats/observable-bands.js';
+import { compareWithBaseline, type AnisotropyComparison } from '../stats/anisotropy-comparison.js';
+import { ABOVE_NOISE_RULE, NOISE_CAVEAT } from '../stats/fold-noise.js';
 import type { Figure } from './plots.js';
 import { COLOURS, Plot } from './svg-plot.js';
 
@@ -34,18 +39,120 @@ function anisotropyFigure(s: ObservableSection, kind: 'fold_amplitude' | 'axis_r
     p.band(xs, b.lo.filter((_, i) => keep[i]), b.hi.filter((_, i) => keep[i]), FOLD_COLOUR[k], undefined, 0.18);
     p.line(xs, b.mean.filter((_, i) => keep[i]), { colour: FOLD_COLOUR[k], width: 1.6 }, `k = ${k} (${k === '4' ? 'square' : 'triangular'} lattice axes): mean, ${Math.round(s.level * 100)}% band`);
   }
-  if (amplitude) {
-    // isotropic reference: independent uniform angles give E[A²] = 1/n with n ≈ 3N/4 in the shell of a compact cluster; shown for scale only
-    const b = bands[0][1];
-    p.line(b.sizes, b.sizes.map((n) => 1 / Math.sqrt(0.75 * n)), { colour: COLOURS.grey, width: 1, dash: '5 4' }, 'scale of pure noise, (3N/4)^{-1/2} (independent angles; for scale only)');
-  }
+  const noise = amplitude ? s.foldNoise ?? null : null;
+  if (noise) noiseLines(p, noise, COLOURS.grey, '');
   const caption =
     (amplitude
       ? 'k-fold angular Fourier amplitude of the particles between R_max/2 and R_max (worker/core/anisotropy.ts)'
       : 'mean extent along the k lattice axes over the mean extent along the k diagonals (worker/core/anisotropy.ts)') +
     `: ensemble mean over ${s.clusters} cluster(s) at each recorded size, shaded: ${Math.round(s.level * 100)}% percentile bootstrap band over clusters (${s.resamples} resamples). ` +
+    (amplitude ? noiseCaption(s) : '') +
     'Off-lattice clusters give the isotropic baseline; lattice clusters whose arms follow the axes rise above it.';
   return { name, title, caption, svg: p.toSvg(), note: null };
+}
+
+/** The noise level √(π/(4n)) (dashed) and its 95% quantile (dotted), n the shell count of each cluster, averaged over clusters. */
+function noiseLines(p: Plot, noise: FoldNoise, colour: string, whose: string): void {
+  p.line(noise.sizes, noise.mean, { colour, width: 1.2, dash: '6 4' }, `isotropic noise, mean √(π/(4n)) (n: shell count${whose})`);
+  p.line(noise.sizes, noise.threshold, { colour, width: 1.2, dash: '1.5 3' }, `isotropic noise, ${Math.round(noise.quantile * 100)}% quantile √(ln 20 / n)`);
+}
+
+const NOISE_DEFINITION =
+  'the isotropic noise level for n independent uniform angles, n the recorded number of particles in the outer shell of each cluster: ' +
+  'mean √(π/(4n)) (dashed) and 95% quantile √(ln 20 / n) (dotted) of the Rayleigh law of A_{k}, averaged over clusters (Mardia & Jupp 2000, Directional Statistics, §6.3.1)';
+
+/** The noise verdicts of one ensemble (only fold `fold` when given), or why there are none. */
+function noiseVerdicts(s: ObservableSection, fold?: number): string {
+  const noise = s.foldNoise;
+  if (noise === undefined || noise === null) return `no noise level (${noise === undefined ? 'the summary predates' : 'some run lacks'} the recorded shell count n)`;
+  return noise.verdicts
+    .filter((v) => fold === undefined || v.name === `fold_amplitude_${fold}`)
+    .map((v) => `A_{${v.name.replace('fold_amplitude_', '')}} at N = ${v.size} ${v.verdict} (band low ${fmt(v.bandLow)} vs ${fmt(v.threshold)})`)
+    .join('; ');
+}
+
+function noiseCaption(s: ObservableSection): string {
+  return `Grey: ${NOISE_DEFINITION}. Verdict: ${noiseVerdicts(s)}. Rule: ${ABOVE_NOISE_RULE}. ${NOISE_CAVEAT} `;
+}
+
+function fmt(v: number): string {
+  return Number.isFinite(v) ? v.toPrecision(3) : 'n/a';
+}
+
+/** The baseline's own noise level at the largest size both record, beside the drawn one. */
+function baselineNoiseNote(own: FoldNoise, base: FoldNoise, label: string): string {
+  const common = own.sizes.filter((n) => base.sizes.includes(n));
+  if (common.length === 0) return '';
+  const n = common[common.length - 1];
+  const a = own.mean[own.sizes.indexOf(n)];
+  const b = base.mean[base.sizes.indexOf(n)];
+  return `The noise level from the shell counts of ${label} (not drawn) is ${fmt(b)} at N = ${n} against ${fmt(a)} drawn (${((b / a - 1) * 100).toFixed(1)}%). `;
+}
+
+const VERDICT_PHRASE: Record<AnisotropyComparison['verdict'], string> = {
+  'above the baseline': 'above',
+  'below the baseline': 'below',
+  'not distinguishable': 'not distinguishable from',
+  unknown: 'not comparable with',
+};
+
+/** A labelled ensemble for the combined figure. */
+export interface LabelledObservables {
+  /** Shown in the legend, e.g. the model kind. */
+  label: string;
+  observables: ObservableSection;
+}
+
+/**
+ * The k-fold amplitude A_k of this ensemble and of an isotropic baseline
+ * ensemble on the same axes, each with its bootstrap band and its noise
+ * level, and the verdict of compareWithBaseline in the caption; null when
+ * either lacks fold_amplitude_<fold>.
+ */
+export function anisotropyComparisonFigure(own: LabelledObservables, baseline: LabelledObservables, fold: number): { figure: Figure; comparison: AnisotropyComparison } | null {
+  const name = `fold_amplitude_${fold}`;
+  const a = bandOf(own.observables, name);
+  const b = bandOf(baseline.observables, name);
+  if (!a || !b) return null;
+  const comparison = compareWithBaseline(own.observables, baseline.observables, fold);
+  const figName = 'anisotropy-against-baseline';
+  const title = `${fold}-fold amplitude A_{${fold}} against N: ${own.label} and the baseline ${baseline.label}`;
+  const p = new Plot({
+    idPrefix: figName,
+    title,
+    x: { label: 'cluster size N', kind: 'log' },
+    y: { label: `A_{${fold}} = |Σ e^{${fold}iθ}| / n (outer shell)`, kind: 'log' },
+    legend: 'below',
+    height: 560,
+  });
+  const draw = (band: ObservableBand, section: ObservableSection, colour: string, label: string) => {
+    const keep = band.sizes.map((_, i) => band.lo[i] > 0 && band.mean[i] > 0);
+    const xs = band.sizes.filter((_, i) => keep[i]);
+    p.band(xs, band.lo.filter((_, i) => keep[i]), band.hi.filter((_, i) => keep[i]), colour, undefined, 0.2);
+    p.line(xs, band.mean.filter((_, i) => keep[i]), { colour, width: 2 }, `${label}: mean over ${section.clusters} clusters, ${Math.round(section.level * 100)}% band`);
+  };
+  draw(a, own.observables, COLOURS.blue, own.label);
+  draw(b, baseline.observables, COLOURS.vermillion, `${baseline.label} (baseline)`);
+  // one grey noise pair, from this ensemble's shell counts; the baseline's is quoted in the caption
+  const ownNoise = own.observables.foldNoise ?? null;
+  const baseNoise = baseline.observables.foldNoise ?? null;
+  if (ownNoise) noiseLines(p, ownNoise, COLOURS.grey, ` of ${own.label}`);
+  const noiseNote = baseNoise && ownNoise ? baselineNoiseNote(ownNoise, baseNoise, baseline.label) : '';
+  const c = comparison;
+  const verdict =
+    c.size === null || !c.own || !c.baseline
+      ? `Verdict: unknown (the two ensembles share no recorded size). `
+      : `Verdict at N = ${c.size}: ${own.label} is ${VERDICT_PHRASE[c.verdict]} the baseline ` +
+        `(A_{${fold}} = ${fmt(c.own.mean)} [${fmt(c.own.lo)}, ${fmt(c.own.hi)}] against ${fmt(c.baseline.mean)} [${fmt(c.baseline.lo)}, ${fmt(c.baseline.hi)}]). Rule: ${c.rule}. `;
+  const caption =
+    `Lattice anisotropy against an isotropic baseline: the ${fold}-fold angular Fourier amplitude of the particles between R_max/2 and R_max (worker/core/anisotropy.ts) ` +
+    `of ${own.label} (blue) and ${baseline.label} (vermillion), ensemble means with percentile bootstrap bands over whole clusters. ` +
+    verdict +
+    `Grey: ${NOISE_DEFINITION}, n of the ${own.label} clusters. ` +
+    noiseNote +
+    `Noise verdicts: ${own.label}: ${noiseVerdicts(own.observables, fold)}; ${baseline.label}: ${noiseVerdicts(baseline.observables, fold)}. Rule: ${ABOVE_NOISE_RULE}. ` +
+    NOISE_CAVEAT;
+  return { figure: { name: figName, title, caption, svg: p.toSvg(), note: null }, comparison };
 }
 
 function interfaceFigure(s: ObservableSection): Figure | null {

@@ -18,12 +18,21 @@
  *    when BCa is unavailable), "differs" otherwise. Corrections to scaling in
  *    Eden growth are large (an intrinsic width of about one spacing), so an
  *    effective β above 1/3 at small sizes is expected, not a failure.
+ *  - foldNoise (when shell_count is recorded by every run): at each shared
+ *    size, the isotropic noise level of the k-fold amplitudes
+ *    (coordinator/stats/fold-noise.ts), the mean over clusters of
+ *    √(π/(4n)) (the expected ensemble mean A_k for independent uniform
+ *    angles, n the cluster's own shell count) and of the 95% quantile
+ *    √(ln 20 / n), and the verdict of each fold_amplitude_k at the largest
+ *    size, by ABOVE_NOISE_RULE. Runs resumed from checkpoints written before
+ *    shell_count existed lack it: then foldNoise is null (no noise level).
  *
  * Pure: no I/O; the result is plain JSON.
  */
 import type { GrowthResult } from '../../worker/core/growth-kernel.js';
 import { bootstrapInterval, sortedQuantile, type IntervalSummary } from './bca.js';
 import { bootstrapRandom, drawResample, jackknifeMeans, weightedColumnMeans } from './bootstrap.js';
+import { ABOVE_NOISE_RULE, aboveNoise, isotropicFoldMean, isotropicFoldQuantile, NOISE_QUANTILE } from './fold-noise.js';
 
 export const BAND_RESAMPLES = 1000;
 export const INTERFACE_WINDOW_RULE = 'N from max(1000, N_final · 10^-2) to N_final';
@@ -52,6 +61,23 @@ export interface InterfaceGrowthFit {
   rule: string;
 }
 
+/** The isotropic noise level of the k-fold amplitudes (coordinator/stats/fold-noise.ts) and the verdicts against it. */
+export interface FoldNoise {
+  /** The shared sizes where every cluster has a positive shell count. */
+  sizes: number[];
+  /** Mean over clusters of the shell count n. */
+  shellCount: number[];
+  /** Mean over clusters of √(π/(4n)): the expected ensemble mean A_k for independent uniform angles. */
+  mean: number[];
+  /** Quantile of the threshold (0.95). */
+  quantile: number;
+  /** Mean over clusters of √(−ln(1 − quantile)/n): the threshold of the verdict. */
+  threshold: number[];
+  /** One verdict per fold_amplitude_k, at the largest of `sizes`. */
+  verdicts: { name: string; size: number; bandLow: number; threshold: number; verdict: 'above noise' | 'within noise' | 'unknown' }[];
+  rule: string;
+}
+
 export interface ObservableSection {
   schema: 'tendril.observables/1';
   clusters: number;
@@ -59,6 +85,8 @@ export interface ObservableSection {
   resamples: number;
   bands: ObservableBand[];
   interfaceGrowth: InterfaceGrowthFit | null;
+  /** Absent in summaries written before it existed; null when a run lacks shell_count. */
+  foldNoise?: FoldNoise | null;
 }
 
 export interface ObservableOptions {
@@ -161,7 +189,29 @@ export function observableSection(runs: readonly GrowthResult[], o: ObservableOp
     resamples: b,
     bands,
     interfaceGrowth: names.includes('interface_width') && names.includes('interface_radius') ? interfaceGrowth(runs, sizes, o) : null,
+    foldNoise: names.includes('shell_count') ? foldNoise(runs, sizes, bands) : null,
   };
+}
+
+function foldNoise(runs: readonly GrowthResult[], allSizes: number[], bands: ObservableBand[]): FoldNoise | null {
+  const k = runs.length;
+  const count = matrixOf(runs, 'shell_count', allSizes);
+  const keep = allSizes.map((_, j) => runs.every((_, i) => count[i * allSizes.length + j] >= 1));
+  const sizes = allSizes.filter((_, j) => keep[j]);
+  if (sizes.length === 0) return null;
+  const s = sizes.length;
+  const n = matrixOf(runs, 'shell_count', sizes);
+  const mean = columnMeans(n.map(isotropicFoldMean), k, s);
+  const threshold = columnMeans(n.map((v) => isotropicFoldQuantile(v, NOISE_QUANTILE)), k, s);
+  const last = sizes[s - 1];
+  const verdicts = bands
+    .filter((b) => b.name.startsWith('fold_amplitude_'))
+    .map((b) => {
+      const i = b.sizes.indexOf(last);
+      const bandLow = i >= 0 ? b.lo[i] : NaN;
+      return { name: b.name, size: last, bandLow, threshold: threshold[s - 1], verdict: aboveNoise(bandLow, threshold[s - 1]) };
+    });
+  return { sizes, shellCount: [...columnMeans(n, k, s)], mean: [...mean], quantile: NOISE_QUANTILE, threshold: [...threshold], verdicts, rule: ABOVE_NOISE_RULE };
 }
 
 function interfaceGrowth(runs: readonly GrowthResult[], allSizes: number[], o: ObservableOptions): InterfaceGrowthFit | null {

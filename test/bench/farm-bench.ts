@@ -10,15 +10,11 @@
  * Needs the compiled tree (npm run build) and Redis at REDIS_URL.
  */
 import type { ChildProcess } from 'node:child_process';
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { Redis } from 'ioredis';
 import { runEmbedded } from '../../coordinator/embedded/index.js';
-import { launchEnsemble, runQueue } from '../../coordinator/farm/queue.js';
-import { EnsembleStore } from '../../coordinator/farm/store.js';
+import { launchEnsemble } from '../../coordinator/farm/queue.js';
 import { validateSpec } from '../../coordinator/spec/index.js';
-import { isEntryPoint, startBenchWorker, stopBenchWorkers } from './bench-process.js';
+import { isEntryPoint, startBenchWorker, stopBenchWorkers, until } from './bench-process.js';
+import { openBenchFarm } from './bench-farm.js';
 
 export interface FarmBenchOptions {
   clusters?: number;
@@ -53,10 +49,6 @@ function meanGrow(runs: Array<{ timings: { growSeconds: number } }>): number {
   return runs.reduce((a, r) => a + r.timings.growSeconds, 0) / Math.max(1, runs.length);
 }
 
-async function until(fn: () => Promise<boolean>, pollMs = 20): Promise<void> {
-  while (!(await fn())) await new Promise((r) => setTimeout(r, pollMs));
-}
-
 export async function runFarmBenchmark(opts: FarmBenchOptions = {}): Promise<FarmBenchResult> {
   const clusters = opts.clusters ?? 20;
   // 3·10^5 particles: about two seconds per run, so that the per-job cost is judged against jobs of a realistic length
@@ -68,11 +60,8 @@ export async function runFarmBenchmark(opts: FarmBenchOptions = {}): Promise<Far
   const local = await runEmbedded(spec, { ensembleId: 'bench-local', threads: 2 });
   const embeddedSeconds = (performance.now() - t0) / 1000;
 
-  const prefix = `tendril-bench-${process.pid}-${Date.now().toString(36)}`;
-  const artifacts = mkdtempSync(join(tmpdir(), 'tendril-bench-'));
-  const redis = new Redis(redisUrl, { maxRetriesPerRequest: null });
-  const store = new EnsembleStore(redis, prefix);
-  const queue = runQueue(redis, prefix);
+  const benchFarm = openBenchFarm(redisUrl, 'farm');
+  const { prefix, artifacts, store, queue } = benchFarm;
   const workers: ChildProcess[] = [];
   try {
     workers.push(await startBenchWorker(redisUrl, prefix, artifacts, PROGRESS), await startBenchWorker(redisUrl, prefix, artifacts, PROGRESS));
@@ -109,15 +98,7 @@ export async function runFarmBenchmark(opts: FarmBenchOptions = {}): Promise<Far
     };
   } finally {
     await stopBenchWorkers(workers);
-    await queue.close();
-    let cursor = '0';
-    do {
-      const [next, keys] = await redis.scan(cursor, 'MATCH', `${prefix}:*`, 'COUNT', 500);
-      cursor = next;
-      if (keys.length) await redis.del(...keys);
-    } while (cursor !== '0');
-    redis.disconnect();
-    rmSync(artifacts, { recursive: true, force: true });
+    await benchFarm.close();
   }
 }
 

@@ -22,20 +22,15 @@
  *
  * Needs the compiled tree (npm run build) and Redis at REDIS_URL.
  */
-import { spawn, type ChildProcess } from 'node:child_process';
-import { mkdtempSync, readFileSync, rmSync, statSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { Redis } from 'ioredis';
-import { launchEnsemble, runQueue } from '../../coordinator/farm/queue.js';
-import { EnsembleStore } from '../../coordinator/farm/store.js';
+import { launchEnsemble } from '../../coordinator/farm/queue.js';
 import { validateSpec } from '../../coordinator/spec/index.js';
 import { checkpointKey } from '../../worker/runtime/job-contract.js';
 import { ENGINE_VERSION } from '../../worker/core/engine-version.js';
-import { argValue, isEntryPoint } from './bench-process.js';
+import { argValue, isEntryPoint, type LoggedBenchWorker, startLoggedBenchWorker, stopBenchWorkers, until } from './bench-process.js';
+import { openBenchFarm } from './bench-farm.js';
 
-const CLI = join(fileURLToPath(import.meta.url), '..', '..', '..', 'coordinator', 'cli.js');
 export const DEFAULT_GIANT_FARM_SIZE = 10_000_000;
 const SEED = '7';
 const CHECKPOINTS_PER_RUN = 5;
@@ -68,31 +63,8 @@ export interface GiantFarmRow {
   nodeVersion: string;
 }
 
-interface LogLine { msg: string; ensembleId?: string; particles?: number | null; seconds?: number }
-
-interface Proc {
-  child: ChildProcess;
-  log: () => LogLine[];
-  exited: Promise<void>;
-}
-
-function startWorker(redisUrl: string, prefix: string, artifacts: string): Promise<Proc> {
-  const child = spawn(process.execPath, [CLI, 'worker', '--redis', redisUrl, '--prefix', prefix, '--artifacts', artifacts, '--concurrency', '1', '--progress-ms', '1000', '--log-level', 'info'], {
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  let err = '';
-  let out = '';
-  child.stderr!.on('data', (d) => (err += d));
-  const exited = new Promise<void>((resolve) => child.once('exit', () => resolve()));
-  const log = () => err.split('\n').filter((l) => l.startsWith('{')).map((l) => JSON.parse(l) as LogLine);
-  return new Promise((resolve, reject) => {
-    child.stdout!.on('data', (d) => {
-      out += d;
-      if (out.includes('ready:')) resolve({ child, log, exited });
-    });
-    child.once('exit', (code) => reject(new Error(`worker exited with ${code}: ${err.slice(-500)}`)));
-  });
-}
+/** One worker thread, progress every second, and the log lines this benchmark reads. */
+const WORKER_ARGS = ['--progress-ms', '1000', '--log-level', 'info'];
 
 /** Peak resident memory (MiB) and CPU seconds (user + system) of a live Linux process. */
 function usageOf(pid: number): { peakRssMB: number; cpuSeconds: number } {
@@ -105,27 +77,20 @@ function usageOf(pid: number): { peakRssMB: number; cpuSeconds: number } {
   return { peakRssMB: Math.round((hwm / 1024) * 10) / 10, cpuSeconds: ticks / 100 };
 }
 
-async function until(fn: () => Promise<boolean> | boolean, pollMs = 250): Promise<void> {
-  while (!(await fn())) await new Promise((r) => setTimeout(r, pollMs));
-}
-
 export async function runGiantFarmBenchmark(particles = DEFAULT_GIANT_FARM_SIZE, redisUrl = process.env.REDIS_URL ?? 'redis://127.0.0.1:6379'): Promise<GiantFarmRow> {
   const every = Math.max(1, Math.floor(particles / CHECKPOINTS_PER_RUN));
   const spec = validateSpec(
     { name: `giant farm ${particles}`, model: 'dla-offlattice-2d', particles, clusters: 1, seed: SEED, checkpoint_every_particles: every, checkpoint_interval_seconds: 86_400 },
     { maxTotalParticles: Number.MAX_SAFE_INTEGER },
   );
-  const prefix = `tendril-bench-giant-farm-${process.pid}-${Date.now().toString(36)}`;
-  const artifacts = mkdtempSync(join(tmpdir(), 'tendril-giant-farm-'));
-  const redis = new Redis(redisUrl, { maxRetriesPerRequest: null });
-  const store = new EnsembleStore(redis, prefix);
-  const queue = runQueue(redis, prefix);
-  const procs: Proc[] = [];
+  const farm = openBenchFarm(redisUrl, 'giant-farm');
+  const { prefix, artifacts, redis, store, queue } = farm;
+  const procs: LoggedBenchWorker[] = [];
   try {
-    const first = await startWorker(redisUrl, prefix, artifacts);
+    const first = await startLoggedBenchWorker(redisUrl, prefix, artifacts, WORKER_ARGS);
     procs.push(first);
     const id = await launchEnsemble(store, queue, spec);
-    const written = (p: Proc) => p.log().filter((l) => l.ensembleId === id && l.msg === 'run checkpointed').map((l) => ({ particles: l.particles as number, writeSeconds: l.seconds ?? NaN }));
+    const written = (p: LoggedBenchWorker) => p.log().filter((l) => l.ensembleId === id && l.msg === 'run checkpointed').map((l) => ({ particles: l.particles as number, writeSeconds: l.seconds ?? NaN }));
     process.stderr.write(`giant-farm: growing ${particles} particles as one farm job, checkpoint every ${every}\n`);
     // killed half-way between two checkpoints, after the second
     const progress = async () => Number((await redis.hget(`${prefix}:ensemble:${id}:progress`, '0')) ?? 0);
@@ -139,7 +104,7 @@ export async function runGiantFarmBenchmark(particles = DEFAULT_GIANT_FARM_SIZE,
     const checkpointBytes = statSync(join(artifacts, checkpointKey(id, 0))).size;
     process.stderr.write(`giant-farm: first worker killed at ${killedAtParticles} particles after ${checkpoints.length} checkpoints; a fresh worker resumes\n`);
 
-    const second = await startWorker(redisUrl, prefix, artifacts);
+    const second = await startLoggedBenchWorker(redisUrl, prefix, artifacts, WORKER_ARGS);
     procs.push(second);
     let secondUsage = { peakRssMB: NaN, cpuSeconds: NaN };
     await until(async () => {
@@ -176,19 +141,8 @@ export async function runGiantFarmBenchmark(particles = DEFAULT_GIANT_FARM_SIZE,
       nodeVersion: process.version,
     };
   } finally {
-    for (const p of procs) if (p.child.exitCode === null && p.child.signalCode === null) {
-      p.child.kill('SIGTERM');
-      await p.exited;
-    }
-    await queue.close();
-    let cursor = '0';
-    do {
-      const [next, keys] = await redis.scan(cursor, 'MATCH', `${prefix}:*`, 'COUNT', 500);
-      cursor = next;
-      if (keys.length) await redis.del(...keys);
-    } while (cursor !== '0');
-    redis.disconnect();
-    rmSync(artifacts, { recursive: true, force: true });
+    await stopBenchWorkers(procs.map((p) => p.child));
+    await farm.close();
   }
 }
 

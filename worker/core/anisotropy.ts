@@ -9,9 +9,12 @@
  * that prefers the k lattice directions (long arms along the axes) makes the
  * angles cluster at multiples of 2π/k and A_k grows toward 1; for n angles
  * drawn independently and uniformly, E[A_k²] = 1/n exactly (the n unit
- * vectors e^{ikθ_j} are independent with mean 0), so an isotropic cluster
- * shows A_k of order n^(−1/2). Only the outer shell is used because the
- * interior is frozen early: it describes the cluster when it was smaller.
+ * vectors e^{ikθ_j} are independent with mean 0) and A_k is asymptotically
+ * Rayleigh distributed with mean √(π/(4n)) (coordinator/stats/fold-noise.ts).
+ * The shell count n is recorded beside A_k (observable shell_count) so that
+ * the summary can draw that noise level. Only the outer shell is used
+ * because the interior is frozen early: it describes the cluster when it was
+ * smaller.
  *
  * Axis-to-diagonal extent ratio, for the same k:
  *   Q_k = mean over the k axis directions u_m = angle 2πm/k of max_j (p_j · u_m)
@@ -108,10 +111,11 @@ export function anisotropyOf(coords: Float64Array, stride: number, count: number
 
 /** The observables every planar model records (GrowthSeries.extra), for descriptors to declare. */
 export const PLANAR_ANISOTROPY_OBSERVABLES = [
-  { name: 'fold_amplitude_4', meaning: '4-fold amplitude |Σ exp(4iθ)|/n of the particles between R_max/2 and R_max (square-lattice anisotropy; about n^-1/2 when isotropic)' },
+  { name: 'fold_amplitude_4', meaning: '4-fold amplitude |Σ exp(4iθ)|/n of the particles between R_max/2 and R_max (square-lattice anisotropy; mean √(π/(4n)) for n independent uniform angles)' },
   { name: 'axis_ratio_4', meaning: 'mean extent along the 4 square-lattice axes over the mean extent along the 4 diagonals (1 for a disk)' },
   { name: 'fold_amplitude_6', meaning: '6-fold amplitude |Σ exp(6iθ)|/n of the particles between R_max/2 and R_max (triangular-lattice anisotropy)' },
   { name: 'axis_ratio_6', meaning: 'mean extent along the 6 triangular-lattice axes over the mean extent along the 6 diagonals' },
+  { name: 'shell_count', meaning: 'number n of particles between R_max/2 and R_max (the shell of fold_amplitude_4 and fold_amplitude_6; sets their isotropic noise level √(π/(4n)))' },
 ] as const;
 
 /** cos 4θ, sin 4θ, cos 6θ, sin 6θ of the last foldTermsOf call (reused). */
@@ -181,7 +185,7 @@ export function raiseExtents(dx: number, dy: number, far4: Float64Array, far6: F
 }
 
 /**
- * Append the four planar anisotropy observables (k = 4 and 6) of the first
+ * Append the planar anisotropy observables (k = 4 and 6, and the shell count) of the first
  * `count` centres to a series' extra records. One pass computes both folds
  * with the same operations as anisotropyOf (the de Moivre powers of k = 4
  * are the first four of k = 6), so the values are bit for bit those of two
@@ -227,13 +231,19 @@ function extentRatio(far: Float64Array): number {
 }
 
 /**
- * Append the four planar anisotropy observables, from the shell count n, the
+ * Append the planar anisotropy observables, from the shell count n, the
  * shell sums of cos/sin 4θ and 6θ, and the extents along the 8 and 12
- * directions (COS4/SIN4, COS6/SIN6), to a series' extra records.
+ * directions (COS4/SIN4, COS6/SIN6), to a series' extra records. The shell
+ * count n goes to shell_count, except in a series resumed from a checkpoint
+ * written before shell_count existed (fold_amplitude_4 has records and
+ * shell_count none): it goes on without it, so that every record list keeps
+ * one value per recorded size (the summary then shows no noise level).
  */
 export function pushPlanarAnisotropy(extra: Record<string, number[]>, n: number, sc4: number, ss4: number, sc6: number, ss6: number, far4: Float64Array, far6: Float64Array): void {
+  const withCount = extra.shell_count !== undefined || !(extra.fold_amplitude_4?.length);
   (extra.fold_amplitude_4 ??= []).push(n > 0 ? Math.sqrt(sc4 * sc4 + ss4 * ss4) / n : 0);
   (extra.axis_ratio_4 ??= []).push(extentRatio(far4));
   (extra.fold_amplitude_6 ??= []).push(n > 0 ? Math.sqrt(sc6 * sc6 + ss6 * ss6) / n : 0);
   (extra.axis_ratio_6 ??= []).push(extentRatio(far6));
+  if (withCount) (extra.shell_count ??= []).push(n);
 }

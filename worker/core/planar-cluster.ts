@@ -7,7 +7,7 @@
  * record size the standard observables and the kernel's extra observables
  * are recorded.
  */
-import type { ClusterPositions, GrowthResult, GrowthSeries, GrowthTask, MassRadius } from './growth-kernel.js';
+import type { ClusterPositions, GrowthCheckpoint, GrowthResult, GrowthSeries, GrowthTask, MassRadius } from './growth-kernel.js';
 import { ENGINE_VERSION } from './engine-version.js';
 import { countCentresWithin, massRadiusRadii, recordSizes } from './record-sizes.js';
 import type { StateHasher } from './state-hash.js';
@@ -98,6 +98,21 @@ export class PlanarCluster {
       massRadius: this.massRadius(task.recordsPerDecade),
       counters,
       stateHash,
+    };
+  }
+
+  /** A checkpoint of `task` at this cluster's size (centres and records copied), with the kernel's generator state, counters and model state. */
+  checkpoint(task: GrowthTask, rngState: Uint32Array, counters: Record<string, number>, modelState: Uint8Array): GrowthCheckpoint {
+    return {
+      engineVersion: ENGINE_VERSION,
+      task: structuredClone(task),
+      dimension: 2,
+      count: this.n,
+      positions: this.xy.slice(0, 2 * this.n),
+      rngState,
+      counters,
+      series: structuredClone(this.series),
+      modelState,
     };
   }
 

@@ -1,19 +1,13 @@
 /**
  * The lattice dielectric breakdown model with the far boundary at infinity,
  * sampled exactly by walkers: the descriptor (kernel.ts states the exact
- * definition and derives the sampler). The launch margin is dla-square's
- * parameter, taken from its descriptor.
+ * definition and derives the sampler). The launch margin is the lattice
+ * walkers' (dla-square's) parameter.
  */
-import type { ModelDescriptor, ParamSpec } from '../../core/model-descriptor.js';
+import type { ModelDescriptor } from '../../core/model-descriptor.js';
 import { PLANAR_ANISOTROPY_OBSERVABLES } from '../../core/anisotropy.js';
-import { dlaSquare } from '../dla-square/descriptor.js';
+import { breakdownEtaParam, LATTICE_LAUNCH_MARGIN } from '../shared-param-specs.js';
 import { DbmSquareWalkers, etaProblem } from './kernel.js';
-
-function dlaParam(name: string): ParamSpec {
-  const p = dlaSquare.params.find((q) => q.name === name);
-  if (p === undefined) throw new Error(`dla-square has no parameter ${name}`);
-  return p;
-}
 
 export const dbmSquareWalkers: ModelDescriptor = {
   kind: 'dbm-square-walkers',
@@ -23,8 +17,8 @@ export const dbmSquareWalkers: ModelDescriptor = {
     'sites of the square lattice; a perimeter site s joins with probability proportional to u(s)^eta, u the Green\'s function of the lattice walk with pole at infinity (dbm-square with its far boundary at infinity), sampled exactly by walkers that enter the cluster; eta = 0 or 1 <= eta <= 6',
   definitionFile: 'worker/models/dbm-square-walkers/kernel.ts',
   params: [
-    { name: 'eta', unit: '', default: 1, min: 0, max: 6, meaning: 'exponent η: growth probability ∝ u^η (0: Eden on perimeter sites; 1: harmonic measure; 0 < η < 1 is refused)' },
-    dlaParam('launch_margin'),
+    breakdownEtaParam(1, 'exponent η: growth probability ∝ u^η (0: Eden on perimeter sites; 1: harmonic measure; 0 < η < 1 is refused)'),
+    LATTICE_LAUNCH_MARGIN,
   ],
   counters: [
     { name: 'walkers', meaning: 'walkers released, each until it steps onto the cluster (0 at eta = 0)' },

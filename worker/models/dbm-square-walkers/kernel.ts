@@ -95,7 +95,6 @@
  * ends it).
  */
 import type { ClusterPositions, Counters, GrowthCheckpoint, GrowthKernel, GrowthResult, GrowthTask } from '../../core/growth-kernel.js';
-import { ENGINE_VERSION } from '../../core/engine-version.js';
 import { Random, STREAM_GROWTH } from '../../core/random.js';
 import { StateHasher } from '../../core/state-hash.js';
 import { checkCheckpointOf } from '../../core/checkpoint-check.js';
@@ -104,7 +103,8 @@ import { PlanarCluster } from '../../core/planar-cluster.js';
 import type { StopSignal } from '../../core/stop-signal.js';
 import { PerimeterSites } from '../../lattice/perimeter-sites.js';
 import { LatticeWalk } from '../../lattice/lattice-walk.js';
-import { SQUARE, siteOf, toSite } from '../../lattice/planar-lattice.js';
+import { SQUARE } from '../../lattice/planar-lattice.js';
+import { replayCheckpointSites } from '../../lattice/checkpoint-site-replay.js';
 
 export interface DbmSquareWalkersCounters extends Counters {
   walkers: number;
@@ -176,17 +176,7 @@ export class DbmSquareWalkers implements GrowthKernel {
       const c = checkpoint.counters;
       this.counters = { walkers: c.walkers ?? 0, attempts: c.attempts ?? 0, jumps: c.jumps ?? 0, steps: c.steps ?? 0, returns: c.returns ?? 0, perimeter_sites: 0 };
       this.cluster = new PlanarCluster(task.particles, task.recordsPerDecade, recordExtra, checkpoint.series);
-      const pos = checkpoint.positions;
-      for (let k = 0; k < checkpoint.count; k++) {
-        const x = pos[2 * k];
-        const y = pos[2 * k + 1];
-        toSite(SQUARE, x, y);
-        const i = siteOf.i;
-        const j = siteOf.j;
-        if (i !== x || j !== y) throw new RangeError(`checkpoint position ${k} is not a lattice site`);
-        if (k > 0 && this.perimeter.valueAt(i, j) <= 0) throw new RangeError(`checkpoint position ${k} is not a perimeter site of the cluster before it`);
-        this.join(i, j, true);
-      }
+      replayCheckpointSites(SQUARE, checkpoint.positions, checkpoint.count, this.perimeter, (i, j) => this.join(i, j, true));
       this.cluster.resumeRecords();
     }
     this.counters.perimeter_sites = this.perimeter.count;
@@ -314,17 +304,7 @@ export class DbmSquareWalkers implements GrowthKernel {
   }
 
   checkpoint(): GrowthCheckpoint {
-    return {
-      engineVersion: ENGINE_VERSION,
-      task: structuredClone(this.task),
-      dimension: 2,
-      count: this.cluster.n,
-      positions: this.cluster.xy.slice(0, 2 * this.cluster.n),
-      rngState: this.rng.state(),
-      counters: this.countersNow(),
-      series: structuredClone(this.cluster.series),
-      modelState: new Uint8Array(0),
-    };
+    return this.cluster.checkpoint(this.task, this.rng.state(), this.countersNow(), new Uint8Array(0));
   }
 
   result(): GrowthResult {

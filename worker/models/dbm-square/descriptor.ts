@@ -1,6 +1,7 @@
 /** The dielectric breakdown model on the square lattice with the Laplace potential: the descriptor (kernel.ts states the exact definition). */
 import type { ModelDescriptor } from '../../core/model-descriptor.js';
 import { PLANAR_ANISOTROPY_OBSERVABLES } from '../../core/anisotropy.js';
+import { breakdownEtaParam } from '../shared-param-specs.js';
 import { DbmSquare } from './kernel.js';
 
 export const dbmSquare: ModelDescriptor = {
@@ -11,7 +12,7 @@ export const dbmSquare: ModelDescriptor = {
     'sites of the square lattice; the discrete Laplace equation is solved with potential 0 on the cluster and 1 on a far circle; a perimeter site (empty nearest neighbour of the cluster) joins with probability proportional to its potential to the power eta (Niemeyer, Pietronero & Wiesmann 1984)',
   definitionFile: 'worker/models/dbm-square/kernel.ts',
   params: [
-    { name: 'eta', unit: '', default: 1, min: 0, max: 6, meaning: 'exponent η: growth probability ∝ φ^η (0: Eden on perimeter sites; 1: harmonic measure)' },
+    breakdownEtaParam(1, 'exponent η: growth probability ∝ φ^η (0: Eden on perimeter sites; 1: harmonic measure)'),
     {
       name: 'far_factor',
       unit: '',

@@ -76,7 +76,6 @@
  * planar anisotropy measures (worker/core/anisotropy.ts, fold 4).
  */
 import type { Counters, ClusterPositions, GrowthCheckpoint, GrowthKernel, GrowthResult, GrowthTask } from '../../core/growth-kernel.js';
-import { ENGINE_VERSION } from '../../core/engine-version.js';
 import { Random, STREAM_GROWTH } from '../../core/random.js';
 import { StateHasher } from '../../core/state-hash.js';
 import { checkCheckpointOf } from '../../core/checkpoint-check.js';
@@ -84,7 +83,8 @@ import { recordPlanarAnisotropy } from '../../core/anisotropy.js';
 import { PlanarCluster } from '../../core/planar-cluster.js';
 import type { StopSignal } from '../../core/stop-signal.js';
 import { PerimeterSites } from '../../lattice/perimeter-sites.js';
-import { SQUARE, siteOf, toSite } from '../../lattice/planar-lattice.js';
+import { SQUARE } from '../../lattice/planar-lattice.js';
+import { replayCheckpointSites } from '../../lattice/checkpoint-site-replay.js';
 import { CLUSTER, PotentialGrid } from './potential-grid.js';
 import { EnclosedRegions } from './enclosed-regions.js';
 
@@ -123,18 +123,10 @@ export class DbmSquare implements GrowthKernel {
       this.rng = Random.fromState(checkpoint.rngState);
       this.counters = { solver_iterations: checkpoint.counters.solver_iterations ?? 0, perimeter_sites: 0 };
       this.cluster = new PlanarCluster(task.particles, task.recordsPerDecade, recordExtra, checkpoint.series);
-      const pos = checkpoint.positions;
-      for (let k = 0; k < checkpoint.count; k++) {
-        const x = pos[2 * k];
-        const y = pos[2 * k + 1];
-        toSite(SQUARE, x, y);
-        const i = siteOf.i;
-        const j = siteOf.j;
-        if (i !== x || j !== y) throw new RangeError(`checkpoint position ${k} is not a lattice site`);
-        if (k > 0 && this.perimeter.valueAt(i, j) <= 0) throw new RangeError(`checkpoint position ${k} is not a perimeter site of the cluster before it`);
+      replayCheckpointSites(SQUARE, checkpoint.positions, checkpoint.count, this.perimeter, (i, j, k) => {
         if (k > 0) this.prepareBoundary();
         this.join(i, j, true);
-      }
+      });
       this.cluster.resumeRecords();
       this.restorePotential(checkpoint.modelState);
     }
@@ -301,17 +293,7 @@ export class DbmSquare implements GrowthKernel {
   }
 
   checkpoint(): GrowthCheckpoint {
-    return {
-      engineVersion: ENGINE_VERSION,
-      task: structuredClone(this.task),
-      dimension: 2,
-      count: this.cluster.n,
-      positions: this.cluster.xy.slice(0, 2 * this.cluster.n),
-      rngState: this.rng.state(),
-      counters: { solver_iterations: this.counters.solver_iterations, perimeter_sites: this.perimeter.count },
-      series: structuredClone(this.cluster.series),
-      modelState: this.potentialState(),
-    };
+    return this.cluster.checkpoint(this.task, this.rng.state(), { solver_iterations: this.counters.solver_iterations, perimeter_sites: this.perimeter.count }, this.potentialState());
   }
 
   result(): GrowthResult {

@@ -1,6 +1,7 @@
 /** What the lattice DLA descriptors share: parameters, counters, observables, references. */
 import type { ModelDescriptor } from '../../core/model-descriptor.js';
 import { PLANAR_ANISOTROPY_OBSERVABLES } from '../../core/anisotropy.js';
+import { LATTICE_LAUNCH_MARGIN } from '../shared-param-specs.js';
 
 export const LATTICE_DLA_PARTS: Omit<ModelDescriptor, 'kind' | 'lattice' | 'definition' | 'definitionFile' | 'create'> = {
   dimension: 2,
@@ -14,14 +15,7 @@ export const LATTICE_DLA_PARTS: Omit<ModelDescriptor, 'kind' | 'lattice' | 'defi
       integer: true,
       meaning: 'hits m a perimeter site needs to join (1: plain lattice DLA; Tang 1985 noise reduction for m > 1)',
     },
-    {
-      name: 'launch_margin',
-      unit: 'lattice spacings',
-      default: 8,
-      min: 2,
-      max: 1000,
-      meaning: 'launch circle radius minus the largest site distance; the lattice launch law is uniform only approximately, larger is more exact',
-    },
+    LATTICE_LAUNCH_MARGIN,
   ],
   counters: [
     { name: 'walkers', meaning: 'walkers launched (m per added site on average, for noise reduction m)' },

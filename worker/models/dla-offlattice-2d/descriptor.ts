@@ -6,6 +6,7 @@ import type { ModelDescriptor } from '../../core/model-descriptor.js';
 import { OffLatticeDla2d } from './kernel.js';
 import { PLANAR_ANISOTROPY_OBSERVABLES } from '../../core/anisotropy.js';
 import { checkMinStepFloor } from '../../core/min-step-floor.js';
+import { OFF_LATTICE_MIN_STEP, offLatticeLaunchMargin } from '../shared-param-specs.js';
 
 export const dlaOffLattice2d: ModelDescriptor = {
   kind: 'dla-offlattice-2d',
@@ -15,24 +16,8 @@ export const dlaOffLattice2d: ModelDescriptor = {
     'disks of diameter 1; each new disk\'s centre performs planar Brownian motion from infinity and sticks where its disk first touches the cluster',
   definitionFile: 'worker/models/dla-offlattice-2d/kernel.ts',
   params: [
-    {
-      name: 'min_step',
-      unit: 'particle diameters',
-      default: 0.02,
-      min: 0,
-      minOpen: true,
-      max: 1,
-      meaning: 'length of the straight final steps within this distance of contact (the one approximation; smaller is more exact)',
-    },
-    {
-      name: 'launch_margin',
-      unit: 'particle diameters',
-      default: 2,
-      min: 0,
-      minOpen: true,
-      max: 1000,
-      meaning: 'launch circle radius minus (maximum radius + 1); any value is exact, it only changes speed',
-    },
+    OFF_LATTICE_MIN_STEP,
+    offLatticeLaunchMargin('circle'),
   ],
   counters: [
     { name: 'jumps', meaning: 'walk-on-spheres jumps (uniform exits from free disks)' },

@@ -5,6 +5,7 @@
 import type { ModelDescriptor } from '../../core/model-descriptor.js';
 import { OffLatticeDla3d } from './kernel.js';
 import { checkMinStepFloor } from '../../core/min-step-floor.js';
+import { OFF_LATTICE_MIN_STEP, offLatticeLaunchMargin } from '../shared-param-specs.js';
 
 export const dlaOffLattice3d: ModelDescriptor = {
   kind: 'dla-offlattice-3d',
@@ -13,24 +14,8 @@ export const dlaOffLattice3d: ModelDescriptor = {
   definition: 'balls of diameter 1; each new ball\'s centre performs Brownian motion in 3D from infinity and sticks where its ball first touches the cluster',
   definitionFile: 'worker/models/dla-offlattice-3d/kernel.ts',
   params: [
-    {
-      name: 'min_step',
-      unit: 'particle diameters',
-      default: 0.02,
-      min: 0,
-      minOpen: true,
-      max: 1,
-      meaning: 'length of the straight final steps within this distance of contact (the one approximation; smaller is more exact)',
-    },
-    {
-      name: 'launch_margin',
-      unit: 'particle diameters',
-      default: 2,
-      min: 0,
-      minOpen: true,
-      max: 1000,
-      meaning: 'launch sphere radius minus (maximum radius + 1); any value is exact, it only changes speed',
-    },
+    OFF_LATTICE_MIN_STEP,
+    offLatticeLaunchMargin('sphere'),
   ],
   counters: [
     { name: 'jumps', meaning: 'walk-on-spheres jumps (uniform exits from free balls)' },

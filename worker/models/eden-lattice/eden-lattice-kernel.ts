@@ -35,7 +35,6 @@
  * which states the one reassociation this brings to fold_amplitude_k).
  */
 import type { Counters, ClusterPositions, GrowthCheckpoint, GrowthKernel, GrowthResult, GrowthTask } from '../../core/growth-kernel.js';
-import { ENGINE_VERSION } from '../../core/engine-version.js';
 import { Random, STREAM_GROWTH } from '../../core/random.js';
 import { StateHasher } from '../../core/state-hash.js';
 import { checkCheckpointOf } from '../../core/checkpoint-check.js';
@@ -43,7 +42,8 @@ import { IncrementalPlanarRecords } from '../../core/incremental-planar-records.
 import { PlanarCluster } from '../../core/planar-cluster.js';
 import { PerimeterSites } from '../../lattice/perimeter-sites.js';
 import { STOP_CHECK_EVERY, stopRaised, type StopSignal } from '../../core/stop-signal.js';
-import { type PlanarLattice, planeOf, siteOf, toPlane, toSite } from '../../lattice/planar-lattice.js';
+import { type PlanarLattice, planeOf, toPlane } from '../../lattice/planar-lattice.js';
+import { replayCheckpointSites } from '../../lattice/checkpoint-site-replay.js';
 
 export class EdenLatticeKernel implements GrowthKernel {
   readonly task: GrowthTask;
@@ -75,17 +75,13 @@ export class EdenLatticeKernel implements GrowthKernel {
       this.counters = { perimeter_sites: 0 };
       this.cluster = new PlanarCluster(task.particles, task.recordsPerDecade, recordExtra, checkpoint.series);
       const p = checkpoint.positions;
-      for (let k = 0; k < checkpoint.count; k++) {
-        toSite(lattice, p[2 * k], p[2 * k + 1]);
-        const i = siteOf.i;
-        const j = siteOf.j;
+      replayCheckpointSites(lattice, p, checkpoint.count, this.perimeter, (i, j, k) => {
         const v = this.perimeter.valueAt(i, j);
-        if (k > 0 && v <= 0) throw new RangeError(`checkpoint position ${k} is not a perimeter site of the cluster before it`);
         if (k > 0) this.perimeter.removeSlot(v - 1);
         this.perimeter.occupy(i, j);
         this.records.add(p[2 * k], p[2 * k + 1]);
         this.cluster.append(p[2 * k], p[2 * k + 1]);
-      }
+      });
       this.cluster.resumeRecords();
     }
     this.counters.perimeter_sites = this.perimeter.count;
@@ -134,17 +130,7 @@ export class EdenLatticeKernel implements GrowthKernel {
   }
 
   checkpoint(): GrowthCheckpoint {
-    return {
-      engineVersion: ENGINE_VERSION,
-      task: structuredClone(this.task),
-      dimension: 2,
-      count: this.cluster.n,
-      positions: this.cluster.xy.slice(0, 2 * this.cluster.n),
-      rngState: this.rng.state(),
-      counters: { perimeter_sites: this.perimeter.count },
-      series: structuredClone(this.cluster.series),
-      modelState: new Uint8Array(0),
-    };
+    return this.cluster.checkpoint(this.task, this.rng.state(), { perimeter_sites: this.perimeter.count }, new Uint8Array(0));
   }
 
   result(): GrowthResult {

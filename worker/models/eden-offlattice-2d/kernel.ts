@@ -39,7 +39,6 @@
  * and the radial interface (worker/core/radial-interface.ts).
  */
 import type { Counters, ClusterPositions, GrowthCheckpoint, GrowthKernel, GrowthResult, GrowthTask } from '../../core/growth-kernel.js';
-import { ENGINE_VERSION } from '../../core/engine-version.js';
 import { Random, STREAM_GROWTH } from '../../core/random.js';
 import { StateHasher } from '../../core/state-hash.js';
 import { checkCheckpointOf } from '../../core/checkpoint-check.js';
@@ -309,17 +308,7 @@ export class OffLatticeEden2d implements GrowthKernel {
   }
 
   checkpoint(): GrowthCheckpoint {
-    return {
-      engineVersion: ENGINE_VERSION,
-      task: structuredClone(this.task),
-      dimension: 2,
-      count: this.cluster.n,
-      positions: this.cluster.xy.slice(0, 2 * this.cluster.n),
-      rngState: this.rng.state(),
-      counters: { ...this.counters },
-      series: structuredClone(this.cluster.series),
-      modelState: new Uint8Array(0),
-    };
+    return this.cluster.checkpoint(this.task, this.rng.state(), { ...this.counters }, new Uint8Array(0));
   }
 
   result(): GrowthResult {

@@ -1,21 +1,13 @@
 /** The Eden model on the triangular lattice: the descriptor (kernel.ts states the exact definition). */
 import type { ModelDescriptor } from '../../core/model-descriptor.js';
 import { EdenTriangular } from './kernel.js';
-import { EDEN_OBSERVABLES, EDEN_REFERENCE } from '../eden-lattice/eden-descriptor-parts.js';
+import { LATTICE_EDEN_PARTS } from '../eden-lattice/eden-descriptor-parts.js';
 
 export const edenTriangular: ModelDescriptor = {
+  ...LATTICE_EDEN_PARTS,
   kind: 'eden-triangular',
-  dimension: 2,
   lattice: 'triangular',
   definition: 'sites of the triangular lattice (spacing 1); each step adds one perimeter site chosen uniformly among all perimeter sites (Eden B, site convention)',
   definitionFile: 'worker/models/eden-triangular/kernel.ts',
-  params: [],
-  counters: [{ name: 'perimeter_sites', meaning: 'number of perimeter sites (empty sites next to the cluster) at the end' }],
-  workCounter: null,
-  observables: EDEN_OBSERVABLES,
-  probe: 'lattice-sites',
-  picture: 'disks',
-  contactDistance: 1,
-  reference: EDEN_REFERENCE,
   create: (task, checkpoint) => new EdenTriangular(task, checkpoint),
 };
