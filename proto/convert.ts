@@ -361,6 +361,16 @@ export function encodeCheckpointHeader(c: CheckpointData): Uint8Array {
 }
 
 /**
+ * The checkpoint of a header message (encodeCheckpointHeader) and positions
+ * held apart from it (count × dimension values, e.g. an array moved from
+ * another thread): the positions are kept as they are, not copied.
+ */
+export function checkpointFromHeader(header: Uint8Array, positions: Float64Array): CheckpointData {
+  const m = decodeWith('Checkpoint', (b) => tendril.Checkpoint.decode(b), header);
+  return checkpointFromMessage(m, positions, positions.length);
+}
+
+/**
  * A checkpoint as one framed buffer (proto/checkpoint-frame.ts): the header
  * message, then the positions copied once, then the CRC. Checkpoints written
  * to files go through proto/checkpoint-file.ts instead, in chunks.

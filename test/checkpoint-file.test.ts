@@ -19,6 +19,7 @@ import { isCheckpointFrame } from '../proto/checkpoint-frame.js';
 import { ENGINE_VERSION } from '../worker/core/engine-version.js';
 import type { GrowthCheckpoint, GrowthTask } from '../worker/core/growth-kernel.js';
 import { createKernel, MODELS, modelParams } from '../worker/models/registry.js';
+import { OffLatticeDla2d } from '../worker/models/dla-offlattice-2d/kernel.js';
 
 const CLI = fileURLToPath(new URL('../dist/coordinator/cli.js', import.meta.url));
 let work: string;
@@ -114,6 +115,21 @@ describe('framed checkpoints', () => {
     expect(resumed.positions().coords).toBe(c.state.positions);
     resumed.growTo(task.particles);
     expect(resumed.result().stateHash).toBe(finalHash(task));
+  });
+
+  it('a 2D kernel resumed from a file rebuilds an index of the same size as the one that grew to that count (reserved for the whole run: nothing grows by copying on resume)', () => {
+    const task = taskOf('dla-offlattice-2d', 20_000);
+    const grown = new OffLatticeDla2d(task);
+    grown.growTo(12_000);
+    const path = join(work, 'index.checkpoint');
+    writeCheckpointFile(path, { run: runOf(task), state: grown.checkpointView(), growSeconds: 0, startedAtMs: 0, resumes: 0 });
+    const resumed = new OffLatticeDla2d(task, readCheckpointFile(path, task.particles).state);
+    expect(resumed.count).toBe(12_000);
+    // the index's allocation (reservations included) is a function of the run's size and of the tiles its particles touch, not of how they arrived
+    expect(resumed.indexBytes).toBe(grown.indexBytes);
+    grown.growTo(task.particles);
+    resumed.growTo(task.particles);
+    expect(resumed.result().stateHash).toBe(grown.result().stateHash);
   });
 });
 

@@ -3,7 +3,10 @@
  * streams its checkpoints into the artifact folder, a worker killed with
  * SIGKILL loses at most one checkpoint interval, a fresh worker resumes from
  * the newest checkpoint to the very state an uninterrupted run reaches, and
- * `tendril watch` shows the run's particles while it grows.
+ * `tendril watch` shows the run's particles while it grows; a resumed run
+ * that keeps positions hands its final positions from the growth thread to
+ * the main thread by moving the kernel's own array (no copy), bit for bit
+ * those of the uninterrupted run.
  *
  * The rule for the lost work (exact, derived here): with checkpoints every E
  * particles, lost = P − R, where P is the last particle count the killed
@@ -29,8 +32,12 @@ import { launchEnsemble, runQueue } from '../coordinator/farm/queue.js';
 import { EnsembleStore } from '../coordinator/farm/store.js';
 import { runTaskFor } from '../coordinator/plan.js';
 import { validateSpec } from '../coordinator/spec/index.js';
-import { checkpointKey } from '../worker/runtime/job-contract.js';
+import { checkpointKey, finalKey } from '../worker/runtime/job-contract.js';
 import { TaskThreadPool } from '../worker/runtime/task-thread.js';
+import { runTask } from '../worker/runtime/task-runner.js';
+import { encodeCheckpoint } from '../proto/convert.js';
+import { DirectoryArtifactStore } from '../coordinator/farm/artifacts.js';
+import { finalPositionsIn, putFinalState } from '../coordinator/farm/final-positions.js';
 import { CLI, deleteKeys, REDIS_URL, ROOT, startWorker, stopWorker, tempDir, uniquePrefix, waitFor, type WorkerProc } from './farm-helpers.js';
 
 const PARTICLES = 400_000;
@@ -158,5 +165,43 @@ describe('a giant cluster as one farm job', () => {
     if (resumed.status !== 'done' || reference.status !== 'done') return;
     expect(resumed.result.timings.resumes).toBe(1);
     expect(resumed.result.stateHash).toBe(reference.result.stateHash);
+  }, 300_000);
+
+  it('a run that keeps positions, stopped and resumed from its checkpoint file, hands over its final positions moved from the thread: those of the uninterrupted run, bit for bit, and the same stored frame', async () => {
+    const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 30_000, clusters: 1, seed: 5, checkpoint_every_particles: 10_000 });
+    const task = { ...runTaskFor('final-moved', spec, 0), keepPositions: true };
+    const path = join(artifacts, 'final-moved.checkpoint');
+    let first: () => void = () => undefined;
+    const oneCheckpoint = new Promise<void>((r) => (first = r));
+    const h = pool.run(task, { checkpointFile: { path, resume: false }, onCheckpoint: () => first() });
+    await oneCheckpoint;
+    h.stop();
+    await h.outcome; // stopped, or done on a very fast machine: the file holds a checkpoint either way (written before it is reported)
+    const resumed = await pool.run(task, { checkpointFile: { path, resume: true } }).outcome;
+    const reference = await runTask(task); // in this thread: its final state is a copy of the kernel's positions
+    expect(resumed.status).toBe('done');
+    expect(reference.status).toBe('done');
+    if (resumed.status !== 'done' || reference.status !== 'done') return;
+    expect(resumed.result.timings.resumes).toBe(1);
+    expect(resumed.result.stateHash).toBe(reference.result.stateHash);
+    const moved = resumed.final!;
+    const kept = reference.final!;
+    // the kernel's own array, moved whole (its run's 2 values per particle, nothing more), not a decoded copy of a frame
+    expect(moved.state.positions.length).toBe(2 * task.particles);
+    expect(moved.state.positions.buffer.byteLength).toBe(16 * task.particles);
+    expect(moved.state.count).toBe(task.particles);
+    expect(Buffer.compare(Buffer.from(moved.state.positions.buffer), Buffer.from(kept.state.positions.buffer, kept.state.positions.byteOffset, kept.state.positions.byteLength))).toBe(0);
+    expect(Array.from(moved.state.rngState)).toEqual(Array.from(kept.state.rngState));
+    expect(moved.state.counters).toEqual(kept.state.counters);
+    expect(moved.state.series).toEqual(kept.state.series);
+    // stored streamed: the same bytes as the whole frame, and read back to the same positions
+    const store = new DirectoryArtifactStore(artifacts);
+    await putFinalState(store, 'final-moved', 0, moved);
+    const file = join(artifacts, finalKey('final-moved', 0));
+    expect(Buffer.compare(readFileSync(file), Buffer.from(encodeCheckpoint(moved)))).toBe(0);
+    const back = await finalPositionsIn(store, 'final-moved', 0);
+    expect(back!.count).toBe(task.particles);
+    expect(Buffer.compare(Buffer.from(back!.coords.buffer, 0, 16 * task.particles), Buffer.from(moved.state.positions.buffer))).toBe(0);
+    expect(await finalPositionsIn(store, 'final-moved', 1)).toBeNull();
   }, 300_000);
 });

@@ -3,7 +3,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { decodeRunResult, encodeCheckpoint, encodeRunResult, type RunTaskData } from '../proto/convert.js';
+import { decodeRunResult, encodeRunResult, type RunTaskData } from '../proto/convert.js';
 import { EmbeddedRunSink, MemoryBatchStore, MemoryCheckpointStore } from '../coordinator/embedded/in-memory-stores.js';
 import { MemoryRunQueue } from '../coordinator/embedded/in-memory-queue.js';
 import { launchEnsemble } from '../coordinator/farm/launch.js';
@@ -23,7 +23,7 @@ function grown() {
   const k = createKernel(run);
   k.growTo(run.particles);
   const result = { ...k.result(), ensembleId: 'e1', timings: { growSeconds: 1, startedAtMs: 0, finishedAtMs: 1, resumes: 0, finishedBy: 'test' } };
-  const final = encodeCheckpoint({ run, state: k.checkpoint(), growSeconds: 1, startedAtMs: 0, resumes: 0 });
+  const final = { run, state: k.checkpoint(), growSeconds: 1, startedAtMs: 0, resumes: 0 };
   return { result, final, coords: k.positions().coords.slice(0, 2 * run.particles) };
 }
 

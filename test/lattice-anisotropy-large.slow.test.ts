@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { decodeCheckpoint, type RunTaskData } from '../proto/convert.js';
+import type { RunTaskData } from '../proto/convert.js';
 import { ENGINE_VERSION } from '../worker/core/engine-version.js';
 import { anisotropy, anisotropyOf } from '../worker/core/anisotropy.js';
 import { modelParams } from '../worker/models/registry.js';
@@ -92,7 +92,7 @@ async function grow(kind: string, runIndex: number): Promise<ShellStats> {
   };
   const o = await pool.run(task).outcome;
   if (o.status !== 'done' || o.final === undefined) throw new Error(`${kind} run ${runIndex} did not finish with positions`);
-  const cp = decodeCheckpoint(o.final);
+  const cp = o.final;
   return shellStats(cp.state.positions, cp.state.count);
 }
 

@@ -281,4 +281,21 @@ describe('reservedArray', () => {
     for (let i = 0; i < 300; i++) bytes.orBits(i * 9, i * 5, 3);
     for (let i = 0; i < 300; i++) expect([bytes.get(i * 9, i * 5), bytes.get(i * 9, i * 5 + 1)]).toEqual([3, 0]);
   });
+  it('counts its exact scans, fresh block gathers and ring gathers (benchmark counters)', () => {
+    const index = new OccupancyIndex2d(16);
+    index.insert(0.5, 0.5);
+    index.query(100.5, 100.5); // far away: answered by the marks, no scan
+    expect([index.exactScans, index.blockGathers, index.ringGathers]).toEqual([0, 0, 0]);
+    index.query(1.5, 0.5); // level-0 cell (0, 0) is marked: exact scan, block gathered; the centre is 1 away, inside the block's reach
+    expect([index.exactScans, index.blockGathers, index.ringGathers]).toEqual([1, 1, 0]);
+    expect(index.free).toBeCloseTo(0, 12);
+    index.query(1.9, 1.9); // same cell: the block is reused
+    expect([index.exactScans, index.blockGathers, index.ringGathers]).toEqual([2, 1, 0]);
+    index.query(-3.5, 0.5); // cell (-2, 0) is marked (within 2 cells), the centre (4 away) lies in its ring: block and ring gathered
+    expect([index.exactScans, index.blockGathers, index.ringGathers]).toEqual([3, 2, 1]);
+    expect(index.free).toBeCloseTo(3, 12);
+    index.insert(0.7, 3.5); // an insert drops the kept block
+    index.query(1.9, 1.9);
+    expect([index.exactScans, index.blockGathers]).toEqual([4, 3]);
+  });
 });

@@ -87,7 +87,7 @@ export function register(program: Command): void {
     if (orphans > 0) log(`removed ${orphans} temporary file(s) left in ${artifacts.root} by writers that died`);
     const probes = new FarmProbeHandler(store, artifacts, concurrency, { onProbed: metrics.onProbed, log }, new ProbeRequestStore(farm.redis, farm.prefix));
     const sink: RunSink = {
-      finalPositions: (run, bytes) => keepFinalAndQueueProbes(store, artifacts, farm.queue, run, bytes),
+      finalPositions: (run, final) => keepFinalAndQueueProbes(store, artifacts, farm.queue, run, final),
       isCancelled: (e) => store.isCancelled(e),
       exists: (e) => store.exists(e),
       hasResult: (e, i) => store.hasResult(e, i),

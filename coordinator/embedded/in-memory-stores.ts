@@ -13,11 +13,12 @@
  *                           (coordinator/farm/batch-contract.ts BatchStore),
  *                           its results read from the sink
  */
-import { decodeCheckpoint, type RunResultData, type RunTaskData } from '../../proto/convert.js';
+import type { CheckpointData, RunResultData, RunTaskData } from '../../proto/convert.js';
 import type { ClusterPositions } from '../../worker/core/growth-kernel.js';
-import { finalKey, resultKey } from '../../worker/runtime/job-contract.js';
+import { resultKey } from '../../worker/runtime/job-contract.js';
 import type { CheckpointStore, RunSink } from '../../worker/runtime/run-lifecycle.js';
 import type { ArtifactStore } from '../farm/artifacts.js';
+import { putFinalState } from '../farm/final-positions.js';
 import type { BatchStore } from '../farm/batch-contract.js';
 import type { EnsembleRecord } from '../farm/store.js';
 import type { EnsembleSpec } from '../spec/index.js';
@@ -85,11 +86,12 @@ export class EmbeddedRunSink implements RunSink {
   async runFailed(_ensembleId: string, runIndex: number, reason: string): Promise<void> {
     this.failures.push(`run ${runIndex}: ${reason}`);
   }
-  async finalPositions(run: RunTaskData, finalCheckpoint: Uint8Array): Promise<void> {
+  async finalPositions(run: RunTaskData, final: CheckpointData): Promise<void> {
     if (this.store) {
-      await this.store.put(finalKey(this.ensembleId, run.runIndex), finalCheckpoint);
+      // streamed into the store from the moved array, which is then dropped
+      await putFinalState(this.store, this.ensembleId, run.runIndex, final);
       this.finals.set(run.runIndex, null);
-    } else this.finals.set(run.runIndex, positionsOf(decodeCheckpoint(finalCheckpoint)));
+    } else this.finals.set(run.runIndex, positionsOf(final)); // the array moved from the growth thread, kept as it is
   }
 }
 

@@ -37,7 +37,7 @@ import { probedPointsOf } from '../../worker/probe/probe-set.js';
 import type { DiskSet } from '../../worker/probe/disk-set.js';
 import { ProbeThreadPool } from '../../worker/runtime/probe-thread-pool.js';
 import type { ProbeResult } from '../../worker/probe/probe-2d.js';
-import { analyseProbedCluster, breakdownEtaOf, clusterPrefix, positionsOf, probeTasksOfSet } from '../harmonic/ensemble-probing.js';
+import { analyseProbedCluster, breakdownEtaOf, clusterPrefix, probeTasksOfSet } from '../harmonic/ensemble-probing.js';
 import type { ClusterHarmonic } from '../harmonic/cluster-harmonic.js';
 import { TaskThreadPool, type ThreadRun } from '../../worker/runtime/task-thread.js';
 import { runOne, type CheckpointStore } from '../../worker/runtime/run-lifecycle.js';
@@ -45,6 +45,7 @@ import { TaskRejected } from '../../worker/runtime/task-runner.js';
 import { EmbeddedRunSink, MemoryBatchStore, MemoryCheckpointStore } from './in-memory-stores.js';
 import { MemoryRunQueue } from './in-memory-queue.js';
 import { launchEnsemble } from '../farm/launch.js';
+import { finalPositionsIn } from '../farm/final-positions.js';
 import { advanceAdaptive } from '../farm/adaptive.js';
 import type { ArtifactStore } from '../farm/artifacts.js';
 import { checkpointKey, finalKey, harmonicKey, hitsKey, resultKey } from '../../worker/runtime/job-contract.js';
@@ -167,7 +168,7 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
             const recs = await store.get(harmonicKey(opts.ensembleId, run.runIndex));
             if (recs) harmonic.set(run.runIndex, JSON.parse(Buffer.from(recs).toString('utf8')) as ClusterHarmonic[]);
             else {
-              if (!(await store.get(finalKey(opts.ensembleId, run.runIndex)))) continue;
+              if (!(await store.checkpointFile(finalKey(opts.ensembleId, run.runIndex))).exists) continue; // not read whole just to see it is there
               finals.set(run.runIndex, null);
             }
           }
@@ -247,10 +248,7 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
   const probeCluster = async (runIndex: number, failures: string[]): Promise<void> => {
     const held = finals.get(runIndex);
     let pos = held ?? null;
-    if (!pos && store) {
-      const fin = await store.get(finalKey(opts.ensembleId, runIndex));
-      if (fin) pos = positionsOf(decodeCheckpoint(fin));
-    }
+    if (!pos && store) pos = await finalPositionsIn(store, opts.ensembleId, runIndex); // read in chunks into one array
     if (!pos) {
       failures.push(`probe of run ${runIndex}: its final positions are missing`);
       return;
@@ -356,9 +354,8 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
     // the picture's cluster was probed by an earlier invocation: its hits and positions are in the store
     const first = [...harmonic.keys()].sort((a, b) => a - b)[0];
     if (first !== undefined) {
-      const [fin, hits] = await Promise.all([store.get(finalKey(opts.ensembleId, first)), store.get(hitsKey(opts.ensembleId, first))]);
-      if (fin && hits) {
-        const pos = positionsOf(decodeCheckpoint(fin));
+      const [pos, hits] = await Promise.all([finalPositionsIn(store, opts.ensembleId, first), store.get(hitsKey(opts.ensembleId, first))]);
+      if (pos && hits) {
         const counts = new Float64Array(Uint8Array.from(hits).buffer);
         const pts = pos.dimension === 2 ? probedPointsOf(clusterPrefix(pos, spec.particles, spec.model.kind) as DiskSet) : null;
         if (pts && counts.length === pts.count) picture = { runIndex: first, size: spec.particles, x: Float64Array.from(pts.x), y: Float64Array.from(pts.y), counts };

@@ -16,7 +16,7 @@
  * nothing is counted twice.
  */
 import type { Queue } from 'bullmq';
-import { decodeCheckpoint, type RunTaskData } from '../../proto/convert.js';
+import type { CheckpointData, RunTaskData } from '../../proto/convert.js';
 import type { ProbeResult } from '../../worker/probe/probe-2d.js';
 import { ProbeJobCancelled, ProbeJobFailed, ProbeThreadPool } from '../../worker/runtime/probe-thread-pool.js';
 import { ProbeJobRefused, type ProbeJobHandler } from '../../worker/runtime/queue-processor.js';
@@ -24,6 +24,7 @@ import { finalKey, hitsKey, JOB_PAYLOAD_VERSION, probeResultKey, requestResultKe
 import { analyseProbedCluster, breakdownEtaOf, clusterPrefix, positionsOf, probeTasksOfSet } from '../harmonic/ensemble-probing.js';
 import { probeSizesOf, type EnsembleSpec } from '../spec/index.js';
 import type { ArtifactStore } from './artifacts.js';
+import { finalPositionsIn, putFinalState } from './final-positions.js';
 import type { EnsembleStore } from './store.js';
 import type { ProbeRequestStore } from './probe-requests.js';
 import { analyseResults } from '../harmonic/probe-run.js';
@@ -52,12 +53,13 @@ export function probeJobsOf(id: string, spec: EnsembleSpec, runIndex: number, fi
 }
 
 /** RunSink.finalPositions of a farm worker: keep the final state, then queue the run's probes. */
-export async function keepFinalAndQueueProbes(store: EnsembleStore, artifacts: ArtifactStore, queue: Queue, run: RunTaskData, finalBytes: Uint8Array): Promise<void> {
+export async function keepFinalAndQueueProbes(store: EnsembleStore, artifacts: ArtifactStore, queue: Queue, run: RunTaskData, final: CheckpointData): Promise<void> {
   const rec = await store.get(run.ensembleId);
   if (!rec?.spec.probe && !rec?.spec.positions) return;
-  await artifacts.put(finalKey(run.ensembleId, run.runIndex), finalBytes);
+  // streamed from the positions moved from the growth thread (no whole-cluster buffer)
+  await putFinalState(artifacts, run.ensembleId, run.runIndex, final);
   if (!rec.spec.probe) return; // [positions] only: kept for export and download
-  const jobs = probeJobsOf(run.ensembleId, rec.spec, run.runIndex, positionsOf(decodeCheckpoint(finalBytes)));
+  const jobs = probeJobsOf(run.ensembleId, rec.spec, run.runIndex, positionsOf(final));
   for (let i = 0; i < jobs.length; i += 500) await queue.addBulk(jobs.slice(i, i + 500));
 }
 
@@ -154,9 +156,9 @@ export class FarmProbeHandler implements ProbeJobHandler {
   private async finalOf(id: string, run: number): Promise<ClusterPositions> {
     const key = finalKey(id, run);
     if (this.cached?.key === key) return this.cached.final;
-    const bytes = await this.artifacts.get(key);
-    if (!bytes) throw new ProbeJobRefused(`probe of run ${run}: its final positions (${key}) are not in the artifact store`);
-    const final = positionsOf(decodeCheckpoint(bytes));
+    // read in chunks straight into one positions array
+    const final = await finalPositionsIn(this.artifacts, id, run);
+    if (!final) throw new ProbeJobRefused(`probe of run ${run}: its final positions (${key}) are not in the artifact store`);
     this.cached = { key, final };
     return final;
   }

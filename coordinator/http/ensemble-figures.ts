@@ -12,7 +12,6 @@
  * once per max(10 s, 5 × the time the last build took): the analysis runs on
  * the server's thread, and a big ensemble stores results every few seconds.
  */
-import { decodeCheckpoint } from '../../proto/convert.js';
 import { axisOf } from '../../worker/core/positions.js';
 import { TaskThreadPool } from '../../worker/runtime/task-thread.js';
 import type { EnsembleStore } from '../farm/store.js';
@@ -98,7 +97,7 @@ export class EnsembleFigures {
     if (out.status !== 'done' || !out.final) return `run 0 could not be grown again: ${out.status === 'failed' ? out.message : out.status}`;
     const stored = (await this.store.results(id)).find((r) => r.runIndex === 0);
     if (stored && stored.stateHash !== out.result.stateHash) return `run 0 grown again does not match its stored result (hash ${out.result.stateHash} vs ${stored.stateHash})`;
-    const pos = positionsOf(decodeCheckpoint(out.final));
+    const pos = positionsOf(out.final);
     const pic = clusterFigure({ dimension: 2, count: pos.count, x: axisOf(pos, 0), y: axisOf(pos, 1), diameter: 1 }, 0, 600);
     return { png: pic.png, runIndex: 0, particles: pos.count, hashCheck: stored ? 'matches' : 'not stored yet' };
   }

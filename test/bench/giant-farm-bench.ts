@@ -18,7 +18,11 @@
  * more, minus the count resumed from; rule: at most one checkpoint
  * interval), and the final state hash.
  *
- *   node dist/test/bench/run-benchmarks.js --only giant-farm [--farm-size 10000000]
+ *   node dist/test/bench/run-benchmarks.js --only giant-farm [--farm-size 10000000] [--no-kill]
+ *
+ * With --no-kill the first worker grows the cluster to its end (no kill, no
+ * resume): its peak is that of a worker that grew all of it, to set beside
+ * the resumed worker's (the resume fields are then null).
  *
  * Needs the compiled tree (npm run build) and Redis at REDIS_URL.
  */
@@ -45,16 +49,18 @@ export interface GiantFarmRow {
   checkpoints: Array<{ particles: number; writeSeconds: number }>;
   /** Bytes of the newest checkpoint file at the kill. */
   checkpointBytes: number;
-  killedAtParticles: number;
-  resumedFromParticles: number;
-  lostParticles: number;
+  /** Whether the first worker was killed (false with --no-kill: it grew the whole cluster, and the resume fields are null). */
+  killed: boolean;
+  killedAtParticles: number | null;
+  resumedFromParticles: number | null;
+  lostParticles: number | null;
   /** lost <= checkpointEveryParticles. */
-  lostWithinOneInterval: boolean;
-  resumeReadSeconds: number;
+  lostWithinOneInterval: boolean | null;
+  resumeReadSeconds: number | null;
   /** Checkpoints written by the second worker. */
   resumedCheckpoints: Array<{ particles: number; writeSeconds: number }>;
   firstWorker: { peakRssMB: number; cpuSeconds: number };
-  secondWorker: { peakRssMB: number; cpuSeconds: number };
+  secondWorker: { peakRssMB: number; cpuSeconds: number } | null;
   /** Peak RSS of the worker that grew the cluster to its end, per particle. */
   bytesPerParticle: number;
   growSecondsTotal: number;
@@ -77,7 +83,7 @@ function usageOf(pid: number): { peakRssMB: number; cpuSeconds: number } {
   return { peakRssMB: Math.round((hwm / 1024) * 10) / 10, cpuSeconds: ticks / 100 };
 }
 
-export async function runGiantFarmBenchmark(particles = DEFAULT_GIANT_FARM_SIZE, redisUrl = process.env.REDIS_URL ?? 'redis://127.0.0.1:6379'): Promise<GiantFarmRow> {
+export async function runGiantFarmBenchmark(particles = DEFAULT_GIANT_FARM_SIZE, redisUrl = process.env.REDIS_URL ?? 'redis://127.0.0.1:6379', kill = true): Promise<GiantFarmRow> {
   const every = Math.max(1, Math.floor(particles / CHECKPOINTS_PER_RUN));
   const spec = validateSpec(
     { name: `giant farm ${particles}`, model: 'dla-offlattice-2d', particles, clusters: 1, seed: SEED, checkpoint_every_particles: every, checkpoint_interval_seconds: 86_400 },
@@ -91,7 +97,27 @@ export async function runGiantFarmBenchmark(particles = DEFAULT_GIANT_FARM_SIZE,
     procs.push(first);
     const id = await launchEnsemble(store, queue, spec);
     const written = (p: LoggedBenchWorker) => p.log().filter((l) => l.ensembleId === id && l.msg === 'run checkpointed').map((l) => ({ particles: l.particles as number, writeSeconds: l.seconds ?? NaN }));
-    process.stderr.write(`giant-farm: growing ${particles} particles as one farm job, checkpoint every ${every}\n`);
+    process.stderr.write(`giant-farm: growing ${particles} particles as one farm job, checkpoint every ${every}${kill ? '' : ', no kill'}\n`);
+    /** Usage of a live worker, sampled every second until the ensemble is done: the last sample before the result is stored is the peak of growth. */
+    const untilDone = async (p: LoggedBenchWorker) => {
+      let usage = { peakRssMB: NaN, cpuSeconds: NaN };
+      await until(async () => {
+        if (p.child.exitCode === null) usage = usageOf(p.child.pid!);
+        return (await store.status(id))?.state === 'done';
+      }, 1000);
+      return p.child.exitCode === null ? usageOf(p.child.pid!) : usage;
+    };
+    if (!kill) {
+      const whole = await untilDone(first);
+      const [result] = await store.results(id);
+      return {
+        bench: 'giant-farm', engineVersion: ENGINE_VERSION, particles, seed: SEED, checkpointEveryParticles: every,
+        checkpoints: written(first), checkpointBytes: 0, killed: false, killedAtParticles: null, resumedFromParticles: null,
+        lostParticles: null, lostWithinOneInterval: null, resumeReadSeconds: null, resumedCheckpoints: [],
+        firstWorker: whole, secondWorker: null, bytesPerParticle: Math.round((whole.peakRssMB * 1024 * 1024) / particles),
+        growSecondsTotal: result.timings.growSeconds, resumes: result.timings.resumes, stateHash: result.stateHash, nodeVersion: process.version,
+      };
+    }
     // killed half-way between two checkpoints, after the second
     const progress = async () => Number((await redis.hget(`${prefix}:ensemble:${id}:progress`, '0')) ?? 0);
     await until(async () => written(first).length >= 2 && (await progress()) >= written(first)[1].particles + every / 2, 1000);
@@ -106,13 +132,7 @@ export async function runGiantFarmBenchmark(particles = DEFAULT_GIANT_FARM_SIZE,
 
     const second = await startLoggedBenchWorker(redisUrl, prefix, artifacts, WORKER_ARGS);
     procs.push(second);
-    let secondUsage = { peakRssMB: NaN, cpuSeconds: NaN };
-    await until(async () => {
-      // sampled while alive: the last sample before the result is stored is the peak of growth
-      if (second.child.exitCode === null) secondUsage = usageOf(second.child.pid!);
-      return (await store.status(id))?.state === 'done';
-    }, 1000);
-    secondUsage = usageOf(second.child.pid!);
+    const secondUsage = await untilDone(second);
     const resumed = second.log().find((l) => l.ensembleId === id && l.msg === 'run resumed');
     if (!resumed) throw new Error('the second worker did not log a resume');
     const [result] = await store.results(id);
@@ -126,6 +146,7 @@ export async function runGiantFarmBenchmark(particles = DEFAULT_GIANT_FARM_SIZE,
       checkpointEveryParticles: every,
       checkpoints,
       checkpointBytes,
+      killed: true,
       killedAtParticles,
       resumedFromParticles,
       lostParticles,
@@ -151,8 +172,13 @@ export function giantFarmSizeFromArgs(argv: string[]): number {
   return argValue(argv, '--farm-size', DEFAULT_GIANT_FARM_SIZE);
 }
 
+/** False with `--no-kill` (the first worker grows the whole cluster). */
+export function giantFarmKillFromArgs(argv: string[]): boolean {
+  return !argv.includes('--no-kill');
+}
+
 if (isEntryPoint(import.meta.url)) {
-  runGiantFarmBenchmark(giantFarmSizeFromArgs(process.argv.slice(2))).then(
+  runGiantFarmBenchmark(giantFarmSizeFromArgs(process.argv.slice(2)), undefined, giantFarmKillFromArgs(process.argv.slice(2))).then(
     (r) => process.stdout.write(JSON.stringify(r) + '\n'),
     (err: Error) => {
       process.stderr.write(`giant-farm-bench: ${err.message}\n`);

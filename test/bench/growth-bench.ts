@@ -41,6 +41,15 @@ export interface GrowthBenchRow {
   peakRssMB: number;
   stateHash: string;
   nodeVersion: string;
+  /** Exact scans of the occupancy index per particle, and the fresh block and ring gathers among them (models whose kernel reports indexWork). */
+  exactScansPerParticle?: number;
+  blockGathersPerParticle?: number;
+  ringGathersPerParticle?: number;
+}
+
+/** A kernel that reports its occupancy index's work (worker/models/dla-offlattice-2d/kernel.ts). */
+interface IndexWorkReporter {
+  indexWork: { exactScans: number; blockGathers: number; ringGathers: number };
 }
 
 const THIS_FILE = fileURLToPath(import.meta.url);
@@ -94,6 +103,12 @@ function childMain(particles: number, seed: string, model: string): void {
     stateHash: result.stateHash,
     nodeVersion: process.version,
   };
+  if ('indexWork' in kernel) {
+    const w = (kernel as unknown as IndexWorkReporter).indexWork;
+    row.exactScansPerParticle = w.exactScans / particles;
+    row.blockGathersPerParticle = w.blockGathers / particles;
+    row.ringGathersPerParticle = w.ringGathers / particles;
+  }
   process.stdout.write(JSON.stringify(row) + '\n');
 }
 

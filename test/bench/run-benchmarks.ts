@@ -36,7 +36,8 @@
  *              one 2D off-lattice DLA cluster of 10^7 (--farm-size) as one farm job
  *              on one worker over Redis, SIGKILLed after two checkpoints and resumed
  *              by a fresh worker: checkpoint write/read times, worker peak RSS and
- *              CPU seconds, work lost, final state hash
+ *              CPU seconds, work lost, final state hash (--no-kill: grown to its
+ *              end by the first worker, for the peak of a worker that grew it all)
  *   dbm        test/bench/dbm-bench.ts: off-lattice DBM at η = 0.5, 2 (to 10^5)
  *              and 4 (to 10^4): particles per CPU second and walkers per particle
  *              against N, within --dbm-seconds CPU seconds per η (default 600);
@@ -54,7 +55,7 @@ import { runLatticeBenchmark } from './lattice-bench.js';
 import { giantOptionsFromArgs, runGiantBenchmark } from './giant-bench.js';
 import { DBM_BENCH_PLAN, runDbmBenchmark } from './dbm-bench.js';
 import { runDbmCapBenchmark } from './dbm-cap-bench.js';
-import { giantFarmSizeFromArgs, runGiantFarmBenchmark } from './giant-farm-bench.js';
+import { giantFarmKillFromArgs, giantFarmSizeFromArgs, runGiantFarmBenchmark } from './giant-farm-bench.js';
 
 const PARTS = ['growth', 'dla3d', 'aggregate', 'probe', 'probe-scaling', 'farm', 'eden', 'lattice', 'dbm', 'dbm-cap', 'dbm-lattice', 'giant', 'giant-farm'] as const;
 /** Parts run only when named in --only (long, and not for CI). */
@@ -102,9 +103,12 @@ async function main(argv: string[]): Promise<number> {
         await runGiantBenchmark(giantOptionsFromArgs(argv, given ? sizesFromArgs(argv) : undefined));
       }
       else if (part === 'giant-farm') {
-        const r = await runGiantFarmBenchmark(giantFarmSizeFromArgs(argv), process.env.REDIS_URL);
+        const r = await runGiantFarmBenchmark(giantFarmSizeFromArgs(argv), process.env.REDIS_URL, giantFarmKillFromArgs(argv));
+        const writes = `written in ${r.checkpoints.map((c) => c.writeSeconds.toFixed(2)).join(', ')} s`;
         process.stdout.write(
-          `giant-farm: ${r.particles} particles as one farm job: checkpoint ${(r.checkpointBytes / 1e6).toFixed(0)} MB written in ${r.checkpoints.map((c) => c.writeSeconds.toFixed(2)).join(', ')} s, read in ${r.resumeReadSeconds.toFixed(2)} s; lost ${r.lostParticles} particles (interval ${r.checkpointEveryParticles}); peak RSS ${r.firstWorker.peakRssMB} / ${r.secondWorker.peakRssMB} MiB; hash ${r.stateHash}\n`,
+          r.secondWorker
+            ? `giant-farm: ${r.particles} particles as one farm job: checkpoint ${(r.checkpointBytes / 1e6).toFixed(0)} MB ${writes}, read in ${r.resumeReadSeconds?.toFixed(2)} s; lost ${r.lostParticles} particles (interval ${r.checkpointEveryParticles}); peak RSS ${r.firstWorker.peakRssMB} / ${r.secondWorker.peakRssMB} MiB; hash ${r.stateHash}\n`
+            : `giant-farm: ${r.particles} particles as one farm job, not killed: checkpoints ${writes}; peak RSS ${r.firstWorker.peakRssMB} MiB; hash ${r.stateHash}\n`,
         );
         process.stdout.write(JSON.stringify(r) + '\n');
       }

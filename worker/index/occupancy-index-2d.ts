@@ -112,8 +112,6 @@ const RESERVE_MARKS = 0.066;
 const RESERVE_HELD = 0.018;
 /** At most this many centres are returned by a scan (a 6 × 6 block holds far fewer unit disks). */
 const MAX_NEAR = 256;
-/** Room for the ring's centres (16 cells of side 2 hold at most about 75 unit disks); grown if ever exceeded. */
-const RING_START = 128;
 /** A cell coordinate no centre can have (cell coordinates are int32 of |x| < 2^31 / 2). */
 const NO_CELL = -2147483648;
 /** SCALES[k] = 1 / (cell side at level k) = 2^-(k+1); SIDES[k] = 2^(k+1). */
@@ -134,20 +132,25 @@ export class OccupancyIndex2d {
   nearCount = -1;
   /** Result of the last `query`: a lower bound on (nearest centre distance) − 1. */
   free = 0;
+  /**
+   * Work counters for benchmarks (one increment each, never read in a run):
+   * exact scans; among them the scans that gathered their 3 × 3 block afresh
+   * (the others reused the last one); and the reads of the ring around it.
+   */
+  exactScans = 0;
+  blockGathers = 0;
+  ringGathers = 0;
 
   /**
    * The last exact scan's 3 × 3 block (level-0 cell of its centre; NO_CELL
    * when none or after an insert): nearX/nearY[0 .. scanCount) still hold its
-   * centres, and ringX/ringY[0 .. ringCount) those of the ring around it
-   * (ringCount -1: not gathered yet). A walker that stays in one cell reuses
-   * them: the same centres in the same order, so the same answers.
+   * centres. A walker that stays in one cell reuses them: the same centres
+   * in the same order, so the same answers. (The ring around the block is
+   * read from the lists each time it is needed: see ringMinimum.)
    */
   private scanCx = NO_CELL;
   private scanCy = NO_CELL;
   private scanCount = 0;
-  private ringX = new Float64Array(RING_START);
-  private ringY = new Float64Array(RING_START);
-  private ringCount = -1;
 
   /** Level-0 cell → 1 + arrival index of its newest centre (0: none). */
   private heads: TiledInt32Grid;
@@ -160,6 +163,8 @@ export class OccupancyIndex2d {
   private marks: TiledByteGrid[] = [];
   /** One bit per level-0 cell, set when the cell holds a centre (the HOLDS bits of marks[0], laid out for window reads). */
   private held0: WindowBitGrid;
+  /** Cells newly marked by an insert's raiseBlock, as (x, y) pairs (scratch). */
+  private readonly freshMarks = new Int32Array(2 * (2 * DILATION + 1) ** 2);
   /** Level at which the next search starts (a speed hint only). */
   private guess = 1;
   private count = 0;
@@ -250,22 +255,16 @@ export class OccupancyIndex2d {
       // every coarser cell containing it: nothing left to do.
       if ((old & HOLDS) !== 0) break;
       if (k === 0) this.held0.set(ix, iy);
-      t.raiseBlock(ix, iy, GAP_RADIUS, CLOSENESS, GAP_SHIFT);
-      const below = k > 0 ? this.marks[k - 1] : null;
-      for (let dy = -DILATION; dy <= DILATION; dy++)
-        for (let dx = -DILATION; dx <= DILATION; dx++) {
-          const was = dx === 0 && dy === 0 ? old : t.orBits(ix + dx, iy + dy, MARKED);
-          if ((was & MARKED) === 0 && below !== null) {
-            // newly marked: tell its four children, so that a query can stop
-            // at the largest unmarked level with one lookup
-            const jx = 2 * (ix + dx);
-            const jy = 2 * (iy + dy);
-            below.orBits(jx, jy, PARENT);
-            below.orBits(jx + 1, jy, PARENT);
-            below.orBits(jx, jy + 1, PARENT);
-            below.orBits(jx + 1, jy + 1, PARENT);
-          }
-        }
+      // closeness around the cell, and MARKED on its block (the cell itself has it already)
+      const fresh = this.freshMarks;
+      const m = t.raiseBlock(ix, iy, GAP_RADIUS, CLOSENESS, GAP_SHIFT, DILATION, MARKED, fresh);
+      if (k === 0) continue;
+      // Newly marked cells (the centre cell when `old` lacked MARKED) tell
+      // their four children, so that a query can stop at the largest
+      // unmarked level with one lookup.
+      const below = this.marks[k - 1];
+      if ((old & MARKED) === 0) markChildren(below, ix, iy);
+      for (let j = 0; j < m; j++) markChildren(below, fresh[2 * j], fresh[2 * j + 1]);
     }
   }
 
@@ -329,6 +328,7 @@ export class OccupancyIndex2d {
     const nearY = this.nearY;
     let best = Infinity;
     let n: number;
+    this.exactScans++;
     if (cx === this.scanCx && cy === this.scanCy) {
       // same block as the last scan, no insert since: its centres are still in nearX/nearY
       n = this.scanCount;
@@ -344,6 +344,7 @@ export class OccupancyIndex2d {
       const next = this.next;
       const nearId = this.nearId;
       n = 0;
+      this.blockGathers++;
       let complete = true;
       // only the cells that hold centres (their bits in held0), row by row
       const row0 = this.heldRow0(cx, cy);
@@ -374,7 +375,6 @@ export class OccupancyIndex2d {
       this.scanCx = complete ? cx : NO_CELL;
       this.scanCy = cy;
       this.scanCount = n;
-      this.ringCount = -1;
     }
     this.nearCount = n;
     const ex = wx - cx * 2;
@@ -387,53 +387,43 @@ export class OccupancyIndex2d {
       // there), so that the answer can reach 4 + edge. The near list does not
       // need them (the answer is at least 1 >= minStep).
       reach = 4 + edge;
-      if (this.ringCount < 0) this.gatherRing(cx, cy);
-      const ringX = this.ringX;
-      const ringY = this.ringY;
-      const m = this.ringCount;
-      for (let j = 0; j < m; j++) {
-        const ddx = ringX[j] - wx;
-        const ddy = ringY[j] - wy;
-        const d2 = ddx * ddx + ddy * ddy;
-        if (d2 < best) best = d2;
-      }
+      best = this.ringMinimum(cx, cy, wx, wy, best);
     }
     const nearest = Math.sqrt(best);
     this.free = (nearest < reach ? nearest : reach) - 1;
   }
 
-  /** Copy the centres of the ring of 16 level-0 cells around the 3 × 3 block at (cx, cy) into ringX/ringY. */
-  private gatherRing(cx: number, cy: number): void {
+  /**
+   * The smaller of `best` and the least squared distance from (wx, wy) to a
+   * centre of the ring of 16 level-0 cells around the 3 × 3 block at
+   * (cx, cy). Read straight from the lists: a walker rarely needs the same
+   * ring twice (about 5 % of the rings in DLA growth), so keeping a copy
+   * did not pay.
+   */
+  private ringMinimum(cx: number, cy: number, wx: number, wy: number, best: number): number {
     const heads = this.heads;
     const xy = this.xy;
     const next = this.next;
-    let ringX = this.ringX;
-    let ringY = this.ringY;
-    let m = 0;
+    this.ringGathers++;
     const row0 = this.heldRow0(cx, cy);
+    if (row0 < 0) return best;
     const words = this.held0.words;
     const shift = (cx & CORE_MASK) + WINDOW_RADIUS - 2; // bit 0: column cx - 2
     for (let dy = -2; dy <= 2; dy++) {
       // all five columns in the outer rows, the two outer ones in the others
-      let cells = row0 < 0 ? 0 : (words[row0 + dy] >>> shift) & (dy === -2 || dy === 2 ? 0x1f : 0x11);
+      let cells = (words[row0 + dy] >>> shift) & (dy === -2 || dy === 2 ? 0x1f : 0x11);
       while (cells !== 0) {
         const ix = cx - 2 + (31 - clz32(cells & -cells));
         cells &= cells - 1;
         for (let id = heads.get(ix, cy + dy) - 1; id >= 0; id = next[id]) {
-          if (m === ringX.length) {
-            // only for centres packed closer than unit disks allow
-            this.ringX = growCopy(ringX);
-            this.ringY = growCopy(ringY);
-            ringX = this.ringX;
-            ringY = this.ringY;
-          }
-          ringX[m] = xy[2 * id];
-          ringY[m] = xy[2 * id + 1];
-          m++;
+          const ddx = xy[2 * id] - wx;
+          const ddy = xy[2 * id + 1] - wy;
+          const d2 = ddx * ddx + ddy * ddy;
+          if (d2 < best) best = d2;
         }
       }
     }
-    this.ringCount = m;
+    return best;
   }
 
   /** Offset in held[0].words of the row of level-0 cell row cy, in the tile owning cell (cx, cy); -1: no centre within 4 cells. */
@@ -441,6 +431,16 @@ export class OccupancyIndex2d {
     const base = this.held0.tileOffset(cx, cy);
     return base < 0 ? -1 : base + (cy & CORE_MASK) + WINDOW_RADIUS;
   }
+}
+
+/** Set the PARENT bit of the four children (in the finer grid `below`) of cell (x, y). */
+function markChildren(below: TiledByteGrid, x: number, y: number): void {
+  const jx = 2 * x;
+  const jy = 2 * y;
+  below.orBits(jx, jy, PARENT);
+  below.orBits(jx + 1, jy, PARENT);
+  below.orBits(jx, jy + 1, PARENT);
+  below.orBits(jx + 1, jy + 1, PARENT);
 }
 
 /** A copy of `a` with room for at least `need` entries (a quarter more at a time, so that the slack stays small). */
@@ -453,12 +453,6 @@ function grownFloat64(a: Float64Array, need: number): Float64Array {
 /** A copy of `a` with room for at least `need` entries (a quarter more at a time). */
 function grownInt32(a: Int32Array, need: number): Int32Array {
   const b = new Int32Array(Math.max(need, Math.ceil(a.length * 1.25)));
-  b.set(a);
-  return b;
-}
-
-function growCopy(a: Float64Array): Float64Array<ArrayBuffer> {
-  const b = new Float64Array(2 * a.length);
   b.set(a);
   return b;
 }

@@ -158,10 +158,15 @@ export class TiledByteGrid {
    * For every cell of the (2r + 1)² block centred on (ix, iy): raise the
    * field in bits `shift`.. of the cell to at least values[(dy + r)·(2r + 1) + dx + r]
    * (bits below `shift` are kept). Tiles are visited one at a time.
+   * With `orRadius` m >= 0, the cells of the inner (2m + 1)² block (m <= r)
+   * also get `bits` (below `shift`) or-ed in, and those that had none of
+   * them are listed as (x, y) pairs in `fresh`; the count of such cells is
+   * returned (0 when m < 0).
    */
-  raiseBlock(ix: number, iy: number, r: number, values: Uint8Array, shift: number): void {
+  raiseBlock(ix: number, iy: number, r: number, values: Uint8Array, shift: number, orRadius = -1, bits = 0, fresh: Int32Array | null = null): number {
     const low = (1 << shift) - 1;
     const w = 2 * r + 1;
+    let count = 0;
     for (let ty = (iy - r) >> TILE_SHIFT; ty <= (iy + r) >> TILE_SHIFT; ty++) {
       const y0 = Math.max(iy - r, ty << TILE_SHIFT);
       const y1 = Math.min(iy + r, (ty << TILE_SHIFT) + TILE_MASK);
@@ -178,15 +183,26 @@ export class TiledByteGrid {
         for (let y = y0; y <= y1; y++) {
           const row = t * TILE_CELLS + ((y & TILE_MASK) << TILE_SHIFT);
           const vrow = (y - iy + r) * w + r - ix;
+          const inner = y >= iy - orRadius && y <= iy + orRadius;
           for (let x = x0; x <= x1; x++) {
             const v = values[vrow + x];
             const o = row + (x & TILE_MASK);
             const old = pool[o];
-            if (v > old >>> shift) pool[o] = (old & low) | (v << shift);
+            let now = v > old >>> shift ? (old & low) | (v << shift) : old;
+            if (inner && x >= ix - orRadius && x <= ix + orRadius) {
+              if ((old & bits) === 0 && fresh !== null) {
+                fresh[2 * count] = x;
+                fresh[2 * count + 1] = y;
+                count++;
+              }
+              now |= bits;
+            }
+            if (now !== old) pool[o] = now;
           }
         }
       }
     }
+    return count;
   }
 
   /** Or `bits` into cell (ix, iy); returns the old value. */

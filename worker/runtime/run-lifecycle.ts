@@ -17,7 +17,7 @@
  * A task the engine refuses throws TaskRejected (its run marked failed); any
  * other failure throws an Error with the thread's one-line reason.
  */
-import type { RunResultData, RunTaskData } from '../../proto/convert.js';
+import type { CheckpointData, RunResultData, RunTaskData } from '../../proto/convert.js';
 import { firstLine, messageOf } from '../../proto/errors.js';
 import { checkpointKey } from './job-contract.js';
 import { TaskRejected } from './task-runner.js';
@@ -35,8 +35,12 @@ export interface RunSink {
   /** Store a finished run; false when it was stored before. */
   saveResult(result: RunResultData, bytes: Uint8Array): Promise<boolean>;
   runFailed(ensembleId: string, runIndex: number, reason: string): Promise<void>;
-  /** Keep the final state of a run that keeps positions (and queue its probes); called before saveResult. */
-  finalPositions?(run: RunTaskData, finalCheckpoint: Uint8Array): Promise<void>;
+  /**
+   * Keep the final state of a run that keeps positions (and queue its
+   * probes); called before saveResult. Its positions are the kernel's own
+   * array, moved from the growth thread: the sink may keep them (no copy).
+   */
+  finalPositions?(run: RunTaskData, final: CheckpointData): Promise<void>;
 }
 
 export interface CheckpointStore {

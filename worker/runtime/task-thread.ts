@@ -15,7 +15,10 @@
  *                                                             bytes: written to checkpointFile already,
  *                                                             in `seconds`
  *                   { type: 'checkpoint-failed', id, message } the file could not be written (growth goes on)
- *                   { type: 'done', id, result, final? }      final: the end state when the task keeps positions
+ *                   { type: 'done', id, result, final? }      final: the end state when the task keeps positions,
+ *                                                             { header, positions }: the Checkpoint header (protobuf,
+ *                                                             no positions) and the kernel's own positions array,
+ *                                                             its buffer *transferred* (moved, not copied)
  *                   { type: 'stopped', id, checkpoint? }      without checkpoint: written to checkpointFile
  *                   { type: 'failed', id, message, rejected }
  *
@@ -32,10 +35,12 @@ import { isMainThread, parentPort, Worker, workerData } from 'node:worker_thread
 import { compiledWorkerEntry } from './thread-entry.js';
 import { ThreadSlots, type ThreadSlot } from './thread-slots.js';
 import {
+  checkpointFromHeader,
   decodeCheckpoint,
   decodeRunResult,
   decodeRunTask,
   encodeCheckpoint,
+  encodeCheckpointHeader,
   encodeRunResult,
   encodeRunTask,
   type CheckpointData,
@@ -59,9 +64,36 @@ type FromThread =
   | { type: 'resumed'; id: number; count: number; seconds: number }
   | { type: 'checkpoint'; id: number; bytes?: Uint8Array; count: number; seconds?: number }
   | { type: 'checkpoint-failed'; id: number; message: string }
-  | { type: 'done'; id: number; result: Uint8Array; final?: Uint8Array }
+  | { type: 'done'; id: number; result: Uint8Array; final?: FinalState }
   | { type: 'stopped'; id: number; checkpoint?: Uint8Array }
   | { type: 'failed'; id: number; message: string; rejected: boolean };
+
+/** The final state of a run that keeps positions, as it crosses from the thread: the header message and the positions (count × dimension values). */
+interface FinalState {
+  header: Uint8Array;
+  positions: Float64Array;
+}
+
+/**
+ * The final state to post, and the buffers to transfer with it. The
+ * positions are the kernel's own (a view, GrowthKernel.checkpointView): their
+ * buffer is moved to the receiver, not cloned, so a giant cluster's positions
+ * exist once at the end of a run. The kernel is dropped after this, and
+ * nothing in the thread reads the moved buffer again. A buffer that cannot be
+ * moved (shared) is copied once into one that can.
+ */
+function finalStateOf(c: CheckpointData): { final: FinalState; transfer: ArrayBuffer[] } {
+  const values = c.state.count * c.state.dimension;
+  let positions = c.state.positions.subarray(0, values);
+  if (!(positions.buffer instanceof ArrayBuffer)) positions = positions.slice();
+  const header = encodeCheckpointHeader(c).slice(); // a buffer of its own
+  return { final: { header, positions }, transfer: [header.buffer, positions.buffer as ArrayBuffer] };
+}
+
+/** The final state as received: the checkpoint, its positions the array moved from the thread. */
+function finalStateFrom(f: FinalState): CheckpointData {
+  return checkpointFromHeader(f.header, f.positions);
+}
 
 // ------------------------------------------------------------ thread side
 
@@ -116,8 +148,10 @@ function threadMain(): void {
         });
         if (outcome.status === 'done') {
           const result = encodeRunResult(outcome.result).slice();
-          const final = outcome.final ? encodeCheckpoint(outcome.final) : undefined;
-          port.postMessage({ type: 'done', id: m.id, result, final } satisfies FromThread, final ? [result.buffer, final.buffer] : [result.buffer]);
+          if (outcome.final) {
+            const { final, transfer } = finalStateOf(outcome.final);
+            port.postMessage({ type: 'done', id: m.id, result, final } satisfies FromThread, [result.buffer, ...transfer]);
+          } else port.postMessage({ type: 'done', id: m.id, result } satisfies FromThread, [result.buffer]);
         } else if (file) {
           writeCheckpointFile(file.path, outcome.checkpoint); // a failure fails the run (retried): the stop must not lose its state silently
           port.postMessage({ type: 'stopped', id: m.id } satisfies FromThread);
@@ -159,7 +193,13 @@ export interface ThreadRunHandlers {
 }
 
 export type ThreadOutcome =
-  | { status: 'done'; result: RunResultData; resultBytes: Uint8Array; /** Final state (Checkpoint protobuf) when the task keeps positions. */ final?: Uint8Array }
+  | {
+      status: 'done';
+      result: RunResultData;
+      resultBytes: Uint8Array;
+      /** Final state when the task keeps positions; its positions are the kernel's own array, moved from the thread (no copy). */
+      final?: CheckpointData;
+    }
   /** checkpoint: the state to store, absent when the thread wrote it to checkpointFile. */
   | { status: 'stopped'; checkpoint?: Uint8Array }
   /** Stopped before it got a thread: nothing ran and nothing changed (keep any earlier checkpoint as it is). */
@@ -234,7 +274,7 @@ export class TaskThreadPool {
               break;
             case 'done':
               try {
-                finish({ status: 'done', result: decodeRunResult(m.result), resultBytes: m.result, ...(m.final ? { final: m.final } : {}) }, false);
+                finish({ status: 'done', result: decodeRunResult(m.result), resultBytes: m.result, ...(m.final ? { final: finalStateFrom(m.final) } : {}) }, false);
               } catch (err) {
                 finish({ status: 'failed', message: (err as Error).message, rejected: false }, false);
               }

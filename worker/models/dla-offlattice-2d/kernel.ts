@@ -156,6 +156,12 @@ export class OffLatticeDla2d implements GrowthKernel {
     return this.index.bytes;
   }
 
+  /** Work of the occupancy index so far (for benchmarks): exact scans, fresh 3 × 3 block gathers and ring gathers. */
+  get indexWork(): { exactScans: number; blockGathers: number; ringGathers: number } {
+    const i = this.index;
+    return { exactScans: i.exactScans, blockGathers: i.blockGathers, ringGathers: i.ringGathers };
+  }
+
   checkpoint(): GrowthCheckpoint {
     return { ...this.checkpointView(), positions: this.xy.slice(0, 2 * this.n) };
   }
