@@ -22,8 +22,9 @@ import { growInThreads } from './support/grow-in-thread.js';
 /** Let the test runner's event loop breathe (a long synchronous stretch makes vitest's worker time out). */
 const breathe = (): Promise<void> => new Promise((resolve) => setImmediate(resolve));
 
+/** Tasks of the exact method for η > 1 (params.method = 0; the history method has its own checks in test/dbm-offlattice-history.slow.test.ts). */
 function task(params: Record<string, number>, particles: number, runIndex = 0, seed = '20261203'): GrowthTask {
-  return { model: modelParams('dbm-offlattice-2d', params), particles, ensembleSeed: seed, runIndex, recordsPerDecade: 10 };
+  return { model: modelParams('dbm-offlattice-2d', { method: 0, ...params }), particles, ensembleSeed: seed, runIndex, recordsPerDecade: 10 };
 }
 
 async function finalRgs(tasks: GrowthTask[]): Promise<number[]> {

@@ -64,19 +64,31 @@ describe('geometry, determinism, resume, refusals', () => {
     }, 60_000);
   }
 
-  for (const eta of [0.5, 2.5]) {
-    it(`at η = ${eta} chunks, checkpoints and an interrupted particle all give the uninterrupted final state`, () => {
-      const n = 120;
-      const t = task({ eta, recurrence_cap: 64 }, n, 9);
+  for (const [eta, method] of [[0.5, 0], [2.5, 0], [2.5, 1], [4, 1]]) {
+    it(`at η = ${eta}${eta > 1 ? `, method ${method}` : ''} chunks, checkpoints and an interrupted particle all give the uninterrupted final state`, () => {
+      const n = method === 1 ? 80 : 120;
+      const t = task({ eta, recurrence_cap: 64, method }, n, 9);
       const whole = createKernel(t);
       whole.growTo(n);
       const want = whole.result();
 
+      // the same seed gives the same bits
+      const again = createKernel(t);
+      again.growTo(n);
+      expect(again.result().stateHash).toBe(want.stateHash);
+
+      // a resumed kernel (with the history method: the hit history restored
+      // from modelState) continues exactly as the one it was taken from
       const chunked = createKernel(t);
       for (let m = 7; m < n; m += 13) {
         chunked.growTo(m);
         const resumed = createKernel(t, structuredClone(chunked.checkpoint()));
         expect(resumed.count).toBe(chunked.count);
+        expect((resumed as OffLatticeDbm2d).stateHash()).toBe((chunked as OffLatticeDbm2d).stateHash());
+        if (m === 46) {
+          resumed.growTo(n);
+          expect(resumed.result().stateHash).toBe(want.stateHash);
+        }
       }
       chunked.growTo(n);
       expect(chunked.result().stateHash).toBe(want.stateHash);
@@ -97,6 +109,54 @@ describe('geometry, determinism, resume, refusals', () => {
       expect(resumed.result().counters).toEqual(want.counters);
     }, 60_000);
   }
+
+  it('with the history method the checkpoint carries the hit history; a checkpoint without it is refused in one line', () => {
+    const t = task({ eta: 2, method: 1 }, 100, 3);
+    const k = createKernel(t);
+    k.growTo(50);
+    const cp = k.checkpoint();
+    expect(cp.modelState.length).toBeGreaterThan(0);
+    expect(createKernel(task({ eta: 2, method: 0 }, 100, 3)).checkpoint().modelState.length).toBe(0);
+    let message = '';
+    try {
+      createKernel(t, { ...cp, modelState: new Uint8Array(0) });
+    } catch (e) {
+      message = (e as Error).message;
+    }
+    expect(message).toMatch(/^checkpoint modelState must hold the hit history of 50 particles/);
+    expect(message).not.toContain('\n');
+  });
+
+  it('the history method changes η = 2 trajectories, and η = 1 ignores the method (DLA hashes either way)', () => {
+    const a = createKernel(task({ eta: 2, method: 0 }, 150, 2));
+    const b = createKernel(task({ eta: 2, method: 1 }, 150, 2));
+    a.growTo(150);
+    b.growTo(150);
+    expect(a.result().stateHash).not.toBe(b.result().stateHash);
+    expect(b.result().counters.attempts).toBeGreaterThanOrEqual(149);
+    const one = createKernel(task({ eta: 1, method: 1 }, 300, 2));
+    one.growTo(300);
+    const dla = createKernel({ ...task({}, 300, 2), model: modelParams('dla-offlattice-2d') });
+    dla.growTo(300);
+    expect(one.result().stateHash).toBe(dla.result().stateHash);
+  });
+
+  it('refuses a bad method, history_extra_gaps or history_headroom in one line naming the field and the range', () => {
+    for (const [params, pattern] of [
+      [{ method: 2 }, /^params\.method: 2 is out of range; allowed: an integer from 0 to 1/],
+      [{ history_extra_gaps: 1.5 }, /^params\.history_extra_gaps: 1\.5 /],
+      [{ history_headroom: 0.5 }, /^params\.history_headroom: 0\.5 is out of range; allowed: a number from 1 to/],
+    ] as const) {
+      let message = '';
+      try {
+        checkModelParams(modelParams('dbm-offlattice-2d', params));
+      } catch (e) {
+        message = (e as Error).message;
+      }
+      expect(message).toMatch(pattern);
+      expect(message).not.toContain('\n');
+    }
+  });
 
   it('refuses η outside [0, 6] in one line naming params.eta and the range', () => {
     for (const eta of [-0.5, 6.5, Number.NaN]) {

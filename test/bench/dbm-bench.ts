@@ -11,7 +11,10 @@
  * (budget: --dbm-seconds, default 600 CPU seconds per η, the target's ten
  * minutes on one core). `--dbm-etas 0.5,2` runs only those η of the plan.
  * One line for people and one JSON line per reported size. The budget is
- * read between chunks of 10 particles.
+ * read between chunks of 10 particles. For η > 1 the model's default method
+ * is used (params.method = 1, the history method, unless --dbm-method 0
+ * asks for the exact one); `capped` counts accepted attempts whose estimate
+ * exceeded the normaliser (kernel.ts header).
  */
 import { loadavg } from 'node:os';
 import { createKernel, modelParams } from '../../worker/models/registry.js';
@@ -40,6 +43,9 @@ export interface DbmBenchRow {
   reachedTarget: boolean;
   budgetSeconds: number;
   nodeVersion: string;
+  /** params.method (0 exact, 1 history; η <= 1 ignores it) and the capped acceptances since the start. */
+  method: number;
+  capped: number;
 }
 
 export const DBM_BENCH_PLAN: Array<{ eta: number; target: number }> = [
@@ -60,10 +66,11 @@ function cpuSecondsSince(start: NodeJS.CpuUsage): number {
   return (u.user + u.system) / 1e6;
 }
 
-export function runDbmBenchmark(budgetSeconds = 600, plan = DBM_BENCH_PLAN): DbmBenchRow[] {
+export function runDbmBenchmark(budgetSeconds = 600, plan = DBM_BENCH_PLAN, method?: number): DbmBenchRow[] {
   const rows: DbmBenchRow[] = [];
   for (const { eta, target } of plan) {
-    const kernel = createKernel({ model: modelParams('dbm-offlattice-2d', { eta }), particles: target, ensembleSeed: '1', runIndex: 0, recordsPerDecade: 10 });
+    const model = modelParams('dbm-offlattice-2d', method === undefined ? { eta } : { eta, method });
+    const kernel = createKernel({ model, particles: target, ensembleSeed: '1', runIndex: 0, recordsPerDecade: 10 });
     const t0 = performance.now();
     const cpu0 = process.cpuUsage();
     let lastT = t0;
@@ -91,9 +98,10 @@ export function runDbmBenchmark(budgetSeconds = 600, plan = DBM_BENCH_PLAN): Dbm
         walkersPerParticle: (walkers - lastWalkers) / Math.max(1, n - lastN),
         walkersPerParticleTotal: walkers / Math.max(1, n - 1),
         targetParticles: target, reachedTarget: n >= target, budgetSeconds, nodeVersion: process.version,
+        method: model.params.method, capped: kernel.counters.capped,
       };
       rows.push(row);
-      process.stdout.write(`dbm eta=${eta}: N = ${n} after ${row.cpuSeconds.toFixed(1)} CPU s (${row.seconds.toFixed(1)} s wall, load ${row.load.toFixed(1)}), ${row.particlesPerCpuSecond.toFixed(1)} particles per CPU second, ${row.walkersPerParticle.toFixed(1)} walkers/particle over the last stretch${outOfTime ? ` (stopped: budget of ${budgetSeconds} CPU s spent before N = ${size}; target ${target} not reached)` : ''}\n`);
+      process.stdout.write(`dbm eta=${eta}: N = ${n} after ${row.cpuSeconds.toFixed(1)} CPU s (${row.seconds.toFixed(1)} s wall, load ${row.load.toFixed(1)}), ${row.particlesPerCpuSecond.toFixed(1)} particles per CPU second, ${row.walkersPerParticle.toFixed(1)} walkers/particle over the last stretch (method ${row.method}, ${row.capped} capped)${outOfTime ? ` (stopped: budget of ${budgetSeconds} CPU s spent before N = ${size}; target ${target} not reached)` : ''}\n`);
       process.stdout.write(JSON.stringify(row) + '\n');
       lastT = now;
       lastCpu = cpu;

@@ -41,7 +41,8 @@
  *   dbm        test/bench/dbm-bench.ts: off-lattice DBM at η = 0.5, 2 (to 10^5)
  *              and 4 (to 10^4): particles per CPU second and walkers per particle
  *              against N, within --dbm-seconds CPU seconds per η (default 600);
- *              --dbm-etas 0.5,2 runs only those η
+ *              --dbm-etas 0.5,2 runs only those η; --dbm-method 0 uses the exact
+ *              method for η > 1 (default: the model's default, the history method)
  *   dbm-cap    test/bench/dbm-cap-bench.ts: total variation between the capped
  *              η < 1 growth law and the exact one on a 2000-disk cluster, per cap
  */
@@ -129,7 +130,10 @@ async function main(argv: string[]): Promise<number> {
           plan = DBM_BENCH_PLAN.filter((p) => etas.includes(p.eta));
           if (plan.length !== etas.length) throw new RangeError(`--dbm-etas: "${argv[e + 1]}" is not a comma-separated list of η from ${DBM_BENCH_PLAN.map((p) => p.eta).join(', ')}`);
         }
-        runDbmBenchmark(budget, plan);
+        const mi = argv.findIndex((a) => a === '--dbm-method');
+        const method = mi >= 0 ? Number(argv[mi + 1]) : undefined;
+        if (method !== undefined && method !== 0 && method !== 1) throw new RangeError(`--dbm-method: "${argv[mi + 1]}" is out of range; allowed: 0 (exact) or 1 (history)`);
+        runDbmBenchmark(budget, plan, method);
       }
       else if (part === 'probe') {
         const r = runProbeBenchmark(1_000_000, 1_000_000);

@@ -36,7 +36,8 @@
  *  1. Proposal: one walker; it touches particle i (probability ω_i).
  *  2. η = 1: accept i always (this path consumes the random stream exactly
  *     as dla-offlattice-2d does, so η = 1 gives its state hashes).
- *  3. η > 1, η − 1 = m + f (m integer, 0 <= f < 1):
+ *  3. η > 1 with params.method = 0 (the exact method), η − 1 = m + f
+ *     (m integer, 0 <= f < 1):
  *     a) m more walkers; the attempt fails unless every one touches i
  *        (probability ω_i^m);
  *     b) if f > 0, a Bernoulli factory for ω_i^f: draw u uniform in [0, 1);
@@ -56,6 +57,57 @@
  *     the same particle". The contact point is an exact sample of the
  *     measure restricted to i: acceptance depends only on which particle each
  *     walker touched, never on where.
+ *  3h. η > 1 with params.method = 1 (the history method, the default):
+ *     every walker released is recorded in a hit history (hit-history.ts):
+ *     a walker clock t (walkers so far), and per particle the clock of its
+ *     birth or last reset and of its last k + 1 hits since then, where
+ *     b = η − 1 and k = floor(b) + 1 + params.history_extra_gaps. After the
+ *     proposal on i (step 1), the window of i's hits ending at this one spans
+ *     g = min(k, hits of i since birth/reset) recurrence gaps (the birth
+ *     starts the first gap) and S walkers. If g < g0 = floor(b) + 1 (i is
+ *     young), fresh walkers are released (and recorded) until i has g0
+ *     hits, so g = g0. The estimate is h_g(S) = Π_{j=g}^{S−1} (1 − b/j)
+ *     (recurrence-power.ts). On a frozen cluster the g gaps are independent
+ *     geometric with mean 1/ω_i, S is negative binomial, and
+ *     E[h_g(S)] = ω_i^b exactly: Σ_s h_g(s) C(s − 1, g − 1) ω^g (1 − ω)^(s−g)
+ *     = ω^b follows from the binomial series of (1 − x)^(b − g) (positive
+ *     coefficients since g > b), and 0 < h_g <= 1. The attempt accepts i iff
+ *     u H < h_g(S), u uniform in [0, 1) drawn before any fresh walker, with
+ *     the normaliser H = min(1, params.history_headroom × the mean of h over
+ *     recent proposals), a decayed mean over about NORMALISER_MEMORY =
+ *     4096 proposals, updated only when a particle is placed (fixed while
+ *     one is built). h_g decreases with S, so a young particle's fresh
+ *     walkers stop as soon as even a hit at the next walker could not reach
+ *     u H (rejected: the same law with fewer walkers). Accepted, the disk
+ *     goes at the proposal walker's contact point. When a disk is placed it
+ *     is born (no hits) and the particle it grew on forgets its hits (reset).
+ *     An attempt then accepts i with probability ω_i E[min(1, h/H)], which
+ *     is ω_i^η / H (the same factor for every particle) when nothing below
+ *     is at work; the walkers per particle drop from about 1/Σ ω^η to about
+ *     H/Σ ω^η plus the fresh walkers of young particles.
+ *     THE APPROXIMATIONS (none vanishes at the defaults; the slow test
+ *     test/dbm-offlattice-history.slow.test.ts compares the defaults with
+ *     the exact method at η = 2, N = 200 and η = 4, N = 50):
+ *      (a) stale history: the gaps of a window were recorded while the
+ *          cluster was smaller, so h estimates a past ω_i. Resetting the
+ *          particle grown on removes the largest change (its ω drops most);
+ *          other particles keep windows of up to k gaps. Smaller k (history_
+ *          extra_gaps = 0, the default) is less stale. Exact only on a frozen
+ *          cluster.
+ *      (b) shared history: consecutive attempts reuse the same recorded hits,
+ *          so they are not independent, and the first accepted attempt is
+ *          not exactly distributed as ω^η/Σ ω^η even on a frozen cluster
+ *          (the effect is of order the ω of the particles involved).
+ *      (c) cut weights: when h_g(S) > H the acceptance is 1 instead of h/H,
+ *          which under-weights particles whose estimate fluctuates above H
+ *          (the counter `capped` counts such acceptances). It vanishes as
+ *          history_headroom → ∞ (H → 1: no speed-up left). Measured capped
+ *          fractions at the default 64: about 1% of particles at η = 2 and
+ *          about 14% at η = 4 (test/bench/dbm-bench.ts), so at η = 4 this
+ *          bias is not small.
+ *      (d) the normaliser H is computed from the same history; any H common
+ *          to all particles cancels except through (c).
+ *     η = 1 never uses the history (step 2), so its hashes stay those of DLA.
  *  4. 0 <= η < 1, a = 1 − η: the recurrence estimator with cap T
  *     (params.recurrence_cap). Release up to T − 1 more walkers; X is the
  *     index of the first one that touches i, or T when none does (X =
@@ -96,20 +148,28 @@
  * for ω^f and the capped recurrence estimator are our own constructions from
  * the binomial series above (no source needed beyond it). The recurrence-time
  * estimators of Somfai, Goold, Ball, DeVita & Sander 2004 (Phys. Rev. E 70,
- * 051403) were not used: the paper's text was not available to us.
+ * 051403) are the published idea behind the history method (estimate the
+ * growth weight of a particle from the recurrence times of walker hits on
+ * it); the paper's text was not available to us, so h_g, the young-particle
+ * completion, the reset and the normaliser are our own constructions,
+ * derived above.
  *
  * Counters: walkers (every walker released), attempts (proposal walkers),
- * and the walk counters of DLA (jumps, short_steps, returns). Walkers per
+ * capped (history method, approximation (c)), and the walk counters of DLA (jumps, short_steps, returns). Walkers per
  * particle = walkers / (particles − 1).
  *
  * Determinism: the random stream is Random.forRun(ensembleSeed, runIndex,
  * STREAM_GROWTH), consumed per particle in a fixed order. A stop abandons the
  * particle being built (all its attempts), restores the generator to where
  * that particle began, and leaves the state after the last whole particle.
- * Checkpoints hold positions, generator state, counters and records; the
+ * The history method records its walkers in an undo journal while a
+ * particle is built; a stop undoes them too. Checkpoints hold positions,
+ * generator state, counters and records, and with the history method the
+ * hit history, H and its two decayed sums (modelState; empty otherwise); the
  * index is rebuilt from positions. The state hash covers the same fields as
  * dla-offlattice-2d's (count, positions, generator state, jumps, short_steps,
- * returns), so η = 1 reproduces its hashes.
+ * returns), so η = 1 reproduces its hashes, and with the history method also
+ * the history and H.
  */
 
 import type { Counters, ClusterPositions, GrowthCheckpoint, GrowthKernel, GrowthResult, GrowthSeries, GrowthTask } from '../../core/growth-kernel.js';
@@ -122,6 +182,8 @@ import { PlanarGrowthWalk, WALK_STOPPED } from '../../walkers/planar-growth-walk
 import { checkCheckpointOf } from '../../core/checkpoint-check.js';
 import { recordPlanarAnisotropy } from '../../core/anisotropy.js';
 import { MAX_STEPS_PER_PARTICLE, WalkerStuck, type StopSignal } from '../../core/stop-signal.js';
+import { HitHistory } from './hit-history.js';
+import { RecurrencePower } from './recurrence-power.js';
 
 /** The counters of this model (names as declared by its descriptor). */
 export interface OffLatticeDbm2dCounters extends Counters {
@@ -130,7 +192,15 @@ export interface OffLatticeDbm2dCounters extends Counters {
   jumps: number;
   short_steps: number;
   returns: number;
+  capped: number;
 }
+
+/** History method: the normaliser follows the mean estimate over about this many proposals. */
+const NORMALISER_MEMORY = 4096;
+
+/** params.method: 0 the exact method for η > 1, 1 the history method. */
+export const METHOD_EXACT = 0;
+export const METHOD_HISTORY = 1;
 
 /** A walk interrupted by the stop signal (internal: addParticle turns it into `false`). */
 const STOPPED = -1;
@@ -154,6 +224,18 @@ export class OffLatticeDbm2d implements GrowthKernel {
   private readonly deficit: number;
   private readonly cap: number;
   private readonly capWeight: number;
+  /** History method (η > 1, params.history_gaps > 0): the hit history, h_g, the headroom and the normaliser H. */
+  private readonly history: HitHistory | null;
+  private readonly power: RecurrencePower | null;
+  private readonly headroom: number;
+  private normaliser = 1;
+  /** Decayed sums of the proposals' h_g and of their number (H = min(1, headroom · mean)); this particle's part. */
+  private weightSum = 0;
+  private weightCount = 0;
+  private pendingWeightSum = 0;
+  private pendingCapped = 0;
+  /** The particle the last accepted attempt grew on. */
+  private grownOn = 0;
   private readonly xy: Float64Array;
   private readonly index: OccupancyIndex2d;
   private readonly rng: Random;
@@ -189,23 +271,28 @@ export class OffLatticeDbm2d implements GrowthKernel {
     this.deficit = this.eta < 1 ? 1 - this.eta : 0;
     this.cap = p.recurrence_cap;
     this.capWeight = recurrenceWeight(this.cap, this.deficit);
+    const useHistory = this.eta > 1 && (p.method ?? METHOD_EXACT) === METHOD_HISTORY;
+    this.history = useHistory ? new HitHistory(task.particles, Math.floor(extra) + 1 + (p.history_extra_gaps ?? 0)) : null;
+    this.power = this.history === null ? null : new RecurrencePower(extra);
+    this.headroom = p.history_headroom ?? 1;
     this.xy = new Float64Array(2 * task.particles);
     this.index = new OccupancyIndex2d(task.particles, this.xy);
     this.sizes = recordSizes(task.particles, task.recordsPerDecade);
     if (checkpoint === undefined) {
       this.rng = Random.forRun(task.ensembleSeed, task.runIndex, STREAM_GROWTH);
-      this.counters = { walkers: 0, attempts: 0, jumps: 0, short_steps: 0, returns: 0 };
+      this.counters = { walkers: 0, attempts: 0, jumps: 0, short_steps: 0, returns: 0, capped: 0 };
       this.series = { sizes: [], radiusOfGyration: [], maxRadius: [], centerOffset: [], extra: {} };
       this.place(0, 0);
     } else {
       checkCheckpointOf(task, 2, checkpoint);
-      if (checkpoint.modelState.length !== 0) throw new RangeError(`checkpoint modelState must be empty for ${task.model.kind}, got ${checkpoint.modelState.length} bytes`);
+      if (this.history === null && checkpoint.modelState.length !== 0) throw new RangeError(`checkpoint modelState must be empty for ${task.model.kind} with the exact method, got ${checkpoint.modelState.length} bytes`);
+      if (this.history !== null) [this.normaliser, this.weightSum, this.weightCount] = this.history.load(checkpoint.modelState, checkpoint.count);
       this.rng = Random.fromState(checkpoint.rngState);
       const c = checkpoint.counters;
-      this.counters = { walkers: c.walkers ?? 0, attempts: c.attempts ?? 0, jumps: c.jumps ?? 0, short_steps: c.short_steps ?? 0, returns: c.returns ?? 0 };
+      this.counters = { walkers: c.walkers ?? 0, attempts: c.attempts ?? 0, jumps: c.jumps ?? 0, short_steps: c.short_steps ?? 0, returns: c.returns ?? 0, capped: c.capped ?? 0 };
       this.series = structuredClone(checkpoint.series);
       const pos = checkpoint.positions;
-      for (let i = 0; i < checkpoint.count; i++) this.append(pos[2 * i], pos[2 * i + 1]);
+      for (let i = 0; i < checkpoint.count; i++) this.append(pos[2 * i], pos[2 * i + 1], false);
       while (this.nextRecord < this.sizes.length && this.sizes[this.nextRecord] <= this.n) this.nextRecord++;
     }
     this.walker = new PlanarGrowthWalk(this.index, this.rng, p.min_step, p.launch_margin, task.runIndex, limits.maxStepsPerParticle ?? MAX_STEPS_PER_PARTICLE);
@@ -238,7 +325,7 @@ export class OffLatticeDbm2d implements GrowthKernel {
       rngState: this.rng.state(),
       counters: { ...this.counters },
       series: structuredClone(this.series),
-      modelState: new Uint8Array(0),
+      modelState: this.history === null ? new Uint8Array(0) : this.history.serialise(this.n, [this.normaliser, this.weightSum, this.weightCount]),
     };
   }
 
@@ -259,12 +346,20 @@ export class OffLatticeDbm2d implements GrowthKernel {
     };
   }
 
-  /** Digest of count, positions, generator state and the walk counters (the fields dla-offlattice-2d hashes). */
+  /**
+   * Digest of count, positions, generator state and the walk counters (the
+   * fields dla-offlattice-2d hashes), and with the history method also the
+   * hit history and the normaliser.
+   */
   stateHash(): string {
     const h = new StateHasher();
     h.word(2).integer(this.n).float64Strided(this.xy, this.n, 2, 0).float64Strided(this.xy, this.n, 2, 1);
     for (const w of this.rng.state()) h.word(w);
     h.integer(this.counters.jumps).integer(this.counters.short_steps).integer(this.counters.returns);
+    if (this.history !== null) {
+      this.history.hashInto(h, this.n);
+      h.float64(this.normaliser).float64(this.weightSum).float64(this.weightCount);
+    }
     return h.digest();
   }
 
@@ -288,9 +383,13 @@ export class OffLatticeDbm2d implements GrowthKernel {
       const i = this.attempt(stop);
       if (i === STOPPED - 1) {
         this.rng.loadState(this.particleStart);
+        this.history?.undo();
         return false;
       }
-      if (i >= 0) break;
+      if (i >= 0) {
+        this.grownOn = i;
+        break;
+      }
     }
     const c = this.counters;
     c.jumps += this.pendingJumps;
@@ -298,6 +397,14 @@ export class OffLatticeDbm2d implements GrowthKernel {
     c.returns += this.pendingReturns;
     c.walkers += this.pendingWalkers;
     c.attempts += this.pendingAttempts;
+    c.capped += this.pendingCapped;
+    if (this.history !== null) {
+      // decayed mean of h over about the last NORMALISER_MEMORY proposals
+      const keep = Math.pow(1 - 1 / NORMALISER_MEMORY, this.pendingAttempts);
+      this.weightSum = this.weightSum * keep + this.pendingWeightSum;
+      this.weightCount = this.weightCount * keep + this.pendingAttempts;
+      this.normaliser = Math.min(1, (this.headroom * this.weightSum) / this.weightCount);
+    }
     this.place(this.hitX, this.hitY);
     return true;
   }
@@ -310,6 +417,9 @@ export class OffLatticeDbm2d implements GrowthKernel {
     this.pendingReturns = 0;
     this.pendingWalkers = 0;
     this.pendingAttempts = 0;
+    this.pendingCapped = 0;
+    this.pendingWeightSum = 0;
+    this.history?.mark();
   }
 
   /**
@@ -323,6 +433,7 @@ export class OffLatticeDbm2d implements GrowthKernel {
     if (i === STOPPED) return STOPPED - 1;
     const eta = this.eta;
     if (eta === 1) return i;
+    if (this.history !== null) return this.historyAttempt(i, stop);
     if (eta > 1) {
       for (let m = 0; m < this.wholeExtra; m++) {
         const j = this.walk(stop);
@@ -364,6 +475,43 @@ export class OffLatticeDbm2d implements GrowthKernel {
   }
 
   /**
+   * The rest of a history-method attempt whose proposal walker touched i
+   * (header, "η > 1, history method"): −1 rejected, i accepted (contact point
+   * of the proposal in hitX/hitY), −2 stopped.
+   */
+  private historyAttempt(i: number, stop: StopSignal | undefined): number {
+    const history = this.history as HitHistory;
+    const power = this.power as RecurrencePower;
+    const need = power.minGaps;
+    const bar = this.rng.nextDouble() * this.normaliser;
+    let gaps = history.window(i);
+    if (gaps < need) {
+      // too few gaps since i's birth or reset: fresh walkers until i has
+      // `need` hits, or until even a hit now could not reach the bar
+      // (h_need decreases with the span: rejected whatever comes later)
+      const px = this.hitX;
+      const py = this.hitY;
+      const born = history.birth[i];
+      while (gaps < need) {
+        const most = power.weight(need, Math.max(need, history.clock + 1 - born));
+        if (!(bar < most)) {
+          this.pendingWeightSum += most;
+          return -1;
+        }
+        const j = this.walk(stop);
+        if (j === STOPPED) return STOPPED - 1;
+        if (j === i) gaps = history.window(i);
+      }
+      this.hitX = px;
+      this.hitY = py;
+    }
+    const h = power.weight(gaps, history.span);
+    this.pendingWeightSum += h;
+    if (h > this.normaliser) this.pendingCapped++;
+    return bar < h ? i : -1;
+  }
+
+  /**
    * One walker from the launch circle to its first contact
    * (worker/walkers/planar-growth-walk.ts, the walk of dla-offlattice-2d):
    * the arrival index of the particle it touched (contact point in
@@ -383,6 +531,7 @@ export class OffLatticeDbm2d implements GrowthKernel {
     this.pendingShort += walker.shortSteps;
     this.pendingReturns += walker.returns;
     this.pendingWalkers++;
+    this.history?.record(hit);
     this.hitX = walker.hitX;
     this.hitY = walker.hitY;
     return hit;
@@ -390,7 +539,7 @@ export class OffLatticeDbm2d implements GrowthKernel {
 
   /** Add a particle and take a record if the new size is on the grid. */
   private place(px: number, py: number): void {
-    this.append(px, py);
+    this.append(px, py, true);
     if (this.nextRecord < this.sizes.length && this.n === this.sizes[this.nextRecord]) {
       const n = this.n;
       const mx = this.sumX / n;
@@ -405,9 +554,19 @@ export class OffLatticeDbm2d implements GrowthKernel {
     }
   }
 
-  /** Add a particle to positions, index and running sums (no record). */
-  private append(px: number, py: number): void {
+  /**
+   * Add a particle to positions, index and running sums (no record). With the
+   * history method and `grown` (not when rebuilding from a checkpoint), the
+   * new particle is born now and the particle it grew on forgets its hits
+   * (header, approximation 2).
+   */
+  private append(px: number, py: number, grown: boolean): void {
     const i = this.n;
+    const history = this.history;
+    if (history !== null && grown) {
+      history.restart(i);
+      if (i > 0) history.restart(this.grownOn);
+    }
     this.xy[2 * i] = px;
     this.xy[2 * i + 1] = py;
     this.index.insert(px, py);
