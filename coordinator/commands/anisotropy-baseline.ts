@@ -16,7 +16,7 @@ import { decodeEnsembleSummary } from '../../proto/convert.js';
 import { modelDescriptor } from '../../worker/models/registry.js';
 import type { ObservableSection } from '../stats/observable-bands.js';
 import { UsageError } from '../usage-error.js';
-import { observablesOfSummary } from './summary-files.js';
+import { observablesOfSummary } from './summary-observables.js';
 
 /** What the report needs of the baseline. */
 export interface ReportBaseline {

@@ -13,6 +13,7 @@ import { analysisOf, CSV_TABLES, harmonicOfSummary, summaryToJson, summaryToProt
 import type { ObservableSection } from '../stats/observable-bands.js';
 import { compareWithBaseline } from '../stats/anisotropy-comparison.js';
 import type { ReportBaseline } from './anisotropy-baseline.js';
+import { observablesOfSummary } from './summary-observables.js';
 
 export interface SummaryFilesOptions {
   /** Write report.html and plots/ (default true). */
@@ -169,11 +170,4 @@ export function describeAnalysis(s: EnsembleSummaryData): string {
 
 function short(v: number): string {
   return Number.isInteger(v) ? String(v) : v.toPrecision(4);
-}
-
-/** The model-observable section of a summary's statistics, or null. */
-export function observablesOfSummary(s: EnsembleSummaryData): ObservableSection | null {
-  if (s.statisticsJson === '') return null;
-  const x = JSON.parse(s.statisticsJson) as { observables?: ObservableSection };
-  return x.observables?.schema === 'tendril.observables/1' ? x.observables : null;
 }
