@@ -224,7 +224,7 @@ export class OffLatticeDbm2d implements GrowthKernel {
   private readonly deficit: number;
   private readonly cap: number;
   private readonly capWeight: number;
-  /** History method (η > 1, params.history_gaps > 0): the hit history, h_g, the headroom and the normaliser H. */
+  /** History method (η > 1 and params.method = 1, the default): the hit history, h_g, the headroom and the normaliser H. */
   private readonly history: HitHistory | null;
   private readonly power: RecurrencePower | null;
   private readonly headroom: number;
