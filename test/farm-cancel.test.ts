@@ -21,7 +21,12 @@ describe('cancel', () => {
     }, 15_000);
     expect(s.state).toBe('cancelled');
     expect(s.runs.done).toBe(0);
-    const counts = await queue.getJobCounts('waiting', 'active', 'completed');
+    // the store marks the run stopped just before BullMQ moves its job from active to completed,
+    // so the queue's counts are awaited, not read once
+    const counts = await waitFor('the cancelled job completed in the queue', async () => {
+      const c = await queue.getJobCounts('waiting', 'active', 'completed');
+      return c.active === 0 ? c : undefined;
+    }, 15_000);
     expect(counts).toMatchObject({ waiting: 0, active: 0, completed: 1 });
     expect(await new DirectoryArtifactStore(artifacts).get(checkpointKey(id, 0))).toBeNull();
     // the worker still serves new ensembles
