@@ -73,7 +73,8 @@
  */
 
 import { ENGINE_VERSION } from '../core/engine-version.js';
-import { OccupancyIndex2d } from '../index/occupancy-index-2d.js';
+import { OccupancyIndex2d, type SharedOccupancyIndex2d } from '../index/occupancy-index-2d.js';
+import { sharedFloat64 } from '../core/shared-arrays.js';
 import { returnToCircle, returned } from '../walkers/poisson-return-2d.js';
 import { Random, STREAM_PROBE, parseSeed } from '../core/random.js';
 import { direction, sampleDirection } from '../walkers/uniform-direction.js';
@@ -142,6 +143,33 @@ export function diskSetDigest(set: DiskSet): string {
   return setDigest(set.count, [set.x, set.y, set.r], [], '');
 }
 
+/**
+ * A prepared disk set in shared memory (ProbeGeometry.shared): every array
+ * a SharedArrayBuffer, so probe threads given it read one copy of the
+ * index and grid (worker/runtime/probe-thread-pool.ts) instead of each
+ * building its own; `new ProbeGeometry(shared)` answers exactly as the
+ * geometry it was taken from.
+ */
+export interface SharedDiskGeometry {
+  kind: 'shared-disk-geometry';
+  count: number;
+  centreX: number;
+  centreY: number;
+  scale: number;
+  extent: number;
+  radii: Float64Array | null;
+  digest: string;
+  index: SharedOccupancyIndex2d;
+  gridFree: Float32Array;
+  gridCells: number;
+  gridSide: number;
+  gridMin: number;
+}
+
+function isSharedDiskGeometry(v: DiskSet | SharedDiskGeometry): v is SharedDiskGeometry {
+  return (v as SharedDiskGeometry).kind === 'shared-disk-geometry';
+}
+
 /** The prepared set: scaled coordinates and the occupancy index, reusable by many jobs. */
 export class ProbeGeometry {
   readonly count: number;
@@ -161,7 +189,24 @@ export class ProbeGeometry {
   readonly gridSide: number;
   readonly gridMin: number;
 
-  constructor(set: DiskSet) {
+  /** From a set (built here), or from a shared geometry (nothing built: its arrays are read in place). */
+  constructor(from: DiskSet | SharedDiskGeometry) {
+    if (isSharedDiskGeometry(from)) {
+      this.count = from.count;
+      this.centreX = from.centreX;
+      this.centreY = from.centreY;
+      this.scale = from.scale;
+      this.extent = from.extent;
+      this.radii = from.radii;
+      this.digest = from.digest;
+      this.index = new OccupancyIndex2d(0, undefined, from.index);
+      this.gridFree = from.gridFree;
+      this.gridCells = from.gridCells;
+      this.gridSide = from.gridSide;
+      this.gridMin = from.gridMin;
+      return;
+    }
+    const set = from;
     const n = set.count;
     if (!Number.isSafeInteger(n) || n < 1) throw new RangeError(`point set must hold at least 1 disk, got ${n}`);
     let minX = Infinity, maxX = -Infinity, minY = Infinity, maxY = -Infinity, rMax = 0;
@@ -213,6 +258,25 @@ export class ProbeGeometry {
     this.gridCells = cells;
     this.gridMin = -0.5 * cells * side;
     this.gridFree = buildFreeGrid(ux, uy, n, this.gridMin, side, cells);
+  }
+
+  /** This geometry in shared memory (the grid already is; the index and radii are copied once). */
+  shared(): SharedDiskGeometry {
+    return {
+      kind: 'shared-disk-geometry',
+      count: this.count,
+      centreX: this.centreX,
+      centreY: this.centreY,
+      scale: this.scale,
+      extent: this.extent,
+      radii: this.radii === null ? null : sharedFloat64(this.radii),
+      digest: this.digest,
+      index: this.index.shared(),
+      gridFree: this.gridFree,
+      gridCells: this.gridCells,
+      gridSide: this.gridSide,
+      gridMin: this.gridMin,
+    };
   }
 }
 
@@ -268,7 +332,8 @@ function buildFreeGrid(ux: Float64Array, uy: Float64Array, n: number, min: numbe
   };
   for (let y = 0; y < cells; y++) pass((k) => f[y * cells + k], (k, val) => { f[y * cells + k] = val; });
   for (let x = 0; x < cells; x++) pass((k) => f[k * cells + x], (k, val) => { f[k * cells + x] = val; });
-  const g = new Float32Array(cells * cells);
+  // in shared memory from the start: a geometry shared between probe threads (ProbeGeometry.shared) passes it on as it is
+  const g = new Float32Array(new SharedArrayBuffer(4 * cells * cells));
   const slack = side * Math.SQRT2 + 1;
   for (let k = 0; k < g.length; k++) {
     const b = Math.sqrt(f[k]) * side - slack;
