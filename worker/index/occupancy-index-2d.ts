@@ -207,8 +207,10 @@ export class OccupancyIndex2d {
     const n = Math.max(16, expectedParticles);
     this.ownsXy = positions === undefined;
     this.xy = positions ?? new Float64Array(2 * Math.min(n, 1 << 20));
-    // zero-filled and written in arrival order: only the pages in use are resident
-    this.next = new Int32Array(n);
+    // zero-filled and written in arrival order: only the pages in use are resident; in shared
+    // memory, as the owner's positions are, so that `shared` passes both on without a copy
+    const onShared = positions !== undefined && positions.buffer instanceof SharedArrayBuffer;
+    this.next = onShared ? new Int32Array(new SharedArrayBuffer(4 * n)) : new Int32Array(n);
     // directories sized for about as many tiles as a DLA cluster uses, pools
     // reserved for about twice that (address space only until used)
     this.heads = new TiledInt32Grid(0, Math.max(16, n >> 5), Math.ceil(n * RESERVE_HEADS));
@@ -247,8 +249,9 @@ export class OccupancyIndex2d {
   shared(): SharedOccupancyIndex2d {
     return {
       count: this.count,
-      xy: sharedFloat64(this.xy, 2 * this.count),
-      next: sharedInt32(this.next, this.count),
+      // arrays already in shared memory (the owner's shared positions and the lists kept beside them) are passed as they are
+      xy: this.xy.buffer instanceof SharedArrayBuffer ? this.xy : sharedFloat64(this.xy, 2 * this.count),
+      next: this.next.buffer instanceof SharedArrayBuffer ? this.next : sharedInt32(this.next, this.count),
       heads: this.heads.shared(),
       marks: this.marks.map((m) => m.shared()),
       held0: this.held0.shared(),

@@ -63,7 +63,8 @@
  * of side 2·max r); this is checked when the geometry is built, and sets
  * with very disparate radii or heavily overlapping disks are refused with a
  * one-line message. The far-field grid holds at most 2^24 cells (its side
- * doubles until it fits): at most 128 MB during the build, 64 MB kept.
+ * doubles until it fits): at most 128 MB during the build (an int32 and a
+ * float32 grid), 64 MB kept, in shared memory (ProbeGeometry.shared).
  *
  * Jobs and determinism: probing is split into independent jobs; job j uses
  * Random.forRun(seed, j, STREAM_PROBE) and is a function of (geometry, task)
@@ -232,24 +233,27 @@ export class ProbeGeometry {
     this.centreY = 0.5 * (minY + maxY);
     this.scale = rMax;
     const inv = 1 / rMax;
-    const ux = new Float64Array(n);
-    const uy = new Float64Array(n);
+    // scaled centres, interleaved (x0, y0, x1, y1, …), in shared memory: the index reads them in
+    // place (its positions array) and a shared geometry passes them on without a copy
+    const xy = new Float64Array(new SharedArrayBuffer(16 * n));
     this.radii = uniform ? null : new Float64Array(n);
     let ext = 0;
     for (let i = 0; i < n; i++) {
       const r = typeof set.r === 'number' ? set.r : set.r[i];
-      ux[i] = (set.x[i] - this.centreX) * inv;
-      uy[i] = (set.y[i] - this.centreY) * inv;
+      const ux = (set.x[i] - this.centreX) * inv;
+      const uy = (set.y[i] - this.centreY) * inv;
+      xy[2 * i] = ux;
+      xy[2 * i + 1] = uy;
       const rr = uniform ? 1 : r * inv;
       if (this.radii !== null) this.radii[i] = rr;
-      const e = Math.sqrt(ux[i] * ux[i] + uy[i] * uy[i]) + rr;
+      const e = Math.sqrt(ux * ux + uy * uy) + rr;
       if (e > ext) ext = e;
     }
     this.extent = ext;
     this.digest = diskSetDigest(set);
-    checkDensity(ux, uy, n);
-    this.index = new OccupancyIndex2d(n);
-    for (let i = 0; i < n; i++) this.index.insert(ux[i], uy[i]);
+    checkDensity(xy, n);
+    this.index = new OccupancyIndex2d(n, xy);
+    for (let i = 0; i < n; i++) this.index.insert(xy[2 * i], xy[2 * i + 1]);
     // grid: side a power of two >= 2 with at most 2^24 cells, covering the enclosing circle
     let side = 2;
     while (((2 * ext) / side + 2) ** 2 > 16_777_216) side *= 2;
@@ -257,10 +261,10 @@ export class ProbeGeometry {
     this.gridSide = side;
     this.gridCells = cells;
     this.gridMin = -0.5 * cells * side;
-    this.gridFree = buildFreeGrid(ux, uy, n, this.gridMin, side, cells);
+    this.gridFree = buildFreeGrid(xy, n, this.gridMin, side, cells);
   }
 
-  /** This geometry in shared memory (the grid already is; the index and radii are copied once). */
+  /** This geometry in shared memory (the grid and the scaled centres already are; the index's cells and the radii are copied once). */
   shared(): SharedDiskGeometry {
     return {
       kind: 'shared-disk-geometry',
@@ -291,12 +295,14 @@ export class ProbeGeometry {
  * in the cell and centre p satisfy |w − p| ≥ e − side·√2 (each is within
  * side/√2 of its cell centre), so the cell stores e − side·√2 − 1.
  */
-function buildFreeGrid(ux: Float64Array, uy: Float64Array, n: number, min: number, side: number, cells: number): Float32Array {
-  const INF = 1e20;
-  const f = new Float64Array(cells * cells).fill(INF);
+function buildFreeGrid(xy: Float64Array, n: number, min: number, side: number, cells: number): Float32Array {
+  // squared distances in cells are integers below 2·cells² <= 2^26 (cells² <= 2^24 + a border), so
+  // int32 holds them exactly (half the memory of float64, the same values); INF marks "no centre yet"
+  const INF = 2147483647;
+  const f = new Int32Array(cells * cells).fill(INF);
   for (let i = 0; i < n; i++) {
-    const cx = Math.floor((ux[i] - min) / side);
-    const cy = Math.floor((uy[i] - min) / side);
+    const cx = Math.floor((xy[2 * i] - min) / side);
+    const cy = Math.floor((xy[2 * i + 1] - min) / side);
     f[cy * cells + cx] = 0;
   }
   const line = new Float64Array(cells);
@@ -343,11 +349,11 @@ function buildFreeGrid(ux: Float64Array, uy: Float64Array, n: number, min: numbe
 }
 
 /** Refuse sets with more than MAX_BLOCK scaled centres in a 3 × 3 block of side-2 cells. */
-function checkDensity(ux: Float64Array, uy: Float64Array, n: number): void {
+function checkDensity(xy: Float64Array, n: number): void {
   // cell keys cx * 2^22 + cy are exact integers: |cx|, |cy| < 2^21 for any set the index can hold
   const cells = new Map<number, number>();
   for (let i = 0; i < n; i++) {
-    const k = Math.floor(ux[i] * 0.5) * 4194304 + Math.floor(uy[i] * 0.5);
+    const k = Math.floor(xy[2 * i] * 0.5) * 4194304 + Math.floor(xy[2 * i + 1] * 0.5);
     cells.set(k, (cells.get(k) ?? 0) + 1);
   }
   let worst = 0;
