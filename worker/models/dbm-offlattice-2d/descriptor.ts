@@ -1,19 +1,15 @@
 /**
  * Off-lattice dielectric breakdown model DBM(η) in the plane: the descriptor
  * (kernel.ts states the exact definition, the exact method for η >= 1 and the
- * one approximation for η < 1). The walk parameters are those of
- * dla-offlattice-2d, taken from its descriptor.
+ * one approximation for η < 1). The walk parameters (min_step,
+ * launch_margin) and the range of η are the shared declarations of
+ * shared-param-specs.ts, as in dla-offlattice-2d and dbm-square.
  */
-import type { ModelDescriptor, ParamSpec } from '../../core/model-descriptor.js';
+import type { ModelDescriptor } from '../../core/model-descriptor.js';
 import { OffLatticeDbm2d } from './kernel.js';
 import { PLANAR_ANISOTROPY_OBSERVABLES } from '../../core/anisotropy.js';
+import { breakdownEtaParam, OFF_LATTICE_MIN_STEP, offLatticeLaunchMargin } from '../shared-param-specs.js';
 import { dlaOffLattice2d } from '../dla-offlattice-2d/descriptor.js';
-
-function dlaParam(name: string): ParamSpec {
-  const p = dlaOffLattice2d.params.find((q) => q.name === name);
-  if (p === undefined) throw new Error(`dla-offlattice-2d has no parameter ${name}`);
-  return p;
-}
 
 export const dbmOffLattice2d: ModelDescriptor = {
   kind: 'dbm-offlattice-2d',
@@ -23,14 +19,7 @@ export const dbmOffLattice2d: ModelDescriptor = {
     'disks of diameter 1; the next disk grows on particle i with probability ω_i^η / Σ ω^η (ω = harmonic measure from infinity), at a contact point drawn from the harmonic measure restricted to i; η = 1 is DLA',
   definitionFile: 'worker/models/dbm-offlattice-2d/kernel.ts',
   params: [
-    {
-      name: 'eta',
-      unit: '',
-      default: 2,
-      min: 0,
-      max: 6,
-      meaning: 'the power η of the harmonic measure (0: exposed particles equally likely, 1: DLA, larger: sparser)',
-    },
+    breakdownEtaParam(2, 'the power η of the harmonic measure (0: exposed particles equally likely, 1: DLA, larger: sparser)'),
     {
       name: 'recurrence_cap',
       unit: 'walkers',
@@ -66,8 +55,8 @@ export const dbmOffLattice2d: ModelDescriptor = {
       max: 1_000_000,
       meaning: 'history method only: the acceptance normaliser H is this times the running mean of the estimates of ω^(η−1) over recent proposals, at most 1; estimates above H are cut to H (larger: fewer cut, more walkers)',
     },
-    dlaParam('min_step'),
-    dlaParam('launch_margin'),
+    OFF_LATTICE_MIN_STEP,
+    offLatticeLaunchMargin('circle'),
   ],
   counters: [
     { name: 'walkers', meaning: 'walkers released (every attempt uses one or more)' },
@@ -94,6 +83,7 @@ export const dbmOffLattice2d: ModelDescriptor = {
       },
     ],
   },
+  // the walk's own checks (min_step, launch_margin against the particle count) are DLA's
   check: (task) => dlaOffLattice2d.check?.(task),
   create: (task, checkpoint) => new OffLatticeDbm2d(task, checkpoint),
 };
