@@ -129,7 +129,9 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
   const store = opts.store;
   const probe = spec.probe;
   const probeSizes = probeSizesOf(spec);
-  const probePool = probe ? new ProbeThreadPool(pool.size) : null;
+  // every requested thread probes, also when there are fewer clusters than threads (one giant
+  // cluster's jobs run side by side): the threads share one geometry per set (probe-thread-pool.ts)
+  const probePool = probe ? new ProbeThreadPool(Math.max(1, Math.min(opts.threads ?? availableParallelism(), maxRuns * probe.jobs))) : null;
   const sink = new EmbeddedRunSink(opts.ensembleId, store, () => report());
   const checkpoints: CheckpointStore = store ?? new MemoryCheckpointStore();
   const { results, live } = sink;
@@ -294,7 +296,7 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
   /**
    * Probe every cluster grown (or reused without records) and not yet
    * probed, at every probe size: as many clusters at once as there are
-   * probe threads, so that their jobs keep every thread busy while only a
+   * growth threads, so that their jobs keep every thread busy while only a
    * few clusters' positions are in memory (with a store, positions wait
    * there, not in memory).
    */
@@ -307,8 +309,8 @@ export async function runEmbedded(spec: EnsembleSpec, opts: EmbeddedOptions): Pr
     probePassDone = 0;
     probePassTotal = todo.length * probeSizes.length * probe.jobs;
     report();
-    for (let w = 0; w < todo.length && !opts.signal?.aborted; w += probePool.size) {
-      await Promise.all(todo.slice(w, w + probePool.size).map((i) => probeCluster(i, failures)));
+    for (let w = 0; w < todo.length && !opts.signal?.aborted; w += pool.size) {
+      await Promise.all(todo.slice(w, w + pool.size).map((i) => probeCluster(i, failures)));
     }
     phase = 'growing';
     if (opts.signal?.aborted) throw abortedError();

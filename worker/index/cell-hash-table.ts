@@ -9,7 +9,15 @@
  * coordinate no cluster can reach. No deletion (clusters only grow).
  */
 
+import { sharedInt32 } from '../core/shared-arrays.js';
+
 export const EMPTY_KEY = -2147483648;
+
+/** A table's contents in shared memory (CellHashTable.shared), for a read-only copy in another thread. */
+export interface SharedCellHashTable {
+  slots: Int32Array;
+  used: number;
+}
 
 export class CellHashTable {
   /** Slots, 4 words each: [ix, iy, value, 0]. Read directly by hot loops via `lookup`. */
@@ -18,11 +26,23 @@ export class CellHashTable {
   mask: number;
   private used = 0;
 
-  constructor(expectedEntries = 1024) {
+  /** With `from`, the table reads that shared state (read only: it must not be written). */
+  constructor(expectedEntries = 1024, from?: SharedCellHashTable) {
+    if (from) {
+      this.slots = from.slots;
+      this.mask = (from.slots.length >> 2) - 1;
+      this.used = from.used;
+      return;
+    }
     let cap = 16;
     while (cap < expectedEntries * 2) cap *= 2;
     this.slots = CellHashTable.emptySlots(cap);
     this.mask = cap - 1;
+  }
+
+  /** A copy of the table in shared memory (the same slots, so the same look-ups). */
+  shared(): SharedCellHashTable {
+    return { slots: sharedInt32(this.slots), used: this.used };
   }
 
   private static emptySlots(cap: number): Int32Array {

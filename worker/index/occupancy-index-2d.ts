@@ -48,8 +48,22 @@
  * of particles, not with the area.
  */
 
-import { TiledByteGrid, TiledInt32Grid } from './tiled-grids.js';
+import { TiledByteGrid, TiledInt32Grid, type SharedTiledGrid } from './tiled-grids.js';
 import { CORE_MASK, WINDOW_RADIUS, WindowBitGrid } from './window-bit-grid.js';
+import { sharedFloat64, sharedInt32 } from '../core/shared-arrays.js';
+
+/**
+ * A complete index in shared memory (OccupancyIndex2d.shared): what a
+ * read-only index in another thread needs, every array a SharedArrayBuffer.
+ */
+export interface SharedOccupancyIndex2d {
+  count: number;
+  xy: Float64Array;
+  next: Int32Array;
+  heads: SharedTiledGrid<Int32Array>;
+  marks: SharedTiledGrid<Uint8Array>[];
+  held0: SharedTiledGrid<Int32Array>;
+}
 
 const clz32 = Math.clz32;
 
@@ -157,6 +171,8 @@ export class OccupancyIndex2d {
   /** Centres in arrival order, interleaved (x0, y0, x1, y1, …): the owner's array, or the index's own (ownsXy). */
   private xy: Float64Array;
   private readonly ownsXy: boolean;
+  /** Made from a shared index (`from`): its arrays are read by other threads too, so insert refuses. */
+  private readonly readOnly: boolean;
   /** next[i]: arrival index of the centre inserted into centre i's cell before it (−1: none). */
   private next: Int32Array;
   /** marks[k]: mark cells of side 2^(k+1), k = 0..MAX_LEVEL. */
@@ -175,12 +191,26 @@ export class OccupancyIndex2d {
    * will insert); the index reads centre i at positions[2i], positions[2i + 1]
    * and never writes them. Without it the index keeps its own copy.
    */
-  constructor(expectedParticles: number, positions?: Float64Array) {
+  constructor(expectedParticles: number, positions?: Float64Array, from?: SharedOccupancyIndex2d) {
+    this.readOnly = from !== undefined;
+    if (from) {
+      // the same cells, lists and tile numbers as the index `from` was made of: the same answers
+      this.ownsXy = false;
+      this.xy = from.xy;
+      this.next = from.next;
+      this.count = from.count;
+      this.heads = new TiledInt32Grid(0, 4, 4, from.heads);
+      this.held0 = new WindowBitGrid(4, 4, from.held0);
+      for (const m of from.marks) this.marks.push(new TiledByteGrid(4, 4, m));
+      return;
+    }
     const n = Math.max(16, expectedParticles);
     this.ownsXy = positions === undefined;
     this.xy = positions ?? new Float64Array(2 * Math.min(n, 1 << 20));
-    // zero-filled and written in arrival order: only the pages in use are resident
-    this.next = new Int32Array(n);
+    // zero-filled and written in arrival order: only the pages in use are resident; in shared
+    // memory, as the owner's positions are, so that `shared` passes both on without a copy
+    const onShared = positions !== undefined && positions.buffer instanceof SharedArrayBuffer;
+    this.next = onShared ? new Int32Array(new SharedArrayBuffer(4 * n)) : new Int32Array(n);
     // directories sized for about as many tiles as a DLA cluster uses, pools
     // reserved for about twice that (address space only until used)
     this.heads = new TiledInt32Grid(0, Math.max(16, n >> 5), Math.ceil(n * RESERVE_HEADS));
@@ -201,6 +231,7 @@ export class OccupancyIndex2d {
    * `size` is 0 and queries answer as for no centres.
    */
   release(): void {
+    if (this.readOnly) throw new Error('occupancy index: a shared index is read only');
     this.heads = new TiledInt32Grid(0, 4);
     this.held0 = new WindowBitGrid(4);
     this.marks = this.marks.map(() => new TiledByteGrid(4));
@@ -208,6 +239,23 @@ export class OccupancyIndex2d {
     this.count = 0;
     this.scanCx = NO_CELL;
     if (this.ownsXy) this.xy = new Float64Array(0);
+  }
+
+  /**
+   * A copy of the whole index in shared memory (only the parts in use), for
+   * probe threads that each read the same index instead of building their
+   * own (`new OccupancyIndex2d(0, undefined, shared)`).
+   */
+  shared(): SharedOccupancyIndex2d {
+    return {
+      count: this.count,
+      // arrays already in shared memory (the owner's shared positions and the lists kept beside them) are passed as they are
+      xy: this.xy.buffer instanceof SharedArrayBuffer ? this.xy : sharedFloat64(this.xy, 2 * this.count),
+      next: this.next.buffer instanceof SharedArrayBuffer ? this.next : sharedInt32(this.next, this.count),
+      heads: this.heads.shared(),
+      marks: this.marks.map((m) => m.shared()),
+      held0: this.held0.shared(),
+    };
   }
 
   /** Number of centres inserted. */
@@ -229,6 +277,7 @@ export class OccupancyIndex2d {
    * entry number `size`.
    */
   insert(px: number, py: number): void {
+    if (this.readOnly) throw new Error('occupancy index: a shared index is read only');
     const id = this.count;
     if (this.ownsXy) {
       if (2 * id + 2 > this.xy.length) this.xy = grownFloat64(this.xy, 2 * id + 2);

@@ -8,7 +8,13 @@
  * tile looked up is cached: a walker's successive queries rarely hash.
  */
 
-import { CellHashTable } from './cell-hash-table.js';
+import { CellHashTable, type SharedCellHashTable } from './cell-hash-table.js';
+
+/** A directory in shared memory (TileDirectory.shared). */
+export interface SharedTileDirectory {
+  table: SharedCellHashTable;
+  tiles: number;
+}
 
 export const TILE_SHIFT = 3;
 export const TILE_MASK = (1 << TILE_SHIFT) - 1;
@@ -21,8 +27,15 @@ export class TileDirectory {
   private cacheTy = -2147483648;
   private cacheTile = -1;
 
-  constructor(expectedTiles: number) {
-    this.table = new CellHashTable(expectedTiles);
+  /** With `from`, the directory reads that shared state (read only: no tile may be added). */
+  constructor(expectedTiles: number, from?: SharedTileDirectory) {
+    this.table = new CellHashTable(expectedTiles, from?.table);
+    if (from) this.tiles = from.tiles;
+  }
+
+  /** A copy in shared memory: the same tile numbers. */
+  shared(): SharedTileDirectory {
+    return { table: this.table.shared(), tiles: this.tiles };
   }
 
   get count(): number {

@@ -14,7 +14,14 @@
  * discarded array waiting for the garbage collector.
  */
 
-import { TILE_CELLS, TILE_MASK, TILE_SHIFT, TileDirectory, cellInTile } from './tile-directory.js';
+import { TILE_CELLS, TILE_MASK, TILE_SHIFT, TileDirectory, cellInTile, type SharedTileDirectory } from './tile-directory.js';
+import { sharedInt32, sharedUint8 } from '../core/shared-arrays.js';
+
+/** A tiled grid in shared memory (the grids' `shared()`): the directory and the pool of the tiles in use. */
+export interface SharedTiledGrid<P> {
+  dir: SharedTileDirectory;
+  pool: P;
+}
 
 /**
  * Length of a pool of `unit`-sized tiles grown from `length` to hold tile
@@ -58,8 +65,13 @@ export class TiledInt32Grid {
     private readonly blank: number,
     expectedTiles: number,
     reserveTiles = expectedTiles,
+    from?: SharedTiledGrid<Int32Array>,
   ) {
-    this.dir = new TileDirectory(expectedTiles);
+    this.dir = new TileDirectory(expectedTiles, from?.dir);
+    if (from) {
+      this.pool = from.pool;
+      return;
+    }
     const tiles = Math.max(4, expectedTiles);
     this.pool = reservedArray((n) => new Int32Array(n), tiles * TILE_CELLS, blank === 0 ? reserveTiles * TILE_CELLS : 0);
     if (blank !== 0) this.pool.fill(blank);
@@ -67,6 +79,11 @@ export class TiledInt32Grid {
 
   get bytes(): number {
     return this.pool.byteLength + this.dir.bytes + this.around.byteLength;
+  }
+
+  /** A copy in shared memory of the tiles in use (for reading only: a grid made from it must not be written). */
+  shared(): SharedTiledGrid<Int32Array> {
+    return { dir: this.dir.shared(), pool: sharedInt32(this.pool, this.dir.count * TILE_CELLS) };
   }
 
   get(ix: number, iy: number): number {
@@ -136,13 +153,18 @@ export class TiledByteGrid {
   pool: Uint8Array;
 
   /** The pool is reserved for `reserveTiles` tiles (default `expectedTiles`; see the file's comment), the directory sized for `expectedTiles`. */
-  constructor(expectedTiles: number, reserveTiles = expectedTiles) {
-    this.dir = new TileDirectory(expectedTiles);
-    this.pool = reservedArray((n) => new Uint8Array(n), Math.max(4, expectedTiles) * TILE_CELLS, reserveTiles * TILE_CELLS);
+  constructor(expectedTiles: number, reserveTiles = expectedTiles, from?: SharedTiledGrid<Uint8Array>) {
+    this.dir = new TileDirectory(expectedTiles, from?.dir);
+    this.pool = from ? from.pool : reservedArray((n) => new Uint8Array(n), Math.max(4, expectedTiles) * TILE_CELLS, reserveTiles * TILE_CELLS);
   }
 
   get bytes(): number {
     return this.pool.byteLength + this.dir.bytes;
+  }
+
+  /** A copy in shared memory of the tiles in use (for reading only: a grid made from it must not be written). */
+  shared(): SharedTiledGrid<Uint8Array> {
+    return { dir: this.dir.shared(), pool: sharedUint8(this.pool, this.dir.count * TILE_CELLS) };
   }
 
   get tileCount(): number {

@@ -11,7 +11,8 @@
  */
 
 import { TileDirectory } from './tile-directory.js';
-import { poolGrowth, reservedArray } from './tiled-grids.js';
+import { poolGrowth, reservedArray, type SharedTiledGrid } from './tiled-grids.js';
+import { sharedInt32 } from '../core/shared-arrays.js';
 
 /** Cells of a window on each side of its centre cell. */
 export const WINDOW_RADIUS = 2;
@@ -32,13 +33,18 @@ export class WindowBitGrid {
    * `reserveTiles` (default `expectedTiles`) tiles: zero-filled, they become
    * resident only as tiles are used (worker/index/tiled-grids.ts explains).
    */
-  constructor(expectedTiles: number, reserveTiles = expectedTiles) {
-    this.dir = new TileDirectory(expectedTiles);
-    this.words = reservedArray((n) => new Int32Array(n), Math.max(4, expectedTiles) * TILE_ROWS, reserveTiles * TILE_ROWS);
+  constructor(expectedTiles: number, reserveTiles = expectedTiles, from?: SharedTiledGrid<Int32Array>) {
+    this.dir = new TileDirectory(expectedTiles, from?.dir);
+    this.words = from ? from.pool : reservedArray((n) => new Int32Array(n), Math.max(4, expectedTiles) * TILE_ROWS, reserveTiles * TILE_ROWS);
   }
 
   get bytes(): number {
     return this.words.byteLength + this.dir.bytes;
+  }
+
+  /** A copy in shared memory of the tiles in use (for reading only: a grid made from it must not be written). */
+  shared(): SharedTiledGrid<Int32Array> {
+    return { dir: this.dir.shared(), pool: sharedInt32(this.words, this.dir.count * TILE_ROWS) };
   }
 
   /**

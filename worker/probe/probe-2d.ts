@@ -63,7 +63,8 @@
  * of side 2·max r); this is checked when the geometry is built, and sets
  * with very disparate radii or heavily overlapping disks are refused with a
  * one-line message. The far-field grid holds at most 2^24 cells (its side
- * doubles until it fits): at most 128 MB during the build, 64 MB kept.
+ * doubles until it fits): at most 128 MB during the build (an int32 and a
+ * float32 grid), 64 MB kept, in shared memory (ProbeGeometry.shared).
  *
  * Jobs and determinism: probing is split into independent jobs; job j uses
  * Random.forRun(seed, j, STREAM_PROBE) and is a function of (geometry, task)
@@ -73,7 +74,8 @@
  */
 
 import { ENGINE_VERSION } from '../core/engine-version.js';
-import { OccupancyIndex2d } from '../index/occupancy-index-2d.js';
+import { OccupancyIndex2d, type SharedOccupancyIndex2d } from '../index/occupancy-index-2d.js';
+import { sharedFloat64 } from '../core/shared-arrays.js';
 import { returnToCircle, returned } from '../walkers/poisson-return-2d.js';
 import { Random, STREAM_PROBE, parseSeed } from '../core/random.js';
 import { direction, sampleDirection } from '../walkers/uniform-direction.js';
@@ -142,6 +144,33 @@ export function diskSetDigest(set: DiskSet): string {
   return setDigest(set.count, [set.x, set.y, set.r], [], '');
 }
 
+/**
+ * A prepared disk set in shared memory (ProbeGeometry.shared): every array
+ * a SharedArrayBuffer, so probe threads given it read one copy of the
+ * index and grid (worker/runtime/probe-thread-pool.ts) instead of each
+ * building its own; `new ProbeGeometry(shared)` answers exactly as the
+ * geometry it was taken from.
+ */
+export interface SharedDiskGeometry {
+  kind: 'shared-disk-geometry';
+  count: number;
+  centreX: number;
+  centreY: number;
+  scale: number;
+  extent: number;
+  radii: Float64Array | null;
+  digest: string;
+  index: SharedOccupancyIndex2d;
+  gridFree: Float32Array;
+  gridCells: number;
+  gridSide: number;
+  gridMin: number;
+}
+
+function isSharedDiskGeometry(v: DiskSet | SharedDiskGeometry): v is SharedDiskGeometry {
+  return (v as SharedDiskGeometry).kind === 'shared-disk-geometry';
+}
+
 /** The prepared set: scaled coordinates and the occupancy index, reusable by many jobs. */
 export class ProbeGeometry {
   readonly count: number;
@@ -161,7 +190,24 @@ export class ProbeGeometry {
   readonly gridSide: number;
   readonly gridMin: number;
 
-  constructor(set: DiskSet) {
+  /** From a set (built here), or from a shared geometry (nothing built: its arrays are read in place). */
+  constructor(from: DiskSet | SharedDiskGeometry) {
+    if (isSharedDiskGeometry(from)) {
+      this.count = from.count;
+      this.centreX = from.centreX;
+      this.centreY = from.centreY;
+      this.scale = from.scale;
+      this.extent = from.extent;
+      this.radii = from.radii;
+      this.digest = from.digest;
+      this.index = new OccupancyIndex2d(0, undefined, from.index);
+      this.gridFree = from.gridFree;
+      this.gridCells = from.gridCells;
+      this.gridSide = from.gridSide;
+      this.gridMin = from.gridMin;
+      return;
+    }
+    const set = from;
     const n = set.count;
     if (!Number.isSafeInteger(n) || n < 1) throw new RangeError(`point set must hold at least 1 disk, got ${n}`);
     let minX = Infinity, maxX = -Infinity, minY = Infinity, maxY = -Infinity, rMax = 0;
@@ -187,24 +233,27 @@ export class ProbeGeometry {
     this.centreY = 0.5 * (minY + maxY);
     this.scale = rMax;
     const inv = 1 / rMax;
-    const ux = new Float64Array(n);
-    const uy = new Float64Array(n);
+    // scaled centres, interleaved (x0, y0, x1, y1, …), in shared memory: the index reads them in
+    // place (its positions array) and a shared geometry passes them on without a copy
+    const xy = new Float64Array(new SharedArrayBuffer(16 * n));
     this.radii = uniform ? null : new Float64Array(n);
     let ext = 0;
     for (let i = 0; i < n; i++) {
       const r = typeof set.r === 'number' ? set.r : set.r[i];
-      ux[i] = (set.x[i] - this.centreX) * inv;
-      uy[i] = (set.y[i] - this.centreY) * inv;
+      const ux = (set.x[i] - this.centreX) * inv;
+      const uy = (set.y[i] - this.centreY) * inv;
+      xy[2 * i] = ux;
+      xy[2 * i + 1] = uy;
       const rr = uniform ? 1 : r * inv;
       if (this.radii !== null) this.radii[i] = rr;
-      const e = Math.sqrt(ux[i] * ux[i] + uy[i] * uy[i]) + rr;
+      const e = Math.sqrt(ux * ux + uy * uy) + rr;
       if (e > ext) ext = e;
     }
     this.extent = ext;
     this.digest = diskSetDigest(set);
-    checkDensity(ux, uy, n);
-    this.index = new OccupancyIndex2d(n);
-    for (let i = 0; i < n; i++) this.index.insert(ux[i], uy[i]);
+    checkDensity(xy, n);
+    this.index = new OccupancyIndex2d(n, xy);
+    for (let i = 0; i < n; i++) this.index.insert(xy[2 * i], xy[2 * i + 1]);
     // grid: side a power of two >= 2 with at most 2^24 cells, covering the enclosing circle
     let side = 2;
     while (((2 * ext) / side + 2) ** 2 > 16_777_216) side *= 2;
@@ -212,7 +261,26 @@ export class ProbeGeometry {
     this.gridSide = side;
     this.gridCells = cells;
     this.gridMin = -0.5 * cells * side;
-    this.gridFree = buildFreeGrid(ux, uy, n, this.gridMin, side, cells);
+    this.gridFree = buildFreeGrid(xy, n, this.gridMin, side, cells);
+  }
+
+  /** This geometry in shared memory (the grid and the scaled centres already are; the index's cells and the radii are copied once). */
+  shared(): SharedDiskGeometry {
+    return {
+      kind: 'shared-disk-geometry',
+      count: this.count,
+      centreX: this.centreX,
+      centreY: this.centreY,
+      scale: this.scale,
+      extent: this.extent,
+      radii: this.radii === null ? null : sharedFloat64(this.radii),
+      digest: this.digest,
+      index: this.index.shared(),
+      gridFree: this.gridFree,
+      gridCells: this.gridCells,
+      gridSide: this.gridSide,
+      gridMin: this.gridMin,
+    };
   }
 }
 
@@ -227,12 +295,14 @@ export class ProbeGeometry {
  * in the cell and centre p satisfy |w − p| ≥ e − side·√2 (each is within
  * side/√2 of its cell centre), so the cell stores e − side·√2 − 1.
  */
-function buildFreeGrid(ux: Float64Array, uy: Float64Array, n: number, min: number, side: number, cells: number): Float32Array {
-  const INF = 1e20;
-  const f = new Float64Array(cells * cells).fill(INF);
+function buildFreeGrid(xy: Float64Array, n: number, min: number, side: number, cells: number): Float32Array {
+  // squared distances in cells are integers below 2·cells² <= 2^26 (cells² <= 2^24 + a border), so
+  // int32 holds them exactly (half the memory of float64, the same values); INF marks "no centre yet"
+  const INF = 2147483647;
+  const f = new Int32Array(cells * cells).fill(INF);
   for (let i = 0; i < n; i++) {
-    const cx = Math.floor((ux[i] - min) / side);
-    const cy = Math.floor((uy[i] - min) / side);
+    const cx = Math.floor((xy[2 * i] - min) / side);
+    const cy = Math.floor((xy[2 * i + 1] - min) / side);
     f[cy * cells + cx] = 0;
   }
   const line = new Float64Array(cells);
@@ -268,7 +338,8 @@ function buildFreeGrid(ux: Float64Array, uy: Float64Array, n: number, min: numbe
   };
   for (let y = 0; y < cells; y++) pass((k) => f[y * cells + k], (k, val) => { f[y * cells + k] = val; });
   for (let x = 0; x < cells; x++) pass((k) => f[k * cells + x], (k, val) => { f[k * cells + x] = val; });
-  const g = new Float32Array(cells * cells);
+  // in shared memory from the start: a geometry shared between probe threads (ProbeGeometry.shared) passes it on as it is
+  const g = new Float32Array(new SharedArrayBuffer(4 * cells * cells));
   const slack = side * Math.SQRT2 + 1;
   for (let k = 0; k < g.length; k++) {
     const b = Math.sqrt(f[k]) * side - slack;
@@ -278,11 +349,11 @@ function buildFreeGrid(ux: Float64Array, uy: Float64Array, n: number, min: numbe
 }
 
 /** Refuse sets with more than MAX_BLOCK scaled centres in a 3 × 3 block of side-2 cells. */
-function checkDensity(ux: Float64Array, uy: Float64Array, n: number): void {
+function checkDensity(xy: Float64Array, n: number): void {
   // cell keys cx * 2^22 + cy are exact integers: |cx|, |cy| < 2^21 for any set the index can hold
   const cells = new Map<number, number>();
   for (let i = 0; i < n; i++) {
-    const k = Math.floor(ux[i] * 0.5) * 4194304 + Math.floor(uy[i] * 0.5);
+    const k = Math.floor(xy[2 * i] * 0.5) * 4194304 + Math.floor(xy[2 * i + 1] * 0.5);
     cells.set(k, (cells.get(k) ?? 0) + 1);
   }
   let worst = 0;

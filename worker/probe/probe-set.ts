@@ -10,7 +10,7 @@
  * threads, the embedded mode and the farm handle both dimensions through
  * this one door (pure: no I/O).
  */
-import { ProbeGeometry, diskSetDigest, runProbeJob, type ProbeResult, type ProbeTask } from './probe-2d.js';
+import { ProbeGeometry, diskSetDigest, runProbeJob, type ProbeResult, type ProbeTask, type SharedDiskGeometry } from './probe-2d.js';
 import { ProbeGeometry3d, ballSetDigest, runBallProbeJob, type BallSet } from './probe-3d.js';
 import type { DiskSet } from './disk-set.js';
 import { LatticeProbeGeometry, latticePerimeterOf, latticeSetDigest, runLatticeProbeJob } from './probe-lattice.js';
@@ -50,6 +50,36 @@ export function prepareProbe(set: ProbeSet): PreparedProbe {
     return { digest: lg.digest, run: (task) => runLatticeProbeJob(lg, task) };
   }
   const g = new ProbeGeometry(set);
+  return { digest: g.digest, run: (task) => runProbeJob(g, task) };
+}
+
+/**
+ * A prepared set that probe threads share (worker/runtime/probe-thread-pool.ts):
+ * built once, in shared memory. Only planar disk sets are shared so far;
+ * ball sets (3D) and lattice sets are still prepared by each thread.
+ */
+export type SharedProbe = SharedDiskGeometry;
+
+/** Whether prepareSharedProbe can share this set's geometry between threads. */
+export function isShareableProbeSet(set: ProbeSet): boolean {
+  return !isBallSet(set) && !set.lattice;
+}
+
+/**
+ * Prepare a set in shared memory (throws a RangeError naming what is wrong
+ * with it, as prepareProbe): the prepared probe, reading the shared copy
+ * (the geometry built on the way is dropped), and that shared copy to
+ * post to other threads; null for a set that is not shareable.
+ */
+export function prepareSharedProbe(set: ProbeSet): { prepared: PreparedProbe; shared: SharedProbe } | null {
+  if (isBallSet(set) || set.lattice) return null;
+  const shared = new ProbeGeometry(set).shared();
+  return { prepared: preparedOfShared(shared), shared };
+}
+
+/** The prepared probe of a shared geometry (nothing is built: the shared arrays are read in place). */
+export function preparedOfShared(shared: SharedProbe): PreparedProbe {
+  const g = new ProbeGeometry(shared);
   return { digest: g.digest, run: (task) => runProbeJob(g, task) };
 }
 
