@@ -75,7 +75,7 @@ describe('tendril CLI (farm and embedded commands)', () => {
     await waitFor('done', async () => JSON.parse((await cli('status', id, '--prefix', prefix, '--json')).stdout).state === 'done');
     const csvFile = join(dir, 'summary.csv');
     expect((await cli('summary', id, '--prefix', prefix, '--format', 'csv', '--out', csvFile)).code).toBe(0);
-    expect(readFileSync(csvFile, 'utf8').split('\n')[0]).toBe('run_index,state_hash,size,radius_of_gyration,max_radius,center_offset,fold_amplitude_4,axis_ratio_4,fold_amplitude_6,axis_ratio_6,shell_count');
+    expect(readFileSync(csvFile, 'utf8').split('\n')[0]).toBe('run_index,state_hash,size,radius_of_gyration,max_radius,center_offset,fold_amplitude_4,axis_ratio_4,fold_amplitude_6,axis_ratio_6,shell_count,fold_phase_4,fold_phase_6');
     const watch = await cli('watch', id, '--prefix', prefix, '--progress', 'lines');
     expect(watch.stdout).toMatch(new RegExp(`^${id}  done +.*runs 3/3 done, 0 running, 0 queued, 0 failed; 2400/2400 particles\n$`));
     // a finished ensemble grows nothing while watched: no rate, no time left

@@ -147,7 +147,7 @@ describe('summary', () => {
     expect(s.runs[0].stateHash).toBe(r.result.stateHash);
     expect(summaryToJsonObject(s).statistics).toEqual({ note: 'from the hook' });
     const csv = summaryToCsv(s).trim().split('\n');
-    expect(csv[0]).toBe('run_index,state_hash,size,radius_of_gyration,max_radius,center_offset,fold_amplitude_4,axis_ratio_4,fold_amplitude_6,axis_ratio_6,shell_count');
+    expect(csv[0]).toBe('run_index,state_hash,size,radius_of_gyration,max_radius,center_offset,fold_amplitude_4,axis_ratio_4,fold_amplitude_6,axis_ratio_6,shell_count,fold_phase_4,fold_phase_6');
     expect(csv.length).toBe(1 + r.result.series.sizes.length);
   });
 });

@@ -132,7 +132,7 @@ describe('HTTP API', () => {
     expect(badTable.statusCode).toBe(400);
     expect(badTable.json().error).toBe('table: "plots" is not allowed; allowed: one of "series", "runs", "mass-radius", "estimators", "local-slopes", "batches", "harmonic"');
     const csv = await app.inject({ url: `/ensembles/${id}/summary?format=csv` });
-    expect(csv.body.split('\n')[0]).toBe('run_index,state_hash,size,radius_of_gyration,max_radius,center_offset,fold_amplitude_4,axis_ratio_4,fold_amplitude_6,axis_ratio_6,shell_count');
+    expect(csv.body.split('\n')[0]).toBe('run_index,state_hash,size,radius_of_gyration,max_radius,center_offset,fold_amplitude_4,axis_ratio_4,fold_amplitude_6,axis_ratio_6,shell_count,fold_phase_4,fold_phase_6');
     const pb = await app.inject({ url: `/ensembles/${id}/summary?format=pb` });
     expect(pb.headers['content-type']).toBe('application/x-protobuf');
     expect(decodeEnsembleSummary(pb.rawPayload).runs.map((r) => r.runIndex)).toEqual([0, 1]);

@@ -47,6 +47,12 @@ function expectSameRecords(coords: Float64Array, sizes: number[]): void {
   for (const name of ['fold_amplitude_4', 'fold_amplitude_6']) {
     full[name].forEach((v, i) => expect(Math.abs(incremental[name][i] - v)).toBeLessThanOrEqual(4 * sizes[i] * 2 ** -53));
   }
+  // the signed phases sc_k / n: the same sums, |ΔP| = |Δsc| / n <= 2 n 2^-53, within the same bound
+  expect(incremental.shell_count).toEqual(full.shell_count);
+  for (const name of ['fold_phase_4', 'fold_phase_6']) {
+    expect(incremental[name]).toHaveLength(sizes.length);
+    full[name].forEach((v, i) => expect(Math.abs(incremental[name][i] - v)).toBeLessThanOrEqual(4 * sizes[i] * 2 ** -53));
+  }
 }
 
 describe('incremental planar records equal the full passes', () => {

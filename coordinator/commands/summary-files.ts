@@ -115,6 +115,14 @@ export function describeAnalysis(s: EnsembleSummaryData): string {
           ` (rule: lower end of the band above the ${Math.round(noise.quantile * 100)}% quantile; angles along a branch are correlated, so isotropic DLA is above it too: compare with an isotropic baseline, tendril run --baseline)`,
       );
     } else if (parts.length > 0 && noise === null) lines.push('isotropic noise: not available (some run lacks shell_count: resumed from a checkpoint written before it was recorded)');
+    const phase = obs.foldPhase;
+    if (phase && phase.verdicts.length > 0) {
+      lines.push(
+        `signed fold phase at N = ${phase.verdicts[0].size} (mean of cos k theta over the shell [${Math.round(obs.level * 100)}% percentile band]): ` +
+          phase.verdicts.map((v) => `${v.name} ${v.mean.toFixed(4)} [${v.lo.toFixed(4)}, ${v.hi.toFixed(4)}] ${v.verdict}`).join(', ') +
+          ` (rule: ${phase.rule})`,
+      );
+    } else if (parts.length > 0 && phase === null) lines.push('signed fold phase: not available (some run lacks fold_phase_4/fold_phase_6: resumed from a checkpoint written before they were recorded)');
     const g = obs.interfaceGrowth;
     if (g) {
       const iv = g.interval.bca ?? g.interval.percentile;

@@ -11,6 +11,7 @@
 import type { FoldNoise, ObservableBand, ObservableSection } from '../stats/observable-bands.js';
 import { compareWithBaseline, type AnisotropyComparison } from '../stats/anisotropy-comparison.js';
 import { ABOVE_NOISE_RULE, NOISE_CAVEAT } from '../stats/fold-noise.js';
+import { PHASE_RULE } from '../stats/fold-phase.js';
 import type { Figure } from './plots.js';
 import { COLOURS, Plot } from './svg-plot.js';
 
@@ -48,6 +49,31 @@ function anisotropyFigure(s: ObservableSection, kind: 'fold_amplitude' | 'axis_r
     `: ensemble mean over ${s.clusters} cluster(s) at each recorded size, shaded: ${Math.round(s.level * 100)}% percentile bootstrap band over clusters (${s.resamples} resamples). ` +
     (amplitude ? noiseCaption(s) : '') +
     'Off-lattice clusters give the isotropic baseline; lattice clusters whose arms follow the axes rise above it.';
+  return { name, title, caption, svg: p.toSvg(), note: null };
+}
+
+/** The signed phases P_k = mean cos kθ of the outer shell against N, with the line 0 (the exact expectation of a rotation-invariant model) and the verdicts of PHASE_RULE. */
+function phaseFigure(s: ObservableSection): Figure | null {
+  const bands = ['4', '6'].map((k) => [k, bandOf(s, `fold_phase_${k}`)] as const).filter(([, b]) => b !== undefined) as [string, ObservableBand][];
+  if (bands.length === 0) return null;
+  const name = 'anisotropy-fold-phase';
+  const title = 'Lattice anisotropy: signed k-fold phase P_{k} = mean cos kθ of the outer shell against N';
+  const p = new Plot({ idPrefix: name, title, x: { label: 'cluster size N', kind: 'log' }, y: { label: 'P_{k} = Σ cos kθ / n', kind: 'linear' } });
+  p.hline(0, { colour: COLOURS.grey, width: 1, dash: '4 4' }, 'rotation-invariant model: exactly 0');
+  for (const [k, b] of bands) {
+    p.band(b.sizes, b.lo, b.hi, FOLD_COLOUR[k], undefined, 0.18);
+    p.line(b.sizes, b.mean, { colour: FOLD_COLOUR[k], width: 1.6 }, `k = ${k} (${k === '4' ? 'square' : 'triangular'} lattice axes): mean, ${Math.round(s.level * 100)}% band`);
+  }
+  const ph = s.foldPhase;
+  const verdicts =
+    ph === undefined || ph === null
+      ? `no verdict (${ph === undefined ? 'the summary predates' : 'some run lacks'} the recorded phases)`
+      : ph.verdicts.map((v) => `P_{${v.name.replace('fold_phase_', '')}} at N = ${v.size}: ${fmt(v.mean)} [${fmt(v.lo)}, ${fmt(v.hi)}], ${v.verdict}`).join('; ');
+  const caption =
+    'mean of cos kθ over the particles between R_max/2 and R_max, θ from the lattice x axis (worker/core/anisotropy.ts): ' +
+    `ensemble mean over ${s.clusters} cluster(s) at each recorded size, shaded: ${Math.round(s.level * 100)}% percentile bootstrap band over clusters (${s.resamples} resamples). ` +
+    'Its expectation is exactly 0 at every N for a model invariant under rotations (off-lattice DLA, Eden, DBM), so the band carries the ensemble\'s own noise and needs no noise model. ' +
+    `Verdict: ${verdicts}. Rule: ${PHASE_RULE}.`;
   return { name, title, caption, svg: p.toSvg(), note: null };
 }
 
@@ -184,5 +210,5 @@ function interfaceFigure(s: ObservableSection): Figure | null {
 /** The figures that apply to the section (none when it has no anisotropy or interface observables). */
 export function observableFigures(s: ObservableSection | null | undefined): Figure[] {
   if (!s || s.schema !== 'tendril.observables/1') return [];
-  return [anisotropyFigure(s, 'fold_amplitude'), anisotropyFigure(s, 'axis_ratio'), interfaceFigure(s)].filter((f): f is Figure => f !== null);
+  return [anisotropyFigure(s, 'fold_amplitude'), phaseFigure(s), anisotropyFigure(s, 'axis_ratio'), interfaceFigure(s)].filter((f): f is Figure => f !== null);
 }

@@ -26,6 +26,12 @@
  *    √(ln 20 / n), and the verdict of each fold_amplitude_k at the largest
  *    size, by ABOVE_NOISE_RULE. Runs resumed from checkpoints written before
  *    shell_count existed lack it: then foldNoise is null (no noise level).
+ *  - foldPhase (when fold_phase_4 and fold_phase_6 are recorded by every
+ *    run): the verdict of each signed phase fold_phase_k at the largest
+ *    shared size, by PHASE_RULE (coordinator/stats/fold-phase.ts): its band
+ *    against 0, the exact expectation for a rotation-invariant model. Null
+ *    when some run was resumed from a checkpoint written before the phases
+ *    existed.
  *
  * Pure: no I/O; the result is plain JSON.
  */
@@ -33,6 +39,7 @@ import type { GrowthResult } from '../../worker/core/growth-kernel.js';
 import { bootstrapInterval, sortedQuantile, type IntervalSummary } from './bca.js';
 import { bootstrapRandom, drawResample, jackknifeMeans, weightedColumnMeans } from './bootstrap.js';
 import { ABOVE_NOISE_RULE, aboveNoise, isotropicFoldMean, isotropicFoldQuantile, NOISE_QUANTILE } from './fold-noise.js';
+import { PHASE_RULE, phaseVerdict, type PhaseVerdict } from './fold-phase.js';
 
 export const BAND_RESAMPLES = 1000;
 export const INTERFACE_WINDOW_RULE = 'N from max(1000, N_final · 10^-2) to N_final';
@@ -78,6 +85,13 @@ export interface FoldNoise {
   rule: string;
 }
 
+/** The verdicts of the signed phases fold_phase_k against 0 (coordinator/stats/fold-phase.ts). */
+export interface FoldPhase {
+  /** One verdict per fold_phase_k, at the largest shared size. */
+  verdicts: { name: string; size: number; mean: number; lo: number; hi: number; verdict: PhaseVerdict }[];
+  rule: string;
+}
+
 export interface ObservableSection {
   schema: 'tendril.observables/1';
   clusters: number;
@@ -87,6 +101,8 @@ export interface ObservableSection {
   interfaceGrowth: InterfaceGrowthFit | null;
   /** Absent in summaries written before it existed; null when a run lacks shell_count. */
   foldNoise?: FoldNoise | null;
+  /** Absent in summaries written before it existed; null when a run lacks fold_phase_4 or fold_phase_6. */
+  foldPhase?: FoldPhase | null;
 }
 
 export interface ObservableOptions {
@@ -97,7 +113,13 @@ export interface ObservableOptions {
 
 /** The sizes recorded by every run with every observable present (the shared grid), and the observable names shared by all runs. */
 function sharedGrid(runs: readonly GrowthResult[]): { sizes: number[]; names: string[] } {
-  const names = Object.keys(runs[0].series.extra).filter((k) => runs.every((r) => Array.isArray(r.series.extra[k]))).sort();
+  // sorted, with the phases (added later) last: the observables that existed before them draw the same
+  // bootstrap resamples from the shared generator as before, so their bands are unchanged
+  const late = (k: string): number => (k.startsWith('fold_phase_') ? 1 : 0);
+  const names = Object.keys(runs[0].series.extra)
+    .filter((k) => runs.every((r) => Array.isArray(r.series.extra[k])))
+    .sort()
+    .sort((a, b) => late(a) - late(b));
   let sizes = runs[0].series.sizes;
   for (const r of runs) {
     const own = new Set(r.series.sizes);
@@ -190,7 +212,21 @@ export function observableSection(runs: readonly GrowthResult[], o: ObservableOp
     bands,
     interfaceGrowth: names.includes('interface_width') && names.includes('interface_radius') ? interfaceGrowth(runs, sizes, o) : null,
     foldNoise: names.includes('shell_count') ? foldNoise(runs, sizes, bands) : null,
+    foldPhase: names.includes('fold_phase_4') && names.includes('fold_phase_6') ? foldPhase(sizes, bands) : null,
   };
+}
+
+function foldPhase(sizes: number[], bands: ObservableBand[]): FoldPhase | null {
+  if (sizes.length === 0) return null;
+  const last = sizes[sizes.length - 1];
+  const verdicts = bands
+    .filter((b) => b.name.startsWith('fold_phase_'))
+    .map((b) => {
+      const i = b.sizes.indexOf(last);
+      const [mean, lo, hi] = i >= 0 ? [b.mean[i], b.lo[i], b.hi[i]] : [NaN, NaN, NaN];
+      return { name: b.name, size: last, mean, lo, hi, verdict: phaseVerdict(lo, hi) };
+    });
+  return { verdicts, rule: PHASE_RULE };
 }
 
 function foldNoise(runs: readonly GrowthResult[], allSizes: number[], bands: ObservableBand[]): FoldNoise | null {

@@ -26,7 +26,27 @@
  * measure used for lattice DLA by Grebenkov & Beliaev 2017, Phys. Rev. E 96,
  * 042159, with their own normalisation.)
  *
- * Both are O(n) per call, with no allocation; kernels record them at their
+ * Signed k-fold phase, over the same shell:
+ *   P_k = (1/n) Σ_j cos(k θ_j)
+ * with θ measured from the lattice's x axis (the square lattice's axes are at
+ * θ = 0, π/2, π, 3π/2 where cos 4θ = 1; the triangular lattice of
+ * worker/lattice/planar-lattice.ts has its neighbours at (1, 0) and
+ * (½, √3/2), axes at multiples of π/3 where cos 6θ = 1). A_k is a modulus,
+ * so it is positive even for an isotropic cluster, and by more than the
+ * independent-angle level because angles along a branch are correlated;
+ * P_k keeps the sign, and its expectation is exactly 0 for every N when the
+ * model's law is invariant under rotations about the seed (off-lattice DLA,
+ * Eden, DBM). Argument (exact, our own): let R_φ rotate by φ; invariance
+ * means the cluster C and R_φ C have the same law for every φ, so
+ * E P_k(C) = E P_k(R_φ C) = E[(1/n) Σ_j cos(k θ_j + k φ)] (the shell and n
+ * are unchanged by a rotation). Averaging over φ uniform in [0, 2π),
+ * ∫ cos(k θ + k φ) dφ / 2π = 0 for every θ and k ≥ 1, and the average is
+ * bounded by 1, so E P_k(C) = 0. Lattice growth whose arms follow the axes
+ * gives E P_k > 0, arms along the diagonals E P_k < 0. The ensemble mean of
+ * P_k with its bootstrap band is therefore a test with the ensemble's own
+ * noise (coordinator/stats/observable-bands.ts, foldPhase).
+ *
+ * All are O(n) per call, with no allocation; kernels record them at their
  * record sizes.
  */
 
@@ -116,6 +136,8 @@ export const PLANAR_ANISOTROPY_OBSERVABLES = [
   { name: 'fold_amplitude_6', meaning: '6-fold amplitude |Σ exp(6iθ)|/n of the particles between R_max/2 and R_max (triangular-lattice anisotropy)' },
   { name: 'axis_ratio_6', meaning: 'mean extent along the 6 triangular-lattice axes over the mean extent along the 6 diagonals' },
   { name: 'shell_count', meaning: 'number n of particles between R_max/2 and R_max (the shell of fold_amplitude_4 and fold_amplitude_6; sets their isotropic noise level √(π/(4n)))' },
+  { name: 'fold_phase_4', meaning: 'signed 4-fold phase Σ cos 4θ / n over the same shell, θ from the lattice x axis (+1 all along the square axes, −1 all along the diagonals; expectation exactly 0 for a rotation-invariant model)' },
+  { name: 'fold_phase_6', meaning: 'signed 6-fold phase Σ cos 6θ / n over the same shell (+1 all along the triangular-lattice axes at multiples of π/3; expectation exactly 0 for a rotation-invariant model)' },
 ] as const;
 
 /** cos 4θ, sin 4θ, cos 6θ, sin 6θ of the last foldTermsOf call (reused). */
@@ -238,12 +260,21 @@ function extentRatio(far: Float64Array): number {
  * written before shell_count existed (fold_amplitude_4 has records and
  * shell_count none): it goes on without it, so that every record list keeps
  * one value per recorded size (the summary then shows no noise level).
+ * fold_phase_4 = sc4/n and fold_phase_6 = sc6/n likewise: a series resumed
+ * from a checkpoint written before they existed goes on without them (and
+ * the summary then gives no phase verdict). They are pushed after the
+ * existing observables, so every older record keeps its bits.
  */
 export function pushPlanarAnisotropy(extra: Record<string, number[]>, n: number, sc4: number, ss4: number, sc6: number, ss6: number, far4: Float64Array, far6: Float64Array): void {
   const withCount = extra.shell_count !== undefined || !(extra.fold_amplitude_4?.length);
+  const withPhase = extra.fold_phase_4 !== undefined || !(extra.fold_amplitude_4?.length);
   (extra.fold_amplitude_4 ??= []).push(n > 0 ? Math.sqrt(sc4 * sc4 + ss4 * ss4) / n : 0);
   (extra.axis_ratio_4 ??= []).push(extentRatio(far4));
   (extra.fold_amplitude_6 ??= []).push(n > 0 ? Math.sqrt(sc6 * sc6 + ss6 * ss6) / n : 0);
   (extra.axis_ratio_6 ??= []).push(extentRatio(far6));
   if (withCount) (extra.shell_count ??= []).push(n);
+  if (withPhase) {
+    (extra.fold_phase_4 ??= []).push(n > 0 ? sc4 / n : 0);
+    (extra.fold_phase_6 ??= []).push(n > 0 ? sc6 / n : 0);
+  }
 }
