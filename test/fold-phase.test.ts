@@ -1,0 +1,162 @@
+/**
+ * The signed k-fold phase P_k = (1/n) Σ cos kθ of the outer shell (worker/core/anisotropy.ts,
+ * fold_phase_4 and fold_phase_6) and its verdict against 0 (coordinator/stats/fold-phase.ts,
+ * observable-bands.ts foldPhase).
+ *
+ * Physics checked: a model whose law is invariant under rotations about the seed has E P_k = 0
+ * exactly at every N (average over a uniform rotation angle; the argument is in
+ * worker/core/anisotropy.ts, our own), so the bootstrap band of the ensemble mean of an
+ * off-lattice ensemble should contain 0 (up to the 5% chance of a 95% band missing it; fixed
+ * seeds). Angles clustered along the square axes give P_4 > 0, along the diagonals P_4 < 0.
+ */
+import { describe, expect, it } from 'vitest';
+import type { GrowthResult } from '../worker/core/growth-kernel.js';
+import { recordPlanarAnisotropy } from '../worker/core/anisotropy.js';
+import { createKernel, modelParams } from '../worker/models/registry.js';
+import { Random } from '../worker/core/random.js';
+import { observableSection } from '../coordinator/stats/observable-bands.js';
+import { phaseVerdict } from '../coordinator/stats/fold-phase.js';
+
+/** K synthetic clusters of n points in the shell 0.55 < r <= 1 (plus one at r = 1, R_max): uniform angles, or mπ/2 + offset + uniform(±spread). */
+function syntheticRuns(k: number, n: number, angles: { offset: number; spread: number } | null, seed: string): GrowthResult[] {
+  const runs: GrowthResult[] = [];
+  for (let i = 0; i < k; i++) {
+    const rng = Random.forRun(seed, i);
+    const coords = new Float64Array(2 * (n + 1));
+    coords[0] = 1;
+    for (let j = 1; j <= n; j++) {
+      const a = angles === null ? 2 * Math.PI * rng.nextDouble() : (Math.PI / 2) * rng.nextBelow(4) + angles.offset + angles.spread * rng.nextSigned();
+      const r = 0.55 + 0.45 * rng.nextDouble();
+      coords[2 * j] = r * Math.cos(a);
+      coords[2 * j + 1] = r * Math.sin(a);
+    }
+    const extra: Record<string, number[]> = {};
+    const sizes = [Math.floor((n + 1) / 2), n + 1];
+    for (const m of sizes) recordPlanarAnisotropy(extra, coords, 2, m, 1);
+    runs.push({
+      engineVersion: 'x', model: { kind: 'dla-square', params: {} }, dimension: 2, particles: n + 1, ensembleSeed: seed, runIndex: i,
+      series: { sizes, radiusOfGyration: sizes.map(() => 1), maxRadius: sizes.map(() => 1), centerOffset: sizes.map(() => 0), extra },
+      massRadius: { radii: [1], counts: [1] }, counters: {}, stateHash: '0',
+    });
+  }
+  return runs;
+}
+
+const options = { seed: '7', resamples: 1000, level: 0.95 };
+
+function phaseOf(runs: GrowthResult[], name: string) {
+  const v = observableSection(runs, options)!.foldPhase!.verdicts.find((x) => x.name === name)!;
+  expect(v.lo).toBeLessThanOrEqual(v.mean);
+  expect(v.mean).toBeLessThanOrEqual(v.hi);
+  return v;
+}
+
+describe('signed fold phase: values and verdict', () => {
+  it('the rule: band above 0, below 0, containing 0, not finite', () => {
+    expect(phaseVerdict(0.01, 0.2)).toBe('aligned with the lattice axes');
+    expect(phaseVerdict(-0.2, -0.01)).toBe('opposite to the lattice axes');
+    expect(phaseVerdict(-0.01, 0.01)).toBe('no k-fold alignment beyond noise');
+    expect(phaseVerdict(0, 0.3)).toBe('no k-fold alignment beyond noise');
+    expect(phaseVerdict(NaN, 1)).toBe('unknown');
+  });
+
+  it('points exactly on the axes give P_4 = 1 (and P_6 = cos 6θ), on the diagonals P_4 = −1', () => {
+    const axes = Float64Array.from([1, 0, 0, 1, -1, 0, 0, -1, 0.7, 0, 0, -0.8]);
+    const e: Record<string, number[]> = {};
+    recordPlanarAnisotropy(e, axes, 2, 6, 1);
+    expect(e.fold_phase_4[0]).toBeCloseTo(1, 14);
+    // cos 6θ at θ = 0, π/2, π, 3π/2: 1, −1, 1, −1, 1, −1
+    expect(e.fold_phase_6[0]).toBeCloseTo(0, 14);
+    const h = Math.SQRT1_2;
+    const diag = Float64Array.from([h, h, -h, h, -h, -h, h, -h]);
+    const d: Record<string, number[]> = {};
+    recordPlanarAnisotropy(d, diag, 2, 4, 1 + 1e-12); // h² + h² may round above 1
+    expect(d.fold_phase_4[0]).toBeCloseTo(-1, 14);
+    // the triangular axes (multiples of π/3) give P_6 = 1
+    const tri: number[] = [];
+    for (let m = 0; m < 6; m++) tri.push(Math.cos((Math.PI * m) / 3), Math.sin((Math.PI * m) / 3));
+    const t: Record<string, number[]> = {};
+    recordPlanarAnisotropy(t, Float64Array.from(tri), 2, 6, 1);
+    expect(t.fold_phase_6[0]).toBeCloseTo(1, 14);
+  });
+
+  it('synthetic ensembles: uniform angles contain 0; 4-fold along the axes is aligned; along the diagonals opposite', () => {
+    const iso = syntheticRuns(24, 2000, null, '31');
+    for (const name of ['fold_phase_4', 'fold_phase_6']) expect(phaseOf(iso, name).verdict).toBe('no k-fold alignment beyond noise');
+    const along = phaseOf(syntheticRuns(24, 2000, { offset: 0, spread: 0.5 }, '32'), 'fold_phase_4');
+    expect(along.verdict).toBe('aligned with the lattice axes');
+    // E cos 4(θ + u), u uniform on ±s: sin(4s)/(4s) = sin 2 / 2 for s = 0.5
+    expect(Math.abs(along.mean - Math.sin(2) / 2)).toBeLessThan(0.02);
+    expect(phaseOf(syntheticRuns(24, 2000, { offset: Math.PI / 4, spread: 0.5 }, '33'), 'fold_phase_4').verdict).toBe('opposite to the lattice axes');
+  });
+
+  it('the phases come last in the bands: the older observables draw the same bootstrap resamples as without them', () => {
+    const runs = syntheticRuns(12, 500, null, '34');
+    const without = runs.map((r) => {
+      const { fold_phase_4: _a, fold_phase_6: _b, ...extra } = r.series.extra;
+      return { ...r, series: { ...r.series, extra } };
+    });
+    const a = observableSection(runs, options)!;
+    const b = observableSection(without, options)!;
+    expect(a.bands.slice(0, b.bands.length)).toEqual(b.bands);
+    expect(a.bands.slice(b.bands.length).map((x) => x.name)).toEqual(['fold_phase_4', 'fold_phase_6']);
+    expect(b.foldPhase).toBeNull();
+    expect(a.foldNoise).toEqual(b.foldNoise);
+  });
+});
+
+describe('signed fold phase in the kernels\' records and across checkpoints', () => {
+  for (const kind of ['dla-square', 'dla-offlattice-2d', 'eden-triangular']) {
+    it(`${kind}: one value per record, |P_k| <= A_k; a checkpoint from before the phases resumes without them`, () => {
+      const task = { model: modelParams(kind), particles: 3000, ensembleSeed: '15', runIndex: 0, recordsPerDecade: 10 };
+      const whole = createKernel(task);
+      whole.growTo(3000);
+      const w = whole.result();
+      for (const name of ['fold_phase_4', 'fold_phase_6']) {
+        expect(w.series.extra[name]).toHaveLength(w.series.sizes.length);
+        w.series.extra[name].forEach((v, i) => {
+          expect(Math.abs(v)).toBeLessThanOrEqual(w.series.extra[name.replace('phase', 'amplitude')][i] * (1 + 1e-12));
+        });
+      }
+      const first = createKernel(task);
+      first.growTo(1000);
+      const old = structuredClone(first.checkpoint());
+      delete old.series.extra.fold_phase_4;
+      delete old.series.extra.fold_phase_6;
+      const legacy = createKernel(task, old);
+      legacy.growTo(3000);
+      const r = legacy.result();
+      expect(r.stateHash).toBe(w.stateHash);
+      expect(r.series.extra.fold_phase_4).toBeUndefined();
+      expect(r.series.extra.fold_phase_6).toBeUndefined();
+      const { fold_phase_4: _a, fold_phase_6: _b, ...older } = w.series.extra;
+      expect(r.series.extra).toEqual(older);
+    });
+  }
+});
+
+describe('signed fold phase of grown ensembles (24 clusters of 3000 particles)', () => {
+  // Measured before writing this test (other seeds, 100-200 clusters of 3000, 2026-12-03): off-lattice DLA
+  // P_4 = −0.002 ± 0.015 and 0.015 ± 0.014 (mean ± standard error), off-lattice Eden 0.000 ± 0.004;
+  // square-lattice DLA P_4 = 0.174 ± 0.020 and 0.177 ± 0.020, so 24 clusters (standard error about 0.04)
+  // put the square band above 0 by about 4 standard errors. A 95% band misses 0 for 1 seed in 20 even
+  // for an exact zero: the seed is fixed, and it was not chosen by its result.
+  function ensemble(kind: string, seed: string): GrowthResult[] {
+    const runs: GrowthResult[] = [];
+    for (let i = 0; i < 24; i++) {
+      const k = createKernel({ model: modelParams(kind), particles: 3000, ensembleSeed: seed, runIndex: i, recordsPerDecade: 10 });
+      k.growTo(3000);
+      runs.push(k.result());
+    }
+    return runs;
+  }
+
+  it('dla-offlattice-2d: no 4-fold or 6-fold alignment beyond noise', () => {
+    const runs = ensemble('dla-offlattice-2d', '14');
+    for (const name of ['fold_phase_4', 'fold_phase_6']) expect(phaseOf(runs, name).verdict).toBe('no k-fold alignment beyond noise');
+  });
+
+  it('dla-square: 4-fold phase aligned with the lattice axes', () => {
+    expect(phaseOf(ensemble('dla-square', '14'), 'fold_phase_4').verdict).toBe('aligned with the lattice axes');
+  });
+});
