@@ -19,18 +19,28 @@ describe('report and summary: model observables', () => {
   it('an Eden ensemble gets anisotropy-against-N figures with bands and the interface-width figure with its β fit', () => {
     const s = observableSection(runs('eden-square', 5000, 6), { seed: '1', resamples: 200, level: 0.95 });
     const figs = observableFigures(s);
-    expect(figs.map((f) => f.name)).toEqual(['anisotropy-fold-amplitude', 'anisotropy-axis-ratio', 'interface-width']);
+    expect(figs.map((f) => f.name)).toEqual(['anisotropy-fold-amplitude', 'anisotropy-fold-phase', 'anisotropy-axis-ratio', 'interface-width']);
     for (const f of figs) {
       expect(f.note).toBeNull();
       checkXml(f.svg);
       expect(f.svg).toContain('<path'); // the bands and lines are drawn
     }
-    expect(figs[2].caption).toMatch(/Verdict: (consistent|differs)/);
+    expect(figs[3].caption).toMatch(/Verdict: (consistent|differs)/);
+    expect(figs[1].caption).toMatch(/P_\{4\} at N = 5000: \S+ \[\S+, \S+\], (aligned with the lattice axes|opposite to the lattice axes|no k-fold alignment beyond noise); P_\{6\} at N = 5000/);
+    expect(figs[1].caption).toContain('Rule: aligned with the lattice axes when the band');
   });
 
   it('off-lattice DLA (the isotropic baseline) gets the anisotropy figures but no interface figure', () => {
     const figs = observableFigures(observableSection(runs('dla-offlattice-2d', 300, 4), { seed: '1', resamples: 100, level: 0.9 }));
-    expect(figs.map((f) => f.name)).toEqual(['anisotropy-fold-amplitude', 'anisotropy-axis-ratio']);
+    expect(figs.map((f) => f.name)).toEqual(['anisotropy-fold-amplitude', 'anisotropy-fold-phase', 'anisotropy-axis-ratio']);
+  });
+
+  it('a summary without the phases (runs resumed from older checkpoints) draws the phase figure with no verdict, or none without bands', () => {
+    const s = observableSection(runs('dla-offlattice-2d', 300, 4), { seed: '1', resamples: 100, level: 0.9 })!;
+    const noPhase = observableFigures({ ...s, foldPhase: undefined }).find((f) => f.name === 'anisotropy-fold-phase')!;
+    expect(noPhase.caption).toContain('no verdict (the summary predates the recorded phases)');
+    const older = { ...s, bands: s.bands.filter((b) => !b.name.startsWith('fold_phase_')), foldPhase: null };
+    expect(observableFigures(older).map((f) => f.name)).toEqual(['anisotropy-fold-amplitude', 'anisotropy-axis-ratio']);
   });
 
   it('the ensemble summary carries statistics.observables for a lattice model', () => {
