@@ -101,14 +101,21 @@ export class PlanarCluster {
     };
   }
 
-  /** A checkpoint of `task` at this cluster's size (centres and records copied), with the kernel's generator state, counters and model state. */
-  checkpoint(task: GrowthTask, rngState: Uint32Array, counters: Record<string, number>, modelState: Uint8Array): GrowthCheckpoint {
+  /**
+   * A checkpoint of `task` at this cluster's size (records copied), with the
+   * kernel's generator state, counters and model state. The centres are
+   * copied, or with `view` a view of this cluster's own array (no copy;
+   * GrowthKernel.checkpointView: valid until the next centre is added), so
+   * that a giant cluster's checkpoint is streamed to disk without a second
+   * whole-cluster array beside the first.
+   */
+  checkpoint(task: GrowthTask, rngState: Uint32Array, counters: Record<string, number>, modelState: Uint8Array, view = false): GrowthCheckpoint {
     return {
       engineVersion: ENGINE_VERSION,
       task: structuredClone(task),
       dimension: 2,
       count: this.n,
-      positions: this.xy.slice(0, 2 * this.n),
+      positions: view ? this.xy.subarray(0, 2 * this.n) : this.xy.slice(0, 2 * this.n),
       rngState,
       counters,
       series: structuredClone(this.series),

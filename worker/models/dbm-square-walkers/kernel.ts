@@ -307,6 +307,10 @@ export class DbmSquareWalkers implements GrowthKernel {
     return this.cluster.checkpoint(this.task, this.rng.state(), this.countersNow(), new Uint8Array(0));
   }
 
+  checkpointView(): GrowthCheckpoint {
+    return this.cluster.checkpoint(this.task, this.rng.state(), this.countersNow(), new Uint8Array(0), true);
+  }
+
   result(): GrowthResult {
     return this.cluster.result(this.task, this.countersNow(), this.stateHash());
   }

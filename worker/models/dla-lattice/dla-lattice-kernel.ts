@@ -86,7 +86,6 @@
  * square lattice's fold, k = 6 the triangular one's).
  */
 import type { Counters, ClusterPositions, GrowthCheckpoint, GrowthKernel, GrowthResult, GrowthTask } from '../../core/growth-kernel.js';
-import { ENGINE_VERSION } from '../../core/engine-version.js';
 import { Random, STREAM_GROWTH } from '../../core/random.js';
 import { StateHasher } from '../../core/state-hash.js';
 import { checkCheckpointOf } from '../../core/checkpoint-check.js';
@@ -268,17 +267,11 @@ export class DlaLatticeKernel implements GrowthKernel {
   }
 
   checkpoint(): GrowthCheckpoint {
-    return {
-      engineVersion: ENGINE_VERSION,
-      task: structuredClone(this.task),
-      dimension: 2,
-      count: this.cluster.n,
-      positions: this.cluster.xy.slice(0, 2 * this.cluster.n),
-      rngState: this.rng.state(),
-      counters: { ...this.counters },
-      series: structuredClone(this.cluster.series),
-      modelState: this.hitState(),
-    };
+    return this.cluster.checkpoint(this.task, this.rng.state(), { ...this.counters }, this.hitState());
+  }
+
+  checkpointView(): GrowthCheckpoint {
+    return this.cluster.checkpoint(this.task, this.rng.state(), { ...this.counters }, this.hitState(), true);
   }
 
   result(): GrowthResult {

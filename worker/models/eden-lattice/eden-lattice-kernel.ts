@@ -133,6 +133,10 @@ export class EdenLatticeKernel implements GrowthKernel {
     return this.cluster.checkpoint(this.task, this.rng.state(), { perimeter_sites: this.perimeter.count }, new Uint8Array(0));
   }
 
+  checkpointView(): GrowthCheckpoint {
+    return this.cluster.checkpoint(this.task, this.rng.state(), { perimeter_sites: this.perimeter.count }, new Uint8Array(0), true);
+  }
+
   result(): GrowthResult {
     return this.cluster.result(this.task, { perimeter_sites: this.perimeter.count }, this.stateHash());
   }

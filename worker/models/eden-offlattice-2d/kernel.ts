@@ -311,6 +311,10 @@ export class OffLatticeEden2d implements GrowthKernel {
     return this.cluster.checkpoint(this.task, this.rng.state(), { ...this.counters }, new Uint8Array(0));
   }
 
+  checkpointView(): GrowthCheckpoint {
+    return this.cluster.checkpoint(this.task, this.rng.state(), { ...this.counters }, new Uint8Array(0), true);
+  }
+
   result(): GrowthResult {
     return this.cluster.result(this.task, { ...this.counters }, this.stateHash());
   }
