@@ -10,13 +10,13 @@
  */
 import { describe, expect, it } from 'vitest';
 import type { GrowthResult } from '../worker/core/growth-kernel.js';
-import { recordPlanarAnisotropy } from '../worker/core/anisotropy.js';
 import { createKernel, modelParams } from '../worker/models/registry.js';
 import { decodeRunResult, encodeRunResult } from '../proto/convert.js';
 import { Random } from '../worker/core/random.js';
 import { aboveNoise, isotropicFoldMean, isotropicFoldQuantile } from '../coordinator/stats/fold-noise.js';
 import { observableSection } from '../coordinator/stats/observable-bands.js';
 import { compareWithBaseline } from '../coordinator/stats/anisotropy-comparison.js';
+import { syntheticShellRuns } from './support/synthetic-shell-runs.js';
 
 /** A_k of n independent uniform angles (trigonometry here, independent of the kernels' de Moivre powers). */
 function amplitude(rng: Random, n: number, k: number): number {
@@ -70,33 +70,9 @@ describe('isotropic noise of the k-fold amplitude', () => {
   }
 });
 
-/**
- * K synthetic "clusters": n points in the shell 0.5 < r ≤ 1 (plus the point at r = 1 that sets
- * R_max), angles either uniform or 4-fold (θ = mπ/2 + uniform(±spread)), recorded through the
- * kernels' own recordPlanarAnisotropy at three sizes.
- */
+/** K synthetic clusters (test/support/synthetic-shell-runs.ts), uniform or 4-fold (θ = mπ/2 + uniform(±spread)), recorded at three sizes. */
 function syntheticRuns(k: number, n: number, spread: number | null, seed: string): GrowthResult[] {
-  const runs: GrowthResult[] = [];
-  for (let i = 0; i < k; i++) {
-    const rng = Random.forRun(seed, i);
-    const coords = new Float64Array(2 * (n + 1));
-    coords[0] = 1; // r = 1 exactly: R_max
-    for (let j = 1; j <= n; j++) {
-      const a = spread === null ? 2 * Math.PI * rng.nextDouble() : (Math.PI / 2) * rng.nextBelow(4) + spread * rng.nextSigned();
-      const r = 0.55 + 0.45 * rng.nextDouble();
-      coords[2 * j] = r * Math.cos(a);
-      coords[2 * j + 1] = r * Math.sin(a);
-    }
-    const extra: Record<string, number[]> = {};
-    const sizes = [Math.floor((n + 1) / 4), Math.floor((n + 1) / 2), n + 1];
-    for (const m of sizes) recordPlanarAnisotropy(extra, coords, 2, m, 1);
-    runs.push({
-      engineVersion: 'x', model: { kind: 'dla-square', params: {} }, dimension: 2, particles: n + 1, ensembleSeed: seed, runIndex: i,
-      series: { sizes, radiusOfGyration: sizes.map(() => 1), maxRadius: sizes.map(() => 1), centerOffset: sizes.map(() => 0), extra },
-      massRadius: { radii: [1], counts: [1] }, counters: {}, stateHash: '0',
-    });
-  }
-  return runs;
+  return syntheticShellRuns(k, n, spread === null ? null : { offset: 0, spread }, seed, [4, 2, 1]);
 }
 
 describe('foldNoise in the summary: the noise level from the recorded shell counts and the verdict', () => {

@@ -13,33 +13,13 @@ import { describe, expect, it } from 'vitest';
 import type { GrowthResult } from '../worker/core/growth-kernel.js';
 import { recordPlanarAnisotropy } from '../worker/core/anisotropy.js';
 import { createKernel, modelParams } from '../worker/models/registry.js';
-import { Random } from '../worker/core/random.js';
 import { observableSection } from '../coordinator/stats/observable-bands.js';
+import { syntheticShellRuns, type ShellAngles } from './support/synthetic-shell-runs.js';
 import { phaseVerdict } from '../coordinator/stats/fold-phase.js';
 
-/** K synthetic clusters of n points in the shell 0.55 < r <= 1 (plus one at r = 1, R_max): uniform angles, or mπ/2 + offset + uniform(±spread). */
-function syntheticRuns(k: number, n: number, angles: { offset: number; spread: number } | null, seed: string): GrowthResult[] {
-  const runs: GrowthResult[] = [];
-  for (let i = 0; i < k; i++) {
-    const rng = Random.forRun(seed, i);
-    const coords = new Float64Array(2 * (n + 1));
-    coords[0] = 1;
-    for (let j = 1; j <= n; j++) {
-      const a = angles === null ? 2 * Math.PI * rng.nextDouble() : (Math.PI / 2) * rng.nextBelow(4) + angles.offset + angles.spread * rng.nextSigned();
-      const r = 0.55 + 0.45 * rng.nextDouble();
-      coords[2 * j] = r * Math.cos(a);
-      coords[2 * j + 1] = r * Math.sin(a);
-    }
-    const extra: Record<string, number[]> = {};
-    const sizes = [Math.floor((n + 1) / 2), n + 1];
-    for (const m of sizes) recordPlanarAnisotropy(extra, coords, 2, m, 1);
-    runs.push({
-      engineVersion: 'x', model: { kind: 'dla-square', params: {} }, dimension: 2, particles: n + 1, ensembleSeed: seed, runIndex: i,
-      series: { sizes, radiusOfGyration: sizes.map(() => 1), maxRadius: sizes.map(() => 1), centerOffset: sizes.map(() => 0), extra },
-      massRadius: { radii: [1], counts: [1] }, counters: {}, stateHash: '0',
-    });
-  }
-  return runs;
+/** K synthetic clusters (test/support/synthetic-shell-runs.ts) recorded at sizes (n + 1)/2 and n + 1. */
+function syntheticRuns(k: number, n: number, angles: ShellAngles | null, seed: string): GrowthResult[] {
+  return syntheticShellRuns(k, n, angles, seed, [2, 1]);
 }
 
 const options = { seed: '7', resamples: 1000, level: 0.95 };
