@@ -45,6 +45,7 @@ import { decodeSnapshot, type PointSet } from '../snapshot/cluster-snapshot.js';
 import { ProbeGeometry3d, capacityFromProbes, runProbe3d } from '../../worker/probe/probe-3d.js';
 import { boxSpectrum3d } from '../../worker/probe/box-spectrum-3d.js';
 import { WINDOW_RULE, windowProblem } from '../harmonic/fit-window.js';
+import { ballHitsCsv, diskHitsCsv } from '../harmonic/hits-csv.js';
 
 export const MEASURES_FILE = 'probe-measures.json';
 export const HITS_FILE = 'probe-hits.csv';
@@ -157,12 +158,7 @@ export function register(program: Command): void {
         timing: { probeSeconds: run.seconds, walkersPerSecond: walkers / run.seconds, threads },
       };
       writeFileSync(join(dir, MEASURES_FILE), JSON.stringify(json, null, 2) + '\n');
-      const lines = ['index,x,y,r,hits,measure'];
-      for (let i = 0; i < pts.count; i++) {
-        const r = typeof pts.r === 'number' ? pts.r : pts.r[i];
-        lines.push(`${i},${pts.x[i]},${pts.y[i]},${r},${run.counts[i]},${run.counts[i] / walkers}`);
-      }
-      writeFileSync(join(dir, HITS_FILE), lines.join('\n') + '\n');
+      writeFileSync(join(dir, HITS_FILE), diskHitsCsv(pts.count, pts.x, pts.y, pts.r, run.counts, walkers));
       const picture = renderMeasurePng(pts.count, pts.x, pts.y, set.lattice ? pts.r : set.drawRadius, run.counts);
       writeFileSync(join(dir, MEASURE_PICTURE_FILE), picture);
       const { renderer } = pngRenderer();
@@ -244,9 +240,7 @@ function writeProbe3d(input: string, s: PointSet, o: { walkers: number; seed: st
     timing: { probeSeconds: seconds, walkersPerSecond: o.walkers / seconds },
   };
   writeFileSync(join(dir, MEASURES_FILE), JSON.stringify(json, null, 2) + '\n');
-  const lines = ['index,x,y,z,r,hits,measure'];
-  for (let i = 0; i < s.count; i++) lines.push(`${i},${s.x[i]},${s.y[i]},${s.z![i]},${s.diameter},${run.hits[i]},${run.hitTotal > 0 ? run.hits[i] / run.hitTotal : 0}`);
-  writeFileSync(join(dir, HITS_FILE), lines.join('\n') + '\n');
+  writeFileSync(join(dir, HITS_FILE), ballHitsCsv(s.count, s.x, s.y, s.z!, s.diameter, run.hits));
   process.stdout.write(
     `probed ${s.count} balls (3D) with ${o.walkers} walkers in ${seconds.toFixed(2)} s; capacity = ${cap.capacity.toPrecision(5)} +- ${cap.error.toPrecision(2)}` +
       (spectrum ? `, tau(0) = ${(spectrum.tau[o.q.indexOf(0)] ?? NaN).toFixed(3)}` : '') +

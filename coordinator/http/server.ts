@@ -67,6 +67,7 @@ import { sweepFigure } from '../report/sweep-report.js';
 import { launchProbeRequest, PROBE_REQUEST_SCHEMA, probeRequestProblems, ProbeRequestError, ProbeRequestStore, validateProbeRequest } from '../farm/probe-requests.js';
 import { registerWebRoutes } from './web-routes.js';
 import { isBallSet } from '../../worker/probe/probe-set.js';
+import { ballHitsCsv, diskHitsCsv } from '../harmonic/hits-csv.js';
 import { CSV_TABLE_NAMES, renderSummary, SUMMARY_FORMATS, type SummaryFormat, type SummaryOptions } from '../summary/index.js';
 import { messageOf, TendrilError } from '../../proto/errors.js';
 
@@ -473,18 +474,9 @@ export function buildApi(o: ApiOptions): FastifyInstance {
     const s = await probeStatus(req.params.id);
     const [set, hits] = await Promise.all([probeStore.set(s.id), probeStore.hits(s.id)]);
     if (!set || !hits) throw new ApiError(409, `id: "${s.id}" is not analysed yet (state ${s.state}, ${s.jobs.done} of ${s.jobs.planned} jobs done)`);
-    let lines: string[];
-    if (isBallSet(set)) {
-      // balls in 3D: a probe may escape, so the measure is the share of the probes that hit (as `tendril probe` on a 3D snapshot)
-      let total = 0;
-      for (let i = 0; i < set.count; i++) total += hits[i];
-      lines = ['index,x,y,z,r,hits,measure'];
-      for (let i = 0; i < set.count; i++) lines.push(`${i},${set.x[i]},${set.y[i]},${set.z[i]},${set.radius},${hits[i]},${total > 0 ? hits[i] / total : 0}`);
-    } else {
-      lines = ['index,x,y,r,hits,measure'];
-      for (let i = 0; i < set.count; i++) lines.push(`${i},${set.x[i]},${set.y[i]},${typeof set.r === 'number' ? set.r : set.r[i]},${hits[i]},${hits[i] / s.walkers}`);
-    }
-    return reply.header('content-type', 'text/csv; charset=utf-8').header('content-disposition', `attachment; filename="${s.id}-hits.csv"`).send(lines.join('\n') + '\n');
+    // the table `tendril probe` writes (in 3D the measure is the share of the probes that hit: a probe may escape)
+    const csv = isBallSet(set) ? ballHitsCsv(set.count, set.x, set.y, set.z, set.radius, hits) : diskHitsCsv(set.count, set.x, set.y, set.r, hits, s.walkers);
+    return reply.header('content-type', 'text/csv; charset=utf-8').header('content-disposition', `attachment; filename="${s.id}-hits.csv"`).send(csv);
   });
 
   registerWebRoutes(app, { store: o.store, summary: o.summary });
