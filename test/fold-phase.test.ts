@@ -4,10 +4,11 @@
  * observable-bands.ts foldPhase).
  *
  * Physics checked: a model whose law is invariant under rotations about the seed has E P_k = 0
- * exactly at every N (average over a uniform rotation angle; the argument is in
- * worker/core/anisotropy.ts, our own), so the bootstrap band of the ensemble mean of an
- * off-lattice ensemble should contain 0 (up to the 5% chance of a 95% band missing it; fixed
- * seeds). Angles clustered along the square axes give P_4 > 0, along the diagonals P_4 < 0.
+ * exactly at every N (average over a uniform rotation angle; the exact argument is in
+ * worker/core/anisotropy.ts, our own derivation, no source), so the bootstrap band of the
+ * ensemble mean of an off-lattice ensemble should contain 0 (checked with a 99.9% band, which
+ * misses an exact 0 for about 1 seed in 1000; fixed seeds). Angles clustered along the square
+ * axes give P_4 > 0, along the diagonals P_4 < 0.
  */
 import { describe, expect, it } from 'vitest';
 import type { GrowthResult } from '../worker/core/growth-kernel.js';
