@@ -90,7 +90,8 @@ describe('framed checkpoints', () => {
         expect(r.state.series).toEqual(c.state.series);
         expect(finalHash(task, r.state)).toBe(whole);
       }
-    });
+      // three growths of 600 particles: dbm-square (a Laplace solve per particle) takes about 7 s on a loaded core
+    }, 120_000);
   }
 
   it('reads a checkpoint written as one protobuf message (the layout before frames)', () => {
