@@ -1,18 +1,33 @@
 /**
  * Sparse storage of a 2D grid in tiles of 8 × 8 cells: this directory maps
  * tile coordinates (ix >> 3, iy >> 3) to tile numbers 0, 1, 2, ... in
- * allocation order, through a hash table (worker/index/cell-hash-table.ts). The
- * grids built on it (worker/index/tiled-grids.ts) keep 64 cell values per tile in
- * one typed array, so neighbouring cells share memory, and memory grows
- * with the number of tiles touched, never with the area spanned. The last
- * tile looked up is cached: a walker's successive queries rarely hash.
+ * allocation order. The grids built on it (worker/index/tiled-grids.ts) keep
+ * 64 cell values per tile in one typed array, so neighbouring cells share
+ * memory, and memory grows with the number of tiles touched, never with the
+ * area spanned.
+ *
+ * Two levels, so that neighbouring tiles are found without hashing:
+ * tiles are grouped in *blocks* of 4 × 4 tiles, a hash table
+ * (worker/index/cell-hash-table.ts) maps block coordinates (tx >> 2, ty >> 2)
+ * to block numbers in allocation order, and a block is 16 int32 entries
+ * (one cache line) holding 1 + the tile number of each of its tiles (0:
+ * none). The last block looked up is cached, so a walker moving among
+ * neighbouring tiles reads one array entry per query and hashes only when
+ * it crosses into another block; at 10^7 particles and more the hash table
+ * is far larger than the processor's caches and each hash costs a memory
+ * access. Tile numbers depend only on the order in which tiles are first
+ * added, so every grid built on the directory holds the same values in the
+ * same places as with a one-level directory (the state hashes are the same).
  */
 
 import { CellHashTable, type SharedCellHashTable } from './cell-hash-table.js';
+import { reservedArray, poolGrowth } from './pool-growth.js';
+import { sharedInt32 } from '../core/shared-arrays.js';
 
 /** A directory in shared memory (TileDirectory.shared). */
 export interface SharedTileDirectory {
   table: SharedCellHashTable;
+  blocks: Int32Array;
   tiles: number;
 }
 
@@ -20,22 +35,45 @@ export const TILE_SHIFT = 3;
 export const TILE_MASK = (1 << TILE_SHIFT) - 1;
 export const TILE_CELLS = 1 << (2 * TILE_SHIFT);
 
+/** A block is BLOCK_SIDE × BLOCK_SIDE tiles. */
+const BLOCK_SHIFT = 2;
+const BLOCK_MASK = (1 << BLOCK_SHIFT) - 1;
+const BLOCK_ENTRIES = 1 << (2 * BLOCK_SHIFT);
+/**
+ * Blocks expected per expected tile, for sizing: a block holds up to 16
+ * tiles, and in DLA, lattice and Eden growth 3 to 8 of them in use.
+ */
+const BLOCKS_PER_TILE = 0.25;
+const NO_BLOCK = -2147483648;
+
 export class TileDirectory {
   private readonly table: CellHashTable;
+  /** 16 entries per block: 1 + tile number, 0 for none (re-read after an add: it may be reallocated). */
+  private blocks: Int32Array;
+  private blockCount = 0;
   private tiles = 0;
-  private cacheTx = -2147483648;
-  private cacheTy = -2147483648;
-  private cacheTile = -1;
+  private cacheBx = NO_BLOCK;
+  private cacheBy = NO_BLOCK;
+  /** Entry offset of the cached block in `blocks`, or -1 when that block does not exist. */
+  private cacheBase = -1;
 
   /** With `from`, the directory reads that shared state (read only: no tile may be added). */
   constructor(expectedTiles: number, from?: SharedTileDirectory) {
-    this.table = new CellHashTable(expectedTiles, from?.table);
-    if (from) this.tiles = from.tiles;
+    this.table = new CellHashTable(Math.max(16, Math.ceil(expectedTiles * BLOCKS_PER_TILE)), from?.table);
+    if (from) {
+      this.blocks = from.blocks;
+      this.blockCount = from.blocks.length / BLOCK_ENTRIES;
+      this.tiles = from.tiles;
+      return;
+    }
+    // zero-filled and used in allocation order: pages of the reservation no block uses stay unmapped
+    const need = Math.max(4, Math.ceil(expectedTiles * BLOCKS_PER_TILE)) * BLOCK_ENTRIES;
+    this.blocks = reservedArray((n) => new Int32Array(n), need, 2 * need);
   }
 
   /** A copy in shared memory: the same tile numbers. */
   shared(): SharedTileDirectory {
-    return { table: this.table.shared(), tiles: this.tiles };
+    return { table: this.table.shared(), blocks: sharedInt32(this.blocks, this.blockCount * BLOCK_ENTRIES), tiles: this.tiles };
   }
 
   get count(): number {
@@ -43,28 +81,48 @@ export class TileDirectory {
   }
 
   get bytes(): number {
-    return this.table.bytes;
+    return this.table.bytes + this.blocks.byteLength;
   }
 
   /** Tile number of tile (tx, ty), or -1 when it was never allocated. */
   find(tx: number, ty: number): number {
-    if (tx === this.cacheTx && ty === this.cacheTy) return this.cacheTile;
-    const t = this.table.get(tx, ty, -1);
-    this.cacheTx = tx;
-    this.cacheTy = ty;
-    this.cacheTile = t;
-    return t;
+    const bx = tx >> BLOCK_SHIFT;
+    const by = ty >> BLOCK_SHIFT;
+    let base = this.cacheBase;
+    if (bx !== this.cacheBx || by !== this.cacheBy) {
+      const b = this.table.get(bx, by, -1);
+      base = b < 0 ? -1 : b * BLOCK_ENTRIES;
+      this.cacheBx = bx;
+      this.cacheBy = by;
+      this.cacheBase = base;
+    }
+    return base < 0 ? -1 : this.blocks[base + ((ty & BLOCK_MASK) << BLOCK_SHIFT) + (tx & BLOCK_MASK)] - 1;
   }
 
   /** Tile number of tile (tx, ty), allocating the next number when absent. */
   findOrAdd(tx: number, ty: number): number {
-    let t = this.find(tx, ty);
-    if (t < 0) {
-      t = this.tiles++;
-      this.table.set(tx, ty, t);
-      this.cacheTile = t;
+    const t = this.find(tx, ty);
+    if (t >= 0) return t;
+    let base = this.cacheBase;
+    if (base < 0) {
+      const b = this.blockCount++;
+      base = b * BLOCK_ENTRIES;
+      if (base + BLOCK_ENTRIES > this.blocks.length) {
+        const bigger = new Int32Array(poolGrowth(this.blocks.length, b, BLOCK_ENTRIES));
+        bigger.set(this.blocks);
+        this.blocks = bigger;
+      }
+      this.table.set(tx >> BLOCK_SHIFT, ty >> BLOCK_SHIFT, b);
+      this.cacheBase = base;
     }
-    return t;
+    const n = this.tiles++;
+    this.blocks[base + ((ty & BLOCK_MASK) << BLOCK_SHIFT) + (tx & BLOCK_MASK)] = n + 1;
+    return n;
+  }
+
+  /** Blocks in use (for memory accounting). */
+  get blocksInUse(): number {
+    return this.blockCount;
   }
 }
 
