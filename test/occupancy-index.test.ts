@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { OccupancyIndex2d } from '../worker/index/occupancy-index-2d.js';
 import { Random } from '../worker/core/random.js';
 import { CORE_MASK, WINDOW_RADIUS, WindowBitGrid } from '../worker/index/window-bit-grid.js';
-import { TiledByteGrid, TiledInt32Grid, reservedArray } from '../worker/index/tiled-grids.js';
+import { TiledByteGrid, TiledInt32Grid } from '../worker/index/tiled-grids.js';
+import { reservedArray } from '../worker/index/pool-growth.js';
 
 // The index must give a lower bound on (nearest-centre distance) − 1
 // everywhere, be exact close to the cluster, and list every centre within 2

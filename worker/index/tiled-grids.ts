@@ -18,8 +18,6 @@ import { TILE_CELLS, TILE_MASK, TILE_SHIFT, TileDirectory, cellInTile, type Shar
 import { sharedInt32, sharedUint8 } from '../core/shared-arrays.js';
 import { poolGrowth, reservedArray } from './pool-growth.js';
 
-export { poolGrowth, reservedArray };
-
 /** A tiled grid in shared memory (the grids' `shared()`): the directory and the pool of the tiles in use. */
 export interface SharedTiledGrid<P> {
   dir: SharedTileDirectory;

@@ -11,7 +11,8 @@
  */
 
 import { TileDirectory } from './tile-directory.js';
-import { poolGrowth, reservedArray, type SharedTiledGrid } from './tiled-grids.js';
+import { type SharedTiledGrid } from './tiled-grids.js';
+import { poolGrowth, reservedArray } from './pool-growth.js';
 import { sharedInt32 } from '../core/shared-arrays.js';
 
 /** Cells of a window on each side of its centre cell. */
