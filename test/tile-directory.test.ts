@@ -5,8 +5,11 @@ import { Random } from '../worker/core/random.js';
 // The directory is a map from tile coordinates to tile numbers in order of
 // first addition: a plain Map is the reference (common practice, no source).
 describe('TileDirectory', () => {
-  it('numbers tiles in order of first addition and finds them again, across block borders and negative coordinates', () => {
-    const dir = new TileDirectory(4); // sized far too small: blocks and hash table must grow
+  // 4: sized far too small (blocks and hash table must grow, most blocks lie outside the
+  // dense window around the origin); 40,000: a window of 200 × 200 blocks (±400 tiles) holds
+  // the walk's neighbourhood of the origin, the long hops (±2000 tiles) go to the hash table
+  it.each([4, 40_000])('numbers tiles in order of first addition and finds them again, across block borders, window edges and negative coordinates (sized for %i tiles)', (expected) => {
+    const dir = new TileDirectory(expected);
     const ref = new Map<string, number>();
     const rng = Random.forRun('5', 0, 0);
     let tx = 0;
@@ -44,6 +47,23 @@ describe('TileDirectory', () => {
       expect(copy.find(x, y)).toBe(t);
     }
     expect(copy.find(-3_000_000, 7)).toBe(-1);
+  });
+
+  it('keeps blocks on both sides of each edge of the dense window apart', () => {
+    const dir = new TileDirectory(40_000); // window of 200 × 200 blocks: block coordinates −100 … 99, tiles −400 … 399
+    const ref = new Map<string, number>();
+    const edges = [-404, -401, -400, -399, -1, 0, 395, 396, 399, 400, 403, 404];
+    for (const x of edges) for (const y of edges) {
+      ref.set(`${x},${y}`, ref.size);
+      expect(dir.findOrAdd(x, y)).toBe(ref.get(`${x},${y}`));
+    }
+    for (const x of edges) for (const y of edges) {
+      expect(dir.find(x, y)).toBe(ref.get(`${x},${y}`));
+      // the other tiles of each block were never added
+      expect(dir.find(x ^ 2, y)).toBe(ref.get(`${x ^ 2},${y}`) ?? -1);
+    }
+    const copy = new TileDirectory(0, dir.shared());
+    for (const x of edges) for (const y of edges) expect(copy.find(x, y)).toBe(ref.get(`${x},${y}`));
   });
 
   it('fills blocks of 4 × 4 tiles: a compact patch of tiles uses about one block per 16 tiles', () => {
