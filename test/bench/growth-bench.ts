@@ -6,7 +6,7 @@
  * to that size alone and covers the whole process.
  *
  * Usage (after `npx tsc`):
- *   node dist/test/bench/growth-bench.js [--sizes 10000,100000,1000000] [--seed S] [--model KIND]
+ *   node dist/test/bench/growth-bench.js [--sizes 10000,100000,1000000] [--seed S] [--model KIND] [--repeat K]
  * or env TENDRIL_BENCH_SIZES=10000,100000. Default sizes: 10^4, 10^5, 10^6.
  *
  * Prints a table, then one JSON line per size:
@@ -14,6 +14,13 @@
  *    "shortStepsPerParticle":...,"returnsPerParticle":...,"wallSeconds":...,"cpuSeconds":...,"peakRssMB":...,...}
  * wallSeconds is the growth time inside the child (kernel construction
  * included, process start-up excluded).
+ *
+ * With --repeat K (1 to 15), each size is grown K times in turn, each in its
+ * own child, and one more JSON line per size gives the median rate:
+ *   {"bench":"growth-median","model":...,"particles":...,"runs":K,"particlesPerSecondMedian":...,
+ *    "particlesPerSecondRuns":[...],"cpuSecondsMedian":...,"sameStateHash":true}
+ * (this machine's speed moves by ±25 % from run to run with its neighbours'
+ * load, so a single run says little; the median of odd K is the middle run).
  */
 import { spawn } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
@@ -151,8 +158,63 @@ export function formatTable(rows: GrowthBenchRow[]): string {
   return [line(head), ...body.map(line)].join('\n');
 }
 
+/** The median line of a size grown --repeat K times. */
+export interface GrowthMedianRow {
+  bench: 'growth-median';
+  model: string;
+  particles: number;
+  runs: number;
+  particlesPerSecondMedian: number;
+  particlesPerSecondRuns: number[];
+  cpuSecondsMedian: number;
+  /** Every run ended on the same state hash (they must: same task, same bits). */
+  sameStateHash: boolean;
+  stateHash: string;
+}
+
+/** Median of a non-empty list (the mean of the middle two for an even count). */
+export function median(values: number[]): number {
+  if (values.length === 0) throw new RangeError('median of no values');
+  const v = [...values].sort((a, b) => a - b);
+  const h = v.length >> 1;
+  return v.length % 2 === 1 ? v[h] : (v[h - 1] + v[h]) / 2;
+}
+
+/** The median line of the runs of one size (all rows of the same size and model). */
+export function medianRow(rows: GrowthBenchRow[]): GrowthMedianRow {
+  if (rows.length === 0) throw new RangeError('median row of no runs');
+  return {
+    bench: 'growth-median',
+    model: rows[0].model,
+    particles: rows[0].particles,
+    runs: rows.length,
+    particlesPerSecondMedian: median(rows.map((r) => r.particlesPerSecond)),
+    particlesPerSecondRuns: rows.map((r) => r.particlesPerSecond),
+    cpuSecondsMedian: median(rows.map((r) => r.cpuSeconds)),
+    sameStateHash: rows.every((r) => r.stateHash === rows[0].stateHash),
+    stateHash: rows[0].stateHash,
+  };
+}
+
+export const REPEAT_RANGE = { min: 1, max: 15 } as const;
+
+/** `--repeat K` (or `--repeat=K`) in argv: runs per size, default 1; throws a one-line RangeError. */
+export function repeatFromArgs(argv: string[]): number {
+  const i = argv.indexOf('--repeat');
+  const eq = argv.find((a) => a.startsWith('--repeat='));
+  const text = i >= 0 ? argv[i + 1] ?? '' : eq !== undefined ? eq.slice('--repeat='.length) : undefined;
+  if (text === undefined) return 1;
+  const k = Number(text);
+  if (!/^\d+$/.test(text) || k < REPEAT_RANGE.min || k > REPEAT_RANGE.max) {
+    throw new RangeError(`--repeat must be an integer in [${REPEAT_RANGE.min}, ${REPEAT_RANGE.max}], got "${text}"`);
+  }
+  return k;
+}
+
 export interface GrowthBenchOptions {
   sizes?: number[];
+  /** Runs per size (each in its own child); with more than one, a median line per size. Default 1. */
+  repeat?: number;
   seed?: string;
   /** Model kind; default dla-offlattice-2d. */
   model?: string;
@@ -166,11 +228,19 @@ export async function runGrowthBenchmark(opts: GrowthBenchOptions = {}): Promise
   const seed = opts.seed ?? '1';
   const write = opts.write ?? ((s: string) => void process.stdout.write(s));
   const model = opts.model ?? 'dla-offlattice-2d';
+  const repeat = opts.repeat ?? 1;
   const rows: GrowthBenchRow[] = [];
-  write(`growth benchmark (${model}, default parameters, seed ${seed}, one fresh process per size)\n`);
-  for (const n of sizes) rows.push(await runChild(n, seed, model));
+  write(`growth benchmark (${model}, default parameters, seed ${seed}, one fresh process per ${repeat > 1 ? `run, ${repeat} runs per size` : 'size'})\n`);
+  for (const n of sizes) for (let k = 0; k < repeat; k++) rows.push(await runChild(n, seed, model));
   write(formatTable(rows) + '\n');
   for (const r of rows) write(JSON.stringify(r) + '\n');
+  if (repeat > 1) {
+    for (const n of sizes) {
+      const m = medianRow(rows.filter((r) => r.particles === n));
+      write(`${n} particles: median ${m.particlesPerSecondMedian.toFixed(0)} particles/s over ${m.runs} runs (${m.particlesPerSecondRuns.map((v) => v.toFixed(0)).join(', ')})${m.sameStateHash ? '' : '; STATE HASHES DIFFER'}\n`);
+      write(JSON.stringify(m) + '\n');
+    }
+  }
   return rows;
 }
 
@@ -198,7 +268,7 @@ if (isEntryPoint(import.meta.url)) {
   } else {
     try {
       const m = argv.indexOf('--model');
-      await runGrowthBenchmark({ sizes: sizesFromArgs(argv), seed: seedFromArgs(argv), model: m >= 0 ? modelDescriptor(argv[m + 1]).kind : undefined });
+      await runGrowthBenchmark({ sizes: sizesFromArgs(argv), seed: seedFromArgs(argv), model: m >= 0 ? modelDescriptor(argv[m + 1]).kind : undefined, repeat: repeatFromArgs(argv) });
     } catch (err) {
       process.stderr.write(`growth bench: ${err instanceof Error ? err.message : String(err)}\n`);
       process.exit(1);

@@ -6,7 +6,8 @@
  *
  * Parts:
  *   growth     test/bench/growth-bench.ts: one cluster per size, each in a fresh
- *              process (--sizes or env TENDRIL_BENCH_SIZES; default 10^4, 10^5, 10^6)
+ *              process (--sizes or env TENDRIL_BENCH_SIZES; default 10^4, 10^5, 10^6;
+ *              --repeat K grows each size K times and adds the median rate)
  *   dla3d      the same growth benchmark for off-lattice DLA in 3D
  *              (dla-offlattice-3d; --sizes, default 10^5 and 10^6)
  *   aggregate  test/bench/aggregate-bench.ts: runAggregateBenchmark()
@@ -46,7 +47,7 @@
  *   dbm-cap    test/bench/dbm-cap-bench.ts: total variation between the capped
  *              η < 1 growth law and the exact one on a 2000-disk cluster, per cap
  */
-import { runGrowthBenchmark, sizesFromArgs } from './growth-bench.js';
+import { repeatFromArgs, runGrowthBenchmark, sizesFromArgs } from './growth-bench.js';
 import { runAggregateBenchmark } from './aggregate-bench.js';
 import { runFarmBenchmark } from './farm-bench.js';
 import { runProbeBenchmark } from './probe-bench.js';
@@ -97,7 +98,7 @@ async function main(argv: string[]): Promise<number> {
   let failed = 0;
   for (const part of parts) {
     try {
-      if (part === 'growth') await runGrowthBenchmark({ sizes: sizesFromArgs(argv) });
+      if (part === 'growth') await runGrowthBenchmark({ sizes: sizesFromArgs(argv), repeat: repeatFromArgs(argv) });
       else if (part === 'giant') {
         const given = argv.some((a) => a === '--sizes' || a.startsWith('--sizes='));
         await runGiantBenchmark(giantOptionsFromArgs(argv, given ? sizesFromArgs(argv) : undefined));
@@ -114,7 +115,7 @@ async function main(argv: string[]): Promise<number> {
       }
       else if (part === 'dla3d') {
         const given = argv.some((a) => a === '--sizes' || a.startsWith('--sizes='));
-        await runGrowthBenchmark({ sizes: given ? sizesFromArgs(argv) : DLA3D_SIZES, model: 'dla-offlattice-3d' });
+        await runGrowthBenchmark({ sizes: given ? sizesFromArgs(argv) : DLA3D_SIZES, model: 'dla-offlattice-3d', repeat: repeatFromArgs(argv) });
       }
       else if (part === 'eden' || part === 'lattice' || part === 'dbm-lattice') await runLatticeBenchmark(part, argv.some((a) => a === '--sizes' || a.startsWith('--sizes=')) ? sizesFromArgs(argv) : undefined, modelsFromArgs(argv));
       else if (part === 'aggregate') runAggregate();
