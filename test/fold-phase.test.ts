@@ -16,7 +16,7 @@ import { recordPlanarAnisotropy } from '../worker/core/anisotropy.js';
 import { createKernel, modelParams } from '../worker/models/registry.js';
 import { observableSection } from '../coordinator/stats/observable-bands.js';
 import { syntheticShellRuns, type ShellAngles } from './support/synthetic-shell-runs.js';
-import { phaseVerdict } from '../coordinator/stats/fold-phase.js';
+import { PHASE_RULE, isotropicPhaseRule, phaseVerdict } from '../coordinator/stats/fold-phase.js';
 
 /** K synthetic clusters (test/support/synthetic-shell-runs.ts) recorded at sizes (n + 1)/2 and n + 1. */
 function syntheticRuns(k: number, n: number, angles: ShellAngles | null, seed: string): GrowthResult[] {
@@ -39,6 +39,17 @@ describe('signed fold phase: values and verdict', () => {
     expect(phaseVerdict(-0.01, 0.01)).toBe('no k-fold alignment beyond noise');
     expect(phaseVerdict(0, 0.3)).toBe('no k-fold alignment beyond noise');
     expect(phaseVerdict(NaN, 1)).toBe('unknown');
+  });
+
+  it('the rule without a lattice: a check of the exact 0, whatever the sign', () => {
+    expect(phaseVerdict(0.01, 0.2, false)).toBe('departs from the exact 0');
+    expect(phaseVerdict(-0.2, -0.01, false)).toBe('departs from the exact 0');
+    expect(phaseVerdict(-0.01, 0.01, false)).toBe('consistent with the exact 0');
+    expect(phaseVerdict(0, 0.3, false)).toBe('consistent with the exact 0');
+    expect(phaseVerdict(-0.3, 0, false)).toBe('consistent with the exact 0');
+    expect(phaseVerdict(1, NaN, false)).toBe('unknown');
+    expect(isotropicPhaseRule(0.95)).toContain('about 1 ensemble in 20 per phase');
+    expect(isotropicPhaseRule(0.9)).toContain('a 90% band misses an exact value by chance in about 1 ensemble in 10');
   });
 
   it('points exactly on the axes give P_4 = 1 (and P_6 = cos 6θ), on the diagonals P_4 = −1', () => {
@@ -134,12 +145,27 @@ describe('signed fold phase of grown ensembles (24 clusters of 3000 particles)',
     return runs;
   }
 
-  it('dla-offlattice-2d: no 4-fold or 6-fold alignment beyond noise (99.9% band)', () => {
+  it('dla-offlattice-2d (no lattice): both phases consistent with the exact 0 (99.9% band), judged by the rule without a lattice', () => {
     const runs = ensemble('dla-offlattice-2d', '14');
-    for (const name of ['fold_phase_4', 'fold_phase_6']) expect(phaseOf(runs, name, 0.999).verdict).toBe('no k-fold alignment beyond noise');
+    for (const name of ['fold_phase_4', 'fold_phase_6']) expect(phaseOf(runs, name, 0.999).verdict).toBe('consistent with the exact 0');
+    expect(observableSection(runs, { ...options, level: 0.999 })!.foldPhase!.rule).toBe(isotropicPhaseRule(0.999));
   });
 
-  it('dla-square: 4-fold phase aligned with the lattice axes', () => {
-    expect(phaseOf(ensemble('dla-square', '14'), 'fold_phase_4').verdict).toBe('aligned with the lattice axes');
+  it('dla-square: 4-fold phase aligned with the lattice axes, by the lattice rule', () => {
+    const runs = ensemble('dla-square', '14');
+    expect(phaseOf(runs, 'fold_phase_4').verdict).toBe('aligned with the lattice axes');
+    expect(observableSection(runs, options)!.foldPhase!.rule).toBe(PHASE_RULE);
+  });
+
+  it('an off-lattice ensemble never gets a lattice verdict, even when its band misses 0', () => {
+    // the same bands, once labelled as the square lattice and once as off-lattice DLA: the verdicts
+    // differ only in their wording, and a band that misses 0 off-lattice is a departure, not an alignment
+    const square = syntheticRuns(24, 2000, { offset: 0, spread: 0.5 }, '32');
+    const off = square.map((r) => ({ ...r, model: { kind: 'dla-offlattice-2d', params: {} } }));
+    expect(phaseOf(square, 'fold_phase_4').verdict).toBe('aligned with the lattice axes');
+    expect(phaseOf(off, 'fold_phase_4').verdict).toBe('departs from the exact 0');
+    const a = observableSection(square, options)!.foldPhase!.verdicts;
+    const b = observableSection(off, options)!.foldPhase!.verdicts;
+    expect(b.map((v) => [v.mean, v.lo, v.hi])).toEqual(a.map((v) => [v.mean, v.lo, v.hi]));
   });
 });

@@ -33,6 +33,10 @@ describe('report and summary: model observables', () => {
   it('off-lattice DLA (the isotropic baseline) gets the anisotropy figures but no interface figure', () => {
     const figs = observableFigures(observableSection(runs('dla-offlattice-2d', 300, 4), { seed: '1', resamples: 100, level: 0.9 }));
     expect(figs.map((f) => f.name)).toEqual(['anisotropy-fold-amplitude', 'anisotropy-fold-phase', 'anisotropy-axis-ratio']);
+    // no lattice: the phase is a check of the exact 0, never an alignment with axes the model does not have
+    expect(figs[1].caption).toMatch(/P_\{4\} at N = 300: \S+ \[\S+, \S+\], (consistent with the exact 0|departs from the exact 0); P_\{6\} at N = 300/);
+    expect(figs[1].caption).toContain('Rule: the model has no lattice, so E P_k = 0 exactly');
+    expect(figs[1].caption).not.toContain('lattice axes when');
   });
 
   it('a summary without the phases (runs resumed from older checkpoints) draws the phase figure with no verdict, or none without bands', () => {

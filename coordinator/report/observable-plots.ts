@@ -52,7 +52,7 @@ function anisotropyFigure(s: ObservableSection, kind: 'fold_amplitude' | 'axis_r
   return { name, title, caption, svg: p.toSvg(), note: null };
 }
 
-/** The signed phases P_k = mean cos kθ of the outer shell against N, with the line 0 (the exact expectation of a rotation-invariant model) and the verdicts of PHASE_RULE. */
+/** The signed phases P_k = mean cos kθ of the outer shell against N, with the line 0 (the exact expectation of a rotation-invariant model) and the verdicts of the summary's rule (PHASE_RULE on a lattice, isotropicPhaseRule without one). */
 function phaseFigure(s: ObservableSection): Figure | null {
   const bands = ['4', '6'].map((k) => [k, bandOf(s, `fold_phase_${k}`)] as const).filter(([, b]) => b !== undefined) as [string, ObservableBand][];
   if (bands.length === 0) return null;
@@ -73,7 +73,7 @@ function phaseFigure(s: ObservableSection): Figure | null {
     'mean of cos kθ over the particles between R_max/2 and R_max, θ from the lattice x axis (worker/core/anisotropy.ts): ' +
     `ensemble mean over ${s.clusters} cluster(s) at each recorded size, shaded: ${Math.round(s.level * 100)}% percentile bootstrap band over clusters (${s.resamples} resamples). ` +
     'Its expectation is exactly 0 at every N for a model invariant under rotations (off-lattice DLA, Eden, DBM), so the band carries the ensemble\'s own noise and needs no noise model. ' +
-    `Verdict: ${verdicts}. Rule: ${PHASE_RULE}.`;
+    `Verdict: ${verdicts}. Rule: ${ph?.rule ?? PHASE_RULE}.`;
   return { name, title, caption, svg: p.toSvg(), note: null };
 }
 

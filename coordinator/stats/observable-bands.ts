@@ -29,7 +29,9 @@
  *  - foldPhase (when fold_phase_4 and fold_phase_6 are recorded by every
  *    run): the verdict of each signed phase fold_phase_k at the largest
  *    shared size, by PHASE_RULE (coordinator/stats/fold-phase.ts): its band
- *    against 0, the exact expectation for a rotation-invariant model. Null
+ *    against 0, the exact expectation for a rotation-invariant model; for a
+ *    model without a lattice (descriptor lattice null) by isotropicPhaseRule,
+ *    a check of that exact 0 rather than a direction. Null
  *    when some run was resumed from a checkpoint written before the phases
  *    existed.
  *
@@ -39,7 +41,8 @@ import type { GrowthResult } from '../../worker/core/growth-kernel.js';
 import { bootstrapInterval, sortedQuantile, type IntervalSummary } from './bca.js';
 import { bootstrapRandom, drawResample, jackknifeMeans, weightedColumnMeans } from './bootstrap.js';
 import { ABOVE_NOISE_RULE, aboveNoise, isotropicFoldMean, isotropicFoldQuantile, NOISE_QUANTILE } from './fold-noise.js';
-import { PHASE_RULE, phaseVerdict, type PhaseVerdict } from './fold-phase.js';
+import { PHASE_RULE, isotropicPhaseRule, phaseVerdict, type PhaseVerdict } from './fold-phase.js';
+import { isModelKind, modelDescriptor } from '../../worker/models/registry.js';
 
 export const BAND_RESAMPLES = 1000;
 export const INTERFACE_WINDOW_RULE = 'N from max(1000, N_final · 10^-2) to N_final';
@@ -212,11 +215,17 @@ export function observableSection(runs: readonly GrowthResult[], o: ObservableOp
     bands,
     interfaceGrowth: names.includes('interface_width') && names.includes('interface_radius') ? interfaceGrowth(runs, sizes, o) : null,
     foldNoise: names.includes('shell_count') ? foldNoise(runs, sizes, bands) : null,
-    foldPhase: names.includes('fold_phase_4') && names.includes('fold_phase_6') ? foldPhase(sizes, bands) : null,
+    foldPhase: names.includes('fold_phase_4') && names.includes('fold_phase_6') ? foldPhase(sizes, bands, onLattice(runs), o.level) : null,
   };
 }
 
-function foldPhase(sizes: number[], bands: ObservableBand[]): FoldPhase | null {
+/** False when the runs' model has no lattice (its law is invariant under rotations); an unknown kind counts as a lattice (the verdict of summaries written before the distinction). */
+function onLattice(runs: readonly GrowthResult[]): boolean {
+  const kind = runs[0].model.kind;
+  return !isModelKind(kind) || modelDescriptor(kind).lattice !== null;
+}
+
+function foldPhase(sizes: number[], bands: ObservableBand[], lattice: boolean, level: number): FoldPhase | null {
   if (sizes.length === 0) return null;
   const last = sizes[sizes.length - 1];
   const verdicts = bands
@@ -224,9 +233,9 @@ function foldPhase(sizes: number[], bands: ObservableBand[]): FoldPhase | null {
     .map((b) => {
       const i = b.sizes.indexOf(last);
       const [mean, lo, hi] = i >= 0 ? [b.mean[i], b.lo[i], b.hi[i]] : [NaN, NaN, NaN];
-      return { name: b.name, size: last, mean, lo, hi, verdict: phaseVerdict(lo, hi) };
+      return { name: b.name, size: last, mean, lo, hi, verdict: phaseVerdict(lo, hi, lattice) };
     });
-  return { verdicts, rule: PHASE_RULE };
+  return { verdicts, rule: lattice ? PHASE_RULE : isotropicPhaseRule(level) };
 }
 
 function foldNoise(runs: readonly GrowthResult[], allSizes: number[], bands: ObservableBand[]): FoldNoise | null {
