@@ -86,18 +86,21 @@ describe('the stop signal is read inside the walk', () => {
   it('a thread run stopped mid-chunk hands back a checkpoint that resumes to the same bits', async () => {
     const pool = new TaskThreadPool(1);
     try {
-      const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 20000, clusters: 1, seed: 3 });
+      // Stopped at its first progress report after growth began (after the first chunk of 256
+      // particles), not after a fixed sleep: a fixed sleep raced the whole run on a fast machine.
+      // The stop is a shared-memory signal the walk reads every few thousand steps; 2·10^5
+      // particles leave the thread about a second of growth or more when it is raised.
+      const spec = validateSpec({ model: 'dla-offlattice-2d', particles: 200000, clusters: 1, seed: 3 });
       const run = runTaskFor('stop-e1', spec, 0);
-      const h = pool.run(run, {});
-      await new Promise((r) => setTimeout(r, 300));
-      h.stop();
+      // progress arrives asynchronously, from the thread, so `h` is assigned by the time it is read
+      const h = pool.run(run, { onProgress: (p) => p.count > 0 && h.stop() });
       const o = await h.outcome;
       expect(o.status).toBe('stopped');
       if (o.status !== 'stopped') return;
       const again = await pool.run(run, { checkpoint: o.checkpoint }).outcome;
       expect(again.status).toBe('done');
-      const whole = createKernel({ model: spec.model, particles: 20000, ensembleSeed: spec.seed, runIndex: 0, recordsPerDecade: spec.recordsPerDecade });
-      whole.growTo(20000);
+      const whole = createKernel({ model: spec.model, particles: 200000, ensembleSeed: spec.seed, runIndex: 0, recordsPerDecade: spec.recordsPerDecade });
+      whole.growTo(200000);
       if (again.status === 'done') expect(again.result.stateHash).toBe(whole.result().stateHash);
     } finally {
       await pool.close();
